@@ -1,0 +1,1 @@
+"""Subcommands of the ``survey`` command line (a face: may use Rich and pint)."""

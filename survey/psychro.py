@@ -1,0 +1,345 @@
+"""Moist-air states, surface humidity and pressure: SI floats in and out, psychrolib underneath.
+
+Every formula here is psychrolib's implementation of ASHRAE Handbook - Fundamentals (2017)
+ch. 1 (cited per function), with one deliberate addition, explained below.
+
+Units: temperatures in °C, relative humidity in percent (0-100), pressure in Pa, humidity
+ratio in kg water per kg dry air, enthalpy in J per kg dry air (datum: dry air and liquid
+water at 0 °C), volume in m³ per kg dry air.
+
+Relative humidity below 0 °C
+----------------------------
+Hygrometers, by the meteorological convention (WMO Guide No. 8, Annex 4.B), report relative
+humidity with respect to *liquid water* at every temperature. psychrolib's saturation pressure
+switches to ice below the triple point (0.01 °C). This module therefore:
+
+* reads an entered RH as relative to liquid water at all temperatures, so the vapour pressure
+  is ``pw = RH · pws_water(t)``; above 0.01 °C this is exactly psychrolib's value. Below it,
+  the water saturation pressure is ASHRAE ch. 1 eqn 6 (Hyland–Wexler over liquid water)
+  continued into the supercooled range; psychrolib does not expose that branch, so its
+  coefficients are repeated in :func:`sat_vapour_pressure_water_pa` (a documented departure);
+* reports ``dew_point_c`` over liquid water (the meteorological dew point) and, when the air's
+  condensation point lies below 0.01 °C, also ``frost_point_c`` over ice;
+* computes *surface* RH against the phase that would form on the surface: liquid water above
+  the triple point, ice below it (psychrolib's ``GetSatVapPres``). So a surface RH of 100 % or
+  more means condensation above 0 °C and frost below, and it happens exactly when the surface
+  is at or below :func:`condensation_point_c` — the dew point, or the frost point below 0 °C.
+
+Input domain: dry bulb −50…+70 °C, RH above 0 and at most 100 %, pressure 50–110 kPa, dew
+point not above the dry bulb. Anything else raises :class:`~survey.errors.InputError`.
+"""
+
+from __future__ import annotations
+
+import math
+from typing import NamedTuple
+
+import psychrolib
+
+from survey.errors import InputError
+
+# psychrolib keeps one global unit system: set here once and never changed.
+psychrolib.SetUnitSystem(psychrolib.SI)
+
+DRY_BULB_MIN_C = -50.0
+DRY_BULB_MAX_C = 70.0
+SURFACE_TEMP_MIN_C = -60.0
+SURFACE_TEMP_MAX_C = 90.0
+PRESSURE_MIN_PA = 50_000.0
+PRESSURE_MAX_PA = 110_000.0
+ALTITUDE_MIN_M = -500.0
+ALTITUDE_MAX_M = 5_000.0
+#: Standard sea-level pressure, Pa (ASHRAE Fundamentals 2017 ch. 1, Table 1).
+STANDARD_PRESSURE_PA = 101_325.0
+#: Triple point of water, °C; psychrolib switches between ice and water here.
+TRIPLE_POINT_C = psychrolib.TRIPLE_POINT_WATER_SI
+#: 7000 grains make one pound, so grains per pound = 7000 × W (kg/kg).
+GRAINS_PER_POUND_PER_KG_PER_KG = 7000.0
+
+
+class MoistAir(NamedTuple):
+    """One moist-air state. Every field is an SI float; see the module notes for conventions."""
+
+    dry_bulb_c: float
+    rh_pct: float  #: relative to liquid water, as hygrometers report it
+    pressure_pa: float
+    dew_point_c: float  #: over liquid water (meteorological dew point)
+    frost_point_c: float | None  #: over ice, when the condensation point is below 0.01 °C
+    humidity_ratio_kg_per_kg: float
+    vapour_pressure_pa: float
+    enthalpy_j_per_kg: float
+    wet_bulb_c: float
+    absolute_humidity_g_per_m3: float
+    specific_volume_m3_per_kg: float
+    density_kg_per_m3: float
+
+    @property
+    def grains_per_pound(self) -> float:
+        return self.humidity_ratio_kg_per_kg * GRAINS_PER_POUND_PER_KG_PER_KG
+
+    @property
+    def humidity_ratio_g_per_kg(self) -> float:
+        return self.humidity_ratio_kg_per_kg * 1000.0
+
+    @property
+    def condensation_point_c(self) -> float:
+        """Where a cooled surface first wets (dew point) or frosts (frost point)."""
+        return self.dew_point_c if self.frost_point_c is None else self.frost_point_c
+
+
+# --- range guards ------------------------------------------------------------------------
+
+def _finite(field: str, value: float) -> None:
+    if not isinstance(value, (int, float)) or isinstance(value, bool) or not math.isfinite(value):
+        raise InputError(field, value, "must be a finite number")
+
+
+def check_dry_bulb(dry_bulb_c: float, field: str = "dry bulb") -> None:
+    _finite(field, dry_bulb_c)
+    if not DRY_BULB_MIN_C <= dry_bulb_c <= DRY_BULB_MAX_C:
+        raise InputError(field, _fmt(dry_bulb_c, "°C"),
+                         f"air temperature must be between {DRY_BULB_MIN_C:g} and "
+                         f"{DRY_BULB_MAX_C:g} °C")
+
+
+def check_rh(rh_pct: float, field: str = "relative humidity") -> None:
+    _finite(field, rh_pct)
+    if not 0.0 < rh_pct <= 100.0:
+        raise InputError(field, _fmt(rh_pct, "%"),
+                         "relative humidity must be above 0 and at most 100 %")
+
+
+def check_pressure(pressure_pa: float, field: str = "pressure") -> None:
+    _finite(field, pressure_pa)
+    if not PRESSURE_MIN_PA <= pressure_pa <= PRESSURE_MAX_PA:
+        raise InputError(field, _fmt(pressure_pa / 100.0, "hPa"),
+                         f"pressure must be between {PRESSURE_MIN_PA / 100:g} and "
+                         f"{PRESSURE_MAX_PA / 100:g} hPa (50-110 kPa)")
+
+
+def check_surface_temp(surface_temp_c: float, field: str = "surface temperature") -> None:
+    _finite(field, surface_temp_c)
+    if not SURFACE_TEMP_MIN_C <= surface_temp_c <= SURFACE_TEMP_MAX_C:
+        raise InputError(field, _fmt(surface_temp_c, "°C"),
+                         f"surface temperature must be between {SURFACE_TEMP_MIN_C:g} and "
+                         f"{SURFACE_TEMP_MAX_C:g} °C")
+
+
+def _fmt(value: float, unit: str) -> str:
+    return f"{value:g} {unit}" if unit != "%" else f"{value:g}"
+
+
+# --- saturation --------------------------------------------------------------------------
+
+def sat_vapour_pressure_pa(temp_c: float) -> float:
+    """Saturation pressure over the phase that forms at ``temp_c``: ice below the triple
+    point, liquid water above (psychrolib ``GetSatVapPres``, ASHRAE ch. 1 eqn 5 & 6)."""
+    return psychrolib.GetSatVapPres(temp_c)
+
+
+# ASHRAE Fundamentals 2017 ch. 1 eqn 6 (Hyland & Wexler 1983, over liquid water), Pa and K.
+_C8, _C9, _C10 = -5.8002206e03, 1.3914993, -4.8640239e-02
+_C11, _C12, _C13 = 4.1764768e-05, -1.4452093e-08, 6.5459673
+
+
+def _ln_pws_water(t_k: float) -> float:
+    return (_C8 / t_k + _C9 + _C10 * t_k + _C11 * t_k * t_k + _C12 * t_k * t_k * t_k
+            + _C13 * math.log(t_k))
+
+
+def sat_vapour_pressure_water_pa(temp_c: float) -> float:
+    """Saturation pressure over liquid water, supercooled below 0 °C.
+
+    Above the triple point this is psychrolib ``GetSatVapPres``. Below it, ASHRAE ch. 1
+    eqn 6 continued into the supercooled range (psychrolib has no such branch); the
+    difference from the WMO Magnus formula over water is under 0.5 % down to −40 °C, which a
+    test checks.
+    """
+    if temp_c > TRIPLE_POINT_C:
+        return psychrolib.GetSatVapPres(temp_c)
+    return math.exp(_ln_pws_water(temp_c + 273.15))
+
+
+def _dew_point_water_c(vapour_pressure_pa: float, guess_c: float) -> float:
+    """Temperature at which liquid water saturates at ``vapour_pressure_pa``.
+
+    Above the triple-point pressure this is psychrolib ``GetTDewPointFromVapPres``. Below
+    it, Newton–Raphson on ln pws of eqn 6, the same method psychrolib uses for its inverse.
+    """
+    if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
+        return psychrolib.GetTDewPointFromVapPres(max(guess_c, TRIPLE_POINT_C), vapour_pressure_pa)
+    target = math.log(vapour_pressure_pa)
+    t_k = min(guess_c, 0.0) + 273.15
+    for _ in range(50):
+        derivative = (-_C8 / (t_k * t_k) + _C10 + 2 * _C11 * t_k + 3 * _C12 * t_k * t_k
+                      + _C13 / t_k)
+        step = (_ln_pws_water(t_k) - target) / derivative
+        t_k -= step
+        if abs(step) < 1e-6:
+            break
+    return t_k - 273.15
+
+
+_TRIPLE_POINT_PRESSURE_PA = psychrolib.GetSatVapPres(TRIPLE_POINT_C)
+
+
+# --- states ------------------------------------------------------------------------------
+
+def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
+           pressure_pa: float) -> MoistAir:
+    humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure_pa, pressure_pa)
+    if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
+        dew_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
+        frost_point = None
+    else:
+        # psychrolib's inverse runs over ice below the triple point: that is the frost point.
+        frost_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
+        dew_point = min(_dew_point_water_c(vapour_pressure_pa, frost_point), dry_bulb_c)
+    volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
+    return MoistAir(
+        dry_bulb_c=dry_bulb_c,
+        rh_pct=rh_pct,
+        pressure_pa=pressure_pa,
+        dew_point_c=dew_point,
+        frost_point_c=frost_point,
+        humidity_ratio_kg_per_kg=humidity_ratio,
+        vapour_pressure_pa=vapour_pressure_pa,
+        enthalpy_j_per_kg=psychrolib.GetMoistAirEnthalpy(dry_bulb_c, humidity_ratio),
+        wet_bulb_c=psychrolib.GetTWetBulbFromHumRatio(dry_bulb_c, humidity_ratio, pressure_pa),
+        absolute_humidity_g_per_m3=1000.0 * humidity_ratio / volume,
+        specific_volume_m3_per_kg=volume,
+        # ASHRAE ch. 1 eqn 11: density of moist air = (1 + W) / v.
+        density_kg_per_m3=(1.0 + humidity_ratio) / volume,
+    )
+
+
+def state_from_rh(dry_bulb_c: float, rh_pct: float,
+                  pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+    """Moist air from dry bulb (°C), RH (%, relative to liquid water) and pressure (Pa)."""
+    check_dry_bulb(dry_bulb_c)
+    check_rh(rh_pct)
+    check_pressure(pressure_pa)
+    vapour_pressure = rh_pct / 100.0 * sat_vapour_pressure_water_pa(dry_bulb_c)
+    return _state(dry_bulb_c, rh_pct, vapour_pressure, pressure_pa)
+
+
+def state_from_dew_point(dry_bulb_c: float, dew_point_c: float,
+                         pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+    """Moist air from dry bulb and dew point (°C, over liquid water) and pressure (Pa)."""
+    check_dry_bulb(dry_bulb_c)
+    check_pressure(pressure_pa)
+    _finite("dew point", dew_point_c)
+    if dew_point_c > dry_bulb_c:
+        raise InputError("dew point", f"{dew_point_c:g} °C",
+                         f"dew point must not be above the air temperature ({dry_bulb_c:g} °C)")
+    if dew_point_c < DRY_BULB_MIN_C - 30.0:
+        raise InputError("dew point", f"{dew_point_c:g} °C",
+                         f"dew point must be at least {DRY_BULB_MIN_C - 30.0:g} °C")
+    vapour_pressure = sat_vapour_pressure_water_pa(dew_point_c)
+    rh = 100.0 * vapour_pressure / sat_vapour_pressure_water_pa(dry_bulb_c)
+    return _state(dry_bulb_c, min(rh, 100.0), vapour_pressure, pressure_pa)
+
+
+def state_from_wet_bulb(dry_bulb_c: float, wet_bulb_c: float,
+                        pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+    """Moist air from dry bulb and psychrometric wet bulb (°C) and pressure (Pa)
+    (psychrolib ``GetHumRatioFromTWetBulb``, ASHRAE ch. 1 eqn 33 & 35)."""
+    check_dry_bulb(dry_bulb_c)
+    check_pressure(pressure_pa)
+    _finite("wet bulb", wet_bulb_c)
+    if wet_bulb_c > dry_bulb_c:
+        raise InputError("wet bulb", f"{wet_bulb_c:g} °C",
+                         f"wet bulb must not be above the air temperature ({dry_bulb_c:g} °C)")
+    humidity_ratio = psychrolib.GetHumRatioFromTWetBulb(dry_bulb_c, wet_bulb_c, pressure_pa)
+    if humidity_ratio <= 1e-7:
+        raise InputError("wet bulb", f"{wet_bulb_c:g} °C",
+                         f"too low for an air temperature of {dry_bulb_c:g} °C "
+                         "(it would mean air with no water vapour)")
+    vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio, pressure_pa)
+    rh = 100.0 * vapour_pressure / sat_vapour_pressure_water_pa(dry_bulb_c)
+    return _state(dry_bulb_c, min(rh, 100.0), vapour_pressure, pressure_pa)
+
+
+def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float,
+                              pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+    """Moist air from dry bulb, humidity ratio (kg/kg) and pressure; RH capped at 100 %.
+
+    Used for air that is heated, cooled or mixed at constant moisture content."""
+    check_dry_bulb(dry_bulb_c)
+    check_pressure(pressure_pa)
+    _finite("humidity ratio", humidity_ratio_kg_per_kg)
+    if humidity_ratio_kg_per_kg <= 0.0:
+        raise InputError("humidity ratio", humidity_ratio_kg_per_kg, "must be above 0 kg/kg")
+    vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio_kg_per_kg, pressure_pa)
+    saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
+    vapour_pressure = min(vapour_pressure, saturation)
+    return _state(dry_bulb_c, 100.0 * vapour_pressure / saturation, vapour_pressure, pressure_pa)
+
+
+# --- surfaces ----------------------------------------------------------------------------
+
+def condensation_point_c(state: MoistAir) -> float:
+    """Dew point, or frost point when it lies below 0.01 °C: the surface temperature at
+    which water or frost starts to form from this air."""
+    return state.condensation_point_c
+
+
+def surface_rh_pct(state: MoistAir, surface_temp_c: float) -> float:
+    """RH of the room air cooled (or warmed) at constant humidity ratio to ``surface_temp_c``.
+
+    Relative to ice below the triple point, to water above (see the module notes), so
+    100 % or more means condensation or frost. Not capped: 130 % says how far past
+    saturation the air next to the surface would be.
+    """
+    check_surface_temp(surface_temp_c)
+    return 100.0 * state.vapour_pressure_pa / sat_vapour_pressure_pa(surface_temp_c)
+
+
+def max_room_rh_pct(dry_bulb_c: float, surface_temp_c: float,
+                    surface_rh_limit_pct: float = 100.0) -> float:
+    """Highest room RH (%, relative to water) at which a surface at ``surface_temp_c`` stays
+    at or below ``surface_rh_limit_pct``; 100 when any room RH keeps it there.
+
+    The vapour pressure is the same at the surface and in the room, so
+    ``RH_room = limit · pws(Ts) / pws_water(t_room)``. Pressure cancels out.
+    """
+    check_dry_bulb(dry_bulb_c, "room air temperature")
+    check_surface_temp(surface_temp_c)
+    if not 0.0 < surface_rh_limit_pct <= 100.0:
+        raise InputError("surface RH limit", surface_rh_limit_pct,
+                         "must be above 0 and at most 100 %")
+    ratio = sat_vapour_pressure_pa(surface_temp_c) / sat_vapour_pressure_water_pa(dry_bulb_c)
+    return min(100.0, surface_rh_limit_pct * ratio)
+
+
+def surface_temp_for_rh_c(state: MoistAir, surface_rh_limit_pct: float) -> float:
+    """Lowest surface temperature at which this air stays at or below the given surface RH
+    (the inverse of :func:`surface_rh_pct`)."""
+    if not 0.0 < surface_rh_limit_pct <= 100.0:
+        raise InputError("surface RH limit", surface_rh_limit_pct,
+                         "must be above 0 and at most 100 %")
+    return psychrolib.GetTDewPointFromVapPres(
+        DRY_BULB_MAX_C, state.vapour_pressure_pa / (surface_rh_limit_pct / 100.0))
+
+
+# --- pressure ----------------------------------------------------------------------------
+
+def pressure_from_altitude_m(altitude_m: float) -> float:
+    """Standard-atmosphere pressure (Pa) at ``altitude_m`` (psychrolib
+    ``GetStandardAtmPressure``, ASHRAE ch. 1 eqn 3)."""
+    _finite("altitude", altitude_m)
+    if not ALTITUDE_MIN_M <= altitude_m <= ALTITUDE_MAX_M:
+        raise InputError("altitude", f"{altitude_m:g} m",
+                         f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m")
+    return psychrolib.GetStandardAtmPressure(altitude_m)
+
+
+def site_pressure_pa(altitude_m: float | None = None, pressure_pa: float | None = None) -> float:
+    """The pressure to compute with: a measured pressure if given, else the standard
+    atmosphere at ``altitude_m``, else standard sea-level pressure."""
+    if pressure_pa is not None:
+        check_pressure(pressure_pa)
+        return pressure_pa
+    if altitude_m is not None:
+        return pressure_from_altitude_m(altitude_m)
+    return STANDARD_PRESSURE_PA
