@@ -1,0 +1,148 @@
+"""``survey check``: its JSON against psychrolib and CoolProp, and its handling of bad input."""
+
+from __future__ import annotations
+
+import json
+import subprocess
+import sys
+
+import psychrolib
+import pytest
+from CoolProp.HumidAirProp import HAPropsSI
+
+from survey.cli import main
+
+
+@pytest.fixture
+def check(capsys):
+    """Run `survey check ARGS` in-process; returns (status, stdout, stderr).
+
+    argparse reports its own errors by SystemExit; both paths give a status here."""
+    def _run(*args):
+        try:
+            status = main(["check", *args])
+        except SystemExit as exc:
+            status = exc.code
+        captured = capsys.readouterr()
+        return status, captured.out, captured.err
+    return _run
+
+
+def test_json_dew_point_agrees_with_psychrolib_and_coolprop(check):
+    """25 °C / 80 %: --json dew point equals psychrolib's and is within 0.05 K of CoolProp."""
+    status, out, err = check("--air-temp", "25", "--rh", "80", "--json")
+    assert status == 0 and err == ""
+    data = json.loads(out)
+    psychrolib.SetUnitSystem(psychrolib.SI)
+    assert data["dew_point_c"] == pytest.approx(psychrolib.GetTDewPointFromRelHum(25, 0.8),
+                                                abs=1e-6)
+    assert data["dew_point_c"] == pytest.approx(
+        HAPropsSI("D", "T", 298.15, "P", 101325, "R", 0.8) - 273.15, abs=0.05)
+    assert data["frost_point_c"] is None
+    assert data["pressure_pa"] == 101325.0
+    # grains per pound = 7000 × W (7000 grains = 1 lb).
+    assert data["grains_per_pound"] == pytest.approx(7.0 * data["humidity_ratio_g_per_kg"])
+    for key in ("humidity_ratio_g_per_kg", "vapour_pressure_pa", "enthalpy_kj_per_kg",
+                "wet_bulb_c", "absolute_humidity_g_per_m3", "surfaces", "outdoor"):
+        assert key in data
+
+
+def test_json_surfaces_and_outdoor(check):
+    """Each surface gets surface RH, margin and condensing; outdoor gets the state keys."""
+    status, out, _ = check("--air-temp", "21", "--rh", "65", "--surface-temp", "12.5",
+                               "--surface-temp", "16", "--outdoor-temp", "4", "--outdoor-rh",
+                               "85", "--altitude", "350", "--json")
+    assert status == 0
+    data = json.loads(out)
+    # Standard atmosphere at 350 m: 101325 (1 − 2.25577e−5 · 350)^5.2559 = 97 190 Pa
+    # (ASHRAE ch. 1 eqn 3, computed).
+    assert data["pressure_pa"] == pytest.approx(101325 * (1 - 2.25577e-5 * 350) ** 5.2559, abs=1)
+    cold, warm = data["surfaces"]
+    # Dew point of 21 °C / 65 % is 14.2 °C (CoolProp, checked below): 12.5 °C condenses.
+    coolprop_dew = HAPropsSI("D", "T", 294.15, "P", data["pressure_pa"], "R", 0.65) - 273.15
+    assert data["dew_point_c"] == pytest.approx(coolprop_dew, abs=0.05)
+    assert cold["condensing"] is True and cold["surface_rh_pct"] > 100
+    assert cold["dew_point_margin_k"] == pytest.approx(12.5 - coolprop_dew, abs=0.05)
+    assert warm["condensing"] is False and warm["dew_point_margin_k"] > 0
+    assert data["outdoor"]["dew_point_c"] == pytest.approx(
+        HAPropsSI("D", "T", 277.15, "P", data["pressure_pa"], "R", 0.85) - 273.15, abs=0.05)
+    assert data["outdoor"]["frost_point_c"] is None
+
+
+def test_unit_suffixes_work_in_every_option(check):
+    """70F / 65% / 1013.25hPa give the same state as 21.11 / 65 / default pressure."""
+    _, out_units, _ = check("--air-temp", "70F", "--rh", "65%", "--pressure",
+                                "1013.25hPa", "--surface-temp", "55 °F", "--json")
+    _, out_plain, _ = check("--air-temp", str((70 - 32) / 1.8), "--rh", "65",
+                                "--surface-temp", str((55 - 32) / 1.8), "--json")
+    with_units, plain = json.loads(out_units), json.loads(out_plain)
+    assert with_units["dew_point_c"] == pytest.approx(plain["dew_point_c"], abs=1e-9)
+    for a, b in zip(with_units["surfaces"], plain["surfaces"], strict=True):
+        assert a["surface_rh_pct"] == pytest.approx(b["surface_rh_pct"])
+        assert a["dew_point_margin_k"] == pytest.approx(b["dew_point_margin_k"])
+
+
+def test_ip_bare_numbers_are_fahrenheit(check):
+    """--units ip reads a bare 70 as °F."""
+    _, out, _ = check("--air-temp", "70", "--rh", "50", "--units", "ip", "--json")
+    assert json.loads(out)["dry_bulb_c"] == pytest.approx(21.1111111)
+
+
+def test_table_output_shows_the_numbers(check):
+    """Without --json a table shows dew point and each surface in the chosen units."""
+    status, out, _ = check("--air-temp", "21", "--rh", "65", "--surface-temp", "12.5")
+    assert status == 0
+    assert "Dew point" in out and "14.2 °C" in out and "12.5 °C" in out
+
+
+@pytest.mark.parametrize(("args", "message"), [
+    (["--air-temp", "21", "--rh", "120"],
+     "--rh 120: relative humidity must be above 0 and at most 100 %"),
+    (["--air-temp", "21", "--rh", "0"], "--rh 0: relative humidity must be above 0"),
+    (["--air-temp", "21", "--rh", "-5"], "--rh -5: relative humidity must be above 0"),
+    (["--air-temp", "21", "--rh", "wet"], "--rh wet: expected a percentage"),
+    (["--air-temp", "95", "--rh", "50"], "--air-temp 95: air temperature must be between -50"),
+    (["--air-temp", "-60", "--rh", "50"], "--air-temp -60: air temperature must be between"),
+    (["--air-temp", "21 hPa", "--rh", "50"], "--air-temp 21 hPa: unit 'hPa' is not a temperature"),
+    (["--air-temp", "warm", "--rh", "50"], "--air-temp warm: expected a number"),
+    (["--air-temp", "21", "--rh", "50", "--pressure", "300hPa"],
+     "--pressure 300hPa: pressure must be between 500 and 1100 hPa"),
+    (["--air-temp", "21", "--rh", "50", "--altitude", "12000"],
+     "--altitude 12000: altitude must be between -500 and 5000 m"),
+    (["--air-temp", "21", "--rh", "50", "--surface-temp", "200"],
+     "--surface-temp 200: surface temperature must be between -60 and 90 °C"),
+    (["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4"],
+     "--outdoor-temp 4: give --outdoor-rh as well"),
+    (["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4", "--outdoor-rh", "101"],
+     "--outdoor-rh 101: relative humidity must be above 0 and at most 100 %"),
+    (["--air-temp", "nan", "--rh", "50"], "--air-temp nan:"),
+    (["--rh", "50"], "the following arguments are required: --air-temp"),
+    (["--air-temp", "21", "--rh", "50", "--units", "metric"], "invalid choice: 'metric'"),
+    (["--air-temp", "21", "--rh", "50", "--altitude", "10", "--pressure", "1000"],
+     "not allowed with argument"),
+])
+def test_bad_input_exits_2_with_one_line(check, args, message):
+    """Bad input: status 2, one line on stderr naming the option and value, no traceback."""
+    status, out, err = check(*args)
+    assert status == 2
+    assert out == ""
+    assert message in err
+    assert len(err.strip().splitlines()) == 1
+    assert "Traceback" not in err
+
+
+def test_python_dash_m_and_console_script_agree():
+    """`python -m survey check` runs the same command as the console script, in a subprocess."""
+    result = subprocess.run([sys.executable, "-m", "survey", "check", "--air-temp", "20",
+                             "--rh", "50", "--json"], capture_output=True, text=True, timeout=60)
+    assert result.returncode == 0, result.stderr
+    assert json.loads(result.stdout)["dew_point_c"] == pytest.approx(9.27, abs=0.01)  # CoolProp HAPropsSI: 9.274 °C
+
+
+def test_bad_input_in_a_real_process_has_no_traceback():
+    """A real process given bad input prints one line and exits 2."""
+    result = subprocess.run([sys.executable, "-m", "survey", "check", "--air-temp", "21",
+                             "--rh", "120"], capture_output=True, text=True, timeout=60)
+    assert result.returncode == 2
+    assert result.stderr.strip() == (
+        "survey: --rh 120: relative humidity must be above 0 and at most 100 %")

@@ -1,0 +1,127 @@
+"""Parsing what a person types and formatting for display, in SI and IP.
+
+Conversion factors checked here are definitions: °F = °C × 1.8 + 32; 1 inHg = 3386.389 Pa
+(conventional, at 0 °C; NIST SP 811 Appendix B); 1 ft = 0.3048 m (exact, international foot);
+7000 grains = 1 lb (exact); 1 US pint = 0.473176 L (NIST SP 811).
+"""
+
+from __future__ import annotations
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from survey import units
+from survey.errors import InputError
+
+
+@pytest.mark.parametrize(("text", "expected_c"), [
+    ("21", 21.0), ("21.5", 21.5), ("21,5", 21.5), ("21 °C", 21.0), ("21C", 21.0),
+    ("21 c", 21.0), ("21degC", 21.0), ("70F", 21.1111111), ("70 °F", 21.1111111),
+    ("294.15 K", 21.0), ("-5", -5.0), ("\u22125,5", -5.5), (" 18.0 ", 18.0), (21, 21.0),
+])
+def test_parse_temperature_si(text, expected_c):
+    """Temperatures in the forms a person types, bare numbers read as °C."""
+    assert units.parse_temperature(text, "--air-temp", "si") == pytest.approx(expected_c)
+
+
+def test_bare_number_is_fahrenheit_in_ip():
+    """In an IP survey a bare 70 is 70 °F (21.11 °C); a typed unit still wins."""
+    assert units.parse_temperature("70", "t", "ip") == pytest.approx(21.1111111)
+    assert units.parse_temperature("21 °C", "t", "ip") == pytest.approx(21.0)
+
+
+@pytest.mark.parametrize("text", ["65", "65 %", "65%", "65,0 %"])
+def test_parse_rh(text):
+    """RH as a percentage, with or without the sign."""
+    assert units.parse_rh(text, "--rh") == pytest.approx(65.0)
+
+
+@pytest.mark.parametrize(("text", "system", "expected_pa"), [
+    ("1013 hPa", "si", 101_300.0), ("1002hPa", "si", 100_200.0), ("101.3 kPa", "si", 101_300.0),
+    ("29.92 inHg", "si", 101_320.8), ("1013", "si", 101_300.0), ("29.92", "ip", 101_320.8),
+    ("1013 mbar", "ip", 101_300.0),
+])
+def test_parse_pressure(text, system, expected_pa):
+    """Pressure in hPa, kPa, mbar or inHg (29.92 inHg × 3386.389 Pa = 101 320.8 Pa)."""
+    assert units.parse_pressure(text, "--pressure", system) == pytest.approx(expected_pa, rel=1e-5)
+
+
+@pytest.mark.parametrize(("text", "system", "expected_m"), [
+    ("350 m", "si", 350.0), ("1150 ft", "si", 350.52), ("350", "si", 350.0),
+    ("1150", "ip", 350.52),
+])
+def test_parse_length(text, system, expected_m):
+    """Altitude in metres or feet (1 ft = 0.3048 m exactly)."""
+    assert units.parse_length(text, "--altitude", system) == pytest.approx(expected_m)
+
+
+@pytest.mark.parametrize(("parse", "text", "fragment"), [
+    (units.parse_temperature, "warm", "expected a number"),
+    (units.parse_temperature, "", "expected a number"),
+    (units.parse_temperature, "21 hPa", "not a temperature unit"),
+    (units.parse_temperature, "21 parsecs", "not a temperature unit"),
+    (units.parse_rh, "65 g", "percentage"),
+    (units.parse_pressure, "1013 m", "not a pressure unit"),
+    (units.parse_length, "350 °C", "not a length unit"),
+    (units.parse_temperature, "inf", "expected a number"),
+    (units.parse_number, "2 m", "no unit"),
+])
+def test_parse_failures_name_field_text_and_what_is_accepted(parse, text, fragment):
+    """Every parse failure is an InputError with the field, the text and what is accepted."""
+    with pytest.raises(InputError) as info:
+        parse(text, "the field")
+    assert info.value.field == "the field"
+    assert fragment in info.value.allowed
+    assert "the field" in str(info.value)
+
+
+def test_unknown_unit_system_is_refused():
+    """Only si and ip are unit systems."""
+    with pytest.raises(InputError):
+        units.parse_temperature("21", "t", "metric")
+
+
+@pytest.mark.parametrize(("quantity", "value", "system", "expected"), [
+    ("temperature", 21.0, "si", "21.0 °C"),
+    ("temperature", 21.0, "ip", "69.8 °F"),          # 21 × 1.8 + 32
+    ("temperature_difference", 3.0, "ip", "5.4 °F"),  # a 3 K difference is 5.4 °F
+    ("humidity_ratio", 0.01, "si", "10.00 g/kg"),
+    ("humidity_ratio", 0.01, "ip", "70.0 gr/lb"),     # 7000 grains per pound
+    ("pressure", 101_330.0, "si", "1013.3 hPa"),
+    ("pressure", 101_325.0, "ip", "29.92 inHg"),
+    ("length", 350.0, "ip", "1148 ft"),
+    ("water_rate", 10.0, "ip", "21.1 pt/day"),        # 10 L / 0.473176 L
+    ("airflow", 100.0, "ip", "59 cfm"),                # 100 m³/h / 1.69901 (m³/h per cfm)
+    ("temperature", None, "si", "–"),
+])
+def test_format_value(quantity, value, system, expected):
+    """Display formatting in SI and IP with the right unit text."""
+    assert units.format_value(quantity, value, system) == expected
+
+
+@settings(max_examples=100, deadline=None)
+@given(st.floats(min_value=-50.0, max_value=70.0), st.sampled_from(["si", "ip"]))
+def test_temperature_format_parse_round_trip(temp_c, system):
+    """Formatting a temperature and typing it back gives the same value to display precision."""
+    text = units.format_value("temperature", temp_c, system, decimals=3)
+    tolerance = 0.0005 if system == "si" else 0.0005 / 1.8
+    assert units.parse_temperature(text, "t", system) == pytest.approx(temp_c, abs=tolerance + 1e-9)
+
+
+@settings(max_examples=100, deadline=None)
+@given(st.floats(min_value=50_000.0, max_value=110_000.0), st.sampled_from(["si", "ip"]))
+def test_pressure_format_parse_round_trip(pressure_pa, system):
+    """Formatting a pressure and typing it back (with its unit) round-trips."""
+    text = units.format_value("pressure", pressure_pa, system, decimals=6)
+    assert units.parse_pressure(text, "p", system) == pytest.approx(pressure_pa, rel=1e-6)
+
+
+@settings(max_examples=100, deadline=None)
+@given(st.sampled_from(["temperature", "humidity_ratio", "absolute_humidity", "enthalpy",
+                        "airflow", "water_rate", "length"]),
+       st.floats(min_value=0.001, max_value=1000.0), st.sampled_from(["si", "ip"]))
+def test_display_conversion_round_trip(quantity, value, system):
+    """to_display and from_display are inverses for every display quantity."""
+    shown = units.to_display(quantity, value, system)
+    assert units.from_display(quantity, shown, system) == pytest.approx(value, rel=1e-9)
