@@ -160,14 +160,10 @@ def sat_vapour_pressure_water_pa(temp_c: float) -> float:
     return math.exp(_ln_pws_water(temp_c + 273.15))
 
 
-def _dew_point_water_c(vapour_pressure_pa: float, guess_c: float) -> float:
-    """Temperature at which liquid water saturates at ``vapour_pressure_pa``.
-
-    Above the triple-point pressure this is psychrolib ``GetTDewPointFromVapPres``. Below
-    it, Newton–Raphson on ln pws of eqn 6, the same method psychrolib uses for its inverse.
-    """
-    if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
-        return psychrolib.GetTDewPointFromVapPres(max(guess_c, TRIPLE_POINT_C), vapour_pressure_pa)
+def _dew_point_water_below_triple_c(vapour_pressure_pa: float, guess_c: float) -> float:
+    """Temperature at which supercooled liquid water saturates at ``vapour_pressure_pa``
+    (below the triple-point pressure): Newton–Raphson on ln pws of eqn 6, the method
+    psychrolib uses for its own inverse."""
     target = math.log(vapour_pressure_pa)
     t_k = min(guess_c, 0.0) + 273.15
     for _ in range(50):
@@ -187,6 +183,7 @@ _TRIPLE_POINT_PRESSURE_PA = psychrolib.GetSatVapPres(TRIPLE_POINT_C)
 
 def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
            pressure_pa: float) -> MoistAir:
+    dry_bulb_c, pressure_pa = float(dry_bulb_c), float(pressure_pa)
     humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure_pa, pressure_pa)
     if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
         dew_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
@@ -194,7 +191,8 @@ def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
     else:
         # psychrolib's inverse runs over ice below the triple point: that is the frost point.
         frost_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
-        dew_point = min(_dew_point_water_c(vapour_pressure_pa, frost_point), dry_bulb_c)
+        dew_point = min(_dew_point_water_below_triple_c(vapour_pressure_pa, frost_point),
+                        dry_bulb_c)
     volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
     return MoistAir(
         dry_bulb_c=dry_bulb_c,
@@ -219,6 +217,7 @@ def state_from_rh(dry_bulb_c: float, rh_pct: float,
     check_dry_bulb(dry_bulb_c)
     check_rh(rh_pct)
     check_pressure(pressure_pa)
+    rh_pct = float(rh_pct)
     vapour_pressure = rh_pct / 100.0 * sat_vapour_pressure_water_pa(dry_bulb_c)
     return _state(dry_bulb_c, rh_pct, vapour_pressure, pressure_pa)
 
