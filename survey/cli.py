@@ -12,6 +12,8 @@ from __future__ import annotations
 
 import argparse
 import importlib
+import os
+import re
 import sys
 from typing import NoReturn, Sequence
 
@@ -57,9 +59,45 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
+_NEGATIVE_VALUE = re.compile(r"^[-\u2212](\d|[.,]\d)")
+
+
+def _value_options(parser: argparse.ArgumentParser) -> set[str]:
+    """Every ``--option`` (of the parser and its subcommands) that takes a value."""
+    found: set[str] = set()
+    for action in parser._actions:
+        if isinstance(action, argparse._SubParsersAction):
+            for sub in action.choices.values():
+                found |= _value_options(sub)
+        elif action.nargs != 0 and action.option_strings:
+            found.update(o for o in action.option_strings if o.startswith("--"))
+    return found
+
+
+def join_negative_values(argv: Sequence[str], value_options: set[str]) -> list[str]:
+    """``--outdoor-temp -3C`` becomes ``--outdoor-temp=-3C``.
+
+    argparse takes ``-3`` as a value but ``-3C``, ``-2,5`` or ``-23F`` for an unknown
+    option; winter readings are exactly these, so they are joined to their option first."""
+    joined: list[str] = []
+    tokens = list(argv)
+    index = 0
+    while index < len(tokens):
+        token = tokens[index]
+        if (token in value_options and index + 1 < len(tokens)
+                and _NEGATIVE_VALUE.match(tokens[index + 1])):
+            joined.append(f"{token}={tokens[index + 1]}")
+            index += 2
+            continue
+        joined.append(token)
+        index += 1
+    return joined
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     parser = build_parser()
-    args = parser.parse_args(argv)
+    tokens = sys.argv[1:] if argv is None else list(argv)
+    args = parser.parse_args(join_negative_values(tokens, _value_options(parser)))
     handler = getattr(args, "handler", None)
     if handler is None:
         parser.print_help(sys.stderr)
@@ -74,6 +112,12 @@ def main(argv: Sequence[str] | None = None) -> int:
         return EXIT_FILE_ERROR
     except KeyboardInterrupt:
         return 130
+    except BrokenPipeError:
+        # The reader went away (`survey check --json | head`): stop quietly. Point stdout at
+        # devnull so the interpreter's final flush does not raise again.
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+        return EXIT_OK
 
 
 if __name__ == "__main__":  # pragma: no cover

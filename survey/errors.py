@@ -18,7 +18,8 @@ class InputError(SurveyError, ValueError):
         self.field = field
         self.value = value
         self.allowed = allowed
-        super().__init__(f"{field} {value}: {allowed}")
+        shown = repr(value) if isinstance(value, str) and not value.strip() else value
+        super().__init__(f"{field} {shown}: {allowed}")
 
     def with_field(self, field: str) -> "InputError":
         """The same error reported under another field name (e.g. the CLI option)."""

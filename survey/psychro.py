@@ -45,6 +45,8 @@ DRY_BULB_MIN_C = -50.0
 DRY_BULB_MAX_C = 70.0
 SURFACE_TEMP_MIN_C = -60.0
 SURFACE_TEMP_MAX_C = 90.0
+#: Below this the dew point at −50 °C falls under −100 °C, the floor of psychrolib's solver.
+RH_MIN_PCT = 0.1
 PRESSURE_MIN_PA = 50_000.0
 PRESSURE_MAX_PA = 110_000.0
 ALTITUDE_MIN_M = -500.0
@@ -83,50 +85,72 @@ class MoistAir(NamedTuple):
 
     @property
     def condensation_point_c(self) -> float:
-        """Where a cooled surface first wets (dew point) or frosts (frost point)."""
+        """Where a cooled surface first wets (dew point) or frosts (frost point).
+
+        Above the air temperature only for air supersaturated over ice."""
         return self.dew_point_c if self.frost_point_c is None else self.frost_point_c
 
 
 # --- range guards ------------------------------------------------------------------------
 
-def _finite(field: str, value: float) -> None:
-    if not isinstance(value, (int, float)) or isinstance(value, bool) or not math.isfinite(value):
-        raise InputError(field, value, "must be a finite number")
+def _is_number(value: object) -> bool:
+    return isinstance(value, (int, float)) and not isinstance(value, bool)
+
+
+def _in_range(value: object, low: float, high: float) -> bool:
+    return _is_number(value) and math.isfinite(value) and low <= value <= high
+
+
+def _f(temp_c: float) -> str:
+    return f"{temp_c * 1.8 + 32.0:.0f}"
+
+
+def _temp_range(low_c: float, high_c: float) -> str:
+    return f"between {low_c:g} and {high_c:g} °C ({_f(low_c)} and {_f(high_c)} °F)"
+
+
+def _shown(value: object, unit: str = "") -> str:
+    if not _is_number(value):
+        return repr(value)
+    return f"{value:g} {unit}".rstrip()
 
 
 def check_dry_bulb(dry_bulb_c: float, field: str = "dry bulb") -> None:
-    _finite(field, dry_bulb_c)
-    if not DRY_BULB_MIN_C <= dry_bulb_c <= DRY_BULB_MAX_C:
-        raise InputError(field, _fmt(dry_bulb_c, "°C"),
-                         f"air temperature must be between {DRY_BULB_MIN_C:g} and "
-                         f"{DRY_BULB_MAX_C:g} °C")
+    if not _in_range(dry_bulb_c, DRY_BULB_MIN_C, DRY_BULB_MAX_C):
+        raise InputError(field, _shown(dry_bulb_c, "°C"),
+                         f"air temperature must be {_temp_range(DRY_BULB_MIN_C, DRY_BULB_MAX_C)}")
 
 
 def check_rh(rh_pct: float, field: str = "relative humidity") -> None:
-    _finite(field, rh_pct)
-    if not 0.0 < rh_pct <= 100.0:
-        raise InputError(field, _fmt(rh_pct, "%"),
+    if not (_is_number(rh_pct) and math.isfinite(rh_pct) and 0.0 < rh_pct <= 100.0):
+        raise InputError(field, _shown(rh_pct),
                          "relative humidity must be above 0 and at most 100 %")
+    if rh_pct < RH_MIN_PCT:
+        raise InputError(field, _shown(rh_pct),
+                         f"relative humidity below {RH_MIN_PCT:g} % is too dry for the "
+                         "psychrometric equations used here (dew point below −100 °C)")
 
 
 def check_pressure(pressure_pa: float, field: str = "pressure") -> None:
-    _finite(field, pressure_pa)
-    if not PRESSURE_MIN_PA <= pressure_pa <= PRESSURE_MAX_PA:
-        raise InputError(field, _fmt(pressure_pa / 100.0, "hPa"),
+    if not _in_range(pressure_pa, PRESSURE_MIN_PA, PRESSURE_MAX_PA):
+        shown = _shown(pressure_pa / 100.0 if _is_number(pressure_pa) else pressure_pa, "hPa")
+        raise InputError(field, shown,
                          f"pressure must be between {PRESSURE_MIN_PA / 100:g} and "
-                         f"{PRESSURE_MAX_PA / 100:g} hPa (50-110 kPa)")
+                         f"{PRESSURE_MAX_PA / 100:g} hPa ({PRESSURE_MIN_PA / 3386.389:.2f} and "
+                         f"{PRESSURE_MAX_PA / 3386.389:.2f} inHg)")
 
 
 def check_surface_temp(surface_temp_c: float, field: str = "surface temperature") -> None:
-    _finite(field, surface_temp_c)
-    if not SURFACE_TEMP_MIN_C <= surface_temp_c <= SURFACE_TEMP_MAX_C:
-        raise InputError(field, _fmt(surface_temp_c, "°C"),
-                         f"surface temperature must be between {SURFACE_TEMP_MIN_C:g} and "
-                         f"{SURFACE_TEMP_MAX_C:g} °C")
+    if not _in_range(surface_temp_c, SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C):
+        raise InputError(field, _shown(surface_temp_c, "°C"),
+                         "surface temperature must be "
+                         f"{_temp_range(SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C)}")
 
 
-def _fmt(value: float, unit: str) -> str:
-    return f"{value:g} {unit}" if unit != "%" else f"{value:g}"
+def _check_temperature(value: float, field: str, low_c: float, high_c: float) -> None:
+    if not _in_range(value, low_c, high_c):
+        raise InputError(field, _shown(value, "°C"),
+                         f"{field} must be {_temp_range(low_c, high_c)}")
 
 
 # --- saturation --------------------------------------------------------------------------
@@ -152,8 +176,11 @@ def sat_vapour_pressure_water_pa(temp_c: float) -> float:
 
     Above the triple point this is psychrolib ``GetSatVapPres``. Below it, ASHRAE ch. 1
     eqn 6 continued into the supercooled range (psychrolib has no such branch); the
-    difference from the WMO Magnus formula over water is under 0.5 % down to −40 °C, which a
-    test checks.
+    difference from the Magnus formula of Alduchov & Eskridge (1996) over water is under
+    0.5 % down to −40 °C, which a test checks. Below −40 °C the continuation is less certain
+    (about 2 % high at −50 °C against Murphy & Koop 2005, from memory): a dew point over
+    water there carries a few tenths of a kelvin more uncertainty. The frost point, which
+    decides frost on surfaces, uses ice saturation and is not affected.
     """
     if temp_c > TRIPLE_POINT_C:
         return psychrolib.GetSatVapPres(temp_c)
@@ -177,6 +204,8 @@ def _dew_point_water_below_triple_c(vapour_pressure_pa: float, guess_c: float) -
 
 
 _TRIPLE_POINT_PRESSURE_PA = psychrolib.GetSatVapPres(TRIPLE_POINT_C)
+#: psychrolib's dew-point solver works down to -100 °C; below this the air is too dry for it.
+_LOWEST_VAPOUR_PRESSURE_PA = psychrolib.GetSatVapPres(-100.0) * 1.0001
 
 
 # --- states ------------------------------------------------------------------------------
@@ -184,13 +213,20 @@ _TRIPLE_POINT_PRESSURE_PA = psychrolib.GetSatVapPres(TRIPLE_POINT_C)
 def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
            pressure_pa: float) -> MoistAir:
     dry_bulb_c, pressure_pa = float(dry_bulb_c), float(pressure_pa)
+    if vapour_pressure_pa < _LOWEST_VAPOUR_PRESSURE_PA:
+        raise InputError("relative humidity", _shown(rh_pct),
+                         "too dry to compute: the dew point would be below −100 °C")
     humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure_pa, pressure_pa)
     if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
         dew_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
         frost_point = None
     else:
         # psychrolib's inverse runs over ice below the triple point: that is the frost point.
-        frost_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
+        # Its first guess and upper clamp is the "dry bulb" passed; the triple point is used
+        # so that air supersaturated over ice (above ~82 % RH at -20 °C) gets its true frost
+        # point, which then lies above the air temperature: such air rimes anything at
+        # air temperature.
+        frost_point = psychrolib.GetTDewPointFromVapPres(TRIPLE_POINT_C, vapour_pressure_pa)
         dew_point = min(_dew_point_water_below_triple_c(vapour_pressure_pa, frost_point),
                         dry_bulb_c)
     volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
@@ -227,13 +263,10 @@ def state_from_dew_point(dry_bulb_c: float, dew_point_c: float,
     """Moist air from dry bulb and dew point (°C, over liquid water) and pressure (Pa)."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
-    _finite("dew point", dew_point_c)
+    _check_temperature(dew_point_c, "dew point", DRY_BULB_MIN_C - 30.0, DRY_BULB_MAX_C)
     if dew_point_c > dry_bulb_c:
         raise InputError("dew point", f"{dew_point_c:g} °C",
                          f"dew point must not be above the air temperature ({dry_bulb_c:g} °C)")
-    if dew_point_c < DRY_BULB_MIN_C - 30.0:
-        raise InputError("dew point", f"{dew_point_c:g} °C",
-                         f"dew point must be at least {DRY_BULB_MIN_C - 30.0:g} °C")
     vapour_pressure = sat_vapour_pressure_water_pa(dew_point_c)
     rh = 100.0 * vapour_pressure / sat_vapour_pressure_water_pa(dry_bulb_c)
     return _state(dry_bulb_c, min(rh, 100.0), vapour_pressure, pressure_pa)
@@ -245,7 +278,7 @@ def state_from_wet_bulb(dry_bulb_c: float, wet_bulb_c: float,
     (psychrolib ``GetHumRatioFromTWetBulb``, ASHRAE ch. 1 eqn 33 & 35)."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
-    _finite("wet bulb", wet_bulb_c)
+    _check_temperature(wet_bulb_c, "wet bulb", DRY_BULB_MIN_C - 30.0, DRY_BULB_MAX_C)
     if wet_bulb_c > dry_bulb_c:
         raise InputError("wet bulb", f"{wet_bulb_c:g} °C",
                          f"wet bulb must not be above the air temperature ({dry_bulb_c:g} °C)")
@@ -266,9 +299,9 @@ def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float
     Used for air that is heated, cooled or mixed at constant moisture content."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
-    _finite("humidity ratio", humidity_ratio_kg_per_kg)
-    if humidity_ratio_kg_per_kg <= 0.0:
-        raise InputError("humidity ratio", humidity_ratio_kg_per_kg, "must be above 0 kg/kg")
+    if not _in_range(humidity_ratio_kg_per_kg, 1e-7, 1.0):
+        raise InputError("humidity ratio", _shown(humidity_ratio_kg_per_kg, "kg/kg"),
+                         "humidity ratio must be between 1e-07 and 1 kg/kg")
     vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio_kg_per_kg, pressure_pa)
     saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
     vapour_pressure = min(vapour_pressure, saturation)
@@ -313,12 +346,21 @@ def max_room_rh_pct(dry_bulb_c: float, surface_temp_c: float,
 
 def surface_temp_for_rh_c(state: MoistAir, surface_rh_limit_pct: float) -> float:
     """Lowest surface temperature at which this air stays at or below the given surface RH
-    (the inverse of :func:`surface_rh_pct`)."""
-    if not 0.0 < surface_rh_limit_pct <= 100.0:
-        raise InputError("surface RH limit", surface_rh_limit_pct,
+    (the inverse of :func:`surface_rh_pct`).
+
+    Raises InputError when the answer would lie outside the surface-temperature domain."""
+    if not (_is_number(surface_rh_limit_pct) and 0.0 < surface_rh_limit_pct <= 100.0):
+        raise InputError("surface RH limit", _shown(surface_rh_limit_pct),
                          "must be above 0 and at most 100 %")
-    return psychrolib.GetTDewPointFromVapPres(
-        DRY_BULB_MAX_C, state.vapour_pressure_pa / (surface_rh_limit_pct / 100.0))
+    needed = state.vapour_pressure_pa / (surface_rh_limit_pct / 100.0)
+    if not (sat_vapour_pressure_pa(SURFACE_TEMP_MIN_C) <= needed
+            <= sat_vapour_pressure_pa(SURFACE_TEMP_MAX_C)):
+        raise InputError("surface RH limit", _shown(surface_rh_limit_pct),
+                         "no surface temperature " + _temp_range(SURFACE_TEMP_MIN_C,
+                                                                 SURFACE_TEMP_MAX_C)
+                         + " keeps this air at or below that surface RH")
+    # psychrolib clamps its answer to the "dry bulb" passed: give it the domain's top.
+    return psychrolib.GetTDewPointFromVapPres(SURFACE_TEMP_MAX_C, needed)
 
 
 # --- pressure ----------------------------------------------------------------------------
@@ -326,10 +368,10 @@ def surface_temp_for_rh_c(state: MoistAir, surface_rh_limit_pct: float) -> float
 def pressure_from_altitude_m(altitude_m: float) -> float:
     """Standard-atmosphere pressure (Pa) at ``altitude_m`` (psychrolib
     ``GetStandardAtmPressure``, ASHRAE ch. 1 eqn 3)."""
-    _finite("altitude", altitude_m)
-    if not ALTITUDE_MIN_M <= altitude_m <= ALTITUDE_MAX_M:
-        raise InputError("altitude", f"{altitude_m:g} m",
-                         f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m")
+    if not _in_range(altitude_m, ALTITUDE_MIN_M, ALTITUDE_MAX_M):
+        raise InputError("altitude", _shown(altitude_m, "m"),
+                         f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m "
+                         f"({ALTITUDE_MIN_M / 0.3048:.0f} and {ALTITUDE_MAX_M / 0.3048:.0f} ft)")
     return psychrolib.GetStandardAtmPressure(altitude_m)
 
 

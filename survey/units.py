@@ -31,18 +31,27 @@ _NUMBER = re.compile(
     r"^\s*(?P<num>[+\-\u2212]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:[eE][+\-]?\d+)?)\s*(?P<unit>.*?)\s*$"
 )
 
-# Spellings a person types for temperature units that pint would read as something else
-# ("C" is the coulomb to pint, "F" the farad).
+# The unit texts accepted for each kind of quantity, as typed (lower-cased, spaces as typed)
+# and the pint name each stands for. Only these reach pint: pint's own expression parser
+# would accept (or choke on) arbitrary arithmetic. "C" is the coulomb to pint and "F" the
+# farad, hence the table. A bare degree sign follows the unit system (see parse_temperature).
 _TEMPERATURE_ALIASES = {
     "c": "degC", "°c": "degC", "ºc": "degC", "degc": "degC", "deg c": "degC", "° c": "degC",
-    "celsius": "degC", "°": "degC",
+    "℃": "degC", "celsius": "degC", "degree_celsius": "degC",
     "f": "degF", "°f": "degF", "ºf": "degF", "degf": "degF", "deg f": "degF", "° f": "degF",
-    "fahrenheit": "degF",
+    "℉": "degF", "fahrenheit": "degF", "degree_fahrenheit": "degF",
     "k": "kelvin", "kelvin": "kelvin",
 }
-_PRESSURE_ALIASES = {"hpa": "hPa", "kpa": "kPa", "pa": "Pa", "mbar": "mbar", "inhg": "inHg",
-                     "in hg": "inHg", "psi": "psi", "bar": "bar"}
+_DIFFERENCE_ALIASES = {
+    "k": "kelvin", "kelvin": "kelvin", "c": "kelvin", "°c": "kelvin", "degc": "kelvin",
+    "℃": "kelvin", "f": "delta_degF", "°f": "delta_degF", "degf": "delta_degF",
+    "℉": "delta_degF", "r": "delta_degF",
+}
+_PRESSURE_ALIASES = {"hpa": "hPa", "kpa": "kPa", "pa": "Pa", "mbar": "mbar", "mb": "mbar",
+                     "inhg": "inHg", "in hg": "inHg", "psi": "psi", "bar": "bar",
+                     "mmhg": "mmHg"}
 _LENGTH_ALIASES = {"m": "m", "ft": "ft", "feet": "ft", "foot": "ft", "'": "ft", "km": "km"}
+_DEGREE_SIGNS = ("°", "º", "deg")
 
 _ACCEPTED = {
     "temperature": "a number in °C (SI) or °F (IP), or with a unit: 21, 21.5, 21,5, 21 °C, 21C, 70F, 294.15 K",
@@ -78,6 +87,10 @@ def _split(text: object, field: str, kind: str) -> tuple[float, str]:
         except ValueError:
             raise InputError(field, text, f"expected {_ACCEPTED[kind]}") from None
         unit = match["unit"]
+        if unit and (unit[0].isdigit() or unit[0] in ".,"):
+            raise InputError(field, text, "the number was not understood (write 1013.25 or "
+                                          f"1013,25, without thousands separators); expected "
+                                          f"{_ACCEPTED[kind]}")
     if not math.isfinite(value):
         raise InputError(field, text, f"expected a finite number: {_ACCEPTED[kind]}")
     return value, unit
@@ -85,19 +98,22 @@ def _split(text: object, field: str, kind: str) -> tuple[float, str]:
 
 def _convert(value: float, unit: str, target: str, field: str, text: object, kind: str,
              aliases: dict[str, str]) -> float:
-    """Convert ``value`` in ``unit`` (as typed) to ``target`` with pint."""
-    import pint
+    """Convert ``value`` in ``unit`` (as typed) to ``target`` with pint.
 
-    name = aliases.get(unit.strip().lower(), unit.strip())
-    ureg = registry()
-    try:
-        quantity = ureg.Quantity(value, name)
-        return float(quantity.to(target).magnitude)
-    except (pint.errors.UndefinedUnitError, pint.errors.DimensionalityError,
-            pint.errors.OffsetUnitCalculusError, AttributeError, TypeError, ValueError,
-            AssertionError):
+    Only unit texts listed in ``aliases`` are accepted, so nothing a person types is ever
+    evaluated as a pint expression."""
+    name = aliases.get(" ".join(unit.lower().split()))
+    if name is None:
         raise InputError(field, text, f"unit {unit!r} is not a {kind} unit; "
+                                      f"expected {_ACCEPTED[kind]}")
+    try:
+        converted = float(registry().Quantity(value, name).to(target).magnitude)
+    except Exception:  # pint or arithmetic failure: report, never a traceback
+        raise InputError(field, text, f"could not convert to {target}; "
                                       f"expected {_ACCEPTED[kind]}") from None
+    if not math.isfinite(converted):
+        raise InputError(field, text, f"expected a finite number: {_ACCEPTED[kind]}")
+    return converted
 
 
 def _check_system(system: str) -> None:
@@ -109,15 +125,9 @@ def parse_temperature(text: object, field: str = "temperature", system: UnitSyst
     """A temperature in °C from ``21``, ``21,5``, ``21 °C``, ``21C``, ``70F``, ``294.15 K``."""
     _check_system(system)
     value, unit = _split(text, field, "temperature")
-    if not unit:
+    if not unit or unit.strip() in _DEGREE_SIGNS:  # "21" or "21°": the survey's system
         return value if system == "si" else (value - 32.0) / 1.8
     return _convert(value, unit, "degC", field, text, "temperature", _TEMPERATURE_ALIASES)
-
-
-_DIFFERENCE_ALIASES = {
-    "k": "kelvin", "kelvin": "kelvin", "c": "kelvin", "°c": "kelvin", "degc": "kelvin",
-    "f": "delta_degF", "°f": "delta_degF", "degf": "delta_degF", "r": "delta_degF",
-}
 
 
 def parse_temperature_difference(text: object, field: str = "temperature difference",
@@ -125,7 +135,7 @@ def parse_temperature_difference(text: object, field: str = "temperature differe
     """A temperature difference (an instrument accuracy, a margin) in kelvin."""
     _check_system(system)
     value, unit = _split(text, field, "temperature difference")
-    if not unit:
+    if not unit or unit.strip() in _DEGREE_SIGNS:
         return value if system == "si" else value / 1.8
     return _convert(value, unit, "kelvin", field, text, "temperature difference",
                     _DIFFERENCE_ALIASES)
@@ -139,6 +149,11 @@ def parse_rh(text: object, field: str = "relative humidity") -> float:
     value, unit = _split(text, field, "relative humidity")
     if unit.strip().lower() not in ("", "%", "percent", "pct", "% rh", "%rh", "rh"):
         raise InputError(field, text, f"expected {_ACCEPTED['relative humidity']}")
+    if 0.0 < value < 1.0 and not unit:
+        # 0.65 is far more often a fraction typed by mistake than a real 0.65 % reading.
+        raise InputError(field, text, "looks like a fraction: give RH in percent "
+                                      f"({value:g} as a fraction is {value * 100:g}); "
+                                      "write '0.65 %' if you really mean below 1 %")
     return value
 
 
@@ -219,12 +234,19 @@ def _factor_offset(source: str, target: str) -> tuple[float, float]:
     return float(one - zero), float(zero)
 
 
+# Datum shifts, in the core's SI unit, added before converting for display. Enthalpy: the
+# SI convention (ASHRAE Fundamentals 2017 ch. 1 eqn 30) counts from dry air at 0 °C, the IP
+# one (IP eqn 30, h = 0.240 t + W (1061 + 0.444 t)) from dry air at 0 °F, so IP enthalpy is
+# higher by cp_da · 17.78 K = 1.006 kJ/(kg·K) · 32/1.8 K.
+_DATUM_SHIFT = {("enthalpy", "ip"): 1006.0 * 32.0 / 1.8}
+
+
 def to_display(quantity: str, value_si: float, system: UnitSystem = "si") -> float:
     """``value_si`` (in the core's SI unit for ``quantity``) in the display unit of ``system``."""
     _check_system(system)
     target = _DISPLAY[quantity][0 if system == "si" else 1][0]
     factor, offset = _factor_offset(_CORE_UNIT[quantity], target)
-    return factor * value_si + offset
+    return factor * (value_si + _DATUM_SHIFT.get((quantity, system), 0.0)) + offset
 
 
 def from_display(quantity: str, value: float, system: UnitSystem = "si") -> float:
@@ -232,7 +254,7 @@ def from_display(quantity: str, value: float, system: UnitSystem = "si") -> floa
     _check_system(system)
     source = _DISPLAY[quantity][0 if system == "si" else 1][0]
     factor, offset = _factor_offset(source, _CORE_UNIT[quantity])
-    return factor * value + offset
+    return factor * value + offset - _DATUM_SHIFT.get((quantity, system), 0.0)
 
 
 def unit_label(quantity: str, system: UnitSystem = "si") -> str:

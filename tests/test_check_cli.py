@@ -5,6 +5,7 @@ from __future__ import annotations
 import json
 import subprocess
 import sys
+from pathlib import Path
 
 import psychrolib
 import pytest
@@ -116,6 +117,12 @@ def test_table_output_shows_the_numbers(check):
     (["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4", "--outdoor-rh", "101"],
      "--outdoor-rh 101: relative humidity must be above 0 and at most 100 %"),
     (["--air-temp", "nan", "--rh", "50"], "--air-temp nan:"),
+    (["--air-temp", "21 °C)", "--rh", "50"], "--air-temp 21 °C): unit '°C)' is not"),
+    (["--air-temp", "21", "--rh", "0.65"], "--rh 0.65: looks like a fraction"),
+    (["--air-temp", "21", "--rh", "0.01 %"], "--rh 0.01 %: relative humidity below 0.1 %"),
+    (["--air-temp", "", "--rh", "50"], "--air-temp '': expected a number"),
+    (["--air-temp", "21", "--rh", "50", "--pressure", "1,013.25 hPa"],
+     "the number was not understood"),
     (["--rh", "50"], "the following arguments are required: --air-temp"),
     (["--air-temp", "21", "--rh", "50", "--units", "metric"], "invalid choice: 'metric'"),
     (["--air-temp", "21", "--rh", "50", "--altitude", "10", "--pressure", "1000"],
@@ -131,12 +138,51 @@ def test_bad_input_exits_2_with_one_line(check, args, message):
     assert "Traceback" not in err
 
 
+@pytest.mark.parametrize(("args", "key", "expected"), [
+    (["--air-temp", "-23F", "--rh", "60"], "dry_bulb_c", (-23 - 32) / 1.8),
+    (["--air-temp", "21", "--rh", "60", "--surface-temp", "-2,5"], None, -2.5),
+    (["--air-temp", "21", "--rh", "60", "--outdoor-temp", "-3C", "--outdoor-rh", "90"],
+     "outdoor", -3.0),
+    (["--air-temp", "\u22125", "--rh", "60"], "dry_bulb_c", -5.0),
+])
+def test_negative_values_with_units_or_commas_are_read(check, args, key, expected):
+    """Winter readings like -3C, -2,5 and -23F are values, not unknown options."""
+    status, out, err = check(*args, "--json")
+    assert status == 0, err
+    data = json.loads(out)
+    if key is None:
+        assert data["surfaces"][0]["surface_temp_c"] == pytest.approx(expected)
+    elif key == "outdoor":
+        assert data["outdoor"]["dry_bulb_c"] == pytest.approx(expected)
+    else:
+        assert data[key] == pytest.approx(expected)
+
+
 def test_python_dash_m_and_console_script_agree():
-    """`python -m survey check` runs the same command as the console script, in a subprocess."""
-    result = subprocess.run([sys.executable, "-m", "survey", "check", "--air-temp", "20",
-                             "--rh", "50", "--json"], capture_output=True, text=True, timeout=60)
-    assert result.returncode == 0, result.stderr
-    assert json.loads(result.stdout)["dew_point_c"] == pytest.approx(9.27, abs=0.01)  # CoolProp HAPropsSI: 9.274 °C
+    """`python -m survey check` and the installed `survey` script give the same answer."""
+    args = ["check", "--air-temp", "20", "--rh", "50", "--json"]
+    by_module = subprocess.run([sys.executable, "-m", "survey", *args], capture_output=True,
+                               text=True, timeout=60)
+    assert by_module.returncode == 0, by_module.stderr
+    # CoolProp HAPropsSI at 20 °C / 50 %: dew point 9.274 °C.
+    assert json.loads(by_module.stdout)["dew_point_c"] == pytest.approx(9.274, abs=0.02)
+    script = Path(sys.executable).with_name("survey")
+    if not script.exists():
+        pytest.skip("the console script is not installed beside this interpreter")
+    by_script = subprocess.run([str(script), *args], capture_output=True, text=True, timeout=60)
+    assert by_script.returncode == 0, by_script.stderr
+    assert json.loads(by_script.stdout) == json.loads(by_module.stdout)
+
+
+def test_closed_pipe_is_not_a_traceback():
+    """`survey check --json | (reader that closes at once)` exits quietly."""
+    process = subprocess.Popen([sys.executable, "-m", "survey", "check", "--air-temp", "21",
+                                "--rh", "65", "--json"] + ["--surface-temp", "10"] * 2000,
+                               stdout=subprocess.PIPE, stderr=subprocess.PIPE)
+    process.stdout.close()  # the reader goes away before the output is written
+    _, err = process.communicate(timeout=60)
+    assert b"Traceback" not in err
+    assert process.returncode == 0
 
 
 def test_bad_input_in_a_real_process_has_no_traceback():

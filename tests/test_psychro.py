@@ -123,9 +123,9 @@ def test_water_saturation_agrees_with_magnus(temp_c):
 
 @pytest.mark.parametrize("temp_c", [-40.0, -25.0, -10.0, -1.0])
 def test_ice_saturation_agrees_with_wmo_magnus(temp_c):
-    """Saturation over ice below 0 °C within 0.6 % of the WMO Magnus formula over ice."""
+    """Saturation over ice below 0 °C within 0.1 % of the WMO Magnus formula over ice."""
     ours_hpa = psychro.sat_vapour_pressure_pa(temp_c) / 100.0
-    assert ours_hpa == pytest.approx(_wmo_ice_hpa(temp_c), rel=0.006)
+    assert ours_hpa == pytest.approx(_wmo_ice_hpa(temp_c), rel=0.001)
 
 
 def test_rh_below_zero_is_relative_to_water():
@@ -155,10 +155,36 @@ def test_no_frost_point_above_freezing():
 
 
 def test_conventions_join_at_the_triple_point():
-    """RH read at just below and just above 0.01 °C gives almost the same vapour pressure."""
-    below = psychro.state_from_rh(0.0, 80.0)
-    above = psychro.state_from_rh(0.02, 80.0)
-    assert below.vapour_pressure_pa == pytest.approx(above.vapour_pressure_pa, rel=2e-3)
+    """The water saturation pressure is continuous across 0.01 °C, where our supercooled
+    branch hands over to psychrolib (both are ASHRAE ch. 1 eqn 6)."""
+    t = psychro.TRIPLE_POINT_C
+    below = psychro.sat_vapour_pressure_water_pa(t - 1e-6)
+    above = psychro.sat_vapour_pressure_water_pa(t + 1e-6)
+    assert below == pytest.approx(above, rel=1e-6)
+    # 611.657 Pa at the triple point (IAPWS; ASHRAE eqn 6 gives 611.65 within its accuracy).
+    assert above == pytest.approx(611.657, rel=1e-4)
+
+
+@pytest.mark.parametrize(("temp_c", "rh_pct"), [(-5.0, 100.0), (-10.0, 95.0), (-20.0, 90.0)])
+def test_air_supersaturated_over_ice_has_a_frost_point_above_air_temperature(temp_c, rh_pct):
+    """High RH (over water) below 0 °C is supersaturated over ice: the frost point lies above
+    the air temperature, and agrees with CoolProp's (given the vapour pressure) within 0.06 K
+    (CoolProp includes the enhancement factor, about 0.5 % in pressure, 0.05 K here)."""
+    state = psychro.state_from_rh(temp_c, rh_pct)
+    assert state.frost_point_c > temp_c
+    coolprop = HAPropsSI("D", "T", temp_c + 273.15, "P", 101325.0, "P_w",
+                         state.vapour_pressure_pa) - 273.15
+    assert state.frost_point_c == pytest.approx(coolprop, abs=0.06)
+    # A surface at air temperature frosts: surface RH over ice above 100 %.
+    assert psychro.surface_rh_pct(state, temp_c) > 100.0
+
+
+def test_extremely_dry_air_is_refused_with_a_message():
+    """RH below 0.1 % is refused as InputError (psychrolib cannot solve the dew point)."""
+    with pytest.raises(InputError) as info:
+        psychro.state_from_rh(-50.0, 0.01)
+    assert "too dry" in info.value.allowed
+    assert psychro.state_from_rh(-50.0, 0.1).dew_point_c < -90.0
 
 
 def test_surface_below_zero_is_judged_against_ice():
@@ -222,10 +248,25 @@ def test_surface_temp_for_rh_inverts_surface_rh():
     assert psychro.surface_rh_pct(state, ts) == pytest.approx(80.0, rel=1e-4)
 
 
+def test_surface_temp_for_rh_refuses_answers_outside_the_domain():
+    """No surface temperature in the domain keeps very humid air under 1 % surface RH."""
+    state = psychro.state_from_rh(60.0, 90.0)
+    with pytest.raises(InputError):
+        psychro.surface_temp_for_rh_c(state, 1.0)
+    # 60 °C / 90 % with a 50 % limit: 74.5 °C, above the 70 °C air-temperature cap but in
+    # the surface domain (computed: pws(Ts) = 0.9 · pws(60) / 0.5).
+    ts = psychro.surface_temp_for_rh_c(state, 50.0)
+    assert ts > 70.0
+    assert psychro.surface_rh_pct(state, ts) == pytest.approx(50.0, rel=1e-4)
+
+
 @pytest.mark.parametrize(("call", "field"), [
     (lambda: psychro.state_from_rh(21.0, 120.0), "relative humidity"),
     (lambda: psychro.state_from_rh(21.0, 0.0), "relative humidity"),
     (lambda: psychro.state_from_rh(21.0, -3.0), "relative humidity"),
+    (lambda: psychro.state_from_rh(21.0, 0.05), "relative humidity"),
+    (lambda: psychro.state_from_rh(21.0, float("inf")), "relative humidity"),
+    (lambda: psychro.state_from_rh(21.0, 50.0, 1e308), "pressure"),
     (lambda: psychro.state_from_rh(75.0, 50.0), "dry bulb"),
     (lambda: psychro.state_from_rh(-51.0, 50.0), "dry bulb"),
     (lambda: psychro.state_from_rh(21.0, 50.0, 40_000.0), "pressure"),
@@ -255,10 +296,13 @@ pressures = st.floats(min_value=50_000.0, max_value=110_000.0, allow_nan=False)
 @settings(max_examples=200, deadline=None)
 @given(temps, rhs, pressures)
 def test_dew_point_never_above_dry_bulb(temp_c, rh_pct, pressure_pa):
-    """Dew point (and frost point) never exceed the dry bulb."""
+    """The dew point never exceeds the dry bulb; the frost point does so only for air that
+    is supersaturated over ice (RH over water above pws_ice / pws_water)."""
     state = psychro.state_from_rh(temp_c, rh_pct, pressure_pa)
     assert state.dew_point_c <= temp_c + 1e-9
-    assert state.condensation_point_c <= temp_c + 1e-9
+    supersaturated_over_ice = (state.vapour_pressure_pa
+                               > psychro.sat_vapour_pressure_pa(temp_c) * (1 + 1e-9))
+    assert (state.condensation_point_c > temp_c + 1e-3) <= supersaturated_over_ice
 
 
 @settings(max_examples=200, deadline=None)
@@ -280,5 +324,4 @@ def test_surface_rh_reaches_100_exactly_at_the_condensation_point(temp_c, rh_pct
     state = psychro.state_from_rh(temp_c, rh_pct)
     point = state.condensation_point_c
     assume(abs(surface_c - point) > 0.01)
-    assume(state.frost_point_c is None or state.frost_point_c < temp_c)  # not clamped
     assert (psychro.surface_rh_pct(state, surface_c) >= 100.0) == (surface_c <= point)

@@ -76,6 +76,62 @@ def test_parse_failures_name_field_text_and_what_is_accepted(parse, text, fragme
     assert "the field" in str(info.value)
 
 
+@pytest.mark.parametrize("text", ["21 °C)", "21 (", "21 C/0", "21 %**0", "21 °C,",
+                                  "21 °C °C", "21 degC*2", "1e400", "21 kelvin**2"])
+def test_unit_text_is_never_evaluated_as_an_expression(text):
+    """Junk after the number is refused with InputError, never passed to pint's parser."""
+    with pytest.raises(InputError):
+        units.parse_temperature(text, "t")
+
+
+@pytest.mark.parametrize("text", ["1013 (hPa", "1013 hPa/1", "1,013.25 hPa", "1013 hPa hPa"])
+def test_pressure_junk_is_refused(text):
+    """Malformed pressures (including thousands separators) are refused, not guessed."""
+    with pytest.raises(InputError):
+        units.parse_pressure(text, "p")
+
+
+def test_bare_degree_sign_follows_the_unit_system():
+    """'70°' is 70 °F in an IP survey and 70 °C in an SI one; ℃ and ℉ are understood."""
+    assert units.parse_temperature("70°", "t", "ip") == pytest.approx(21.1111111)
+    assert units.parse_temperature("21°", "t", "si") == pytest.approx(21.0)
+    assert units.parse_temperature("21 ℃", "t", "ip") == pytest.approx(21.0)
+    assert units.parse_temperature("70℉", "t", "si") == pytest.approx(21.1111111)
+
+
+def test_rh_typed_as_a_fraction_is_refused():
+    """0.65 typed for 65 % is refused with a hint; '0.65 %' is taken as meant."""
+    with pytest.raises(InputError) as info:
+        units.parse_rh("0.65", "--rh")
+    assert "fraction" in info.value.allowed
+    assert units.parse_rh("0.65 %", "--rh") == pytest.approx(0.65)
+
+
+def test_ip_enthalpy_uses_the_ip_datum():
+    """IP enthalpy counts from dry air at 0 °F: at 70 °F / 50 % it is 25.30 Btu/lb by ASHRAE
+    Fundamentals 2017 ch. 1 IP eqn 30, h = 0.240 t + W (1061 + 0.444 t) (computed)."""
+    from survey import psychro
+
+    state = psychro.state_from_rh((70 - 32) / 1.8, 50.0)
+    w = state.humidity_ratio_kg_per_kg
+    ashrae_ip = 0.240 * 70 + w * (1061 + 0.444 * 70)
+    shown = units.to_display("enthalpy", state.enthalpy_j_per_kg, "ip")
+    assert shown == pytest.approx(ashrae_ip, abs=0.05)
+    assert shown == pytest.approx(25.30, abs=0.05)
+
+
+def test_ip_density_volume_and_absolute_humidity_factors():
+    """IP conversions against definitions: 1 lb = 0.45359237 kg, 1 ft = 0.3048 m,
+    7000 grains = 1 lb (NIST SP 811 Appendix B)."""
+    lb, ft3 = 0.45359237, 0.3048 ** 3
+    assert units.to_display("density", 1.2, "ip") == pytest.approx(1.2 * ft3 / lb)
+    assert units.to_display("specific_volume", 0.85, "ip") == pytest.approx(0.85 / ft3 * lb)
+    grains_per_g = 7000.0 / 453.59237
+    assert units.to_display("absolute_humidity", 10.0, "ip") == pytest.approx(
+        10.0 * grains_per_g * ft3)
+    assert units.to_display("humidity_ratio", 0.010, "ip") == pytest.approx(70.0)
+
+
 def test_unknown_unit_system_is_refused():
     """Only si and ip are unit systems."""
     with pytest.raises(InputError):
