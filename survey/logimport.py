@@ -1,0 +1,418 @@
+"""Reading a data logger's CSV export: time, air temperature and relative humidity.
+
+Loggers write CSV in many dialects. This reader finds its way through the common ones:
+
+* a preamble of title or serial-number lines before the column header;
+* comma, semicolon or tab separators, and a decimal comma (``21,5``);
+* UTF-8 (with or without a byte-order mark), UTF-16, or Windows-1252 text;
+* header spellings such as ``Time``, ``Date Time, GMT+01:00``, ``Timestamp``, separate
+  ``Date`` and ``Time`` columns; ``Temperature (°C)``, ``Temp, °F``, ``Celsius(°C)``,
+  ``T [degF]``; ``RH (%)``, ``Humidity(%rh)``, ``%RH``, ``Relative humidity``. Dew-point,
+  absolute-humidity and other columns are ignored;
+* the temperature unit from the header (°C, C, degC, Celsius, °F, F, degF, Fahrenheit) or a
+  units row just under it; °F is converted with t_C = (t_F − 32) × 5/9, the definition of
+  the Fahrenheit scale. A header without a unit needs the unit stated by the caller;
+* times in ISO 8601 (``2025-01-15 10:00:00``, ``2025-01-15T10:00``), or as ``15/01/2025 10:00``,
+  ``01/15/2025 10:00:00 AM``, ``15.01.2025 10:00``. Whether ``03/04/2025`` is day/month or
+  month/day is settled by any day above 12 in the file; if none is, the caller must say.
+
+Every data row that cannot be used is reported with its line number and the reason (empty
+value, not a number, out of the reading range, a repeated time, no time); nothing is
+silently dropped. Errors in what the caller asked for raise
+:class:`~survey.errors.InputError`.
+"""
+
+from __future__ import annotations
+
+import csv
+import datetime as dt
+import hashlib
+import io
+import math
+import re
+from dataclasses import dataclass, field
+from typing import Literal
+
+from survey.errors import InputError
+from survey.model import LogSample
+from survey.psychro import DRY_BULB_MAX_C, DRY_BULB_MIN_C
+
+TempUnit = Literal["c", "f"]
+DateOrder = Literal["dmy", "mdy", "ymd"]
+
+#: How far into the file the column header is looked for.
+HEADER_SEARCH_LINES = 40
+_DELIMITERS = (",", ";", "\t")
+
+
+@dataclass(frozen=True)
+class SkippedRow:
+    """A data row that was not imported: its line number in the file and why."""
+
+    line: int
+    reason: str
+
+
+@dataclass
+class LoggerData:
+    """What was read from a logger file."""
+
+    samples: list[LogSample]
+    skipped: list[SkippedRow]
+    time_columns: tuple[str, ...]
+    temperature_column: str
+    rh_column: str
+    temperature_unit: TempUnit
+    unit_source: str  #: where the unit came from: "header", "units row" or "stated"
+    date_order: DateOrder | None
+    delimiter: str
+    encoding: str
+    header_line: int
+    sha256: str
+    reordered: bool = False  #: rows were not in time order and have been sorted
+    notes: list[str] = field(default_factory=list)
+
+    @property
+    def interval(self) -> dt.timedelta | None:
+        """The most common step between samples."""
+        if len(self.samples) < 2:
+            return None
+        steps: dict[dt.timedelta, int] = {}
+        for a, b in zip(self.samples, self.samples[1:]):
+            step = b.at - a.at
+            steps[step] = steps.get(step, 0) + 1
+        return max(steps, key=steps.__getitem__)
+
+
+# --- text and header ---------------------------------------------------------------------
+
+def _decode_text(data: bytes) -> tuple[str, str]:
+    if data.startswith((b"\xff\xfe", b"\xfe\xff")):
+        return data.decode("utf-16"), "UTF-16"
+    if data.startswith(b"\xef\xbb\xbf"):
+        return data[3:].decode("utf-8", errors="replace"), "UTF-8"
+    try:
+        return data.decode("utf-8"), "UTF-8"
+    except UnicodeDecodeError:
+        return data.decode("cp1252", errors="replace"), "Windows-1252"
+
+
+def _norm(cell: str) -> str:
+    text = cell.strip().strip('"').strip().lower().replace("º", "°")
+    return re.sub(r"\s+", " ", text)
+
+
+def _is_time(name: str) -> bool:
+    return bool(re.search(r"\b(date|time|timestamp|datetime|zeit|datum|heure|fecha)\b", name)
+                or name.startswith(("date", "time"))) and not _is_rh(name) and "temp" not in name
+
+
+def _is_date_only(name: str) -> bool:
+    return bool(re.search(r"\b(date|datum|fecha)\b", name)) and "time" not in name
+
+
+def _is_time_only(name: str) -> bool:
+    return bool(re.search(r"\btime\b|\bzeit\b|\bheure\b", name)) and "date" not in name
+
+
+def _is_temperature(name: str) -> bool:
+    if any(word in name for word in ("dew", "wet bulb", "wetbulb", "surface", "heat index")):
+        return False
+    return bool(re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^°[cf]$|^deg\s?[cf]$|^air\b",
+                          name))
+
+
+def _is_rh(name: str) -> bool:
+    if any(word in name for word in ("dew", "abs", "g/m", "specific")):
+        return False
+    return bool(re.search(r"\brh\b|%\s*rh|humid|feuchte|hum\b|r\.h\.|rel\.? ?hum", name))
+
+
+_F_UNIT = re.compile(r"°\s*f\b|\bdeg\s?f\b|fahrenheit|[\(\[,]\s*f\s*[\)\]]?\s*$|\bf$|^f$")
+_C_UNIT = re.compile(r"°\s*c\b|\bdeg\s?c\b|celsius|[\(\[,]\s*c\s*[\)\]]?\s*$|\bc$|^c$")
+
+
+def _unit_in(text: str) -> TempUnit | None:
+    text = _norm(text)
+    is_f, is_c = bool(_F_UNIT.search(text)), bool(_C_UNIT.search(text))
+    if is_f and not is_c:
+        return "f"
+    if is_c and not is_f:
+        return "c"
+    return None
+
+
+@dataclass
+class _Layout:
+    delimiter: str
+    header_index: int  # index into the rows list
+    time_cols: tuple[int, ...]
+    temp_col: int
+    rh_col: int
+    names: list[str]
+
+
+def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
+    best = None
+    for delimiter in _DELIMITERS:
+        rows = list(csv.reader(io.StringIO(text), delimiter=delimiter))
+        for index, row in enumerate(rows[:HEADER_SEARCH_LINES]):
+            names = [_norm(cell) for cell in row]
+            if len(names) < 3:
+                continue
+            temp = [i for i, n in enumerate(names) if _is_temperature(n)]
+            rh = [i for i, n in enumerate(names) if _is_rh(n)]
+            times = [i for i, n in enumerate(names) if _is_time(n) and i not in temp + rh]
+            if not (temp and rh and times):
+                continue
+            dates = [i for i in times if _is_date_only(names[i])]
+            clocks = [i for i in times if _is_time_only(names[i])]
+            if dates and clocks and len(times) >= 2:
+                time_cols: tuple[int, ...] = (dates[0], clocks[0])
+            else:
+                time_cols = (times[0],)
+            layout = _Layout(delimiter, index, time_cols, temp[0], rh[0], row)
+            if best is None or index < best[0].header_index:
+                best = (layout, rows)
+            break
+    return best
+
+
+# --- values ------------------------------------------------------------------------------
+
+_DATE_TIME = re.compile(
+    r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})"
+    r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
+    r"\s*(?P<ampm>[ap]\.?m\.?)?)?$",
+    re.I,
+)
+
+
+def _clean(cell: str) -> str:
+    return cell.strip().strip('"').strip()
+
+
+def _parse_number(text: str) -> float | None:
+    text = _clean(text).replace("\u2212", "-").replace(" ", "")
+    if text.count(",") == 1 and "." not in text:
+        text = text.replace(",", ".")
+    try:
+        value = float(text)
+    except ValueError:
+        return None
+    return value if math.isfinite(value) else None
+
+
+def _date_fields(text: str) -> re.Match[str] | None:
+    return _DATE_TIME.match(_clean(text))
+
+
+def _build_time(m: re.Match[str], order: DateOrder | None) -> dt.datetime:
+    a, b, c = int(m["a"]), int(m["b"]), int(m["c"])
+    if len(m["a"]) == 4:
+        year, month, day = a, b, c
+    elif order == "mdy":
+        month, day, year = a, b, c
+    elif order == "ymd":
+        year, month, day = a, b, c
+    else:
+        day, month, year = a, b, c
+    if year < 100:
+        year += 2000
+    hour = int(m["h"] or 0)
+    minute = int(m["mi"] or 0)
+    second = int(m["s"] or 0)
+    micro = int((m["frac"] or "0").ljust(6, "0")[:6])
+    if m["ampm"]:
+        if not 1 <= hour <= 12:
+            raise ValueError("hour out of range for AM/PM")
+        hour = hour % 12 + (12 if m["ampm"][0].lower() == "p" else 0)
+    return dt.datetime(year, month, day, hour, minute, second, micro)
+
+
+def _parse_time(text: str, order: DateOrder | None) -> dt.datetime | None:
+    text = _clean(text)
+    if not text:
+        return None
+    m = _date_fields(text)
+    if m is not None:
+        try:
+            return _build_time(m, order)
+        except ValueError:
+            return None
+    try:
+        return dt.datetime.fromisoformat(text)
+    except ValueError:
+        return None
+
+
+def _detect_date_order(values: list[str]) -> DateOrder | None | Literal["ambiguous"]:
+    """``None`` when every time is year-first (or ISO); else the order the data shows."""
+    first_big = second_big = False
+    any_short = False
+    for text in values:
+        m = _date_fields(text)
+        if m is None or len(m["a"]) == 4:
+            continue
+        any_short = True
+        first_big |= int(m["a"]) > 12
+        second_big |= int(m["b"]) > 12
+    if not any_short:
+        return None
+    if first_big and not second_big:
+        return "dmy"
+    if second_big and not first_big:
+        return "mdy"
+    return "ambiguous"
+
+
+def _show(text: str) -> str:
+    text = _clean(text)
+    return repr(text if len(text) <= 30 else text[:27] + "...")
+
+
+# --- the reader --------------------------------------------------------------------------
+
+def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
+                    date_order: DateOrder | None = None) -> LoggerData:
+    """Read a logger's CSV export (the file's bytes) into samples and skipped rows.
+
+    ``temp_unit`` ("c" or "f") is needed when the header does not state the unit and
+    overrides it when it does; ``date_order`` is needed when the dates are ambiguous.
+    Raises :class:`~survey.errors.InputError` when no usable header is found, the unit or
+    date order is unknown, or no row at all can be used.
+    """
+    if temp_unit not in (None, "c", "f"):
+        raise InputError("--temp-unit", temp_unit, "c (°C) or f (°F)")
+    if date_order not in (None, "dmy", "mdy", "ymd"):
+        raise InputError("--date-order", date_order, "dmy, mdy or ymd")
+    digest = hashlib.sha256(data).hexdigest()
+    text, encoding = _decode_text(data)
+    found = _find_layout(text)
+    if found is None:
+        first = next((line for line in text.splitlines() if line.strip()), "")
+        raise InputError(
+            "--csv", _show(first) if first else "(empty file)",
+            "no header row with a time, a temperature and a relative-humidity column was found "
+            f"in the first {HEADER_SEARCH_LINES} lines (e.g. 'Time,Temperature (°C),RH (%)')")
+    layout, rows = found
+    names = layout.names
+    data_rows = rows[layout.header_index + 1:]
+    first_line = _line_numbers(text, layout.delimiter)
+    unit_source = "stated"
+    header_unit = _unit_in(names[layout.temp_col])
+    unit_row = False
+    if data_rows and len(data_rows[0]) > layout.temp_col:
+        below = data_rows[0][layout.temp_col]
+        if _parse_number(below) is None and _unit_in(below) is not None and header_unit is None:
+            header_unit = _unit_in(below)
+            unit_row = True
+    if temp_unit is None:
+        if header_unit is None:
+            raise InputError(
+                "--temp-unit", "(not given)",
+                f"the temperature column {names[layout.temp_col].strip()!r} does not say its "
+                "unit; give --temp-unit c or --temp-unit f")
+        temp_unit = header_unit
+        unit_source = "units row" if unit_row else "header"
+    if unit_row:
+        data_rows = data_rows[1:]
+    row_offset = layout.header_index + 1 + (1 if unit_row else 0)
+
+    def time_text(row: list[str]) -> str:
+        return " ".join(_clean(row[i]) for i in layout.time_cols if i < len(row))
+
+    detected = _detect_date_order([time_text(r) for r in data_rows if r])
+    if detected == "ambiguous":
+        if date_order is None:
+            sample = next((time_text(r) for r in data_rows if r and _date_fields(time_text(r))), "")
+            raise InputError(
+                "--date-order", _show(sample),
+                "dates such as this could be day/month/year or month/day/year and no day "
+                "above 12 settles it; give --date-order dmy or --date-order mdy")
+        order: DateOrder | None = date_order
+    elif detected is None:
+        order = date_order
+    else:
+        order = date_order or detected
+
+    samples: list[LogSample] = []
+    skipped: list[SkippedRow] = []
+    seen: dict[dt.datetime, int] = {}
+    need = max(layout.temp_col, layout.rh_col, *layout.time_cols) + 1
+    for n, row in enumerate(data_rows):
+        line = first_line[row_offset + n] if row_offset + n < len(first_line) else 0
+        if not any(cell.strip() for cell in row):
+            continue  # blank line
+        if len(row) < need:
+            skipped.append(SkippedRow(line, f"only {len(row)} columns, {need} needed"))
+            continue
+        when_text = time_text(row)
+        when = _parse_time(when_text, order)
+        if when is None and not when_text.strip():
+            skipped.append(SkippedRow(line, "no time given"))
+            continue
+        if when is None:
+            skipped.append(SkippedRow(line, f"time {_show(when_text)} is not a date and time"))
+            continue
+        raw_t, raw_rh = row[layout.temp_col], row[layout.rh_col]
+        if not _clean(raw_t):
+            skipped.append(SkippedRow(line, "temperature is empty"))
+            continue
+        if not _clean(raw_rh):
+            skipped.append(SkippedRow(line, "RH is empty"))
+            continue
+        t = _parse_number(raw_t)
+        if t is None:
+            skipped.append(SkippedRow(line, f"temperature {_show(raw_t)} is not a number"))
+            continue
+        rh = _parse_number(raw_rh.replace("%", ""))
+        if rh is None:
+            skipped.append(SkippedRow(line, f"RH {_show(raw_rh)} is not a number"))
+            continue
+        t_c = (t - 32.0) * 5.0 / 9.0 if temp_unit == "f" else t
+        t_c = round(t_c, 4)
+        if not DRY_BULB_MIN_C <= t_c <= DRY_BULB_MAX_C:
+            unit = "°F" if temp_unit == "f" else "°C"
+            skipped.append(SkippedRow(line, f"temperature {t:g} {unit} is outside "
+                                            f"{DRY_BULB_MIN_C:g}…{DRY_BULB_MAX_C:g} °C"))
+            continue
+        if not 0.0 < rh <= 100.0:
+            skipped.append(SkippedRow(line, f"RH {rh:g} % is outside the range above 0 and at "
+                                            "most 100 %"))
+            continue
+        if when in seen:
+            skipped.append(SkippedRow(line, f"same time as line {seen[when]}"))
+            continue
+        seen[when] = line
+        samples.append(LogSample(at=when, dry_bulb_c=t_c, rh_pct=rh))
+    if not samples:
+        reasons = "; ".join(f"line {s.line}: {s.reason}" for s in skipped[:3])
+        raise InputError("--csv", f"({len(data_rows)} data rows)",
+                         "no row could be imported" + (f" ({reasons})" if reasons else ""))
+    reordered = any(b.at < a.at for a, b in zip(samples, samples[1:]))
+    if reordered:
+        try:
+            samples.sort(key=lambda s: s.at)
+        except TypeError:  # times with and without a UTC offset in one file
+            raise InputError("--csv", "(mixed times)", "some times carry a UTC offset and "
+                                                       "some do not") from None
+    return LoggerData(
+        samples=samples, skipped=skipped,
+        time_columns=tuple(names[i].strip() for i in layout.time_cols),
+        temperature_column=names[layout.temp_col].strip(), rh_column=names[layout.rh_col].strip(),
+        temperature_unit=temp_unit, unit_source=unit_source, date_order=order,
+        delimiter=layout.delimiter, encoding=encoding, header_line=first_line[layout.header_index],
+        sha256=digest, reordered=reordered,
+    )
+
+
+def _line_numbers(text: str, delimiter: str) -> list[int]:
+    """The 1-based line on which each CSV record starts (quoted fields may span lines)."""
+    starts = []
+    reader = csv.reader(io.StringIO(text), delimiter=delimiter)
+    line = 1
+    for _row in reader:
+        starts.append(line)
+        line = reader.line_num + 1
+    return starts

@@ -1,0 +1,461 @@
+"""The survey as plain typed records: site, instruments, rooms, visits, readings, logs.
+
+Every record is a :class:`msgspec.Struct`. The same classes serve three purposes: loading a
+survey file (``msgspec.json.decode(..., type=Survey)`` checks every type and range),
+saving it, and generating the JSON Schema that ``survey schema`` prints. There is no second,
+hand-written description of the format.
+
+Conventions
+-----------
+* Numbers are SI floats with the unit in the field name: ``dry_bulb_c`` (°C), ``rh_pct``
+  (percent, relative to liquid water as hygrometers report it), ``surface_temp_c``,
+  ``pressure_pa``, ``altitude_m``, ``volume_m3``, ``floor_area_m2``, ``height_m``. A survey in
+  IP units (``Site.unit_system == "ip"``) is only *displayed* in °F, ft …; the stored numbers
+  are always SI.
+* Derived numbers (dew point, humidity ratio, surface RH …) are never stored. They are
+  computed from the readings each time, so a corrected reading cannot leave a stale dew point
+  behind.
+* Choices are lowercase snake-case strings (``"external_wall"``, ``"bedroom"``).
+* Rooms and instruments carry a short ``id``; per-visit records refer to them by it.
+* Reading ranges are the input domain of :mod:`survey.psychro` (air −50…+70 °C, RH above 0 and
+  at most 100 %, pressure 50–110 kPa, surfaces −60…+90 °C). NaN and infinity never decode.
+
+Checks that span records (unique ids, references to rooms and instruments that exist) are in
+:func:`problems`; the store runs them on every load and save.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+from typing import Annotated, Iterator, Literal
+
+import msgspec
+from msgspec import Meta, Struct, field
+
+from survey.errors import InputError
+from survey.psychro import (
+    ALTITUDE_MAX_M,
+    ALTITUDE_MIN_M,
+    DRY_BULB_MAX_C,
+    DRY_BULB_MIN_C,
+    PRESSURE_MAX_PA,
+    PRESSURE_MIN_PA,
+    SURFACE_TEMP_MAX_C,
+    SURFACE_TEMP_MIN_C,
+)
+
+#: The schema version this program writes. Older versions are upgraded on load by the
+#: migrations in :mod:`survey.store`; newer ones are refused.
+SCHEMA_VERSION = 1
+
+# --- choices -----------------------------------------------------------------------------
+
+UnitSystem = Literal["si", "ip"]
+Purpose = Literal[
+    "damp_complaint",  # condensation, mould or damp reported by an occupant
+    "drying_check",  # monitoring the drying of a building after a leak or flood
+    "pre_purchase",  # condition survey before a purchase or lease
+    "pre_coating",  # conditions before painting, coating or flooring work
+    "routine",  # periodic or post-remedy inspection
+    "other",
+]
+InstrumentKind = Literal[
+    "thermo_hygrometer",
+    "surface_thermometer",  # contact or infrared
+    "moisture_meter",
+    "data_logger",
+    "combined_meter",  # one instrument measuring several of the above
+    "other",
+]
+RoomUse = Literal[
+    "bedroom", "bathroom", "kitchen", "living", "basement", "crawlspace", "loft",
+    "office", "storage", "hallway", "other",
+]
+Element = Literal[
+    "external_wall", "internal_wall", "ceiling", "floor", "window_frame", "glazing", "pipe",
+    "other",
+]
+#: ``mc_pct``: timber moisture content, % of oven-dry mass (pin meter on wood);
+#: ``wme_pct``: wood moisture equivalent, % (the reading a meter gives on a non-wood material,
+#: as the moisture content wood would have in equilibrium with it);
+#: ``relative``: the meter's own relative scale (comparative only, e.g. 0–100 or 0–999).
+MoistureScale = Literal["mc_pct", "wme_pct", "relative"]
+MeterMethod = Literal["pin", "pinless"]
+Odour = Literal["none", "musty", "earthy", "sewage", "chemical", "other"]
+#: Water-damage category of the restoration standard of practice: 1 clean, 2 significant
+#: contamination, 3 grossly contaminated.
+WaterCategory = Literal[1, 2, 3]
+EquipmentKind = Literal[
+    "refrigerant_dehumidifier", "desiccant_dehumidifier", "air_mover", "heater",
+    "extract_fan", "air_scrubber", "other",
+]
+
+# --- constrained scalars -----------------------------------------------------------------
+
+Id = Annotated[str, Meta(
+    pattern=r"^[A-Za-z0-9][A-Za-z0-9_.-]{0,39}$",
+    description="Short identifier: letters, digits, '-', '_' or '.', up to 40 characters.",
+)]
+Name = Annotated[str, Meta(min_length=1, max_length=200)]
+Text = Annotated[str, Meta(max_length=200)]
+Address = Annotated[str, Meta(max_length=1000)]
+Notes = Annotated[str, Meta(max_length=20_000, description="Free notes.")]
+FileName = Annotated[str, Meta(
+    min_length=1, max_length=255, pattern=r"^[^\x00-\x1f]+$",
+    description="A photo's file name, relative to the survey file's folder.",
+)]
+
+DryBulbC = Annotated[float, Meta(
+    ge=DRY_BULB_MIN_C, le=DRY_BULB_MAX_C, description="Air (dry-bulb) temperature, °C.")]
+RhPct = Annotated[float, Meta(
+    gt=0.0, le=100.0,
+    description="Relative humidity, %, relative to liquid water as hygrometers report it.")]
+SurfaceTempC = Annotated[float, Meta(
+    ge=SURFACE_TEMP_MIN_C, le=SURFACE_TEMP_MAX_C, description="Surface temperature, °C.")]
+PressurePa = Annotated[float, Meta(
+    ge=PRESSURE_MIN_PA, le=PRESSURE_MAX_PA, description="Barometric pressure, Pa.")]
+AltitudeM = Annotated[float, Meta(
+    ge=ALTITUDE_MIN_M, le=ALTITUDE_MAX_M, description="Altitude above sea level, m.")]
+TempAccuracyK = Annotated[float, Meta(gt=0.0, le=10.0)]
+RhAccuracyPct = Annotated[float, Meta(gt=0.0, le=20.0)]
+Sha256 = Annotated[str, Meta(pattern=r"^[0-9a-f]{64}$")]
+
+_RECORD = dict(kw_only=True, forbid_unknown_fields=True, omit_defaults=True)
+
+
+# --- records -----------------------------------------------------------------------------
+
+class Site(Struct, **_RECORD):
+    """Where the survey is, for whom, why, and how numbers are shown."""
+
+    reference: Name  #: the job reference or short site name, e.g. "CS-0142 Flat 7"
+    address: Address = ""
+    client: Text = ""
+    purpose: Purpose = "damp_complaint"
+    inspector: Text = ""
+    unit_system: UnitSystem = "si"
+    #: Altitude of the site; used for the standard-atmosphere pressure when no
+    #: barometric pressure was measured.
+    altitude_m: AltitudeM | None = None
+    #: Barometric pressure measured on site; overrides ``altitude_m``.
+    pressure_pa: PressurePa | None = None
+    construction: Text = ""  #: e.g. "1960s concrete frame, cavity brick infill"
+    year_built: Annotated[int, Meta(ge=1000, le=2200)] | None = None
+    notes: Notes = ""
+
+
+class Instrument(Struct, **_RECORD):
+    """A measuring instrument and its stated accuracies (used for uncertainty bands)."""
+
+    id: Id
+    kind: InstrumentKind
+    name: Name  #: make and model as written on it, or a description
+    serial: Text = ""
+    calibrated_on: dt.date | None = None
+    air_temp_accuracy_k: TempAccuracyK | None = None  #: ± K on air temperature
+    rh_accuracy_pct: RhAccuracyPct | None = None  #: ± percentage points of RH
+    surface_temp_accuracy_k: TempAccuracyK | None = None  #: ± K on surface temperature
+    #: ± on a moisture reading, in the units of the reading's scale.
+    moisture_accuracy: Annotated[float, Meta(gt=0.0, le=100.0)] | None = None
+    #: Emissivity set on an infrared surface thermometer.
+    emissivity: Annotated[float, Meta(gt=0.0, le=1.0)] | None = None
+    notes: Notes = ""
+
+
+class Room(Struct, **_RECORD):
+    """A room or space of the building, the same on every visit."""
+
+    id: Id
+    name: Name
+    level: Annotated[int, Meta(ge=-10, le=200)] = 0  #: storey: 0 ground, 1 first, −1 basement
+    use: RoomUse = "other"
+    volume_m3: Annotated[float, Meta(gt=0.0, le=1_000_000.0)] | None = None
+    floor_area_m2: Annotated[float, Meta(gt=0.0, le=100_000.0)] | None = None
+    height_m: Annotated[float, Meta(gt=0.0, le=100.0)] | None = None
+    occupants: Annotated[int, Meta(ge=0, le=1000)] = 0  #: people who usually use it
+    #: True for an unaffected room used as the reference (dry standard, normal conditions).
+    is_reference: bool = False
+    notes: Notes = ""
+
+    def volume_estimate_m3(self) -> float | None:
+        """The stated volume, else floor area × height, else ``None``."""
+        if self.volume_m3 is not None:
+            return self.volume_m3
+        if self.floor_area_m2 is not None and self.height_m is not None:
+            return self.floor_area_m2 * self.height_m
+        return None
+
+
+class AirReading(Struct, **_RECORD):
+    """One spot reading of air temperature and relative humidity."""
+
+    dry_bulb_c: DryBulbC
+    rh_pct: RhPct
+    taken_at: dt.datetime | None = None
+    instrument: Id | None = None
+
+
+class SurfaceReading(Struct, **_RECORD):
+    """A surface temperature at a named spot, with what was seen there."""
+
+    location: Name  #: e.g. "NE corner behind wardrobe, 0.2 m above skirting"
+    element: Element
+    surface_temp_c: SurfaceTempC
+    material: Text = ""
+    taken_at: dt.datetime | None = None
+    instrument: Id | None = None
+    condensation_seen: bool = False
+    mould_visible: bool = False
+    notes: Notes = ""
+
+
+class MaterialReading(Struct, **_RECORD):
+    """A moisture-meter reading of a material at a named spot."""
+
+    location: Name
+    material: Name  #: e.g. "gypsum plaster", "softwood skirting", "chipboard floor"
+    value: Annotated[float, Meta(ge=0.0, le=1000.0)]
+    scale: MoistureScale
+    #: True when this is a dry-standard reading: the same material in an unaffected part of
+    #: the building, the goal the affected readings are dried toward.
+    dry_standard: bool = False
+    method: MeterMethod | None = None
+    taken_at: dt.datetime | None = None
+    instrument: Id | None = None
+    notes: Notes = ""
+
+
+class Observations(Struct, **_RECORD):
+    """What was seen or smelt in a room on a visit."""
+
+    mould_visible: bool = False
+    mould_area_m2: Annotated[float, Meta(ge=0.0, le=100_000.0)] | None = None  #: visible total
+    staining: bool = False
+    condensation_seen: bool = False
+    odour: Odour | None = None  #: ``None``: not recorded
+    water_category: WaterCategory | None = None
+    notes: Notes = ""
+
+
+class Equipment(Struct, **_RECORD):
+    """Drying or ventilation equipment in a room on a visit."""
+
+    kind: EquipmentKind
+    label: Text = ""
+    running: bool = True
+    capacity_l_per_day: Annotated[float, Meta(gt=0.0, le=10_000.0)] | None = None  #: rated
+    #: Water collected since the previous visit, litres.
+    water_removed_l: Annotated[float, Meta(ge=0.0, le=100_000.0)] | None = None
+    #: Air leaving a dehumidifier, for the humidity-ratio drop across it.
+    outlet: AirReading | None = None
+    notes: Notes = ""
+
+
+class RoomVisit(Struct, **_RECORD):
+    """Everything recorded in one room on one visit."""
+
+    room: Id  #: ``Room.id``
+    air: AirReading | None = None
+    surfaces: list[SurfaceReading] = []
+    materials: list[MaterialReading] = []
+    observations: Observations = field(default_factory=Observations)
+    equipment: list[Equipment] = []
+    heating_on: bool | None = None
+    windows_open: bool | None = None
+    notes: Notes = ""
+    photos: list[FileName] = []
+
+
+class Visit(Struct, **_RECORD):
+    """One visit to the site: when, the weather, the outdoor air, and the rooms seen."""
+
+    started_at: dt.datetime
+    label: Text = ""  #: e.g. "Day 2 drying check"
+    inspector: Text = ""  #: when not the site's inspector
+    weather: Text = ""
+    outdoor: AirReading | None = None
+    #: Barometric pressure measured on this visit; overrides the site's.
+    pressure_pa: PressurePa | None = None
+    rooms: list[RoomVisit] = []
+    notes: Notes = ""
+    photos: list[FileName] = []
+
+    def room_visit(self, room_id: str) -> RoomVisit | None:
+        """This visit's record for ``room_id``, if the room was seen."""
+        for room_visit in self.rooms:
+            if room_visit.room == room_id:
+                return room_visit
+        return None
+
+
+class LogSample(Struct, array_like=True, forbid_unknown_fields=True):
+    """One data-logger sample, stored compactly as ``[time, dry_bulb_c, rh_pct]``."""
+
+    at: dt.datetime
+    dry_bulb_c: DryBulbC
+    rh_pct: RhPct
+
+
+class LogSeries(Struct, **_RECORD):
+    """Samples imported from a data logger's file, for a room or (``room`` null) outdoors."""
+
+    room: Id | None  #: ``Room.id``; ``None`` for an outdoor logger
+    source: Name  #: the imported file's name
+    samples: list[LogSample]
+    instrument: Id | None = None
+    source_sha256: Sha256 | None = None  #: of the imported file, to spot a repeated import
+    imported_at: dt.datetime | None = None
+    skipped_rows: Annotated[int, Meta(ge=0)] = 0  #: data rows of the file not imported
+    notes: Notes = ""
+
+
+class Survey(Struct, kw_only=True, forbid_unknown_fields=True):
+    """One survey: one site, its instruments and rooms, the visits, and logger series.
+
+    Every top-level field is always written (``schema_version`` above all), so a file shows
+    its sections even while they are empty.
+    """
+
+    schema_version: Annotated[int, Meta(ge=SCHEMA_VERSION, le=SCHEMA_VERSION)] = SCHEMA_VERSION
+    site: Site
+    instruments: list[Instrument] = []
+    rooms: list[Room] = []
+    visits: list[Visit] = []
+    logs: list[LogSeries] = []
+    created_at: dt.datetime | None = None
+
+    def find_room(self, key: str) -> Room | None:
+        """The room whose id is ``key``, else the one whose name matches it ignoring case."""
+        for room in self.rooms:
+            if room.id == key:
+                return room
+        folded = key.strip().casefold()
+        for room in self.rooms:
+            if room.name.strip().casefold() == folded:
+                return room
+        return None
+
+    def room(self, room_id: str) -> Room:
+        """The room with id ``room_id`` (``KeyError`` if there is none)."""
+        for room in self.rooms:
+            if room.id == room_id:
+                return room
+        raise KeyError(room_id)
+
+    def instrument(self, instrument_id: str) -> Instrument:
+        """The instrument with id ``instrument_id`` (``KeyError`` if there is none)."""
+        for instrument in self.instruments:
+            if instrument.id == instrument_id:
+                return instrument
+        raise KeyError(instrument_id)
+
+
+# --- helpers -----------------------------------------------------------------------------
+
+def new_survey(reference: str, **site_fields: object) -> Survey:
+    """A valid empty survey for the site ``reference`` (created now, local time)."""
+    site = Site(reference=reference, **site_fields)
+    survey = Survey(site=site, created_at=dt.datetime.now().replace(microsecond=0))
+    check_record(survey)
+    return survey
+
+
+def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:
+    """The pressure to compute a visit's moist-air states with: the visit's measured
+    pressure, else the site's, else the standard atmosphere at the site's altitude, else
+    standard sea-level pressure."""
+    from survey import psychro
+
+    if visit is not None and visit.pressure_pa is not None:
+        return visit.pressure_pa
+    return psychro.site_pressure_pa(survey.site.altitude_m, survey.site.pressure_pa)
+
+
+def _id_list(ids: Iterator[str]) -> str:
+    shown = list(ids)
+    return ", ".join(shown) if shown else "(none defined)"
+
+
+def problems(survey: Survey) -> list[tuple[str, str]]:
+    """Checks across records, as ``(where, problem)`` pairs; empty when all is well.
+
+    Ids must be unique; every room and instrument a reading names must exist; a room
+    appears at most once per visit; a mould area needs visible mould.
+    """
+    found: list[tuple[str, str]] = []
+    room_ids: set[str] = set()
+    for i, room in enumerate(survey.rooms):
+        if room.id in room_ids:
+            found.append((f"rooms[{i}].id", f"room id '{room.id}' is used twice"))
+        room_ids.add(room.id)
+    instrument_ids: set[str] = set()
+    for i, instrument in enumerate(survey.instruments):
+        if instrument.id in instrument_ids:
+            found.append((f"instruments[{i}].id",
+                          f"instrument id '{instrument.id}' is used twice"))
+        instrument_ids.add(instrument.id)
+
+    def instrument_ref(where: str, instrument_id: str | None) -> None:
+        if instrument_id is not None and instrument_id not in instrument_ids:
+            found.append((where, f"no instrument with id '{instrument_id}'; instruments are: "
+                                 f"{_id_list(i.id for i in survey.instruments)}"))
+
+    def room_ref(where: str, room_id: str) -> None:
+        if room_id not in room_ids:
+            found.append((where, f"no room with id '{room_id}'; rooms are: "
+                                 f"{_id_list(r.id for r in survey.rooms)}"))
+
+    for v, visit in enumerate(survey.visits):
+        at = f"visits[{v}]"
+        if visit.outdoor is not None:
+            instrument_ref(f"{at}.outdoor.instrument", visit.outdoor.instrument)
+        seen: set[str] = set()
+        for r, room_visit in enumerate(visit.rooms):
+            rat = f"{at}.rooms[{r}]"
+            room_ref(f"{rat}.room", room_visit.room)
+            if room_visit.room in seen:
+                found.append((f"{rat}.room",
+                              f"room '{room_visit.room}' appears twice in this visit"))
+            seen.add(room_visit.room)
+            if room_visit.air is not None:
+                instrument_ref(f"{rat}.air.instrument", room_visit.air.instrument)
+            for s, surface in enumerate(room_visit.surfaces):
+                instrument_ref(f"{rat}.surfaces[{s}].instrument", surface.instrument)
+            for m, material in enumerate(room_visit.materials):
+                instrument_ref(f"{rat}.materials[{m}].instrument", material.instrument)
+            for e, equipment in enumerate(room_visit.equipment):
+                if equipment.outlet is not None:
+                    instrument_ref(f"{rat}.equipment[{e}].outlet.instrument",
+                                   equipment.outlet.instrument)
+            obs = room_visit.observations
+            if obs.mould_area_m2 and not obs.mould_visible:
+                found.append((f"{rat}.observations.mould_area_m2",
+                              "a mould area is given but mould_visible is false"))
+    for g, log in enumerate(survey.logs):
+        if log.room is not None:
+            room_ref(f"logs[{g}].room", log.room)
+        instrument_ref(f"logs[{g}].instrument", log.instrument)
+    return found
+
+
+def check_record(record: Struct, field_name: str = "") -> None:
+    """Check a record's types and ranges (which constructing a Struct does not do).
+
+    Raises :class:`~survey.errors.InputError` naming the field (``field_name`` plus the
+    path inside the record), the value and what is allowed. For a :class:`Survey` the
+    cross-record :func:`problems` are checked too.
+    """
+    from survey import store  # the message wording lives with the file errors
+
+    data = msgspec.json.encode(record)
+    try:
+        msgspec.json.decode(data, type=type(record))
+    except msgspec.ValidationError as exc:
+        where, problem = store.explain_validation_error(exc, type(record), data)
+        value = store.value_at(data, where)
+        name = ".".join(part for part in (field_name, where) if part) or type(record).__name__
+        raise InputError(name, "" if value is store.MISSING else value, problem) from None
+    if isinstance(record, Survey):
+        for where, problem in problems(record):
+            name = ".".join(part for part in (field_name, where) if part)
+            raise InputError(name, store.value_at(data, where, default=""), problem)

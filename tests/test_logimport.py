@@ -1,0 +1,183 @@
+"""Reading data-logger CSV files: header spellings, units, dates, separators, skipped rows.
+
+Fahrenheit is converted by the scale's definition, t_C = (t_F − 32) × 5/9 (so 68 °F is
+exactly 20 °C and 50 °F exactly 10 °C); every sample file here is written by the test.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+
+import pytest
+
+from survey import logimport
+from survey.errors import InputError
+
+D = dt.datetime
+
+
+def _csv(*lines: str, encoding: str = "utf-8", newline: str = "\r\n") -> bytes:
+    return (newline.join(lines) + newline).encode(encoding)
+
+
+def test_fahrenheit_file_with_preamble_and_bad_rows():
+    """A °F export with a title line, an index column, US dates with AM/PM, an error value, an
+    empty RH and a footer: good rows converted exactly, each bad row reported by line."""
+    data = _csv(
+        '"Plot Title: Bedroom 1"',
+        '"#","Date Time, GMT+00:00","Temp, °F","RH, %","Dew Pt, °F"',
+        "1,01/15/25 11:30:00 PM,68.00,70.5,57.9",
+        "2,01/16/25 12:00:00 AM,50.00,72.0,41.4",
+        "3,01/16/25 12:30:00 AM,Err,72.0,",
+        "4,01/16/25 01:00:00 AM,49.1,,",
+        "5,01/16/25 01:30:00 PM,48.2,73.5,40.3",
+        '"Logged","","","",""',
+        encoding="cp1252",
+    )
+    result = logimport.read_logger_csv(data)
+    assert [s.at for s in result.samples] == [D(2025, 1, 15, 23, 30), D(2025, 1, 16, 0, 0),
+                                              D(2025, 1, 16, 13, 30)]
+    assert result.samples[0].dry_bulb_c == 20.0 and result.samples[1].dry_bulb_c == 10.0
+    assert result.samples[2].dry_bulb_c == pytest.approx((48.2 - 32) * 5 / 9, abs=1e-4)
+    assert [s.rh_pct for s in result.samples] == [70.5, 72.0, 73.5]
+    assert result.temperature_unit == "f" and result.unit_source == "header"
+    assert result.temperature_column == "Temp, °F" and result.rh_column == "RH, %"
+    assert result.header_line == 2 and result.encoding == "Windows-1252"
+    assert [(s.line, s.reason) for s in result.skipped] == [
+        (5, "temperature 'Err' is not a number"), (6, "RH is empty"), (8, "no time given")]
+
+
+def test_semicolon_file_with_decimal_comma_and_day_first_dates():
+    """A European export: semicolons, decimal commas, dd.mm.yyyy dates, German headers."""
+    data = _csv("Zeit;Temperatur [°C];Feuchte [%rH]",
+                "14.01.2025 22:00;19,5;64,0",
+                "14.01.2025 22:15;19,25;64,5",
+                "15.01.2025 09:00;-1,5;80")
+    result = logimport.read_logger_csv(data)
+    assert result.delimiter == ";" and result.temperature_unit == "c"
+    assert [(s.at, s.dry_bulb_c, s.rh_pct) for s in result.samples] == [
+        (D(2025, 1, 14, 22, 0), 19.5, 64.0), (D(2025, 1, 14, 22, 15), 19.25, 64.5),
+        (D(2025, 1, 15, 9, 0), -1.5, 80.0)]
+    assert result.date_order == "dmy"
+    assert result.interval == dt.timedelta(minutes=15)
+
+
+def test_separate_date_and_time_columns_tab_separated():
+    """Separate Date and Time columns are combined; tab separators and 'Celsius(°C)' work."""
+    data = _csv("Date\tTime\tCelsius(°C)\tHumidity(%rh)\tDew Point(°C)",
+                "2025-02-03\t10:00:00\t17.5\t82.0\t14.4",
+                "2025-02-03\t10:05:00\t17.6\t81.5\t14.3")
+    result = logimport.read_logger_csv(data)
+    assert result.time_columns == ("Date", "Time")
+    assert [s.at for s in result.samples] == [D(2025, 2, 3, 10, 0), D(2025, 2, 3, 10, 5)]
+    assert result.samples[0].dry_bulb_c == 17.5 and result.rh_column == "Humidity(%rh)"
+
+
+def test_dew_point_column_is_not_taken_for_the_temperature():
+    """A dew-point column before the air temperature is ignored."""
+    data = _csv("timestamp,dew point (°C),temperature (°C),relative humidity (%)",
+                "2025-02-03T10:00:00,14.4,17.5,82")
+    result = logimport.read_logger_csv(data)
+    assert result.temperature_column == "temperature (°C)"
+    assert result.samples[0].dry_bulb_c == 17.5
+
+
+def test_units_row_under_the_header():
+    """A second header row holding the units ('°F', '%RH') gives the temperature unit."""
+    data = _csv("Time,Temperature,Humidity", ",°F,%RH", "2025-07-22 14:00,72.5,82.0")
+    result = logimport.read_logger_csv(data)
+    assert result.unit_source == "units row"
+    assert result.samples[0].dry_bulb_c == pytest.approx(22.5)
+
+
+def test_header_without_unit_needs_the_unit_stated():
+    """Without a unit in the header the import stops and asks for --temp-unit, then works."""
+    data = _csv("time,temp,rh", "2025-07-22 14:00,22.5,82")
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(data)
+    assert err.value.field == "--temp-unit" and "--temp-unit c" in err.value.allowed
+    result = logimport.read_logger_csv(data, temp_unit="c")
+    assert result.samples[0].dry_bulb_c == 22.5 and result.unit_source == "stated"
+
+
+def test_ambiguous_dates_need_the_order_stated():
+    """Dates like 03/02/2025 with no day above 12 stop the import until --date-order is given."""
+    data = _csv("Date/Time,Temp (C),RH (%)", "03/02/2025 10:00,17.5,82", "04/02/2025 10:00,20.5,55")
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(data)
+    assert err.value.field == "--date-order"
+    dmy = logimport.read_logger_csv(data, date_order="dmy")
+    mdy = logimport.read_logger_csv(data, date_order="mdy")
+    assert dmy.samples[0].at == D(2025, 2, 3, 10) and mdy.samples[0].at == D(2025, 3, 2, 10)
+
+
+def test_month_first_is_detected_from_a_day_above_twelve():
+    """A date such as 01/13/2025 shows the file is month first."""
+    data = _csv("Time,Temp (F),RH", "01/12/2025 23:00,65,60", "01/13/2025 00:00,64,61")
+    result = logimport.read_logger_csv(data)
+    assert result.date_order == "mdy"
+    assert [s.at.day for s in result.samples] == [12, 13]
+
+
+def test_out_of_range_and_repeated_rows_are_skipped_with_reasons():
+    """RH above 100 %, an air temperature beyond 70 °C and a repeated time are each reported."""
+    data = _csv("time,temperature (°C),RH (%)",
+                "2025-02-03 10:00,17.5,82",
+                "2025-02-03 10:05,17.5,101.2",
+                "2025-02-03 10:10,85.0,40",
+                "2025-02-03 10:00,17.4,82",
+                "2025-02-03 10:15,17.3,0",
+                "2025-02-03 10:20,17.3",
+                "2025-02-03 10:25,17.2,81")
+    result = logimport.read_logger_csv(data)
+    assert len(result.samples) == 2
+    reasons = {s.line: s.reason for s in result.skipped}
+    assert "RH 101.2 % is outside" in reasons[3]
+    assert "temperature 85 °C is outside" in reasons[4]
+    assert reasons[5] == "same time as line 2"
+    assert len(result.skipped) == 5
+    assert "RH 0 % is outside" in reasons[6]
+    assert reasons[7] == "only 2 columns, 3 needed"
+
+
+def test_rows_out_of_time_order_are_sorted():
+    """Rows not in time order are sorted and the result says so."""
+    data = _csv("time,temperature (°C),RH (%)", "2025-02-03 10:10,17,80", "2025-02-03 10:00,18,79")
+    result = logimport.read_logger_csv(data)
+    assert result.reordered and [s.dry_bulb_c for s in result.samples] == [18.0, 17.0]
+
+
+def test_utf16_and_byte_order_mark_files_are_read():
+    """UTF-16 and UTF-8-with-BOM exports read the same as plain UTF-8."""
+    lines = ("Time,Temperature (°C),RH (%)", "2025-02-03 10:00,17.5,82")
+    plain = logimport.read_logger_csv(_csv(*lines))
+    utf16 = logimport.read_logger_csv(_csv(*lines, encoding="utf-16"))
+    bom = logimport.read_logger_csv(b"\xef\xbb\xbf" + _csv(*lines))
+    assert plain.samples == utf16.samples == bom.samples
+    assert utf16.encoding == "UTF-16"
+
+
+def test_file_without_a_usable_header_is_refused():
+    """A file with no time/temperature/RH header raises InputError quoting its first line."""
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(_csv("a,b,c", "1,2,3"))
+    assert err.value.field == "--csv" and "no header row" in err.value.allowed
+    with pytest.raises(InputError, match="empty file"):
+        logimport.read_logger_csv(b"")
+
+
+def test_file_with_no_usable_row_is_refused():
+    """When every data row is bad the import stops with the first reasons."""
+    data = _csv("time,temperature (°C),RH (%)", "yesterday,17,80", "2025-02-03 10:00,hot,80")
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(data)
+    assert "no row could be imported" in err.value.allowed
+    assert "line 2: time 'yesterday' is not a date and time" in err.value.allowed
+
+
+def test_digest_identifies_the_file():
+    """The SHA-256 of the file's bytes is kept, to recognise a repeated import."""
+    data = _csv("time,temperature (°C),RH (%)", "2025-02-03 10:00,17,80")
+    import hashlib
+
+    assert logimport.read_logger_csv(data).sha256 == hashlib.sha256(data).hexdigest()
