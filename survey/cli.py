@@ -49,13 +49,7 @@ def build_parser() -> argparse.ArgumentParser:
         title="commands", metavar="COMMAND", parser_class=_Parser
     )
     for name in COMMAND_MODULES:
-        try:
-            module = importlib.import_module(name)
-        except ModuleNotFoundError as exc:  # a face module not present in this build
-            if exc.name != name:
-                raise
-            continue
-        module.register(subparsers)
+        importlib.import_module(name).register(subparsers)
     return parser
 
 
