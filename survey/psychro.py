@@ -194,9 +194,7 @@ def _dew_point_water_below_triple_c(vapour_pressure_pa: float, guess_c: float) -
     target = math.log(vapour_pressure_pa)
     t_k = min(guess_c, 0.0) + 273.15
     for _ in range(50):
-        derivative = (-_C8 / (t_k * t_k) + _C10 + 2 * _C11 * t_k + 3 * _C12 * t_k * t_k
-                      + _C13 / t_k)
-        step = (_ln_pws_water(t_k) - target) / derivative
+        step = (_ln_pws_water(t_k) - target) / dln_sat_vapour_pressure_water_per_k(t_k - 273.15)
         t_k -= step
         if abs(step) < 1e-6:
             break
@@ -306,6 +304,66 @@ def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float
     saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
     vapour_pressure = min(vapour_pressure, saturation)
     return _state(dry_bulb_c, 100.0 * vapour_pressure / saturation, vapour_pressure, pressure_pa)
+
+
+# --- light state and slopes, for assessing many surfaces ---------------------------------
+
+class VapourState(NamedTuple):
+    """The parts of a moist-air state that surface and room judgements need, without the
+    wet bulb (an iterative solve): the same numbers :func:`state_from_rh` gives, plus the
+    slope of the water saturation pressure at the dry bulb, for uncertainty propagation."""
+
+    dry_bulb_c: float
+    rh_pct: float
+    pressure_pa: float
+    vapour_pressure_pa: float
+    condensation_point_c: float  #: dew point, or frost point below 0.01 °C
+    humidity_ratio_kg_per_kg: float
+    specific_volume_m3_per_kg: float
+    sat_pressure_water_pa: float  #: pws over liquid water at the dry bulb
+    dln_sat_pressure_water_per_k: float  #: d ln pws,water / dt at the dry bulb, 1/K
+
+    @property
+    def humidity_ratio_g_per_kg(self) -> float:
+        return 1000.0 * self.humidity_ratio_kg_per_kg
+
+
+def vapour_state(dry_bulb_c: float, rh_pct: float,
+                 pressure_pa: float = STANDARD_PRESSURE_PA) -> VapourState:
+    """A :class:`VapourState` from dry bulb (°C), RH (%, relative to water) and pressure (Pa),
+    with the conventions and domain of :func:`state_from_rh`."""
+    check_dry_bulb(dry_bulb_c)
+    check_rh(rh_pct)
+    check_pressure(pressure_pa)
+    saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
+    vapour_pressure = rh_pct / 100.0 * saturation
+    if vapour_pressure < _LOWEST_VAPOUR_PRESSURE_PA:
+        raise InputError("relative humidity", _shown(rh_pct),
+                         "too dry to compute: the dew point would be below −100 °C")
+    if vapour_pressure >= _TRIPLE_POINT_PRESSURE_PA:
+        point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure)
+    else:  # frost point, unclamped (see _state)
+        point = psychrolib.GetTDewPointFromVapPres(TRIPLE_POINT_C, vapour_pressure)
+    humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure, pressure_pa)
+    volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
+    return VapourState(float(dry_bulb_c), float(rh_pct), float(pressure_pa), vapour_pressure,
+                       point, humidity_ratio, volume, saturation,
+                       dln_sat_vapour_pressure_water_per_k(dry_bulb_c))
+
+
+def dln_sat_vapour_pressure_water_per_k(temp_c: float) -> float:
+    """d ln pws / dt (1/K) over liquid water, supercooled below 0 °C: ASHRAE ch. 1 eqn 6
+    differentiated (the branch :func:`sat_vapour_pressure_water_pa` uses)."""
+    t_k = temp_c + 273.15
+    return -_C8 / (t_k * t_k) + _C10 + 2 * _C11 * t_k + 3 * _C12 * t_k * t_k + _C13 / t_k
+
+
+def dln_sat_vapour_pressure_per_k(temp_c: float) -> float:
+    """d ln pws / dt (1/K) over the phase that forms at ``temp_c`` (ice at and below the
+    triple point, water above): ASHRAE ch. 1 eqn 5 & 6 differentiated, as psychrolib's own
+    dew-point solver uses it (psychrolib ``dLnPws_``, an internal helper of the pinned
+    release; a test holds it to a numerical difference of :func:`sat_vapour_pressure_pa`)."""
+    return psychrolib.dLnPws_(temp_c)
 
 
 # --- surfaces ----------------------------------------------------------------------------

@@ -51,6 +51,10 @@ _PRESSURE_ALIASES = {"hpa": "hPa", "kpa": "kPa", "pa": "Pa", "mbar": "mbar", "mb
                      "inhg": "inHg", "in hg": "inHg", "psi": "psi", "bar": "bar",
                      "mmhg": "mmHg"}
 _LENGTH_ALIASES = {"m": "m", "ft": "ft", "feet": "ft", "foot": "ft", "'": "ft", "km": "km"}
+_VOLUME_ALIASES = {"m3": "m**3", "m^3": "m**3", "m³": "m**3", "cu m": "m**3",
+                   "ft3": "ft**3", "ft^3": "ft**3", "ft³": "ft**3", "cu ft": "ft**3",
+                   "cuft": "ft**3", "l": "L", "litre": "L", "liter": "L", "litres": "L",
+                   "liters": "L"}
 _DEGREE_SIGNS = ("°", "º", "deg")
 
 _ACCEPTED = {
@@ -59,6 +63,7 @@ _ACCEPTED = {
     "relative humidity": "a percentage: 65, 65 %, 65%",
     "pressure": "a number in hPa (SI) or inHg (IP), or with a unit: 1013 hPa, 101.3 kPa, 29.92 inHg",
     "length": "a number in m (SI) or ft (IP), or with a unit: 350 m, 1150 ft",
+    "volume": "a number in m³ (SI) or ft³ (IP), or with a unit: 30, 30 m3, 1060 ft3",
     "number": "a number such as 3, 2.5 or 2,5",
 }
 
@@ -173,6 +178,15 @@ def parse_length(text: object, field: str = "length", system: UnitSystem = "si")
     if not unit:
         return value if system == "si" else value * 0.3048
     return _convert(value, unit, "m", field, text, "length", _LENGTH_ALIASES)
+
+
+def parse_volume(text: object, field: str = "volume", system: UnitSystem = "si") -> float:
+    """Volume in m³ from ``30``, ``30 m3``, ``1060 ft3`` or a bare number."""
+    _check_system(system)
+    value, unit = _split(text, field, "volume")
+    if not unit:
+        return value if system == "si" else value * 0.3048 ** 3
+    return _convert(value, unit, "m**3", field, text, "volume", _VOLUME_ALIASES)
 
 
 def parse_number(text: object, field: str = "number") -> float:

@@ -181,3 +181,13 @@ def test_display_conversion_round_trip(quantity, value, system):
     """to_display and from_display are inverses for every display quantity."""
     shown = units.to_display(quantity, value, system)
     assert units.from_display(quantity, shown, system) == pytest.approx(value, rel=1e-9)
+
+
+@pytest.mark.parametrize(("text", "system", "expected_m3"), [
+    ("30", "si", 30.0), ("30 m3", "si", 30.0), ("30 m³", "ip", 30.0),
+    ("1060", "ip", 1060 * 0.3048 ** 3), ("1060 ft3", "si", 1060 * 0.3048 ** 3),
+    ("30000 L", "si", 30.0),
+])
+def test_parse_volume(text, system, expected_m3):
+    """Room volume in m³, ft³ (1 ft = 0.3048 m exactly) or litres."""
+    assert units.parse_volume(text, "--room-volume", system) == pytest.approx(expected_m3)

@@ -1,0 +1,428 @@
+"""Every limit the assessment and the advice use, once, as data, with its source.
+
+Each limit is a :class:`Threshold` with a stable ``key``. Findings and actions carry the keys
+they used; the report and the app turn a key into a citation with :func:`citation`. To add a
+limit: add one ``Threshold(...)`` to ``_THRESHOLDS`` below (key in snake_case with the unit
+last, e.g. ``..._pct``, ``..._k``, ``..._g_per_h``), write its source and mark, and use it
+through :func:`value` — never repeat the number in code.
+
+Marks say how sure the number is:
+
+* ``"R"`` — read in the named source (or the named secondary source);
+* ``"M"`` — from memory, not verified against the original;
+* ``"C"`` — computed from the named formula;
+* ``"common practice"`` — a trade rule of thumb with no single source.
+
+This module imports nothing but the standard library and :mod:`survey.errors`.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Iterable, Literal
+
+from survey.errors import InputError
+
+Mark = Literal["R", "M", "C", "common practice"]
+
+MARK_TEXT: dict[str, str] = {
+    "R": "read in the source",
+    "M": "from memory, not verified against the original",
+    "C": "computed from the named formula",
+    "common practice": "common practice, no single source",
+}
+
+
+@dataclass(frozen=True, slots=True)
+class Threshold:
+    """One limit: its value and unit, where it comes from, and how sure we are of it."""
+
+    key: str
+    title: str  #: a short name for people, e.g. "Mould limit, surface RH"
+    value: float
+    unit: str
+    source: str
+    note: str
+    mark: Mark
+
+    @property
+    def value_text(self) -> str:
+        """The value with its unit, e.g. ``'80 %'``."""
+        return f"{self.value:g} {self.unit}" if self.unit else f"{self.value:g}"
+
+    def citation(self) -> str:
+        """One line for a report's method section: value, source, mark and note."""
+        return f"{self.value_text}: {self.source}; {MARK_TEXT[self.mark]}. {self.note}"
+
+    def short_citation(self) -> str:
+        """Title, value, source and mark, without the note."""
+        return f"{self.title} {self.value_text}: {self.source}; {MARK_TEXT[self.mark]}"
+
+
+_BRE = "BRE Information Paper IP1/06 (UK guidance), critical temperature factor"
+_ISO13788_CLASS = "EN ISO 13788, Annex A, internal humidity classes (vapour-pressure excess)"
+_WOOD = "USDA FPL Wood Handbook"
+_MOISTURE = ("moisture generation rates from a building-science text quoting the BS 5250 "
+             "tables (the BS 5250 originals from memory)")
+_EPA_MOULD = "US EPA, Mold Remediation in Schools and Commercial Buildings (area bands)"
+
+_THRESHOLDS: tuple[Threshold, ...] = (
+    # --- condensation and mould at surfaces -------------------------------------------------
+    Threshold("condensation_dew_point_margin_k", "Condensation at the dew point", 0.0, "K",
+              "definition of the dew point / frost point, ASHRAE Handbook Fundamentals 2017 ch. 1",
+              "A surface at or below the dew point (frost point below 0 °C) gathers water or "
+              "frost: surface RH 100 % or more.", "C"),
+    Threshold("dew_point_margin_k", "Dew-point margin", 3.0, "K",
+              "ISO 8502-4 and coatings practice (secondary sources)",
+              "Surface at least 3 K above the dew point; a coatings rule, used widely as a "
+              "general safety margin against condensation (common practice).", "R"),
+    Threshold("surface_rh_mould_limit_pct", "Mould limit, surface RH", 80.0, "%",
+              "BS 5250:2002 Annex D; EN ISO 13788 critical surface RH 0.8 (monthly mean, "
+              "from memory)",
+              "To avoid mould growth the RH at the surface should not exceed 80 % for several "
+              "days. A spot reading is a snapshot, not a monthly mean.", "R"),
+    Threshold("surface_rh_mould_watch_pct", "Approaching the mould limit, surface RH",
+              70.0, "%",
+              "trade practice; the lowest mould-germination isopleths lie near 70-80 % "
+              "surface RH (from memory)",
+              "Surface RH from 70 % up to the 80 % limit is shown as approaching the limit.",
+              "common practice"),
+    # --- temperature factor fRsi = (Ts - Te) / (Ti - Te) ---------------------------------------
+    Threshold("frsi_dwelling", "Temperature factor limit, dwellings and offices",
+              0.75, "", _BRE,
+              "Dwellings, residential buildings, offices and schools.", "M"),
+    Threshold("frsi_high_humidity", "Temperature factor limit, kitchens and similar",
+              0.80, "", _BRE,
+              "Sports halls, kitchens, canteens; buildings heated with unflued gas heaters.",
+              "M"),
+    Threshold("frsi_very_high_humidity", "Temperature factor limit, pools and laundries",
+              0.90, "", _BRE,
+              "Buildings with very high humidity: swimming pools, laundries, breweries.", "M"),
+    Threshold("frsi_storage", "Temperature factor limit, storage",
+              0.50, "", _BRE, "Storage buildings.", "M"),
+    Threshold("frsi_general", "Temperature factor limit, general",
+              0.70, "", "IEA Annex 14 (Condensation and Energy), fRsi >= 0.7",
+              "General criterion, used for rooms whose use is not listed.", "M"),
+    Threshold("frsi_min_temperature_difference_k",
+              "Least inside-outside difference to judge the temperature factor",
+              10.0, "K",
+              "thermographic and surface-temperature survey practice (EN 13187 asks for a "
+              "similar difference, from memory)",
+              "Below this inside-outside difference a spot fRsi is dominated by reading "
+              "error and by the building's thermal lag; the factor is not judged.",
+              "common practice"),
+    # --- ISO 13788 humidity classes: limit at θe <= 0 °C, falling linearly to 0 at 20 °C -----
+    Threshold("humidity_class_1_pa", "Humidity class 1 limit", 270.0, "Pa", _ISO13788_CLASS,
+              "Upper limit of class 1 (unoccupied buildings, dry storage) at θe <= 0 °C.", "M"),
+    Threshold("humidity_class_2_pa", "Humidity class 2 limit", 540.0, "Pa", _ISO13788_CLASS,
+              "Upper limit of class 2 (offices, dwellings with normal occupancy and "
+              "ventilation) at θe <= 0 °C.", "M"),
+    Threshold("humidity_class_3_pa", "Humidity class 3 limit", 810.0, "Pa", _ISO13788_CLASS,
+              "Upper limit of class 3 (buildings with unknown occupancy) at θe <= 0 °C.", "M"),
+    Threshold("humidity_class_4_pa", "Humidity class 4 limit", 1080.0, "Pa", _ISO13788_CLASS,
+              "Upper limit of class 4 (sports halls, kitchens, canteens) at θe <= 0 °C.", "M"),
+    Threshold("humidity_class_5_pa", "Humidity class 5 limit", 1350.0, "Pa", _ISO13788_CLASS,
+              "Upper limit of class 5 (laundries, breweries, swimming pools) at θe <= 0 °C.",
+              "M"),
+    Threshold("humidity_class_flat_below_c", "Humidity class limits constant below",
+              0.0, "°C", _ISO13788_CLASS,
+              "At and below this outdoor temperature the class limits are constant.", "M"),
+    Threshold("humidity_class_zero_at_c", "Humidity class limits reach zero at",
+              20.0, "°C", _ISO13788_CLASS,
+              "The class limits fall linearly to 0 Pa here; at and above it no class is "
+              "judged.", "M"),
+    Threshold("humidity_class_high", "High humidity class for a dwelling room",
+              4.0, "", _ISO13788_CLASS,
+              "Class 4 or above in a dwelling room is more moisture than ISO 13788 expects "
+              "of normal occupancy: look for a source.", "common practice"),
+    # --- timber -----------------------------------------------------------------------------
+    Threshold("timber_decay_mc_pct", "Timber decay moisture content",
+              20.0, "% MC", f"{_WOOD}, ch. 14 (secondary source)",
+              "Decay fungi need a wood moisture content of about 20 % or more.", "R"),
+    Threshold("timber_mould_mc_pct", "Timber mould moisture content",
+              16.0, "% MC", f"{_WOOD}; trade practice",
+              "Mould can grow on timber from about 16-19 % MC; the lower end is used here.",
+              "common practice"),
+    Threshold("timber_decay_slow_below_c", "Timber decay slows below",
+              10.0, "°C", f"{_WOOD}, ch. 14 (secondary source)",
+              "Decay slows below this temperature.", "R"),
+    Threshold("timber_decay_slow_above_c", "Timber decay slows above",
+              35.0, "°C", f"{_WOOD}, ch. 14 (secondary source)",
+              "Decay slows above this temperature.", "R"),
+    Threshold("dry_standard_tolerance_fraction", "Allowance over the dry standard", 0.10, "",
+              "restoration trade practice (dry standard: a reading of the same material in "
+              "an unaffected area)",
+              "A reading within 10 % of the dry standard counts as at the dry standard, to "
+              "allow for meter repeatability and natural variation.", "common practice"),
+    # --- room air targets ---------------------------------------------------------------------
+    Threshold("room_rh_floor_pct", "Lowest practical room RH",
+              40.0, "%", "building and health practice",
+              "Holding an occupied room below about 40 % RH is rarely practical and dries "
+              "eyes and airways; below this the surface must be made warmer instead.",
+              "common practice"),
+    Threshold("room_rh_target_default_pct", "Usual room RH target", 60.0, "%",
+              "building and health practice (public-health guidance to keep indoor RH below "
+              "60 %, from memory)",
+              "Default target room RH when none is given and the surfaces allow it.",
+              "common practice"),
+    # --- ventilation ----------------------------------------------------------------------------
+    Threshold("ventilation_outdoor_drier_margin_g_per_kg", "Outdoor air drier by at least",
+              1.0, "g/kg", "ventilation practice",
+              "Ventilation is advised when outdoor air holds at least this much less water "
+              "(humidity ratio) than room air at the target; closer than that, the airflow "
+              "needed grows without bound.", "common practice"),
+    Threshold("ventilation_practical_max_ach", "Most practical ventilation rate",
+              2.0, "1/h", "ventilation practice",
+              "More outdoor air than about 2 air changes an hour is draughty and costly in "
+              "heat; above it, dehumidification is advised as well.", "common practice"),
+    Threshold("assumed_air_change_rate_per_h", "Assumed air change rate", 0.5, "1/h",
+              "usual design whole-dwelling ventilation rate (building regulations, from "
+              "memory)",
+              "Used to back-calculate the moisture load from the measured excess and to "
+              "estimate infiltration when the real rate is unknown.", "common practice"),
+    # --- moisture generation ------------------------------------------------------------------
+    Threshold("moisture_person_asleep_g_per_h", "Moisture from a person asleep",
+              40.0, "g/h", _MOISTURE,
+              "Lower end of the 40-60 g/h sedentary range, used for bedrooms.", "R"),
+    Threshold("moisture_person_sedentary_g_per_h", "Moisture from a person sitting",
+              50.0, "g/h", _MOISTURE,
+              "Middle of the 40-60 g/h sedentary range.", "R"),
+    Threshold("moisture_person_active_g_per_h", "Moisture from an active person",
+              90.0, "g/h", _MOISTURE,
+              "Middle of the 60-120 g/h range for active people.", "R"),
+    Threshold("moisture_cooking_g_per_h", "Moisture from cooking", 1000.0, "g/h", _MOISTURE,
+              "Cooking 600-1500 g/h; a middle value, per hour of cooking.", "R"),
+    Threshold("moisture_bath_g_per_h", "Moisture from a bath",
+              700.0, "g/h", _MOISTURE, "A bath, per hour.", "R"),
+    Threshold("moisture_shower_g_per_h", "Moisture from a shower",
+              2500.0, "g/h", _MOISTURE, "A shower, per hour.", "R"),
+    # --- dehumidifiers --------------------------------------------------------------------------
+    Threshold("dehumidifier_rating_old_dry_bulb_c", "Dehumidifier rating temperature, older",
+              26.7, "°C",
+              "AHAM DH-1 rating point, 80 °F dry bulb, 60 % RH (secondary sources)",
+              "Older ratings: litres per 24 h at this warm, humid condition.", "R"),
+    Threshold("dehumidifier_rating_current_dry_bulb_c",
+              "Dehumidifier rating temperature, current US",
+              18.3, "°C",
+              "current US portable dehumidifier test, 65 °F dry bulb, 60 % RH (secondary "
+              "sources)",
+              "Current US ratings: litres per 24 h at this cooler condition.", "R"),
+    Threshold("dehumidifier_rating_rh_pct", "Dehumidifier rating RH",
+              60.0, "%", "AHAM DH-1 and the current US test "
+              "(secondary sources)", "RH at both rating points.", "R"),
+    Threshold("refrigerant_dehumidifier_min_c", "Refrigerant dehumidifier, lowest room temperature",
+              10.0, "°C", "dehumidifier trade practice",
+              "Refrigerant units lose capacity in cool rooms and may frost their coil below "
+              "about 5-10 °C; below this room temperature a desiccant unit is suggested.",
+              "common practice"),
+    Threshold("us_pint_l", "US pint",
+              0.473176, "L", "US customary units: 1 US liquid pint = 0.473176 L",
+              "Converts litres per day to US pints per day.", "R"),
+    # --- instrument accuracy defaults (typical manufacturer specifications) -------------------
+    Threshold("accuracy_air_temp_k", "Default air temperature accuracy",
+              0.5, "K", "typical manufacturer specification, "
+              "handheld thermo-hygrometer", "Default when no accuracy is entered; also used "
+              "for outdoor air temperature.", "common practice"),
+    Threshold("accuracy_rh_pct", "Default RH accuracy",
+              3.0, "%RH", "typical manufacturer specification, "
+              "capacitive RH sensor (±2-3 %RH in 10-90 %)", "Default when no accuracy is "
+              "entered; also used for outdoor RH.", "common practice"),
+    Threshold("accuracy_surface_temp_k", "Default surface temperature accuracy",
+              1.0, "K", "typical manufacturer specification, "
+              "infrared surface thermometer (±1 K or ±1 % of reading)",
+              "Default when no accuracy is entered; emissivity errors come on top.",
+              "common practice"),
+    Threshold("coverage_factor", "Coverage factor",
+              2.0, "", "JCGM 100:2008 (GUM), expanded uncertainty "
+              "U = k·u with k = 2 for about 95 % coverage; a ± accuracy specification is read "
+              "as a rectangular distribution, u = a/√3 (GUM 4.3.7, from memory)",
+              "States within ±U of a limit are reported as not told apart.", "M"),
+    # --- safety -----------------------------------------------------------------------------------
+    Threshold("mould_area_small_m2", "Small mould area, up to", 0.93, "m²", _EPA_MOULD,
+              "Up to about 10 sq ft (0.93 m²): a small area, usually cleanable by a careful "
+              "occupant with basic protection.", "M"),
+    Threshold("mould_area_large_m2", "Large mould area, over", 9.3, "m²", _EPA_MOULD,
+              "Over about 100 sq ft (9.3 m²): a large area for trained or licensed "
+              "remediators with containment.", "M"),
+    Threshold("water_category_2", "Water category 2",
+              2.0, "", "restoration standard of practice, water-damage "
+              "categories (secondary source)",
+              "Category 2: significant contamination; protective equipment needed.", "R"),
+    Threshold("water_category_3", "Water category 3",
+              3.0, "", "restoration standard of practice, water-damage "
+              "categories (secondary source)",
+              "Category 3: grossly contaminated (sewage, flood water); protective equipment "
+              "and licensed handling.", "R"),
+    Threshold("asbestos_possible_before_year", "Asbestos possible in buildings before",
+              2000.0, "year",
+              "asbestos use ended in most countries by around 2000 (UK ban 1999, from memory)",
+              "Buildings built or refurbished before this year may contain asbestos.",
+              "common practice"),
+    Threshold("lead_paint_possible_before_year", "Lead paint possible before", 1978.0, "year",
+              "US ban on lead paint for housing in 1978 (from memory); older elsewhere",
+              "Paint applied before this year may contain lead.", "M"),
+    Threshold("propane_water_kg_per_kg", "Water vapour from burning propane", 1.63, "kg/kg",
+              "combustion stoichiometry C3H8 + 5 O2 -> 3 CO2 + 4 H2O: 4 × 18.015 / 44.097",
+              "Burning 1 kg of propane releases about 1.6 kg of water vapour into the room.",
+              "C"),
+)
+
+_BY_KEY: dict[str, Threshold] = {t.key: t for t in _THRESHOLDS}
+if len(_BY_KEY) != len(_THRESHOLDS):  # pragma: no cover - guards the table above
+    raise RuntimeError("duplicate threshold key")
+
+
+def get(key: str) -> Threshold:
+    """The threshold with this key; ``KeyError`` names an unknown key."""
+    try:
+        return _BY_KEY[key]
+    except KeyError:
+        raise KeyError(f"unknown threshold key {key!r}") from None
+
+
+def value(key: str) -> float:
+    """The value of the threshold with this key, in its unit."""
+    return get(key).value
+
+
+def citation(key: str) -> str:
+    """The citation text of the threshold with this key."""
+    return get(key).citation()
+
+
+def all_thresholds() -> tuple[Threshold, ...]:
+    """Every threshold, in the order of the table."""
+    return _THRESHOLDS
+
+
+def cited(keys: Iterable[str]) -> list[Threshold]:
+    """The thresholds behind ``keys``, each once, in table order (for a method section)."""
+    wanted = set(keys)
+    for key in wanted:
+        get(key)
+    return [t for t in _THRESHOLDS if t.key in wanted]
+
+
+# --- room uses and their temperature-factor limits ---------------------------------------------
+
+ROOM_USES: tuple[str, ...] = ("bedroom", "bathroom", "kitchen", "living", "basement",
+                              "crawlspace", "loft", "office", "storage", "other")
+
+
+@dataclass(frozen=True, slots=True)
+class UseLimit:
+    """Which temperature-factor limit applies to a room use, and why."""
+
+    use: str
+    key: str | None  #: threshold key, or None when fRsi does not apply
+    reason: str
+
+
+FRSI_LIMIT_BY_USE: dict[str, UseLimit] = {u.use: u for u in (
+    UseLimit("bedroom", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
+    UseLimit("living", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
+    UseLimit("office", "frsi_dwelling", "BRE IP1/06 puts offices with dwellings at 0.75"),
+    UseLimit("kitchen", "frsi_high_humidity",
+             "BRE IP1/06 lists kitchens at 0.80 for their moisture bursts"),
+    UseLimit("bathroom", "frsi_high_humidity",
+             "not listed in BRE IP1/06; treated like a kitchen (0.80) for its short, high "
+             "moisture bursts - our choice, on the safe side"),
+    UseLimit("basement", "frsi_dwelling",
+             "a heated, habitable basement is a dwelling space (0.75)"),
+    UseLimit("storage", "frsi_storage", "BRE IP1/06: storage buildings 0.50"),
+    UseLimit("crawlspace", None,
+             "an unheated space outside the heated envelope: no temperature-factor limit"),
+    UseLimit("loft", None,
+             "an unheated roof space outside the heated envelope: no temperature-factor "
+             "limit (a converted loft room is a bedroom or living room)"),
+    UseLimit("other", "frsi_general", "use not listed: IEA Annex 14 general criterion 0.70"),
+)}
+
+#: Room uses that are confined or hard-to-reach spaces (a safety caution applies).
+CONFINED_USES: frozenset[str] = frozenset({"crawlspace", "loft", "basement"})
+
+#: Occupant moisture rate by room use (threshold keys).
+OCCUPANT_RATE_BY_USE: dict[str, str] = {
+    "bedroom": "moisture_person_asleep_g_per_h",
+    **{use: "moisture_person_sedentary_g_per_h" for use in ROOM_USES if use != "bedroom"},
+}
+
+#: Activities whose moisture rate is known, per hour of activity (threshold keys).
+ACTIVITY_RATE: dict[str, str] = {
+    "cooking": "moisture_cooking_g_per_h",
+    "bath": "moisture_bath_g_per_h",
+    "shower": "moisture_shower_g_per_h",
+    "active_person": "moisture_person_active_g_per_h",
+}
+
+
+def check_use(use: str, field: str = "room use") -> str:
+    """The room use in canonical form; :class:`InputError` lists the uses allowed."""
+    text = str(use).strip().lower()
+    if text not in FRSI_LIMIT_BY_USE:
+        raise InputError(field, use, "expected one of " + ", ".join(ROOM_USES))
+    return text
+
+
+def frsi_limit(use: str) -> Threshold | None:
+    """The temperature-factor limit for a room use, or None where fRsi does not apply."""
+    key = FRSI_LIMIT_BY_USE[check_use(use)].key
+    return None if key is None else get(key)
+
+
+# --- ISO 13788 humidity classes ----------------------------------------------------------------
+
+#: Returned by :func:`humidity_class` for an excess above the class 5 limit.
+BEYOND_CLASS_5 = 6
+
+HUMIDITY_CLASS_KEYS: tuple[str, ...] = tuple(f"humidity_class_{n}_pa" for n in range(1, 6))
+
+
+def humidity_class_limits_pa(outdoor_temp_c: float) -> tuple[float, ...] | None:
+    """Upper vapour-pressure-excess limits (Pa) of classes 1-5 at ``outdoor_temp_c``.
+
+    Constant at and below ``humidity_class_flat_below_c``, falling linearly to 0 at
+    ``humidity_class_zero_at_c``; None at and above that temperature (no class judged).
+    """
+    flat = value("humidity_class_flat_below_c")
+    zero = value("humidity_class_zero_at_c")
+    if outdoor_temp_c >= zero:
+        return None
+    scale = 1.0 if outdoor_temp_c <= flat else (zero - outdoor_temp_c) / (zero - flat)
+    return tuple(value(key) * scale for key in HUMIDITY_CLASS_KEYS)
+
+
+def humidity_class(excess_pa: float, outdoor_temp_c: float) -> int | None:
+    """ISO 13788 class (1-5) of a vapour-pressure excess; 6 means beyond class 5.
+
+    A class runs from the previous class's limit (exclusive) up to its own (inclusive);
+    an excess at or below the class 1 limit, negative included, is class 1. None when the
+    outdoor temperature is at or above ``humidity_class_zero_at_c``.
+    """
+    limits = humidity_class_limits_pa(outdoor_temp_c)
+    if limits is None:
+        return None
+    for number, limit in enumerate(limits, start=1):
+        if excess_pa <= limit:
+            return number
+    return BEYOND_CLASS_5
+
+
+#: What EN ISO 13788 Annex A gives as typical of each class (from memory).
+HUMIDITY_CLASS_EXAMPLES: dict[int, str] = {
+    1: "unoccupied buildings, dry storage",
+    2: "offices, dwellings with normal occupancy and ventilation",
+    3: "buildings with unknown occupancy",
+    4: "sports halls, kitchens, canteens",
+    5: "laundries, breweries, swimming pools",
+    BEYOND_CLASS_5: "more than even laundries and swimming pools",
+}
+
+
+def humidity_class_text(number: int | None) -> str:
+    """Words for a class number from :func:`humidity_class`."""
+    if number is None:
+        return "not judged (outdoor air too warm)"
+    if number == BEYOND_CLASS_5:
+        return "beyond class 5"
+    return f"class {number}"
