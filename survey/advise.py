@@ -272,7 +272,7 @@ def _pct(x: float) -> str:
 
 _USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
                "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
-               "loft": "a loft", "office": "an office", "storage": "a store room",
+               "loft": "a loft", "office": "an office", "storage": "a store room", "hallway": "a hallway",
                "other": "a room of this kind"}
 
 

@@ -151,19 +151,19 @@ class SurfaceInput:
 
 
 #: Scales of a material moisture reading.
-MATERIAL_SCALES = ("pct_mc", "relative")
+MATERIAL_SCALES = ("mc_pct", "wme_pct", "relative")
 
 
 @dataclass(frozen=True, slots=True)
 class MaterialReading:
-    """A moisture-meter reading: ``pct_mc`` is moisture content in % by weight (timber,
+    """A moisture-meter reading: ``mc_pct`` is moisture content in % by weight (timber,
     pin meter on the wood scale), ``relative`` the meter's own comparative scale. The dry
     standard is the reading of the same material in an unaffected area, same scale."""
 
     label: str
     material: str
     value: float
-    scale: str = "pct_mc"
+    scale: str = "mc_pct"
     dry_standard: float | None = None
     timber: bool = False
 
@@ -536,8 +536,9 @@ def _material(reading: MaterialReading, emc_pct: float, air_c: float,
     field = f"{where}material {reading.label}"
     if reading.scale not in MATERIAL_SCALES:
         raise InputError(f"{field} scale", reading.scale,
-                         "expected pct_mc (moisture content, %) or relative (meter scale)")
-    top = 200.0 if reading.scale == "pct_mc" else 1000.0
+                         "expected mc_pct (timber moisture content, %), wme_pct (wood moisture "
+                         "equivalent, %) or relative (the meter's own scale)")
+    top = 1000.0 if reading.scale == "relative" else 200.0
     for name, number in (("reading", reading.value), ("dry standard", reading.dry_standard)):
         if number is None and name == "dry standard":
             continue
@@ -556,7 +557,7 @@ def _material(reading: MaterialReading, emc_pct: float, air_c: float,
     timber_state = None
     emc = None
     wetter = slowed = False
-    if reading.timber and reading.scale == "pct_mc":
+    if reading.timber and reading.scale == "mc_pct":
         keys += ["timber_mould_mc_pct", "timber_decay_mc_pct"]
         emc = emc_pct
         mould_mc = th.value("timber_mould_mc_pct")

@@ -306,7 +306,7 @@ def cited(keys: Iterable[str]) -> list[Threshold]:
 # --- room uses and their temperature-factor limits ---------------------------------------------
 
 ROOM_USES: tuple[str, ...] = ("bedroom", "bathroom", "kitchen", "living", "basement",
-                              "crawlspace", "loft", "office", "storage", "other")
+                              "crawlspace", "loft", "office", "storage", "hallway", "other")
 
 
 @dataclass(frozen=True, slots=True)
@@ -322,6 +322,8 @@ FRSI_LIMIT_BY_USE: dict[str, UseLimit] = {u.use: u for u in (
     UseLimit("bedroom", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
     UseLimit("living", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
     UseLimit("office", "frsi_dwelling", "BRE IP1/06 puts offices with dwellings at 0.75"),
+    UseLimit("hallway", "frsi_dwelling",
+             "circulation space inside a dwelling, judged as a dwelling room (0.75)"),
     UseLimit("kitchen", "frsi_high_humidity",
              "BRE IP1/06 lists kitchens at 0.80 for their moisture bursts"),
     UseLimit("bathroom", "frsi_high_humidity",

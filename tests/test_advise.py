@@ -232,7 +232,7 @@ def test_find_source_first_when_materials_are_wet():
     """Materials above the dry standard put 'find the source' before any drying."""
     room = RoomInput("Hall", "other", 19.0, 70.0, (SurfaceInput("wall", 15.0),), volume_m3=20.0,
                      occupants=0,
-                     materials=(MaterialReading("skirting", "pine", 28.0, "pct_mc", 11.0, True),))
+                     materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0, True),))
     _, advice = advice_for(room, OutdoorInput(4.0, 85.0))
     assert kinds(advice)[0] == "find_source"
     assert "skirting 28 against 11" in advice.actions[0].reason

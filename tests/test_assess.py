@@ -230,8 +230,8 @@ def test_materials_against_dry_standard_and_timber_limits():
     16 % MC is in the mould range (common practice), from 20 % in the decay range (Wood
     Handbook ch. 14 [R, secondary]); wetter than the room's EMC explains is flagged."""
     materials = (
-        MaterialReading("skirting", "softwood", 24.0, "pct_mc", 12.0, timber=True),
-        MaterialReading("joist", "softwood", 17.0, "pct_mc", None, timber=True),
+        MaterialReading("skirting", "softwood", 24.0, "mc_pct", 12.0, timber=True),
+        MaterialReading("joist", "softwood", 17.0, "mc_pct", None, timber=True),
         MaterialReading("plaster", "gypsum", 105.0, "relative", 100.0),
         MaterialReading("screed", "sand-cement", 150.0, "relative", 100.0),
     )

@@ -1,0 +1,150 @@
+"""A visit of a survey file, judged: the survey model turned into the assessment's inputs.
+
+:mod:`survey.assess` and :mod:`survey.advise` take plain inputs and know nothing of files;
+:mod:`survey.model` holds readings and knows nothing of judgement. This module joins them,
+so the report, the app and the command line all judge a stored visit the same way:
+
+* air, surface and material readings of each room visited, with the room's use, volume and
+  occupants;
+* the instruments' accuracies where the survey records them (the least accurate instrument
+  used in a room counts for that room), the typical defaults of :mod:`survey.thresholds`
+  where it does not — and which were used is reported;
+* each material reading's dry standard: a reading of the same material on the same scale
+  marked as a dry standard in the same room, else in a reference (unaffected) room on the
+  same visit;
+* the visit's outdoor reading and the pressure of :func:`survey.model.pressure_pa_for`.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from survey import advise, assess, model
+
+#: Words in a material name that mark it as timber (for the timber moisture limits).
+_TIMBER_WORDS = ("timber", "wood", "softwood", "hardwood", "pine", "spruce", "oak", "joist",
+                 "skirting", "floorboard", "batten", "rafter", "stud", "plywood", "osb",
+                 "chipboard", "particleboard", "architrave", "sill", "lath")
+
+
+@dataclass(frozen=True)
+class VisitAssessment:
+    """One visit judged: the findings, the advice, and what the judgement rested on."""
+
+    visit_index: int
+    visit: model.Visit
+    findings: assess.SiteFinding
+    advice: advise.SiteAdvice
+    room_ids: tuple[str, ...]  #: the survey room id of each finding, in order
+    accuracy_entered: dict[str, bool]  #: which accuracies came from the survey's instruments
+
+
+def is_timber(material: str) -> bool:
+    """Whether a material name describes timber (so the timber limits apply)."""
+    text = material.lower()
+    return any(word in text for word in _TIMBER_WORDS)
+
+
+def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
+              entered: dict[str, bool]) -> assess.Accuracy:
+    """The worst accuracy of each kind among the instruments used, defaults elsewhere."""
+    default = assess.DEFAULT_ACCURACY
+    found = {"air_temp_k": None, "rh_pct": None, "surface_temp_k": None}
+    for instrument_id in instrument_ids:
+        if instrument_id is None:
+            continue
+        instrument = survey.instrument(instrument_id)
+        if instrument is None:
+            continue
+        for key, value in (("air_temp_k", instrument.air_temp_accuracy_k),
+                           ("rh_pct", instrument.rh_accuracy_pct),
+                           ("surface_temp_k", instrument.surface_temp_accuracy_k)):
+            if value is not None:
+                found[key] = value if found[key] is None else max(found[key], value)
+    for key, value in found.items():
+        entered[key] = entered.get(key, True) and value is not None
+    return assess.Accuracy(
+        air_temp_k=default.air_temp_k if found["air_temp_k"] is None else found["air_temp_k"],
+        rh_pct=default.rh_pct if found["rh_pct"] is None else found["rh_pct"],
+        surface_temp_k=(default.surface_temp_k if found["surface_temp_k"] is None
+                        else found["surface_temp_k"]),
+    )
+
+
+def _dry_standards(visit: model.Visit, survey: model.Survey, room_visit: model.RoomVisit
+                   ) -> dict[tuple[str, str], float]:
+    """Dry-standard readings by (material, scale): this room's first, then reference rooms'."""
+    standards: dict[tuple[str, str], float] = {}
+    reference_rooms = [rv for rv in visit.rooms if rv is not room_visit
+                       and (room := survey.room(rv.room)) is not None and room.is_reference]
+    for source in (room_visit, *reference_rooms):
+        for reading in source.materials:
+            if reading.dry_standard:
+                standards.setdefault((reading.material.strip().lower(), reading.scale),
+                                     reading.value)
+    return standards
+
+
+def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit,
+               entered: dict[str, bool]) -> assess.RoomInput | None:
+    """The assessment's input for one room on one visit; None when no air was measured."""
+    if room_visit.air is None:
+        return None
+    room = survey.room(room_visit.room)
+    standards = _dry_standards(visit, survey, room_visit)
+    materials = tuple(
+        assess.MaterialReading(
+            label=reading.location, material=reading.material, value=reading.value,
+            scale=reading.scale,
+            dry_standard=standards.get((reading.material.strip().lower(), reading.scale)),
+            timber=reading.scale == "mc_pct" and is_timber(reading.material))
+        for reading in room_visit.materials if not reading.dry_standard
+    )
+    surfaces = tuple(assess.SurfaceInput(s.location, s.surface_temp_c, s.element)
+                     for s in room_visit.surfaces)
+    seen = room_visit.observations
+    observations = assess.Observations(
+        visible_mould_area_m2=(seen.mould_area_m2 or 0.0) if seen.mould_visible else 0.0,
+        water_category=seen.water_category,
+        condensation_seen=seen.condensation_seen
+        or any(s.condensation_seen for s in room_visit.surfaces),
+        odour=seen.odour not in (None, "none"),
+    )
+    instruments = [room_visit.air.instrument, *(s.instrument for s in room_visit.surfaces)]
+    return assess.RoomInput(
+        name=room.name if room is not None else room_visit.room,
+        use=room.use if room is not None else "other",
+        air_temp_c=room_visit.air.dry_bulb_c,
+        rh_pct=room_visit.air.rh_pct,
+        surfaces=surfaces,
+        volume_m3=room.volume_estimate_m3() if room is not None else None,
+        occupants=room.occupants if room is not None else None,
+        materials=materials,
+        observations=observations,
+        accuracy=_accuracy(survey, instruments, entered),
+    )
+
+
+def assess_visit(survey: model.Survey, visit_index: int = -1,
+                 target_rh_pct: float | None = None) -> VisitAssessment:
+    """Judge one visit of ``survey`` (the last by default): findings and advice per room."""
+    visit = survey.visits[visit_index]
+    index = visit_index % len(survey.visits)
+    entered: dict[str, bool] = {}
+    rooms: list[assess.RoomInput] = []
+    room_ids: list[str] = []
+    for room_visit in visit.rooms:
+        judged = room_input(survey, visit, room_visit, entered)
+        if judged is not None:
+            rooms.append(judged)
+            room_ids.append(room_visit.room)
+    outdoor = (None if visit.outdoor is None
+               else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct))
+    findings = assess.assess_site(rooms, outdoor, model.pressure_pa_for(survey, visit),
+                                  year_built=survey.site.year_built)
+    return VisitAssessment(
+        visit_index=index, visit=visit, findings=findings,
+        advice=advise.advise_site(findings, target_rh_pct), room_ids=tuple(room_ids),
+        accuracy_entered={key: entered.get(key, False)
+                          for key in ("air_temp_k", "rh_pct", "surface_temp_k")},
+    )
