@@ -88,9 +88,41 @@ def join_negative_values(argv: Sequence[str], value_options: set[str]) -> list[s
     return joined
 
 
+def _subcommands(parser: argparse.ArgumentParser) -> dict[str, argparse.ArgumentParser]:
+    for action in parser._actions:
+        if isinstance(action, argparse._SubParsersAction):
+            return dict(action.choices)
+    return {}
+
+
+def check_unknown_options(parser: argparse.ArgumentParser, tokens: Sequence[str]) -> None:
+    """Refuse an option the chosen command does not have, suggesting the nearest one.
+
+    argparse would first complain about a missing required option (``--air-tmp 21`` reads
+    as "--air-temp is required"), which hides the typo."""
+    import difflib
+
+    commands = _subcommands(parser)
+    command = next((t for t in tokens if t in commands), None)
+    target = commands.get(command, parser)
+    known = {o for action in target._actions for o in action.option_strings}
+    for token in tokens:
+        if token == "--":
+            break
+        if not token.startswith("--"):
+            continue
+        name = token.split("=", 1)[0]
+        if name in known:
+            continue
+        nearest = difflib.get_close_matches(name, sorted(known), n=1, cutoff=0.6)
+        hint = f"; did you mean {nearest[0]}?" if nearest else ""
+        target.error(f"unknown option {name}{hint}")
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     parser = build_parser()
     tokens = sys.argv[1:] if argv is None else list(argv)
+    check_unknown_options(parser, tokens)
     args = parser.parse_args(join_negative_values(tokens, _value_options(parser)))
     handler = getattr(args, "handler", None)
     if handler is None:
@@ -105,6 +137,8 @@ def main(argv: Sequence[str] | None = None) -> int:
         print(f"survey: {exc}", file=sys.stderr)
         return EXIT_FILE_ERROR
     except KeyboardInterrupt:
+        print("survey: interrupted. Survey files are saved whole or not at all, so each is "
+              "as it was before or as last saved.", file=sys.stderr)
         return 130
     except BrokenPipeError:
         # The reader went away (`survey check --json | head`): stop quietly. Point stdout at

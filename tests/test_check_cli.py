@@ -127,6 +127,8 @@ def test_table_output_shows_the_numbers(check):
     (["--air-temp", "21", "--rh", "50", "--units", "metric"], "invalid choice: 'metric'"),
     (["--air-temp", "21", "--rh", "50", "--altitude", "10", "--pressure", "1000"],
      "not allowed with argument"),
+    (["--air-tmp", "21", "--rh", "50"], "unknown option --air-tmp; did you mean --air-temp?"),
+    (["--air-temp", "21", "--rh", "50", "--frobnicate"], "unknown option --frobnicate"),
 ])
 def test_bad_input_exits_2_with_one_line(check, args, message):
     """Bad input: status 2, one line on stderr naming the option and value, no traceback."""
