@@ -25,8 +25,13 @@ switches to ice below the triple point (0.01 °C). This module therefore:
   more means condensation above 0 °C and frost below, and it happens exactly when the surface
   is at or below :func:`condensation_point_c` — the dew point, or the frost point below 0 °C.
 
-Input domain: dry bulb −50…+70 °C, RH above 0 and at most 100 %, pressure 50–110 kPa, dew
-point not above the dry bulb. Anything else raises :class:`~survey.errors.InputError`.
+Input domain: dry bulb −50…+70 °C, RH above 0 and at most 100 % (below 0.1 % refused as too
+dry for the equations), pressure 50–110 kPa, surface temperature −60…+90 °C, dew point not
+above the dry bulb. Anything else raises :class:`~survey.errors.InputError`.
+
+Air that is supersaturated over ice (high RH, over water, below 0 °C) has a frost point above
+its own temperature: it rimes anything at air temperature. That frost point is reported as
+computed, not clamped to the air temperature.
 """
 
 from __future__ import annotations
