@@ -5,6 +5,8 @@
 * save: ``store.save_survey`` (encode, re-check, indent, temp file, backup link, rename)
   with ``os.fsync`` stubbed out, against ``json.dumps(..., indent=2)`` of the same data plus
   a plain ``open``/``write`` of the result;
+* save over a file this process did not read or write (so the store first checks that the
+  file there loads, and never rotates a damaged one into the backup), without fsync;
 * save with fsync: the real thing, against the same baseline (no goal: the disk decides).
 """
 
@@ -94,8 +96,13 @@ def run() -> list[Result]:
         def our_save() -> None:
             store.save_survey(survey, path)
 
+        def our_save_unknown() -> None:
+            store._KNOWN_GOOD.clear()  # as if another program had written the file
+            store.save_survey(survey, path)
+
         with mock.patch.object(os, "fsync", lambda fd: None):
             save_ours, save_base = interleaved_best(our_save, json_save, repeat=7)
+            checked_ours, checked_base = interleaved_best(our_save_unknown, json_save, repeat=7)
         synced_ours, synced_base = interleaved_best(our_save, json_save, repeat=5)
 
     return [
@@ -103,6 +110,8 @@ def run() -> list[Result]:
                "ms", load_ours / load_base, goal=3.0),
         Result(f"store save without fsync, {ROOMS} rooms vs json.dumps + write",
                save_ours * 1e3, "ms", save_ours / save_base, goal=2.0),
+        Result(f"store save over a file not read first (load check), no fsync, {ROOMS} rooms "
+               "vs json.dumps + write", checked_ours * 1e3, "ms", checked_ours / checked_base),
         Result(f"store save with fsync, {ROOMS} rooms vs json.dumps + write",
                synced_ours * 1e3, "ms", synced_ours / synced_base),
     ]

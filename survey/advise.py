@@ -13,16 +13,28 @@ Formulas
   that carries a moisture generation G away is ṁ_da = G / (W_t − W_o); the volume flow is
   ṁ_da · v_o, v_o the specific volume of the supply (outdoor) air; air changes per hour =
   volume flow / room volume. Warming it costs ṁ_da (1.006 + 1.86 W_o)(t_i − t_o) kJ
-  (ASHRAE ch. 1 eqn 30, enthalpy of moist air).
+  (ASHRAE ch. 1 eqn 30, enthalpy of moist air). At a given flow the room settles at
+  W = W_o + G / ṁ_da.
 * Back-calculated generation: G = ṁ_da (W_i − W_o) with ṁ_da = n·V / v_o at an assumed air
   change rate n (threshold ``assumed_air_change_rate_per_h``).
-* Dehumidification: a one-off pull-down of the room air, V / v_i · (W_i − W_t), plus the
-  load per day, 24 h × (G + ṁ_inf (W_o − W_t)) with infiltration at the assumed rate; 1 kg
-  of water taken as 1 L.
+* Dehumidification: the load per day, 24 h × (G + ṁ_out (W_o − W_t)), with outdoor air
+  coming in at the assumed rate (or at the ventilation rate advised beside it); 1 kg of
+  water taken as 1 L. Taking the room air itself down to the target, V / v_i · (W_i − W_t),
+  is a one-off amount in litres (``pull_down_l``), never added to a per-day figure.
+
+When ventilation helps
+----------------------
+Outdoor air dries a room when it holds less water than the room air *now*, by the margin
+``ventilation_outdoor_drier_margin_g_per_kg``. It can *hold* the target only when it is that
+much drier than room air at the target, and only within the practical air change rate; when
+it cannot, ventilation is still advised as far as it helps, and a dehumidifier (and, where a
+surface needs it, a warmer surface) does the rest. The advice never says to keep windows
+closed while outdoor air is drier than the room air.
 
 Text is written for the inspector's client. Numbers in text go through a ``Formatter``
-``(quantity, si_value) -> str``; the default writes SI without touching pint, and a face may
-pass ``lambda q, v: units.format_value(q, v, system)`` for IP text.
+called ``fmt(quantity, si_value)`` or ``fmt(quantity, si_value, decimals)``; the default
+writes SI without touching pint, and a face may pass
+``lambda q, v, d=None: units.format_value(q, v, system, d)`` for IP text.
 """
 
 from __future__ import annotations
@@ -30,7 +42,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 from enum import Enum
-from typing import Callable, Mapping
+from typing import Callable, Mapping, NamedTuple
 
 from survey import psychro
 from survey import thresholds as th
@@ -39,7 +51,7 @@ from survey.assess import (AirState, CondensationState, DryStandardState, Factor
                            air_state)
 from survey.errors import InputError
 
-Formatter = Callable[[str, float], str]
+Formatter = Callable[..., str]
 
 #: Decimals and units of the default SI text (the same as ``units.format_value`` in SI).
 _SI_TEXT = {
@@ -53,9 +65,11 @@ _SI_TEXT = {
 }
 
 
-def si_text(quantity: str, value_si: float) -> str:
+def si_text(quantity: str, value_si: float, decimals: int | None = None) -> str:
     """``value_si`` as SI text, e.g. ``si_text("temperature", 11.04)`` gives ``'11.0 °C'``."""
     places, factor, unit = _SI_TEXT[quantity]
+    if decimals is not None:
+        places = decimals
     text = f"{value_si * factor:.{places}f}"
     if text.startswith("-") and float(text) == 0.0:
         text = text[1:]
@@ -67,6 +81,10 @@ class ActionKind(Enum):
     DEHUMIDIFY = "dehumidify"
     RAISE_SURFACE_TEMPERATURE = "raise_surface_temperature"
     FIND_SOURCE = "find_source"
+    KEEP_DRYING = "keep_drying"
+    REDUCE_GLAZING_CONDENSATION = "reduce_glazing_condensation"
+    INSULATE_PIPE = "insulate_pipe"
+    REPEAT_READINGS = "repeat_readings"
 
     def __str__(self) -> str:
         return self.value
@@ -77,6 +95,10 @@ ACTION_TITLES = {
     ActionKind.DEHUMIDIFY: "Dehumidify",
     ActionKind.RAISE_SURFACE_TEMPERATURE: "Raise the surface temperature",
     ActionKind.FIND_SOURCE: "Find the moisture source",
+    ActionKind.KEEP_DRYING: "Keep drying to the dry standard",
+    ActionKind.REDUCE_GLAZING_CONDENSATION: "Deal with condensation on the window",
+    ActionKind.INSULATE_PIPE: "Lag the pipe",
+    ActionKind.REPEAT_READINGS: "Repeat the readings",
 }
 
 
@@ -86,17 +108,21 @@ class Action:
 
     kind: ActionKind
     reason: str
-    values: Mapping[str, float | int | str | bool | None]
+    values: Mapping[str, object]
     threshold_keys: tuple[str, ...]
 
     @property
     def title(self) -> str:
-        return ACTION_TITLES[self.kind]
+        """The kind's title; an action about one surface names it (two surfaces, two
+        titles)."""
+        surface = self.values.get("surface")
+        base = ACTION_TITLES[self.kind]
+        return f"{base}: {surface}" if surface else base
 
     def as_dict(self) -> dict:
-        """JSON-ready: ``kind``, ``reason``, the numbers, ``threshold_keys``."""
-        return {"kind": self.kind.value, "reason": self.reason, **self.values,
-                "threshold_keys": list(self.threshold_keys)}
+        """JSON-ready: ``kind``, ``title``, ``reason``, the numbers, ``threshold_keys``."""
+        return {"kind": self.kind.value, "title": self.title, "reason": self.reason,
+                **self.values, "threshold_keys": list(self.threshold_keys)}
 
 
 @dataclass(frozen=True, slots=True)
@@ -118,6 +144,7 @@ class MoistureEstimate:
     used_g_per_h: float | None
     basis: str
     threshold_keys: tuple[str, ...]
+    missing: str = ""  #: what to give so the load can be worked out ("" when known)
 
 
 @dataclass(frozen=True, slots=True)
@@ -158,7 +185,63 @@ _CP_VAPOUR_KJ_PER_KG_K = 1.86  # ASHRAE Fundamentals 2017 ch. 1 eqn 30
 _M3_PER_H_PER_CFM = 0.028316846592 * 60.0  # 1 ft = 0.3048 m exactly, so 1 ft³/min = 1.699 m³/h
 
 
+# --- small words -------------------------------------------------------------------------------
+
+def _pct(x: float) -> str:
+    return f"{x:.0f} %"
+
+
+def _water(fmt: Formatter, litres_per_day: float) -> str:
+    """A water rate in the face's unit with the other beside it: '2.1 L/day (4.4 US
+    pints/day)' or '4.4 pt/day (2.1 L/day)'."""
+    text = fmt("water_rate", litres_per_day)
+    if text.endswith("L/day"):
+        return f"{text} ({litres_per_day / th.value('us_pint_l'):.1f} US pints/day)"
+    return f"{text} ({si_text('water_rate', litres_per_day)})"
+
+
+def _nominal_temperature(fmt: Formatter, temp_c: float) -> str:
+    """A temperature defined in whole degrees Fahrenheit (a test condition): whole °F in IP
+    text, so 80 °F reads as 80 °F and not as a conversion back from 26.7 °C."""
+    text = fmt("temperature", temp_c)
+    return fmt("temperature", temp_c, 0) if text.endswith("°F") else text
+
+
+_USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
+               "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
+               "loft": "a loft", "office": "an office", "storage": "a store room",
+               "hallway": "a hallway", "other": None}
+
+
+def _limit_phrase(finding: RoomFinding, limit: float) -> str:
+    """'the 0.75 limit for a bedroom', or 'the general 0.70 limit' when the use is not
+    known."""
+    phrase = _USE_PHRASE[finding.use]
+    return f"the general {limit:.2f} limit" if phrase is None else \
+        f"the {limit:.2f} limit for {phrase}"
+
+
+def _condensation_words(surface: SurfaceFinding) -> tuple[str, str]:
+    """('dew point' or 'frost point', 'water' or 'frost') for what forms on the surface."""
+    if surface.below_freezing:
+        return "frost point", "frost"
+    return "dew point", "water"
+
+
 # --- moisture load -----------------------------------------------------------------------------
+
+def _missing_for_load(finding: RoomFinding) -> str:
+    """What to give so the moisture load can be worked out: only what was not given."""
+    room = finding.room
+    out = finding.outdoor
+    people = "the number of occupants"
+    missing = [name for name, absent in (("the outdoor air", out is None),
+                                         ("the room volume", room.volume_m3 is None)) if absent]
+    if missing:
+        return f"give {people}, or " + " and ".join(missing)
+    return (f"give {people}: the load cannot be worked out from the measured excess while "
+            f"outdoor air holds as much water as the room air or more")
+
 
 def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
     """Moisture the room gains, g/h: from occupants and activities, and back-calculated from
@@ -200,13 +283,15 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         (occupants or 0.0) + (activities or 0.0)
     candidates = [g for g in (people, back) if g is not None]
     used = max(candidates) if candidates else None
+    missing = ""
     if used is None:
-        basis = "not known (give the occupants, or the outdoor air and the room volume)"
+        missing = _missing_for_load(finding)
+        basis = f"not known ({missing})"
     elif len(candidates) == 1:
         basis = "; ".join(parts)
     else:
         basis = "the larger of " + ", and ".join(parts)
-    return MoistureEstimate(occupants, activities, back, used, basis, tuple(keys))
+    return MoistureEstimate(occupants, activities, back, used, basis, tuple(keys), missing)
 
 
 def ventilation_airflow(generation_kg_per_h: float, target_w_kg_per_kg: float,
@@ -222,7 +307,19 @@ def ventilation_airflow(generation_kg_per_h: float, target_w_kg_per_kg: float,
     return dry_air, dry_air * supply_volume_m3_per_kg
 
 
+def _rh_at(air: AirState, humidity_ratio_kg_per_kg: float) -> float:
+    """RH (%) of air at the room's temperature holding ``humidity_ratio`` (capped at 100)."""
+    return psychro.state_from_humidity_ratio(air.dry_bulb_c, humidity_ratio_kg_per_kg,
+                                             air.pressure_pa).rh_pct
+
+
 # --- the target --------------------------------------------------------------------------------
+
+def rh_limit_shown(limit_pct: float) -> int:
+    """A highest-safe room RH as it is shown and held: whole percent, rounded down so it
+    stays on the safe side. Every face uses this, so a headline and the text below agree."""
+    return int(math.floor(limit_pct + 1e-9))
+
 
 def _target(finding: RoomFinding, target_rh_pct: float | None, fmt: Formatter
             ) -> tuple[float, str, tuple[str, ...]]:
@@ -245,17 +342,19 @@ def _target(finding: RoomFinding, target_rh_pct: float | None, fmt: Formatter
     keys += ["surface_rh_mould_limit_pct", "dew_point_margin_k", "room_rh_floor_pct"]
     floor = th.value("room_rh_floor_pct")
     coldest = finding.coldest
-    # A limit is shown and held in whole percent, rounded down so it stays on the safe side.
-    whole = float(math.floor(limit))
+    whole = float(rh_limit_shown(limit))
     target = max(whole, min(floor, design))
-    surface = f"the coldest surface ({coldest.label}, {fmt('temperature', coldest.surface_temp_c)})"
+    surface = (f"the coldest wall, ceiling or floor ({coldest.label}, "
+               f"{fmt('temperature', coldest.surface_temp_c)})")
     if finding.max_room_rh_pct_mould <= finding.max_room_rh_pct_margin:
         passes = (f"goes over {th.value('surface_rh_mould_limit_pct'):.0f} % surface RH, "
                   f"the mould limit")
     else:
+        point = "frost point" if finding.air.condensation_point_c <= psychro.TRIPLE_POINT_C \
+            else "dew point"
         passes = (f"comes within "
                   f"{fmt('temperature_difference', th.value('dew_point_margin_k'))} of the "
-                  f"dew point")
+                  f"{point}")
     if target > whole:
         basis = (f"{target:.0f} % RH, the lowest it is practical to hold. Above {whole:.0f} %, "
                  f"{surface} {passes}, so it must also be made warmer.")
@@ -264,34 +363,37 @@ def _target(finding: RoomFinding, target_rh_pct: float | None, fmt: Formatter
     return target, basis, tuple(keys)
 
 
-# --- actions -----------------------------------------------------------------------------------
+# --- ventilation and dehumidification --------------------------------------------------------
 
-def _pct(x: float) -> str:
-    return f"{x:.0f} %"
-
-
-_USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
-               "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
-               "loft": "a loft", "office": "an office", "storage": "a store room", "hallway": "a hallway",
-               "other": "a room of this kind"}
+def _humidity_values(finding: RoomFinding, target: float, target_air: AirState,
+                     moisture: MoistureEstimate) -> dict:
+    values: dict = {"target_rh_pct": target,
+                    "target_humidity_ratio_g_per_kg": target_air.humidity_ratio_g_per_kg,
+                    "room_humidity_ratio_g_per_kg": finding.air.humidity_ratio_g_per_kg}
+    if finding.outdoor is not None:
+        values["outdoor_humidity_ratio_g_per_kg"] = finding.outdoor.humidity_ratio_g_per_kg
+    values["moisture_generation_g_per_h"] = moisture.used_g_per_h
+    return values
 
 
 def _ventilate(finding: RoomFinding, target: float, target_air: AirState,
                moisture: MoistureEstimate, fmt: Formatter) -> tuple[Action, float | None]:
+    """Ventilation sized to hold the target (outdoor air usefully drier than room air at
+    the target)."""
     out = finding.outdoor
     air = finding.air
     room = finding.room
     wt, wo = target_air.humidity_ratio_kg_per_kg, out.humidity_ratio_kg_per_kg
     keys = ["ventilation_outdoor_drier_margin_g_per_kg", *moisture.threshold_keys]
-    values: dict = {"target_rh_pct": target, "target_humidity_ratio_g_per_kg": 1000 * wt,
-                    "outdoor_humidity_ratio_g_per_kg": 1000 * wo,
-                    "moisture_generation_g_per_h": moisture.used_g_per_h}
-    text = (f"Outdoor air is drier: it holds {fmt('humidity_ratio', wo)} of water, against "
-            f"{fmt('humidity_ratio', wt)} in room air at {_pct(target)}.")
+    values = _humidity_values(finding, target, target_air, moisture)
+    values["target_reachable_by_ventilation"] = True
+    text = (f"Outdoor air is drier than the room air: it holds {fmt('humidity_ratio', wo)} of "
+            f"water, against {fmt('humidity_ratio', air.humidity_ratio_kg_per_kg)} in the room "
+            f"now and {fmt('humidity_ratio', wt)} in room air at {_pct(target)}.")
     ach = None
     if moisture.used_g_per_h is None:
-        text += (" The airflow cannot be sized without the moisture load: give the number of "
-                 "occupants, or the room volume.")
+        text += (" The airflow cannot be sized without the moisture load: "
+                 f"{moisture.missing}.")
     else:
         dry_air, flow = ventilation_airflow(moisture.used_g_per_h / 1000.0, wt, wo,
                                             out.specific_volume_m3_per_kg)
@@ -316,26 +418,85 @@ def _ventilate(finding: RoomFinding, target: float, target_air: AirState,
     return Action(ActionKind.VENTILATE, text, values, tuple(dict.fromkeys(keys))), ach
 
 
+def _ventilate_partly(finding: RoomFinding, target: float, target_air: AirState,
+                      moisture: MoistureEstimate, fmt: Formatter
+                      ) -> tuple[Action, float | None]:
+    """Outdoor air is drier than the room now but not usefully drier than room air at the
+    target: ventilate as far as it helps; returns the air change rate a dehumidifier
+    beside it should be sized with (None: the assumed background rate)."""
+    out = finding.outdoor
+    air = finding.air
+    room = finding.room
+    wt, wo = target_air.humidity_ratio_kg_per_kg, out.humidity_ratio_kg_per_kg
+    cap = th.value("ventilation_practical_max_ach")
+    margin = th.value("ventilation_outdoor_drier_margin_g_per_kg") / 1000.0
+    keys = ["ventilation_outdoor_drier_margin_g_per_kg", "ventilation_practical_max_ach",
+            *moisture.threshold_keys]
+    warmed = _rh_at(air, wo)
+    values = _humidity_values(finding, target, target_air, moisture)
+    values.update(target_reachable_by_ventilation=False,
+                  outdoor_air_rh_at_room_temp_pct=warmed)
+    text = (f"Outdoor air is drier than the room air: it holds {fmt('humidity_ratio', wo)} of "
+            f"water against {fmt('humidity_ratio', air.humidity_ratio_kg_per_kg)} in the room "
+            f"now, so airing the room brings it down. Ventilation alone cannot hold "
+            f"{_pct(target)}: room air at {_pct(target)} holds {fmt('humidity_ratio', wt)}, ")
+    if wo >= wt:
+        text += (f"no more than outdoor air, which warmed to "
+                 f"{fmt('temperature', air.dry_bulb_c)} is itself at {_pct(warmed)}.")
+    else:
+        text += (f"less than {fmt('humidity_ratio', margin)} more than outdoor air, so the "
+                 f"airflow needed would grow out of proportion (outdoor air warmed to "
+                 f"{fmt('temperature', air.dry_bulb_c)} is at {_pct(warmed)}).")
+    dehumidify_ach = None
+    if wo < wt and room.volume_m3 is not None:
+        flow = cap * room.volume_m3
+        dry_air = flow / out.specific_volume_m3_per_kg
+        values.update(airflow_m3_per_h=flow, air_changes_per_h=cap,
+                      airflow_ft3_per_min=flow / _M3_PER_H_PER_CFM, dry_air_flow_kg_per_h=dry_air)
+        text += (f" Ventilate at about {cap:g} air changes an hour ({fmt('airflow', flow)}), "
+                 f"the most that is practical")
+        if moisture.used_g_per_h is not None:
+            settles = _rh_at(air, wo + moisture.used_g_per_h / 1000.0 / dry_air)
+            values["rh_at_practical_ventilation_pct"] = settles
+            text += (f": against {moisture.used_g_per_h:.0f} g/h of moisture the room would "
+                     f"settle near {_pct(settles)}")
+        text += ("; a dehumidifier does the rest. Use trickle vents or a continuous extract "
+                 "fan, and open windows fully for a few minutes, often.")
+        dehumidify_ach = cap
+    elif wo < wt:
+        text += (" Ventilate steadily (trickle vents, a continuous extract fan) and let a "
+                 "dehumidifier do the rest; give the room volume to size the airflow.")
+    else:
+        text += (f" Air the room out (windows wide open for a few minutes, several times a "
+                 f"day) while it is above about {_pct(warmed)}; from there on, keep to "
+                 f"background ventilation (trickle vents, extract fans) while a dehumidifier "
+                 f"takes it down to {_pct(target)}.")
+    return (Action(ActionKind.VENTILATE, text, values, tuple(dict.fromkeys(keys))),
+            dehumidify_ach)
+
+
 def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
                 moisture: MoistureEstimate, fmt: Formatter, why: str,
-                air_changes_per_h: float | None = None) -> Action:
-    """Water to take out: a one-off pull-down of the room air plus the daily load, with
-    outdoor air coming in at ``air_changes_per_h`` (default: the assumed rate)."""
+                air_changes_per_h: float | None = None,
+                extra_keys: tuple[str, ...] = ()) -> Action:
+    """Water to take out per day to hold the target, with outdoor air coming in at
+    ``air_changes_per_h`` (default: the assumed rate); the one-off pull-down of the room air
+    is stated apart, in litres."""
     room = finding.room
     air = finding.air
     out = finding.outdoor
     wt = target_air.humidity_ratio_kg_per_kg
-    keys = ["dehumidifier_rating_old_dry_bulb_c", "dehumidifier_rating_current_dry_bulb_c",
-            "dehumidifier_rating_rh_pct", "refrigerant_dehumidifier_min_c", "us_pint_l",
-            *moisture.threshold_keys]
+    keys = [*extra_keys, "dehumidifier_rating_old_dry_bulb_c",
+            "dehumidifier_rating_current_dry_bulb_c", "dehumidifier_rating_rh_pct",
+            "refrigerant_dehumidifier_min_c", "us_pint_l", *moisture.threshold_keys]
     values: dict = {"target_rh_pct": target, "target_humidity_ratio_g_per_kg": 1000 * wt,
                     "room_temp_c": air.dry_bulb_c}
-    generation = (moisture.used_g_per_h or 0.0) / 1000.0
-    outdoor_air = 0.0
+    pint = th.value("us_pint_l")
+    generation = moisture.used_g_per_h
+    outdoor_g_per_h = None
     gains = []
-    if moisture.used_g_per_h is not None:
-        gains.append(f"the room gains {moisture.used_g_per_h:.0f} g/h "
-                     f"(moisture load: {moisture.basis})")
+    if generation is not None:
+        gains.append(f"the room gains {generation:.0f} g/h (moisture load: {moisture.basis})")
     if out is not None and room.volume_m3 is not None:
         if air_changes_per_h is None:
             air_changes_per_h = th.value("assumed_air_change_rate_per_h")
@@ -344,38 +505,46 @@ def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
         else:
             how = "ventilating"
         dry_air = air_changes_per_h * room.volume_m3 / out.specific_volume_m3_per_kg
-        outdoor_air = dry_air * (out.humidity_ratio_kg_per_kg - wt)
+        outdoor_g_per_h = 1000.0 * dry_air * (out.humidity_ratio_kg_per_kg - wt)
         values["outdoor_air_changes_per_h"] = air_changes_per_h
-        verb = "brings" if outdoor_air > 0 else "carries away"
+        values["outdoor_air_l_per_day"] = outdoor_g_per_h * 24.0 / 1000.0 * _WATER_L_PER_KG
+        verb = "brings" if outdoor_g_per_h > 0 else "carries away"
         gains.append(f"outdoor air {how} at about {air_changes_per_h:g} air changes an hour "
-                     f"{verb} {abs(outdoor_air) * 1000:.0f} g/h")
-    load_l_per_day = max(0.0, generation + outdoor_air) * 24.0 * _WATER_L_PER_KG
-    values["load_l_per_day"] = load_l_per_day
+                     f"{verb} {abs(outdoor_g_per_h):.0f} g/h")
     text = why
-    removal = load_l_per_day
     if room.volume_m3 is not None:
         pull_down = (room.volume_m3 / air.specific_volume_m3_per_kg
                      * (air.humidity_ratio_kg_per_kg - wt) * _WATER_L_PER_KG)
         values["pull_down_l"] = pull_down
-        removal += pull_down
-        text += (f" Bringing the room air down to {_pct(target)} takes {pull_down:.2f} L out "
-                 f"of it once.")
-    if gains:
-        text += (" To hold it there: " + "; ".join(gains)
-                 + f"; {fmt('water_rate', load_l_per_day)} in all.")
+        text += (f" Taking the room air itself down to {_pct(target)} means removing about "
+                 f"{pull_down:.2f} L ({pull_down / pint:.2f} US pints) once; wet materials "
+                 f"hold far more.")
+    if generation is None:
+        load = None
+        text += (f" The moisture load to hold it there is not known ({moisture.missing}), so "
+                 f"no dehumidifier size can be given")
+        if outdoor_g_per_h is not None and outdoor_g_per_h > 0:
+            text += (f"; outdoor air leaking in alone brings "
+                     f"{_water(fmt, outdoor_g_per_h * 24.0 / 1000.0)}")
+        text += "."
     else:
-        text += (" The moisture load to hold it there is not known: give the number of "
-                 "occupants, or the outdoor air and the room volume.")
-    pint = th.value("us_pint_l")
-    values.update(removal_l_per_day=removal, removal_us_pints_per_day=removal / pint)
-    text += (f" A dehumidifier should remove at least {fmt('water_rate', removal)} "
-             f"({removal / pint:.1f} US pints/day) at this room's conditions on the first "
-             f"day; drying wet materials adds much more.")
+        load = max(0.0, generation + (outdoor_g_per_h or 0.0)) * 24.0 / 1000.0 * _WATER_L_PER_KG
+        if load > 0.0:
+            text += (" To hold it there: " + "; ".join(gains) + f"; {_water(fmt, load)} in "
+                     f"all, the least a dehumidifier should remove at this room's conditions. "
+                     f"Drying wet materials adds much more.")
+        else:
+            text += (" To hold it there: " + "; ".join(gains) + ". Outdoor air carries away "
+                     "more than the room produces, so once the room is down there is no daily "
+                     "load to hold against: the dehumidifier is for bringing it down, and for "
+                     "damper days.")
+    values.update(load_l_per_day=load, removal_l_per_day=load,
+                  removal_us_pints_per_day=None if load is None else load / pint)
     old = th.value("dehumidifier_rating_old_dry_bulb_c")
     new = th.value("dehumidifier_rating_current_dry_bulb_c")
     rating_rh = th.value("dehumidifier_rating_rh_pct")
-    text += (f" Capacities on labels are measured at {fmt('temperature', old)} and "
-             f"{_pct(rating_rh)} RH (older ratings) or {fmt('temperature', new)} and "
+    text += (f" Capacities on labels are measured at {_nominal_temperature(fmt, old)} and "
+             f"{_pct(rating_rh)} RH (older ratings) or {_nominal_temperature(fmt, new)} and "
              f"{_pct(rating_rh)} RH (current US test); in a room at "
              f"{fmt('temperature', air.dry_bulb_c)} and {_pct(target)} a unit removes less "
              f"than its label says, so choose one rated well above this.")
@@ -388,8 +557,66 @@ def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
     return Action(ActionKind.DEHUMIDIFY, text, values, tuple(dict.fromkeys(keys)))
 
 
+def _moisture_actions(finding: RoomFinding, target: float, basis: str,
+                      target_keys: tuple[str, ...], target_air: AirState,
+                      moisture: MoistureEstimate, fmt: Formatter) -> list[Action]:
+    """Ventilate, dehumidify, or both, for a room above its target (see the module notes)."""
+    air = finding.air
+    out = finding.outdoor
+    bring = f"Bring the room from {_pct(air.rh_pct)} down to {basis} "
+    margin_key = "ventilation_outdoor_drier_margin_g_per_kg"
+    margin = th.value(margin_key) / 1000.0
+    cap = th.value("ventilation_practical_max_ach")
+    w_room = air.humidity_ratio_kg_per_kg
+    w_target = target_air.humidity_ratio_kg_per_kg
+    if out is None:
+        why = bring + (f"The outdoor air was not measured: if it holds less water than the "
+                       f"{fmt('humidity_ratio', w_room)} of the room air now, airing the room "
+                       f"helps too.")
+        return [_dehumidify(finding, target, target_air, moisture, fmt, why,
+                            extra_keys=target_keys)]
+    w_out = out.humidity_ratio_kg_per_kg
+    if w_out > w_room - margin:
+        if w_out >= w_room:
+            words = (f"Outdoor air is wetter than the room air: it holds "
+                     f"{fmt('humidity_ratio', w_out)} of water against "
+                     f"{fmt('humidity_ratio', w_room)} in the room, so ventilating would add "
+                     f"moisture. Keep windows and doors to outside closed while dehumidifying.")
+        else:
+            words = (f"Outdoor air is about as wet as the room air: "
+                     f"{fmt('humidity_ratio', w_out)} of water against "
+                     f"{fmt('humidity_ratio', w_room)} in the room, so airing would do little; "
+                     f"a dehumidifier does the work.")
+        return [_dehumidify(finding, target, target_air, moisture, fmt, bring + words,
+                            extra_keys=(*target_keys, margin_key))]
+    if w_out <= w_target - margin:
+        ventilate, ach = _ventilate(finding, target, target_air, moisture, fmt)
+        actions = [Action(ventilate.kind, bring + ventilate.reason, ventilate.values,
+                          tuple(dict.fromkeys(target_keys + ventilate.threshold_keys)))]
+        if ach is not None and ach > cap:
+            why = (f"Ventilation alone needs {ach:.1f} air changes an hour, more than the "
+                   f"about {cap:g} that is practical: ventilate at {cap:g} and let a "
+                   f"dehumidifier do the rest.")
+            actions.append(_dehumidify(finding, target, target_air, moisture, fmt, why,
+                                       air_changes_per_h=cap,
+                                       extra_keys=("ventilation_practical_max_ach",)))
+        return actions
+    ventilate, dehumidify_ach = _ventilate_partly(finding, target, target_air, moisture, fmt)
+    why = (f"Ventilation cannot hold the room at {_pct(target)} by itself: a dehumidifier "
+           f"takes it the rest of the way.")
+    return [Action(ventilate.kind, bring + ventilate.reason, ventilate.values,
+                   tuple(dict.fromkeys(target_keys + ventilate.threshold_keys))),
+            _dehumidify(finding, target, target_air, moisture, fmt, why,
+                        air_changes_per_h=dehumidify_ach,
+                        extra_keys=("ventilation_practical_max_ach",))]
+
+
+# --- surfaces ------------------------------------------------------------------------------------
+
 def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: float,
                    fmt: Formatter) -> Action | None:
+    """A wall, ceiling or floor too cold for the room to be held at a practical RH, or with
+    its temperature factor under the limit."""
     air = finding.air
     floor = th.value("room_rh_floor_pct")
     mould_limit = th.value("surface_rh_mould_limit_pct")
@@ -403,7 +630,8 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
     design_air = air_state(air.dry_bulb_c, design_rh, air.pressure_pa)
     for_rh = max(psychro.surface_temp_for_rh_c(design_air, mould_limit),
                  design_air.condensation_point_c + margin)
-    values: dict = {"surface": surface.label, "surface_temp_c": surface.surface_temp_c,
+    values: dict = {"surface": surface.label, "element": surface.element,
+                    "surface_temp_c": surface.surface_temp_c,
                     "max_room_rh_pct": max_rh, "surface_temp_for_target_rh_c": for_rh}
     target = for_rh
     reasons = []
@@ -421,17 +649,16 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
         keys += [finding.frsi_limit_key, "frsi_min_temperature_difference_k"]
         if factor_under:
             reasons.append(f"its temperature factor is {surface.temperature_factor:.2f} "
-                           f"(±{surface.temperature_factor_uncertainty:.2f}), under the "
-                           f"{f_limit:.2f} limit for {_USE_PHRASE[finding.use]}, which today means at "
-                           f"least {fmt('temperature', for_factor)}")
+                           f"(±{surface.temperature_factor_uncertainty:.2f}), under "
+                           f"{_limit_phrase(finding, f_limit)}, which today means at least "
+                           f"{fmt('temperature', for_factor)}")
             target = max(target, for_factor)
     values["target_surface_temp_c"] = target
     text = (f"{surface.label} is too cold at {fmt('temperature', surface.surface_temp_c)}: "
             + "; ".join(reasons) + ". "
             f"Raise it to at least {fmt('temperature', target)} so the room can be kept at "
-            f"{_pct(design_rh)} without mould risk: keep the room heated steadily, move "
-            f"furniture off cold walls, and have the insulation, thermal bridge or cold "
-            f"corner investigated.")
+            f"{_pct(design_rh)} without mould risk: ")
+    text += _REMEDY.get(surface.element, _REMEDY["other"])
     if factor_under:
         text += (" The factor comes from one reading: confirm it on another cold day, or with "
                  "a thermal image, before building work.")
@@ -439,36 +666,190 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
                   tuple(dict.fromkeys(k for k in keys if k)))
 
 
-def _find_source(finding: RoomFinding, fmt: Formatter) -> tuple[Action | None, bool]:
-    """The find-the-source action, and whether it comes first (liquid water suspected)."""
+_REMEDY = {
+    "internal_wall": ("keep the room heated steadily and furniture off it. An internal wall "
+                      "this cold usually backs onto an unheated space or a chimney, or hides "
+                      "a leak or a cold bridge: find out which before treating it."),
+    "floor": ("keep the room heated steadily, keep rugs and stored things off the coldest "
+              "part, and have the floor insulation, the slab edge or a thermal bridge "
+              "investigated."),
+    "ceiling": ("keep the room heated steadily, and have the insulation above it (gaps in "
+                "the loft insulation, a cold eaves corner) or a thermal bridge investigated."),
+    "other": ("keep the room heated steadily, keep furniture and stored things off cold "
+              "walls, and have the insulation, thermal bridge or cold corner investigated."),
+}
+
+
+def _forming(surface: SurfaceFinding) -> str | None:
+    """'water forms on it' (or frost) at the reading, 'may form' when the band reaches the
+    condensation point, else None."""
+    point, what = _condensation_words(surface)
+    if surface.condensation is CondensationState.CONDENSING:
+        return f"{what} forms on it"
+    if CondensationState.CONDENSING in surface.condensation_possible:
+        return (f"{what} may form on it (at this instrument accuracy the reading cannot be "
+                f"told apart from the {point})")
+    return None
+
+
+def _cold_surface_values(finding: RoomFinding, surface: SurfaceFinding, target_air: AirState
+                         ) -> dict:
+    return {"surface": surface.label, "element": surface.element,
+            "surface_temp_c": surface.surface_temp_c,
+            "condensation_point_c": surface.condensation_point_c,
+            "frost": surface.below_freezing,
+            "max_room_rh_pct_dry": min(100.0, finding.air.rh_pct * 100.0
+                                       / surface.surface_rh_pct),
+            "surface_temp_to_stay_dry_c": target_air.condensation_point_c}
+
+
+def _stays_dry(values: dict, target: float, fmt: Formatter) -> str:
+    """'It stays dry only while the room is below 46 %; at 58 % it would need to be at least
+    9.2 °C.' — or, when the target already keeps it dry, says so."""
+    dry = values["max_room_rh_pct_dry"]
+    text = f"It stays dry only while the room is below {rh_limit_shown(dry)} %"
+    if rh_limit_shown(dry) >= target:
+        return text + f", so once the room is down to {_pct(target)} it stays dry."
+    return (text + f"; at {_pct(target)} it would need to be at least "
+            f"{fmt('temperature', values['surface_temp_to_stay_dry_c'])}.")
+
+
+def _glazing(finding: RoomFinding, surface: SurfaceFinding, target: float,
+             target_air: AirState, fmt: Formatter) -> Action | None:
+    """Glass or a window frame at or near the condensation point, or a frame above the
+    mould limit: a window remedy, not a drier room."""
+    forming = _forming(surface)
+    mouldy = MouldState.ABOVE in surface.mould_possible
+    if forming is None and not mouldy:
+        return None
+    point, _ = _condensation_words(surface)
+    values = _cold_surface_values(finding, surface, target_air)
+    glass = surface.element == "glazing"
+    text = (f"{surface.label} ({'glass' if glass else 'window frame'}) is at "
+            f"{fmt('temperature', surface.surface_temp_c)}")
+    if forming is not None:
+        text += (f", against a {point} of {fmt('temperature', surface.condensation_point_c)}: "
+                 f"{forming}. {_stays_dry(values, target, fmt)} ")
+        if glass:
+            text += ("On single glazing in cold weather some condensation is expected: it is "
+                     "no reason to hold the room drier than is practical. Wipe the glass and "
+                     "sill dry each morning, keep trickle vents open and curtains or blinds "
+                     "clear of the glass at night, and consider secondary or double glazing, "
+                     "which keeps the inner pane warmer.")
+        else:
+            text += ("Window frames, metal ones above all, run colder than the walls around "
+                     "them, and some condensation on them in cold weather is expected: it is "
+                     "no reason to hold the room drier than is practical. Wipe frames and sills "
+                     "dry, keep trickle vents open, and consider secondary glazing or frames "
+                     "with a thermal break.")
+    else:
+        text += "."
+    if mouldy:
+        text += (" Its surface RH is above the mould limit: check frames and seals for mould, "
+                 "clean any off with detergent and water (gloves and an FFP2 / N95 "
+                 "respirator), and check the sill and reveal for rot and damp.")
+    else:
+        text += " Check frames, seals and the sill for mould and rot where water runs down."
+    keys = ("condensation_dew_point_margin_k", "surface_rh_mould_limit_pct")
+    return Action(ActionKind.REDUCE_GLAZING_CONDENSATION, text, values, keys)
+
+
+def _pipe(finding: RoomFinding, surface: SurfaceFinding, target: float,
+          target_air: AirState, fmt: Formatter) -> Action | None:
+    """A cold pipe at or near the condensation point: lag it."""
+    forming = _forming(surface)
+    if forming is None:
+        return None
+    point, _ = _condensation_words(surface)
+    values = _cold_surface_values(finding, surface, target_air)
+    text = (f"{surface.label} is at {fmt('temperature', surface.surface_temp_c)}, against a "
+            f"{point} of {fmt('temperature', surface.condensation_point_c)}: {forming}, and "
+            f"it can drip onto floors, joists and linings. Lag it with closed-cell pipe "
+            f"insulation, joints and ends taped so that room air cannot reach the cold pipe "
+            f"underneath (open, fibrous lagging on a cold pipe gets wet), and check below it "
+            f"for wet timber or plaster. {_stays_dry(values, target, fmt)}")
+    return Action(ActionKind.INSULATE_PIPE, text, values, ("condensation_dew_point_margin_k",))
+
+
+# --- sources, drying and repeat readings ----------------------------------------------------------
+
+class _SourceFindings(NamedTuple):
+    find_source: Action | None
+    find_source_first: bool  #: liquid water suspected: before any drying
+    keep_drying: Action | None
+    repeat_readings: Action | None
+
+
+def _wet_materials_text(wet) -> str:
+    tolerance = th.value("dry_standard_tolerance_fraction")
+    return ", ".join(f"{m.label} {m.value:g} against {m.dry_standard:g} (dry once at or below "
+                     f"{m.dry_standard * (1.0 + tolerance):.3g})" for m in wet)
+
+
+def _class_reason(finding: RoomFinding, fmt: Formatter) -> tuple[str | None, str | None]:
+    """(a find-the-source reason, a repeat-the-readings reason) from the humidity class;
+    the first when the whole band is high, the second when the band reaches across."""
+    if finding.humidity_class is None:
+        return None, None
+    wet_room = finding.use in ("kitchen", "bathroom")
+    high = int(th.value("humidity_class_high")) + (1 if wet_room else 0)
+    possible = finding.humidity_class_possible or (finding.humidity_class,)
+    if max(possible) < high:
+        return None, None
+    phrase = _USE_PHRASE[finding.use]
+    expected = (f"more than {phrase} should produce" if phrase is not None
+                else "more than ordinary occupied rooms produce")
+    excess = fmt("vapour_pressure", finding.vapour_pressure_excess_pa)
+    if min(possible) >= high:
+        return (f"the room air holds {excess} more vapour pressure than outdoors, "
+                f"{th.humidity_class_range_text(possible)} of EN ISO 13788 — {expected} (look "
+                f"for laundry drying indoors, unflued heaters, a blocked or missing extract, "
+                f"or a leak)"), None
+    band = fmt("vapour_pressure", finding.vapour_pressure_excess_uncertainty_pa)
+    return None, (f"The humidity class may be high: the room air holds {excess} (± {band}) "
+                  f"more vapour pressure than outdoors, "
+                  f"{th.humidity_class_range_text(possible)} of EN ISO 13788 at this "
+                  f"instrument accuracy, and class {high} or above would be {expected}. One "
+                  f"spot reading cannot settle it: repeat the readings on other days, or log "
+                  f"the room for a week or two, before looking for a hidden source.")
+
+
+def _sources(finding: RoomFinding, fmt: Formatter) -> _SourceFindings:
+    """Find the source, keep drying, and repeat the readings: what the materials,
+    observations and humidity class call for."""
     room = finding.room
     obs = room.observations
+    drying = obs.drying_in_progress
     first: list[str] = []
     later: list[str] = []
+    drying_notes: list[str] = []
     keys: list[str] = []
+    drying_keys: list[str] = []
     values: dict = {}
     wet = [m for m in finding.materials if m.dry_standard_state is DryStandardState.ABOVE]
-    if wet:
+    if wet and not drying:
         keys.append("dry_standard_tolerance_fraction")
-        first.append("material readings above the dry standard (" + ", ".join(
-            f"{m.label} {m.value:g} against {m.dry_standard:g}" for m in wet) + ")")
+        first.append("material readings above the dry standard (" + _wet_materials_text(wet)
+                     + "); once the source is dealt with, dry them until the readings reach "
+                       "the dry standard")
         values["materials_above_dry_standard"] = len(wet)
     damp_timber = [m for m in finding.materials if m.wetter_than_air_explains]
-    if damp_timber:
+    if damp_timber and not drying:
         keys += ["timber_mould_mc_pct", "timber_decay_mc_pct"]
         first.append("timber wetter than the room air can explain (" + ", ".join(
             f"{m.label} {m.value:g} % against {m.emc_pct:.1f} % in equilibrium with the air"
             for m in damp_timber) + ")")
     decaying = [m for m in finding.materials if m.timber_state is TimberState.DECAY_RANGE]
     if decaying:
-        keys.append("timber_decay_mc_pct")
         limit = th.value("timber_decay_mc_pct")
         slowed = any(m.decay_slowed_by_temperature for m in decaying)
-        first.append("timber at or above the " + f"{limit:.0f} % moisture content at which "
-                     "decay fungi grow (" + ", ".join(f"{m.label} {m.value:g} %" for m in decaying)
-                     + "): have it checked for rot"
-                     + (" — decay is slow at today's temperature, not stopped" if slowed else ""))
-    if obs.standing_water or obs.water_category is not None:
+        note = ("timber at or above the " + f"{limit:.0f} % moisture content at which "
+                "decay fungi grow (" + ", ".join(f"{m.label} {m.value:g} %" for m in decaying)
+                + "): have it checked for rot"
+                + (" — decay is slow at today's temperature, not stopped" if slowed else ""))
+        (drying_notes if drying else first).append(note)
+        (drying_keys if drying else keys).append("timber_decay_mc_pct")
+    if (obs.standing_water or obs.water_category is not None) and not drying:
         first.append("water present in the room" if obs.water_category is None else
                      f"category {obs.water_category} water in the room")
     surfaces = finding.surfaces
@@ -478,37 +859,103 @@ def _find_source(finding: RoomFinding, fmt: Formatter) -> tuple[Action | None, b
             "no surface was measured" if not surfaces else
             "the measured surfaces are clear of the dew point: it may come from moments "
             "of higher humidity (cooking, drying laundry) or from water getting in"))
-    if obs.visible_mould_area_m2 > 0 and not any(
-            s.mould is not MouldState.BELOW for s in surfaces):
+    judged = [s for s in surfaces if s.mould is not MouldState.NOT_JUDGED]
+    if obs.mould_seen and not any(s.mould is not MouldState.BELOW for s in judged):
         first.append("mould is visible, but " + (
-            "no surface was measured" if not surfaces else
+            "no wall, ceiling, floor or frame was measured" if not judged else
             "the measured surfaces are below the mould limit today: look for a leak, damp "
             "coming through the wall, or times of higher humidity"))
     if obs.odour:
         later.append("a musty smell, which can mean hidden mould behind linings, under "
                      "floors or in voids")
-    if finding.humidity_class is not None:
-        wet_room = finding.use in ("kitchen", "bathroom")
-        high = th.value("humidity_class_high") + (1 if wet_room else 0)
-        if finding.humidity_class >= high:
-            keys += ["humidity_class_high", *th.HUMIDITY_CLASS_KEYS]
-            values.update(vapour_pressure_excess_pa=finding.vapour_pressure_excess_pa,
-                          humidity_class=finding.humidity_class)
-            later.append(
-                f"the room air holds {fmt('vapour_pressure', finding.vapour_pressure_excess_pa)}"
-                f" more vapour pressure than outdoors, "
-                f"{th.humidity_class_text(finding.humidity_class)} of EN ISO 13788 — more "
-                f"than {_USE_PHRASE[finding.use]} should produce (look for laundry drying indoors, "
-                f"unflued heaters, a blocked or missing extract, or a leak)")
+    # While a room is being dried its air is humid from the drying itself: the humidity
+    # class says nothing about a hidden source then.
+    high_class, maybe_high = (None, None) if drying else _class_reason(finding, fmt)
+    if high_class is not None or maybe_high is not None:
+        keys_class = ["humidity_class_high", *th.HUMIDITY_CLASS_KEYS, "coverage_factor"]
+    if high_class is not None:
+        keys += keys_class
+        values.update(vapour_pressure_excess_pa=finding.vapour_pressure_excess_pa,
+                      humidity_class=finding.humidity_class)
+        later.append(high_class)
+
+    find_source = None
     reasons = first + later
-    if not reasons:
-        return None, False
-    text = ("Find and deal with the source of moisture before drying or decorating: "
-            + "; ".join(reasons) + ".")
-    return Action(ActionKind.FIND_SOURCE, text, values, tuple(dict.fromkeys(keys))), bool(first)
+    if reasons:
+        text = ("Find and deal with the source of moisture before drying or decorating: "
+                + "; ".join(reasons) + ".")
+        find_source = Action(ActionKind.FIND_SOURCE, text, values, tuple(dict.fromkeys(keys)))
+
+    keep_drying = None
+    if drying and (wet or decaying or damp_timber):
+        drying_keys.insert(0, "dry_standard_tolerance_fraction")
+        tolerance = th.value("dry_standard_tolerance_fraction")
+        parts = []
+        if wet:
+            parts.append("these readings are still above the dry standard (the same material "
+                         "in an unaffected area, allowing "
+                         f"{tolerance * 100:.0f} %): " + _wet_materials_text(wet))
+        if damp_timber:
+            drying_keys.append("timber_mould_mc_pct")
+            parts.append("timber is still wetter than the room air explains (" + ", ".join(
+                f"{m.label} {m.value:g} % against {m.emc_pct:.1f} %" for m in damp_timber)
+                + ")")
+        parts += drying_notes
+        text = ("Continue drying until readings reach the dry standard: " + "; ".join(parts)
+                + ". Keep the drying equipment running, take readings at the same spots on "
+                  "each visit, and do not close up, refit or decorate until every reading is "
+                  "there. If readings stop falling from one visit to the next, look for water "
+                  "still getting in.")
+        drying_values = {
+            "materials_above_dry_standard": len(wet),
+            "materials": [{"label": m.label, "material": m.material, "scale": m.scale,
+                           "value": m.value, "dry_standard": m.dry_standard,
+                           "dry_at_or_below": m.dry_standard * (1.0 + tolerance)}
+                          for m in wet]}
+        keep_drying = Action(ActionKind.KEEP_DRYING, text, drying_values,
+                             tuple(dict.fromkeys(drying_keys)))
+
+    repeat = None
+    if maybe_high is not None:
+        repeat = Action(ActionKind.REPEAT_READINGS, maybe_high,
+                        {"vapour_pressure_excess_pa": finding.vapour_pressure_excess_pa,
+                         "vapour_pressure_excess_uncertainty_pa":
+                             finding.vapour_pressure_excess_uncertainty_pa,
+                         "humidity_class": finding.humidity_class,
+                         "humidity_class_possible": list(finding.humidity_class_possible)},
+                        tuple(dict.fromkeys(keys_class)))
+    return _SourceFindings(find_source, bool(first), keep_drying, repeat)
 
 
 # --- cautions ----------------------------------------------------------------------------------
+
+def _mould_caution(area: float) -> Caution:
+    small = th.value("mould_area_small_m2")
+    large = th.value("mould_area_large_m2")
+    keys = ("mould_area_small_m2", "mould_area_large_m2")
+    medium = ("have it removed by someone trained, with gloves, goggles and at least an "
+              "FFP2 / N95 respirator, the area sealed off with plastic sheeting and the waste "
+              "bagged; keep occupants, above all vulnerable people, out during the work.")
+    if area <= 0.0:
+        text = (f"Visible mould, area not measured: measure it (up to about {small:.2g} m² is "
+                f"a small area, over about {large:.2g} m² a large one that needs a licensed "
+                f"or specialist mould remediation contractor). Until it is measured, treat it "
+                f"as a medium area: " + medium)
+    elif area <= small:
+        text = (f"Visible mould, about {area:.2g} m²: a small area. A careful adult can "
+                "clean it with detergent and water, wearing gloves, eye protection and a "
+                "disposable respirator (FFP2 / N95); wipe, do not dry-brush; bag the "
+                "waste. People with asthma, allergies or weak immune systems should not "
+                "do it. It returns unless the damp is cured.")
+    elif area <= large:
+        text = f"Visible mould, about {area:.2g} m²: a medium area. " + medium.capitalize()
+    else:
+        text = (f"Visible mould, about {area:.3g} m²: a large area. Call a licensed or "
+                "specialist mould remediation contractor: it needs full containment, "
+                "protective equipment and air filtration. Vulnerable occupants should "
+                "not stay in the area.")
+    return Caution("visible_mould", text, keys)
+
 
 def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int | None
               ) -> list[Caution]:
@@ -517,28 +964,8 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
     kinds = {a.kind for a in actions}
     out: list[Caution] = []
     area = obs.visible_mould_area_m2
-    if area > 0:
-        small = th.value("mould_area_small_m2")
-        large = th.value("mould_area_large_m2")
-        keys = ("mould_area_small_m2", "mould_area_large_m2")
-        if area <= small:
-            text = (f"Visible mould, about {area:.2g} m²: a small area. A careful adult can "
-                    "clean it with detergent and water, wearing gloves, eye protection and a "
-                    "disposable respirator (FFP2 / N95); wipe, do not dry-brush; bag the "
-                    "waste. People with asthma, allergies or weak immune systems should not "
-                    "do it. It returns unless the damp is cured.")
-        elif area <= large:
-            text = (f"Visible mould, about {area:.2g} m²: a medium area. Have it removed by "
-                    "someone trained, with gloves, goggles and at least an FFP2 / N95 "
-                    "respirator, the area sealed off with plastic sheeting and the waste "
-                    "bagged; keep occupants, above all vulnerable people, out during the "
-                    "work.")
-        else:
-            text = (f"Visible mould, about {area:.3g} m²: a large area. Call a licensed or "
-                    "specialist mould remediation contractor: it needs full containment, "
-                    "protective equipment and air filtration. Vulnerable occupants should "
-                    "not stay in the area.")
-        out.append(Caution("visible_mould", text, keys))
+    if obs.mould_seen:
+        out.append(_mould_caution(area))
     category = obs.water_category
     if category == 3:
         out.append(Caution("water_category_3",
@@ -556,8 +983,18 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
                            "follow the restoration standard of practice for what can be "
                            "dried and what must be removed. Left standing it can become "
                            "category 3.", ("water_category_2",)))
+    elif category == 1:
+        hours = th.value("water_category_1_degrades_h")
+        out.append(Caution("water_category_1",
+                           "Category 1 water (clean, e.g. from a burst supply pipe): dry it "
+                           "promptly. Left standing, or soaked into building materials, it "
+                           f"degrades to category 2 (commonly within about {hours:.0f} hours, "
+                           "sooner in a warm room), and then needs the category 2 precautions: "
+                           "gloves and eye protection, and some soaked materials removed "
+                           "rather than dried.",
+                           ("water_category_1_degrades_h", "water_category_2")))
     if (obs.electrics_near_water or obs.standing_water or category is not None
-            or ActionKind.DEHUMIDIFY in kinds):
+            or kinds & {ActionKind.DEHUMIDIFY, ActionKind.KEEP_DRYING}):
         out.append(Caution("electrics_near_water",
                            "Water and electricity: do not touch switches, sockets or "
                            "appliances that are wet or in standing water; have a qualified "
@@ -572,8 +1009,9 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
                            "combustion fumes), unsafe floors or joists, sharp fixings, pests "
                            "and live wiring. Local rules may require confined-space entry "
                            "procedures."))
-    drying = bool(kinds & {ActionKind.DEHUMIDIFY, ActionKind.RAISE_SURFACE_TEMPERATURE}) \
-        or category is not None or obs.standing_water
+    drying = bool(kinds & {ActionKind.DEHUMIDIFY, ActionKind.RAISE_SURFACE_TEMPERATURE,
+                           ActionKind.KEEP_DRYING}) \
+        or category is not None or obs.standing_water or obs.drying_in_progress
     if drying:
         water = th.value("propane_water_kg_per_kg")
         out.append(Caution("combustion_heaters",
@@ -582,8 +1020,11 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
                            "into the room, and they give off carbon monoxide. Use electric "
                            "heat, and fit a carbon monoxide alarm where any fuel-burning "
                            "appliance runs.", ("propane_water_kg_per_kg",)))
-    disturbing = bool(kinds & {ActionKind.RAISE_SURFACE_TEMPERATURE, ActionKind.FIND_SOURCE}) \
-        or area > th.value("mould_area_small_m2") or category in (2, 3)
+    disturbing = bool(kinds & {ActionKind.RAISE_SURFACE_TEMPERATURE, ActionKind.FIND_SOURCE,
+                               ActionKind.INSULATE_PIPE,
+                               ActionKind.REDUCE_GLAZING_CONDENSATION}) \
+        or area > th.value("mould_area_small_m2") or (obs.mould_seen and area <= 0.0) \
+        or category in (2, 3)
     if disturbing:
         asbestos = th.value("asbestos_possible_before_year")
         lead = th.value("lead_paint_possible_before_year")
@@ -599,8 +1040,8 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
                 f"Old materials: in a building {age}, have suspect materials checked for "
                 + " and ".join(risks) + " before drilling, cutting, sanding, stripping or "
                 "removing anything (linings, ceilings, floor tiles, pipe lagging, textured "
-                "coatings, old paint). Do not disturb suspect material; use a licensed "
-                "surveyor or contractor.",
+                "coatings, old paint, window putty). Do not disturb suspect material; use a "
+                "licensed surveyor or contractor.",
                 ("asbestos_possible_before_year", "lead_paint_possible_before_year")))
     out.append(CLOSING_CAUTION)
     return out
@@ -612,12 +1053,13 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
                 year_built: int | None = None, fmt: Formatter = si_text) -> RoomAdvice:
     """Ordered actions and cautions for one room.
 
-    Order: find the source first when liquid water is suspected; then ventilate or
-    dehumidify (whichever can do the job comes first); then raise surface temperatures;
-    a source suggested only by the humidity class or a smell comes last.
+    Order: find the source first when liquid water is suspected and no drying is under way;
+    keep drying while it is; then ventilate or dehumidify (whichever can do the job comes
+    first); then raise the temperature of walls, ceilings and floors (coldest first); then
+    windows and pipes; a source suggested only by the humidity class or a smell comes
+    after, and a humidity class the instruments cannot settle last.
     """
     air = finding.air
-    out = finding.outdoor
     target, basis, target_keys = _target(finding, target_rh_pct, fmt)
     design = (th.value("room_rh_target_default_pct") if target_rh_pct is None
               else target_rh_pct)
@@ -625,58 +1067,34 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
     moisture = moisture_generation(finding)
     actions: list[Action] = []
 
-    source, source_first = _find_source(finding, fmt)
-    if source is not None and source_first:
-        actions.append(source)
+    sources = _sources(finding, fmt)
+    if sources.find_source is not None and sources.find_source_first:
+        actions.append(sources.find_source)
+    if sources.keep_drying is not None:
+        actions.append(sources.keep_drying)
 
     if air.rh_pct > target:
-        margin = th.value("ventilation_outdoor_drier_margin_g_per_kg") / 1000.0
-        outdoor_drier = (out is not None and out.humidity_ratio_kg_per_kg
-                         <= target_air.humidity_ratio_kg_per_kg - margin)
-        if outdoor_drier:
-            ventilate, ach = _ventilate(finding, target, target_air, moisture, fmt)
-            ventilate = Action(ventilate.kind, f"Bring the room from {_pct(air.rh_pct)} "
-                               f"down to {basis} " + ventilate.reason,
-                               ventilate.values,
-                               tuple(dict.fromkeys(target_keys + ventilate.threshold_keys)))
-            actions.append(ventilate)
-            practical = th.value("ventilation_practical_max_ach")
-            if ach is not None and ach > practical:
-                why = (f"Ventilation alone needs {ach:.1f} air changes an hour, more than the "
-                       f"about {practical:g} that is practical: ventilate at {practical:g} "
-                       f"and let a dehumidifier do the rest.")
-                dehumidify = _dehumidify(finding, target, target_air, moisture, fmt, why,
-                                         air_changes_per_h=practical)
-                actions.append(Action(dehumidify.kind, dehumidify.reason, dehumidify.values,
-                                      dehumidify.threshold_keys
-                                      + ("ventilation_practical_max_ach",)))
-        else:
-            if out is None:
-                why = (f"Bring the room from {_pct(air.rh_pct)} down to {basis} "
-                       f"The outdoor air was not measured: if it is drier than "
-                       f"{fmt('humidity_ratio', target_air.humidity_ratio_kg_per_kg)}, "
-                       f"ventilation works too.")
-            else:
-                why = (f"Bring the room from {_pct(air.rh_pct)} down to {basis} "
-                       f"Outdoor air holds "
-                       f"{fmt('humidity_ratio', out.humidity_ratio_kg_per_kg)} of water, not "
-                       f"usefully less than the "
-                       f"{fmt('humidity_ratio', target_air.humidity_ratio_kg_per_kg)} of room "
-                       f"air at the target, so ventilating would not dry the room: keep "
-                       f"windows and doors to outside closed while dehumidifying.")
-            dehumidify = _dehumidify(finding, target, target_air, moisture, fmt, why)
-            extra = () if out is None else ("ventilation_outdoor_drier_margin_g_per_kg",)
-            actions.append(Action(dehumidify.kind, dehumidify.reason, dehumidify.values,
-                                  tuple(dict.fromkeys(target_keys + dehumidify.threshold_keys
-                                                      + extra))))
+        actions += _moisture_actions(finding, target, basis, target_keys, target_air,
+                                     moisture, fmt)
 
-    for surface in sorted(finding.surfaces, key=lambda s: s.surface_temp_c):
-        action = _raise_surface(finding, surface, design, fmt)
+    by_temperature = sorted(finding.surfaces, key=lambda s: s.surface_temp_c)
+    for surface in by_temperature:
+        if surface.policy.sets_room_target:
+            action = _raise_surface(finding, surface, design, fmt)
+            if action is not None:
+                actions.append(action)
+    for surface in by_temperature:
+        role = surface.policy.role
+        action = (_glazing(finding, surface, target, target_air, fmt) if role == "glazing"
+                  else _pipe(finding, surface, target, target_air, fmt) if role == "pipe"
+                  else None)
         if action is not None:
             actions.append(action)
 
-    if source is not None and not source_first:
-        actions.append(source)
+    if sources.find_source is not None and not sources.find_source_first:
+        actions.append(sources.find_source)
+    if sources.repeat_readings is not None:
+        actions.append(sources.repeat_readings)
 
     actions_t = tuple(actions)
     cautions = tuple(_cautions(finding, actions_t, year_built))

@@ -16,6 +16,16 @@ specific volume and the saturation slope) and skips the wet bulb, an iterative s
 assessment never needs. :meth:`RoomFinding.moist_air` gives
 the full :class:`~survey.psychro.MoistAir` when a face wants it.
 
+What each surface is judged by
+------------------------------
+A surface's ``element`` decides it (:data:`survey.thresholds.ELEMENT_POLICY`, our policy):
+the temperature factor only for the heated envelope (external walls, ceilings, floors, and
+surfaces whose kind is not said); the room's highest safe RH (``coldest``,
+``max_room_rh_pct*``) only from walls, ceilings and floors, internal walls included; glazing,
+window frames and pipes are judged for condensation (frames also for mould) and reported
+apart (``coldest_glazing_or_pipe``), since a cold pane or pipe calls for its own remedy, not
+for a drier room.
+
 Uncertainty
 -----------
 Each instrument has a ± accuracy (:class:`Accuracy`). Following the GUM (JCGM 100:2008), a ±a
@@ -50,9 +60,10 @@ from enum import Enum
 from functools import lru_cache
 from typing import Iterable, NamedTuple
 
-from survey import psychro
+from survey import domain, psychro
 from survey import thresholds as th
 from survey.errors import InputError
+from survey.psychro import _in_range as _number_in  # one range guard for the core
 
 _SQRT3 = math.sqrt(3.0)
 
@@ -85,6 +96,7 @@ class MouldState(_State):
     APPROACHING = ("approaching_limit", 1, "approaching the mould limit")
     ABOVE = ("above_limit", 2, "above the mould limit")
     CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
+    NOT_JUDGED = ("not_judged", None, "not judged for mould (glass or pipe)")
 
 
 class FactorState(_State):
@@ -93,6 +105,7 @@ class FactorState(_State):
     CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
     NOT_JUDGED = ("not_judged", None, "cannot be judged today")
     NOT_APPLICABLE = ("not_applicable", None, "no limit for this room use")
+    NOT_FOR_ELEMENT = ("not_for_element", None, "not used for this kind of surface")
 
 
 class DryStandardState(_State):
@@ -115,7 +128,9 @@ _FACTOR_ORDER = (FactorState.MEETS, FactorState.UNDER)
 
 # --- inputs ------------------------------------------------------------------------------------
 
-_ACCURACY_MAX = {"air_temp_k": 5.0, "rh_pct": 20.0, "surface_temp_k": 10.0}
+_ACCURACY_MAX = {"air_temp_k": domain.AIR_TEMP_ACCURACY_MAX_K,
+                 "rh_pct": domain.RH_ACCURACY_MAX_PCT,
+                 "surface_temp_k": domain.SURFACE_TEMP_ACCURACY_MAX_K}
 _ACCURACY_FIELD = {"air_temp_k": "air temperature accuracy", "rh_pct": "RH accuracy",
                    "surface_temp_k": "surface temperature accuracy"}
 
@@ -143,15 +158,21 @@ DEFAULT_ACCURACY = Accuracy()
 
 @dataclass(frozen=True, slots=True)
 class SurfaceInput:
-    """One measured surface: a label, what it is, and its temperature."""
+    """One measured surface: a label, its temperature, and what it is — one of
+    :data:`survey.thresholds.SURFACE_ELEMENTS`; ``"other"`` (not said) is judged as a wall,
+    ceiling or floor. What each element is judged by is
+    :data:`survey.thresholds.ELEMENT_POLICY`."""
 
     label: str
     surface_temp_c: float
-    element: str = "wall"
+    element: str = "other"
 
 
 #: Scales of a material moisture reading.
 MATERIAL_SCALES = ("mc_pct", "wme_pct", "relative")
+#: Highest material reading on any scale: the survey file model's bound, so that every
+#: reading a file may hold can be assessed.
+_MATERIAL_READING_MAX = 1000.0
 
 
 @dataclass(frozen=True, slots=True)
@@ -180,12 +201,19 @@ class Activity:
 class Observations:
     """What the surveyor saw, heard or smelt in the room."""
 
-    visible_mould_area_m2: float = 0.0
+    visible_mould_area_m2: float = 0.0  #: 0: none seen, or seen but not measured
     water_category: int | None = None  #: 1 clean, 2 significant, 3 gross contamination
     condensation_seen: bool = False
     standing_water: bool = False
     odour: bool = False
     electrics_near_water: bool = False
+    visible_mould: bool = False  #: mould seen (its area may not have been measured)
+    drying_in_progress: bool = False  #: drying equipment at work: the source is dealt with
+
+    @property
+    def mould_seen(self) -> bool:
+        """Mould was seen: flagged, or an area recorded."""
+        return self.visible_mould or self.visible_mould_area_m2 > 0.0
 
 
 @dataclass(frozen=True, slots=True)
@@ -295,6 +323,21 @@ class SurfaceFinding(NamedTuple):
         """Water or frost forms at the reading itself (surface RH 100 % or more)."""
         return self.surface_rh_pct >= 100.0
 
+    @property
+    def frost(self) -> bool:
+        """Frost, not water, forms at the reading: condensing on a surface below 0 °C."""
+        return self.surface_rh_pct >= 100.0 and self.surface_temp_c <= psychro.TRIPLE_POINT_C
+
+    @property
+    def below_freezing(self) -> bool:
+        """The surface is below 0 °C: what forms on it is frost."""
+        return self.surface_temp_c <= psychro.TRIPLE_POINT_C
+
+    @property
+    def policy(self) -> th.ElementPolicy:
+        """How this kind of surface is judged (:data:`survey.thresholds.ELEMENT_POLICY`)."""
+        return th.ELEMENT_POLICY[self.element]
+
 
 class MaterialFinding(NamedTuple):
     """A material reading against its dry standard and, for timber, the timber limits."""
@@ -323,11 +366,17 @@ class RoomFinding(NamedTuple):
     accuracy: Accuracy
     condensation_point_uncertainty_k: float  #: expanded, k = 2
     surfaces: tuple[SurfaceFinding, ...]
+    #: The coldest surface that can set the room RH: a wall, ceiling or floor (the element
+    #: policy's ``sets_room_target``); glazing, window frames and pipes never are.
     coldest: SurfaceFinding | None
     max_room_rh_pct_mould: float | None  #: coldest surface stays at or below 80 %
     max_room_rh_pct_margin: float | None  #: coldest surface stays 3 K above the dew point
     max_room_rh_low_pct: float | None  #: lower end of the ±U band of the binding limit
     max_room_rh_high_pct: float | None
+    #: The coldest glazing, window frame or pipe, judged apart from the room RH target.
+    coldest_glazing_or_pipe: SurfaceFinding | None
+    #: Highest room RH at which that surface stays clear of condensation (surface RH < 100 %).
+    max_room_rh_pct_dry_glazing_or_pipe: float | None
     vapour_pressure_excess_pa: float | None
     vapour_pressure_excess_uncertainty_pa: float | None  #: expanded, k = 2
     humidity_class: int | None  #: 1-5, 6 beyond class 5, None not judged
@@ -344,6 +393,21 @@ class RoomFinding(NamedTuple):
     def timber_emc_pct(self) -> float:
         """Moisture content timber settles at in this room's air (Wood Handbook eqn 4-5)."""
         return _emc(self.air.dry_bulb_c, self.air.rh_pct)
+
+    @property
+    def temperature_factor_not_judged_reason(self) -> str | None:
+        """Why the temperature factor cannot be judged today, in words; None when it can
+        be (or when the room use has no limit)."""
+        if th.FRSI_LIMIT_BY_USE[self.use].key is None:
+            return None
+        if self.outdoor is None:
+            return "no outdoor reading was given"
+        difference = self.air.dry_bulb_c - self.outdoor.dry_bulb_c
+        least = th.value("frsi_min_temperature_difference_k")
+        if difference < least:
+            return (f"the inside-outside difference is {difference:.1f} K, below the "
+                    f"{least:g} K needed")
+        return None
 
     @property
     def max_room_rh_pct(self) -> float | None:
@@ -470,7 +534,12 @@ _CONDENSATION_SPAN = _spans(_CONDENSATION_ORDER, CondensationState.CANNOT_TELL)
 _MOULD_SPAN = _spans(_MOULD_ORDER, MouldState.CANNOT_TELL)
 _FACTOR_SPAN = _spans(_FACTOR_ORDER, FactorState.CANNOT_TELL)
 _ONE_FACTOR = {s: (s,) for s in FactorState}
+_NOT_FOR_ELEMENT = FactorState.NOT_FOR_ELEMENT
+_NO_MOULD = MouldState.NOT_JUDGED
+_NO_MOULD_POSSIBLE = (MouldState.NOT_JUDGED,)
 _pws = psychro.sat_vapour_pressure_pa
+_POLICY = th.ELEMENT_POLICY
+_SETS_TARGET = frozenset(e for e, p in _POLICY.items() if p.sets_room_target)
 
 
 def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
@@ -479,6 +548,9 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
                                          <= psychro.SURFACE_TEMP_MAX_C):
         psychro.check_surface_temp(ts, f"surface temperature of {surface.label}")
         ts = float(ts)
+    policy = _POLICY.get(surface.element)
+    if policy is None:
+        policy = th.check_element(surface.element, f"element of surface {surface.label}")
     u_ts = ctx.u_ts
 
     # surface RH and its band, in log space: u²(ln RH_s) = u²(ln p_w) + (L(t_s) u_ts)²
@@ -486,10 +558,13 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
     spread = math.exp(ctx.k * math.sqrt(ctx.u_ln_pw_sq + (_dln_pws(ts) * u_ts) ** 2))
     rh_low = rh_s / spread
     rh_high = rh_s * spread
-    watch, limit = ctx.mould_watch, ctx.mould_limit
-    mould, mould_possible = _MOULD_SPAN[
-        _ABOVE if rh_low > limit else _APPROACHING if rh_low >= watch else _BELOW,
-        _ABOVE if rh_high > limit else _APPROACHING if rh_high >= watch else _BELOW]
+    if policy.mould_judged:
+        watch, limit = ctx.mould_watch, ctx.mould_limit
+        mould, mould_possible = _MOULD_SPAN[
+            _ABOVE if rh_low > limit else _APPROACHING if rh_low >= watch else _BELOW,
+            _ABOVE if rh_high > limit else _APPROACHING if rh_high >= watch else _BELOW]
+    else:
+        mould, mould_possible = _NO_MOULD, _NO_MOULD_POSSIBLE
 
     # margin to the condensation point and its band
     margin = ts - ctx.condensation_point_c
@@ -502,7 +577,11 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
 
     # temperature factor fRsi = (ts − te)/(ti − te) and its band
     d = ctx.delta_t
-    if d is None:
+    if not policy.temperature_factor:
+        factor = factor_u = None
+        factor_state = _NOT_FOR_ELEMENT
+        factor_possible = _ONE_FACTOR[factor_state]
+    elif d is None:
         factor = factor_u = None
         factor_state = ctx.factor_state_if_not_judged
         factor_possible = _ONE_FACTOR[factor_state]
@@ -516,9 +595,10 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
             _MEETS if factor + factor_u >= limit else _UNDER,
             _MEETS if factor - factor_u >= limit else _UNDER]
     return SurfaceFinding(
-        surface.label, surface.element, ts, rh_s, rh_low, rh_high, ctx.condensation_point_c,
+        surface.label, policy.element, ts, rh_s, rh_low, rh_high, ctx.condensation_point_c,
         margin, big_u, condensation, condensation_possible, mould, mould_possible,
-        factor, factor_u, ctx.factor_limit, factor_state, factor_possible, ctx.keys,
+        factor, factor_u, ctx.factor_limit if policy.temperature_factor else None,
+        factor_state, factor_possible, ctx.keys,
     )
 
 
@@ -538,7 +618,7 @@ def _material(reading: MaterialReading, emc_pct: float, air_c: float,
         raise InputError(f"{field} scale", reading.scale,
                          "expected mc_pct (timber moisture content, %), wme_pct (wood moisture "
                          "equivalent, %) or relative (the meter's own scale)")
-    top = 1000.0 if reading.scale == "relative" else 200.0
+    top = _MATERIAL_READING_MAX
     for name, number in (("reading", reading.value), ("dry standard", reading.dry_standard)):
         if number is None and name == "dry standard":
             continue
@@ -583,11 +663,6 @@ def _material(reading: MaterialReading, emc_pct: float, air_c: float,
 
 # --- rooms and site ----------------------------------------------------------------------------
 
-def _number_in(value: object, low: float, high: float) -> bool:
-    return (isinstance(value, (int, float)) and not isinstance(value, bool)
-            and math.isfinite(value) and low <= value <= high)
-
-
 def _check_room(room: RoomInput) -> str:
     """The room's canonical use, after checking what the psychrometric core does not."""
     try:
@@ -595,38 +670,38 @@ def _check_room(room: RoomInput) -> str:
     except InputError as exc:
         raise exc.with_field(f"room {room.name!r} use") from None
     obs = room.observations
-    if (room.volume_m3 is None or _number_in(room.volume_m3, 1.0, 100_000.0)) \
+    v_low, v_high = domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3
+    people = domain.OCCUPANTS_MAX
+    area_high = domain.MOULD_AREA_MAX_M2
+    area = obs.visible_mould_area_m2
+    if (room.volume_m3 is None or _number_in(room.volume_m3, v_low, v_high)) \
             and (room.occupants is None or (room.occupants.__class__ is int
-                                            and 0 <= room.occupants <= 500)) \
+                                            and 0 <= room.occupants <= people)) \
             and not room.activities and obs.water_category in (None, 1, 2, 3) \
-            and _number_in(obs.visible_mould_area_m2, 0.0, 100_000.0):
+            and ((area.__class__ is float and 0.0 <= area <= area_high)
+                 or _number_in(area, 0.0, area_high)):
         return use
     where = f"room {room.name!r}"
-    if room.volume_m3 is not None and not _number_in(room.volume_m3, 1.0, 100_000.0):
-        raise InputError(f"{where} volume", room.volume_m3, "must be between 1 and 100000 m³")
+    if room.volume_m3 is not None and not _number_in(room.volume_m3, v_low, v_high):
+        raise InputError(f"{where} volume", room.volume_m3,
+                         f"must be between {v_low:g} and {v_high:g} m³")
     n = room.occupants
-    if n is not None and (n.__class__ is not int or not 0 <= n <= 500):
-        raise InputError(f"{where} occupants", n, "must be a whole number from 0 to 500")
+    if n is not None and (n.__class__ is not int or not 0 <= n <= people):
+        raise InputError(f"{where} occupants", n, f"must be a whole number from 0 to {people}")
+    hours = domain.ACTIVITY_HOURS_MAX
     for activity in room.activities:
         if activity.kind not in th.ACTIVITY_RATE:
             raise InputError(f"{where} activity", activity.kind,
                              "expected one of " + ", ".join(th.ACTIVITY_RATE))
-        if not _number_in(activity.hours_per_day, 0.0, 24.0):
+        if not _number_in(activity.hours_per_day, 0.0, hours):
             raise InputError(f"{where} {activity.kind} hours per day", activity.hours_per_day,
-                             "must be between 0 and 24")
+                             f"must be between 0 and {hours:g}")
     if obs.water_category not in (None, 1, 2, 3):
         raise InputError(f"{where} water category", obs.water_category, "expected 1, 2 or 3")
-    if not _number_in(obs.visible_mould_area_m2, 0.0, 100_000.0):
+    if not _number_in(obs.visible_mould_area_m2, 0.0, area_high):
         raise InputError(f"{where} visible mould area", obs.visible_mould_area_m2,
-                         "must be between 0 and 100000 m²")
+                         f"must be between 0 and {area_high:g} m²")
     return use
-
-
-def _class_of(excess_pa: float, limits: tuple[float, ...]) -> int:
-    for number, limit in enumerate(limits, start=1):
-        if excess_pa <= limit:
-            return number
-    return th.BEYOND_CLASS_5
 
 
 def _humidity_class(air: AirState, outdoor: AirState, accuracy: Accuracy, k: float,
@@ -643,9 +718,10 @@ def _humidity_class(air: AirState, outdoor: AirState, accuracy: Accuracy, k: flo
     big_u = k * math.sqrt(terms)
     if limits is None:
         return excess, big_u, None, ()
-    low = _class_of(excess - big_u, limits)
-    high = _class_of(excess + big_u, limits)
-    return excess, big_u, _class_of(excess, limits), tuple(range(low, high + 1))
+    low = th.humidity_class_in(excess - big_u, limits)
+    high = th.humidity_class_in(excess + big_u, limits)
+    return (excess, big_u, th.humidity_class_in(excess, limits),
+            tuple(range(low, high + 1)))
 
 
 _CLASS_KEYS = (*th.HUMIDITY_CLASS_KEYS, "humidity_class_flat_below_c", "humidity_class_zero_at_c")
@@ -668,10 +744,18 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
     surfaces = tuple([_surface(ctx, s) for s in room.surfaces])
     keys = ctx.keys if outdoor is None else _with_class_keys(ctx.keys)
 
-    coldest = None
-    rh_mould = rh_margin = rh_low = rh_high = None
-    if surfaces:
-        coldest = min(surfaces, key=_surface_temp)
+    coldest = other = None
+    rh_mould = rh_margin = rh_low = rh_high = rh_dry_other = None
+    setting = surfaces
+    if surfaces and not {s.element for s in surfaces} <= _SETS_TARGET:
+        setting = [s for s in surfaces if s.element in _SETS_TARGET]
+        others = [s for s in surfaces if s.element not in _SETS_TARGET]
+        other = min(others, key=_surface_temp)
+        # Clear of condensation while the surface RH stays below 100 %: the same relation
+        # as below with the limit at 100 %.
+        rh_dry_other = min(100.0, air.rh_pct * 100.0 / other.surface_rh_pct)
+    if setting:
+        coldest = min(setting, key=_surface_temp)
         ts = coldest.surface_temp_c
         # psychro.max_room_rh_pct's relation, RH_max = limit · p_ws(t_s) / p_ws,water(t_i)
         # (the vapour pressure is the same at the surface and in the room; pressure cancels).
@@ -709,8 +793,8 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
         keys = keys + tuple(sorted(extra - set(keys)))
     return RoomFinding(
         room, use, air, outdoor, accuracy, limits.k * ctx.u_tc, surfaces, coldest,
-        rh_mould, rh_margin, rh_low, rh_high, excess, excess_u, number, possible, materials,
-        th.FRSI_LIMIT_BY_USE[use].key, keys,
+        rh_mould, rh_margin, rh_low, rh_high, other, rh_dry_other, excess, excess_u, number,
+        possible, materials, th.FRSI_LIMIT_BY_USE[use].key, keys,
     )
 
 

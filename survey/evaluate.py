@@ -6,6 +6,10 @@ so the report, the app and the command line all judge a stored visit the same wa
 
 * air, surface and material readings of each room visited, with the room's use, volume and
   occupants;
+* what was seen: visible mould (on the room or on any surface, with its area when
+  measured), condensation, odour, the water category, and whether drying equipment is
+  running in the room (then readings above the dry standard mean "keep drying", not "find
+  the source");
 * the instruments' accuracies where the survey records them (the least accurate instrument
   used in a room counts for that room), the typical defaults of :mod:`survey.thresholds`
   where it does not — and which were used is reported;
@@ -37,6 +41,16 @@ class VisitAssessment:
     advice: advise.SiteAdvice
     room_ids: tuple[str, ...]  #: the survey room id of each finding, in order
     accuracy_entered: dict[str, bool]  #: which accuracies came from the survey's instruments
+
+
+#: Equipment that, running in a room, means the room is being dried (the source dealt with).
+DRYING_EQUIPMENT = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier",
+                              "air_mover", "heater"})
+
+
+def drying_in_progress(room_visit: model.RoomVisit) -> bool:
+    """Whether the room is being dried on this visit: drying equipment running in it."""
+    return any(e.running and e.kind in DRYING_EQUIPMENT for e in room_visit.equipment)
 
 
 def is_timber(material: str) -> bool:
@@ -103,12 +117,15 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
     surfaces = tuple(assess.SurfaceInput(s.location, s.surface_temp_c, s.element)
                      for s in room_visit.surfaces)
     seen = room_visit.observations
+    mould_visible = seen.mould_visible or any(s.mould_visible for s in room_visit.surfaces)
     observations = assess.Observations(
-        visible_mould_area_m2=(seen.mould_area_m2 or 0.0) if seen.mould_visible else 0.0,
+        visible_mould_area_m2=(seen.mould_area_m2 or 0.0) if mould_visible else 0.0,
+        visible_mould=mould_visible,
         water_category=seen.water_category,
         condensation_seen=seen.condensation_seen
         or any(s.condensation_seen for s in room_visit.surfaces),
         odour=seen.odour not in (None, "none"),
+        drying_in_progress=drying_in_progress(room_visit),
     )
     instruments = [room_visit.air.instrument, *(s.instrument for s in room_visit.surfaces)]
     return assess.RoomInput(

@@ -11,15 +11,23 @@ Loggers write CSV in many dialects. This reader finds its way through the common
   absolute-humidity and other columns are ignored;
 * the temperature unit from the header (°C, C, degC, Celsius, °F, F, degF, Fahrenheit) or a
   units row just under it; °F is converted with t_C = (t_F − 32) × 5/9, the definition of
-  the Fahrenheit scale. A header without a unit needs the unit stated by the caller;
+  the Fahrenheit scale. A header without a unit needs the unit stated by the caller; a unit
+  stated against the header's wins, and the result's notes say so;
+* RH in percent, or written as fractions (``0.65``): when every RH value in the file is at
+  most 1 they are read as fractions × 100 (and the notes say so); when only some rows are
+  below 1 % among percentages, those rows are skipped as looking like fractions;
 * times in ISO 8601 (``2025-01-15 10:00:00``, ``2025-01-15T10:00``), or as ``15/01/2025 10:00``,
   ``01/15/2025 10:00:00 AM``, ``15.01.2025 10:00``. Whether ``03/04/2025`` is day/month or
-  month/day is settled by any day above 12 in the file; if none is, the caller must say.
+  month/day is settled by any day above 12 in the file, counting only dates that are real in
+  one of the orders (a row such as ``13/15/2025`` is skipped, not taken as evidence); if no
+  date settles it, or dates contradict each other, the caller must say. Times with and
+  without a UTC offset are not mixed: the kind most rows have is kept.
 
 Every data row that cannot be used is reported with its line number and the reason (empty
-value, not a number, out of the reading range, a repeated time, no time); nothing is
-silently dropped. Errors in what the caller asked for raise
-:class:`~survey.errors.InputError`.
+value, not a number, out of the reading range, a repeated time, no time, a line far too
+long to be a logger row); nothing is silently dropped. Whatever the bytes, the reader
+returns a result or raises :class:`~survey.errors.InputError` — for what the caller asked
+for and for a file that cannot be used at all — and nothing else.
 """
 
 from __future__ import annotations
@@ -35,7 +43,7 @@ from typing import Literal
 
 from survey.errors import InputError
 from survey.model import LogSample
-from survey.psychro import DRY_BULB_MAX_C, DRY_BULB_MIN_C
+from survey.psychro import DRY_BULB_MAX_C, DRY_BULB_MIN_C, RH_MIN_PCT
 
 TempUnit = Literal["c", "f"]
 DateOrder = Literal["dmy", "mdy", "ymd"]
@@ -63,13 +71,18 @@ class LoggerData:
     temperature_column: str
     rh_column: str
     temperature_unit: TempUnit
-    unit_source: str  #: where the unit came from: "header", "units row" or "stated"
+    #: Where the unit came from: "header", "units row" (agreeing with ``--temp-unit`` if
+    #: given) or "stated" (``--temp-unit`` alone, or against the header: see ``notes``).
+    unit_source: str
     date_order: DateOrder | None
     delimiter: str
     encoding: str
     header_line: int
     sha256: str
     reordered: bool = False  #: rows were not in time order and have been sorted
+    rh_as_fraction: bool = False  #: every RH was at most 1, read as a fraction × 100
+    #: Things the person importing should know (a unit given against the header's, RH read
+    #: as fractions), one sentence each.
     notes: list[str] = field(default_factory=list)
 
     @property
@@ -88,7 +101,7 @@ class LoggerData:
 
 def _decode_text(data: bytes) -> tuple[str, str]:
     if data.startswith((b"\xff\xfe", b"\xfe\xff")):
-        return data.decode("utf-16"), "UTF-16"
+        return data.decode("utf-16", errors="replace"), "UTF-16"
     if data.startswith(b"\xef\xbb\xbf"):
         return data[3:].decode("utf-8", errors="replace"), "UTF-8"
     try:
@@ -153,9 +166,18 @@ class _Layout:
 
 
 def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
+    """The header's layout and every row, for the separator whose header comes first.
+
+    Raises :class:`_CsvProblem` when no separator finds a header and some could not read
+    the file as CSV at all."""
     best = None
+    problem: _CsvProblem | None = None
     for delimiter in _DELIMITERS:
-        rows = list(csv.reader(io.StringIO(text), delimiter=delimiter))
+        try:
+            rows = _parse_rows(text, delimiter)
+        except _CsvProblem as exc:
+            problem = problem or exc
+            continue
         for index, row in enumerate(rows[:HEADER_SEARCH_LINES]):
             names = [_norm(cell) for cell in row]
             if len(names) < 3:
@@ -175,6 +197,8 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
             if best is None or index < best[0].header_index:
                 best = (layout, rows)
             break
+    if best is None and problem is not None:
+        raise problem
     return best
 
 
@@ -246,29 +270,105 @@ def _parse_time(text: str, order: DateOrder | None) -> dt.datetime | None:
         return None
 
 
-def _detect_date_order(values: list[str]) -> DateOrder | None | Literal["ambiguous"]:
-    """``None`` when every time is year-first (or ISO); else the order the data shows."""
-    first_big = second_big = False
-    any_short = False
-    for text in values:
+def _orders_possible(m: re.Match[str]) -> set[DateOrder]:
+    """The orders in which a short date such as ``03/04/2025`` is a real calendar date."""
+    possible: set[DateOrder] = set()
+    for order in ("dmy", "mdy"):
+        try:
+            _build_time(m, order)  # type: ignore[arg-type]
+        except ValueError:
+            continue
+        possible.add(order)  # type: ignore[arg-type]
+    return possible
+
+
+_ORDER_WORDS = {"dmy": "day/month/year", "mdy": "month/day/year", "ymd": "year/month/day"}
+
+
+def _detect_date_order(values: list[tuple[int, str]]) -> tuple[
+        DateOrder | None | Literal["ambiguous", "conflict"], list[tuple[int, str]]]:
+    """The date order the rows show, from the rows whose date is possible in some order.
+
+    Returns ``(order, examples)``: ``None`` when every time is year-first (or ISO);
+    ``"dmy"``/``"mdy"`` when some row settles it and none contradicts it; ``"ambiguous"``
+    when every date could be either (``examples`` holds one); ``"conflict"`` when some dates
+    are only possible day first and others only month first (``examples`` holds one of
+    each). A date impossible in both orders (``13/15/2025``) is left out; its row is
+    skipped later with a reason.
+    """
+    only: dict[str, tuple[int, str] | None] = {"dmy": None, "mdy": None}
+    first_short: tuple[int, str] | None = None
+    for line, text in values:
         m = _date_fields(text)
         if m is None or len(m["a"]) == 4:
             continue
-        any_short = True
-        first_big |= int(m["a"]) > 12
-        second_big |= int(m["b"]) > 12
-    if not any_short:
-        return None
-    if first_big and not second_big:
-        return "dmy"
-    if second_big and not first_big:
-        return "mdy"
-    return "ambiguous"
+        possible = _orders_possible(m)
+        if not possible:
+            continue
+        if first_short is None:
+            first_short = (line, text)
+        if len(possible) == 1:
+            (order,) = possible
+            if only[order] is None:
+                only[order] = (line, text)
+    if first_short is None:
+        return None, []
+    if only["dmy"] and only["mdy"]:
+        return "conflict", [only["dmy"], only["mdy"]]
+    if only["dmy"]:
+        return "dmy", []
+    if only["mdy"]:
+        return "mdy", []
+    return "ambiguous", [first_short]
 
 
 def _show(text: str) -> str:
     text = _clean(text)
     return repr(text if len(text) <= 30 else text[:27] + "...")
+
+
+#: A physical line longer than this is no logger row (a logger's row is well under 200
+#: characters); it is set aside before the CSV is parsed, which also keeps every field under
+#: the csv module's own limit of 131 072 characters.
+MAX_LINE_CHARS = 10_000
+
+
+def _set_aside_long_lines(text: str) -> tuple[str, list[tuple[int, int]]]:
+    """``text`` with over-long lines emptied (line numbers kept), and ``(line, length)``
+    of each."""
+    if len(text) <= MAX_LINE_CHARS:
+        return text, []
+    lines = text.split("\n")
+    long_lines = []
+    for index, line in enumerate(lines):
+        if len(line) > MAX_LINE_CHARS:
+            long_lines.append((index + 1, len(line)))
+            lines[index] = ""
+    return ("\n".join(lines), long_lines) if long_lines else (text, [])
+
+
+class _CsvProblem(Exception):
+    def __init__(self, line: int, detail: str) -> None:
+        super().__init__(detail)
+        self.line = line
+        self.detail = detail
+
+
+def _parse_rows(text: str, delimiter: str) -> list[list[str]]:
+    reader = csv.reader(io.StringIO(text), delimiter=delimiter)
+    try:
+        return list(reader)
+    except csv.Error as exc:
+        raise _CsvProblem(reader.line_num, str(exc)) from None
+
+
+@dataclass
+class _Candidate:
+    line: int
+    when: dt.datetime
+    t_c: float
+    t_shown: str
+    rh: float
 
 
 # --- the reader --------------------------------------------------------------------------
@@ -278,9 +378,11 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     """Read a logger's CSV export (the file's bytes) into samples and skipped rows.
 
     ``temp_unit`` ("c" or "f") is needed when the header does not state the unit and
-    overrides it when it does; ``date_order`` is needed when the dates are ambiguous.
-    Raises :class:`~survey.errors.InputError` when no usable header is found, the unit or
-    date order is unknown, or no row at all can be used.
+    overrides it when it does (the result's notes say so); ``date_order`` is needed when
+    the dates are ambiguous. Raises :class:`~survey.errors.InputError` (field ``--csv``,
+    ``--temp-unit`` or ``--date-order``) when the file cannot be read as CSV, no usable
+    header is found, the unit or date order is unknown, or no row at all can be used.
+    Nothing else escapes, whatever the bytes.
     """
     if temp_unit not in (None, "c", "f"):
         raise InputError("--temp-unit", temp_unit, "c (°C) or f (°F)")
@@ -288,7 +390,14 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
         raise InputError("--date-order", date_order, "dmy, mdy or ymd")
     digest = hashlib.sha256(data).hexdigest()
     text, encoding = _decode_text(data)
-    found = _find_layout(text)
+    # CR LF and a lone CR (old Mac exports) end lines as LF does.
+    text = text.replace("\r\n", "\n").replace("\r", "\n")
+    text, long_lines = _set_aside_long_lines(text)
+    try:
+        found = _find_layout(text)
+    except _CsvProblem as exc:
+        raise InputError("--csv", f"(line {exc.line})", f"cannot be read as CSV: "
+                                                        f"{exc.detail}") from None
     if found is None:
         first = next((line for line in text.splitlines() if line.strip()), "")
         raise InputError(
@@ -299,7 +408,7 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     names = layout.names
     data_rows = rows[layout.header_index + 1:]
     first_line = _line_numbers(text, layout.delimiter)
-    unit_source = "stated"
+    notes: list[str] = []
     header_unit = _unit_in(names[layout.temp_col])
     unit_row = False
     if data_rows and len(data_rows[0]) > layout.temp_col:
@@ -307,53 +416,74 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
         if _parse_number(below) is None and _unit_in(below) is not None and header_unit is None:
             header_unit = _unit_in(below)
             unit_row = True
+    where_unit = "units row" if unit_row else "header"
     if temp_unit is None:
         if header_unit is None:
             raise InputError(
                 "--temp-unit", "(not given)",
                 f"the temperature column {names[layout.temp_col].strip()!r} does not say its "
                 "unit; give --temp-unit c or --temp-unit f")
-        temp_unit = header_unit
-        unit_source = "units row" if unit_row else "header"
+        temp_unit, unit_source = header_unit, where_unit
+    elif header_unit is None:
+        unit_source = "stated"
+    elif header_unit == temp_unit:
+        unit_source = where_unit
+    else:
+        unit_source = "stated"
+        said, given = ("°F", "°C") if header_unit == "f" else ("°C", "°F")
+        notes.append(f"The {where_unit} says {said}; --temp-unit {temp_unit} was given: the "
+                     f"temperatures are read as {given}.")
     if unit_row:
         data_rows = data_rows[1:]
     row_offset = layout.header_index + 1 + (1 if unit_row else 0)
 
+    def line_of(n: int) -> int:
+        index = row_offset + n
+        return first_line[index] if index < len(first_line) else 0
+
     def time_text(row: list[str]) -> str:
         return " ".join(_clean(row[i]) for i in layout.time_cols if i < len(row))
 
-    detected = _detect_date_order([time_text(r) for r in data_rows if r])
-    if detected == "ambiguous":
-        if date_order is None:
-            sample = next((time_text(r) for r in data_rows if r and _date_fields(time_text(r))), "")
+    order: DateOrder | None = date_order
+    if date_order is None:
+        detected, examples = _detect_date_order(
+            [(line_of(n), time_text(r)) for n, r in enumerate(data_rows) if r])
+        if detected == "ambiguous":
+            (line, sample), = examples
             raise InputError(
-                "--date-order", _show(sample),
-                "dates such as this could be day/month/year or month/day/year and no day "
-                "above 12 settles it; give --date-order dmy or --date-order mdy")
-        order: DateOrder | None = date_order
-    elif detected is None:
-        order = date_order
-    else:
-        order = date_order or detected
+                "--date-order", "(not given)",
+                f"dates such as {_show(sample)} (line {line}) could be day/month/year or "
+                "month/day/year and no day above 12 settles it; give --date-order dmy or "
+                "--date-order mdy")
+        if detected == "conflict":
+            (dmy_line, dmy_text), (mdy_line, mdy_text) = examples
+            raise InputError(
+                "--date-order", "(not given)",
+                f"the dates contradict each other: {_show(dmy_text)} (line {dmy_line}) is "
+                f"only possible as day/month/year, {_show(mdy_text)} (line {mdy_line}) only "
+                "as month/day/year; give --date-order dmy or --date-order mdy")
+        if detected in ("dmy", "mdy"):
+            order = detected  # type: ignore[assignment]
 
-    samples: list[LogSample] = []
-    skipped: list[SkippedRow] = []
-    seen: dict[dt.datetime, int] = {}
+    skipped: list[SkippedRow] = [
+        SkippedRow(line, f"the line is {length} characters long, longer than any logger row")
+        for line, length in long_lines if line > first_line[layout.header_index]]
+    candidates: list[_Candidate] = []
     need = max(layout.temp_col, layout.rh_col, *layout.time_cols) + 1
     for n, row in enumerate(data_rows):
-        line = first_line[row_offset + n] if row_offset + n < len(first_line) else 0
+        line = line_of(n)
         if not any(cell.strip() for cell in row):
             continue  # blank line
         if len(row) < need:
             skipped.append(SkippedRow(line, f"only {len(row)} columns, {need} needed"))
             continue
         when_text = time_text(row)
-        when = _parse_time(when_text, order)
-        if when is None and not when_text.strip():
+        if not when_text.strip():
             skipped.append(SkippedRow(line, "no time given"))
             continue
+        when, why = _parse_time_or_reason(when_text, order)
         if when is None:
-            skipped.append(SkippedRow(line, f"time {_show(when_text)} is not a date and time"))
+            skipped.append(SkippedRow(line, why))
             continue
         raw_t, raw_rh = row[layout.temp_col], row[layout.rh_col]
         if not _clean(raw_t):
@@ -371,40 +501,81 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
             skipped.append(SkippedRow(line, f"RH {_show(raw_rh)} is not a number"))
             continue
         t_c = (t - 32.0) * 5.0 / 9.0 if temp_unit == "f" else t
-        t_c = round(t_c, 4)
-        if not DRY_BULB_MIN_C <= t_c <= DRY_BULB_MAX_C:
-            unit = "°F" if temp_unit == "f" else "°C"
-            skipped.append(SkippedRow(line, f"temperature {t:g} {unit} is outside "
-                                            f"{DRY_BULB_MIN_C:g}…{DRY_BULB_MAX_C:g} °C"))
+        unit = "°F" if temp_unit == "f" else "°C"
+        candidates.append(_Candidate(line, when, round(t_c, 4), f"{t:g} {unit}", rh))
+
+    # RH written as fractions (0.65 for 65 %): all of them, or a few rows among percentages.
+    as_fraction = bool(candidates) and all(c.rh <= 1.0 for c in candidates)
+    if as_fraction:
+        notes.append("Every RH value is at most 1: they were read as fractions and "
+                     "multiplied by 100 (0.65 → 65 %).")
+    # Times with and without a UTC offset cannot be put in one order: the kind most rows
+    # have wins and the others are skipped.
+    aware = sum(c.when.utcoffset() is not None for c in candidates)
+    keep_aware = aware * 2 > len(candidates)
+
+    samples: list[LogSample] = []
+    seen: dict[dt.datetime, int] = {}
+    for c in candidates:
+        rh = round(c.rh * 100.0, 6) if as_fraction else c.rh
+        offset = c.when.utcoffset()
+        if (offset is not None) != keep_aware:
+            skipped.append(SkippedRow(c.line, (
+                "the time has no UTC offset, unlike most rows" if offset is None
+                else "the time carries a UTC offset, unlike most rows")))
             continue
-        if not 0.0 < rh <= 100.0:
-            skipped.append(SkippedRow(line, f"RH {rh:g} % is outside the range above 0 and at "
-                                            "most 100 %"))
+        if offset is not None and offset % dt.timedelta(minutes=1):
+            skipped.append(SkippedRow(c.line, "the time's UTC offset is not a whole number "
+                                              "of minutes"))
             continue
-        if when in seen:
-            skipped.append(SkippedRow(line, f"same time as line {seen[when]}"))
+        if not DRY_BULB_MIN_C <= c.t_c <= DRY_BULB_MAX_C:
+            skipped.append(SkippedRow(c.line, f"temperature {c.t_shown} is outside "
+                                              f"{DRY_BULB_MIN_C:g}…{DRY_BULB_MAX_C:g} °C"))
             continue
-        seen[when] = line
-        samples.append(LogSample(at=when, dry_bulb_c=t_c, rh_pct=rh))
+        if 0.0 < rh < 1.0 and not as_fraction:
+            skipped.append(SkippedRow(c.line, f"RH {rh:g}: RH below 1 % looks like a "
+                                              "fraction (other rows are in %)"))
+            continue
+        if not RH_MIN_PCT <= rh <= 100.0:
+            skipped.append(SkippedRow(c.line, f"RH {rh:g} % is outside the range "
+                                              f"{RH_MIN_PCT:g} to 100 %"))
+            continue
+        if c.when in seen:
+            skipped.append(SkippedRow(c.line, f"same time as line {seen[c.when]}"))
+            continue
+        seen[c.when] = c.line
+        samples.append(LogSample(at=c.when, dry_bulb_c=c.t_c, rh_pct=rh))
+    skipped.sort(key=lambda row: row.line)
     if not samples:
         reasons = "; ".join(f"line {s.line}: {s.reason}" for s in skipped[:3])
         raise InputError("--csv", f"({len(data_rows)} data rows)",
                          "no row could be imported" + (f" ({reasons})" if reasons else ""))
     reordered = any(b.at < a.at for a, b in zip(samples, samples[1:]))
     if reordered:
-        try:
-            samples.sort(key=lambda s: s.at)
-        except TypeError:  # times with and without a UTC offset in one file
-            raise InputError("--csv", "(mixed times)", "some times carry a UTC offset and "
-                                                       "some do not") from None
+        samples.sort(key=lambda s: s.at)
     return LoggerData(
         samples=samples, skipped=skipped,
         time_columns=tuple(names[i].strip() for i in layout.time_cols),
         temperature_column=names[layout.temp_col].strip(), rh_column=names[layout.rh_col].strip(),
         temperature_unit=temp_unit, unit_source=unit_source, date_order=order,
         delimiter=layout.delimiter, encoding=encoding, header_line=first_line[layout.header_index],
-        sha256=digest, reordered=reordered,
+        sha256=digest, reordered=reordered, rh_as_fraction=as_fraction, notes=notes,
     )
+
+
+def _parse_time_or_reason(text: str, order: DateOrder | None) -> tuple[dt.datetime | None, str]:
+    """The time in ``text``, or ``None`` and why it is not one."""
+    when = _parse_time(text, order)
+    if when is not None:
+        return when, ""
+    m = _date_fields(_clean(text))
+    if m is not None and len(m["a"]) != 4:
+        if order is None and not _orders_possible(m):
+            return None, (f"time {_show(text)} is not a real date as day/month/year nor as "
+                          "month/day/year")
+        if order is not None:
+            return None, f"time {_show(text)} is not a real date read as {_ORDER_WORDS[order]}"
+    return None, f"time {_show(text)} is not a date and time"
 
 
 def _line_numbers(text: str, delimiter: str) -> list[int]:
@@ -412,7 +583,10 @@ def _line_numbers(text: str, delimiter: str) -> list[int]:
     starts = []
     reader = csv.reader(io.StringIO(text), delimiter=delimiter)
     line = 1
-    for _row in reader:
-        starts.append(line)
-        line = reader.line_num + 1
+    try:
+        for _row in reader:
+            starts.append(line)
+            line = reader.line_num + 1
+    except csv.Error:  # the rows were read with the same reader settings: cannot happen
+        pass
     return starts

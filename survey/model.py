@@ -17,8 +17,11 @@ Conventions
   behind.
 * Choices are lowercase snake-case strings (``"external_wall"``, ``"bedroom"``).
 * Rooms and instruments carry a short ``id``; per-visit records refer to them by it.
-* Reading ranges are the input domain of :mod:`survey.psychro` (air −50…+70 °C, RH above 0 and
-  at most 100 %, pressure 50–110 kPa, surfaces −60…+90 °C). NaN and infinity never decode.
+* Reading ranges are the input domain of :mod:`survey.psychro` (air −50…+70 °C, RH 0.1…100 %,
+  pressure 50–110 kPa, surfaces −60…+90 °C). Room sizes, occupants, instrument
+  accuracies and mould areas take their bounds from :mod:`survey.domain`, the same bounds
+  the assessment checks, so a file that loads can always be assessed. NaN and infinity never
+  decode.
 
 Checks that span records (unique ids, references to rooms and instruments that exist) are in
 :func:`problems`; the store runs them on every load and save.
@@ -27,11 +30,13 @@ Checks that span records (unique ids, references to rooms and instruments that e
 from __future__ import annotations
 
 import datetime as dt
+import re
 from typing import Annotated, Iterator, Literal
 
 import msgspec
 from msgspec import Meta, Struct, field
 
+from survey import domain
 from survey.errors import InputError
 from survey.psychro import (
     ALTITUDE_MAX_M,
@@ -40,6 +45,7 @@ from survey.psychro import (
     DRY_BULB_MIN_C,
     PRESSURE_MAX_PA,
     PRESSURE_MIN_PA,
+    RH_MIN_PCT,
     SURFACE_TEMP_MAX_C,
     SURFACE_TEMP_MIN_C,
 )
@@ -100,15 +106,21 @@ Name = Annotated[str, Meta(min_length=1, max_length=200)]
 Text = Annotated[str, Meta(max_length=200)]
 Address = Annotated[str, Meta(max_length=1000)]
 Notes = Annotated[str, Meta(max_length=20_000, description="Free notes.")]
+#: A photo's file name relative to the survey file's folder: no absolute path (``/``, ``\\``
+#: or a drive letter such as ``C:`` first), no ``..`` step out of the folder, no control
+#: characters. Sub-folders (``photos/bed1-corner.jpg``) are fine.
+PHOTO_NAME_PATTERN = (r"^(?![/\\])(?![A-Za-z]:)(?!(?:.*[/\\])?\.\.(?:[/\\]|$))"
+                      r"[^\x00-\x1f\x7f]+$")
 FileName = Annotated[str, Meta(
-    min_length=1, max_length=255, pattern=r"^[^\x00-\x1f]+$",
-    description="A photo's file name, relative to the survey file's folder.",
+    min_length=1, max_length=255, pattern=PHOTO_NAME_PATTERN,
+    description="A photo's file name, relative to the survey file's folder (no absolute "
+                "path, drive letter or '..').",
 )]
 
 DryBulbC = Annotated[float, Meta(
     ge=DRY_BULB_MIN_C, le=DRY_BULB_MAX_C, description="Air (dry-bulb) temperature, °C.")]
 RhPct = Annotated[float, Meta(
-    gt=0.0, le=100.0,
+    ge=RH_MIN_PCT, le=100.0,
     description="Relative humidity, %, relative to liquid water as hygrometers report it.")]
 SurfaceTempC = Annotated[float, Meta(
     ge=SURFACE_TEMP_MIN_C, le=SURFACE_TEMP_MAX_C, description="Surface temperature, °C.")]
@@ -116,8 +128,9 @@ PressurePa = Annotated[float, Meta(
     ge=PRESSURE_MIN_PA, le=PRESSURE_MAX_PA, description="Barometric pressure, Pa.")]
 AltitudeM = Annotated[float, Meta(
     ge=ALTITUDE_MIN_M, le=ALTITUDE_MAX_M, description="Altitude above sea level, m.")]
-TempAccuracyK = Annotated[float, Meta(gt=0.0, le=10.0)]
-RhAccuracyPct = Annotated[float, Meta(gt=0.0, le=20.0)]
+AirTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.AIR_TEMP_ACCURACY_MAX_K)]
+SurfaceTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.SURFACE_TEMP_ACCURACY_MAX_K)]
+RhAccuracyPct = Annotated[float, Meta(gt=0.0, le=domain.RH_ACCURACY_MAX_PCT)]
 Sha256 = Annotated[str, Meta(pattern=r"^[0-9a-f]{64}$")]
 
 _RECORD = dict(kw_only=True, forbid_unknown_fields=True, omit_defaults=True)
@@ -152,9 +165,9 @@ class Instrument(Struct, **_RECORD):
     name: Name  #: make and model as written on it, or a description
     serial: Text = ""
     calibrated_on: dt.date | None = None
-    air_temp_accuracy_k: TempAccuracyK | None = None  #: ± K on air temperature
+    air_temp_accuracy_k: AirTempAccuracyK | None = None  #: ± K on air temperature
     rh_accuracy_pct: RhAccuracyPct | None = None  #: ± percentage points of RH
-    surface_temp_accuracy_k: TempAccuracyK | None = None  #: ± K on surface temperature
+    surface_temp_accuracy_k: SurfaceTempAccuracyK | None = None  #: ± K on surface temperature
     #: ± on a moisture reading, in the units of the reading's scale.
     moisture_accuracy: Annotated[float, Meta(gt=0.0, le=100.0)] | None = None
     #: Emissivity set on an infrared surface thermometer.
@@ -169,10 +182,14 @@ class Room(Struct, **_RECORD):
     name: Name
     level: Annotated[int, Meta(ge=-10, le=200)] = 0  #: storey: 0 ground, 1 first, −1 basement
     use: RoomUse = "other"
-    volume_m3: Annotated[float, Meta(gt=0.0, le=1_000_000.0)] | None = None
-    floor_area_m2: Annotated[float, Meta(gt=0.0, le=100_000.0)] | None = None
-    height_m: Annotated[float, Meta(gt=0.0, le=100.0)] | None = None
-    occupants: Annotated[int, Meta(ge=0, le=1000)] = 0  #: people who usually use it
+    volume_m3: Annotated[float, Meta(ge=domain.ROOM_VOLUME_MIN_M3,
+                                     le=domain.ROOM_VOLUME_MAX_M3)] | None = None
+    floor_area_m2: Annotated[float, Meta(ge=domain.FLOOR_AREA_MIN_M2,
+                                         le=domain.FLOOR_AREA_MAX_M2)] | None = None
+    height_m: Annotated[float, Meta(ge=domain.ROOM_HEIGHT_MIN_M,
+                                    le=domain.ROOM_HEIGHT_MAX_M)] | None = None
+    #: People who usually use it.
+    occupants: Annotated[int, Meta(ge=0, le=domain.OCCUPANTS_MAX)] = 0
     #: True for an unaffected room used as the reference (dry standard, normal conditions).
     is_reference: bool = False
     notes: Notes = ""
@@ -229,7 +246,8 @@ class Observations(Struct, **_RECORD):
     """What was seen or smelt in a room on a visit."""
 
     mould_visible: bool = False
-    mould_area_m2: Annotated[float, Meta(ge=0.0, le=100_000.0)] | None = None  #: visible total
+    #: Visible total.
+    mould_area_m2: Annotated[float, Meta(ge=0.0, le=domain.MOULD_AREA_MAX_M2)] | None = None
     staining: bool = False
     condensation_seen: bool = False
     odour: Odour | None = None  #: ``None``: not recorded
@@ -376,11 +394,37 @@ def _id_list(ids: Iterator[str]) -> str:
     return ", ".join(shown) if shown else "(none defined)"
 
 
+def _volume_problem(room: Room) -> str:
+    """Why floor area × height gives no usable volume ('' when it does or is not used)."""
+    if room.volume_m3 is not None or room.floor_area_m2 is None or room.height_m is None:
+        return ""
+    volume = room.floor_area_m2 * room.height_m
+    if domain.ROOM_VOLUME_MIN_M3 <= volume <= domain.ROOM_VOLUME_MAX_M3:
+        return ""
+    return (f"floor area {room.floor_area_m2:g} m² × height {room.height_m:g} m gives "
+            f"{volume:g} m³; a room's volume must be between {domain.ROOM_VOLUME_MIN_M3:g} "
+            f"and {domain.ROOM_VOLUME_MAX_M3:g} m³")
+
+
+def photo_name_problem(name: str) -> str:
+    """Why ``name`` is not allowed as a photo's file name ('' when it is)."""
+    if re.search(r"[\x00-\x1f\x7f]", name):
+        return "contains control characters"
+    if name[:1] in ("/", "\\") or re.match(r"[A-Za-z]:", name):
+        return ("is an absolute path; give the photo's name relative to the survey file's "
+                "folder (e.g. 'photos/bed1-corner.jpg')")
+    if ".." in re.split(r"[/\\]", name):
+        return ("steps out of the survey file's folder with '..'; keep photos in that folder "
+                "or a sub-folder of it")
+    return ""
+
+
 def problems(survey: Survey) -> list[tuple[str, str]]:
     """Checks across records, as ``(where, problem)`` pairs; empty when all is well.
 
     Ids must be unique; every room and instrument a reading names must exist; a room
-    appears at most once per visit; a mould area needs visible mould.
+    appears at most once per visit; a mould area needs visible mould; a volume worked out
+    from floor area × height must lie in the room-volume domain.
     """
     found: list[tuple[str, str]] = []
     room_ids: set[str] = set()
@@ -388,6 +432,9 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
         if room.id in room_ids:
             found.append((f"rooms[{i}].id", f"room id '{room.id}' is used twice"))
         room_ids.add(room.id)
+        problem = _volume_problem(room)
+        if problem:
+            found.append((f"rooms[{i}].height_m", problem))
     instrument_ids: set[str] = set()
     for i, instrument in enumerate(survey.instruments):
         if instrument.id in instrument_ids:

@@ -19,12 +19,21 @@ Saving (:func:`save_survey`)
     the folder is fsynced. A process killed at any moment leaves either the old or the new
     file, never a mixture. A failed save (read-only folder, full disk) raises
     ``SurveyFileError``, removes its temporary file and leaves the old file and the survey in
-    memory as they were.
+    memory as they were. A file that is read-only for the user (by permission, or by its
+    mode bits, which root would otherwise ignore) is never replaced. A file there that does
+    not load as a survey is never replaced either, nor rotated into the backup over a good
+    one, unless the caller asks for it (``replace_damaged``): then it is kept as
+    ``NAME.json.damaged-<time>`` and the backup is left alone. The same crash-safe write
+    serves other files the program writes (:func:`write_file_atomically`, e.g. exports).
 
 Editing (:func:`open_for_editing`)
     ``NAME.json.lock`` records who holds the survey open (process id, host, user, start
     time). A second opener is told who; a lock left by a crashed process on this host (its
     process is gone, or the host has rebooted since) is recognised as stale and taken over.
+    A takeover replaces the stale lock file in one ``os.replace`` while holding a short
+    ``flock`` guard (released by the kernel if its holder dies), after checking that the
+    lock still holds exactly the stale content: several processes taking over at once end
+    with one holder, and a live lock is never removed.
     An editing session also refuses to save over a file that changed on disk since it was
     read, and a file that failed to load never gets a session, so it is never overwritten.
 
@@ -45,11 +54,17 @@ import re
 import secrets
 import socket
 import stat
+import time
 from pathlib import Path
 from typing import Any, Callable, Iterator
 
 import msgspec
 import msgspec.inspect as mi
+
+try:
+    import fcntl
+except ImportError:  # not on Windows
+    fcntl = None  # type: ignore[assignment]
 
 from survey import model
 from survey.errors import SurveyFileError
@@ -269,6 +284,9 @@ def explain_validation_error(exc: msgspec.ValidationError, root: type,
     shown = _show(value) if value is not MISSING else "the value"
     m = re.fullmatch(r"Expected `(?:float|int)` (?:<=|>=|<|>) \S+", message)
     if m and isinstance(info, (mi.FloatType, mi.IntType)):
+        if info.ge is not None and info.ge == info.le:  # one value allowed, e.g. a version
+            name = next((t for t in reversed(tokens) if isinstance(t, str)), "the value")
+            return where, f"{name} must be {_number(info.ge)}{unit}, not {shown}"
         return where, f"{shown} is out of range; allowed: {_range_text(info, unit)}"
     if message == "Number out of range":
         return where, "the number is too large to be read"
@@ -295,6 +313,10 @@ def explain_validation_error(exc: msgspec.ValidationError, root: type,
                            "starting with a letter or digit, up to 40 characters")
         if tokens and tokens[-1] == "source_sha256":
             return where, f"{shown} is not a SHA-256 digest (64 lowercase hex digits)"
+        if len(tokens) >= 2 and tokens[-2] == "photos" and isinstance(value, str):
+            problem = model.photo_name_problem(value)
+            if problem:
+                return where, f"photo file name {shown} {problem}"
         return where, f"{shown} contains characters that are not allowed (control characters)"
     if message == "Invalid RFC3339 encoded datetime":
         return where, f"{shown} is not a date and time; write it as {_DATETIME_FORM}"
@@ -401,8 +423,16 @@ def _schema_version(data: bytes, path: object) -> int:
         raise _decode_error(path, exc, data) from None
     version = head.schema_version
     if version is msgspec.UNSET:
-        raise SurveyFileError(path, "schema_version",
-                              "missing: this is not a condition-survey file")
+        raise SurveyFileError(path, "", "this is not a condition-survey file (it has no "
+                                        "schema_version)")
+    if data.count(b'"schema_version"') > 1:
+        versions = _top_level_values(data, "schema_version")
+        if len(versions) > 1:
+            shown = " and ".join(_show(v) for v in versions)
+            raise SurveyFileError(
+                path, "schema_version",
+                f"given {len(versions)} times ({shown}); a survey file states its version "
+                f"once: keep the one line \"schema_version\": {SCHEMA_VERSION}")
     if type(version) is not int:
         raise SurveyFileError(path, "schema_version",
                               f"expected a whole number, found {_show(version)}")
@@ -414,6 +444,23 @@ def _schema_version(data: bytes, path: object) -> int:
     if version < min(MIGRATIONS, default=SCHEMA_VERSION):
         raise SurveyFileError(path, "schema_version", f"unknown schema version {version}")
     return version
+
+
+def _top_level_values(data: bytes, key: str) -> list[Any]:
+    """Every value given for ``key`` in the top-level object (JSON keeps only the last)."""
+    import json
+
+    pairs: list[list[tuple[str, Any]]] = []
+
+    def keep(items: list[tuple[str, Any]]) -> dict:
+        pairs.append(items)
+        return {}
+
+    try:
+        json.loads(data, object_pairs_hook=keep)
+    except (ValueError, RecursionError):
+        return []
+    return [value for name, value in pairs[-1] if name == key] if pairs else []
 
 
 def loads_survey(data: bytes, path: object = "<survey>") -> Survey:
@@ -451,13 +498,19 @@ def loads_survey(data: bytes, path: object = "<survey>") -> Survey:
 
 
 def _read_bytes(path: Path) -> bytes:
+    return _read_stamped(path)[0]
+
+
+def _read_stamped(path: Path) -> tuple[bytes, "FileStamp"]:
+    """The file's bytes and the stamp of the version read (from the open handle)."""
     try:
         with open(path, "rb") as handle:
-            size = os.fstat(handle.fileno()).st_size
-            if size > MAX_FILE_BYTES:
-                raise SurveyFileError(path, "", f"the file is too large ({size / 2**20:.0f} MB; "
-                                      f"a survey file is at most {MAX_FILE_BYTES // 2**20} MB)")
-            return handle.read(MAX_FILE_BYTES + 1)
+            st = os.fstat(handle.fileno())
+            if st.st_size > MAX_FILE_BYTES:
+                raise SurveyFileError(path, "", f"the file is too large "
+                                      f"({st.st_size / 2**20:.0f} MB; a survey file is at "
+                                      f"most {MAX_FILE_BYTES // 2**20} MB)")
+            return handle.read(MAX_FILE_BYTES + 1), FileStamp.of(st)
     except IsADirectoryError:
         raise SurveyFileError(path, "", "this is a folder, not a survey file") from None
     except FileNotFoundError:
@@ -494,7 +547,10 @@ def load_survey(path: str | os.PathLike[str]) -> Survey:
     """
     path = Path(path)
     try:
-        return loads_survey(_read_bytes(path), path)
+        data, stamp = _read_stamped(path)
+        survey = loads_survey(data, path)
+        _remember_good(_resolve(path), stamp)
+        return survey
     except SurveyFileError as exc:
         if exc.where == "schema_version" and "newer" in exc.problem:
             raise
@@ -756,67 +812,222 @@ def _resolve(path: str | os.PathLike[str]) -> Path:
     return Path(os.path.realpath(path)) if path.is_symlink() else path
 
 
-def save_survey(survey: Survey, path: str | os.PathLike[str], *, backup: bool = True,
-                exclusive: bool = False, expected: FileStamp | None = None) -> FileStamp:
-    """Save ``survey`` to ``path`` atomically; return the stamp of the file written.
+#: Versions of survey files this process read and found loading, or wrote itself, by
+#: resolved path: saving over one of them needs no fresh check that it loads.
+_KNOWN_GOOD: dict[str, FileStamp] = {}
 
-    ``backup`` keeps the previous version as ``NAME.json.bak``. ``exclusive`` refuses to
-    replace an existing file. ``expected``, the stamp of the version this survey was read
-    from, refuses to save over a file someone else changed since. On any failure the old
-    file and ``survey`` are unchanged and :class:`~survey.errors.SurveyFileError` is raised.
-    """
-    shown = Path(path)
-    target = _resolve(path)
-    data = dumps_survey(survey, shown)
-    mode = None
+
+def _remember_good(target: Path, stamp: FileStamp) -> None:
+    if len(_KNOWN_GOOD) > 1000:
+        _KNOWN_GOOD.clear()
+    _KNOWN_GOOD[os.fspath(target)] = stamp
+
+
+def _on_read_only_file_system(folder: Path) -> bool:
+    try:
+        return bool(os.statvfs(folder).f_flag & getattr(os, "ST_RDONLY", 1))
+    except (OSError, AttributeError):
+        return False
+
+
+def _target_state(target: Path, shown: Path, verb: str,
+                  advice: str = "save under another name, or make it writable first"
+                  ) -> os.stat_result | None:
+    """The stat of the file about to be replaced (``None`` if there is none), after
+    refusing a folder and a file that is read-only for this user."""
     try:
         current = os.stat(target)
     except FileNotFoundError:
-        current = None
+        return None
     except NotADirectoryError:
-        raise SurveyFileError(shown, "", f"not saved: {_ERRNO_WORDS[errno.ENOTDIR]}") from None
+        raise SurveyFileError(shown, "", f"{verb}: {_ERRNO_WORDS[errno.ENOTDIR]}") from None
     except OSError as exc:
-        raise SurveyFileError(shown, "", f"not saved: {_os_problem(exc)}") from None
-    if current is not None:
-        if stat.S_ISDIR(current.st_mode):
-            raise SurveyFileError(shown, "", "not saved: the name is a folder")
-        if exclusive:
-            raise SurveyFileError(shown, "", "not saved: the file already exists")
-        if expected is not None and FileStamp.of(current) != expected:
-            raise SurveyFileError(
-                shown, "", "not saved: the file was changed on disk by another program since "
-                           "it was opened; save under another name and compare the two")
-        mode = stat.S_IMODE(current.st_mode)
-    elif expected is not None:
-        raise SurveyFileError(shown, "", "not saved: the file was deleted or moved since it "
-                                         "was opened; save under another name")
+        raise SurveyFileError(shown, "", f"{verb}: {_os_problem(exc)}") from None
+    if stat.S_ISDIR(current.st_mode):
+        raise SurveyFileError(shown, "", f"{verb}: the name is a folder")
+    mode = stat.S_IMODE(current.st_mode)
+    # os.access answers for the real user; root passes it whatever the mode, so the mode
+    # bits are checked too: a file nobody may write was made read-only on purpose.
+    if not os.access(target, os.W_OK) or not mode & 0o222:
+        if _on_read_only_file_system(target.parent):
+            raise SurveyFileError(shown, "", f"{verb}: {_ERRNO_WORDS[errno.EROFS]}; the "
+                                             "file on disk is unchanged")
+        raise SurveyFileError(
+            shown, "", f"{verb}: the file is read-only (mode {mode:04o}), perhaps kept that "
+                       f"way on purpose, and is left as it is; {advice} "
+                       f"(chmod u+w {shown.name})")
+    return current
+
+
+def _untouched(current: os.stat_result | None) -> str:
+    return "the file on disk is unchanged" if current is not None else "no file was created"
+
+
+def _replace_atomically(target: Path, shown: Path, data: bytes,
+                        current: os.stat_result | None, verb: str,
+                        before_replace: Callable[[], None] | None = None) -> FileStamp:
+    """Write ``data`` to a new temporary file beside ``target`` (exclusive create, unique
+    name), fsync it, run ``before_replace``, ``os.replace`` it over ``target`` and fsync the
+    folder. The permissions of the file replaced are kept. On failure the temporary file is
+    removed and ``target`` is as it was."""
+    mode = stat.S_IMODE(current.st_mode) if current is not None else None
     tmp = _tmp_name(target)
     try:
         stamp = _write_synced(tmp, data, mode)
-        if exclusive:
-            try:
-                os.link(tmp, target)
-            except FileExistsError:
-                raise SurveyFileError(shown, "", "not saved: the file already exists") from None
-            except OSError as exc:
-                if exc.errno in (errno.ENOSPC, errno.EROFS, errno.EACCES, errno.EIO):
-                    raise
-                if os.path.lexists(target):
-                    raise SurveyFileError(shown, "", "not saved: the file already exists") from None
-                os.replace(tmp, target)
-            else:
-                _remove_quietly(tmp)
-        else:
-            if backup and current is not None:
-                _keep_backup(target)
-            os.replace(tmp, target)
+        if before_replace is not None:
+            before_replace()
+        os.replace(tmp, target)
     except SurveyFileError:
         _remove_quietly(tmp)
         raise
     except OSError as exc:
         _remove_quietly(tmp)
-        raise SurveyFileError(shown, "", f"not saved: {_os_problem(exc)}; the file on disk is "
-                                         "unchanged") from None
+        raise SurveyFileError(shown, "", f"{verb}: {_os_problem(exc)}; "
+                                         f"{_untouched(current)}") from None
+    except BaseException:
+        _remove_quietly(tmp)
+        raise
+    _fsync_dir(target.parent)
+    return stamp
+
+
+def write_file_atomically(path: str | os.PathLike[str], data: bytes) -> FileStamp:
+    """Write ``data`` to ``path`` (any file, e.g. an export) the way surveys are saved: a
+    uniquely named temporary file created exclusively in the same folder, fsynced, renamed
+    over ``path`` in one step, the folder fsynced. A crash leaves the old file or the new
+    one. A read-only existing file is refused; its permissions are otherwise kept.
+
+    Raises :class:`~survey.errors.SurveyFileError` ("not written: …") on any failure.
+    """
+    shown = Path(path)
+    target = _resolve(path)
+    current = _target_state(target, shown, "not written")
+    return _replace_atomically(target, shown, bytes(data), current, "not written")
+
+
+def damaged_copy_path(path: str | os.PathLike[str], when: dt.datetime | None = None) -> Path:
+    """Where a damaged survey file is kept when a save replaces it:
+    ``NAME.json.damaged-YYYYMMDD-HHMMSS`` (a number added if that name is taken)."""
+    target = _resolve(path)
+    stamp = (when or dt.datetime.now()).strftime("%Y%m%d-%H%M%S")
+    candidate = target.with_name(f"{target.name}.damaged-{stamp}")
+    n = 2
+    while os.path.lexists(candidate):
+        candidate = target.with_name(f"{target.name}.damaged-{stamp}-{n}")
+        n += 1
+    return candidate
+
+
+def _keep_damaged(target: Path) -> Path:
+    """Keep the current (damaged) content of ``target`` under a new name, never replacing
+    anything; return that name."""
+    for _attempt in range(100):
+        aside = damaged_copy_path(target)
+        try:
+            os.link(target, aside)
+            return aside
+        except FileExistsError:
+            continue
+        except OSError as exc:
+            if exc.errno in (errno.ENOSPC, errno.EROFS, errno.EACCES, errno.EIO):
+                raise
+        with open(target, "rb") as old:  # no hard links here: an exclusive synced copy
+            content = old.read()
+        try:
+            _write_synced(aside, content, None)
+        except FileExistsError:
+            continue
+        return aside
+    raise OSError(errno.EEXIST, "no free name for the damaged copy")
+
+
+def _load_problem(target: Path) -> str | None:
+    """Why the file at ``target`` does not load as a survey, or ``None`` when it does."""
+    try:
+        data, stamp = _read_stamped(target)
+        loads_survey(data, target)
+    except SurveyFileError as exc:
+        return f"{exc.where}: {exc.problem}" if exc.where else exc.problem
+    _remember_good(target, stamp)
+    return None
+
+
+def save_survey(survey: Survey, path: str | os.PathLike[str], *, backup: bool = True,
+                exclusive: bool = False, expected: FileStamp | None = None,
+                replace_damaged: bool = False) -> FileStamp:
+    """Save ``survey`` to ``path`` atomically; return the stamp of the file written.
+
+    ``backup`` keeps the previous version as ``NAME.json.bak``. ``exclusive`` refuses to
+    replace an existing file. ``expected``, the stamp of the version this survey was read
+    from, refuses to save over a file someone else changed since. A file there that does not
+    load as a survey (damaged, not a survey, from a newer version) is refused, so that it is
+    never lost and never rotated into the backup over a good one; with ``replace_damaged``
+    it is kept as ``NAME.json.damaged-<time>`` (see :func:`damaged_copy_path`), the backup
+    is left as it is, and the new file takes its place. A file that is read-only for the user
+    is refused. On any failure the old file and ``survey`` are unchanged and
+    :class:`~survey.errors.SurveyFileError` is raised.
+    """
+    shown = Path(path)
+    target = _resolve(path)
+    data = dumps_survey(survey, shown)
+    current = _target_state(target, shown, "not saved")
+    damaged = False
+    if current is not None:
+        if exclusive:
+            raise SurveyFileError(shown, "", "not saved: the file already exists")
+        stamp_now = FileStamp.of(current)
+        if expected is not None and stamp_now != expected:
+            raise SurveyFileError(
+                shown, "", "not saved: the file was changed on disk by another program since "
+                           "it was opened; save under another name and compare the two")
+        if expected is None and _KNOWN_GOOD.get(os.fspath(target)) != stamp_now:
+            problem = _load_problem(target)
+            if problem is not None:
+                if not replace_damaged:
+                    raise SurveyFileError(
+                        shown, "", f"not saved: the file there does not load as a survey "
+                                   f"({problem}). It is left as it is, and so is its backup; "
+                                   "save under another name, or move the file away first")
+                damaged = True
+    elif expected is not None:
+        raise SurveyFileError(shown, "", "not saved: the file was deleted or moved since it "
+                                         "was opened; save under another name")
+    if exclusive:
+        stamp = _save_exclusive(target, shown, data)
+    elif damaged:
+        stamp = _replace_atomically(target, shown, data, current, "not saved",
+                                    lambda: _keep_damaged(target))
+    else:
+        keep = (lambda: _keep_backup(target)) if backup and current is not None else None
+        stamp = _replace_atomically(target, shown, data, current, "not saved", keep)
+    _remember_good(target, stamp)
+    return stamp
+
+
+def _save_exclusive(target: Path, shown: Path, data: bytes) -> FileStamp:
+    """Create ``target`` with ``data``, never replacing a file that exists."""
+    tmp = _tmp_name(target)
+    try:
+        stamp = _write_synced(tmp, data, None)
+        try:
+            os.link(tmp, target)
+        except FileExistsError:
+            raise SurveyFileError(shown, "", "not saved: the file already exists") from None
+        except OSError as exc:
+            if exc.errno in (errno.ENOSPC, errno.EROFS, errno.EACCES, errno.EIO):
+                raise
+            if os.path.lexists(target):
+                raise SurveyFileError(shown, "", "not saved: the file already exists") from None
+            os.replace(tmp, target)
+        else:
+            _remove_quietly(tmp)
+    except SurveyFileError:
+        _remove_quietly(tmp)
+        raise
+    except OSError as exc:
+        _remove_quietly(tmp)
+        raise SurveyFileError(shown, "", f"not saved: {_os_problem(exc)}; no file was "
+                                         "created") from None
     except BaseException:
         _remove_quietly(tmp)
         raise
@@ -833,6 +1044,9 @@ def remove_stale_temp_files(path: str | os.PathLike[str]) -> list[Path]:
     pattern = re.compile(
         rf"^\.{re.escape(target.name)}(?:\.bak|\.lock|\.lock\.claim)?\.(\d+)-[0-9a-f]{{8}}\.tmp$")
     removed = []
+    guard = _TakeoverGuard(lock_path(path))
+    if guard.path.exists() and guard.clear_abandoned():
+        removed.append(guard.path)
     try:
         names = os.listdir(target.parent)
     except OSError:
@@ -958,6 +1172,24 @@ def lock_is_stale(info: LockInfo) -> bool:
     return not _pid_alive(info.pid)
 
 
+def describe_lock(holder: LockInfo, lock_name: str) -> str:
+    """What a lock means for someone who wants to edit the survey, and what they can do."""
+    if holder.pid <= 0:
+        return (f"a damaged lock file {lock_name} remains (a session ended while writing "
+                "it); opening the survey for editing replaces it")
+    if lock_is_stale(holder):
+        return (f"a stale lock from {holder.describe()} remains ({lock_name}): that session "
+                "ended without closing and its process is gone; opening the survey for "
+                "editing takes the lock over")
+    if holder.host and holder.host != socket.gethostname():
+        return (f"open for editing by {holder.describe()}, another computer, which cannot "
+                f"be checked from here. Close the survey there; if that session has ended "
+                f"(the computer crashed or was switched off while editing), delete "
+                f"{lock_name} and try again. Reading the survey works meanwhile")
+    return (f"open for editing by {holder.describe()}. Close the survey there, or wait for "
+            "that program to finish, and try again. Reading the survey works meanwhile")
+
+
 def _create_lock(lock: Path, info: LockInfo) -> bool:
     """Atomically create ``lock`` with ``info`` in it; False if a lock exists."""
     data = msgspec.json.encode(info) + b"\n"
@@ -986,21 +1218,107 @@ def _create_lock(lock: Path, info: LockInfo) -> bool:
         _remove_quietly(tmp)
 
 
-def _claim_stale(lock: Path, stale_raw: bytes) -> None:
-    """Remove a stale lock unless someone replaced it with a live one meanwhile."""
-    claim = _tmp_name(lock, ".claim")
-    try:
-        os.rename(lock, claim)
-    except FileNotFoundError:
-        return
-    try:
-        if _read_lock_bytes(claim) != stale_raw:  # raced with a new holder: put theirs back
+class _TakeoverGuard:
+    """Mutual exclusion among processes taking over a stale lock of one survey.
+
+    ``.NAME.json.lock.takeover`` is locked with ``flock``, which the kernel releases when
+    its holder dies, so a crash during a takeover never leaves a guard that blocks for ever.
+    The guard file is removed on release; an opener that locked a file someone had
+    meanwhile removed (its inode is no longer the name's) tries again. Where ``fcntl`` is
+    missing, an exclusively created guard file is used, and one older than
+    :data:`_GUARD_ABANDONED_S` is taken as abandoned.
+    """
+
+    def __init__(self, lock: Path) -> None:
+        self.path = lock.with_name(f".{lock.name}.takeover")
+        self.fd: int | None = None
+
+    def __enter__(self) -> "_TakeoverGuard":
+        deadline = time.monotonic() + _GUARD_WAIT_S
+        while True:
+            if self._try():
+                return self
+            if time.monotonic() > deadline:
+                raise OSError(errno.EAGAIN, "another program is taking over the lock")
+            time.sleep(0.002)
+
+    def _try(self, create: bool = True) -> bool:
+        if fcntl is None:
             try:
-                os.link(claim, lock)
-            except OSError:
-                pass
-    finally:
-        _remove_quietly(claim)
+                self.fd = os.open(self.path, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o666)
+                return True
+            except FileExistsError:
+                try:
+                    if time.time() - os.stat(self.path).st_mtime > _GUARD_ABANDONED_S:
+                        _remove_quietly(self.path)
+                except OSError:
+                    pass
+                return False
+        fd = os.open(self.path, os.O_RDWR | (os.O_CREAT if create else 0), 0o666)
+        try:
+            fcntl.flock(fd, fcntl.LOCK_EX | fcntl.LOCK_NB)
+        except OSError as exc:
+            os.close(fd)
+            if exc.errno in (errno.EAGAIN, errno.EACCES, errno.EWOULDBLOCK):
+                return False
+            raise
+        try:
+            same = os.fstat(fd).st_ino == os.stat(self.path).st_ino
+        except FileNotFoundError:
+            same = False
+        if not same:  # removed by the previous holder after we opened it
+            os.close(fd)
+            return False
+        self.fd = fd
+        return True
+
+    def clear_abandoned(self) -> bool:
+        """Remove a guard file nobody holds (left by a process killed during a takeover)."""
+        if fcntl is None:
+            return False  # aged out by the next takeover instead
+        try:
+            if self._try(create=False):
+                self.__exit__()
+                return True
+        except OSError:
+            pass
+        return False
+
+    def __exit__(self, *exc_info: object) -> None:
+        if self.fd is not None:
+            _remove_quietly(self.path)  # while still holding it, then let go
+            os.close(self.fd)
+            self.fd = None
+
+
+#: How long a takeover waits for another process's takeover of the same lock, seconds.
+_GUARD_WAIT_S = 5.0
+#: Without ``flock``: a takeover guard file older than this was left by a crash, seconds.
+_GUARD_ABANDONED_S = 30.0
+
+
+def _take_over(lock: Path, stale_raw: bytes, ours: LockInfo) -> bool:
+    """Replace the lock holding exactly ``stale_raw`` with ours, in one step; False (and
+    nothing changed) if the lock file holds anything else by now.
+
+    Every takeover of a survey's lock happens under its :class:`_TakeoverGuard`, so the
+    content cannot change between the check and the replace except by a fresh lock being
+    created where none is, which cannot happen while the stale one is in place. The lock
+    file is never absent during a takeover, so nobody can create a lock in a gap.
+    """
+    data = msgspec.json.encode(ours) + b"\n"
+    with _TakeoverGuard(lock):
+        if _read_lock_bytes(lock) != stale_raw:
+            return False
+        tmp = _tmp_name(lock)
+        try:
+            _write_synced(tmp, data, None)
+            os.replace(tmp, lock)
+        except BaseException:
+            _remove_quietly(tmp)
+            raise
+    _fsync_dir(lock.parent)
+    return True
 
 
 def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
@@ -1015,11 +1333,10 @@ def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
     shown = Path(path)
     lock = lock_path(path)
     ours = _this_lock()
-    previous = None
     for _attempt in range(5):
         try:
             if _create_lock(lock, ours):
-                return ours, previous
+                return ours, None
         except OSError as exc:
             raise SurveyFileError(shown, "", f"cannot open for editing: the lock file "
                                              f"{lock.name} cannot be written: "
@@ -1030,18 +1347,14 @@ def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
         holder = _parse_lock(raw)
         stale = lock_is_stale(holder)
         if not (force or (stale and take_over_stale)):
-            if stale:
-                problem = (f"a stale lock from {holder.describe()} remains ({lock.name}); "
-                           "that session ended without closing")
-            elif holder.host and holder.host != socket.gethostname():
-                problem = (f"open for editing by {holder.describe()}; if that session is "
-                           f"no longer running, delete {lock.name}")
-            else:
-                problem = (f"open for editing by {holder.describe()}; close it there, or "
-                           "open the survey read-only")
-            raise SurveyLocked(shown, holder, problem)
-        previous = holder
-        _claim_stale(lock, raw)
+            raise SurveyLocked(shown, holder, describe_lock(holder, lock.name))
+        try:
+            if _take_over(lock, raw, ours):
+                return ours, holder
+        except OSError as exc:
+            raise SurveyFileError(shown, "", f"cannot open for editing: the lock file "
+                                             f"{lock.name} cannot be taken over: "
+                                             f"{_os_problem(exc)}") from None
     raise SurveyLocked(shown, None, f"cannot take the lock {lock.name}: other programs keep "
                                     "taking it")
 
@@ -1116,6 +1429,8 @@ def open_for_editing(path: str | os.PathLike[str], *, create: Survey | None = No
             # save refuse rather than overwrite a version nobody has seen.
             stamp = file_stamp(_resolve(path))
             survey = load_survey(path)
+            _target_state(_resolve(path), path, "cannot open for editing",
+                          "edit a copy of it, or make it writable first")
     except BaseException:
         release_lock(path, ours)
         raise

@@ -11,7 +11,9 @@ Marks say how sure the number is:
 * ``"R"`` — read in the named source (or the named secondary source);
 * ``"M"`` — from memory, not verified against the original;
 * ``"C"`` — computed from the named formula;
-* ``"common practice"`` — a trade rule of thumb with no single source.
+* ``"common practice"`` — a trade rule of thumb with no single source;
+* ``"choice"`` — our own pick of one value inside a range the named source gives (the note
+  says which range and why this value).
 
 This module imports nothing but the standard library and :mod:`survey.errors`.
 """
@@ -23,13 +25,23 @@ from typing import Iterable, Literal
 
 from survey.errors import InputError
 
-Mark = Literal["R", "M", "C", "common practice"]
+Mark = Literal["R", "M", "C", "common practice", "choice"]
 
 MARK_TEXT: dict[str, str] = {
     "R": "read in the source",
     "M": "from memory, not verified against the original",
     "C": "computed from the named formula",
     "common practice": "common practice, no single source",
+    "choice": "our choice of a value inside the range the source gives",
+}
+
+#: The marks in words for a client's report: the same facts, in plain terms.
+MARK_TEXT_FOR_CLIENT: dict[str, str] = {
+    "R": "",
+    "M": "value not yet checked against the original text",
+    "C": "worked out from the named formula",
+    "common practice": "trade practice, no single published source",
+    "choice": "a value we chose inside the range the source gives",
 }
 
 
@@ -57,6 +69,16 @@ class Threshold:
     def short_citation(self) -> str:
         """Title, value, source and mark, without the note."""
         return f"{self.title} {self.value_text}: {self.source}; {MARK_TEXT[self.mark]}"
+
+    def client_citation(self, value_text: str | None = None) -> str:
+        """Title, value and source in words for a client: "source: …", and what the mark
+        means without trade shorthand ("value not yet checked against the original text"
+        rather than "from memory"). ``value_text`` replaces the value (e.g. in °F)."""
+        source = self.source.replace("from memory", "not yet checked against the original "
+                                                    "text")
+        mark = MARK_TEXT_FOR_CLIENT[self.mark]
+        return (f"{self.title} {value_text or self.value_text}: source: {source}"
+                + (f"; {mark}" if mark else ""))
 
 
 _BRE = "BRE Information Paper IP1/06 (UK guidance), critical temperature factor"
@@ -88,9 +110,11 @@ _THRESHOLDS: tuple[Threshold, ...] = (
               "Surface RH from 70 % up to the 80 % limit is shown as approaching the limit.",
               "common practice"),
     # --- temperature factor fRsi = (Ts - Te) / (Ti - Te) ---------------------------------------
-    Threshold("frsi_dwelling", "Temperature factor limit, dwellings and offices",
+    Threshold("frsi_dwelling", "Temperature factor limit, dwellings",
               0.75, "", _BRE,
-              "Dwellings, residential buildings, offices and schools.", "M"),
+              "Dwellings, residential buildings and schools. Also used for offices: our "
+              "choice, on the safe side (whether IP1/06 lists offices at 0.75 or at 0.50 is "
+              "not verified here).", "M"),
     Threshold("frsi_high_humidity", "Temperature factor limit, kitchens and similar",
               0.80, "", _BRE,
               "Sports halls, kitchens, canteens; buildings heated with unflued gas heaters.",
@@ -168,9 +192,10 @@ _THRESHOLDS: tuple[Threshold, ...] = (
     # --- ventilation ----------------------------------------------------------------------------
     Threshold("ventilation_outdoor_drier_margin_g_per_kg", "Outdoor air drier by at least",
               1.0, "g/kg", "ventilation practice",
-              "Ventilation is advised when outdoor air holds at least this much less water "
-              "(humidity ratio) than room air at the target; closer than that, the airflow "
-              "needed grows without bound.", "common practice"),
+              "Ventilation dries a room when outdoor air holds at least this much less water "
+              "(humidity ratio) than the room air now; it can hold a target only when outdoor "
+              "air is this much drier than room air at the target, since closer than that the "
+              "airflow needed grows without bound.", "common practice"),
     Threshold("ventilation_practical_max_ach", "Most practical ventilation rate",
               2.0, "1/h", "ventilation practice",
               "More outdoor air than about 2 air changes an hour is draughty and costly in "
@@ -183,15 +208,19 @@ _THRESHOLDS: tuple[Threshold, ...] = (
     # --- moisture generation ------------------------------------------------------------------
     Threshold("moisture_person_asleep_g_per_h", "Moisture from a person asleep",
               40.0, "g/h", _MOISTURE,
-              "Lower end of the 40-60 g/h sedentary range, used for bedrooms.", "R"),
+              "Our choice: the lower end of the published 40-60 g/h sedentary range, for "
+              "people asleep in bedrooms (the source gives no separate sleeping rate).",
+              "choice"),
     Threshold("moisture_person_sedentary_g_per_h", "Moisture from a person sitting",
               50.0, "g/h", _MOISTURE,
-              "Middle of the 40-60 g/h sedentary range.", "R"),
+              "Our choice: the middle of the published 40-60 g/h sedentary range.", "choice"),
     Threshold("moisture_person_active_g_per_h", "Moisture from an active person",
               90.0, "g/h", _MOISTURE,
-              "Middle of the 60-120 g/h range for active people.", "R"),
+              "Our choice: the middle of the published 60-120 g/h range for active people.",
+              "choice"),
     Threshold("moisture_cooking_g_per_h", "Moisture from cooking", 1000.0, "g/h", _MOISTURE,
-              "Cooking 600-1500 g/h; a middle value, per hour of cooking.", "R"),
+              "Our choice: a middle value of the published 600-1500 g/h, per hour of "
+              "cooking.", "choice"),
     Threshold("moisture_bath_g_per_h", "Moisture from a bath",
               700.0, "g/h", _MOISTURE, "A bath, per hour.", "R"),
     Threshold("moisture_shower_g_per_h", "Moisture from a shower",
@@ -244,6 +273,12 @@ _THRESHOLDS: tuple[Threshold, ...] = (
     Threshold("mould_area_large_m2", "Large mould area, over", 9.3, "m²", _EPA_MOULD,
               "Over about 100 sq ft (9.3 m²): a large area for trained or licensed "
               "remediators with containment.", "M"),
+    Threshold("water_category_1_degrades_h", "Clean water left standing degrades within",
+              48.0, "h", "restoration standard of practice, water-damage categories "
+              "(secondary source); the time from memory",
+              "Category 1 (clean) water left standing in a building, or soaking into its "
+              "materials, becomes category 2; commonly taken to happen within about two "
+              "days, sooner in warm rooms.", "M"),
     Threshold("water_category_2", "Water category 2",
               2.0, "", "restoration standard of practice, water-damage "
               "categories (secondary source)",
@@ -311,33 +346,41 @@ ROOM_USES: tuple[str, ...] = ("bedroom", "bathroom", "kitchen", "living", "basem
 
 @dataclass(frozen=True, slots=True)
 class UseLimit:
-    """Which temperature-factor limit applies to a room use, and why."""
+    """Which temperature-factor limit applies to a room use, and why.
+
+    ``ours`` marks a mapping that is our own decision rather than a use the cited source
+    lists; its reason says so."""
 
     use: str
     key: str | None  #: threshold key, or None when fRsi does not apply
     reason: str
+    ours: bool = False
 
 
 FRSI_LIMIT_BY_USE: dict[str, UseLimit] = {u.use: u for u in (
     UseLimit("bedroom", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
     UseLimit("living", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
-    UseLimit("office", "frsi_dwelling", "BRE IP1/06 puts offices with dwellings at 0.75"),
+    UseLimit("office", "frsi_dwelling",
+             "judged like a dwelling room (0.75): our choice, on the safe side; whether BRE "
+             "IP1/06 lists offices at 0.75 or lower is not verified", ours=True),
     UseLimit("hallway", "frsi_dwelling",
-             "circulation space inside a dwelling, judged as a dwelling room (0.75)"),
+             "circulation space inside a dwelling, judged as a dwelling room (0.75): our "
+             "choice", ours=True),
     UseLimit("kitchen", "frsi_high_humidity",
              "BRE IP1/06 lists kitchens at 0.80 for their moisture bursts"),
     UseLimit("bathroom", "frsi_high_humidity",
              "not listed in BRE IP1/06; treated like a kitchen (0.80) for its short, high "
-             "moisture bursts - our choice, on the safe side"),
+             "moisture bursts: our choice, on the safe side", ours=True),
     UseLimit("basement", "frsi_dwelling",
-             "a heated, habitable basement is a dwelling space (0.75)"),
+             "a heated, habitable basement is a dwelling space (0.75): our choice",
+             ours=True),
     UseLimit("storage", "frsi_storage", "BRE IP1/06: storage buildings 0.50"),
     UseLimit("crawlspace", None,
              "an unheated space outside the heated envelope: no temperature-factor limit"),
     UseLimit("loft", None,
              "an unheated roof space outside the heated envelope: no temperature-factor "
              "limit (a converted loft room is a bedroom or living room)"),
-    UseLimit("other", "frsi_general", "use not listed: IEA Annex 14 general criterion 0.70"),
+    UseLimit("other", "frsi_general", "general limit 0.70 (IEA Annex 14)"),
 )}
 
 #: Room uses that are confined or hard-to-reach spaces (a safety caution applies).
@@ -356,6 +399,62 @@ ACTIVITY_RATE: dict[str, str] = {
     "shower": "moisture_shower_g_per_h",
     "active_person": "moisture_person_active_g_per_h",
 }
+
+
+# --- surface elements: what each kind of surface is judged by ----------------------------------
+
+#: The kinds of measured surface (the same list as the survey file model's ``Element``).
+SURFACE_ELEMENTS: tuple[str, ...] = ("external_wall", "internal_wall", "ceiling", "floor",
+                                     "window_frame", "glazing", "pipe", "other")
+
+
+@dataclass(frozen=True, slots=True)
+class ElementPolicy:
+    """How a kind of surface is judged, and why (our policy; the reasons say on what)."""
+
+    element: str
+    role: str  #: "envelope", "internal", "glazing" or "pipe"
+    temperature_factor: bool  #: judged against the room use's fRsi limit
+    sets_room_target: bool  #: can be the coldest surface that caps the room RH
+    mould_judged: bool  #: a surface that mould grows on
+    words: str  #: e.g. "external wall"
+    reason: str
+
+
+_ENVELOPE_REASON = ("part of the heated envelope: the temperature factor (EN ISO 13788, "
+                    "BRE IP1/06) is defined for it, and mould on it sets the room RH")
+ELEMENT_POLICY: dict[str, ElementPolicy] = {p.element: p for p in (
+    ElementPolicy("external_wall", "envelope", True, True, True, "external wall",
+                  _ENVELOPE_REASON),
+    ElementPolicy("ceiling", "envelope", True, True, True, "ceiling", _ENVELOPE_REASON),
+    ElementPolicy("floor", "envelope", True, True, True, "floor", _ENVELOPE_REASON),
+    ElementPolicy("other", "envelope", True, True, True, "surface",
+                  "not said what it is: judged as a wall, ceiling or floor of the heated "
+                  "envelope, on the safe side"),
+    ElementPolicy("internal_wall", "internal", False, True, True, "internal wall",
+                  "inside the heated envelope: no temperature factor (the outdoor "
+                  "temperature does not drive it), but mould on it sets the room RH"),
+    ElementPolicy("window_frame", "glazing", False, False, True, "window frame",
+                  "judged for condensation and for mould on frames and seals; windows are "
+                  "expected to run colder than walls, so they do not set the room RH"),
+    ElementPolicy("glazing", "glazing", False, False, False, "glazing",
+                  "judged for condensation only: glass does not feed mould, and single "
+                  "glazing fogging in winter is expected, no reason to hold the room drier"),
+    ElementPolicy("pipe", "pipe", False, False, False, "pipe",
+                  "judged for condensation only: a cold pipe that sweats needs lagging, "
+                  "not a drier room"),
+)}
+
+
+def check_element(element: str, field: str = "surface element") -> ElementPolicy:
+    """The policy for a surface element; :class:`InputError` lists the elements allowed."""
+    policy = ELEMENT_POLICY.get(element)
+    if policy is None:
+        text = str(element).strip().lower().replace(" ", "_").replace("-", "_")
+        policy = ELEMENT_POLICY.get(text)
+        if policy is None:
+            raise InputError(field, element, "expected one of " + ", ".join(SURFACE_ELEMENTS))
+    return policy
 
 
 def check_use(use: str, field: str = "room use") -> str:
@@ -402,8 +501,12 @@ def humidity_class(excess_pa: float, outdoor_temp_c: float) -> int | None:
     outdoor temperature is at or above ``humidity_class_zero_at_c``.
     """
     limits = humidity_class_limits_pa(outdoor_temp_c)
-    if limits is None:
-        return None
+    return None if limits is None else humidity_class_in(excess_pa, limits)
+
+
+def humidity_class_in(excess_pa: float, limits: tuple[float, ...]) -> int:
+    """The class of ``excess_pa`` among class limits already worked out for an outdoor
+    temperature (:func:`humidity_class_limits_pa`); the rule of :func:`humidity_class`."""
     for number, limit in enumerate(limits, start=1):
         if excess_pa <= limit:
             return number
@@ -420,11 +523,34 @@ HUMIDITY_CLASS_EXAMPLES: dict[int, str] = {
     BEYOND_CLASS_5: "more than even laundries and swimming pools",
 }
 
+#: Words for the class above class 5.
+ABOVE_CLASS_5_TEXT = "above class 5"
+
 
 def humidity_class_text(number: int | None) -> str:
     """Words for a class number from :func:`humidity_class`."""
     if number is None:
         return "not judged (outdoor air too warm)"
     if number == BEYOND_CLASS_5:
-        return "beyond class 5"
+        return ABOVE_CLASS_5_TEXT
     return f"class {number}"
+
+
+def humidity_class_range_text(possible: Iterable[int]) -> str:
+    """Words for the classes a band spans: ``'class 3'``, ``'class 3 or 4'``, ``'class 2
+    to 4'``, ``'class 5 or above class 5'``, ``'class 3 to 5 or above class 5'``."""
+    numbers = sorted(set(possible))
+    if not numbers:
+        return "not judged"
+    above = numbers[-1] == BEYOND_CLASS_5
+    plain = [n for n in numbers if n != BEYOND_CLASS_5]
+    if not plain:
+        return ABOVE_CLASS_5_TEXT
+    if len(plain) == 1:
+        text = f"class {plain[0]}"
+    elif len(plain) == 2:
+        text = (f"class {plain[0]}, {plain[1]}" if above
+                else f"class {plain[0]} or {plain[1]}")
+    else:
+        text = f"class {plain[0]} to {plain[-1]}"
+    return f"{text} or {ABOVE_CLASS_5_TEXT}" if above else text

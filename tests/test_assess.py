@@ -132,13 +132,34 @@ def test_three_kelvin_margin_rule():
     assert state(dew + 2.95).margin_k == pytest.approx(2.95, abs=0.02)
 
 
-def test_frost_point_decides_below_zero():
-    """-5 °C / 80 % air: the condensation point is the frost point (over ice, psychro's
-    convention); a surface just below it gathers frost, just above it does not."""
-    frost = psychro.state_from_rh(-5.0, 80.0).frost_point_c
-    assert frost is not None
-    assert one_surface(-5.0, 80.0, frost - 0.05).surfaces[0].condensing
-    assert not one_surface(-5.0, 80.0, frost + 0.05).surfaces[0].condensing
+def _wmo_frost_point_c(air_c: float, rh_pct: float) -> float:
+    """Frost point from the WMO Guide No. 8 (2008) Annex 4.B Magnus formulas [R, secondary
+    sources]: RH relative to water, e_w = 6.112 exp(17.62 t/(243.12 + t)) hPa; the frost
+    point solves e_i = 6.112 exp(22.46 t/(272.62 + t)) hPa = RH · e_w."""
+    pw = rh_pct / 100.0 * 6.112 * math.exp(17.62 * air_c / (243.12 + air_c))
+    x = math.log(pw / 6.112)
+    return 272.62 * x / (22.46 - x)
+
+
+@pytest.mark.parametrize(("air_c", "rh"), [(-5.0, 80.0), (2.0, 60.0), (-10.0, 90.0)])
+def test_frost_point_decides_below_zero(air_c, rh):
+    """Below 0 °C the condensation point is the frost point of the WMO ice formula (within
+    0.1 K of it; the Magnus fit and ASHRAE's Hyland-Wexler differ by a few hundredths): a
+    surface 0.2 K below it gathers frost, one 0.2 K above it does not."""
+    frost = _wmo_frost_point_c(air_c, rh)
+    finding = one_surface(air_c, rh, frost)
+    assert finding.air.condensation_point_c == pytest.approx(frost, abs=0.1)
+    below = one_surface(air_c, rh, frost - 0.2).surfaces[0]
+    assert below.condensing and below.frost
+    assert below.condensation is CondensationState.CONDENSING
+    assert not one_surface(air_c, rh, frost + 0.2).surfaces[0].condensing
+
+
+def test_water_above_zero_is_not_frost():
+    """A surface above 0 °C below the dew point gathers water, not frost: 20 °C / 60 % has
+    its dew point at 12.0 °C (Alduchov-Eskridge Magnus [R, secondary])."""
+    s = one_surface(20.0, 60.0, 11.0).surfaces[0]
+    assert s.condensing and not s.frost and not s.below_freezing
 
 
 def test_temperature_factor_definition():
@@ -345,3 +366,127 @@ def test_site_shares_outdoor_air_and_collects_keys():
         th.get(key)
     with pytest.raises(InputError, match="year built"):
         assess.assess_site(rooms, year_built=19)
+
+
+# --- what each kind of surface is judged by -----------------------------------------------------
+
+def winter_room(*surfaces, outdoor=OutdoorInput(2.0, 85.0), accuracy=EXACT):
+    room = RoomInput("R", "bedroom", 18.0, 65.0, tuple(surfaces))
+    return assess.assess_room(room, outdoor, P, accuracy)
+
+
+def test_glazing_and_pipes_do_not_set_the_room_rh():
+    """A 4 °C pane and an 8 °C pipe are colder than the 12 °C wall, but the coldest surface
+    behind the highest safe room RH is the wall: 80 × p_ws(12)/p_ws(18) (CoolProp) = 54.4 %
+    (BS 5250 Annex D limit [R]). The pane is reported apart, with the room RH at which it
+    stays dry: 100 × p_ws(4)/p_ws(18) = 39.4 % (CoolProp)."""
+    finding = winter_room(SurfaceInput("pane", 4.0, "glazing"),
+                          SurfaceInput("wall", 12.0, "external_wall"),
+                          SurfaceInput("pipe", 8.0, "pipe"))
+    assert finding.coldest.label == "wall"
+    expected = 80.0 * coolprop_pw(12.0, 100.0) / coolprop_pw(18.0, 100.0)
+    assert finding.max_room_rh_pct_mould == pytest.approx(expected, rel=0.003)
+    assert finding.coldest_glazing_or_pipe.label == "pane"
+    dry = 100.0 * coolprop_pw(4.0, 100.0) / coolprop_pw(18.0, 100.0)
+    assert finding.max_room_rh_pct_dry_glazing_or_pipe == pytest.approx(dry, rel=0.003)
+    alone = winter_room(SurfaceInput("wall", 12.0, "external_wall"))
+    assert finding.max_room_rh_pct == alone.max_room_rh_pct
+
+
+def test_temperature_factor_only_for_the_envelope():
+    """fRsi (EN ISO 13788 [M]) is judged on external walls, ceilings, floors and surfaces
+    not said; glazing, frames, pipes and internal walls get no factor and no limit."""
+    elements = ("external_wall", "ceiling", "floor", "other", "internal_wall", "glazing",
+                "window_frame", "pipe")
+    finding = winter_room(*(SurfaceInput(e, 10.0, e) for e in elements))
+    by = {s.label: s for s in finding.surfaces}
+    for element in ("external_wall", "ceiling", "floor", "other"):
+        assert by[element].temperature_factor == pytest.approx((10 - 2) / (18 - 2)), element
+        assert by[element].temperature_factor_state is FactorState.UNDER
+    for element in ("internal_wall", "glazing", "window_frame", "pipe"):
+        assert by[element].temperature_factor is None
+        assert by[element].temperature_factor_limit is None
+        assert by[element].temperature_factor_state is FactorState.NOT_FOR_ELEMENT
+    # Glass and pipes are not judged for mould; frames (seals, timber) and walls are.
+    assert by["glazing"].mould is MouldState.NOT_JUDGED
+    assert by["pipe"].mould is MouldState.NOT_JUDGED
+    assert by["window_frame"].mould is MouldState.ABOVE
+    assert by["internal_wall"].mould is MouldState.ABOVE
+    # Every surface is judged for condensation: 18 °C / 65 % has its dew point at 11.3 °C
+    # (CoolProp), so 10 °C condenses whatever it is.
+    dew = HAPropsSI("D", "T", 291.15, "P", P, "R", 0.65) - 273.15
+    assert dew == pytest.approx(11.3, abs=0.1)
+    assert all(s.condensation is CondensationState.CONDENSING for s in finding.surfaces)
+
+
+def test_an_internal_wall_can_set_the_room_rh():
+    """An internal wall is inside the envelope: no factor, but mould on it sets the room RH."""
+    finding = winter_room(SurfaceInput("party", 13.0, "internal_wall"),
+                          SurfaceInput("pane", 5.0, "glazing"))
+    assert finding.coldest.label == "party"
+
+
+def test_only_glazing_measured_leaves_no_room_limit():
+    """With only a pane measured there is no wall to set the room RH."""
+    finding = winter_room(SurfaceInput("pane", 5.0, "glazing"))
+    assert finding.coldest is None and finding.max_room_rh_pct is None
+    assert finding.coldest_glazing_or_pipe.label == "pane"
+
+
+def test_unknown_element_is_refused():
+    """An element outside the list is refused, naming the surface."""
+    with pytest.raises(InputError) as caught:
+        winter_room(SurfaceInput("skylight", 5.0, "roof_light"))
+    assert caught.value.field == "element of surface skylight"
+    assert "glazing" in caught.value.allowed
+
+
+def test_why_the_factor_cannot_be_judged():
+    """No outdoor reading, or an inside-outside difference under 10 K (common practice, no
+    source), each gives its reason in words."""
+    assert winter_room(SurfaceInput("w", 12.0), outdoor=None) \
+        .temperature_factor_not_judged_reason == "no outdoor reading was given"
+    small = winter_room(SurfaceInput("w", 12.0), outdoor=OutdoorInput(12.0, 80.0))
+    assert small.temperature_factor_not_judged_reason == (
+        "the inside-outside difference is 6.0 K, below the 10 K needed")
+    assert winter_room(SurfaceInput("w", 12.0)).temperature_factor_not_judged_reason is None
+
+
+@pytest.mark.parametrize(("rh", "outdoor"), [(54.5, (0.0, 80.0)), (72.0, (3.0, 88.0)),
+                                             (45.0, (8.0, 70.0)), (90.0, (-5.0, 95.0))])
+def test_room_class_is_the_thresholds_rule(rh, outdoor):
+    """The room's class is thresholds.humidity_class of its excess (ISO 13788 limits [M]):
+    one rule, used by both."""
+    finding = assess.assess_room(RoomInput("R", "bedroom", 20.0, rh), OutdoorInput(*outdoor),
+                                 P, Accuracy())
+    assert finding.humidity_class == th.humidity_class(finding.vapour_pressure_excess_pa,
+                                                       outdoor[0])
+    low = th.humidity_class(finding.vapour_pressure_excess_pa
+                            - finding.vapour_pressure_excess_uncertainty_pa, outdoor[0])
+    assert finding.humidity_class_possible[0] == low
+
+
+def test_visible_mould_flag_without_an_area():
+    """Mould seen but not measured still counts as mould seen."""
+    assert assess.Observations(visible_mould=True).mould_seen
+    assert assess.Observations(visible_mould_area_m2=0.5).mould_seen
+    assert not assess.Observations().mould_seen
+
+
+def test_room_bounds_come_from_the_domain():
+    """Volume, occupants and accuracies are checked against survey.domain's bounds, and a
+    material reading the survey file model allows (up to 1000 on any scale) is assessed."""
+    from survey import domain
+    with pytest.raises(InputError, match=f"{domain.ROOM_VOLUME_MAX_M3:g}"):
+        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
+                                     volume_m3=domain.ROOM_VOLUME_MAX_M3 * 1.01))
+    with pytest.raises(InputError, match=f"{domain.OCCUPANTS_MAX}"):
+        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
+                                     occupants=domain.OCCUPANTS_MAX + 1))
+    with pytest.raises(InputError):
+        Accuracy(rh_pct=domain.RH_ACCURACY_MAX_PCT + 0.1)
+    Accuracy(domain.AIR_TEMP_ACCURACY_MAX_K, domain.RH_ACCURACY_MAX_PCT,
+             domain.SURFACE_TEMP_ACCURACY_MAX_K)
+    wet = MaterialReading("sole plate", "softwood", 240.0, "mc_pct", 12.0, timber=True)
+    found = assess.assess_room(RoomInput("R", "living", 20.0, 50.0, materials=(wet,)))
+    assert found.materials[0].timber_state is TimberState.DECAY_RANGE

@@ -108,9 +108,10 @@ def test_cold_damp_bedroom_table(check, monkeypatch):
                   "cannot be told apart at this instrument accuracy: approaching the mould "
                   "limit or above the mould limit",
                   '"Cannot be told apart at this instrument accuracy": the reading\'s range',
-                  "Highest room RH the coldest surface (Surface 1) can bear: 50 %",
+                  "Highest room RH the coldest wall, ceiling or floor (Surface 1, 11.0 °C) "
+                  "can bear: 50 %",
                   "class 4", "1. Ventilate", "m³/h", "air changes an hour",
-                  "2. Raise the surface temperature", "14.2 °C", "Safety",
+                  "2. Raise the surface temperature: Surface 1", "14.2 °C", "Safety",
                   "unflued gas or paraffin heaters", "asbestos",
                   "Follow local building codes", "Instrument accuracy: air ±0.5 K, RH ±3 %, "
                   "surface ±1.0 K (typical specifications, none entered)", "Limits used",
@@ -139,7 +140,14 @@ def test_humid_summer_dehumidify(check):
     dehum = data["actions"][0]
     assert dehum["removal_us_pints_per_day"] == pytest.approx(
         dehum["removal_l_per_day"] / 0.473176)  # 1 US pint = 0.473176 L [R]
-    assert dehum["removal_l_per_day"] > 5.0
+    # No occupants: the daily load is outdoor air leaking in at 0.5 ACH (common practice)
+    # bringing W_o − W_t, 24 h × 0.5 × 60 m³ / v_o × (W_o − W_t), W and v from CoolProp.
+    w_o, w_t = cp("W", 28.0, 75.0), cp("W", 22.0, dehum["target_rh_pct"])
+    load = 24 * 0.5 * 60.0 / cp("Vda", 28.0, 75.0) * (w_o - w_t)
+    assert dehum["removal_l_per_day"] == pytest.approx(load, rel=0.02)
+    # The one-off pull-down of the room air, 60 m³ / v_i × (W_i − W_t), is apart, in litres.
+    pull_down = 60.0 / cp("Vda", 22.0, 75.0) * (cp("W", 22.0, 75.0) - w_t)
+    assert dehum["pull_down_l"] == pytest.approx(pull_down, rel=0.02)
     assert dehum["suggest_desiccant"] is False
     assert any("confined" in c for c in data["cautions"])
     assert any("RCD" in c for c in data["cautions"])
@@ -213,7 +221,9 @@ def test_new_options_keep_the_fast_json_path():
     code = ("import contextlib, io, sys\nfrom survey.cli import main\n"
             "with contextlib.redirect_stdout(io.StringIO()):\n"
             f"    main(['check', *{BEDROOM!r}, '--target-rh', '55', '--rh-accuracy', '2',"
-            " '--air-temp-accuracy', '0.3', '--surface-temp-accuracy', '0.5', '--json'])\n"
+            " '--air-temp-accuracy', '0.3', '--surface-temp-accuracy', '0.5',"
+            " '--glazing-temp', '5', '--pipe-temp', '9', '--surface', 'floor:14:slab',"
+            " '--json'])\n"
             "print(' '.join(sys.modules))")
     result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
                             timeout=60)
@@ -221,3 +231,202 @@ def test_new_options_keep_the_fast_json_path():
     loaded = set(result.stdout.split())
     assert "survey.assess" in loaded and "survey.advise" in loaded
     assert "pint" not in loaded and "rich" not in loaded and "textual" not in loaded
+
+
+# --- what each surface is ---------------------------------------------------------------------------
+
+WINTER = ["--air-temp", "16", "--rh", "75", "--surface-temp", "9.5", "--surface-temp", "12",
+          "--surface-temp", "5", "--outdoor-temp", "2", "--outdoor-rh", "90", "--room-volume",
+          "30", "--occupants", "2", "--use", "bedroom"]
+
+
+def test_the_winter_repro_ventilates_and_never_says_closed(check):
+    """16 °C / 75 % with a 5 °C wall and 2 °C / 90 % outdoors (far drier, CoolProp W): the
+    target is held at the 40 % floor, and the advice still ventilates, dehumidifies and
+    warms the wall, never "keep windows … closed"."""
+    assert cp("W", 2.0, 90.0) < cp("W", 16.0, 75.0) - 0.004
+    status, out, err = check(*WINTER, "--json")
+    assert status == 0, err
+    data = json.loads(out)
+    kinds = [a["kind"] for a in data["actions"]]
+    assert kinds[:2] == ["ventilate", "dehumidify"]
+    assert "raise_surface_temperature" in kinds
+    assert not any("closed" in a["reason"] for a in data["actions"])
+    titles = [a["title"] for a in data["actions"]]
+    assert len(titles) == len(set(titles))
+
+
+def test_glazing_and_pipes_are_named_and_judged_apart(check):
+    """--glazing-temp, --pipe-temp and --surface ELEMENT:T:LABEL say what a surface is; the
+    highest safe room RH refers to the coldest wall, ceiling or floor and says so, with its
+    label and element: for the 11 °C wall, 80 × p_ws(11)/p_ws(18) (CoolProp, BS 5250 limit
+    [R]); glazing and pipes are reported apart."""
+    status, out, err = check("--air-temp", "18", "--rh", "72", "--glazing-temp", "4",
+                             "--surface", "external_wall:11:north wall", "--pipe-temp", "8",
+                             "--surface", "internal_wall:15.5", "--json")
+    assert status == 0, err
+    data = json.loads(out)
+    assert [(s["label"], s["element"]) for s in data["surfaces"]] == [
+        ("Glazing 1", "glazing"), ("north wall", "external_wall"), ("Pipe 1", "pipe"),
+        ("Internal wall 1", "internal_wall")]
+    assert data["coldest_surface"] == "north wall"
+    assert data["coldest_surface_element"] == "external_wall"
+    assert "coldest wall, ceiling or floor" in data["max_room_rh_basis"]
+    allowed = 80.0 * cp("P_w", 11.0, 100.0) / cp("P_w", 18.0, 100.0)
+    assert data["max_room_rh_pct_for_coldest_surface"] == pytest.approx(allowed, rel=0.003)
+    assert data["coldest_glazing_or_pipe"] == "Glazing 1"
+    assert data["max_room_rh_pct_dry_glazing_or_pipe"] == pytest.approx(
+        100.0 * cp("P_w", 4.0, 100.0) / cp("P_w", 18.0, 100.0), rel=0.003)
+    glass, _, pipe, _ = data["surfaces"]
+    assert glass["judged_as"] == "glazing" and glass["mould"] == "not_judged"
+    assert glass["temperature_factor_state"] == "not_for_element"
+    kinds = [a["kind"] for a in data["actions"]]
+    assert "reduce_glazing_condensation" in kinds and "insulate_pipe" in kinds
+
+
+@pytest.mark.parametrize(("args", "message"), [
+    (["--surface", "roof:5"], "--surface roof:5: element expected one of external_wall"),
+    (["--surface", "glazing"], "--surface glazing: expected ELEMENT:TEMPERATURE"),
+    (["--surface", "glazing:warm"], "--surface glazing:warm: expected a number"),
+    (["--glazing-temp", "200"], "--glazing-temp 200: surface temperature must be between"),
+])
+def test_bad_surface_options(check, args, message):
+    """Bad surface options: status 2, one line naming the option, the text and the fix."""
+    status, out, err = check("--air-temp", "18", "--rh", "72", *args)
+    assert status == 2 and out == ""
+    assert message in err, err
+    assert len(err.strip().splitlines()) == 1
+
+
+def test_help_explains_the_surface_options(check):
+    """--help tells how to say which surface is glass or pipe."""
+    status, out, _ = check("--help")
+    assert status == 0
+    flat = " ".join(out.split())
+    for words in ("--glazing-temp", "--pipe-temp", "--frame-temp", "ELEMENT:T[:LABEL]",
+                  "external_wall:11.2:NE corner", "never set the room's RH target"):
+        assert words in flat, words
+    # The defaults quoted are the thresholds table's (typical specifications, common
+    # practice): air ±0.5 K, RH ±3 %, surface ±1 K.
+    assert "(air ±0.5 K, RH ±3 %, surface ±1 K)" in flat
+
+
+# --- words for a client ------------------------------------------------------------------------------
+
+def test_summary_comes_first(check, monkeypatch):
+    """A short summary (3 to 6 lines: surfaces, highest safe RH, first action) opens the
+    table, before the moist-air table, and its highest safe RH is the Room section's."""
+    monkeypatch.setenv("COLUMNS", "400")
+    status, out, _ = check(*WINTER)
+    assert status == 0
+    lines = out.splitlines()
+    assert lines[0].strip() == "Summary"
+    end = lines.index("")
+    summary = [line.strip() for line in lines[1:end]]
+    assert 3 <= len(summary) <= 6
+    assert out.index("Summary") < out.index("Moist air")
+    assert summary[0].startswith("Surface 3, 5.0 °C: water forming; above the mould limit")
+    assert any(line.startswith("Highest safe room RH: 38 %") for line in summary)
+    assert summary[-1].startswith("First: Ventilate")
+    assert "can bear: 38 %" in " ".join(out.split())
+
+
+def test_surface_rh_over_100_and_degenerate_bands(check, monkeypatch):
+    """Over 100 % surface RH reads "over 100 % (water forming)" (frost below 0 °C) while the
+    JSON keeps the number; a surface warmer than the air shows no "100 to 100" band."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "5",
+                      "--surface-temp", "-4")
+    flat = " ".join(out.split())
+    assert "over 100 % (water forming)" in flat and "over 100 % (frost forming)" in flat
+    assert "frost forming now" in flat
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "5", "--json")
+    assert json.loads(out)["surfaces"][0]["surface_rh_pct"] > 100.0
+    _, out, _ = check("--air-temp", "18", "--rh", "50", "--surface-temp", "25")
+    flat = " ".join(out.split())
+    assert "100 to 100" not in flat
+    assert "any room RH" in flat
+
+
+def test_frost_point_is_called_so(check, monkeypatch):
+    """At 2 °C / 60 % the condensation point is the frost point, −4.4 °C by the WMO ice
+    formula (−4.38 °C, Guide No. 8 Annex 4.B [R, secondary]); the Room section names it a
+    frost point, and gives the dew point over water beside it."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--air-temp", "2", "--rh", "60", "--surface-temp", "-6")
+    flat = " ".join(out.split())
+    assert "Condensation point (frost point) -4.4 °C" in flat
+    assert "Dew point -4.4" not in flat
+    _, out, _ = check("--air-temp", "2", "--rh", "60", "--surface-temp", "-6", "--json")
+    data = json.loads(out)
+    assert data["condensation_point_is_frost_point"] is True
+    assert data["surfaces"][0]["frost"] is True
+    assert data["surfaces"][0]["condensation"] == "condensing"
+
+
+@pytest.mark.parametrize(("extra", "reason"), [
+    ([], "no outdoor reading"),
+    (["--outdoor-temp", "12", "--outdoor-rh", "80"], "the inside-outside difference is under"),
+])
+def test_factor_not_judged_says_why(check, monkeypatch, extra, reason):
+    """"Cannot be judged today" always says why: no outdoor reading, or an inside-outside
+    difference under the 10 K needed (common practice, no source)."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "11", "--use",
+                      "bedroom", *extra)
+    flat = " ".join(out.split())
+    assert f"cannot be judged today: {reason}" in flat
+    assert f"Temperature factor: cannot be judged today — {reason}" in flat
+
+
+def test_use_not_given_reads_neutrally(check, monkeypatch):
+    """No --use: "not given", the general limit 0.70 (IEA Annex 14 [M]), never "use not
+    listed" or "a room of this kind"."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check(*BEDROOM[:-2])
+    flat = " ".join(out.split())
+    assert "Use: not given (--use); the general temperature-factor limit 0.70 applies" in flat
+    assert "use not listed" not in flat and "of this kind" not in flat
+
+
+def test_ip_limits_and_rating_points(check, monkeypatch):
+    """In IP the 3 K margin reads 5.4 °F (3 × 1.8) and the dehumidifier rating points read
+    80 °F and 65 °F (AHAM DH-1, current US test [R, secondary]); the marks read for a client."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--units", "ip", "--air-temp", "71.6", "--rh", "75", "--surface-temp",
+                      "62.6", "--outdoor-temp", "82.4", "--outdoor-rh", "75", "--room-volume",
+                      "2119", "--occupants", "0", "--use", "basement")
+    flat = " ".join(out.split())
+    assert "Dew-point margin 5.4 °F: source: ISO 8502-4" in flat
+    assert "Dew-point margin 3 K" not in flat
+    assert "80 °F and 60 % RH" in flat and "65 °F and 60 % RH" in flat
+    assert "80.1 °F" not in flat and "64.9 °F" not in flat
+    assert "from memory" not in flat.split("Limits used")[1]
+    assert "value not yet checked against the original text" in flat
+
+
+def test_units_upper_case_and_plausibility_warning(check):
+    """--units IP is accepted; a bare SI air temperature above 40 °C gets one warning line on
+    stderr and the check goes on; 70F or --units ip give none."""
+    status, out, err = check("--air-temp", "70", "--rh", "55", "--json")
+    assert status == 0
+    assert err.strip() == ("survey: warning: --air-temp 70: read as 70 °C; for °F use "
+                           "--units ip or 70F")
+    assert json.loads(out)["dry_bulb_c"] == 70.0
+    for args in (["--air-temp", "70F", "--rh", "55"],
+                 ["--air-temp", "70", "--rh", "55", "--units", "IP"]):
+        status, out, err = check(*args, "--json")
+        assert status == 0 and err == ""
+        # 70 °F = (70 − 32)/1.8 °C, exact by definition of the scales.
+        assert json.loads(out)["dry_bulb_c"] == pytest.approx((70 - 32) / 1.8)
+
+
+def test_dehumidifier_numbers_read_once(check, monkeypatch):
+    """The daily total and the size are one number in the table, and a load that cannot be
+    worked out gives no "at least" sentence (null in JSON)."""
+    monkeypatch.setenv("COLUMNS", "400")
+    no_people = [a for a in SUMMER if a not in ("--occupants", "0")]
+    _, out, _ = check(*no_people, "--json")
+    dehum = json.loads(out)["actions"][0]
+    assert dehum["kind"] == "dehumidify" and dehum["removal_l_per_day"] is None
+    assert "at least" not in dehum["reason"] and "room volume" not in dehum["reason"]

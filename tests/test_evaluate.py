@@ -28,9 +28,11 @@ def _kinds(advice) -> list[str]:
 
 
 def test_room_uses_and_moisture_scales_agree_between_model_and_assessment():
-    """Every room use and moisture scale a survey file allows, the assessment knows."""
+    """Every room use, moisture scale and surface element a survey file allows, the
+    assessment knows."""
     assert set(typing.get_args(model.RoomUse)) == set(th.ROOM_USES)
     assert set(typing.get_args(model.MoistureScale)) == set(assess.MATERIAL_SCALES)
+    assert set(typing.get_args(model.Element)) == set(th.SURFACE_ELEMENTS)
 
 
 def test_winter_flat_bedroom_corner_is_above_the_mould_limit():
@@ -133,3 +135,54 @@ def test_room_without_an_air_reading_is_left_out():
 def test_timber_is_recognised_by_name(material, timber):
     """Timber limits apply to wood products only."""
     assert evaluate.is_timber(material) is timber
+
+
+def test_mould_seen_without_an_area_gets_its_caution():
+    """Mould recorded as visible with no area (on the room, or on one surface) still gets the
+    mould caution, with the medium-area guidance and "measure it" (US EPA bands, from
+    memory)."""
+    survey = load("winter-flat-bedroom-mould")
+    room_visit = survey.visits[0].room_visit("bed1")
+    assert room_visit.observations.mould_visible
+    room_visit.observations.mould_area_m2 = None
+    judged = evaluate.assess_visit(survey, 0)
+    advice = judged.advice.rooms[judged.room_ids.index("bed1")]
+    text = {c.key: c.text for c in advice.cautions}["visible_mould"]
+    assert "area not measured" in text and "measure it" in text
+    room_visit.observations.mould_visible = False
+    for surface in room_visit.surfaces:
+        surface.mould_visible = False
+    room_visit.surfaces[0].mould_visible = True
+    entered: dict[str, bool] = {}
+    judged_room = evaluate.room_input(survey, survey.visits[0], room_visit, entered)
+    assert judged_room.observations.visible_mould is True
+
+
+def test_basement_drying_visits_say_keep_drying():
+    """On each drying visit of the basement example (drying equipment running), readings
+    above the dry standard read "continue drying until readings reach the dry standard",
+    never "find the source"; clean (category 1) water gets the note that it degrades to
+    category 2 if left standing (restoration standard of practice [R, secondary])."""
+    survey = load("basement-burst-pipe-drying")
+    for index in range(len(survey.visits)):
+        judged = evaluate.assess_visit(survey, index)
+        room_visit = judged.visit.room_visit("family")
+        assert evaluate.drying_in_progress(room_visit)
+        advice = judged.advice.rooms[judged.room_ids.index("family")]
+        kinds = _kinds(advice)
+        assert kinds[0] == "keep_drying", (index, kinds)
+        assert "find_source" not in kinds
+        assert advice.actions[0].reason.startswith(
+            "Continue drying until readings reach the dry standard")
+        if any(rv.observations.water_category == 1 for rv in judged.visit.rooms):
+            assert "water_category_1" in [c.key for c in judged.advice.cautions]
+    # Day 3: the skirting is down to 16 % MC against an 11.5 % dry standard; the goal is at
+    # most 11.5 × 1.1 (the 10 % allowance, common practice).
+    day3 = evaluate.assess_visit(survey, len(survey.visits) - 1)
+    keep = day3.advice.rooms[day3.room_ids.index("family")].actions[0]
+    goals = {m["label"]: (m["value"], m["dry_at_or_below"]) for m in keep.values["materials"]}
+    value, goal = goals["Skirting, party wall"]
+    assert value > goal
+    standard = next(m.dry_standard for m in day3.findings.rooms[
+        day3.room_ids.index("family")].materials if m.label == "Skirting, party wall")
+    assert goal == pytest.approx(standard * 1.1)

@@ -9,11 +9,14 @@ from __future__ import annotations
 import csv
 import io
 import json
+import os
 import shutil
+import socket
 import subprocess
 import sys
 from pathlib import Path
 
+import msgspec
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
@@ -32,7 +35,7 @@ def _run(*argv: str) -> subprocess.CompletedProcess:
 
 
 def _read_csv(path: Path) -> list[dict[str, str]]:
-    return list(csv.DictReader(io.StringIO(path.read_text(encoding="utf-8-sig"))))
+    return list(csv.DictReader(io.StringIO(path.read_bytes().decode("utf-8-sig"), newline="")))
 
 
 # --- new ---------------------------------------------------------------------------------
@@ -233,8 +236,12 @@ def test_import_log_refuses_the_same_file_twice(flat_and_log, capsys):
     path, log = flat_and_log
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 0
     before = path.read_bytes()
+    capsys.readouterr()
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
-    assert "already imported" in capsys.readouterr().err
+    err = capsys.readouterr().err
+    assert "already imported into Main bedroom (bed1) (3 samples, 2025-01-15 10:00 to 12:00, " \
+           "from bedroom-logger.csv" in err
+    assert err.rstrip().endswith("nothing was changed") and "logs[" not in err
     assert path.read_bytes() == before
 
 
@@ -301,3 +308,153 @@ def test_help_lists_the_file_commands():
     assert result.returncode == 0
     for command in ("new", "validate", "export", "import-log", "schema"):
         assert command in result.stdout
+
+
+def test_import_log_of_a_later_export_adds_only_the_new_samples(flat_and_log, capsys, tmp_path):
+    """A later export of the same logger repeats the earlier samples: only new times are
+    added and the summary says how many were left out; with nothing new, nothing changes."""
+    path, log = flat_and_log
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 0
+    later = tmp_path / "bedroom-logger-later.csv"
+    later.write_bytes((LOG + "6,01/15/25 12:30:00 PM,65.1,69.0\r\n").encode("cp1252"))
+    capsys.readouterr()
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(later)]) == 0
+    out = capsys.readouterr().out
+    assert "Imported 1 sample from bedroom-logger-later.csv into Main bedroom (bed1) at " \
+           "2025-01-15 12:30" in out
+    assert "Left out 3 samples already in the survey for Main bedroom (bed1), from " \
+           "bedroom-logger.csv" in out
+    first, second = store.load_survey(path).logs
+    assert [s.at.hour * 60 + s.at.minute for s in second.samples] == [12 * 60 + 30]
+    before = path.read_bytes()
+    again = tmp_path / "bedroom-logger-copy.csv"
+    again.write_bytes(later.read_bytes() + b"\r\n")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(again)]) == 0
+    out = capsys.readouterr().out
+    assert out.startswith("Nothing to import: all 4 samples of bedroom-logger-copy.csv")
+    assert "the survey was not changed" in out
+    assert path.read_bytes() == before
+
+
+def test_import_log_summary_names_where_the_unit_came_from(flat_and_log, capsys, tmp_path):
+    """The summary says 'unit from the header' or 'as given by --temp-unit', and warns when
+    --temp-unit overrides a header's °F."""
+    path, _log = flat_and_log
+    log = tmp_path / "c.csv"
+    log.write_text("Time,Temp (°F),RH (%)\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run",
+                 "--temp-unit", "c"]) == 0
+    out = capsys.readouterr().out
+    assert "(°C, unit as given by --temp-unit)" in out and "the stated" not in out
+    assert "The header says °F; --temp-unit c was given: the temperatures are read as °C." in out
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run"]) == 0
+    assert "(°F, converted to °C, unit from the header)" in capsys.readouterr().out
+
+
+def test_import_log_help_for_temp_unit_is_consistent():
+    """The --temp-unit help says when it is needed and that it wins over the header."""
+    result = _run("import-log", "--help")
+    text = " ".join(result.stdout.split())
+    assert "needed when the header does not say; when it does, this wins" in text
+    assert "does not say (overrides it)" not in text
+
+
+def test_import_log_into_a_locked_survey_says_what_can_be_done(flat_and_log, capsys):
+    """The locked message says that validate and export work meanwhile, and no read-only
+    option that does not exist."""
+    path, log = flat_and_log
+    with store.open_for_editing(path):
+        assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 1
+    err = capsys.readouterr().err
+    assert "survey validate and survey export only read the survey and work meanwhile" in err
+    assert "read-only" not in err
+
+
+def test_import_log_reports_a_bad_survey_before_the_csv(tmp_path, capsys):
+    """A survey file that is not a survey is reported first, before the logger CSV's own
+    problems (here: no header)."""
+    survey = tmp_path / "notsurvey.json"
+    survey.write_text('{"a": 1}')
+    log = tmp_path / "bad.csv"
+    log.write_text("garbage\n")
+    assert main(["import-log", str(survey), "--room", "x", "--csv", str(log)]) == 1
+    err = capsys.readouterr().err
+    assert "this is not a condition-survey file" in err and "--csv" not in err
+
+
+def test_validate_says_a_lock_is_stale(tmp_path, capsys):
+    """A lock left by a process that is gone is reported as stale, not as 'open for editing'."""
+    path = tmp_path / "flat.json"
+    shutil.copy(FLAT, path)
+    gone = subprocess.Popen([sys.executable, "-c", "pass"])
+    gone.wait()
+    info = store.LockInfo(pid=gone.pid, host=socket.gethostname(), user="avery",
+                          started_at="2025-01-15T09:30:00", token="t")
+    store.lock_path(path).write_bytes(msgspec.json.encode(info))
+    assert main(["validate", str(path)]) == 0
+    out = capsys.readouterr().out
+    assert "a stale lock from avery" in out and "left by a process that is gone" in out
+    assert "open for editing" not in out
+
+
+def test_validate_of_a_logger_csv_points_to_import_log(tmp_path, capsys):
+    """A logger CSV given to validate: not valid JSON, and a pointer to import-log."""
+    log = tmp_path / "logger.csv"
+    log.write_text("Time,Temperature (°C),RH (%)\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
+    assert main(["validate", str(log)]) == 1
+    err = capsys.readouterr().err
+    assert "not valid JSON" in err and "survey import-log SURVEY.json --room NAME --csv" in err
+
+
+def test_validate_of_other_json_is_one_plain_sentence(tmp_path, capsys):
+    """A JSON file that is no survey is named so in one sentence, without a document path."""
+    path = tmp_path / "other.json"
+    path.write_text('{"name": "something else"}')
+    assert main(["validate", str(path)]) == 1
+    assert capsys.readouterr().err.strip() == (
+        f"survey: {path}: this is not a condition-survey file (it has no schema_version)")
+
+
+def test_export_neutralises_spreadsheet_formulas(tmp_path):
+    """Text cells starting with = + - @ (or a tab or CR) get a leading apostrophe so that a
+    spreadsheet shows them as text; numbers, negative ones too, are left alone."""
+    survey = store.load_survey(FLAT)
+    surfaces = [surface for room in survey.visits[0].rooms for surface in room.surfaces]
+    texts = ['=HYPERLINK("http://example.invalid","x")', "+1+cmd|' /C calc'!A0", "-2+3",
+             "@SUM(A1)", "\tleading tab", "\rleading CR", "plain text", "-5"]
+    for surface, text in zip(surfaces, texts):
+        surface.location = text
+    survey.visits[0].outdoor.dry_bulb_c = -3.5
+    path = tmp_path / "s.json"
+    store.save_survey(survey, path)
+    out = tmp_path / "o.csv"
+    assert main(["export", str(path), "--csv", str(out)]) == 0
+    rows = _read_csv(out)
+    cells = [r["location"] for r in rows if r["kind"] == "surface"][:len(texts)]
+    assert cells == ["'" + t for t in texts[:6]] + ["plain text", "-5"]
+    outdoor = rows[0]
+    assert outdoor["dry_bulb_c"] == "-3.5" and outdoor["dew_point_c"].startswith("-")
+
+
+def test_export_writes_through_the_store_s_crash_safe_writer(tmp_path, capsys):
+    """The CSV's temporary file is not the old predictable name: a symlink planted there
+    is left alone and its target unchanged."""
+    victim = tmp_path / "victim.txt"
+    victim.write_text("keep me")
+    out = tmp_path / "o.csv"
+    (tmp_path / f".{out.name}.{os.getpid()}.tmp").symlink_to(victim)
+    assert main(["export", str(FLAT), "--csv", str(out)]) == 0
+    assert victim.read_text() == "keep me" and _read_csv(out)
+
+
+def test_export_of_a_survey_without_readings_says_why(tmp_path, capsys):
+    """An empty survey exports the header row only, and the message says why."""
+    path = tmp_path / "new.json"
+    assert main(["new", str(path), "--site", "Demo"]) == 0
+    out = tmp_path / "o.csv"
+    capsys.readouterr()
+    assert main(["export", str(path), "--csv", str(out)]) == 0
+    message = capsys.readouterr().out
+    assert "Wrote 0 rows" in message
+    assert "the survey has no visits or logger readings yet" in message
+    assert len(out.read_text(encoding="utf-8-sig").splitlines()) == 1

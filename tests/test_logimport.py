@@ -181,3 +181,83 @@ def test_digest_identifies_the_file():
     import hashlib
 
     assert logimport.read_logger_csv(data).sha256 == hashlib.sha256(data).hexdigest()
+
+
+def test_rh_written_as_fractions_is_read_as_percent_and_said_so():
+    """When every RH in the file is at most 1 (0.65, 0,81 with a decimal comma) the values
+    are fractions: × 100, and the notes say so."""
+    data = _csv("Time;Temperatur [°C];RH", "2025-01-15 10:00;18,0;0,65",
+                "2025-01-15 10:30;18,2;0,81", "2025-01-15 11:00;18,1;1")
+    result = logimport.read_logger_csv(data)
+    assert [s.rh_pct for s in result.samples] == [65.0, 81.0, 100.0]
+    assert result.rh_as_fraction
+    assert any("fractions" in note and "100" in note for note in result.notes)
+
+
+def test_a_few_fraction_like_rh_values_among_percentages_are_skipped():
+    """Among percentages, an RH below 1 % looks like a fraction: that row is skipped with
+    the reason, the others imported as percent."""
+    data = _csv("Time,Temperature (°C),RH (%)", "2025-01-15 10:00,18.0,65",
+                "2025-01-15 10:30,18.2,0.81", "2025-01-15 11:00,18.1,70")
+    result = logimport.read_logger_csv(data)
+    assert [s.rh_pct for s in result.samples] == [65.0, 70.0]
+    assert not result.rh_as_fraction
+    ((line, reason),) = [(s.line, s.reason) for s in result.skipped]
+    assert line == 3 and "RH below 1 % looks like a fraction" in reason
+
+
+def test_one_impossible_date_does_not_stop_the_date_order_detection():
+    """13/15/2025 is no date in either order: that row is skipped with a reason and the
+    order is found from the others (01/13/2025: month first)."""
+    data = _csv("Time,Temp (F),RH", "01/12/2025 23:00,65,60", "13/15/2025 00:00,64,61",
+                "01/13/2025 00:30,64,61")
+    result = logimport.read_logger_csv(data)
+    assert result.date_order == "mdy"
+    assert [s.at for s in result.samples] == [D(2025, 1, 12, 23), D(2025, 1, 13, 0, 30)]
+    ((line, reason),) = [(s.line, s.reason) for s in result.skipped]
+    assert line == 3 and "'13/15/2025 00:00' is not a real date" in reason
+
+
+def test_the_date_order_message_does_not_pass_a_date_off_as_the_option():
+    """The ambiguous-date message quotes the date as an example, not as the --date-order
+    value given."""
+    data = _csv("Time,Temp (C),RH", "03/02/2025 10:00,17.5,82", "04/02/2025 10:00,20.5,55")
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(data)
+    assert err.value.value == "(not given)"
+    assert "dates such as '03/02/2025 10:00' (line 2)" in err.value.allowed
+
+
+def test_dates_only_possible_in_opposite_orders_need_the_order_stated():
+    """13/01/2025 (day first only) and 01/13/2025 (month first only) in one file contradict
+    each other: the import asks for --date-order, naming both lines."""
+    data = _csv("Time,Temp (C),RH", "13/01/2025 10:00,17.5,82", "01/13/2025 11:00,17.5,82")
+    with pytest.raises(InputError) as err:
+        logimport.read_logger_csv(data)
+    assert err.value.field == "--date-order"
+    assert "(line 2)" in err.value.allowed and "(line 3)" in err.value.allowed
+
+
+def test_times_with_and_without_utc_offset_do_not_crash():
+    """A file mixing '2025-01-15T10:00:00+01:00' with '2025-01-15 09:30' (unorderable in
+    Python) keeps the kind most rows have and skips the others with a reason."""
+    data = _csv("Time,Temperature (°C),RH (%)", "2025-01-15T10:30:00+01:00,18.0,65",
+                "2025-01-15 09:30,18.2,66", "2025-01-15T10:00:00+01:00,18.3,67")
+    result = logimport.read_logger_csv(data)
+    assert [s.at.isoformat() for s in result.samples] == ["2025-01-15T10:00:00+01:00",
+                                                          "2025-01-15T10:30:00+01:00"]
+    assert result.reordered
+    ((line, reason),) = [(s.line, s.reason) for s in result.skipped]
+    assert line == 3 and "no UTC offset" in reason
+
+
+def test_temp_unit_against_the_header_is_obeyed_with_a_warning():
+    """--temp-unit c on a °F header reads °C, and the notes say the header disagreed."""
+    data = _csv("Time,Temp (°F),RH (%)", "2025-07-22 14:00,22.5,82")
+    result = logimport.read_logger_csv(data, temp_unit="c")
+    assert result.samples[0].dry_bulb_c == 22.5
+    assert result.unit_source == "stated"
+    assert result.notes == ["The header says °F; --temp-unit c was given: the temperatures "
+                            "are read as °C."]
+    agreeing = logimport.read_logger_csv(data, temp_unit="f")
+    assert agreeing.unit_source == "header" and agreeing.notes == []

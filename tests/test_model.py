@@ -57,8 +57,9 @@ def test_new_survey_rejects_an_empty_reference():
     "record, field, words",
     [
         (model.AirReading(dry_bulb_c=71.0, rh_pct=50.0), "dry_bulb_c", "between -50 and 70 °C"),
-        (model.AirReading(dry_bulb_c=20.0, rh_pct=0.0), "rh_pct", "above 0 and at most 100 %"),
-        (model.AirReading(dry_bulb_c=20.0, rh_pct=100.5), "rh_pct", "at most 100 %"),
+        (model.AirReading(dry_bulb_c=20.0, rh_pct=0.0), "rh_pct", "between 0.1 and 100 %"),
+        (model.AirReading(dry_bulb_c=20.0, rh_pct=0.05), "rh_pct", "between 0.1 and 100 %"),
+        (model.AirReading(dry_bulb_c=20.0, rh_pct=100.5), "rh_pct", "between 0.1 and 100 %"),
         (model.AirReading(dry_bulb_c=float("nan"), rh_pct=50.0), "dry_bulb_c", "expected a number"),
         (model.AirReading(dry_bulb_c=float("inf"), rh_pct=50.0), "dry_bulb_c", "expected a number"),
         (model.SurfaceReading(location="x", element="glazing", surface_temp_c=-61.0),
@@ -66,7 +67,8 @@ def test_new_survey_rejects_an_empty_reference():
         (model.SurfaceReading(location="x", element="window", surface_temp_c=5.0),
          "element", "choose one of"),
         (model.Room(id="a b", name="Bedroom"), "id", "not a valid id"),
-        (model.Room(id="b1", name="Bedroom", volume_m3=-2.0), "volume_m3", "above 0"),
+        (model.Room(id="b1", name="Bedroom", volume_m3=-2.0), "volume_m3",
+         "between 1 and 100000 m³"),
         (model.MaterialReading(location="x", material="plaster", value=-1, scale="wme_pct"),
          "value", "between 0 and 1000"),
         (model.Site(reference="x", pressure_pa=120_000.0), "pressure_pa", "between 50000 and 110000 Pa"),
@@ -86,7 +88,7 @@ def test_reading_ranges_are_the_psychro_input_domain():
     air = schema["AirReading"]["properties"]
     assert air["dry_bulb_c"]["minimum"] == psychro.DRY_BULB_MIN_C
     assert air["dry_bulb_c"]["maximum"] == psychro.DRY_BULB_MAX_C
-    assert air["rh_pct"]["exclusiveMinimum"] == 0 and air["rh_pct"]["maximum"] == 100
+    assert air["rh_pct"]["minimum"] == psychro.RH_MIN_PCT and air["rh_pct"]["maximum"] == 100
     surface = schema["SurfaceReading"]["properties"]["surface_temp_c"]
     assert (surface["minimum"], surface["maximum"]) == (psychro.SURFACE_TEMP_MIN_C,
                                                         psychro.SURFACE_TEMP_MAX_C)
@@ -326,3 +328,40 @@ def test_log_sample_is_stored_as_a_three_item_list():
     """Logger samples are compact [time, dry_bulb_c, rh_pct] lists in the file."""
     sample = model.LogSample(at=dt.datetime(2025, 1, 1, 12), dry_bulb_c=18.5, rh_pct=61.0)
     assert msgspec.json.decode(msgspec.json.encode(sample)) == ["2025-01-01T12:00:00", 18.5, 61.0]
+
+
+@pytest.mark.parametrize("name, words", [
+    ("/home/avery/photos/corner.jpg", "is an absolute path"),
+    ("\\\\server\\share\\corner.jpg", "is an absolute path"),
+    ("C:\\Photos\\corner.jpg", "is an absolute path"),
+    ("../corner.jpg", "steps out of the survey file's folder"),
+    ("photos/../../corner.jpg", "steps out of the survey file's folder"),
+    ("photos\\..\\..\\corner.jpg", "steps out of the survey file's folder"),
+    ("..", "steps out of the survey file's folder"),
+    ("corner\x07.jpg", "control characters"),
+])
+def test_photo_names_must_stay_inside_the_survey_folder(name, words):
+    """A photo's file name is relative to the survey's folder: absolute paths, drive letters
+    and '..' are refused with a message saying why."""
+    with pytest.raises(InputError) as err:
+        model.check_record(model.RoomVisit(room="bed1", photos=[name]))
+    assert err.value.field == "photos[0]"
+    assert words in err.value.allowed
+    assert model.photo_name_problem(name)
+
+
+@pytest.mark.parametrize("name", ["corner.jpg", "photos/bed1 corner.jpg", "a..b.jpg",
+                                  "visit 1\\IMG_0042.JPG", "~corner.jpg"])
+def test_relative_photo_names_are_accepted(name):
+    """Names inside the survey's folder or a sub-folder are fine."""
+    model.check_record(model.RoomVisit(room="bed1", photos=[name]))
+    assert model.photo_name_problem(name) == ""
+
+
+@pytest.mark.parametrize("path", EXAMPLE_FILES, ids=lambda p: p.stem)
+def test_example_people_and_places_are_plainly_invented(path):
+    """Every name, address, client and inspector of an example is a plain placeholder
+    ("Example", "Sample", "Demo"), never a real-looking place, firm or person."""
+    site = store.load_survey(path).site
+    for text in (site.reference, site.address, site.client, site.inspector):
+        assert any(word in text for word in ("Example", "Sample", "Demo", "example")), text

@@ -19,7 +19,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from survey import model, store
+from survey import domain, model, psychro, store
 from survey.errors import SurveyFileError
 
 ROOT = Path(__file__).resolve().parents[1]
@@ -46,7 +46,7 @@ _text = st.text(max_size=20)
 _name = st.text(min_size=1, max_size=20)
 _ids = st.from_regex(r"\A[A-Za-z0-9][A-Za-z0-9_.-]{0,8}\Z")
 _file_names = st.text(st.characters(min_codepoint=0x20, blacklist_categories=("Cs",)),
-                      min_size=1, max_size=20)
+                      min_size=1, max_size=20).filter(lambda n: not model.photo_name_problem(n))
 _times = st.one_of(
     st.none(),
     st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
@@ -60,6 +60,14 @@ def _maybe(strategy):
     return st.one_of(st.none(), strategy)
 
 
+def _room(**fields) -> model.Room:
+    """A room whose floor area × height, when it gives the volume, lies in the domain."""
+    room = model.Room(**fields)
+    if model._volume_problem(room):
+        room.height_m = None
+    return room
+
+
 @st.composite
 def surveys(draw) -> model.Survey:
     instrument_ids = draw(st.lists(_ids, max_size=3, unique=True))
@@ -68,20 +76,24 @@ def surveys(draw) -> model.Survey:
 
     def air():
         return st.builds(model.AirReading, dry_bulb_c=_floats(-50, 70),
-                         rh_pct=_floats(0, 100, exclude_low=True), taken_at=_times,
+                         rh_pct=_floats(psychro.RH_MIN_PCT, 100), taken_at=_times,
                          instrument=instrument_ref)
 
     instruments = [draw(st.builds(
         model.Instrument, id=st.just(i), kind=st.sampled_from(model.InstrumentKind.__args__),
         name=_name, serial=_text, calibrated_on=_maybe(st.dates(dt.date(1990, 1, 1))),
-        air_temp_accuracy_k=_maybe(_floats(0, 10, exclude_low=True)),
-        rh_accuracy_pct=_maybe(_floats(0, 20, exclude_low=True)),
+        air_temp_accuracy_k=_maybe(_floats(0, domain.AIR_TEMP_ACCURACY_MAX_K, exclude_low=True)),
+        rh_accuracy_pct=_maybe(_floats(0, domain.RH_ACCURACY_MAX_PCT, exclude_low=True)),
+        surface_temp_accuracy_k=_maybe(_floats(0, domain.SURFACE_TEMP_ACCURACY_MAX_K,
+                                               exclude_low=True)),
         emissivity=_maybe(_floats(0, 1, exclude_low=True)), notes=_text)) for i in instrument_ids]
     rooms = [draw(st.builds(
-        model.Room, id=st.just(r), name=_name, level=st.integers(-10, 200),
-        use=st.sampled_from(model.RoomUse.__args__), volume_m3=_maybe(_floats(0, 1e6, exclude_low=True)),
-        floor_area_m2=_maybe(_floats(0, 1e5, exclude_low=True)),
-        height_m=_maybe(_floats(0, 100, exclude_low=True)), occupants=st.integers(0, 1000),
+        _room, id=st.just(r), name=_name, level=st.integers(-10, 200),
+        use=st.sampled_from(model.RoomUse.__args__),
+        volume_m3=_maybe(_floats(domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3)),
+        floor_area_m2=_maybe(_floats(domain.FLOOR_AREA_MIN_M2, domain.FLOOR_AREA_MAX_M2)),
+        height_m=_maybe(_floats(domain.ROOM_HEIGHT_MIN_M, domain.ROOM_HEIGHT_MAX_M)),
+        occupants=st.integers(0, domain.OCCUPANTS_MAX),
         is_reference=st.booleans(), notes=_text)) for r in room_ids]
     surface = st.builds(model.SurfaceReading, location=_name,
                         element=st.sampled_from(model.Element.__args__),
@@ -95,7 +107,7 @@ def surveys(draw) -> model.Survey:
     observations = st.builds(
         lambda visible, area, **kw: model.Observations(
             mould_visible=visible, mould_area_m2=area if visible else None, **kw),
-        st.booleans(), _maybe(_floats(0, 1e5)), staining=st.booleans(),
+        st.booleans(), _maybe(_floats(0, domain.MOULD_AREA_MAX_M2)), staining=st.booleans(),
         condensation_seen=st.booleans(), odour=_maybe(st.sampled_from(model.Odour.__args__)),
         water_category=_maybe(st.sampled_from((1, 2, 3))), notes=_text)
     equipment = st.builds(model.Equipment, kind=st.sampled_from(model.EquipmentKind.__args__),
@@ -116,7 +128,7 @@ def surveys(draw) -> model.Survey:
             label=_text, weather=_text, outdoor=_maybe(air()),
             pressure_pa=_maybe(_floats(50_000, 110_000)), rooms=st.just(room_visits))))
     sample = st.builds(model.LogSample, at=st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
-                       dry_bulb_c=_floats(-50, 70), rh_pct=_floats(0, 100, exclude_low=True))
+                       dry_bulb_c=_floats(-50, 70), rh_pct=_floats(psychro.RH_MIN_PCT, 100))
     logs = draw(st.lists(st.builds(
         model.LogSeries, room=_maybe(st.sampled_from(room_ids)), source=_name,
         samples=st.lists(sample, max_size=5), instrument=instrument_ref,
@@ -382,13 +394,13 @@ HOSTILE = {
     "truncated in half": (GOOD[: len(GOOD) // 2], "line", "truncated"),
     "last byte missing": (GOOD.rstrip()[:-1], "line", "truncated"),
     "utf-16": (GOOD.decode().encode("utf-16"), "", "UTF-16"),
-    "invalid utf-8": (GOOD.replace(b"Alder Row", b"Alder \xff\xfe Row", 1), "line", "UTF-8"),
+    "invalid utf-8": (GOOD.replace(b"Example Row", b"Example \xff\xfe Row", 1), "line", "UTF-8"),
     "zip archive": (b"PK\x03\x04" + b"\x00" * 50, "", "ZIP"),
     "top level array": (b"[1, 2, 3]", "", "top level is not a JSON object"),
     "top level number": (b"42", "", "top level is not a JSON object"),
     "trailing text": (GOOD + b"\nEND OF MESSAGE\n", "line", "more text after"),
-    "missing schema_version": (_with(lambda d: d.pop("schema_version")), "schema_version",
-                               "not a condition-survey file"),
+    "missing schema_version": (_with(lambda d: d.pop("schema_version")), "",
+                               "this is not a condition-survey file (it has no schema_version)"),
     "schema_version as text": (_with(_set(["schema_version"], "1")), "schema_version",
                                "whole number"),
     "newer schema_version": (_with(_set(["schema_version"], 99)), "schema_version",
@@ -402,7 +414,7 @@ HOSTILE = {
                              "visits[1].rooms[2].surfaces[0].surface_temp_c",
                              "500 is out of range; allowed: between -60 and 90 °C"),
     "rh above 100": (_with(_set(["visits", 0, "outdoor", "rh_pct"], 101)),
-                     "visits[0].outdoor.rh_pct", "at most 100 %"),
+                     "visits[0].outdoor.rh_pct", "between 0.1 and 100 %"),
     "huge number": (GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": 1e400'),
                     "site.altitude_m", "too large"),
     "huge integer": (_with(_set(["rooms", 0, "occupants"], 10**40)), "rooms[0].occupants",
@@ -437,7 +449,7 @@ HOSTILE = {
     "long logger sample": (_with(_set(["logs"], [{"room": "family", "source": "a.csv",
                                                   "samples": [["2025-02-03T10:00:00", 18.0, 50, 1]]}])),
                            "logs[0].samples[0]", "expected a list of 3 items"),
-    "lone surrogate escape": (GOOD.replace(b"Alder Row", b"Alder \\ud800 Row", 1), "line",
+    "lone surrogate escape": (GOOD.replace(b"Example Row", b"Example \\ud800 Row", 1), "line",
                               "surrogate"),
 }
 

@@ -2,12 +2,15 @@
 
 from __future__ import annotations
 
+import multiprocessing
 import os
+import random
 import shutil
 import socket
 import subprocess
 import sys
 import textwrap
+import time
 from pathlib import Path
 
 import msgspec
@@ -177,3 +180,69 @@ def test_stale_temporary_files_are_removed_on_open(survey_path):
         pass
     assert not any(path.exists() for path in dead)
     assert mine.exists() and unrelated.exists()
+
+
+ROUNDS = 6
+
+
+def _jittered(fn, rng, most_s=0.002):
+    """``fn`` with a random pause before and after: a busy, slow machine."""
+    def call(*args, **kwargs):
+        time.sleep(rng.uniform(0, most_s))
+        try:
+            return fn(*args, **kwargs)
+        finally:
+            time.sleep(rng.uniform(0, most_s))
+    return call
+
+
+def _racer(path, seed, barrier, results, release):
+    """One process trying to open the survey whose lock is stale, at the same moment as the
+    others; a winner keeps the lock until the test has looked."""
+    rng = random.Random(seed)
+    for name in ("rename", "replace", "link", "unlink", "open"):
+        setattr(os, name, _jittered(getattr(os, name), rng))
+    # Above all, time passes between looking at a lock and acting on what was seen.
+    store.lock_is_stale = _jittered(store.lock_is_stale, rng, 0.02)
+    barrier.wait(timeout=30)
+    try:
+        ours, _previous = store.acquire_lock(path)
+    except store.SurveyLocked as exc:
+        results.put(("locked", exc.holder.token if exc.holder else ""))
+        return
+    except Exception as exc:  # noqa: BLE001 - reported to the test
+        results.put(("error", repr(exc)))
+        return
+    results.put(("won", ours.token))
+    release.wait(timeout=30)
+    store.release_lock(path, ours)
+
+
+@pytest.mark.skipif(not hasattr(os, "fork"), reason="needs fork")
+def test_stale_lock_taken_over_by_several_processes_at_once_has_one_winner(survey_path):
+    """Six processes find the same stale lock at once, with random pauses around every file
+    operation and the staleness check: exactly one gets the lock, every other is told that
+    one holds it, and the lock on disk is the winner's (a takeover never removes a live
+    lock)."""
+    ctx = multiprocessing.get_context("fork")
+    racers = 6
+    for round_ in range(ROUNDS):
+        _write_lock(survey_path, pid=_dead_pid(), token=f"stale{round_}")
+        barrier, results, release = ctx.Barrier(racers), ctx.Queue(), ctx.Event()
+        procs = [ctx.Process(target=_racer, args=(survey_path, 1000 * round_ + i, barrier,
+                                                  results, release)) for i in range(racers)]
+        for proc in procs:
+            proc.start()
+        try:
+            outcomes = [results.get(timeout=30) for _ in procs]
+            winners = [token for kind, token in outcomes if kind == "won"]
+            assert not [o for o in outcomes if o[0] == "error"], outcomes
+            assert len(winners) == 1, outcomes
+            assert store.read_lock(survey_path).token == winners[0]
+            assert all(token == winners[0] for kind, token in outcomes if kind == "locked")
+        finally:
+            release.set()
+            for proc in procs:
+                proc.join(timeout=30)
+        assert not store.lock_path(survey_path).exists()
+    assert sorted(p.name for p in survey_path.parent.iterdir()) == ["flat.json"]

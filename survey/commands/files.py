@@ -1,6 +1,6 @@
 """Survey-file commands: ``new``, ``validate``, ``export``, ``import-log`` and ``schema``.
 
-    survey new flat9.json --site "CS-25-004 Flat 9" --address "Flat 9, 14 Pennant Road"
+    survey new flat9.json --site "CS-25-004 Flat 9" --address "Flat 9, 1 Example Row, Sampletown"
     survey validate flat9.json
     survey export flat9.json --csv flat9-readings.csv
     survey import-log flat9.json --room "Main bedroom" --csv bedroom-logger.csv
@@ -14,6 +14,7 @@ from __future__ import annotations
 
 import argparse
 import os
+import re
 import sys
 from pathlib import Path
 from typing import TYPE_CHECKING, Any, Iterator
@@ -77,7 +78,8 @@ def register(subparsers: argparse._SubParsersAction) -> None:
     log.add_argument("--instrument", metavar="ID", help="id of the logger in the survey's "
                                                         "instruments")
     log.add_argument("--temp-unit", choices=("c", "f"), default=None,
-                     help="temperature unit when the header does not say (overrides it)")
+                     help="temperature unit of the file's readings: needed when the header "
+                          "does not say; when it does, this wins and the summary says so")
     log.add_argument("--date-order", choices=("dmy", "mdy", "ymd"), default=None,
                      help="order of day, month and year when the dates leave it open")
     log.add_argument("--dry-run", action="store_true",
@@ -157,15 +159,17 @@ def run_validate(args: argparse.Namespace) -> int:
         try:
             survey = store.load_survey(path)
         except SurveyFileError as exc:
-            print(f"survey: {exc}", file=sys.stderr)
+            text_problem = any(words in exc.problem for words in (
+                "not valid JSON", "UTF-16", "not UTF-8"))
+            hint = _csv_hint(path) if text_problem else ""
+            print(f"survey: {exc}{hint}", file=sys.stderr)
             status = 1
             continue
         counts = _count_readings(survey)
         version = store.read_schema_version(path)
         upgraded = (f"; schema {version}, upgraded in memory: the next save writes "
                     f"version {SCHEMA_VERSION}" if version != SCHEMA_VERSION else "")
-        holder = store.read_lock(path)
-        locked = f"; open for editing by {holder.describe()}" if holder and holder.pid else ""
+        locked = _lock_note(store, path)
         print(f"{path}: ok ({_plural(len(survey.rooms), 'room')}, "
               f"{_plural(len(survey.visits), 'visit')}, "
               f"{_plural(counts['air'], 'air reading')}, "
@@ -173,6 +177,45 @@ def run_validate(args: argparse.Namespace) -> int:
               f"{_plural(counts['material'], 'material reading')}, "
               f"{_plural(counts['logger'], 'logger sample')}{upgraded}{locked})")
     return status
+
+
+def _lock_note(store: Any, path: Path) -> str:
+    """What validate says about a lock on the survey ('' when there is none)."""
+    holder = store.read_lock(path)
+    if holder is None:
+        return ""
+    name = store.lock_path(path).name
+    if holder.pid <= 0:
+        return f"; a damaged lock file {name} remains (the next edit replaces it)"
+    if store.lock_is_stale(holder):
+        return (f"; a stale lock from {holder.describe()} remains, left by a process that is "
+                "gone (the next edit takes it over)")
+    import socket
+
+    if holder.host and holder.host != socket.gethostname():
+        return (f"; open for editing by {holder.describe()}, another computer (cannot be "
+                "checked from here)")
+    return f"; open for editing by {holder.describe()}"
+
+
+def _csv_hint(path: Path) -> str:
+    """A pointer to import-log when a file that is not JSON looks like a logger's CSV."""
+    try:
+        with open(path, "rb") as handle:
+            head = handle.read(4096)
+    except OSError:
+        return ""
+    if head.startswith((b"\xff\xfe", b"\xfe\xff")):
+        text = head.decode("utf-16", errors="replace")
+    else:
+        text = head.decode("utf-8", errors="replace")
+    first = next((line for line in text.splitlines() if line.strip()), "").strip()
+    if path.suffix.lower() not in (".csv", ".tsv", ".txt") and not (
+            first and first[0] not in "{[" and any(sep in first for sep in ",;\t")):
+        return ""
+    return (f". This looks like a CSV file (a data logger's export?), not a survey; a logger's "
+            f"CSV is added to a survey with: survey import-log SURVEY.json --room NAME "
+            f"--csv {path}")
 
 
 # --- export ------------------------------------------------------------------------------
@@ -327,9 +370,26 @@ def _flag(value: bool) -> str:
     return "yes" if value else "no"
 
 
+#: A cell starting with one of these is taken by spreadsheet programs as a formula (or, for
+#: tab and CR, may be shifted into one): OWASP, "CSV Injection".
+_FORMULA_STARTS = ("=", "+", "-", "@", "\t", "\r")
+_PLAIN_NUMBER = re.compile(r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?")
+
+
+def spreadsheet_safe(cell: str) -> str:
+    """``cell`` as text a spreadsheet will not run: a text cell starting with = + - @, a tab
+    or a CR gets a leading apostrophe; numbers (``-0.25``) are left as they are."""
+    if cell.startswith(_FORMULA_STARTS) and not _PLAIN_NUMBER.fullmatch(cell):
+        return "'" + cell
+    return cell
+
+
 def export_csv(survey: "Survey", out: Any, system: str | None = None,
                include_logs: bool = True) -> int:
-    """Write the survey's readings as CSV to the text stream ``out``; return the row count."""
+    """Write the survey's readings as CSV to the text stream ``out``; return the row count.
+
+    Text typed into the survey (locations, labels, names) is made spreadsheet-safe (see
+    :func:`spreadsheet_safe`), so that a CSV sent by e-mail cannot carry a live formula."""
     import csv
 
     exporter = _Exporter(survey, system or survey.site.unit_system)
@@ -339,7 +399,8 @@ def export_csv(survey: "Survey", out: Any, system: str | None = None,
     writer.writeheader()
     count = 0
     for row in exporter.rows(include_logs):
-        writer.writerow({names.get(key, key): value for key, value in row.items()})
+        writer.writerow({names.get(key, key): spreadsheet_safe(value)
+                         for key, value in row.items()})
         count += 1
     return count
 
@@ -361,31 +422,35 @@ def run_export(args: argparse.Namespace) -> int:
     system = args.units or survey.site.unit_system
     if args.csv == "-":
         count = export_csv(survey, sys.stdout, system, not args.no_logs)
-        print(f"{count} rows", file=sys.stderr)
+        print(f"{_plural(count, 'row')}{_empty_hint(survey, count, args.no_logs)}",
+              file=sys.stderr)
         return 0
     out = Path(args.csv)
-    if _same_file(path, out) or _same_file(store.backup_path(path), out):
+    if (_same_file(path, out) or _same_file(store.backup_path(path), out)
+            or _same_file(store.lock_path(path), out)):
         raise InputError("--csv", args.csv, "that is the survey file (or its backup); choose "
                                             "another name for the CSV")
     buffer = io.StringIO()
     count = export_csv(survey, buffer, system, not args.no_logs)
     # UTF-8 with a byte-order mark, so that spreadsheet programs read names correctly.
-    data = buffer.getvalue().encode("utf-8-sig")
-    tmp = out.with_name(f".{out.name}.{os.getpid()}.tmp")
-    try:
-        with open(tmp, "wb") as handle:
-            handle.write(data)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.replace(tmp, out)
-    except OSError as exc:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise SurveyFileError(out, "", f"cannot write the CSV: {exc.strerror or exc}") from None
-    print(f"Wrote {count} rows to {out} ({'SI' if system == 'si' else 'IP'} units).")
+    store.write_file_atomically(out, buffer.getvalue().encode("utf-8-sig"))
+    print(f"Wrote {_plural(count, 'row')} to {out} ({'SI' if system == 'si' else 'IP'} "
+          f"units){_empty_hint(survey, count, args.no_logs)}.")
     return 0
+
+
+def _empty_hint(survey: "Survey", count: int, no_logs: bool) -> str:
+    """Why an export has no rows, when it has none."""
+    if count:
+        return ""
+    has_logs = any(log.samples for log in survey.logs)
+    if not survey.visits and not has_logs:
+        return ("; only the header row: the survey has no visits or logger readings yet "
+                "(record a visit, or add a logger's CSV with survey import-log)")
+    if has_logs and no_logs:
+        return ("; only the header row: the survey's visits hold no readings, and --no-logs "
+                "left out the logger samples")
+    return "; only the header row: the survey's visits hold no readings yet"
 
 
 # --- import-log --------------------------------------------------------------------------
@@ -401,6 +466,59 @@ def _describe_step(step: Any) -> str:
     return f", every {seconds} s"
 
 
+def _span(samples: list[Any]) -> str:
+    first, last = samples[0].at, samples[-1].at
+    if first == last:
+        return f"at {first:%Y-%m-%d %H:%M}"
+    if first.date() == last.date():
+        return f"{first:%Y-%m-%d %H:%M} to {last:%H:%M}"
+    return f"{first:%Y-%m-%d %H:%M} to {last:%Y-%m-%d %H:%M}"
+
+
+def _where_log(survey: "Survey", room_id: str | None) -> str:
+    if room_id is None:
+        return "outdoors"
+    room = next((r for r in survey.rooms if r.id == room_id), None)
+    return f"{room.name} ({room.id})" if room is not None else room_id
+
+
+_UNIT_FROM = {"header": "unit from the header", "units row": "unit from the units row",
+              "stated": "unit as given by --temp-unit"}
+
+
+def _read_logger_file(log_path: Path) -> bytes:
+    from survey import store
+
+    try:
+        size = log_path.stat().st_size
+        if size > store.MAX_FILE_BYTES:
+            raise SurveyFileError(log_path, "", "the logger file is too large")
+        return log_path.read_bytes()
+    except IsADirectoryError:
+        raise SurveyFileError(log_path, "", "this is a folder, not a logger file") from None
+    except FileNotFoundError:
+        raise SurveyFileError(log_path, "", "no such file") from None
+    except OSError as exc:
+        raise SurveyFileError(log_path, "", f"cannot read: {exc.strerror or exc}") from None
+
+
+def _open_for_import(path: str) -> Any:
+    """The survey's editing session, with what the command line can do while it is locked."""
+    from survey import store
+
+    try:
+        return store.open_for_editing(path)
+    except store.SurveyLocked as exc:
+        if exc.holder is None or store.lock_is_stale(exc.holder):
+            raise
+        raise store.SurveyLocked(
+            exc.path, exc.holder,
+            exc.problem.replace("Reading the survey works meanwhile",
+                                "survey validate and survey export only read the survey "
+                                "and work meanwhile; import-log --dry-run shows what would "
+                                "be imported")) from None
+
+
 def run_import_log(args: argparse.Namespace) -> int:
     import datetime as dt
 
@@ -410,49 +528,73 @@ def run_import_log(args: argparse.Namespace) -> int:
     from survey.model import LogSeries
 
     log_path = Path(args.csv)
-    try:
-        size = log_path.stat().st_size
-        if size > store.MAX_FILE_BYTES:
-            raise SurveyFileError(log_path, "", "the logger file is too large")
-        data = log_path.read_bytes()
-    except IsADirectoryError:
-        raise SurveyFileError(log_path, "", "this is a folder, not a logger file") from None
-    except FileNotFoundError:
-        raise SurveyFileError(log_path, "", "no such file") from None
-    except OSError as exc:
-        raise SurveyFileError(log_path, "", f"cannot read: {exc.strerror or exc}") from None
-    result = logimport.read_logger_csv(data, temp_unit=args.temp_unit,
-                                       date_order=args.date_order)
-
-    session = None if args.dry_run else store.open_for_editing(args.file)
+    # The survey first: a survey file that does not load is the first thing to hear about.
+    session = None if args.dry_run else _open_for_import(args.file)
     try:
         survey = session.survey if session is not None else store.load_survey(args.file)
         if args.outdoor:
-            room_id, where = None, "outdoors"
+            room_id = None
         else:
             room = survey.find_room(args.room)
             if room is None:
                 known = ", ".join(f"{r.id} ({r.name})" for r in survey.rooms) or "none yet"
                 raise InputError("--room", args.room,
                                  f"no such room in {args.file}; rooms: {known}")
-            room_id, where = room.id, f"{room.name} ({room.id})"
+            room_id = room.id
+        where = _where_log(survey, room_id)
         if args.instrument is not None:
             ids = [i.id for i in survey.instruments]
             if args.instrument not in ids:
                 raise InputError("--instrument", args.instrument,
                                  f"no such instrument in {args.file}; instruments: "
                                  f"{', '.join(ids) or 'none yet'}")
-        for index, log in enumerate(survey.logs):
+        result = logimport.read_logger_csv(_read_logger_file(log_path),
+                                           temp_unit=args.temp_unit,
+                                           date_order=args.date_order)
+        for log in survey.logs:
             if log.source_sha256 == result.sha256:
-                raise InputError("--csv", args.csv, f"this file was already imported "
-                                                    f"(logs[{index}], from {log.source})")
+                imported = (f", imported {log.imported_at:%Y-%m-%d %H:%M}"
+                            if log.imported_at else "")
+                span = f", {_span(log.samples)}" if log.samples else ""
+                raise InputError(
+                    "--csv", args.csv,
+                    f"this logger file was already imported into {_where_log(survey, log.room)} "
+                    f"({_plural(len(log.samples), 'sample')}{span}, from {log.source}"
+                    f"{imported}); nothing was changed")
+        # A later export of the same logger repeats the earlier samples: keep only new times.
+        known: set[Any] = set()
+        overlapping: list[str] = []
+        for log in survey.logs:
+            if log.room != room_id or (args.instrument and log.instrument
+                                       and log.instrument != args.instrument):
+                continue
+            times = {sample.at for sample in log.samples}
+            if any(sample.at in times for sample in result.samples):
+                overlapping.append(log.source)
+                known |= times
+        samples = [sample for sample in result.samples if sample.at not in known]
+        repeated = len(result.samples) - len(samples)
+        sources = ", ".join(dict.fromkeys(overlapping))
+        if not samples:
+            print(f"Nothing to import: all {_plural(repeated, 'sample')} of {log_path.name} "
+                  f"({_span(result.samples)}) are already in the survey for {where}, from "
+                  f"{sources}; the survey was not changed.")
+            if not args.instrument:
+                print("  If this is a second logger in the same room, give each logger's "
+                      "series an --instrument id to keep them apart.")
+            return 0
+        notes = [f"Times as written in the file (time column "
+                 f"{' + '.join(result.time_columns)!r})."]
+        notes += result.notes
+        if repeated:
+            notes.append(f"{_plural(repeated, 'sample')} of the file already in the survey "
+                         f"(from {sources}) left out.")
         series = LogSeries(
-            room=room_id, source=log_path.name[:200] or "logger.csv", samples=result.samples,
+            room=room_id, source=log_path.name[:200] or "logger.csv", samples=samples,
             instrument=args.instrument, source_sha256=result.sha256,
             imported_at=dt.datetime.now().replace(microsecond=0),
-            skipped_rows=len(result.skipped),
-            notes=(f"Times as written in the file (time column "
-                   f"{' + '.join(result.time_columns)!r}).")[:20_000])
+            skipped_rows=len(result.skipped) + repeated,
+            notes=" ".join(notes)[:20_000])
         if session is not None:
             updated = msgspec.structs.replace(survey, logs=[*survey.logs, series])
             session.save(updated)
@@ -460,14 +602,19 @@ def run_import_log(args: argparse.Namespace) -> int:
         if session is not None:
             session.close()
 
-    first, last = result.samples[0].at, result.samples[-1].at
     unit = "°F, converted to °C" if result.temperature_unit == "f" else "°C"
     verb = "Would import" if args.dry_run else "Imported"
-    print(f"{verb} {_plural(len(result.samples), 'sample')} from {log_path.name} into {where}: "
-          f"{first:%Y-%m-%d %H:%M} to {last:%Y-%m-%d %H:%M}{_describe_step(result.interval)}.")
+    span = _span(samples)
+    print(f"{verb} {_plural(len(samples), 'sample')} from {log_path.name} into {where}"
+          f"{' ' if span.startswith('at ') else ': '}{span}{_describe_step(result.interval)}.")
     print(f"  Columns: time {' + '.join(map(repr, result.time_columns))}, temperature "
-          f"{result.temperature_column!r} ({unit}, unit from the {result.unit_source}), RH "
+          f"{result.temperature_column!r} ({unit}, {_UNIT_FROM[result.unit_source]}), RH "
           f"{result.rh_column!r}; header on line {result.header_line}.")
+    for note in result.notes:
+        print(f"  {note}")
+    if repeated:
+        print(f"  Left out {_plural(repeated, 'sample')} already in the survey for {where}, "
+              f"from {sources}.")
     if result.reordered:
         print("  The rows were not in time order; the samples have been sorted.")
     if result.skipped:
@@ -478,6 +625,8 @@ def run_import_log(args: argparse.Namespace) -> int:
             print(f"    ... and {len(result.skipped) - 20} more")
     else:
         print("  No rows skipped.")
+    if args.dry_run:
+        print("  Dry run: the survey was not changed.")
     return 0
 
 
