@@ -10,7 +10,7 @@ from CoolProp.HumidAirProp import HAPropsSI
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from survey import advise, assess, psychro
+from survey import advise, assess
 from survey import thresholds as th
 from survey.advise import ActionKind
 from survey.assess import (Accuracy, Activity, MaterialReading, Observations, OutdoorInput,

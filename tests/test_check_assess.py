@@ -10,7 +10,6 @@ import sys
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
-from survey.cli import main
 
 P = 101_325.0
 BEDROOM = ["--air-temp", "18", "--rh", "72", "--surface-temp", "11", "--surface-temp", "15.5",
@@ -20,19 +19,6 @@ SUMMER = ["--air-temp", "22", "--rh", "75", "--surface-temp", "17", "--outdoor-t
           "--outdoor-rh", "75", "--room-volume", "60", "--occupants", "0", "--use", "basement"]
 
 
-@pytest.fixture
-def check(capsys, monkeypatch):
-    """Run `survey check ARGS` in-process at a fixed terminal width."""
-    monkeypatch.setenv("COLUMNS", "100")
-
-    def _run(*args):
-        try:
-            status = main(["check", *args])
-        except SystemExit as exc:
-            status = exc.code
-        captured = capsys.readouterr()
-        return status, captured.out, captured.err
-    return _run
 
 
 def cp(output: str, temp_c: float, rh_pct: float) -> float:

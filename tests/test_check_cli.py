@@ -11,22 +11,8 @@ import psychrolib
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
-from survey.cli import main
 
 
-@pytest.fixture
-def check(capsys):
-    """Run `survey check ARGS` in-process; returns (status, stdout, stderr).
-
-    argparse reports its own errors by SystemExit; both paths give a status here."""
-    def _run(*args):
-        try:
-            status = main(["check", *args])
-        except SystemExit as exc:
-            status = exc.code
-        captured = capsys.readouterr()
-        return status, captured.out, captured.err
-    return _run
 
 
 def test_json_dew_point_agrees_with_psychrolib_and_coolprop(check):
