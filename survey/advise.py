@@ -85,6 +85,7 @@ class ActionKind(Enum):
     REDUCE_GLAZING_CONDENSATION = "reduce_glazing_condensation"
     INSULATE_PIPE = "insulate_pipe"
     REPEAT_READINGS = "repeat_readings"
+    DRY_VENTILATED_SPACE = "dry_ventilated_space"
 
     def __str__(self) -> str:
         return self.value
@@ -99,6 +100,7 @@ ACTION_TITLES = {
     ActionKind.REDUCE_GLAZING_CONDENSATION: "Deal with condensation on the window",
     ActionKind.INSULATE_PIPE: "Lag the pipe",
     ActionKind.REPEAT_READINGS: "Repeat the readings",
+    ActionKind.DRY_VENTILATED_SPACE: "Cut the moisture reaching the space",
 }
 
 
@@ -187,6 +189,42 @@ _M3_PER_H_PER_CFM = 0.028316846592 * 60.0  # 1 ft = 0.3048 m exactly, so 1 ft³/
 
 # --- small words -------------------------------------------------------------------------------
 
+_G_PER_LB = 453.59237  # 1 lb = 0.45359237 kg exactly
+_BTU_H_PER_W = 3.412142  # 1 W = 3.412142 Btu/h (International Table Btu)
+
+
+def _is_ip(fmt: Formatter) -> bool:
+    """Whether the face writes IP units (temperatures in °F)."""
+    return fmt("temperature", 0.0).endswith("°F")
+
+
+def _rate(fmt: Formatter, g_per_h: float) -> str:
+    """A moisture rate: '65 g/h' in SI text; '1003 gr/h (0.14 lb/h)' in IP text."""
+    if _is_ip(fmt):
+        return (f"{g_per_h * 7000.0 / _G_PER_LB:.0f} gr/h "
+                f"({g_per_h / _G_PER_LB:.2f} lb/h)")
+    return f"{g_per_h:.0f} g/h"
+
+
+def _heat(fmt: Formatter, watts: float) -> str:
+    """A heating rate: '64 W' in SI text, '218 Btu/h' in IP text."""
+    return f"{watts * _BTU_H_PER_W:.0f} Btu/h" if _is_ip(fmt) else f"{watts:.0f} W"
+
+
+def round_up_temperature_c(value_c: float, ip: bool = False) -> float:
+    """A minimum temperature rounded UP to the shown 0.1 degree (°C, or °F when ``ip``),
+    returned in °C, so a shown minimum is never below the true one: 14.25 → 14.3 °C."""
+    if ip:
+        shown_f = math.ceil((value_c * 9.0 / 5.0 + 32.0) * 10.0 - 1e-6) / 10.0
+        return (shown_f - 32.0) * 5.0 / 9.0
+    return math.ceil(value_c * 10.0 - 1e-6) / 10.0
+
+
+def _min_temp(fmt: Formatter, value_c: float) -> str:
+    """A minimum surface temperature as text, rounded up."""
+    return fmt("temperature", round_up_temperature_c(value_c, _is_ip(fmt)))
+
+
 def _pct(x: float) -> str:
     return f"{x:.0f} %"
 
@@ -228,6 +266,21 @@ def _condensation_words(surface: SurfaceFinding) -> tuple[str, str]:
     return "dew point", "water"
 
 
+def _drying(finding: RoomFinding):
+    """The room's running drying equipment (dehumidifiers, air movers), or None."""
+    obs = finding.room.observations
+    return obs.drying if obs.drying_in_progress else None
+
+
+def _gr_per_lb(w_kg_per_kg: float) -> float:
+    """Grains of water per pound of dry air: 7000 × W (7000 grains = 1 lb)."""
+    return 7000.0 * w_kg_per_kg
+
+
+#: Uses whose air is usually closed up and unoccupied (no occupants given: taken as 0).
+_CLOSED_UP_USES = frozenset({"basement", "crawlspace", "loft", "storage"})
+
+
 # --- moisture load -----------------------------------------------------------------------------
 
 def _missing_for_load(finding: RoomFinding) -> str:
@@ -243,17 +296,22 @@ def _missing_for_load(finding: RoomFinding) -> str:
             f"outdoor air holds as much water as the room air or more")
 
 
-def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
+def moisture_generation(finding: RoomFinding, fmt: Formatter = None) -> MoistureEstimate:
     """Moisture the room gains, g/h: from occupants and activities, and back-calculated from
     the measured excess at the assumed air change rate; the larger is used, so the sizing is
     not short."""
+    fmt = fmt or si_text
     room = finding.room
     keys: list[str] = []
     occupants = activities = back = None
     parts: list[str] = []
     if room.occupants == 0:
         occupants = 0.0
-        parts.append("no occupants: 0 g/h")
+        parts.append(f"no occupants: {_rate(fmt, 0.0)}")
+    elif room.occupants is None and finding.use in _CLOSED_UP_USES and not room.activities:
+        occupants = 0.0
+        parts.append(f"occupants not given, taken as 0 for {_USE_PHRASE[finding.use]} "
+                     f"that is closed up: {_rate(fmt, 0.0)}")
     elif room.occupants is not None:
         rate_key = th.OCCUPANT_RATE_BY_USE[finding.use]
         rate = th.value(rate_key)
@@ -261,14 +319,14 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         keys.append(rate_key)
         kind = "asleep" if rate_key.endswith("asleep_g_per_h") else "sitting"
         parts.append(f"{room.occupants} {'person' if room.occupants == 1 else 'people'} "
-                     f"{kind} at {rate:.0f} g/h each: {occupants:.0f} g/h")
+                     f"{kind} at {_rate(fmt, rate)} each: {_rate(fmt, occupants)}")
     if room.activities:
         activities = 0.0
         for activity in room.activities:
             rate_key = th.ACTIVITY_RATE[activity.kind]
             activities += th.value(rate_key) * activity.hours_per_day / 24.0
             keys.append(rate_key)
-        parts.append(f"activities averaged over the day: {activities:.0f} g/h")
+        parts.append(f"activities averaged over the day: {_rate(fmt, activities)}")
     out = finding.outdoor
     air = finding.air
     if out is not None and room.volume_m3 is not None \
@@ -278,7 +336,7 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         back = 1000.0 * dry_air * (air.humidity_ratio_kg_per_kg - out.humidity_ratio_kg_per_kg)
         keys.append("assumed_air_change_rate_per_h")
         parts.append(f"the measured excess over outdoor air at an assumed {ach:g} air "
-                     f"changes an hour: {back:.0f} g/h")
+                     f"changes an hour: {_rate(fmt, back)}")
     people = None if occupants is None and activities is None else \
         (occupants or 0.0) + (activities or 0.0)
     candidates = [g for g in (people, back) if g is not None]
@@ -325,6 +383,13 @@ def _target(finding: RoomFinding, target_rh_pct: float | None, fmt: Formatter
             ) -> tuple[float, str, tuple[str, ...]]:
     """(target room RH %, why — a phrase starting with the target, threshold keys)."""
     keys: list[str] = []
+    if target_rh_pct is None and _drying(finding) is not None:
+        low, design = th.value("drying_rh_target_low_pct"), th.value("drying_rh_target_pct")
+        keys += ["drying_rh_target_low_pct", "drying_rh_target_pct"]
+        basis = (f"{design:.0f} % RH, the top of the {low:.0f}-{design:.0f} % RH drying "
+                 f"target (common practice) while materials dry, not the "
+                 f"{th.value('room_rh_target_default_pct'):.0f} % target for everyday use.")
+        return design, basis, tuple(keys)
     if target_rh_pct is None:
         design = th.value("room_rh_target_default_pct")
         keys.append("room_rh_target_default_pct")
@@ -355,6 +420,8 @@ def _target(finding: RoomFinding, target_rh_pct: float | None, fmt: Formatter
         passes = (f"comes within "
                   f"{fmt('temperature_difference', th.value('dew_point_margin_k'))} of the "
                   f"{point}")
+    if target_rh_pct is not None and target < design:
+        passes += f" (so the {design:.0f} % given was lowered to {target:.0f} %)"
     if target > whole:
         basis = (f"{target:.0f} % RH, the lowest it is practical to hold. Above {whole:.0f} %, "
                  f"{surface} {passes}, so it must also be made warmer.")
@@ -405,14 +472,14 @@ def _ventilate(finding: RoomFinding, target: float, target_air: AirState,
             values["air_changes_per_h"] = ach
             text += (f" ({ach:.1f} air changes an hour in this "
                      f"{fmt('volume', room.volume_m3)} room)")
-        text += (f" carries away {moisture.used_g_per_h:.0f} g/h of moisture and holds the "
+        text += (f" carries away {_rate(fmt, moisture.used_g_per_h)} of moisture and holds the "
                  f"room at {_pct(target)}. Moisture load: {moisture.basis}.")
         if air.dry_bulb_c > out.dry_bulb_c:
             heat_w = (dry_air / 3600.0 * (_CP_DRY_AIR_KJ_PER_KG_K + _CP_VAPOUR_KJ_PER_KG_K * wo)
                       * (air.dry_bulb_c - out.dry_bulb_c) * 1000.0)
             values["heat_to_warm_air_w"] = heat_w
             text += (f" Warming that air to {fmt('temperature', air.dry_bulb_c)} takes about "
-                     f"{heat_w:.0f} W of heating.")
+                     f"{_heat(fmt, heat_w)} of heating.")
         text += (" Use trickle vents or a continuous extract fan; open windows fully for a "
                  "few minutes, often, rather than leaving one ajar.")
     return Action(ActionKind.VENTILATE, text, values, tuple(dict.fromkeys(keys))), ach
@@ -458,7 +525,7 @@ def _ventilate_partly(finding: RoomFinding, target: float, target_air: AirState,
         if moisture.used_g_per_h is not None:
             settles = _rh_at(air, wo + moisture.used_g_per_h / 1000.0 / dry_air)
             values["rh_at_practical_ventilation_pct"] = settles
-            text += (f": against {moisture.used_g_per_h:.0f} g/h of moisture the room would "
+            text += (f": against {_rate(fmt, moisture.used_g_per_h)} of moisture the room would "
                      f"settle near {_pct(settles)}")
         text += ("; a dehumidifier does the rest. Use trickle vents or a continuous extract "
                  "fan, and open windows fully for a few minutes, often.")
@@ -478,7 +545,7 @@ def _ventilate_partly(finding: RoomFinding, target: float, target_air: AirState,
 def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
                 moisture: MoistureEstimate, fmt: Formatter, why: str,
                 air_changes_per_h: float | None = None,
-                extra_keys: tuple[str, ...] = ()) -> Action:
+                extra_keys: tuple[str, ...] = (), drying=None) -> Action:
     """Water to take out per day to hold the target, with outdoor air coming in at
     ``air_changes_per_h`` (default: the assumed rate); the one-off pull-down of the room air
     is stated apart, in litres."""
@@ -496,7 +563,7 @@ def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
     outdoor_g_per_h = None
     gains = []
     if generation is not None:
-        gains.append(f"the room gains {generation:.0f} g/h (moisture load: {moisture.basis})")
+        gains.append(f"the room gains {_rate(fmt, generation)} (moisture load: {moisture.basis})")
     if out is not None and room.volume_m3 is not None:
         if air_changes_per_h is None:
             air_changes_per_h = th.value("assumed_air_change_rate_per_h")
@@ -510,16 +577,19 @@ def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
         values["outdoor_air_l_per_day"] = outdoor_g_per_h * 24.0 / 1000.0 * _WATER_L_PER_KG
         verb = "brings" if outdoor_g_per_h > 0 else "carries away"
         gains.append(f"outdoor air {how} at about {air_changes_per_h:g} air changes an hour "
-                     f"{verb} {abs(outdoor_g_per_h):.0f} g/h")
+                     f"{verb} {_rate(fmt, abs(outdoor_g_per_h))}")
     text = why
-    if room.volume_m3 is not None:
+    logged = None if drying is None else drying.removed_l_per_day
+    if room.volume_m3 is not None and air.humidity_ratio_kg_per_kg > wt:
         pull_down = (room.volume_m3 / air.specific_volume_m3_per_kg
                      * (air.humidity_ratio_kg_per_kg - wt) * _WATER_L_PER_KG)
         values["pull_down_l"] = pull_down
         text += (f" Taking the room air itself down to {_pct(target)} means removing about "
                  f"{pull_down:.2f} L ({pull_down / pint:.2f} US pints) once; wet materials "
                  f"hold far more.")
-    if generation is None:
+    if logged is not None:
+        load = None  # the logged figure below is the load
+    elif generation is None:
         load = None
         text += (f" The moisture load to hold it there is not known ({moisture.missing}), so "
                  f"no dehumidifier size can be given")
@@ -538,16 +608,34 @@ def _dehumidify(finding: RoomFinding, target: float, target_air: AirState,
                      "more than the room produces, so once the room is down there is no daily "
                      "load to hold against: the dehumidifier is for bringing it down, and for "
                      "damper days.")
+    if logged is not None:
+        values["logged_removal_l_per_day"] = logged
+        text += (f" The dehumidifier logged {drying.water_removed_l:g} L in the "
+                 f"{drying.hours_since_previous:.0f} h since the previous visit, about "
+                 f"{_water(fmt, logged)}: while materials dry, that measured figure is the "
+                 f"load, and the unit should keep up with it at this room's conditions. "
+                 f"Falling amounts from visit to visit mean the materials are drying.")
+        load = logged
     values.update(load_l_per_day=load, removal_l_per_day=load,
                   removal_us_pints_per_day=None if load is None else load / pint)
     old = th.value("dehumidifier_rating_old_dry_bulb_c")
     new = th.value("dehumidifier_rating_current_dry_bulb_c")
     rating_rh = th.value("dehumidifier_rating_rh_pct")
-    text += (f" Capacities on labels are measured at {_nominal_temperature(fmt, old)} and "
-             f"{_pct(rating_rh)} RH (older ratings) or {_nominal_temperature(fmt, new)} and "
-             f"{_pct(rating_rh)} RH (current US test); in a room at "
-             f"{fmt('temperature', air.dry_bulb_c)} and {_pct(target)} a unit removes less "
-             f"than its label says, so choose one rated well above this.")
+    rated = None if drying is None else drying.capacity_l_per_day
+    unit = (f"the unit here, rated {_water(fmt, rated)}," if rated is not None
+            else "a unit")
+    text += (f" Label capacities are measured at a rating point: "
+             f"{_nominal_temperature(fmt, old)} and {_pct(rating_rh)} RH for older ratings "
+             f"(AHAM DH-1), {_nominal_temperature(fmt, new)} and {_pct(rating_rh)} RH for the "
+             f"current US test. Against the older point {unit} removes much less in a room at "
+             f"{fmt('temperature', air.dry_bulb_c)}")
+    if abs(air.dry_bulb_c - new) <= 2.0:
+        text += (f"; this room is near the current rating point, so a current rating is "
+                 f"close at {_pct(rating_rh)} RH, but less as the room dries toward "
+                 f"{_pct(target)}")
+    elif air.dry_bulb_c < new:
+        text += ", and less than even a current rating says, being cooler than its test point"
+    text += ". Check which rating a label uses, and choose a unit rated well above the load."
     cold = th.value("refrigerant_dehumidifier_min_c")
     desiccant = air.dry_bulb_c < cold
     values["suggest_desiccant"] = desiccant
@@ -611,6 +699,130 @@ def _moisture_actions(finding: RoomFinding, target: float, basis: str,
                         extra_keys=("ventilation_practical_max_ach",))]
 
 
+def _grain_depression_text(finding: RoomFinding, drying, fmt: Formatter
+                           ) -> tuple[str, dict]:
+    """The humidity-ratio drop across the dehumidifier (inlet: room air), g/kg and gr/lb."""
+    if drying.outlet_temp_c is None or drying.outlet_rh_pct is None:
+        return "", {}
+    air = finding.air
+    outlet = air_state(drying.outlet_temp_c, drying.outlet_rh_pct, air.pressure_pa)
+    w_in, w_out = air.humidity_ratio_kg_per_kg, outlet.humidity_ratio_kg_per_kg
+    drop = w_in - w_out
+    values = {"grain_depression_g_per_kg": 1000.0 * drop,
+              "grain_depression_gr_per_lb": _gr_per_lb(drop),
+              "outlet_humidity_ratio_g_per_kg": 1000.0 * w_out}
+    text = (f" Grain depression (room air in, minus air out of the dehumidifier): "
+            f"{1000.0 * w_in:.2f} − {1000.0 * w_out:.2f} = {1000.0 * drop:.2f} g/kg "
+            f"({_gr_per_lb(w_in):.0f} − {_gr_per_lb(w_out):.0f} = {_gr_per_lb(drop):.0f} "
+            f"gr/lb).")
+    if drop <= 0.0:
+        text += (" The outlet air is no drier than the room air: the unit is not removing "
+                 "water; check it is running, its coil is not iced and its drain is clear.")
+    return text, values
+
+
+def _drying_actions(finding: RoomFinding, drying, target: float, basis: str,
+                    target_keys: tuple[str, ...], target_air: AirState,
+                    moisture: MoistureEstimate, fmt: Formatter) -> list[Action]:
+    """A room being dried: keep the drying area closed and dehumidify, never ventilate."""
+    air = finding.air
+    low = th.value("drying_rh_target_low_pct")
+    closed = ("Keep the drying area closed and dehumidify: keep windows, trickle vents and "
+              "doors to outside shut and the area closed off from the rest of the building, "
+              "so the dehumidifier takes water out of the materials rather than out of "
+              "outdoor air.")
+    if drying.dehumidifiers == 0:
+        why = (f"Air movers are running here without a dehumidifier: on their own they "
+               f"evaporate water from the materials into the air and raise the room RH (now "
+               f"{_pct(air.rh_pct)}). Join this room to the dehumidified area (open it to that "
+               f"area and close both off from outside) or give it its own dehumidifier. "
+               + closed + f" Hold it at {basis}")
+    elif air.rh_pct > target:
+        why = f"{closed} Bring the room from {_pct(air.rh_pct)} down to {basis}"
+    else:
+        why = (f"{closed} The room is at {_pct(air.rh_pct)}, within the drying target of "
+               f"{low:.0f}-{target:.0f} % RH: keep it there until materials reach the dry "
+               f"standard.")
+    grains, grain_values = _grain_depression_text(finding, drying, fmt)
+    action = _dehumidify(finding, target, target_air, moisture, fmt, why + grains,
+                         extra_keys=target_keys, drying=drying)
+    values = {**action.values, **grain_values, "drying_in_progress": True,
+              "air_movers_without_dehumidifier": drying.dehumidifiers == 0}
+    return [Action(ActionKind.DEHUMIDIFY, action.reason, values, action.threshold_keys)]
+
+
+_VENTILATED_SPACES = frozenset({"loft", "crawlspace"})
+_TIMBER_LABEL_WORDS = ("timber", "wood", "rafter", "joist", "purlin", "batten", "truss",
+                       "sarking", "board", "plywood", "osb", "sill plate", "beam")
+
+
+def _ventilated_space(finding: RoomFinding, fmt: Formatter) -> Action:
+    """A loft or crawl space that follows outdoor air: cut the moisture coming in, check
+    its ventilation, measure the timber; a dehumidifier only if the space is sealed."""
+    air = finding.air
+    loft = finding.use == "loft"
+    keys = ["timber_decay_mc_pct", "timber_decay_slow_below_c"]
+    decay = th.value("timber_decay_mc_pct")
+    slow = th.value("timber_decay_slow_below_c")
+    if loft:
+        text = (f"The loft is at {_pct(air.rh_pct)} RH. A ventilated loft follows outdoor air: "
+                "dry it by cutting the moisture coming up from the rooms below: seal gaps "
+                "around the hatch (fit a draught seal), ceiling lights, pipes and cables, and "
+                "make sure no extract fan, tumble-drier or soil vent discharges into the loft "
+                "(duct them to outside). Check the eaves and ridge ventilation is open and "
+                "not blocked by insulation.")
+    else:
+        text = (f"The crawl space is at {_pct(air.rh_pct)} RH. A ventilated crawl space "
+                "follows outdoor air: dry it by cutting the moisture coming in: lay a ground "
+                "vapour barrier (polyethylene sheet, lapped and taped, held down), fix leaks "
+                "and drainage that bring water in, and check the air bricks or vents are open "
+                "and clear.")
+    text += (" A dehumidifier helps only if the space is sealed (closed off from outdoor "
+             "air); in a ventilated space it dries the weather. Measure the timber with a pin "
+             "moisture meter (wood scale): decay fungi need about "
+             f"{decay:.0f} % moisture content or more.")
+    values: dict = {"room_rh_pct": air.rh_pct, "dehumidify_only_if_sealed": True}
+    timber = []
+    for surface in finding.surfaces:
+        label = surface.label.lower()
+        if not any(word in label for word in _TIMBER_LABEL_WORDS):
+            continue
+        if surface.mould not in (MouldState.ABOVE, MouldState.CANNOT_TELL,
+                                 MouldState.APPROACHING) \
+                and surface.surface_rh_pct < th.value("surface_rh_mould_limit_pct"):
+            continue
+        rh_s = min(100.0, surface.surface_rh_pct)
+        emc = _timber_emc(surface.surface_temp_c, rh_s)
+        if emc is None:
+            continue
+        timber.append({"surface": surface.label, "surface_temp_c": surface.surface_temp_c,
+                       "surface_rh_pct": rh_s, "emc_pct": emc})
+        name = surface.label[:1].upper() + surface.label[1:]
+        sentence = (f" {name} at {fmt('temperature', surface.surface_temp_c)} and "
+                    f"{_pct(rh_s)} surface RH would settle at about {emc:.1f} % moisture "
+                    f"content (Wood Handbook eqn 4-5 at the surface)")
+        if emc >= decay:
+            sentence += f": in the decay range (above about {decay:.0f} %)"
+        else:
+            sentence += f": below the {decay:.0f} % decay range, but check it with the meter"
+        if surface.surface_temp_c < slow:
+            sentence += (f"; below {fmt('temperature', slow)} decay is slower, not stopped, "
+                         "and speeds up when it warms")
+        text += sentence + "."
+    if timber:
+        values["timber_surfaces"] = timber
+    return Action(ActionKind.DRY_VENTILATED_SPACE, text, values, tuple(keys))
+
+
+def _timber_emc(temp_c: float, rh_pct: float) -> float | None:
+    """Wood Handbook eqn 4-5 EMC at a surface, or None outside its range."""
+    from survey.assess import timber_emc_pct
+    try:
+        return timber_emc_pct(temp_c, rh_pct)
+    except InputError:
+        return None
+
+
 # --- surfaces ------------------------------------------------------------------------------------
 
 def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: float,
@@ -624,6 +836,8 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
     max_rh = psychro.max_room_rh_pct(air.dry_bulb_c, surface.surface_temp_c, mould_limit)
     too_cold = max_rh < floor
     factor_under = surface.temperature_factor_state is FactorState.UNDER
+    if surface.temperature_factor_state is FactorState.DRYING_WET:
+        return None  # evaporation cools a drying surface: dry it before judging it
     if not (too_cold or factor_under):
         return None
     keys = ["surface_rh_mould_limit_pct", "dew_point_margin_k", "room_rh_floor_pct"]
@@ -650,15 +864,23 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
         if factor_under:
             reasons.append(f"its temperature factor is {surface.temperature_factor:.2f} "
                            f"(±{surface.temperature_factor_uncertainty:.2f}), under "
-                           f"{_limit_phrase(finding, f_limit)}, which today means at least "
-                           f"{fmt('temperature', for_factor)}")
+                           f"{_limit_phrase(finding, f_limit)}, which today means a surface "
+                           f"of at least {_min_temp(fmt, for_factor)} (the factor limit)")
             target = max(target, for_factor)
     values["target_surface_temp_c"] = target
     text = (f"{surface.label} is too cold at {fmt('temperature', surface.surface_temp_c)}: "
             + "; ".join(reasons) + ". "
-            f"Raise it to at least {fmt('temperature', target)} so the room can be kept at "
-            f"{_pct(design_rh)} without mould risk: ")
-    text += _REMEDY.get(surface.element, _REMEDY["other"])
+            f"Raise it to at least {_min_temp(fmt, target)} "
+            + (f"(the factor limit; {_min_temp(fmt, for_rh)} would do for "
+               f"{_pct(design_rh)} room RH alone) " if target > for_rh else "")
+            + f"so the room can be kept at {_pct(design_rh)} without mould risk: ")
+    ground = surface.temperature_factor_state is FactorState.GROUND_CONTACT
+    if ground:
+        text += ("keep the space heated steadily and the air dry, and keep stored things off "
+                 "the coldest part. This surface is in contact with the ground, which sets "
+                 "its temperature: its temperature factor is not judged against outdoor air.")
+    else:
+        text += _REMEDY.get(surface.element, _REMEDY["other"])
     if factor_under:
         text += (" The factor comes from one reading: confirm it on another cold day, or with "
                  "a thermal image, before building work.")
@@ -711,7 +933,7 @@ def _stays_dry(values: dict, target: float, fmt: Formatter) -> str:
     if rh_limit_shown(dry) >= target:
         return text + f", so once the room is down to {_pct(target)} it stays dry."
     return (text + f"; at {_pct(target)} it would need to be at least "
-            f"{fmt('temperature', values['surface_temp_to_stay_dry_c'])}.")
+            f"{_min_temp(fmt, values['surface_temp_to_stay_dry_c'])}.")
 
 
 def _glazing(finding: RoomFinding, surface: SurfaceFinding, target: float,
@@ -731,16 +953,19 @@ def _glazing(finding: RoomFinding, surface: SurfaceFinding, target: float,
         text += (f", against a {point} of {fmt('temperature', surface.condensation_point_c)}: "
                  f"{forming}. {_stays_dry(values, target, fmt)} ")
         if glass:
-            text += ("On single glazing in cold weather some condensation is expected: it is "
-                     "no reason to hold the room drier than is practical. Wipe the glass and "
-                     "sill dry each morning, keep trickle vents open and curtains or blinds "
-                     "clear of the glass at night, and consider secondary or double glazing, "
-                     "which keeps the inner pane warmer.")
+            text += ("On single glazing some condensation is expected in cold weather: it is "
+                     "no reason to hold the room drier than is practical; consider secondary or "
+                     "double glazing, which keeps the inner pane warmer. On double glazing a "
+                     "pane this cold suggests a failed or poor unit (misting between the panes "
+                     "means a failed seal): have it checked or replaced. Wipe the "
+                     "glass and sill dry each morning, "
+                     + ("" if _drying(finding) else "keep trickle vents open, ")
+                     + "and keep curtains or blinds clear of the glass at night.")
         else:
             text += ("Window frames, metal ones above all, run colder than the walls around "
                      "them, and some condensation on them in cold weather is expected: it is "
                      "no reason to hold the room drier than is practical. Wipe frames and sills "
-                     "dry, keep trickle vents open, and consider secondary glazing or frames "
+                     "dry, " + ("" if _drying(finding) else "keep trickle vents open, ") + "and consider secondary glazing or frames "
                      "with a thermal break.")
     else:
         text += "."
@@ -814,7 +1039,38 @@ def _class_reason(finding: RoomFinding, fmt: Formatter) -> tuple[str | None, str
                   f"the room for a week or two, before looking for a hidden source.")
 
 
-def _sources(finding: RoomFinding, fmt: Formatter) -> _SourceFindings:
+_WET_ROOMS = frozenset({"bathroom", "kitchen"})
+
+
+def _wet_room_text(finding: RoomFinding, fmt: Formatter) -> str:
+    """A bathroom or kitchen with a high humidity class: a use peak; extract and re-read."""
+    low = th.value("wet_room_reread_after_use_min")
+    high = th.value("wet_room_reread_after_use_max_min")
+    what = "a shower or bath" if finding.use == "bathroom" else "cooking"
+    excess = fmt("vapour_pressure", finding.vapour_pressure_excess_pa)
+    return (f"The room air holds {excess} more vapour pressure than outdoors, "
+            f"{th.humidity_class_text(finding.humidity_class)} of EN ISO 13788, but in "
+            f"{_USE_PHRASE[finding.use]} a high reading is usually the normal peak after "
+            f"{what}, not a hidden source. Have an extract fan that clears it: sized to the "
+            f"local code's minimum extract rate (UK Approved Document F and ASHRAE 62.2 set "
+            f"minimum extract rates; from memory, check local code), with an overrun timer or "
+            f"a humidistat so it keeps running after use, and the door kept shut meanwhile. "
+            f"Take a re-reading {low:.0f}-{high:.0f} min after use; if the room is still this "
+            f"humid then, look for a blocked or missing extract, laundry drying or a leak.")
+
+
+def _occupants_share(moisture: MoistureEstimate) -> float | None:
+    """Share of the back-calculated load that occupants and activities explain."""
+    people = None if moisture.occupants_g_per_h is None and moisture.activities_g_per_h is None \
+        else (moisture.occupants_g_per_h or 0.0) + (moisture.activities_g_per_h or 0.0)
+    back = moisture.back_calculated_g_per_h
+    if people is None or not back:
+        return None
+    return people / back
+
+
+def _sources(finding: RoomFinding, fmt: Formatter,
+             occupants_explain: bool = False) -> _SourceFindings:
     """Find the source, keep drying, and repeat the readings: what the materials,
     observations and humidity class call for."""
     room = finding.room
@@ -870,7 +1126,13 @@ def _sources(finding: RoomFinding, fmt: Formatter) -> _SourceFindings:
                      "floors or in voids")
     # While a room is being dried its air is humid from the drying itself: the humidity
     # class says nothing about a hidden source then.
-    high_class, maybe_high = (None, None) if drying else _class_reason(finding, fmt)
+    high_class, maybe_high = (None, None) if drying or occupants_explain \
+        else _class_reason(finding, fmt)
+    wet_room_peak = None
+    if finding.use in _WET_ROOMS and (high_class is not None or maybe_high is not None):
+        # A shower or cooking peak, not a hidden source: extract and re-read after use.
+        wet_room_peak = _wet_room_text(finding, fmt)
+        high_class = maybe_high = None
     if high_class is not None or maybe_high is not None:
         keys_class = ["humidity_class_high", *th.HUMIDITY_CLASS_KEYS, "coverage_factor"]
     if high_class is not None:
@@ -916,7 +1178,16 @@ def _sources(finding: RoomFinding, fmt: Formatter) -> _SourceFindings:
                              tuple(dict.fromkeys(drying_keys)))
 
     repeat = None
-    if maybe_high is not None:
+    if wet_room_peak is not None:
+        repeat = Action(ActionKind.REPEAT_READINGS, wet_room_peak,
+                        {"vapour_pressure_excess_pa": finding.vapour_pressure_excess_pa,
+                         "humidity_class": finding.humidity_class,
+                         "reread_after_use_min": [
+                             th.value("wet_room_reread_after_use_min"),
+                             th.value("wet_room_reread_after_use_max_min")]},
+                        ("wet_room_reread_after_use_min", "wet_room_reread_after_use_max_min",
+                         *th.HUMIDITY_CLASS_KEYS))
+    elif maybe_high is not None:
         repeat = Action(ActionKind.REPEAT_READINGS, maybe_high,
                         {"vapour_pressure_excess_pa": finding.vapour_pressure_excess_pa,
                          "vapour_pressure_excess_uncertainty_pa":
@@ -928,6 +1199,13 @@ def _sources(finding: RoomFinding, fmt: Formatter) -> _SourceFindings:
 
 
 # --- cautions ----------------------------------------------------------------------------------
+
+_MEDIUM_MOULD_GUIDANCE = (
+    "have it removed by someone trained, with gloves, goggles and at least an FFP2 / N95 "
+    "respirator, the area sealed off with plastic sheeting and the waste bagged; keep "
+    "occupants, above all vulnerable people, out during the work. A large area needs a "
+    "licensed or specialist mould remediation contractor.")
+
 
 def _mould_caution(area: float) -> Caution:
     small = th.value("mould_area_small_m2")
@@ -948,7 +1226,8 @@ def _mould_caution(area: float) -> Caution:
                 "waste. People with asthma, allergies or weak immune systems should not "
                 "do it. It returns unless the damp is cured.")
     elif area <= large:
-        text = f"Visible mould, about {area:.2g} m²: a medium area. " + medium.capitalize()
+        text = (f"Visible mould, about {area:.2g} m²: a medium area. "
+                + medium[0].upper() + medium[1:])
     else:
         text = (f"Visible mould, about {area:.3g} m²: a large area. Call a licensed or "
                 "specialist mould remediation contractor: it needs full containment, "
@@ -966,6 +1245,11 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
     area = obs.visible_mould_area_m2
     if obs.mould_seen:
         out.append(_mould_caution(area))
+    elif any(surface.mould is MouldState.ABOVE for surface in finding.surfaces):
+        out.append(Caution("mould_if_visible",
+                           "A surface is above the mould limit: if mould is visible, measure "
+                           "its area, and until then " + _MEDIUM_MOULD_GUIDANCE,
+                           ("mould_area_small_m2", "mould_area_large_m2")))
     category = obs.water_category
     if category == 3:
         out.append(Caution("water_category_3",
@@ -1001,9 +1285,19 @@ def _cautions(finding: RoomFinding, actions: tuple[Action, ...], year_built: int
                            "electrician make wet circuits safe before work. Run "
                            "dehumidifiers and fans from a socket with residual-current "
                            "protection (RCD / GFCI), leads kept off wet floors."))
-    if finding.use in th.CONFINED_USES:
+    if finding.use == "basement":
         out.append(Caution("confined_space",
-                           f"{finding.use.capitalize()}: a confined or hard-to-reach space. "
+                           "Basement: if the basement is unheated, poorly ventilated or "
+                           "flooded, treat it as a confined space. Do not go in alone, tell "
+                           "someone where you are, and check before entering for poor air (low "
+                           "oxygen, gas, sewer gas, combustion fumes), unsafe floors, and live "
+                           "wiring near water. Local rules may require confined-space entry "
+                           "procedures."))
+    elif finding.use in th.CONFINED_USES:
+        phrase = {"crawlspace": "Crawl space", "loft": "Loft"}.get(finding.use,
+                                                                  finding.use.capitalize())
+        out.append(Caution("confined_space",
+                           f"{phrase}: a confined or hard-to-reach space. "
                            "Do not go in alone, tell someone where you are, and check "
                            "before entering for poor air (low oxygen, gas, sewer gas, "
                            "combustion fumes), unsafe floors or joists, sharp fixings, pests "
@@ -1064,22 +1358,39 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
     design = (th.value("room_rh_target_default_pct") if target_rh_pct is None
               else target_rh_pct)
     target_air = air_state(air.dry_bulb_c, target, air.pressure_pa)
-    moisture = moisture_generation(finding)
+    moisture = moisture_generation(finding, fmt)
     actions: list[Action] = []
 
-    sources = _sources(finding, fmt)
+    share = _occupants_share(moisture)
+    explain = th.value("occupants_explain_fraction")
+    # In a bathroom or kitchen a high class is first read as a use peak (see _wet_room_text).
+    occupants_explain = (share is not None and share >= explain
+                         and finding.use not in _WET_ROOMS
+                         and finding.humidity_class is not None
+                         and max(finding.humidity_class_possible or (finding.humidity_class,))
+                         >= int(th.value("humidity_class_high")))
+    sources = _sources(finding, fmt, occupants_explain)
     if sources.find_source is not None and sources.find_source_first:
         actions.append(sources.find_source)
     if sources.keep_drying is not None:
         actions.append(sources.keep_drying)
 
-    if air.rh_pct > target:
+    drying = _drying(finding)
+    ventilated_space = finding.use in _VENTILATED_SPACES and drying is None
+    if ventilated_space:
+        if air.rh_pct > target or any(
+                s.mould in (MouldState.ABOVE, MouldState.CANNOT_TELL) for s in finding.surfaces):
+            actions.append(_ventilated_space(finding, fmt))
+    elif drying is not None:
+        actions += _drying_actions(finding, drying, target, basis, target_keys, target_air,
+                                   moisture, fmt)
+    elif air.rh_pct > target:
         actions += _moisture_actions(finding, target, basis, target_keys, target_air,
                                      moisture, fmt)
 
     by_temperature = sorted(finding.surfaces, key=lambda s: s.surface_temp_c)
     for surface in by_temperature:
-        if surface.policy.sets_room_target:
+        if surface.policy.sets_room_target and not ventilated_space:
             action = _raise_surface(finding, surface, design, fmt)
             if action is not None:
                 actions.append(action)
@@ -1091,6 +1402,20 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
         if action is not None:
             actions.append(action)
 
+    if occupants_explain:
+        note = (f" The humidity class is high, but the occupants' own moisture "
+                f"({_rate(fmt, moisture.occupants_g_per_h or 0.0)}"
+                + (" with activities" if moisture.activities_g_per_h else "")
+                + f") accounts for {min(share, 9.99) * 100:.0f} % of the "
+                f"{_rate(fmt, moisture.back_calculated_g_per_h)} the measured excess implies "
+                f"at the assumed air change rate: the room is under-ventilated for the people "
+                f"in it rather than hiding a source.")
+        for i, a in enumerate(actions):
+            if a.kind in (ActionKind.VENTILATE, ActionKind.DEHUMIDIFY):
+                actions[i] = Action(a.kind, a.reason + note,
+                                    {**a.values, "occupants_share_of_load": share},
+                                    (*a.threshold_keys, "occupants_explain_fraction"))
+                break
     if sources.find_source is not None and not sources.find_source_first:
         actions.append(sources.find_source)
     if sources.repeat_readings is not None:

@@ -97,6 +97,9 @@ class MouldState(_State):
     ABOVE = ("above_limit", 2, "above the mould limit")
     CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
     NOT_JUDGED = ("not_judged", None, "not judged for mould (glass or pipe)")
+    TOO_COLD = ("too_cold_now", None, "too cold for mould growth now; watch for melt-water "
+                "and mould when it warms")
+    TOO_HOT = ("too_hot_now", None, "too hot for the mould criterion (above 40 °C)")
 
 
 class FactorState(_State):
@@ -106,6 +109,10 @@ class FactorState(_State):
     NOT_JUDGED = ("not_judged", None, "cannot be judged today")
     NOT_APPLICABLE = ("not_applicable", None, "no limit for this room use")
     NOT_FOR_ELEMENT = ("not_for_element", None, "not used for this kind of surface")
+    GROUND_CONTACT = ("ground_contact", None, "ground-contact element: temperature factor not "
+                      "judged against outdoor air")
+    DRYING_WET = ("drying_wet", None, "not judged while wet materials dry (evaporation cools "
+                  "the surface)")
 
 
 class DryStandardState(_State):
@@ -209,11 +216,32 @@ class Observations:
     electrics_near_water: bool = False
     visible_mould: bool = False  #: mould seen (its area may not have been measured)
     drying_in_progress: bool = False  #: drying equipment at work: the source is dealt with
+    drying: "DryingEquipment | None" = None  #: what the drying equipment is and logged
 
     @property
     def mould_seen(self) -> bool:
         """Mould was seen: flagged, or an area recorded."""
         return self.visible_mould or self.visible_mould_area_m2 > 0.0
+
+
+@dataclass(frozen=True, slots=True)
+class DryingEquipment:
+    """Drying equipment running in a room, and what it logged."""
+
+    dehumidifiers: int = 0
+    air_movers: int = 0
+    capacity_l_per_day: float | None = None  #: rated, summed over the dehumidifiers
+    water_removed_l: float | None = None  #: collected since the previous visit
+    hours_since_previous: float | None = None
+    outlet_temp_c: float | None = None  #: air leaving a dehumidifier
+    outlet_rh_pct: float | None = None
+
+    @property
+    def removed_l_per_day(self) -> float | None:
+        """Logged water removed per day, when both the amount and the time are known."""
+        if self.water_removed_l is None or not self.hours_since_previous:
+            return None
+        return self.water_removed_l * 24.0 / self.hours_since_previous
 
 
 @dataclass(frozen=True, slots=True)
@@ -742,6 +770,7 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
         raise exc.with_field(f"room {room.name!r} {exc.field}") from None
     ctx = _context(air, outdoor, accuracy, use, limits)
     surfaces = tuple([_surface(ctx, s) for s in room.surfaces])
+    surfaces = _not_judged_by_use(room, use, surfaces)
     keys = ctx.keys if outdoor is None else _with_class_keys(ctx.keys)
 
     coldest = other = None
@@ -796,6 +825,50 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
         rh_mould, rh_margin, rh_low, rh_high, other, rh_dry_other, excess, excess_u, number,
         possible, materials, th.FRSI_LIMIT_BY_USE[use].key, keys,
     )
+
+
+#: Uses where the ground, not outdoor air, sets floor and wall temperatures.
+GROUND_USES = frozenset({"basement", "crawlspace"})
+_GROUND_ELEMENTS = frozenset({"floor", "external_wall", "internal_wall"})
+_FACTOR_JUDGED = frozenset({FactorState.MEETS, FactorState.UNDER, FactorState.CANNOT_TELL,
+                            FactorState.NOT_JUDGED})
+
+
+def _wet_and_drying(room: RoomInput) -> bool:
+    """Drying under way with materials above their dry standard (or timber decay range)."""
+    if not room.observations.drying_in_progress:
+        return False
+    tolerance = th.value("dry_standard_tolerance_fraction")
+    return any(m.dry_standard is not None and m.value > m.dry_standard * (1.0 + tolerance)
+               for m in room.materials)
+
+
+def _not_judged_by_use(room: RoomInput, use: str, surfaces: tuple[SurfaceFinding, ...]
+                       ) -> tuple[SurfaceFinding, ...]:
+    """The temperature factor set aside where outdoor air does not set the surface
+    temperature (ground contact) or evaporation cools it (wet materials drying); mould not
+    judged outside the 5-40 °C surface range of the 80 % criterion."""
+    wet = _wet_and_drying(room)
+    low = th.value("mould_growth_min_surface_temp_c")
+    high = th.value("mould_growth_max_surface_temp_c")
+    out = []
+    for s in surfaces:
+        state = None
+        if s.temperature_factor_state in _FACTOR_JUDGED:
+            if wet:
+                state = FactorState.DRYING_WET
+            elif use in GROUND_USES and s.element in _GROUND_ELEMENTS:
+                state = FactorState.GROUND_CONTACT
+        if state is not None:
+            s = s._replace(temperature_factor=None, temperature_factor_uncertainty=None,
+                           temperature_factor_state=state, temperature_factor_possible=(state,))
+        if s.mould is not MouldState.NOT_JUDGED:
+            mould = (MouldState.TOO_COLD if s.surface_temp_c < low
+                     else MouldState.TOO_HOT if s.surface_temp_c > high else None)
+            if mould is not None:
+                s = s._replace(mould=mould, mould_possible=(mould,))
+        out.append(s)
+    return tuple(out)
 
 
 def _surface_temp(finding: SurfaceFinding) -> float:

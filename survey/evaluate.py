@@ -53,6 +53,41 @@ def drying_in_progress(room_visit: model.RoomVisit) -> bool:
     return any(e.running and e.kind in DRYING_EQUIPMENT for e in room_visit.equipment)
 
 
+_DEHUMIDIFIERS = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier"})
+
+
+def _hours_since_previous(survey: model.Survey, visit: model.Visit) -> float | None:
+    """Hours from the visit before ``visit`` (by start time) to ``visit``; None if first."""
+    earlier = [v.started_at for v in survey.visits
+               if v is not visit and v.started_at < visit.started_at]
+    if not earlier:
+        return None
+    try:
+        return (visit.started_at - max(earlier)).total_seconds() / 3600.0
+    except TypeError:  # naive and aware times mixed
+        return None
+
+
+def drying_equipment(survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit
+                     ) -> assess.DryingEquipment | None:
+    """The running dehumidifiers and air movers of a room, with what they logged."""
+    running = [e for e in room_visit.equipment if e.running]
+    dehumidifiers = [e for e in running if e.kind in _DEHUMIDIFIERS]
+    movers = [e for e in running if e.kind == "air_mover"]
+    if not dehumidifiers and not movers:
+        return None
+    capacities = [e.capacity_l_per_day for e in dehumidifiers if e.capacity_l_per_day]
+    removed = [e.water_removed_l for e in dehumidifiers if e.water_removed_l is not None]
+    outlet = next((e.outlet for e in dehumidifiers if e.outlet is not None), None)
+    return assess.DryingEquipment(
+        dehumidifiers=len(dehumidifiers), air_movers=len(movers),
+        capacity_l_per_day=sum(capacities) if capacities else None,
+        water_removed_l=sum(removed) if removed else None,
+        hours_since_previous=_hours_since_previous(survey, visit) if removed else None,
+        outlet_temp_c=None if outlet is None else outlet.dry_bulb_c,
+        outlet_rh_pct=None if outlet is None else outlet.rh_pct)
+
+
 def is_timber(material: str) -> bool:
     """Whether a material name describes timber (so the timber limits apply)."""
     text = material.lower()
@@ -126,6 +161,7 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
         or any(s.condensation_seen for s in room_visit.surfaces),
         odour=seen.odour not in (None, "none"),
         drying_in_progress=drying_in_progress(room_visit),
+        drying=drying_equipment(survey, visit, room_visit),
     )
     instruments = [room_visit.air.instrument, *(s.instrument for s in room_visit.surfaces)]
     return assess.RoomInput(

@@ -189,6 +189,37 @@ _THRESHOLDS: tuple[Threshold, ...] = (
               "60 %, from memory)",
               "Default target room RH when none is given and the surfaces allow it.",
               "common practice"),
+    Threshold("drying_rh_target_low_pct", "Drying target, lower end", 40.0, "%",
+              "water-damage restoration practice",
+              "While wet materials are being dried the drying area is held well below the "
+              "60 % maintenance target, commonly 40-50 % RH, so the air keeps taking water "
+              "out of the materials.", "common practice"),
+    Threshold("drying_rh_target_pct", "Drying target, upper end", 50.0, "%",
+              "water-damage restoration practice",
+              "Highest RH to hold in a drying area; a dehumidifier is sized against it.",
+              "common practice"),
+    Threshold("mould_growth_min_surface_temp_c", "Mould judged from surface temperature",
+              5.0, "°C", "ASHRAE Standard 160-2009 (secondary source)",
+              "The 80 % surface-RH criterion applies while the surface is between 5 and 40 °C; "
+              "below, mould does not grow now.", "R"),
+    Threshold("mould_growth_max_surface_temp_c", "Mould judged up to surface temperature",
+              40.0, "°C", "ASHRAE Standard 160-2009 (secondary source)",
+              "Upper end of the surface temperature range of the 80 % criterion.",
+              "R"),
+    Threshold("wet_room_reread_after_use_min", "Re-read a bathroom or kitchen after use, from",
+              30.0, "min", "ventilation practice",
+              "A high RH in a bathroom or kitchen is usually the normal peak after a shower or "
+              "cooking; a reading 30-60 min after use shows whether the extract clears it.",
+              "common practice"),
+    Threshold("wet_room_reread_after_use_max_min", "Re-read a bathroom or kitchen after use, to",
+              60.0, "min", "ventilation practice",
+              "Upper end of the re-reading window after a shower or cooking.",
+              "common practice"),
+    Threshold("occupants_explain_fraction", "Occupants explain the excess from",
+              0.7, "", "our choice",
+              "When occupants and activities account for this share or more of the load the "
+              "measured excess implies, a high humidity class reads as under-ventilation, not "
+              "a hidden source.", "common practice"),
     # --- ventilation ----------------------------------------------------------------------------
     Threshold("ventilation_outdoor_drier_margin_g_per_kg", "Outdoor air drier by at least",
               1.0, "g/kg", "ventilation practice",
@@ -520,7 +551,7 @@ HUMIDITY_CLASS_EXAMPLES: dict[int, str] = {
     3: "buildings with unknown occupancy",
     4: "sports halls, kitchens, canteens",
     5: "laundries, breweries, swimming pools",
-    BEYOND_CLASS_5: "more than even laundries and swimming pools",
+    BEYOND_CLASS_5: "more than laundries and swimming pools produce",
 }
 
 #: Words for the class above class 5.

@@ -97,7 +97,10 @@ def test_cold_damp_bedroom_table(check, monkeypatch):
                   "Highest room RH the coldest wall, ceiling or floor (Surface 1, 11.0 °C) "
                   "can bear: 50 %",
                   "class 4", "1. Ventilate", "m³/h", "air changes an hour",
-                  "2. Raise the surface temperature: Surface 1", "14.2 °C", "Safety",
+                  "2. Raise the surface temperature: Surface 1",
+                  # 3 + 0.75 × (18 − 3) = 14.25 °C (fRsi 0.75, BRE IP1/06, from memory),
+                  # a minimum, so shown rounded up:
+                  "at least 14.3 °C (the factor limit", "Safety",
                   "unflued gas or paraffin heaters", "asbestos",
                   "Follow local building codes", "Instrument accuracy: air ±0.5 K, RH ±3 %, "
                   "surface ±1.0 K (typical specifications, none entered)", "Limits used",
@@ -412,7 +415,71 @@ def test_dehumidifier_numbers_read_once(check, monkeypatch):
     worked out gives no "at least" sentence (null in JSON)."""
     monkeypatch.setenv("COLUMNS", "400")
     no_people = [a for a in SUMMER if a not in ("--occupants", "0")]
+    no_people[no_people.index("basement")] = "bedroom"  # an occupied room: no guess at people
     _, out, _ = check(*no_people, "--json")
     dehum = json.loads(out)["actions"][0]
     assert dehum["kind"] == "dehumidify" and dehum["removal_l_per_day"] is None
     assert "at least" not in dehum["reason"] and "room volume" not in dehum["reason"]
+
+
+def test_mould_area_option_feeds_the_mould_caution(check):
+    """--mould-area 2 (m²) is a medium area: between the small and large area guidance
+    limits of thresholds (common practice, no source); the caution says so."""
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "12",
+                      "--mould-area", "2", "--json")
+    cautions = json.loads(out)["cautions"]
+    medium = [c for c in cautions if c.startswith("Visible mould, about 2 m²: a medium area")]
+    assert medium and "FFP2 / N95" in medium[0]
+
+
+def test_mould_seen_without_area_is_treated_as_medium(check):
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--mould-seen", "--json")
+    assert any(c.startswith("Visible mould, area not measured")
+               for c in json.loads(out)["cautions"])
+
+
+def test_surface_above_mould_limit_without_mould_options_adds_if_visible_caution(check):
+    """18 °C / 72 % on a 12 °C wall: the wall is below the room's dew point (about 12.9 °C
+    by CoolProp), so its surface RH is far above 80 % (BS 5250 Annex D); no mould option
+    given, so the 'if mould is visible' caution shows."""
+    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "12", "--json")
+    data = json.loads(out)
+    assert data["surfaces"][0]["mould"] == "above_limit"
+    assert any(c.startswith("A surface is above the mould limit: if mould is visible")
+               for c in data["cautions"])
+
+
+@pytest.mark.parametrize("area", ["0", "-1", "abc"])
+def test_bad_mould_area_is_refused(check, area):
+    code, _, err = check("--air-temp", "18", "--rh", "72", "--mould-area", area)
+    assert code == 2 and "--mould-area" in err
+
+
+def test_lowered_target_rh_says_why(check):
+    """--target-rh 65 on a wall that bears only 50 % (mould limit 80 %, BS 5250 Annex D):
+    the target is lowered, and the text says from what and why."""
+    _, out, _ = check(*BEDROOM, "--target-rh", "65", "--json")
+    reasons = " ".join(a["reason"] for a in json.loads(out)["actions"])
+    assert "the 65 % given was lowered to" in reasons
+
+
+def test_factor_above_limit_with_band_touching_it_needs_no_action(check, monkeypatch):
+    """Wall 15.2 °C, room 20 °C, outdoors 0 °C: fRsi = 15.2 / 20 = 0.76 (EN ISO 13788
+    definition, from memory), above the 0.75 bedroom limit (BRE IP1/06, from memory), with
+    the ±1 K surface accuracy band reaching below: the summary gives the value and says no
+    action is needed, with no 'may be under' beside 'Nothing to do'."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--air-temp", "20", "--rh", "50", "--surface", "external_wall:15.2",
+                      "--outdoor-temp", "0", "--outdoor-rh", "80", "--use", "bedroom")
+    flat = " ".join(out.split())
+    assert "temperature factor 0.76, meets the 0.75 limit" in flat
+    assert "no action needed" in flat and "may be under the limit" not in flat
+
+
+def test_factor_just_under_limit_inside_band_is_not_nothing_to_do(check, monkeypatch):
+    """Wall 14.5 °C: fRsi 0.725, under 0.75 but inside the band: not 'Nothing to do'."""
+    monkeypatch.setenv("COLUMNS", "400")
+    _, out, _ = check("--air-temp", "20", "--rh", "50", "--surface", "external_wall:14.5",
+                      "--outdoor-temp", "0", "--outdoor-rh", "80", "--use", "bedroom")
+    flat = " ".join(out.split())
+    assert "Nothing to do" not in flat and "No action is certain" in flat

@@ -186,3 +186,81 @@ def test_basement_drying_visits_say_keep_drying():
     standard = next(m.dry_standard for m in day3.findings.rooms[
         day3.room_ids.index("family")].materials if m.label == "Skirting, party wall")
     assert goal == pytest.approx(standard * 1.1)
+
+
+def _cp_w(temp_c: float, rh_pct: float) -> float:
+    """Humidity ratio, kg/kg, by CoolProp HAPropsSI at standard pressure (the reference)."""
+    return HAPropsSI("W", "T", temp_c + 273.15, "P", 101325.0, "R", rh_pct / 100.0)
+
+
+def _room_advice(visit: evaluate.VisitAssessment, room_id: str):
+    return visit.advice.rooms[visit.room_ids.index(room_id)]
+
+
+def test_room_being_dried_is_kept_closed_and_dehumidified_never_ventilated():
+    """Basement drying, every visit: no ventilate action and no window or vent opening in the
+    advice of a room with drying equipment running; the action says to keep the drying area
+    closed, and the target is the 50 % top of the 40-50 % drying band (common practice, no
+    source), not 60 %."""
+    survey = load("basement-burst-pipe-drying")
+    for index in range(len(survey.visits)):
+        judged = evaluate.assess_visit(survey, index)
+        for room_id, room_visit in zip(judged.room_ids,
+                                       [r for r in judged.visit.rooms if r.air is not None]):
+            if not evaluate.drying_in_progress(room_visit):
+                continue
+            advice = _room_advice(judged, room_id)
+            assert "ventilate" not in _kinds(advice)
+            text = " ".join(a.reason for a in advice.actions)
+            assert "open windows" not in text.lower() and "trickle vents open" not in text
+            dehumidify = next(a for a in advice.actions if a.kind.value == "dehumidify")
+            assert dehumidify.reason.startswith(
+                "Keep the drying area closed and dehumidify") or "Air movers" in dehumidify.reason
+            assert dehumidify.values["target_rh_pct"] == 50.0
+
+
+def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
+    """Family room, second visit: 18 L logged over the time since the first visit is the
+    load, per day; the grain depression is the room air's humidity ratio minus the outlet's,
+    by CoolProp, in g/kg and in gr/lb (7000 grains = 1 lb)."""
+    survey = load("basement-burst-pipe-drying")
+    judged = evaluate.assess_visit(survey, 1)
+    room_id = judged.room_ids[0]
+    room_visit = next(r for r in judged.visit.rooms if r.room == room_id)
+    unit = next(e for e in room_visit.equipment if e.kind.endswith("dehumidifier"))
+    hours = (survey.visits[1].started_at - survey.visits[0].started_at).total_seconds() / 3600
+    dehumidify = next(a for a in _room_advice(judged, room_id).actions
+                      if a.kind.value == "dehumidify")
+    assert dehumidify.values["removal_l_per_day"] == pytest.approx(
+        unit.water_removed_l * 24.0 / hours, rel=1e-9)
+    drop = _cp_w(room_visit.air.dry_bulb_c, room_visit.air.rh_pct) - _cp_w(
+        unit.outlet.dry_bulb_c, unit.outlet.rh_pct)
+    assert dehumidify.values["grain_depression_g_per_kg"] == pytest.approx(1000 * drop, rel=0.02)
+    assert dehumidify.values["grain_depression_gr_per_lb"] == pytest.approx(7000 * drop, rel=0.02)
+    assert "gr/lb" in dehumidify.reason and "rated 50.0 L/day" in dehumidify.reason
+
+
+def test_air_movers_without_a_dehumidifier_are_told_to_join_the_dried_area():
+    """Basement store: air movers only. Air movers alone raise the room RH (common practice,
+    no source): join the dehumidified area or get a unit."""
+    survey = load("basement-burst-pipe-drying")
+    judged = evaluate.assess_visit(survey, 0)
+    store_id = next(r.room for r in judged.visit.rooms
+                    if r.equipment and all(e.kind == "air_mover" for e in r.equipment))
+    dehumidify = next(a for a in _room_advice(judged, store_id).actions
+                      if a.kind.value == "dehumidify")
+    assert dehumidify.values["air_movers_without_dehumidifier"] is True
+    assert "own dehumidifier" in dehumidify.reason
+
+
+def test_wet_drying_room_surfaces_are_not_judged_by_temperature_factor():
+    """Family room, second visit: materials above the dry standard while drying, so
+    evaporation cools the screed; no temperature factor and no insulation action."""
+    survey = load("basement-burst-pipe-drying")
+    judged = evaluate.assess_visit(survey, 1)
+    room = judged.findings.rooms[0]
+    assert all(s.temperature_factor is None for s in room.surfaces)
+    assert {s.temperature_factor_state for s in room.surfaces
+            if s.policy.temperature_factor} == {assess.FactorState.DRYING_WET}
+    advice = judged.advice.rooms[0]
+    assert "raise_surface_temperature" not in _kinds(advice)

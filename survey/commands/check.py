@@ -109,6 +109,11 @@ def register(subparsers: argparse._SubParsersAction) -> None:
                       help=f"room RH to aim for, %% (default "
                            f"{th.value('room_rh_target_default_pct'):g}, lowered when the "
                            f"coldest wall, ceiling or floor needs it)")
+    room.add_argument("--mould-seen", action="store_true",
+                      help="visible mould in the room (for the mould caution)")
+    room.add_argument("--mould-area", metavar="M2",
+                      help="area of visible mould, m² (implies --mould-seen); sets the "
+                           "small / medium / large guidance")
     accuracy = parser.add_argument_group("instrument accuracy (± each)")
     accuracy.add_argument("--air-temp-accuracy", metavar="K",
                           help="air thermometer, K for si, °F for ip (default "
@@ -163,6 +168,19 @@ def _parse_volume(text: str, system: units.UnitSystem) -> float:
                          f"room volume must be between {VOLUME_MIN_M3:g} and "
                          f"{VOLUME_MAX_M3:g} m³")
     return volume
+
+
+def _parse_mould_area(text: str) -> float:
+    """A visible-mould area in m², above 0 and up to the survey file's limit."""
+    allowed = (f"an area in m² above 0 and up to {domain.MOULD_AREA_MAX_M2:g}, "
+               f"e.g. 0.5 (numbers only, m²)")
+    try:
+        area = units.parse_number(text, "--mould-area")
+    except InputError:
+        raise InputError("--mould-area", text, allowed) from None
+    if not (0.0 < area <= domain.MOULD_AREA_MAX_M2) or math.isnan(area):
+        raise InputError("--mould-area", text, allowed)
+    return area
 
 
 def _parse_occupants(text: str) -> int:
@@ -323,6 +341,10 @@ def compute(args: argparse.Namespace) -> dict[str, Any]:
                              f"target RH must be between {advise.TARGET_RH_MIN_PCT:g} and "
                              f"{advise.TARGET_RH_MAX_PCT:g} %")
     use = args.use or "other"
+    mould_area = 0.0
+    if args.mould_area is not None:
+        mould_area = _option("--mould-area", args.mould_area, _parse_mould_area)
+    mould_seen = bool(args.mould_seen or mould_area > 0.0)
     air_acc, air_given = _accuracy_option(
         "--air-temp-accuracy", args.air_temp_accuracy,
         lambda t: units.parse_temperature_difference(t, "--air-temp-accuracy", system),
@@ -339,7 +361,9 @@ def compute(args: argparse.Namespace) -> dict[str, Any]:
     room = psychro.state_from_rh(air_temp, rh, pressure)
     room_input = assess.RoomInput(
         name="Room", use=use, air_temp_c=air_temp, rh_pct=rh, surfaces=tuple(surfaces),
-        volume_m3=volume, occupants=occupants)
+        volume_m3=volume, occupants=occupants,
+        observations=assess.Observations(visible_mould_area_m2=mould_area,
+                                         visible_mould=mould_seen))
     site = assess.assess_site([room_input], outdoor_input, pressure, accuracy)
     finding = site.rooms[0]
     fmt = advise.si_text if system == "si" else (
@@ -510,7 +534,12 @@ def _short_verdict(surface: dict[str, Any], system: units.UnitSystem) -> str:
     if surface["temperature_factor_state"] == "under_limit":
         parts.append("temperature factor under the limit")
     elif surface["temperature_factor_state"] == "cannot_tell":
-        parts.append("temperature factor may be under the limit")
+        factor, limit = surface["temperature_factor"], surface["temperature_factor_limit"]
+        if factor is not None and limit is not None and factor >= limit:
+            parts.append(f"temperature factor {factor:.2f}, meets the {limit:.2f} limit "
+                         f"(only the edge of its accuracy band reaches below: no action needed)")
+        else:
+            parts.append("temperature factor may be under the limit")
     return "; ".join(parts)
 
 
@@ -550,7 +579,8 @@ def _action_numbers(action: dict[str, Any], system: units.UnitSystem) -> str:
     if kind == "dehumidify" and action.get("removal_l_per_day"):
         return f"at least {fmt('water_rate', action['removal_l_per_day'], system)}"
     if kind == "raise_surface_temperature":
-        return f"to at least {fmt('temperature', action['target_surface_temp_c'], system)}"
+        least = advise.round_up_temperature_c(action["target_surface_temp_c"], system == "ip")
+        return f"to at least {fmt('temperature', least, system)}"
     if kind == "keep_drying":
         count = action["materials_above_dry_standard"]
         return f"{count} reading{'s' if count != 1 else ''} above the dry standard"
@@ -583,6 +613,13 @@ def summary_lines(result: dict[str, Any], system: units.UnitSystem) -> list[str]
         more = len(result["actions"]) - 1
         lines.append(f"First: {first['title']}" + (f", {numbers}" if numbers else "")
                      + (f" (then {more} more under \"What to do\")." if more else "."))
+    elif any(sf["temperature_factor_state"] == "cannot_tell"
+             and sf["temperature_factor"] is not None
+             and sf["temperature_factor"] < sf["temperature_factor_limit"]
+             for sf in result["surfaces"]):
+        lines.append("No action is certain from these readings: the temperature factor is "
+                     "just under its limit but within the instruments' accuracy; confirm it "
+                     "on a colder day or with more accurate instruments.")
     else:
         lines.append("Nothing to do from these readings.")
     return lines
@@ -801,11 +838,14 @@ def _room_lines(result: dict[str, Any], system: units.UnitSystem) -> list[str]:
         possible = result["humidity_class_possible"]
         spread = ("" if len(possible) <= 1 else
                   f"; {result['humidity_class_possible_text']} at this accuracy")
+        number = result["humidity_class"]
+        example = th.HUMIDITY_CLASS_EXAMPLES[number]
+        like = example if number == th.BEYOND_CLASS_5 else f"as in {example}"
+        excess = fmt("vapour_pressure", result["vapour_pressure_excess_pa"], system)
+        band = fmt("vapour_pressure", result["vapour_pressure_excess_uncertainty_pa"], system)
         lines.append(
-            f"Humidity class (EN ISO 13788): {result['humidity_class_text']}, as in "
-            f"{th.HUMIDITY_CLASS_EXAMPLES[result['humidity_class']]} — the room air's "
-            f"vapour pressure is {result['vapour_pressure_excess_pa']:.0f} ± "
-            f"{result['vapour_pressure_excess_uncertainty_pa']:.0f} Pa above outdoors{spread}. "
+            f"Humidity class (EN ISO 13788): {result['humidity_class_text']}, {like} — the "
+            f"room air's vapour pressure is {excess} (± {band}) above outdoors{spread}. "
             f"Classes are defined for monthly means; a spot reading is a guide.")
     lines.append(f"Timber in this air settles at about {result['timber_emc_pct']:.1f} % moisture "
                  f"content (Wood Handbook eqn 4-5).")
