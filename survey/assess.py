@@ -63,7 +63,7 @@ from typing import Iterable, NamedTuple
 from survey import domain, psychro
 from survey import thresholds as th
 from survey.errors import InputError
-from survey.psychro import _in_range as _number_in  # one range guard for the core
+from survey.psychro import in_range as _number_in  # one range guard for the core
 
 _SQRT3 = math.sqrt(3.0)
 

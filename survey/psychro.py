@@ -102,7 +102,8 @@ def _is_number(value: object) -> bool:
     return isinstance(value, (int, float)) and not isinstance(value, bool)
 
 
-def _in_range(value: object, low: float, high: float) -> bool:
+def in_range(value: object, low: float, high: float) -> bool:
+    """Whether ``value`` is a finite real number (not a bool) within [low, high]."""
     return _is_number(value) and math.isfinite(value) and low <= value <= high
 
 
@@ -121,7 +122,7 @@ def _shown(value: object, unit: str = "") -> str:
 
 
 def check_dry_bulb(dry_bulb_c: float, field: str = "dry bulb") -> None:
-    if not _in_range(dry_bulb_c, DRY_BULB_MIN_C, DRY_BULB_MAX_C):
+    if not in_range(dry_bulb_c, DRY_BULB_MIN_C, DRY_BULB_MAX_C):
         raise InputError(field, _shown(dry_bulb_c, "°C"),
                          f"air temperature must be {_temp_range(DRY_BULB_MIN_C, DRY_BULB_MAX_C)}")
 
@@ -137,7 +138,7 @@ def check_rh(rh_pct: float, field: str = "relative humidity") -> None:
 
 
 def check_pressure(pressure_pa: float, field: str = "pressure") -> None:
-    if not _in_range(pressure_pa, PRESSURE_MIN_PA, PRESSURE_MAX_PA):
+    if not in_range(pressure_pa, PRESSURE_MIN_PA, PRESSURE_MAX_PA):
         shown = _shown(pressure_pa / 100.0 if _is_number(pressure_pa) else pressure_pa, "hPa")
         raise InputError(field, shown,
                          f"pressure must be between {PRESSURE_MIN_PA / 100:g} and "
@@ -146,14 +147,14 @@ def check_pressure(pressure_pa: float, field: str = "pressure") -> None:
 
 
 def check_surface_temp(surface_temp_c: float, field: str = "surface temperature") -> None:
-    if not _in_range(surface_temp_c, SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C):
+    if not in_range(surface_temp_c, SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C):
         raise InputError(field, _shown(surface_temp_c, "°C"),
                          "surface temperature must be "
                          f"{_temp_range(SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C)}")
 
 
 def _check_temperature(value: float, field: str, low_c: float, high_c: float) -> None:
-    if not _in_range(value, low_c, high_c):
+    if not in_range(value, low_c, high_c):
         raise InputError(field, _shown(value, "°C"),
                          f"{field} must be {_temp_range(low_c, high_c)}")
 
@@ -302,7 +303,7 @@ def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float
     Used for air that is heated, cooled or mixed at constant moisture content."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
-    if not _in_range(humidity_ratio_kg_per_kg, 1e-7, 1.0):
+    if not in_range(humidity_ratio_kg_per_kg, 1e-7, 1.0):
         raise InputError("humidity ratio", _shown(humidity_ratio_kg_per_kg, "kg/kg"),
                          "humidity ratio must be between 1e-07 and 1 kg/kg")
     vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio_kg_per_kg, pressure_pa)
@@ -431,7 +432,7 @@ def surface_temp_for_rh_c(state: MoistAir, surface_rh_limit_pct: float) -> float
 def pressure_from_altitude_m(altitude_m: float) -> float:
     """Standard-atmosphere pressure (Pa) at ``altitude_m`` (psychrolib
     ``GetStandardAtmPressure``, ASHRAE ch. 1 eqn 3)."""
-    if not _in_range(altitude_m, ALTITUDE_MIN_M, ALTITUDE_MAX_M):
+    if not in_range(altitude_m, ALTITUDE_MIN_M, ALTITUDE_MAX_M):
         raise InputError("altitude", _shown(altitude_m, "m"),
                          f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m "
                          f"({ALTITUDE_MIN_M / 0.3048:.0f} and {ALTITUDE_MAX_M / 0.3048:.0f} ft)")

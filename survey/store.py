@@ -501,18 +501,24 @@ def _read_bytes(path: Path) -> bytes:
     return _read_stamped(path)[0]
 
 
-def _read_stamped(path: Path) -> tuple[bytes, "FileStamp"]:
+def read_input_file(path: str | os.PathLike[str], what: str = "survey file") -> bytes:
+    """The bytes of a file the program reads (a survey, a logger CSV), at most
+    ``MAX_FILE_BYTES``; every failure is a :class:`SurveyFileError` naming ``what``."""
+    return _read_stamped(Path(path), what)[0]
+
+
+def _read_stamped(path: Path, what: str = "survey file") -> tuple[bytes, "FileStamp"]:
     """The file's bytes and the stamp of the version read (from the open handle)."""
     try:
         with open(path, "rb") as handle:
             st = os.fstat(handle.fileno())
             if st.st_size > MAX_FILE_BYTES:
                 raise SurveyFileError(path, "", f"the file is too large "
-                                      f"({st.st_size / 2**20:.0f} MB; a survey file is at "
+                                      f"({st.st_size / 2**20:.0f} MB; a {what} is at "
                                       f"most {MAX_FILE_BYTES // 2**20} MB)")
             return handle.read(MAX_FILE_BYTES + 1), FileStamp.of(st)
     except IsADirectoryError:
-        raise SurveyFileError(path, "", "this is a folder, not a survey file") from None
+        raise SurveyFileError(path, "", f"this is a folder, not a {what}") from None
     except FileNotFoundError:
         raise SurveyFileError(path, "", "no such file") from None
     except OSError as exc:

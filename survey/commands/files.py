@@ -486,22 +486,6 @@ _UNIT_FROM = {"header": "unit from the header", "units row": "unit from the unit
               "stated": "unit as given by --temp-unit"}
 
 
-def _read_logger_file(log_path: Path) -> bytes:
-    from survey import store
-
-    try:
-        size = log_path.stat().st_size
-        if size > store.MAX_FILE_BYTES:
-            raise SurveyFileError(log_path, "", "the logger file is too large")
-        return log_path.read_bytes()
-    except IsADirectoryError:
-        raise SurveyFileError(log_path, "", "this is a folder, not a logger file") from None
-    except FileNotFoundError:
-        raise SurveyFileError(log_path, "", "no such file") from None
-    except OSError as exc:
-        raise SurveyFileError(log_path, "", f"cannot read: {exc.strerror or exc}") from None
-
-
 def _open_for_import(path: str) -> Any:
     """The survey's editing session, with what the command line can do while it is locked."""
     from survey import store
@@ -548,7 +532,7 @@ def run_import_log(args: argparse.Namespace) -> int:
                 raise InputError("--instrument", args.instrument,
                                  f"no such instrument in {args.file}; instruments: "
                                  f"{', '.join(ids) or 'none yet'}")
-        result = logimport.read_logger_csv(_read_logger_file(log_path),
+        result = logimport.read_logger_csv(store.read_input_file(log_path, "logger file"),
                                            temp_unit=args.temp_unit,
                                            date_order=args.date_order)
         for log in survey.logs:
