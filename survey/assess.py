@@ -71,13 +71,15 @@ _SQRT3 = math.sqrt(3.0)
 # --- ordered state names ---------------------------------------------------------------------
 
 class _State(Enum):
-    """A state name with a rank (higher is worse; None for 'cannot tell') and words."""
+    """A state name with a rank (higher is worse; None for 'cannot tell'). Its words for
+    people are :mod:`survey.words`'."""
 
-    def __new__(cls, value: str, rank: int | None, words: str):
+    rank: int | None
+
+    def __new__(cls, value: str, rank: int | None):
         member = object.__new__(cls)
         member._value_ = value
         member.rank = rank
-        member.words = words
         return member
 
     def __str__(self) -> str:
@@ -85,46 +87,43 @@ class _State(Enum):
 
 
 class CondensationState(_State):
-    CLEAR = ("clear", 0, "clear of the dew point")
-    NEAR = ("near_dew_point", 1, "close to the dew point")
-    CONDENSING = ("condensing", 2, "condensing now")
-    CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
+    CLEAR = ("clear", 0)
+    NEAR = ("near_dew_point", 1)
+    CONDENSING = ("condensing", 2)
+    CANNOT_TELL = ("cannot_tell", None)
 
 
 class MouldState(_State):
-    BELOW = ("below_limit", 0, "below the mould limit")
-    APPROACHING = ("approaching_limit", 1, "approaching the mould limit")
-    ABOVE = ("above_limit", 2, "above the mould limit")
-    CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
-    NOT_JUDGED = ("not_judged", None, "not judged for mould (glass or pipe)")
-    TOO_COLD = ("too_cold_now", None, "too cold for mould growth now; watch for melt-water "
-                "and mould when it warms")
-    TOO_HOT = ("too_hot_now", None, "too hot for the mould criterion (above 40 °C)")
+    BELOW = ("below_limit", 0)
+    APPROACHING = ("approaching_limit", 1)
+    ABOVE = ("above_limit", 2)
+    CANNOT_TELL = ("cannot_tell", None)
+    NOT_JUDGED = ("not_judged", None)
+    TOO_COLD = ("too_cold_now", None)
+    TOO_HOT = ("too_hot_now", None)
 
 
 class FactorState(_State):
-    MEETS = ("meets_limit", 0, "meets the limit")
-    UNDER = ("under_limit", 1, "under the limit")
-    CANNOT_TELL = ("cannot_tell", None, "cannot be told apart at this instrument accuracy")
-    NOT_JUDGED = ("not_judged", None, "cannot be judged today")
-    NOT_APPLICABLE = ("not_applicable", None, "no limit for this room use")
-    NOT_FOR_ELEMENT = ("not_for_element", None, "not used for this kind of surface")
-    GROUND_CONTACT = ("ground_contact", None, "ground-contact element: temperature factor not "
-                      "judged against outdoor air")
-    DRYING_WET = ("drying_wet", None, "not judged while wet materials dry (evaporation cools "
-                  "the surface)")
+    MEETS = ("meets_limit", 0)
+    UNDER = ("under_limit", 1)
+    CANNOT_TELL = ("cannot_tell", None)
+    NOT_JUDGED = ("not_judged", None)
+    NOT_APPLICABLE = ("not_applicable", None)
+    NOT_FOR_ELEMENT = ("not_for_element", None)
+    GROUND_CONTACT = ("ground_contact", None)
+    DRYING_WET = ("drying_wet", None)
 
 
 class DryStandardState(_State):
-    AT = ("at_dry_standard", 0, "at the dry standard")
-    ABOVE = ("above_dry_standard", 1, "above the dry standard")
-    NO_REFERENCE = ("no_reference", None, "no dry standard given")
+    AT = ("at_dry_standard", 0)
+    ABOVE = ("above_dry_standard", 1)
+    NO_REFERENCE = ("no_reference", None)
 
 
 class TimberState(_State):
-    DRY = ("below_mould_range", 0, "below the mould range for timber")
-    MOULD_RANGE = ("mould_range", 1, "in the mould range for timber")
-    DECAY_RANGE = ("decay_range", 2, "in the decay range for timber")
+    DRY = ("below_mould_range", 0)
+    MOULD_RANGE = ("mould_range", 1)
+    DECAY_RANGE = ("decay_range", 2)
 
 
 _CONDENSATION_ORDER = (CondensationState.CLEAR, CondensationState.NEAR,
@@ -421,21 +420,6 @@ class RoomFinding(NamedTuple):
     def timber_emc_pct(self) -> float:
         """Moisture content timber settles at in this room's air (Wood Handbook eqn 4-5)."""
         return _emc(self.air.dry_bulb_c, self.air.rh_pct)
-
-    @property
-    def temperature_factor_not_judged_reason(self) -> str | None:
-        """Why the temperature factor cannot be judged today, in words; None when it can
-        be (or when the room use has no limit)."""
-        if th.FRSI_LIMIT_BY_USE[self.use].key is None:
-            return None
-        if self.outdoor is None:
-            return "no outdoor reading was given"
-        difference = self.air.dry_bulb_c - self.outdoor.dry_bulb_c
-        least = th.value("frsi_min_temperature_difference_k")
-        if difference < least:
-            return (f"the inside-outside difference is {difference:.1f} K, below the "
-                    f"{least:g} K needed")
-        return None
 
     @property
     def max_room_rh_pct(self) -> float | None:
@@ -828,7 +812,7 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
 
 
 #: Uses where the ground, not outdoor air, sets floor and wall temperatures.
-GROUND_USES = frozenset({"basement", "crawlspace"})
+GROUND_USES = frozenset(u for u, p in th.ROOM_USE_POLICY.items() if p.ground_contact)
 _GROUND_ELEMENTS = frozenset({"floor", "external_wall", "internal_wall"})
 _FACTOR_JUDGED = frozenset({FactorState.MEETS, FactorState.UNDER, FactorState.CANNOT_TELL,
                             FactorState.NOT_JUDGED})

@@ -24,12 +24,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from survey import advise, assess, model
-
-#: Words in a material name that mark it as timber (for the timber moisture limits).
-_TIMBER_WORDS = ("timber", "wood", "softwood", "hardwood", "pine", "spruce", "oak", "joist",
-                 "skirting", "floorboard", "batten", "rafter", "stud", "plywood", "osb",
-                 "chipboard", "particleboard", "architrave", "sill", "lath")
-
+from survey import thresholds as th
 
 @dataclass(frozen=True)
 class VisitAssessment:
@@ -90,8 +85,7 @@ def drying_equipment(survey: model.Survey, visit: model.Visit, room_visit: model
 
 def is_timber(material: str) -> bool:
     """Whether a material name describes timber (so the timber limits apply)."""
-    text = material.lower()
-    return any(word in text for word in _TIMBER_WORDS)
+    return th.is_timber(material)
 
 
 def _accuracy(survey: model.Survey, instrument_ids: list[str | None],

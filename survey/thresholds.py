@@ -36,13 +36,6 @@ MARK_TEXT: dict[str, str] = {
 }
 
 #: The marks in words for a client's report: the same facts, in plain terms.
-MARK_TEXT_FOR_CLIENT: dict[str, str] = {
-    "R": "",
-    "M": "value not yet checked against the original text",
-    "C": "worked out from the named formula",
-    "common practice": "trade practice, no single published source",
-    "choice": "a value we chose inside the range the source gives",
-}
 
 
 @dataclass(frozen=True, slots=True)
@@ -65,20 +58,6 @@ class Threshold:
     def citation(self) -> str:
         """One line for a report's method section: value, source, mark and note."""
         return f"{self.value_text}: {self.source}; {MARK_TEXT[self.mark]}. {self.note}"
-
-    def short_citation(self) -> str:
-        """Title, value, source and mark, without the note."""
-        return f"{self.title} {self.value_text}: {self.source}; {MARK_TEXT[self.mark]}"
-
-    def client_citation(self, value_text: str | None = None) -> str:
-        """Title, value and source in words for a client: "source: …", and what the mark
-        means without trade shorthand ("value not yet checked against the original text"
-        rather than "from memory"). ``value_text`` replaces the value (e.g. in °F)."""
-        source = self.source.replace("from memory", "not yet checked against the original "
-                                                    "text")
-        mark = MARK_TEXT_FOR_CLIENT[self.mark]
-        return (f"{self.title} {value_text or self.value_text}: source: {source}"
-                + (f"; {mark}" if mark else ""))
 
 
 _BRE = "BRE Information Paper IP1/06 (UK guidance), critical temperature factor"
@@ -206,12 +185,14 @@ _THRESHOLDS: tuple[Threshold, ...] = (
               40.0, "°C", "ASHRAE Standard 160-2009 (secondary source)",
               "Upper end of the surface temperature range of the 80 % criterion.",
               "R"),
-    Threshold("wet_room_reread_after_use_min", "Re-read a bathroom or kitchen after use, from",
+    Threshold("wet_room_reread_after_use_from_minutes",
+              "Re-read a bathroom or kitchen after use, from",
               30.0, "min", "ventilation practice",
               "A high RH in a bathroom or kitchen is usually the normal peak after a shower or "
               "cooking; a reading 30-60 min after use shows whether the extract clears it.",
               "common practice"),
-    Threshold("wet_room_reread_after_use_max_min", "Re-read a bathroom or kitchen after use, to",
+    Threshold("wet_room_reread_after_use_to_minutes",
+              "Re-read a bathroom or kitchen after use, to",
               60.0, "min", "ventilation practice",
               "Upper end of the re-reading window after a shower or cooking.",
               "common practice"),
@@ -376,52 +357,107 @@ ROOM_USES: tuple[str, ...] = ("bedroom", "bathroom", "kitchen", "living", "basem
 
 
 @dataclass(frozen=True, slots=True)
-class UseLimit:
-    """Which temperature-factor limit applies to a room use, and why.
+class RoomUse:
+    """What a room use means for the judgement and the advice, each with its reason.
 
-    ``ours`` marks a mapping that is our own decision rather than a use the cited source
-    lists; its reason says so."""
+    This is the one table of room-use rules: the temperature-factor limit (``frsi_key``,
+    None where fRsi does not apply), and whether the room is a wet room (its humidity peaks
+    after showers or cooking are normal), in contact with the ground (the ground, not
+    outdoor air, sets its floor and wall temperatures), a confined space (a safety caution
+    applies), a ventilated space that follows outdoor air (a loft, a crawl space), usually
+    closed up and unoccupied (no occupants given: taken as 0), and which per-person moisture
+    rate applies. ``ours`` marks an fRsi mapping that is our own decision rather than a use
+    the cited source lists; ``frsi_reason`` says so."""
 
     use: str
-    key: str | None  #: threshold key, or None when fRsi does not apply
-    reason: str
+    frsi_key: str | None
+    frsi_reason: str
     ours: bool = False
+    wet_room: bool = False
+    ground_contact: bool = False
+    confined: bool = False
+    ventilated_space: bool = False
+    closed_up: bool = False
+    occupant_rate_key: str = "moisture_person_sedentary_g_per_h"
+
+    @property
+    def key(self) -> str | None:
+        """The temperature-factor threshold key (the name the older table used)."""
+        return self.frsi_key
+
+    @property
+    def reason(self) -> str:
+        return self.frsi_reason
 
 
-FRSI_LIMIT_BY_USE: dict[str, UseLimit] = {u.use: u for u in (
-    UseLimit("bedroom", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
-    UseLimit("living", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
-    UseLimit("office", "frsi_dwelling",
-             "judged like a dwelling room (0.75): our choice, on the safe side; whether BRE "
-             "IP1/06 lists offices at 0.75 or lower is not verified", ours=True),
-    UseLimit("hallway", "frsi_dwelling",
-             "circulation space inside a dwelling, judged as a dwelling room (0.75): our "
-             "choice", ours=True),
-    UseLimit("kitchen", "frsi_high_humidity",
-             "BRE IP1/06 lists kitchens at 0.80 for their moisture bursts"),
-    UseLimit("bathroom", "frsi_high_humidity",
-             "not listed in BRE IP1/06; treated like a kitchen (0.80) for its short, high "
-             "moisture bursts: our choice, on the safe side", ours=True),
-    UseLimit("basement", "frsi_dwelling",
-             "a heated, habitable basement is a dwelling space (0.75): our choice",
-             ours=True),
-    UseLimit("storage", "frsi_storage", "BRE IP1/06: storage buildings 0.50"),
-    UseLimit("crawlspace", None,
-             "an unheated space outside the heated envelope: no temperature-factor limit"),
-    UseLimit("loft", None,
-             "an unheated roof space outside the heated envelope: no temperature-factor "
-             "limit (a converted loft room is a bedroom or living room)"),
-    UseLimit("other", "frsi_general", "general limit 0.70 (IEA Annex 14)"),
+_WET_ROOM = "humidity peaks after showers, baths or cooking are the normal use of the room"
+_GROUND = "walls and floor in contact with the ground, which sets their temperature"
+_CONFINED = "a confined or hard-to-reach space: entry cautions apply"
+_VENTILATED = "a ventilated space outside the heated envelope that follows outdoor air"
+_CLOSED_UP = "usually closed up and unoccupied: no occupants given is taken as none"
+
+ROOM_USE_POLICY: dict[str, RoomUse] = {u.use: u for u in (
+    RoomUse("bedroom", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)",
+            occupant_rate_key="moisture_person_asleep_g_per_h"),
+    RoomUse("living", "frsi_dwelling", "a dwelling room (BRE IP1/06: dwellings 0.75)"),
+    RoomUse("office", "frsi_dwelling",
+            "judged like a dwelling room (0.75): our choice, on the safe side; whether BRE "
+            "IP1/06 lists offices at 0.75 or lower is not verified", ours=True),
+    RoomUse("hallway", "frsi_dwelling",
+            "circulation space inside a dwelling, judged as a dwelling room (0.75): our "
+            "choice", ours=True),
+    RoomUse("kitchen", "frsi_high_humidity",
+            "BRE IP1/06 lists kitchens at 0.80 for their moisture bursts", wet_room=True),
+    RoomUse("bathroom", "frsi_high_humidity",
+            "not listed in BRE IP1/06; treated like a kitchen (0.80) for its short, high "
+            "moisture bursts: our choice, on the safe side", ours=True, wet_room=True),
+    RoomUse("basement", "frsi_dwelling",
+            "a heated, habitable basement is a dwelling space (0.75): our choice",
+            ours=True, ground_contact=True, confined=True, closed_up=True),
+    RoomUse("storage", "frsi_storage", "BRE IP1/06: storage buildings 0.50", closed_up=True),
+    RoomUse("crawlspace", None,
+            "an unheated space outside the heated envelope: no temperature-factor limit",
+            ground_contact=True, confined=True, ventilated_space=True, closed_up=True),
+    RoomUse("loft", None,
+            "an unheated roof space outside the heated envelope: no temperature-factor "
+            "limit (a converted loft room is a bedroom or living room)",
+            confined=True, ventilated_space=True, closed_up=True),
+    RoomUse("other", "frsi_general", "general limit 0.70 (IEA Annex 14)"),
 )}
 
-#: Room uses that are confined or hard-to-reach spaces (a safety caution applies).
-CONFINED_USES: frozenset[str] = frozenset({"crawlspace", "loft", "basement"})
-
-#: Occupant moisture rate by room use (threshold keys).
-OCCUPANT_RATE_BY_USE: dict[str, str] = {
-    "bedroom": "moisture_person_asleep_g_per_h",
-    **{use: "moisture_person_sedentary_g_per_h" for use in ROOM_USES if use != "bedroom"},
+#: Why each flag of :class:`RoomUse` is set, for the method section.
+ROOM_USE_FLAG_REASONS: dict[str, str] = {
+    "wet_room": _WET_ROOM, "ground_contact": _GROUND, "confined": _CONFINED,
+    "ventilated_space": _VENTILATED, "closed_up": _CLOSED_UP,
 }
+
+
+def room_use(use: str) -> RoomUse:
+    """The policy of a room use (canonical name)."""
+    return ROOM_USE_POLICY[use]
+
+
+# Views of the table, by the names other modules and the tests read.
+UseLimit = RoomUse
+FRSI_LIMIT_BY_USE: dict[str, RoomUse] = ROOM_USE_POLICY
+#: Room uses that are confined or hard-to-reach spaces (a safety caution applies).
+CONFINED_USES: frozenset[str] = frozenset(u for u, p in ROOM_USE_POLICY.items() if p.confined)
+#: Occupant moisture rate by room use (threshold keys).
+OCCUPANT_RATE_BY_USE: dict[str, str] = {u: p.occupant_rate_key
+                                        for u, p in ROOM_USE_POLICY.items()}
+
+#: Words in a material name or a surface label that mark it as timber (the one list).
+TIMBER_WORDS: tuple[str, ...] = (
+    "timber", "wood", "softwood", "hardwood", "pine", "spruce", "oak", "joist", "skirting",
+    "floorboard", "batten", "rafter", "purlin", "truss", "sarking", "stud", "plywood", "osb",
+    "chipboard", "particleboard", "architrave", "sill", "lath", "beam")
+
+
+def is_timber(text: str) -> bool:
+    """Whether a material name or surface label describes timber."""
+    lowered = str(text).lower()
+    return any(word in lowered for word in TIMBER_WORDS)
+
 
 #: Activities whose moisture rate is known, per hour of activity (threshold keys).
 ACTIVITY_RATE: dict[str, str] = {
@@ -542,46 +578,3 @@ def humidity_class_in(excess_pa: float, limits: tuple[float, ...]) -> int:
         if excess_pa <= limit:
             return number
     return BEYOND_CLASS_5
-
-
-#: What EN ISO 13788 Annex A gives as typical of each class (from memory).
-HUMIDITY_CLASS_EXAMPLES: dict[int, str] = {
-    1: "unoccupied buildings, dry storage",
-    2: "offices, dwellings with normal occupancy and ventilation",
-    3: "buildings with unknown occupancy",
-    4: "sports halls, kitchens, canteens",
-    5: "laundries, breweries, swimming pools",
-    BEYOND_CLASS_5: "more than laundries and swimming pools produce",
-}
-
-#: Words for the class above class 5.
-ABOVE_CLASS_5_TEXT = "above class 5"
-
-
-def humidity_class_text(number: int | None) -> str:
-    """Words for a class number from :func:`humidity_class`."""
-    if number is None:
-        return "not judged (outdoor air too warm)"
-    if number == BEYOND_CLASS_5:
-        return ABOVE_CLASS_5_TEXT
-    return f"class {number}"
-
-
-def humidity_class_range_text(possible: Iterable[int]) -> str:
-    """Words for the classes a band spans: ``'class 3'``, ``'class 3 or 4'``, ``'class 2
-    to 4'``, ``'class 5 or above class 5'``, ``'class 3 to 5 or above class 5'``."""
-    numbers = sorted(set(possible))
-    if not numbers:
-        return "not judged"
-    above = numbers[-1] == BEYOND_CLASS_5
-    plain = [n for n in numbers if n != BEYOND_CLASS_5]
-    if not plain:
-        return ABOVE_CLASS_5_TEXT
-    if len(plain) == 1:
-        text = f"class {plain[0]}"
-    elif len(plain) == 2:
-        text = (f"class {plain[0]}, {plain[1]}" if above
-                else f"class {plain[0]} or {plain[1]}")
-    else:
-        text = f"class {plain[0]} to {plain[-1]}"
-    return f"{text} or {ABOVE_CLASS_5_TEXT}" if above else text

@@ -89,11 +89,11 @@ def test_cold_damp_bedroom_table(check, monkeypatch):
     assert status == 0
     flat = " ".join(out.split())
     for words in ("condensing now", "above the mould limit", "under the limit",
-                  "cannot be told apart at this instrument accuracy: clear of the dew point "
+                  "unclear at this accuracy: clear of the dew point "
                   "or close to the dew point",
-                  "cannot be told apart at this instrument accuracy: approaching the mould "
+                  "unclear at this accuracy: approaching the mould "
                   "limit or above the mould limit",
-                  '"Cannot be told apart at this instrument accuracy": the reading\'s range',
+                  '"Unclear at this accuracy": the reading\'s range',
                   "Highest room RH the coldest wall, ceiling or floor (Surface 1, 11.0 °C) "
                   "can bear: 50 %",
                   "class 4", "1. Ventilate", "m³/h", "air changes an hour",
@@ -113,7 +113,7 @@ def test_table_at_80_columns_keeps_the_words(check, monkeypatch):
     monkeypatch.setenv("COLUMNS", "80")
     _, out, _ = check(*BEDROOM)
     flat = " ".join(out.split())
-    assert '"Cannot be told apart at this instrument accuracy"' in flat
+    assert '"Unclear at this accuracy"' in flat
     assert "Follow local building codes and regulations" in flat
     assert max(len(line) for line in out.splitlines()) <= 80
 
@@ -321,13 +321,13 @@ def test_summary_comes_first(check, monkeypatch):
 
 
 def test_surface_rh_over_100_and_degenerate_bands(check, monkeypatch):
-    """Over 100 % surface RH reads "over 100 % (water forming)" (frost below 0 °C) while the
+    """100 % surface RH or more reads "100 % or more (water forming)" (frost below 0 °C); the
     JSON keeps the number; a surface warmer than the air shows no "100 to 100" band."""
     monkeypatch.setenv("COLUMNS", "400")
     _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "5",
                       "--surface-temp", "-4")
     flat = " ".join(out.split())
-    assert "over 100 % (water forming)" in flat and "over 100 % (frost forming)" in flat
+    assert "100 % or more (water forming)" in flat and "100 % or more (frost forming)" in flat
     assert "frost forming now" in flat
     _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "5", "--json")
     assert json.loads(out)["surfaces"][0]["surface_rh_pct"] > 100.0
@@ -355,7 +355,8 @@ def test_frost_point_is_called_so(check, monkeypatch):
 
 @pytest.mark.parametrize(("extra", "reason"), [
     ([], "no outdoor reading"),
-    (["--outdoor-temp", "12", "--outdoor-rh", "80"], "the inside-outside difference is under"),
+    (["--outdoor-temp", "12", "--outdoor-rh", "80"],
+     "the inside-outside difference is 6.0 K, under the 10 K needed"),
 ])
 def test_factor_not_judged_says_why(check, monkeypatch, extra, reason):
     """"Cannot be judged today" always says why: no outdoor reading, or an inside-outside
@@ -386,12 +387,12 @@ def test_ip_limits_and_rating_points(check, monkeypatch):
                       "62.6", "--outdoor-temp", "82.4", "--outdoor-rh", "75", "--room-volume",
                       "2119", "--occupants", "0", "--use", "basement")
     flat = " ".join(out.split())
-    assert "Dew-point margin 5.4 °F: source: ISO 8502-4" in flat
+    assert "Dew-point margin 5.4 °F: ISO 8502-4" in flat
     assert "Dew-point margin 3 K" not in flat
     assert "80 °F and 60 % RH" in flat and "65 °F and 60 % RH" in flat
     assert "80.1 °F" not in flat and "64.9 °F" not in flat
     assert "from memory" not in flat.split("Limits used")[1]
-    assert "value not yet checked against the original text" in flat
+    assert "* value recalled from the source, not yet checked against the original text" in flat
 
 
 def test_units_upper_case_and_plausibility_warning(check):

@@ -13,6 +13,8 @@ from pathlib import Path
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
+from survey.advise import DehumidifyWhy
+from survey import words
 from survey import assess, evaluate, model, store
 from survey import thresholds as th
 
@@ -147,7 +149,9 @@ def test_mould_seen_without_an_area_gets_its_caution():
     room_visit.observations.mould_area_m2 = None
     judged = evaluate.assess_visit(survey, 0)
     advice = judged.advice.rooms[judged.room_ids.index("bed1")]
-    text = {c.key: c.text for c in advice.cautions}["visible_mould"]
+    (caution,) = [c for c in advice.cautions if c.key == "visible_mould"]
+    assert not caution.area_m2  # no area: the words say "measure it"
+    text = words.caution_text(caution, words.SI)
     assert "area not measured" in text and "measure it" in text
     room_visit.observations.mould_visible = False
     for surface in room_visit.surfaces:
@@ -172,15 +176,14 @@ def test_basement_drying_visits_say_keep_drying():
         kinds = _kinds(advice)
         assert kinds[0] == "keep_drying", (index, kinds)
         assert "find_source" not in kinds
-        assert advice.actions[0].reason.startswith(
-            "Continue drying until readings reach the dry standard")
+        assert advice.actions[0].numbers.materials_above_dry_standard >= 1
         if any(rv.observations.water_category == 1 for rv in judged.visit.rooms):
             assert "water_category_1" in [c.key for c in judged.advice.cautions]
     # Day 3: the skirting is down to 16 % MC against an 11.5 % dry standard; the goal is at
     # most 11.5 × 1.1 (the 10 % allowance, common practice).
     day3 = evaluate.assess_visit(survey, len(survey.visits) - 1)
     keep = day3.advice.rooms[day3.room_ids.index("family")].actions[0]
-    goals = {m["label"]: (m["value"], m["dry_at_or_below"]) for m in keep.values["materials"]}
+    goals = {m.label: (m.value, m.dry_at_or_below) for m in keep.numbers.materials}
     value, goal = goals["Skirting, party wall"]
     assert value > goal
     standard = next(m.dry_standard for m in day3.findings.rooms[
@@ -211,12 +214,15 @@ def test_room_being_dried_is_kept_closed_and_dehumidified_never_ventilated():
                 continue
             advice = _room_advice(judged, room_id)
             assert "ventilate" not in _kinds(advice)
-            text = " ".join(a.reason for a in advice.actions)
-            assert "open windows" not in text.lower() and "trickle vents open" not in text
             dehumidify = next(a for a in advice.actions if a.kind.value == "dehumidify")
-            assert dehumidify.reason.startswith(
-                "Keep the drying area closed and dehumidify") or "Air movers" in dehumidify.reason
-            assert dehumidify.values["target_rh_pct"] == 50.0
+            assert dehumidify.numbers.why in (DehumidifyWhy.DRYING_ABOVE_TARGET,
+                                              DehumidifyWhy.DRYING_WITHIN_TARGET,
+                                              DehumidifyWhy.DRYING_AIR_MOVERS_ONLY)
+            assert dehumidify.numbers.drying_in_progress is True
+            assert dehumidify.numbers.target_rh_pct == 50.0
+            for glazing in advice.actions:
+                if glazing.kind.value == "reduce_glazing_condensation":
+                    assert glazing.numbers.drying  # no "keep trickle vents open" in its words
 
 
 def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
@@ -231,13 +237,13 @@ def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
     hours = (survey.visits[1].started_at - survey.visits[0].started_at).total_seconds() / 3600
     dehumidify = next(a for a in _room_advice(judged, room_id).actions
                       if a.kind.value == "dehumidify")
-    assert dehumidify.values["removal_l_per_day"] == pytest.approx(
+    assert dehumidify.numbers.removal_l_per_day == pytest.approx(
         unit.water_removed_l * 24.0 / hours, rel=1e-9)
     drop = _cp_w(room_visit.air.dry_bulb_c, room_visit.air.rh_pct) - _cp_w(
         unit.outlet.dry_bulb_c, unit.outlet.rh_pct)
-    assert dehumidify.values["grain_depression_g_per_kg"] == pytest.approx(1000 * drop, rel=0.02)
-    assert dehumidify.values["grain_depression_gr_per_lb"] == pytest.approx(7000 * drop, rel=0.02)
-    assert "gr/lb" in dehumidify.reason and "rated 50.0 L/day" in dehumidify.reason
+    assert dehumidify.numbers.grain_depression_g_per_kg == pytest.approx(1000 * drop, rel=0.02)
+    assert dehumidify.numbers.grain_depression_gr_per_lb == pytest.approx(7000 * drop, rel=0.02)
+    assert dehumidify.numbers.rated_capacity_l_per_day == pytest.approx(50.0)  # the example
 
 
 def test_air_movers_without_a_dehumidifier_are_told_to_join_the_dried_area():
@@ -249,8 +255,8 @@ def test_air_movers_without_a_dehumidifier_are_told_to_join_the_dried_area():
                     if r.equipment and all(e.kind == "air_mover" for e in r.equipment))
     dehumidify = next(a for a in _room_advice(judged, store_id).actions
                       if a.kind.value == "dehumidify")
-    assert dehumidify.values["air_movers_without_dehumidifier"] is True
-    assert "own dehumidifier" in dehumidify.reason
+    assert dehumidify.numbers.air_movers_without_dehumidifier is True
+    assert dehumidify.numbers.why is DehumidifyWhy.DRYING_AIR_MOVERS_ONLY
 
 
 def test_wet_drying_room_surfaces_are_not_judged_by_temperature_factor():

@@ -28,7 +28,6 @@ def test_citation_names_source_and_mark():
     assert th.MARK_TEXT["R"] in text
     assert "from memory" in th.citation("frsi_dwelling")
     assert "common practice, no single source" in th.citation("room_rh_floor_pct")
-    assert th.get("dew_point_margin_k").short_citation().startswith("Dew-point margin 3 K: ")
 
 
 def test_unknown_key_is_named():
@@ -178,16 +177,19 @@ def test_chosen_moisture_rates_are_marked_as_our_choice():
 
 
 def test_client_citation_avoids_trade_shorthand():
-    """For a client a mark reads "value not yet checked against the original text", never
-    "from memory"; a value read in its source shows the source alone."""
-    text = th.get("frsi_dwelling").client_citation()
+    """For a client a value recalled from its source carries a short mark explained once in
+    a legend, never "from memory"; a value read in its source shows the source alone."""
+    from survey import words
+
+    text = words.client_citation(th.get("frsi_dwelling"), words.SI)
     assert "from memory" not in text
-    assert text.startswith("Temperature factor limit, dwellings 0.75: source: BRE")
-    assert text.endswith("value not yet checked against the original text")
-    mould = th.get("surface_rh_mould_limit_pct").client_citation()
-    assert "from memory" not in mould and "not yet checked against the original" in mould
-    assert th.get("dew_point_margin_k").client_citation("5.4 °F").startswith(
-        "Dew-point margin 5.4 °F: source: ISO 8502-4")
+    assert text.startswith("Temperature factor limit, dwellings 0.75*: BRE")
+    mould = words.client_citation(th.get("surface_rh_mould_limit_pct"), words.SI)
+    assert "from memory" not in mould
+    assert words.client_citation(th.get("dew_point_margin_k"), words.IP).startswith(
+        "Dew-point margin 5.4 °F: ISO 8502-4")  # 3 K × 1.8 = 5.4 °F
+    assert words.legend([th.get("frsi_dwelling")]) == [
+        "* value recalled from the source, not yet checked against the original text"]
 
 
 def test_category_1_water_degrades_within_two_days():
@@ -202,12 +204,14 @@ def test_class_above_5_is_said_in_words():
     """The class beyond the ISO 13788 class 5 limit (1350 Pa at θe <= 0 °C [M]) reads "above
     class 5", also at the top of a band."""
     assert th.humidity_class(1400.0, 0.0) == th.BEYOND_CLASS_5
-    assert th.humidity_class_text(th.BEYOND_CLASS_5) == "above class 5"
-    assert th.humidity_class_range_text([2, 3, 4, 5, 6]) == "class 2 to 5 or above class 5"
-    assert th.humidity_class_range_text([5, 6]) == "class 5 or above class 5"
-    assert th.humidity_class_range_text([3, 4]) == "class 3 or 4"
-    assert th.humidity_class_range_text([4]) == "class 4"
-    assert "6" not in th.humidity_class_range_text([4, 5, 6])
+    from survey import words
+
+    assert words.humidity_class_text(th.BEYOND_CLASS_5) == "above class 5"
+    assert words.humidity_class_range_text([2, 3, 4, 5, 6]) == "class 2 to 5 or above class 5"
+    assert words.humidity_class_range_text([5, 6]) == "class 5 or above class 5"
+    assert words.humidity_class_range_text([3, 4]) == "class 3 or 4"
+    assert words.humidity_class_range_text([4]) == "class 4"
+    assert "6" not in words.humidity_class_range_text([4, 5, 6])
 
 
 @pytest.mark.parametrize("excess", [-10.0, 270.0, 540.5, 809.9, 1080.0, 1349.0, 2000.0])

@@ -1,0 +1,380 @@
+"""The typed results of the advice: action kinds, each kind's numbers, cautions.
+
+An :class:`Action` is a decision with numbers, never a sentence: ``kind`` says what to do,
+``numbers`` is the kind's own record (:class:`VentilateNumbers`, :class:`DehumidifyNumbers` …)
+with the SI unit in every float's name, and ``threshold_keys`` names the limits it used. The
+words for people come from :mod:`survey.words`. ``as_dict`` gives the JSON encoding (the
+keys ``survey check --json`` prints).
+"""
+
+from __future__ import annotations
+
+import dataclasses
+from dataclasses import dataclass, field
+from enum import Enum
+from typing import Any, Union
+
+
+class ActionKind(Enum):
+    VENTILATE = "ventilate"
+    DEHUMIDIFY = "dehumidify"
+    RAISE_SURFACE_TEMPERATURE = "raise_surface_temperature"
+    FIND_SOURCE = "find_source"
+    KEEP_DRYING = "keep_drying"
+    REDUCE_GLAZING_CONDENSATION = "reduce_glazing_condensation"
+    INSULATE_PIPE = "insulate_pipe"
+    REPEAT_READINGS = "repeat_readings"
+    DRY_VENTILATED_SPACE = "dry_ventilated_space"
+
+    def __str__(self) -> str:
+        return self.value
+
+
+#: Fields whose ``None`` is encoded (a number that could not be worked out); every other
+#: optional field is left out of the JSON when it is ``None`` (it does not apply).
+_KEEP_NONE = frozenset({"moisture_generation_g_per_h", "load_l_per_day", "removal_l_per_day",
+                        "removal_us_pints_per_day", "humidity_class", "vapour_pressure_excess_pa"})
+#: Metadata of a field that only the words read (the decision is carried by the kind and
+#: the numbers already); it is not encoded.
+_WORDS = {"words_only": True}
+
+
+def _encode(value: Any) -> Any:
+    if isinstance(value, Enum):
+        return value.value
+    if dataclasses.is_dataclass(value) and not isinstance(value, type):
+        return {k: _encode(v) for k, v in _fields(value)}
+    if isinstance(value, tuple):
+        return [_encode(v) for v in value]
+    return value
+
+
+def _fields(record: Any):
+    for f in dataclasses.fields(record):
+        if f.metadata.get("words_only"):
+            continue
+        value = getattr(record, f.name)
+        if value is None and f.name not in _KEEP_NONE:
+            continue
+        yield f.name, value
+
+
+class OutdoorMode(Enum):
+    """How outdoor air relates to the room, for ventilation and dehumidification."""
+
+    NOT_MEASURED = "not_measured"
+    WETTER = "wetter"  #: outdoor air holds more water than the room air
+    ABOUT_SAME = "about_same"  #: within the drier-margin of the room air
+    HOLDS_TARGET = "holds_target"  #: drier than room air at the target by the margin
+    DRIER_NOT_ENOUGH = "drier_not_enough"  #: drier than the room now, not than the target
+    NO_DRIER_THAN_TARGET = "no_drier_than_target"  #: drier now, but not below the target
+
+
+class DehumidifyWhy(Enum):
+    """What led to a dehumidifier."""
+
+    OUTDOOR_NOT_MEASURED = "outdoor_not_measured"
+    OUTDOOR_WETTER = "outdoor_wetter"
+    OUTDOOR_ABOUT_SAME = "outdoor_about_same"
+    VENTILATION_OVER_PRACTICAL = "ventilation_over_practical"
+    VENTILATION_CANNOT_HOLD = "ventilation_cannot_hold"
+    DRYING_AIR_MOVERS_ONLY = "drying_air_movers_only"
+    DRYING_ABOVE_TARGET = "drying_above_target"
+    DRYING_WITHIN_TARGET = "drying_within_target"
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class VentilateNumbers:
+    target_rh_pct: float
+    target_humidity_ratio_g_per_kg: float
+    room_humidity_ratio_g_per_kg: float
+    outdoor_humidity_ratio_g_per_kg: float
+    moisture_generation_g_per_h: float | None
+    target_reachable_by_ventilation: bool
+    outdoor_mode: OutdoorMode = field(metadata=_WORDS)
+    room_volume_m3: float | None = field(default=None, metadata=_WORDS)
+    dry_air_flow_kg_per_h: float | None = None
+    airflow_m3_per_h: float | None = None
+    airflow_ft3_per_min: float | None = None
+    air_changes_per_h: float | None = None
+    heat_to_warm_air_w: float | None = None
+    outdoor_air_rh_at_room_temp_pct: float | None = None
+    rh_at_practical_ventilation_pct: float | None = None
+    #: the load is more than air at the practical rate can carry: it would saturate
+    saturates: bool = field(default=False, metadata=_WORDS)
+    practical_max_ach: float | None = field(default=None, metadata=_WORDS)
+    occupants_share_of_load: float | None = None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class DehumidifyNumbers:
+    target_rh_pct: float
+    target_humidity_ratio_g_per_kg: float
+    room_temp_c: float
+    suggest_desiccant: bool
+    load_l_per_day: float | None
+    removal_l_per_day: float | None
+    removal_us_pints_per_day: float | None
+    why: DehumidifyWhy = field(metadata=_WORDS)
+    outdoor_air_changes_per_h: float | None = None
+    outdoor_air_l_per_day: float | None = None
+    outdoor_gain_g_per_h: float | None = field(default=None, metadata=_WORDS)  #: signed: negative when outdoor air dries
+    outdoor_air_how: str | None = field(default=None, metadata=_WORDS)  #: "leaking_in" or "ventilating"
+    generation_g_per_h: float | None = field(default=None, metadata=_WORDS)
+    pull_down_l: float | None = None
+    logged_removal_l_per_day: float | None = None
+    water_removed_l: float | None = field(default=None, metadata=_WORDS)
+    hours_since_previous: float | None = field(default=None, metadata=_WORDS)
+    rated_capacity_l_per_day: float | None = field(default=None, metadata=_WORDS)
+    ventilation_air_changes_needed_per_h: float | None = field(default=None, metadata=_WORDS)
+    practical_max_ach: float | None = field(default=None, metadata=_WORDS)
+    grain_depression_g_per_kg: float | None = None
+    grain_depression_gr_per_lb: float | None = None
+    outlet_humidity_ratio_g_per_kg: float | None = None
+    drying_in_progress: bool | None = None
+    air_movers_without_dehumidifier: bool | None = None
+    occupants_share_of_load: float | None = None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class RaiseSurfaceNumbers:
+    surface: str
+    element: str
+    surface_temp_c: float
+    max_room_rh_pct: float
+    surface_temp_for_target_rh_c: float
+    target_surface_temp_c: float
+    design_rh_pct: float = field(metadata=_WORDS)
+    too_cold: bool = field(metadata=_WORDS)
+    factor_under: bool = field(metadata=_WORDS)
+    ground_contact: bool = field(metadata=_WORDS)
+    temperature_factor: float | None = None
+    temperature_factor_uncertainty: float | None = field(default=None, metadata=_WORDS)
+    temperature_factor_limit: float | None = None
+    surface_temp_for_factor_limit_c: float | None = None
+    use: str = field(default="other", metadata=_WORDS)
+
+
+class Forming(Enum):
+    """Whether water or frost forms on a cold pane, frame or pipe at the reading."""
+
+    NOW = "now"
+    MAYBE = "maybe"  #: the band reaches the condensation point
+    NO = "no"
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class ColdSurfaceNumbers:
+    """A pane, frame or pipe at or near its condensation point."""
+
+    surface: str
+    element: str
+    surface_temp_c: float
+    condensation_point_c: float
+    frost: bool
+    max_room_rh_pct_dry: float
+    surface_temp_to_stay_dry_c: float
+    target_rh_pct: float = field(metadata=_WORDS)
+    forming: Forming = field(metadata=_WORDS)
+    mouldy: bool = field(default=False, metadata=_WORDS)
+    drying: bool = field(default=False, metadata=_WORDS)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class MaterialPoint:
+    """A material reading above its dry standard, and the reading at which it is dry."""
+
+    label: str
+    material: str
+    scale: str
+    value: float
+    dry_standard: float
+    dry_at_or_below: float
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class TimberPoint:
+    """A timber moisture reading and what the room air alone would give it."""
+
+    label: str
+    value_pct: float  #: the meter reading, % moisture content
+    emc_pct: float | None = None  #: in equilibrium with the room air
+
+
+class SourceReason(Enum):
+    """What points to a moisture source."""
+
+    WET_MATERIALS = "wet_materials"
+    DAMP_TIMBER = "damp_timber"
+    TIMBER_DECAY = "timber_decay"
+    WATER_PRESENT = "water_present"
+    CONDENSATION_SEEN_NOT_MEASURED = "condensation_seen_not_measured"
+    CONDENSATION_SEEN_SURFACES_CLEAR = "condensation_seen_surfaces_clear"
+    MOULD_SEEN_NOT_MEASURED = "mould_seen_not_measured"
+    MOULD_SEEN_SURFACES_BELOW = "mould_seen_surfaces_below"
+    MUSTY_SMELL = "musty_smell"
+    HIGH_HUMIDITY_CLASS = "high_humidity_class"
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class FindSourceNumbers:
+    reasons: tuple[SourceReason, ...] = field(metadata=_WORDS)
+    first: bool = field(metadata=_WORDS)  #: liquid water suspected: before any drying
+    wet: tuple[MaterialPoint, ...] = field(default=(), metadata=_WORDS)
+    damp_timber: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
+    decaying: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
+    decay_slowed: bool = field(default=False, metadata=_WORDS)
+    water_category: int | None = field(default=None, metadata=_WORDS)
+    use: str = field(default="other", metadata=_WORDS)
+    materials_above_dry_standard: int | None = None
+    vapour_pressure_excess_pa: float | None = None
+    humidity_class: int | None = None
+    humidity_class_possible: tuple[int, ...] | None = field(default=None, metadata=_WORDS)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class KeepDryingNumbers:
+    materials_above_dry_standard: int
+    materials: tuple[MaterialPoint, ...]
+    damp_timber: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
+    decaying: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
+    decay_slowed: bool = field(default=False, metadata=_WORDS)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class RepeatReadingsNumbers:
+    vapour_pressure_excess_pa: float | None
+    humidity_class: int | None
+    wet_room_peak: bool = field(metadata=_WORDS)
+    use: str = field(default="other", metadata=_WORDS)
+    vapour_pressure_excess_uncertainty_pa: float | None = None
+    humidity_class_possible: tuple[int, ...] | None = None
+    reread_after_use_minutes: tuple[float, float] | None = None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class TimberSurface:
+    """A surface read as timber in a ventilated space, and the moisture it would settle at."""
+
+    surface: str
+    surface_temp_c: float
+    surface_rh_pct: float
+    emc_pct: float
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class VentilatedSpaceNumbers:
+    room_rh_pct: float
+    dehumidify_only_if_sealed: bool
+    loft: bool = field(metadata=_WORDS)
+    timber_surfaces: tuple[TimberSurface, ...] | None = None
+
+
+ActionNumbers = Union[VentilateNumbers, DehumidifyNumbers, RaiseSurfaceNumbers,
+                      ColdSurfaceNumbers, FindSourceNumbers, KeepDryingNumbers,
+                      RepeatReadingsNumbers, VentilatedSpaceNumbers]
+
+
+@dataclass(frozen=True, slots=True)
+class Action:
+    """One thing to do and its numbers; ``surface`` names the surface it is about."""
+
+    kind: ActionKind
+    numbers: ActionNumbers
+    threshold_keys: tuple[str, ...]
+
+    @property
+    def surface(self) -> str | None:
+        return getattr(self.numbers, "surface", None)
+
+    def as_dict(self) -> dict[str, Any]:
+        """JSON-ready without words: ``kind``, the numbers, ``threshold_keys``."""
+        return {"kind": self.kind.value, **self.numbers_dict(),
+                "threshold_keys": list(self.threshold_keys)}
+
+    def numbers_dict(self) -> dict[str, Any]:
+        """The numbers as JSON-ready values (SI unit in each key)."""
+        out = {name: _encode(value) for name, value in _fields(self.numbers)}
+        if self.kind is ActionKind.FIND_SOURCE and out.get("humidity_class") is None:
+            out.pop("humidity_class", None)
+            out.pop("vapour_pressure_excess_pa", None)
+        return out
+
+
+@dataclass(frozen=True, slots=True)
+class Caution:
+    """A safety caution: its key says which; the numbers it needs ride along."""
+
+    key: str
+    threshold_keys: tuple[str, ...] = ()
+    area_m2: float | None = None  #: visible mould
+    use: str | None = None  #: confined spaces
+    year_built: int | None = None  #: old materials
+    risks: tuple[str, ...] = ()  #: old materials: "asbestos", "lead_paint"
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class MoistureEstimate:
+    """Moisture generated in the room, g/h, by each basis that could be worked out."""
+
+    occupants_g_per_h: float | None
+    activities_g_per_h: float | None
+    back_calculated_g_per_h: float | None
+    used_g_per_h: float | None
+    threshold_keys: tuple[str, ...]
+    occupants: int | None = None
+    occupant_rate_key: str | None = None  #: the per-person rate used
+    occupants_assumed_zero: bool = False  #: a closed-up space with no occupants given
+    assumed_air_change_rate_per_h: float | None = None
+    #: what to give so the load can be worked out (empty when known)
+    missing: tuple[str, ...] = ()
+    outdoor_as_wet: bool = False  #: why the measured excess cannot give the load
+
+
+class TargetWhy(Enum):
+    DRYING = "drying"  #: the drying target while materials dry
+    DEFAULT = "default"
+    GIVEN = "given"
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class Target:
+    """The room RH the advice aims for, and why."""
+
+    rh_pct: float
+    why: TargetWhy
+    design_rh_pct: float  #: before the coldest surface lowered it
+    lowered_by_surface: bool = False
+    surface_limit_whole_pct: float | None = None  #: the coldest surface's limit, shown
+    at_practical_floor: bool = False  #: held at the floor; the surface must be warmer too
+    binding: str | None = None  #: "mould" or "margin"
+    coldest_label: str | None = None
+    coldest_temp_c: float | None = None
+    frost_point: bool = False
+    threshold_keys: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class RoomAdvice:
+    room: str
+    target: Target
+    moisture: MoistureEstimate
+    actions: tuple[Action, ...]
+    cautions: tuple[Caution, ...]
+
+    @property
+    def target_rh_pct(self) -> float:
+        return self.target.rh_pct
+
+    @property
+    def threshold_keys(self) -> tuple[str, ...]:
+        keys = set(self.moisture.threshold_keys)
+        for item in (*self.actions, *self.cautions):
+            keys.update(item.threshold_keys)
+        return tuple(sorted(keys))
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class SiteAdvice:
+    rooms: tuple[RoomAdvice, ...]
+    cautions: tuple[Caution, ...] = field(default=())  #: every room's, once, closing last

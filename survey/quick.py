@@ -1,0 +1,97 @@
+"""The quick check: one room's readings judged, with no survey file.
+
+:class:`QuickInput` is what a face gathered (already parsed to SI floats); :func:`judge`
+returns a :class:`QuickResult` — the air and outdoor states, the room finding, the advice,
+which instrument accuracies were given and the limits used. ``survey check`` lays it out as
+a table or encodes it as JSON; the app's quick-check screen shows the same result.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from survey import advise, assess, psychro
+from survey import thresholds as th
+
+
+@dataclass(frozen=True, slots=True)
+class AccuracyGiven:
+    """Which instrument accuracies were entered (the rest are typical specifications)."""
+
+    air_temp_k: bool = False
+    rh_pct: bool = False
+    surface_temp_k: bool = False
+
+    @property
+    def any(self) -> bool:
+        return self.air_temp_k or self.rh_pct or self.surface_temp_k
+
+    @property
+    def all(self) -> bool:
+        return self.air_temp_k and self.rh_pct and self.surface_temp_k
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class QuickInput:
+    """One room's readings in SI, as a face gathered them."""
+
+    air_temp_c: float
+    rh_pct: float
+    pressure_pa: float = psychro.STANDARD_PRESSURE_PA
+    surfaces: tuple[assess.SurfaceInput, ...] = ()
+    outdoor: assess.OutdoorInput | None = None
+    use: str | None = None  #: None: not given (the general limits apply)
+    volume_m3: float | None = None
+    occupants: int | None = None
+    target_rh_pct: float | None = None
+    mould_seen: bool = False
+    mould_area_m2: float = 0.0
+    accuracy: assess.Accuracy = assess.DEFAULT_ACCURACY
+    accuracy_given: AccuracyGiven = AccuracyGiven()
+    warnings: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True, slots=True)
+class QuickResult:
+    """Everything the quick check found."""
+
+    input: QuickInput
+    room: psychro.MoistAir
+    outdoor: psychro.MoistAir | None
+    finding: assess.RoomFinding
+    advice: advise.RoomAdvice
+    cautions: tuple[advise.Caution, ...]
+    limits: tuple[th.Threshold, ...] = field(default=())
+
+    @property
+    def use(self) -> str:
+        return self.finding.use
+
+    @property
+    def use_given(self) -> bool:
+        return self.input.use is not None
+
+    @property
+    def warnings(self) -> tuple[str, ...]:
+        return self.input.warnings
+
+
+def judge(given: QuickInput) -> QuickResult:
+    """Judge one room: states, per-surface risk, the room finding, actions and cautions."""
+    use = given.use or "other"
+    room = psychro.state_from_rh(given.air_temp_c, given.rh_pct, given.pressure_pa)
+    outdoor = None if given.outdoor is None else psychro.state_from_rh(
+        given.outdoor.air_temp_c, given.outdoor.rh_pct, given.pressure_pa)
+    room_input = assess.RoomInput(
+        name="Room", use=use, air_temp_c=given.air_temp_c, rh_pct=given.rh_pct,
+        surfaces=given.surfaces, volume_m3=given.volume_m3, occupants=given.occupants,
+        observations=assess.Observations(visible_mould_area_m2=given.mould_area_m2,
+                                         visible_mould=given.mould_seen))
+    site = assess.assess_site([room_input], given.outdoor, given.pressure_pa, given.accuracy)
+    advice = advise.advise_site(site, given.target_rh_pct)
+    finding = site.rooms[0]
+    room_advice = advice.rooms[0]
+    keys = set(finding.threshold_keys) | set(room_advice.threshold_keys)
+    return QuickResult(input=given, room=room, outdoor=outdoor, finding=finding,
+                       advice=room_advice, cautions=advice.cautions,
+                       limits=tuple(th.cited(keys)))

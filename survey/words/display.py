@@ -1,0 +1,139 @@
+"""The display units a sentence is written in: SI or IP, chosen once, never guessed.
+
+``Display("si")`` formats without touching pint (the fast ``survey check --json`` path);
+``Display("ip")`` converts through :func:`survey.units.format_value`.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from survey import thresholds as th
+
+#: SI text per quantity: (decimals, factor from the core's SI unit, unit shown). The same
+#: as :func:`survey.units.format_value` in SI (a test holds them equal).
+SI_TEXT = {
+    "temperature": (1, 1.0, "°C"),
+    "temperature_difference": (1, 1.0, "K"),
+    "humidity_ratio": (2, 1000.0, "g/kg"),
+    "pressure": (1, 0.01, "hPa"),
+    "vapour_pressure": (0, 1.0, "Pa"),
+    "absolute_humidity": (2, 1.0, "g/m³"),
+    "enthalpy": (1, 0.001, "kJ/kg"),
+    "specific_volume": (3, 1.0, "m³/kg"),
+    "density": (3, 1.0, "kg/m³"),
+    "length": (0, 1.0, "m"),
+    "airflow": (0, 1.0, "m³/h"),
+    "water_rate": (1, 1.0, "L/day"),
+    "volume": (1, 1.0, "m³"),
+    "area": (2, 1.0, "m²"),
+}
+
+_G_PER_LB = 453.59237  # 1 lb = 0.45359237 kg exactly
+_BTU_H_PER_W = 3.412142  # 1 W = 3.412142 Btu/h (International Table Btu)
+_FT2_PER_M2 = 1.0 / 0.3048 ** 2  # 1 ft = 0.3048 m exactly
+
+
+def _si(quantity: str, value_si: float, decimals: int | None = None, unit: bool = True) -> str:
+    places, factor, label = SI_TEXT[quantity]
+    if decimals is not None:
+        places = decimals
+    text = f"{value_si * factor:.{places}f}"
+    if text.startswith("-") and float(text) == 0.0:
+        text = text[1:]
+    return f"{text} {label}" if unit else text
+
+
+@dataclass(frozen=True, slots=True)
+class Display:
+    """How numbers are written: ``system`` is ``"si"`` or ``"ip"``."""
+
+    system: str = "si"
+
+    def __post_init__(self) -> None:
+        if self.system not in ("si", "ip"):
+            raise ValueError(f"unit system {self.system!r}: expected 'si' or 'ip'")
+
+    @property
+    def ip(self) -> bool:
+        return self.system == "ip"
+
+    def __call__(self, quantity: str, value_si: float | None, decimals: int | None = None,
+                 unit: bool = True) -> str:
+        """``value_si`` (in the core's SI unit) as text in this system: ``'11.0 °C'``."""
+        if value_si is None:
+            return "–"
+        if quantity == "area":
+            return self.area(value_si)
+        if not self.ip:
+            return _si(quantity, value_si, decimals, unit)
+        from survey import units
+
+        return units.format_value(quantity, value_si, "ip", decimals, unit)
+
+    def temperature(self, value_c: float, decimals: int | None = None) -> str:
+        return self("temperature", value_c, decimals)
+
+    def difference(self, value_k: float, decimals: int | None = None) -> str:
+        return self("temperature_difference", value_k, decimals)
+
+    def area(self, value_m2: float) -> str:
+        """An area: '0.5 m²' or '5.4 sq ft' (US practice reads mould areas in ft²)."""
+        if self.ip:
+            return f"{value_m2 * _FT2_PER_M2:.3g} sq ft"
+        return f"{value_m2:.2g} m²"
+
+    def moisture_rate(self, g_per_h: float) -> str:
+        """A moisture rate: '65 g/h' in SI; '1003 gr/h (0.14 lb/h)' in IP."""
+        if self.ip:
+            return (f"{g_per_h * 7000.0 / _G_PER_LB:.0f} gr/h "
+                    f"({g_per_h / _G_PER_LB:.2f} lb/h)")
+        return f"{g_per_h:.0f} g/h"
+
+    def heat(self, watts: float) -> str:
+        """A heating rate: '64 W' in SI, '218 Btu/h' in IP."""
+        return f"{watts * _BTU_H_PER_W:.0f} Btu/h" if self.ip else f"{watts:.0f} W"
+
+    def water(self, litres_per_day: float) -> str:
+        """A water rate with the other unit beside it: '2.1 L/day (4.4 US pints/day)' or
+        '4.4 pt/day (2.1 L/day)'."""
+        text = self("water_rate", litres_per_day)
+        if not self.ip:
+            return f"{text} ({litres_per_day / th.value('us_pint_l'):.1f} US pints/day)"
+        return f"{text} ({_si('water_rate', litres_per_day)})"
+
+    def litres(self, litres: float) -> str:
+        """A one-off amount of water: '0.52 L (1.10 US pints)'."""
+        return f"{litres:.2f} L ({litres / th.value('us_pint_l'):.2f} US pints)"
+
+    def nominal_temperature(self, temp_c: float) -> str:
+        """A temperature defined in whole degrees Fahrenheit (a test condition): whole °F in
+        IP text, so 80 °F reads as 80 °F and not as a conversion back from 26.7 °C."""
+        return self.temperature(temp_c, 0) if self.ip else self.temperature(temp_c)
+
+    def minimum_temperature(self, value_c: float) -> str:
+        """A minimum temperature, rounded up to the shown 0.1 degree so a shown minimum is
+        never below the true one."""
+        return self.temperature(round_up_temperature_c(value_c, self.ip))
+
+
+def round_up_temperature_c(value_c: float, ip: bool = False) -> float:
+    """A minimum temperature rounded UP to the shown 0.1 degree (°C, or °F when ``ip``),
+    returned in °C, so a shown minimum is never below the true one: 14.25 → 14.3 °C."""
+    import math
+
+    if ip:
+        shown_f = math.ceil((value_c * 9.0 / 5.0 + 32.0) * 10.0 - 1e-6) / 10.0
+        return (shown_f - 32.0) * 5.0 / 9.0
+    return math.ceil(value_c * 10.0 - 1e-6) / 10.0
+
+
+def round_down_rh(limit_pct: float) -> int:
+    """A highest-safe RH as shown: whole percent, rounded down (the safe side)."""
+    import math
+
+    return int(math.floor(limit_pct + 1e-9))
+
+
+SI = Display("si")
+IP = Display("ip")

@@ -1,0 +1,40 @@
+"""Limits as words: a threshold's citation for a client, and the legend of its marks."""
+
+from __future__ import annotations
+
+from survey import thresholds as th
+from survey.words.display import Display
+
+#: One short mark per kind of source, with its legend printed once.
+MARK_SIGN = {"R": "", "M": "*", "C": "", "common practice": "†", "choice": "‡"}
+MARK_LEGEND = {
+    "*": "value recalled from the source, not yet checked against the original text",
+    "†": "trade practice, no single published source",
+    "‡": "a value we chose inside the range the source gives",
+}
+
+
+def limit_value_text(t: th.Threshold, d: Display) -> str:
+    """A limit's value in the display units (a 3 K margin is 5.4 °F in IP)."""
+    if d.ip and t.unit == "K":
+        return d.difference(t.value)
+    if d.ip and t.unit == "°C":
+        return d.temperature(t.value)
+    if t.unit == "Pa":
+        return d("vapour_pressure", t.value)
+    if t.unit == "m²":
+        return d.area(t.value)
+    return t.value_text
+
+
+def client_citation(t: th.Threshold, d: Display) -> str:
+    """Title, value and source for a client, with a short mark (see :func:`legend`)."""
+    source = t.source.replace(" (from memory)", "").replace("; from memory", "") \
+        .replace(", from memory", "").replace("from memory", "recalled")
+    return f"{t.title} {limit_value_text(t, d)}{MARK_SIGN[t.mark]}: {source}"
+
+
+def legend(limits: list[th.Threshold]) -> list[str]:
+    """The legend lines for the marks the listed limits use, once each."""
+    used = {MARK_SIGN[t.mark] for t in limits} - {""}
+    return [f"{sign} {text}" for sign, text in MARK_LEGEND.items() if sign in used]

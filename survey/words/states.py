@@ -1,0 +1,243 @@
+"""Findings as words: surface states (frost below 0 °C), surface RH, verdicts, humidity
+classes, why a temperature factor is not judged, room uses.
+
+The state enums of :mod:`survey.assess` carry a ``value`` and a ``rank``; their words live
+here. A short phrase is what a table shows; :data:`CANNOT_TELL_EXPLAINED` is the long form,
+shown once below a table.
+"""
+
+from __future__ import annotations
+
+from typing import Iterable
+
+from survey import psychro
+from survey import thresholds as th
+from survey.assess import (CondensationState, DryStandardState, FactorState, MouldState,
+                           RoomFinding, SurfaceFinding, TimberState)
+from survey.words.display import Display, round_down_rh
+
+#: A room use as a noun phrase ("a bedroom"); None for a use not said.
+USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
+              "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
+              "loft": "a loft", "office": "an office", "storage": "a store room",
+              "hallway": "a hallway", "other": None}
+
+#: The short phrase for a state the instruments cannot settle.
+CANNOT_TELL = "unclear at this accuracy"
+#: Its long form, for the explanation under a table.
+CANNOT_TELL_EXPLAINED = (
+    f"\"{CANNOT_TELL.capitalize()}\": the reading's range (± the instruments' accuracy) "
+    "reaches across a limit, so either state could be true. A more accurate instrument, or "
+    "readings repeated over several days, would settle it.")
+
+CONDENSATION_WORDS = {
+    CondensationState.CLEAR: "clear of the dew point",
+    CondensationState.NEAR: "close to the dew point",
+    CondensationState.CONDENSING: "condensing now",
+    CondensationState.CANNOT_TELL: CANNOT_TELL,
+}
+FROST_WORDS = {
+    CondensationState.CLEAR: "clear of the frost point",
+    CondensationState.NEAR: "close to the frost point",
+    CondensationState.CONDENSING: "frost forming now",
+    CondensationState.CANNOT_TELL: CANNOT_TELL,
+}
+MOULD_WORDS = {
+    MouldState.BELOW: "below the mould limit",
+    MouldState.APPROACHING: "approaching the mould limit",
+    MouldState.ABOVE: "above the mould limit",
+    MouldState.CANNOT_TELL: CANNOT_TELL,
+    MouldState.NOT_JUDGED: "not judged for mould (glass or pipe)",
+    MouldState.TOO_COLD: "too cold for mould growth now; watch for melt-water and mould when "
+                         "it warms",
+    MouldState.TOO_HOT: "too hot for the mould criterion (above 40 °C)",
+}
+FACTOR_WORDS = {
+    FactorState.MEETS: "meets the limit",
+    FactorState.UNDER: "under the limit",
+    FactorState.CANNOT_TELL: CANNOT_TELL,
+    FactorState.NOT_JUDGED: "cannot be judged today",
+    FactorState.NOT_APPLICABLE: "no limit for this room use",
+    FactorState.NOT_FOR_ELEMENT: "not used for this kind of surface",
+    FactorState.GROUND_CONTACT: "ground-contact element: temperature factor not judged "
+                                "against outdoor air",
+    FactorState.DRYING_WET: "not judged while wet materials dry (evaporation cools the "
+                            "surface)",
+}
+DRY_STANDARD_WORDS = {
+    DryStandardState.AT: "at the dry standard",
+    DryStandardState.ABOVE: "above the dry standard",
+    DryStandardState.NO_REFERENCE: "no dry standard given",
+}
+TIMBER_WORDS = {
+    TimberState.DRY: "below the mould range for timber",
+    TimberState.MOULD_RANGE: "in the mould range for timber",
+    TimberState.DECAY_RANGE: "in the decay range for timber",
+}
+
+#: The kind of surface, as a table shows it.
+ELEMENT_WORDS = {e: ("unspecified" if e == "other" else p.words)
+                 for e, p in th.ELEMENT_POLICY.items()}
+
+
+def _below_freezing(surface: SurfaceFinding) -> bool:
+    return surface.surface_temp_c <= psychro.TRIPLE_POINT_C
+
+
+def _with_span(words: dict, state, possible) -> str:
+    """A state in words; one the band cannot settle names the states it spans."""
+    if state.value != "cannot_tell":
+        return words[state]
+    return f"{CANNOT_TELL}: " + " or ".join(words[p] for p in possible)
+
+
+def condensation_text(surface: SurfaceFinding) -> str:
+    """'clear of the dew point', 'frost forming now', 'unclear at this accuracy: …'."""
+    words = FROST_WORDS if _below_freezing(surface) else CONDENSATION_WORDS
+    return _with_span(words, surface.condensation, surface.condensation_possible)
+
+
+def mould_text(surface: SurfaceFinding) -> str:
+    return _with_span(MOULD_WORDS, surface.mould, surface.mould_possible)
+
+
+def factor_text(surface: SurfaceFinding, finding: RoomFinding, d: Display) -> str:
+    text = _with_span(FACTOR_WORDS, surface.temperature_factor_state,
+                      surface.temperature_factor_possible)
+    reason = factor_not_judged_reason(finding, d)
+    if surface.temperature_factor_state is FactorState.NOT_JUDGED and reason:
+        text += ": " + reason
+    return text
+
+
+def factor_not_judged_reason(finding: RoomFinding, d: Display) -> str | None:
+    """Why the temperature factor cannot be judged today; None when it can be (or when the
+    room use has no limit)."""
+    if th.room_use(finding.use).frsi_key is None:
+        return None
+    least = th.value("frsi_min_temperature_difference_k")
+    if finding.outdoor is None:
+        return "no outdoor reading"
+    difference = finding.air.dry_bulb_c - finding.outdoor.dry_bulb_c
+    if difference < least:
+        return (f"the inside-outside difference is {d.difference(difference)}, under the "
+                f"{d.difference(least, 0)} needed")
+    return None
+
+
+def surface_rh_text(surface: SurfaceFinding) -> str:
+    """Surface RH for a client: 100 % or more says what forms; a band only when it is one."""
+    rh = surface.surface_rh_pct
+    low, high = surface.surface_rh_low_pct, surface.surface_rh_high_pct
+    if rh >= 100.0:
+        return "100 % or more (" + ("frost" if _below_freezing(surface) else "water") + \
+            " forming)"
+    if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
+        return f"{rh:.0f} %"
+    if high >= 100.0:
+        return f"{rh:.0f} % ({low:.0f} % up to saturation)"
+    return f"{rh:.0f} % ({low:.0f}–{high:.0f})"
+
+
+def short_verdict(surface: SurfaceFinding, d: Display) -> str:
+    """A few words per surface for a summary: what forms, mould, the factor."""
+    frost = _below_freezing(surface)
+    what = "frost" if frost else "water"
+    point = "frost point" if frost else "dew point"
+    margin = d.difference(th.value("dew_point_margin_k"))
+    parts = []
+    condensation, possible = surface.condensation, surface.condensation_possible
+    if condensation is CondensationState.CONDENSING:
+        parts.append(f"{what} forming")
+    elif condensation is CondensationState.NEAR:
+        parts.append(f"within {margin} of the {point}")
+    elif condensation is CondensationState.CANNOT_TELL:
+        parts.append(f"{what} may be forming" if CondensationState.CONDENSING in possible
+                     else f"may be within {margin} of the {point}")
+    else:
+        parts.append(f"clear of the {point}")
+    mould, possible = surface.mould, surface.mould_possible
+    if mould is MouldState.CANNOT_TELL:
+        parts.append("may be above the mould limit" if MouldState.ABOVE in possible
+                     else "may be approaching the mould limit")
+    elif mould is not MouldState.NOT_JUDGED:
+        parts.append(MOULD_WORDS[mould])
+    state = surface.temperature_factor_state
+    if state is FactorState.UNDER:
+        parts.append("temperature factor under the limit")
+    elif state is FactorState.CANNOT_TELL:
+        factor, limit = surface.temperature_factor, surface.temperature_factor_limit
+        if factor is not None and limit is not None and factor >= limit:
+            parts.append(f"temperature factor {factor:.2f}, meets the {limit:.2f} limit "
+                         f"(only the edge of its accuracy band reaches below: no action needed)")
+        else:
+            parts.append("temperature factor may be under the limit")
+    return "; ".join(parts)
+
+
+def worst_first(surfaces: Iterable[SurfaceFinding]) -> list[SurfaceFinding]:
+    """Surfaces ordered worst first: condensation, then mould, then the coldest."""
+    severity = {CondensationState.CONDENSING: 3, CondensationState.CANNOT_TELL: 2,
+                CondensationState.NEAR: 1, CondensationState.CLEAR: 0}
+    mould = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
+    return sorted(surfaces, key=lambda s: (-severity[s.condensation] - mould.get(s.mould, 0),
+                                           s.surface_temp_c))
+
+
+def rh_limit_text(finding: RoomFinding) -> str | None:
+    """'38 % (35 to 41 % at this accuracy)', or 'any room RH' for a surface that bears it."""
+    top = finding.max_room_rh_pct
+    if top is None:
+        return None
+    if top >= 100.0:
+        return "any room RH (it stays below the limits even at 100 %)"
+    shown = round_down_rh(top)
+    low, high = (round_down_rh(finding.max_room_rh_low_pct),
+                 round_down_rh(finding.max_room_rh_high_pct))
+    if low == high == shown:
+        return f"{shown} %"
+    return f"{shown} % ({low} to {high} % at this accuracy)"
+
+
+# --- humidity classes ------------------------------------------------------------------------
+
+#: Words for the class above class 5.
+ABOVE_CLASS_5_TEXT = "above class 5"
+#: What EN ISO 13788 Annex A gives as typical of each class (from memory).
+HUMIDITY_CLASS_EXAMPLES: dict[int, str] = {
+    1: "unoccupied buildings, dry storage",
+    2: "offices, dwellings with normal occupancy and ventilation",
+    3: "buildings with unknown occupancy",
+    4: "sports halls, kitchens, canteens",
+    5: "laundries, breweries, swimming pools",
+    th.BEYOND_CLASS_5: "more than laundries and swimming pools produce",
+}
+
+
+def humidity_class_text(number: int | None) -> str:
+    """Words for a class number from :func:`survey.thresholds.humidity_class`."""
+    if number is None:
+        return "not judged (outdoor air too warm)"
+    if number == th.BEYOND_CLASS_5:
+        return ABOVE_CLASS_5_TEXT
+    return f"class {number}"
+
+
+def humidity_class_range_text(possible: Iterable[int]) -> str:
+    """Words for the classes a band spans: ``'class 3'``, ``'class 3 or 4'``, ``'class 2
+    to 4'``, ``'class 5 or above class 5'``, ``'class 3 to 5 or above class 5'``."""
+    numbers = sorted(set(possible))
+    if not numbers:
+        return "not judged"
+    above = numbers[-1] == th.BEYOND_CLASS_5
+    plain = [n for n in numbers if n != th.BEYOND_CLASS_5]
+    if not plain:
+        return ABOVE_CLASS_5_TEXT
+    if len(plain) == 1:
+        text = f"class {plain[0]}"
+    elif len(plain) == 2:
+        text = (f"class {plain[0]}, {plain[1]}" if above
+                else f"class {plain[0]} or {plain[1]}")
+    else:
+        text = f"class {plain[0]} to {plain[-1]}"
+    return f"{text} or {ABOVE_CLASS_5_TEXT}" if above else text
