@@ -83,7 +83,7 @@ class DehumidifyWhy(Enum):
     DRYING_WITHIN_TARGET = "drying_within_target"
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class VentilateNumbers:
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
@@ -106,7 +106,7 @@ class VentilateNumbers:
     occupants_share_of_load: float | None = None
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class DehumidifyNumbers:
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
@@ -136,7 +136,7 @@ class DehumidifyNumbers:
     occupants_share_of_load: float | None = None
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class RaiseSurfaceNumbers:
     surface: str
     element: str
@@ -163,7 +163,7 @@ class Forming(Enum):
     NO = "no"
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class ColdSurfaceNumbers:
     """A pane, frame or pipe at or near its condensation point."""
 
@@ -180,7 +180,7 @@ class ColdSurfaceNumbers:
     drying: bool = field(default=False, metadata=_WORDS)
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class MaterialPoint:
     """A material reading above its dry standard, and the reading at which it is dry."""
 
@@ -192,7 +192,7 @@ class MaterialPoint:
     dry_at_or_below: float
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class TimberPoint:
     """A timber moisture reading and what the room air alone would give it."""
 
@@ -216,7 +216,7 @@ class SourceReason(Enum):
     HIGH_HUMIDITY_CLASS = "high_humidity_class"
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class FindSourceNumbers:
     reasons: tuple[SourceReason, ...] = field(metadata=_WORDS)
     first: bool = field(metadata=_WORDS)  #: liquid water suspected: before any drying
@@ -232,7 +232,7 @@ class FindSourceNumbers:
     humidity_class_possible: tuple[int, ...] | None = field(default=None, metadata=_WORDS)
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class KeepDryingNumbers:
     materials_above_dry_standard: int
     materials: tuple[MaterialPoint, ...]
@@ -241,7 +241,7 @@ class KeepDryingNumbers:
     decay_slowed: bool = field(default=False, metadata=_WORDS)
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class RepeatReadingsNumbers:
     vapour_pressure_excess_pa: float | None
     humidity_class: int | None
@@ -252,7 +252,7 @@ class RepeatReadingsNumbers:
     reread_after_use_minutes: tuple[float, float] | None = None
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class TimberSurface:
     """A surface read as timber in a ventilated space, and the moisture it would settle at."""
 
@@ -262,7 +262,7 @@ class TimberSurface:
     emc_pct: float
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class VentilatedSpaceNumbers:
     room_rh_pct: float
     dehumidify_only_if_sealed: bool
@@ -313,7 +313,7 @@ class Caution:
     risks: tuple[str, ...] = ()  #: old materials: "asbestos", "lead_paint"
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class MoistureEstimate:
     """Moisture generated in the room, g/h, by each basis that could be worked out."""
 
@@ -337,7 +337,7 @@ class TargetWhy(Enum):
     GIVEN = "given"
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class Target:
     """The room RH the advice aims for, and why."""
 
@@ -354,7 +354,7 @@ class Target:
     threshold_keys: tuple[str, ...] = ()
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class RoomAdvice:
     room: str
     target: Target
@@ -374,7 +374,7 @@ class RoomAdvice:
         return tuple(sorted(keys))
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(frozen=True, kw_only=True)
 class SiteAdvice:
     rooms: tuple[RoomAdvice, ...]
     cautions: tuple[Caution, ...] = field(default=())  #: every room's, once, closing last

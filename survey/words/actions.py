@@ -188,6 +188,10 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
         else:
             text += (f": against {load} of moisture the room would settle near "
                      f"{_pct(n.rh_at_practical_ventilation_pct)}")
+    if n.saturates:
+        return text + ("; no dehumidifier of a practical size keeps up with it either. Until "
+                       "the source is found, use trickle vents or a continuous extract fan, and "
+                       "open windows fully for a few minutes, often.")
     return text + ("; a dehumidifier does the rest. Use trickle vents or a continuous extract "
                    "fan, and open windows fully for a few minutes, often.")
 
