@@ -43,7 +43,11 @@ that forms at t; over supercooled water a 0.01 K difference of psychro's continu
 * surface RH = p_w / p_ws(t_s): u²(ln RH_s) = u²(ln p_w) + (L(t_s)·u_ts)²; the band is
   RH_s·exp(±U), slightly asymmetric, as the exponential is
 * margin t_s − t_c: u² = u²(t_c) + u_ts²
-* fRsi = (t_s − t_e)/(t_i − t_e): ∂/∂t_s = 1/Δ, ∂/∂t_i = −f/Δ, ∂/∂t_e = (f − 1)/Δ, Δ = t_i − t_e
+* fRsi = (t_s − t_e)/(t_i − t_e): ∂/∂t_s = 1/Δ, ∂/∂t_i = −f/Δ, ∂/∂t_e = (f − 1)/Δ, Δ = t_i − t_e.
+  When one thermometer reads both the room and the outdoor air (``Accuracy.shared_thermometer``,
+  the usual case on site and the default), their errors are fully correlated (GUM 5.2,
+  r = 1): u²(f) = (u_ts² + (∂/∂t_i + ∂/∂t_e)² u_ti²)/… = (u_ts² + u_ti²)/Δ²; with separate
+  instruments the terms add in quadrature, u²(f) = (u_ts² + f² u_ti² + (1 − f)² u_ti²)/Δ².
 * vapour-pressure excess p_w,i − p_w,e: the four readings' terms added in quadrature (the
   outdoor instrument is taken to have the room instrument's accuracy).
 
@@ -148,6 +152,9 @@ class Accuracy:
     air_temp_k: float = th.value("accuracy_air_temp_k")
     rh_pct: float = th.value("accuracy_rh_pct")
     surface_temp_k: float = th.value("accuracy_surface_temp_k")
+    #: One thermometer read both the room and the outdoor air (the usual case on site): the
+    #: two readings' errors are taken as fully correlated in the temperature factor (GUM 5.2).
+    shared_thermometer: bool = True
 
     def __post_init__(self) -> None:
         for name, top in _ACCURACY_MAX.items():
@@ -216,6 +223,13 @@ class Observations:
     visible_mould: bool = False  #: mould seen (its area may not have been measured)
     drying_in_progress: bool = False  #: drying equipment at work: the source is dealt with
     drying: "DryingEquipment | None" = None  #: what the drying equipment is and logged
+    water_standing_h: float | None = None  #: how long the water has stood, hours
+    water_loss_class: int | None = None  #: 1-4 when given (the trade's evaporation classes)
+    wet_area_pct: float | None = None  #: share of the floor, wall and ceiling area wet
+    dense_materials_wet: bool = False  #: hardwood, plaster, concrete or masonry holds water
+    #: An open-flued boiler, water heater, stove or fire in the room or the building:
+    #: True, False, or None when not said.
+    flued_appliance: bool | None = None
 
     @property
     def mould_seen(self) -> bool:
@@ -258,6 +272,7 @@ class RoomInput:
     materials: tuple[MaterialReading, ...] = ()
     observations: Observations = Observations()
     accuracy: Accuracy | None = None  #: None: the site's accuracy
+    laundry_loads_per_day: float | None = None  #: wash loads dried indoors in the room
 
 
 @dataclass(frozen=True, slots=True)
@@ -303,7 +318,25 @@ def timber_emc_pct(temp_c: float, rh_pct: float) -> float:
     """
     psychro.check_dry_bulb(temp_c, "air temperature")
     psychro.check_rh(rh_pct, "relative humidity")
+    if not emc_in_range(temp_c, rh_pct):
+        raise InputError("timber equilibrium moisture content", f"{temp_c:g} °C, {rh_pct:g} %",
+                         "the Wood Handbook equation is used only from "
+                         f"{th.value('timber_emc_equation_min_c'):g} to "
+                         f"{th.value('timber_emc_equation_max_c'):g} °C and up to "
+                         f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH")
     return _emc(temp_c, rh_pct)
+
+
+def emc_in_range(temp_c: float, rh_pct: float) -> bool:
+    """Whether the Wood Handbook equation is used at this temperature and RH (its range)."""
+    return (th.value("timber_emc_equation_min_c") <= temp_c
+            <= th.value("timber_emc_equation_max_c")
+            and rh_pct <= th.value("timber_emc_equation_max_rh_pct"))
+
+
+def emc_or_none(temp_c: float, rh_pct: float) -> float | None:
+    """Wood Handbook eqn 4-5 EMC, or None outside the equation's range."""
+    return _emc(temp_c, rh_pct) if emc_in_range(temp_c, rh_pct) else None
 
 
 def _emc(temp_c: float, rh_pct: float) -> float:
@@ -417,9 +450,10 @@ class RoomFinding(NamedTuple):
         return self.room.name
 
     @property
-    def timber_emc_pct(self) -> float:
-        """Moisture content timber settles at in this room's air (Wood Handbook eqn 4-5)."""
-        return _emc(self.air.dry_bulb_c, self.air.rh_pct)
+    def timber_emc_pct(self) -> float | None:
+        """Moisture content timber settles at in this room's air (Wood Handbook eqn 4-5);
+        None outside the equation's range."""
+        return emc_or_none(self.air.dry_bulb_c, self.air.rh_pct)
 
     @property
     def max_room_rh_pct(self) -> float | None:
@@ -485,6 +519,7 @@ class _RoomContext(NamedTuple):
     u_tc: float  #: standard uncertainty of the condensation point, K
     u_ts: float  #: standard uncertainty of a surface temperature, K
     u_ti: float  #: standard uncertainty of the air temperatures, K
+    shared_thermometer: bool  #: room and outdoor air read by one thermometer (correlated)
     k: float
     big_u_margin: float  #: expanded uncertainty of every margin in the room, K
     margin_limit: float
@@ -518,7 +553,7 @@ def _context(air: AirState, outdoor: AirState | None, accuracy: Accuracy, use: s
             if d >= limits.frsi_min_dt:
                 delta_t = d
     return _RoomContext(
-        air, air.vapour_pressure_pa, air.condensation_point_c, u_ln_pw_sq, u_tc, u_ts, u_ti,
+        air, air.vapour_pressure_pa, air.condensation_point_c, u_ln_pw_sq, u_tc, u_ts, u_ti, accuracy.shared_thermometer,
         limits.k, limits.k * math.sqrt(u_tc * u_tc + u_ts * u_ts), limits.margin,
         limits.mould, limits.watch, limits, None if outdoor is None else outdoor.dry_bulb_c,
         delta_t, None if limit is None else limit.value, not_judged, keys,
@@ -600,8 +635,12 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
     else:
         factor = (ts - ctx.outdoor_temp_c) / d
         u_ti = ctx.u_ti  # the outdoor thermometer is taken to be as good as the room's
-        factor_u = ctx.k * math.sqrt(u_ts * u_ts + (factor * u_ti) ** 2
-                                     + ((1.0 - factor) * u_ti) ** 2) / d
+        if ctx.shared_thermometer:
+            # one thermometer, r = 1 (GUM 5.2): (∂f/∂t_i + ∂f/∂t_e) = −1/Δ
+            factor_u = ctx.k * math.sqrt(u_ts * u_ts + u_ti * u_ti) / d
+        else:
+            factor_u = ctx.k * math.sqrt(u_ts * u_ts + (factor * u_ti) ** 2
+                                         + ((1.0 - factor) * u_ti) ** 2) / d
         limit = ctx.factor_limit
         factor_state, factor_possible = _FACTOR_SPAN[
             _MEETS if factor + factor_u >= limit else _UNDER,
@@ -623,7 +662,7 @@ def assess_surface(surface: SurfaceInput, air: AirState, outdoor: AirState | Non
 
 # --- materials ---------------------------------------------------------------------------------
 
-def _material(reading: MaterialReading, emc_pct: float, air_c: float,
+def _material(reading: MaterialReading, emc_pct: float | None, air_c: float,
               where: str) -> MaterialFinding:
     field = f"{where}material {reading.label}"
     if reading.scale not in MATERIAL_SCALES:
@@ -659,7 +698,8 @@ def _material(reading: MaterialReading, emc_pct: float, air_c: float,
             timber_state = TimberState.MOULD_RANGE
         else:
             timber_state = TimberState.DRY
-        wetter = timber_state is not TimberState.DRY and emc_pct < mould_mc
+        wetter = (timber_state is not TimberState.DRY and emc_pct is not None
+                  and emc_pct < mould_mc)
         if timber_state is TimberState.DECAY_RANGE:
             keys += ["timber_decay_slow_below_c", "timber_decay_slow_above_c"]
             slowed = not (th.value("timber_decay_slow_below_c") <= air_c
@@ -799,7 +839,7 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
 
     materials = ()
     if room.materials:
-        emc = _emc(air.dry_bulb_c, air.rh_pct)
+        emc = emc_or_none(air.dry_bulb_c, air.rh_pct)
         materials = tuple(_material(m, emc, air.dry_bulb_c, f"room {room.name!r} ")
                           for m in room.materials)
         extra = {key for m in materials for key in m.threshold_keys}

@@ -306,8 +306,100 @@ _THRESHOLDS: tuple[Threshold, ...] = (
               "Buildings built or refurbished before this year may contain asbestos.",
               "common practice"),
     Threshold("lead_paint_possible_before_year", "Lead paint possible before", 1978.0, "year",
-              "US ban on lead paint for housing in 1978 (from memory); older elsewhere",
-              "Paint applied before this year may contain lead.", "M"),
+              "US ban on lead paint for housing in 1978 (from memory); other countries "
+              "restricted it earlier or later, from the 1920s to the 1990s (from memory)",
+              "Paint applied before this year may contain lead; where the local ban came "
+              "later, later paint may too: the local rule decides.", "M"),
+    # --- contaminated water and classes of water loss ---------------------------------------
+    Threshold("water_category_2_degrades_h", "Category 2 water left standing degrades within",
+              48.0, "h", "restoration standard of practice, water-damage categories "
+              "(secondary source); the time from memory",
+              "Category 2 water left standing, or in warm conditions, is treated as category 3 "
+              "after about two days.", "M"),
+    Threshold("water_loss_class_2_from_pct", "Class 2 water loss from", 5.0, "%",
+              "restoration standard of practice, classes of water loss (from memory)",
+              "Share of the room's floor, wall and ceiling area wet: below this, with "
+              "low-porosity materials, class 1 (least evaporation load).", "M"),
+    Threshold("water_loss_class_3_from_pct", "Class 3 water loss from", 40.0, "%",
+              "restoration standard of practice, classes of water loss (from memory)",
+              "Share of the room's floor, wall and ceiling area wet: from this up, class 3 "
+              "(the greatest evaporation load); class 4 is bound water in dense materials "
+              "(hardwood, plaster, concrete, masonry) whatever the area.", "M"),
+    *(Threshold(f"drying_chart_class_{n}_ft3_per_pint", f"Drying chart factor, class {n}",
+                factor, "ft³ per pint/day",
+                "restoration standard of practice, dehumidifier sizing chart for "
+                "low-grain refrigerant units (from memory)",
+                f"A class {n} loss needs about one US pint a day of dehumidifier capacity for "
+                f"every {factor:g} ft³ of the drying area; the estimate of the water leaving "
+                "wet materials.", "M")
+      for n, factor in ((1, 100.0), (2, 50.0), (3, 40.0), (4, 50.0))),
+    Threshold("water_loss_class_assumed", "Class of water loss assumed", 2.0, "",
+              "our choice",
+              "While materials read above their dry standard and no class is given, a class 2 "
+              "loss (part of the room wet) is assumed for the drying load, and said so.",
+              "choice"),
+    # --- wet rooms: loads and code minimum extract rates ------------------------------------
+    Threshold("shower_minutes", "Length of a shower", 10.0, "min", "our choice",
+              "A shower taken as 10 minutes at the shower rate when showers per day are "
+              "entered.", "choice"),
+    Threshold("bath_minutes", "Length of a bath", 30.0, "min", "our choice",
+              "A bath taken as 30 minutes at the bath rate.", "choice"),
+    Threshold("moisture_laundry_load_kg", "Water from a wash load dried indoors", 1.5, "kg",
+              "building-science texts (from memory)",
+              "A spun wash load dried indoors releases about 1.5 kg of water into the room.",
+              "M"),
+    Threshold("typical_showers_per_day", "Showers a day assumed in a bathroom", 2.0,
+              "per day", "our choice",
+              "A bathroom with no use entered is taken to have two showers a day, said as an "
+              "assumption.", "choice"),
+    Threshold("typical_cooking_hours_per_day", "Cooking assumed in a kitchen", 1.5,
+              "h per day", "our choice",
+              "A kitchen with no use entered is taken to have 1.5 hours of cooking a day, said "
+              "as an assumption.", "choice"),
+    Threshold("typical_laundry_loads_per_day", "Wash loads assumed in a utility room", 1.0,
+              "per day", "our choice",
+              "A utility room with no use entered is taken to dry one wash load a day indoors.",
+              "choice"),
+    *(Threshold(key, title, value, unit, source, note, "M") for key, title, value, unit,
+      source, note in (
+        ("extract_bathroom_intermittent_l_per_s", "Bathroom extract, intermittent", 15.0,
+         "L/s", "England, Approved Document F (from memory)", "Intermittent extract from a "
+         "bathroom; local codes set their own minimum."),
+        ("extract_bathroom_continuous_l_per_s", "Bathroom extract, continuous", 8.0, "L/s",
+         "England, Approved Document F (from memory)", "Continuous extract from a bathroom."),
+        ("extract_kitchen_intermittent_l_per_s", "Kitchen extract, intermittent", 30.0, "L/s",
+         "England, Approved Document F (from memory)", "Intermittent extract adjacent to a "
+         "hob (60 L/s elsewhere in the kitchen)."),
+        ("extract_kitchen_continuous_l_per_s", "Kitchen extract, continuous", 13.0, "L/s",
+         "England, Approved Document F (from memory)", "Continuous extract from a kitchen."),
+        ("extract_utility_intermittent_l_per_s", "Utility room extract, intermittent", 30.0,
+         "L/s", "England, Approved Document F (from memory)", "Intermittent extract from a "
+         "utility room."),
+        ("extract_utility_continuous_l_per_s", "Utility room extract, continuous", 8.0, "L/s",
+         "England, Approved Document F (from memory)", "Continuous extract from a utility "
+         "room."),
+        ("extract_bathroom_intermittent_cfm", "Bathroom exhaust, intermittent (US)", 50.0,
+         "cfm", "ASHRAE Standard 62.2, local exhaust (from memory)", "Intermittent bathroom "
+         "exhaust."),
+        ("extract_bathroom_continuous_cfm", "Bathroom exhaust, continuous (US)", 20.0, "cfm",
+         "ASHRAE Standard 62.2, local exhaust (from memory)", "Continuous bathroom exhaust."),
+        ("extract_kitchen_intermittent_cfm", "Kitchen exhaust, intermittent (US)", 100.0,
+         "cfm", "ASHRAE Standard 62.2, local exhaust (from memory)", "Intermittent kitchen "
+         "exhaust (a vented range hood)."),
+        ("extract_kitchen_continuous_ach", "Kitchen exhaust, continuous (US)", 5.0, "1/h",
+         "ASHRAE Standard 62.2, local exhaust (from memory)", "Continuous kitchen exhaust: "
+         "five kitchen air changes an hour."),
+    )),
+    # --- timber equation range ------------------------------------------------------------------
+    Threshold("timber_emc_equation_max_c", "Wood EMC equation, highest temperature", 100.0,
+              "°C", "USDA FPL Wood Handbook eqn 4-5, range of the fitted data (from memory)",
+              "Outside 0-100 °C the equation is not used: the tool says so instead.", "M"),
+    Threshold("timber_emc_equation_min_c", "Wood EMC equation, lowest temperature", 0.0,
+              "°C", "USDA FPL Wood Handbook eqn 4-5, range of the fitted data (from memory)",
+              "Below this the equation is not used.", "M"),
+    Threshold("timber_emc_equation_max_rh_pct", "Wood EMC equation, highest RH", 98.0, "%",
+              "USDA FPL Wood Handbook Table 4-2 runs to 98 % RH (from memory)",
+              "Above this RH the equation is not used (wood near fibre saturation).", "M"),
     Threshold("propane_water_kg_per_kg", "Water vapour from burning propane", 1.63, "kg/kg",
               "combustion stoichiometry C3H8 + 5 O2 -> 3 CO2 + 4 H2O: 4 × 18.015 / 44.097",
               "Burning 1 kg of propane releases about 1.6 kg of water vapour into the room.",
@@ -451,6 +543,20 @@ TIMBER_WORDS: tuple[str, ...] = (
     "timber", "wood", "softwood", "hardwood", "pine", "spruce", "oak", "joist", "skirting",
     "floorboard", "batten", "rafter", "purlin", "truss", "sarking", "stud", "plywood", "osb",
     "chipboard", "particleboard", "architrave", "sill", "lath", "beam")
+
+
+#: Words that mark a material as porous: soaked by category 3 water it is removed, not dried
+#: (restoration standard of practice, secondary source; the list is common practice).
+POROUS_WORDS: tuple[str, ...] = (
+    "plasterboard", "gypsum", "drywall", "carpet", "underlay", "insulation", "mineral wool",
+    "fibreglass", "fiberglass", "ceiling tile", "mdf", "chipboard", "particleboard", "fabric",
+    "upholstery", "cardboard", "paper", "felt")
+
+
+def is_porous(text: str) -> bool:
+    """Whether a material name describes a porous material (removed after category 3)."""
+    lowered = str(text).lower()
+    return any(word in lowered for word in POROUS_WORDS)
 
 
 def is_timber(text: str) -> bool:

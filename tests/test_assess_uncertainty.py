@@ -28,10 +28,11 @@ STD_TOLERANCE = 0.03
 
 CASES = [
     # air °C, RH %, surface °C, outdoor °C, outdoor RH %, accuracy
-    (18.0, 72.0, 15.5, 3.0, 88.0, Accuracy(0.5, 3.0, 1.0)),
-    (21.0, 45.0, 5.0, -4.0, 90.0, Accuracy(0.3, 2.0, 0.5)),
-    (2.0, 80.0, -6.0, -12.0, 85.0, Accuracy(0.5, 3.0, 1.0)),  # frost point, ice side
-    (28.0, 85.0, 25.0, 8.0, 70.0, Accuracy(1.0, 5.0, 2.0)),
+    (18.0, 72.0, 15.5, 3.0, 88.0, Accuracy(0.5, 3.0, 1.0, shared_thermometer=False)),
+    (21.0, 45.0, 5.0, -4.0, 90.0, Accuracy(0.3, 2.0, 0.5, shared_thermometer=False)),
+    # frost point, ice side
+    (2.0, 80.0, -6.0, -12.0, 85.0, Accuracy(0.5, 3.0, 1.0, shared_thermometer=False)),
+    (28.0, 85.0, 25.0, 8.0, 70.0, Accuracy(1.0, 5.0, 2.0, shared_thermometer=False)),
 ]
 
 
@@ -83,6 +84,26 @@ def test_bands_match_monte_carlo(case):
         assert 0.94 <= _inside(values, centre, big_u) <= 0.995
     # The log band is symmetric: the low end is the same factor below.
     assert math.log(s.surface_rh_pct / s.surface_rh_low_pct) == pytest.approx(ln_half)
+
+
+@pytest.mark.parametrize("case", CASES, ids=[f"{c[0]}C-on-{c[2]}C" for c in CASES])
+def test_shared_thermometer_factor_band_matches_monte_carlo(case):
+    """One thermometer read indoors and out: its error is the same draw in both readings
+    (fully correlated, GUM 5.2), and the fRsi band follows u² = (u_ts² + u_ti²)/Δ²."""
+    air_c, rh, ts, out_c, out_rh, acc = case
+    shared = Accuracy(acc.air_temp_k, acc.rh_pct, acc.surface_temp_k, shared_thermometer=True)
+    s = assess.assess_room(RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("S", ts),)),
+                           OutdoorInput(out_c, out_rh), P, shared).surfaces[0]
+    rng = random.Random(99)
+    factor = []
+    for _ in range(SAMPLES):
+        offset = rng.uniform(-acc.air_temp_k, acc.air_temp_k)
+        surface = _draws(rng, ts, acc.surface_temp_k)
+        factor.append((surface - (out_c + offset)) / ((air_c + offset) - (out_c + offset)))
+    assert statistics.pstdev(factor) == pytest.approx(s.temperature_factor_uncertainty / 2.0,
+                                                      rel=STD_TOLERANCE)
+    assert 0.94 <= _inside(factor, s.temperature_factor, s.temperature_factor_uncertainty) \
+        <= 0.995
 
 
 def test_condensation_point_band_matches_monte_carlo():

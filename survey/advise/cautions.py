@@ -9,7 +9,7 @@ deferral to local codes and licensed professionals ends every list.
 from __future__ import annotations
 
 from survey import thresholds as th
-from survey.advise.kinds import Action, ActionKind, Caution, RoomAdvice
+from survey.advise.kinds import Action, ActionKind, Caution, DehumidifyWhy, RoomAdvice
 from survey.assess import MouldState, RoomFinding
 
 CLOSING = Caution("closing")
@@ -27,7 +27,9 @@ def cautions_for(finding: RoomFinding, actions: tuple[Action, ...], year_built: 
         out.append(Caution("visible_mould", _MOULD_AREA_KEYS, area_m2=area))
     elif any(surface.mould is MouldState.ABOVE for surface in finding.surfaces):
         out.append(Caution("mould_if_visible", _MOULD_AREA_KEYS))
-    category = obs.water_category
+    from survey.advise.rules import effective_water_category
+
+    category, _ = effective_water_category(obs)
     if category == 3:
         out.append(Caution("water_category_3", ("water_category_3",)))
     elif category == 2:
@@ -61,8 +63,35 @@ def cautions_for(finding: RoomFinding, actions: tuple[Action, ...], year_built: 
                                ("asbestos_possible_before_year",
                                 "lead_paint_possible_before_year"),
                                year_built=year_built, risks=tuple(risks)))
+    if obs.flued_appliance is not False and (_closes_up(actions) or _extracts(actions)):
+        out.append(Caution("combustion_air", flued=obs.flued_appliance))
     out.append(CLOSING)
     return tuple(out)
+
+
+_CLOSING_WHY = frozenset({DehumidifyWhy.OUTDOOR_WETTER, DehumidifyWhy.OUTDOOR_ABOUT_SAME,
+                          DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
+                          DehumidifyWhy.DRYING_AIR_MOVERS_ONLY,
+                          DehumidifyWhy.DRYING_ABOVE_TARGET,
+                          DehumidifyWhy.DRYING_WITHIN_TARGET})
+
+
+def _closes_up(actions: tuple[Action, ...]) -> bool:
+    """Whether the advice closes a space up: windows and vents shut while dehumidifying or
+    drying, a ventilated space sealed, contaminated water contained."""
+    for a in actions:
+        if a.kind is ActionKind.DEHUMIDIFY and a.numbers.why in _CLOSING_WHY:
+            return True
+        if a.kind in (ActionKind.DRY_VENTILATED_SPACE, ActionKind.REMOVE_CONTAMINATED_MATERIALS):
+            return True
+    return False
+
+
+def _extracts(actions: tuple[Action, ...]) -> bool:
+    """Whether the advice adds extract ventilation (a fan pulling air out of the room)."""
+    return any(a.kind is ActionKind.VENTILATE
+               or (a.kind is ActionKind.REPEAT_READINGS and a.numbers.wet_room_peak)
+               for a in actions)
 
 
 def site_cautions(rooms: tuple[RoomAdvice, ...]) -> tuple[Caution, ...]:

@@ -25,6 +25,7 @@ class ActionKind(Enum):
     INSULATE_PIPE = "insulate_pipe"
     REPEAT_READINGS = "repeat_readings"
     DRY_VENTILATED_SPACE = "dry_ventilated_space"
+    REMOVE_CONTAMINATED_MATERIALS = "remove_contaminated_materials"
 
     def __str__(self) -> str:
         return self.value
@@ -76,6 +77,8 @@ class DehumidifyWhy(Enum):
     OUTDOOR_NOT_MEASURED = "outdoor_not_measured"
     OUTDOOR_WETTER = "outdoor_wetter"
     OUTDOOR_ABOUT_SAME = "outdoor_about_same"
+    #: outdoor air's dew point is above the coldest surface: airing cannot dry it
+    OUTDOOR_DEW_POINT_ABOVE_SURFACE = "outdoor_dew_point_above_surface"
     VENTILATION_OVER_PRACTICAL = "ventilation_over_practical"
     VENTILATION_CANNOT_HOLD = "ventilation_cannot_hold"
     DRYING_AIR_MOVERS_ONLY = "drying_air_movers_only"
@@ -104,6 +107,12 @@ class VentilateNumbers:
     saturates: bool = field(default=False, metadata=_WORDS)
     practical_max_ach: float | None = field(default=None, metadata=_WORDS)
     occupants_share_of_load: float | None = None
+    #: the airflow the moisture balance asks for, before the code minimum was applied
+    sized_airflow_m3_per_h: float | None = None
+    #: the usual code minimum continuous extract for the room use (the higher of those
+    #: compared), never undercut by ``airflow_m3_per_h``
+    code_minimum_m3_per_h: float | None = None
+    use: str = field(default="other", metadata=_WORDS)
 
 
 @dataclass(frozen=True, kw_only=True)
@@ -134,6 +143,12 @@ class DehumidifyNumbers:
     drying_in_progress: bool | None = None
     air_movers_without_dehumidifier: bool | None = None
     occupants_share_of_load: float | None = None
+    #: water leaving wet materials, L/day, from the class of water loss and the room volume
+    materials_load_l_per_day: float | None = None
+    water_loss_class: int | None = None
+    water_loss_class_assumed: bool = field(default=False, metadata=_WORDS)
+    #: contaminated water: drying is only for what remains after removal
+    after_removal: bool | None = None
 
 
 @dataclass(frozen=True, kw_only=True)
@@ -148,6 +163,11 @@ class RaiseSurfaceNumbers:
     too_cold: bool = field(metadata=_WORDS)
     factor_under: bool = field(metadata=_WORDS)
     ground_contact: bool = field(metadata=_WORDS)
+    #: no practical room RH keeps this surface under the mould limit: a dehumidifier
+    #: cannot cure it, the surface must be warmer
+    dehumidifier_cannot_cure: bool = False
+    #: a wet surface of a room being dried, below the dew point now
+    drying_wet: bool = False
     temperature_factor: float | None = None
     temperature_factor_uncertainty: float | None = field(default=None, metadata=_WORDS)
     temperature_factor_limit: float | None = None
@@ -268,9 +288,31 @@ class VentilatedSpaceNumbers:
     dehumidify_only_if_sealed: bool
     loft: bool = field(metadata=_WORDS)
     timber_surfaces: tuple[TimberSurface, ...] | None = None
+    #: outdoor air holds more water than the space
+    outdoor_wetter_than_space: bool | None = None
+    #: outdoor air's dew point is above the space's coldest measured surface
+    outdoor_dew_point_above_coldest_surface: bool | None = None
+    #: so the vents stay closed while outdoor air is like this
+    keep_vents_closed: bool = False
+    outdoor_dew_point_c: float | None = None
+    coldest_surface_temp_c: float | None = None
 
 
-ActionNumbers = Union[VentilateNumbers, DehumidifyNumbers, RaiseSurfaceNumbers,
+@dataclass(frozen=True, kw_only=True)
+class RemoveContaminatedNumbers:
+    """Category 3 water (or category 2 left standing long enough to degrade)."""
+
+    water_category: int
+    effective_category: int
+    degraded: bool  #: the category was raised by the time the water stood
+    water_standing_h: float | None = None
+    #: porous materials read in the room (removed, not dried)
+    porous_materials: tuple[str, ...] = ()
+    #: air movers are running: they spread contamination until removal is done
+    stop_air_movers: bool = False
+
+
+ActionNumbers = Union[RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers, RaiseSurfaceNumbers,
                       ColdSurfaceNumbers, FindSourceNumbers, KeepDryingNumbers,
                       RepeatReadingsNumbers, VentilatedSpaceNumbers]
 
@@ -311,6 +353,7 @@ class Caution:
     use: str | None = None  #: confined spaces
     year_built: int | None = None  #: old materials
     risks: tuple[str, ...] = ()  #: old materials: "asbestos", "lead_paint"
+    flued: bool | None = None  #: combustion air: an open-flued appliance said to be there
 
 
 @dataclass(frozen=True, kw_only=True)
@@ -329,6 +372,11 @@ class MoistureEstimate:
     #: what to give so the load can be worked out (empty when known)
     missing: tuple[str, ...] = ()
     outdoor_as_wet: bool = False  #: why the measured excess cannot give the load
+    #: a wet room with no use entered: its use's typical load was assumed ("shower",
+    #: "cooking", "laundry"), with the amount
+    typical_use_assumed: str | None = None
+    typical_use_amount: float | None = None
+    laundry_g_per_h: float | None = None
 
 
 class TargetWhy(Enum):

@@ -74,6 +74,17 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
             activity_key = th.ACTIVITY_RATE[activity.kind]
             activities += th.value(activity_key) * activity.hours_per_day / 24.0
             keys.append(activity_key)
+    laundry = None
+    if room.laundry_loads_per_day:
+        laundry = room.laundry_loads_per_day * th.value("moisture_laundry_load_kg") * 1000.0 / 24.0
+        activities = (activities or 0.0) + laundry
+        keys.append("moisture_laundry_load_kg")
+    typical = typical_amount = None
+    if activities is None and th.room_use(finding.use).wet_room:
+        typical, typical_amount, typical_g_per_h, typical_keys = _typical_wet_room_load(
+            finding.use)
+        activities = typical_g_per_h
+        keys += typical_keys
     out = finding.outdoor
     air = finding.air
     ach = None
@@ -96,7 +107,79 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         back_calculated_g_per_h=back, used_g_per_h=used, threshold_keys=tuple(keys),
         occupants=room.occupants, occupant_rate_key=rate_key,
         occupants_assumed_zero=assumed_zero, assumed_air_change_rate_per_h=ach,
-        missing=missing, outdoor_as_wet=outdoor_as_wet)
+        missing=missing, outdoor_as_wet=outdoor_as_wet, typical_use_assumed=typical,
+        typical_use_amount=typical_amount, laundry_g_per_h=laundry)
+
+
+def _typical_wet_room_load(use: str) -> tuple[str, float, float, list[str]]:
+    """(what, how much a day, g/h averaged over the day, keys) a wet room with no use
+    entered is taken to have: showers in a bathroom, cooking in a kitchen, wash loads dried
+    in a utility room."""
+    if use == "bathroom":
+        n = th.value("typical_showers_per_day")
+        g_per_h = n * th.value("moisture_shower_g_per_h") * th.value("shower_minutes") / 60.0
+        return "shower", n, g_per_h / 24.0, ["typical_showers_per_day",
+                                              "moisture_shower_g_per_h", "shower_minutes"]
+    if use == "kitchen":
+        hours = th.value("typical_cooking_hours_per_day")
+        return "cooking", hours, hours * th.value("moisture_cooking_g_per_h") / 24.0, [
+            "typical_cooking_hours_per_day", "moisture_cooking_g_per_h"]
+    loads = th.value("typical_laundry_loads_per_day")
+    return "laundry", loads, loads * th.value("moisture_laundry_load_kg") * 1000.0 / 24.0, [
+        "typical_laundry_loads_per_day", "moisture_laundry_load_kg"]
+
+
+_L_PER_S_TO_M3_PER_H = 3.6  # 1 L/s = 3.6 m³/h
+
+
+def extract_minimum(use: str, volume_m3: float | None) -> tuple[float, tuple[str, ...]] | None:
+    """The usual code minimum continuous extract for a wet room, m³/h: the higher of the
+    figures compared (England's Approved Document F, ASHRAE 62.2; both from memory, local
+    codes rule), with the keys used; None for a room with no extract minimum."""
+    if use not in ("bathroom", "kitchen", "utility"):
+        return None
+    candidates = [(th.value(f"extract_{use}_continuous_l_per_s") * _L_PER_S_TO_M3_PER_H,
+                   f"extract_{use}_continuous_l_per_s")]
+    if use == "bathroom":
+        candidates.append((th.value("extract_bathroom_continuous_cfm") * M3_PER_H_PER_CFM,
+                           "extract_bathroom_continuous_cfm"))
+    elif use == "kitchen" and volume_m3 is not None:
+        candidates.append((th.value("extract_kitchen_continuous_ach") * volume_m3,
+                           "extract_kitchen_continuous_ach"))
+    keys = tuple(key for _, key in candidates)
+    intermittent = (f"extract_{use}_intermittent_l_per_s",
+                    *(("extract_bathroom_intermittent_cfm",) if use == "bathroom" else
+                      ("extract_kitchen_intermittent_cfm",) if use == "kitchen" else ()))
+    return max(value for value, _ in candidates), keys + intermittent
+
+
+def water_loss_class(obs) -> tuple[int | None, bool, tuple[str, ...]]:
+    """(class 1-4 of the water loss, whether it was assumed, keys): given, or from the wet
+    share of the room's surfaces and whether dense materials hold water (restoration
+    standard of practice, from memory); None when nothing says."""
+    if obs.water_loss_class is not None:
+        return obs.water_loss_class, False, ()
+    keys = ("water_loss_class_2_from_pct", "water_loss_class_3_from_pct")
+    if obs.dense_materials_wet:
+        return 4, False, keys
+    if obs.wet_area_pct is None:
+        return None, False, ()
+    if obs.wet_area_pct < th.value("water_loss_class_2_from_pct"):
+        return 1, False, keys
+    if obs.wet_area_pct < th.value("water_loss_class_3_from_pct"):
+        return 2, False, keys
+    return 3, False, keys
+
+
+_FT3_PER_M3 = 1.0 / 0.028316846592  # 1 ft = 0.3048 m exactly
+
+
+def materials_load_l_per_day(volume_m3: float, loss_class: int) -> float:
+    """Water leaving wet materials, L/day: the drying chart's capacity for the class, one US
+    pint a day per so many ft³ of drying area (restoration standard of practice, from
+    memory)."""
+    factor = th.value(f"drying_chart_class_{loss_class}_ft3_per_pint")
+    return volume_m3 * _FT3_PER_M3 / factor * th.value("us_pint_l")
 
 
 def occupants_share(moisture: MoistureEstimate) -> float | None:

@@ -25,7 +25,8 @@ from survey.advise.cautions import cautions_for
 from survey.advise.kinds import (Action, ActionKind, ColdSurfaceNumbers, DehumidifyNumbers,
                                  DehumidifyWhy, FindSourceNumbers, Forming, KeepDryingNumbers,
                                  MaterialPoint, MoistureEstimate, OutdoorMode,
-                                 RaiseSurfaceNumbers, RepeatReadingsNumbers, RoomAdvice,
+                                 RaiseSurfaceNumbers, RemoveContaminatedNumbers,
+                                 RepeatReadingsNumbers, RoomAdvice,
                                  SiteAdvice, SourceReason, Target, TargetWhy, TimberPoint,
                                  TimberSurface, VentilatedSpaceNumbers, VentilateNumbers)
 from survey.assess import (AirState, CondensationState, DryStandardState, FactorState,
@@ -100,11 +101,22 @@ def _ventilate(finding: RoomFinding, target: Target, target_air: AirState,
     out, air, room = finding.outdoor, finding.air, finding.room
     wt, wo = target_air.humidity_ratio_kg_per_kg, out.humidity_ratio_kg_per_kg
     flows: dict = {}
+    extra_keys: tuple[str, ...] = ()
     if moisture.used_g_per_h is not None:
+        # The fan moves room air: the volume flow is at the room air's specific volume.
         dry_air, flow = loads.ventilation_airflow(moisture.used_g_per_h / 1000.0, wt, wo,
-                                                  out.specific_volume_m3_per_kg)
-        flows = {"dry_air_flow_kg_per_h": dry_air, "airflow_m3_per_h": flow,
-                 "airflow_ft3_per_min": flow / loads.M3_PER_H_PER_CFM}
+                                                  air.specific_volume_m3_per_kg)
+        sized = flow
+        minimum = loads.extract_minimum(finding.use, room.volume_m3)
+        if minimum is not None:
+            flows["sized_airflow_m3_per_h"] = sized
+            flows["code_minimum_m3_per_h"] = minimum[0]
+            extra_keys = minimum[1]
+            if minimum[0] > flow:
+                flow = minimum[0]
+                dry_air = flow / air.specific_volume_m3_per_kg
+        flows.update(dry_air_flow_kg_per_h=dry_air, airflow_m3_per_h=flow,
+                     airflow_ft3_per_min=flow / loads.M3_PER_H_PER_CFM)
         if room.volume_m3 is not None:
             flows["air_changes_per_h"] = flow / room.volume_m3
         if air.dry_bulb_c > out.dry_bulb_c:
@@ -116,9 +128,9 @@ def _ventilate(finding: RoomFinding, target: Target, target_air: AirState,
         outdoor_humidity_ratio_g_per_kg=out.humidity_ratio_g_per_kg,
         moisture_generation_g_per_h=moisture.used_g_per_h,
         target_reachable_by_ventilation=True, outdoor_mode=OutdoorMode.HOLDS_TARGET,
-        room_volume_m3=room.volume_m3, **flows)
+        room_volume_m3=room.volume_m3, use=finding.use, **flows)
     keys = _keys(target.threshold_keys, ["ventilation_outdoor_drier_margin_g_per_kg"],
-                 moisture.threshold_keys)
+                 moisture.threshold_keys, extra_keys)
     return Action(ActionKind.VENTILATE, numbers, keys)
 
 
@@ -132,12 +144,18 @@ def _ventilate_partly(finding: RoomFinding, target: Target, target_air: AirState
     warmed, _ = loads.rh_at(air, wo)
     flows: dict = {}
     saturates = False
+    extra_keys: tuple[str, ...] = ()
     if wo < wt and room.volume_m3 is not None:
         flow = cap * room.volume_m3
-        dry_air = flow / out.specific_volume_m3_per_kg
-        flows = {"airflow_m3_per_h": flow, "air_changes_per_h": cap,
+        minimum = loads.extract_minimum(finding.use, room.volume_m3)
+        if minimum is not None:
+            flows["code_minimum_m3_per_h"] = minimum[0]
+            extra_keys = minimum[1]
+            flow = max(flow, minimum[0])
+        dry_air = flow / air.specific_volume_m3_per_kg
+        flows.update({"airflow_m3_per_h": flow, "air_changes_per_h": flow / room.volume_m3,
                  "airflow_ft3_per_min": flow / loads.M3_PER_H_PER_CFM,
-                 "dry_air_flow_kg_per_h": dry_air}
+                 "dry_air_flow_kg_per_h": dry_air})
         if moisture.used_g_per_h is not None:
             settles, saturates = loads.rh_at(air, wo + moisture.used_g_per_h / 1000.0 / dry_air)
             flows["rh_at_practical_ventilation_pct"] = settles
@@ -150,10 +168,10 @@ def _ventilate_partly(finding: RoomFinding, target: Target, target_air: AirState
         outdoor_mode=(OutdoorMode.NO_DRIER_THAN_TARGET if wo >= wt
                       else OutdoorMode.DRIER_NOT_ENOUGH),
         room_volume_m3=room.volume_m3, outdoor_air_rh_at_room_temp_pct=warmed,
-        saturates=saturates, practical_max_ach=cap, **flows)
+        saturates=saturates, practical_max_ach=cap, use=finding.use, **flows)
     keys = _keys(target.threshold_keys, ["ventilation_outdoor_drier_margin_g_per_kg",
                                          "ventilation_practical_max_ach"],
-                 moisture.threshold_keys)
+                 moisture.threshold_keys, extra_keys)
     return Action(ActionKind.VENTILATE, numbers, keys)
 
 
@@ -187,15 +205,20 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
     if room.volume_m3 is not None and air.humidity_ratio_kg_per_kg > wt:
         fields["pull_down_l"] = loads.pull_down_l(room.volume_m3, air, wt)
     logged = None if drying is None else drying.removed_l_per_day
+    materials = _materials_load(finding)
+    if materials is not None:
+        fields.update(materials_load_l_per_day=materials[0], water_loss_class=materials[1],
+                      water_loss_class_assumed=materials[2])
+        keys += materials[3]
     if logged is not None:
         load = logged
         fields.update(logged_removal_l_per_day=logged, water_removed_l=drying.water_removed_l,
                       hours_since_previous=drying.hours_since_previous)
     elif generation is None:
-        load = None
+        load = None if materials is None else materials[0]
     else:
         load = (max(0.0, generation + (outdoor_g_per_h or 0.0)) * 24.0 / 1000.0
-                * loads.WATER_L_PER_KG)
+                * loads.WATER_L_PER_KG) + (0.0 if materials is None else materials[0])
     pint = th.value("us_pint_l")
     numbers = DehumidifyNumbers(
         target_rh_pct=target.rh_pct, target_humidity_ratio_g_per_kg=1000.0 * wt,
@@ -207,6 +230,21 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
         rated_capacity_l_per_day=None if drying is None else drying.capacity_l_per_day,
         **fields, **more)
     return Action(ActionKind.DEHUMIDIFY, numbers, _keys(keys))
+
+
+def _materials_load(finding: RoomFinding):
+    """(L/day leaving wet materials, class, assumed, keys) for a room being dried whose
+    materials read above the dry standard and whose volume is known; else None."""
+    obs = finding.room.observations
+    wet = any(m.dry_standard_state is DryStandardState.ABOVE for m in finding.materials)
+    if not (obs.drying_in_progress and wet) or finding.room.volume_m3 is None:
+        return None
+    loss_class, assumed, keys = loads.water_loss_class(obs)
+    if loss_class is None:
+        loss_class, assumed = int(th.value("water_loss_class_assumed")), True
+        keys = ("water_loss_class_assumed",)
+    return (loads.materials_load_l_per_day(finding.room.volume_m3, loss_class), loss_class,
+            assumed, (*keys, f"drying_chart_class_{loss_class}_ft3_per_pint"))
 
 
 def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState,
@@ -223,6 +261,14 @@ def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState
                             DehumidifyWhy.OUTDOOR_NOT_MEASURED,
                             extra_keys=target.threshold_keys)]
     w_out = out.humidity_ratio_kg_per_kg
+    coldest = finding.coldest
+    if (coldest is not None and w_out <= w_room - margin
+            and out.condensation_point_c > coldest.surface_temp_c):
+        # Airing can only bring the room's dew point down to outdoor air's, still above the
+        # coldest surface: keep windows closed and dehumidify below it.
+        return [_dehumidify(finding, target, target_air, moisture,
+                            DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
+                            extra_keys=(*target.threshold_keys, margin_key))]
     if w_out > w_room - margin:
         why = (DehumidifyWhy.OUTDOOR_WETTER if w_out >= w_room
                else DehumidifyWhy.OUTDOOR_ABOUT_SAME)
@@ -231,7 +277,11 @@ def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState
     if w_out <= w_target - margin:
         ventilate = _ventilate(finding, target, target_air, moisture)
         actions = [ventilate]
-        ach = ventilate.numbers.air_changes_per_h
+        n = ventilate.numbers
+        # over the practical rate by the moisture balance itself (a code minimum above the
+        # practical rate is no reason for a dehumidifier)
+        ach = (None if n.air_changes_per_h is None
+               else (n.sized_airflow_m3_per_h or n.airflow_m3_per_h) / finding.room.volume_m3)
         if ach is not None and ach > cap:
             actions.append(_dehumidify(
                 finding, target, target_air, moisture, DehumidifyWhy.VENTILATION_OVER_PRACTICAL,
@@ -292,10 +342,22 @@ def _ventilated_space(finding: RoomFinding) -> Action:
             continue
         timber.append(TimberSurface(surface=surface.label, surface_temp_c=surface.surface_temp_c,
                                     surface_rh_pct=rh_s, emc_pct=emc))
+    weather: dict = {}
+    out, air = finding.outdoor, finding.air
+    if out is not None:
+        wetter = out.humidity_ratio_kg_per_kg > air.humidity_ratio_kg_per_kg
+        coldest = min((s.surface_temp_c for s in finding.surfaces), default=None)
+        above = coldest is not None and out.condensation_point_c > coldest
+        weather = {"outdoor_wetter_than_space": wetter,
+                   "outdoor_dew_point_above_coldest_surface": above if coldest is not None
+                   else None,
+                   "keep_vents_closed": wetter or above,
+                   "outdoor_dew_point_c": out.condensation_point_c,
+                   "coldest_surface_temp_c": coldest}
     numbers = VentilatedSpaceNumbers(room_rh_pct=finding.air.rh_pct,
                                      dehumidify_only_if_sealed=True,
                                      loft=finding.use == "loft",
-                                     timber_surfaces=tuple(timber) or None)
+                                     timber_surfaces=tuple(timber) or None, **weather)
     return Action(ActionKind.DRY_VENTILATED_SPACE, numbers,
                   ("timber_decay_mc_pct", "timber_decay_slow_below_c"))
 
@@ -310,12 +372,13 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
     floor = th.value("room_rh_floor_pct")
     mould_limit = th.value("surface_rh_mould_limit_pct")
     margin = th.value("dew_point_margin_k")
-    if surface.temperature_factor_state is FactorState.DRYING_WET:
+    drying_wet = surface.temperature_factor_state is FactorState.DRYING_WET
+    if drying_wet and surface.condensation is not CondensationState.CONDENSING:
         return None  # evaporation cools a drying surface: dry it before judging it
     max_rh = psychro.max_room_rh_pct(air.dry_bulb_c, surface.surface_temp_c, mould_limit)
     too_cold = max_rh < floor
     factor_under = surface.temperature_factor_state is FactorState.UNDER
-    if not (too_cold or factor_under):
+    if not (too_cold or factor_under or drying_wet):
         return None
     keys = ["surface_rh_mould_limit_pct", "dew_point_margin_k", "room_rh_floor_pct"]
     design_air = air_state(air.dry_bulb_c, design_rh, air.pressure_pa)
@@ -340,7 +403,7 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
         target_surface_temp_c=target, design_rh_pct=design_rh, too_cold=too_cold,
         factor_under=factor_under,
         ground_contact=surface.temperature_factor_state is FactorState.GROUND_CONTACT,
-        use=finding.use, **factor)
+        dehumidifier_cannot_cure=too_cold, drying_wet=drying_wet, use=finding.use, **factor)
     return Action(ActionKind.RAISE_SURFACE_TEMPERATURE, numbers, _keys(keys))
 
 
@@ -506,6 +569,56 @@ def _sources(finding: RoomFinding, occupants_explain: bool
     return (find_source if find_source is not None else None), keep_drying, repeat
 
 
+# --- contaminated water ------------------------------------------------------------------------
+
+def effective_water_category(obs) -> tuple[int | None, bool]:
+    """(the water category to act on, whether standing water raised it): category 1 left
+    standing degrades to 2, and 2 to 3 (restoration standard of practice; the times are
+    threshold records)."""
+    category = obs.water_category
+    hours = obs.water_standing_h
+    if category is None or hours is None:
+        return category, False
+    if category == 1 and hours >= th.value("water_category_1_degrades_h"):
+        category = 2
+        if hours >= th.value("water_category_1_degrades_h") + th.value(
+                "water_category_2_degrades_h"):
+            category = 3
+    elif category == 2 and hours >= th.value("water_category_2_degrades_h"):
+        category = 3
+    return category, category != obs.water_category
+
+
+def _contaminated(finding: RoomFinding) -> Action | None:
+    """Category 3 water (or water that has stood long enough to become it): remove the
+    porous materials it reached before any drying, contain, no air movement."""
+    obs = finding.room.observations
+    category, degraded = effective_water_category(obs)
+    if category != 3:
+        return None
+    drying = obs.drying
+    numbers = RemoveContaminatedNumbers(
+        water_category=obs.water_category, effective_category=category, degraded=degraded,
+        water_standing_h=obs.water_standing_h,
+        porous_materials=tuple(dict.fromkeys(m.label for m in finding.materials
+                                             if th.is_porous(m.material))),
+        stop_air_movers=bool(drying is not None and drying.air_movers))
+    keys = ["water_category_3"]
+    if degraded:
+        keys += ["water_category_1_degrades_h", "water_category_2_degrades_h"]
+    return Action(ActionKind.REMOVE_CONTAMINATED_MATERIALS, numbers, tuple(keys))
+
+
+def _after_removal(action: Action) -> Action:
+    """A drying action where contaminated material is removed first: for what remains."""
+    if action.kind is not ActionKind.DEHUMIDIFY:
+        return action
+    import dataclasses
+
+    return Action(action.kind, dataclasses.replace(action.numbers, after_removal=True),
+                  action.threshold_keys)
+
+
 # --- the advice --------------------------------------------------------------------------------
 
 def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
@@ -535,6 +648,9 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
                          and max(finding.humidity_class_possible or (finding.humidity_class,))
                          >= int(th.value("humidity_class_high")))
     find_source, keep_drying, repeat = _sources(finding, occupants_explain)
+    removal = _contaminated(finding)
+    if removal is not None:
+        actions.append(removal)
     if find_source is not None and find_source.numbers.first:
         actions.append(find_source)
     if keep_drying is not None:
@@ -549,13 +665,27 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
     elif drying is not None:
         actions += _drying_actions(finding, drying, target, target_air, moisture)
     elif air.rh_pct > target.rh_pct:
-        actions += _moisture_actions(finding, target, target_air, moisture)
+        moisture_actions = _moisture_actions(finding, target, target_air, moisture)
+        if target.at_practical_floor:
+            # No practical room RH keeps the coldest surface under the mould limit: a
+            # dehumidifier cannot cure it; the surface must be made warmer (led with below).
+            moisture_actions = [a for a in moisture_actions if a.kind is not ActionKind.DEHUMIDIFY]
+        actions += moisture_actions
+    if removal is not None:
+        actions = [_after_removal(a) for a in actions]
 
     by_temperature = sorted(finding.surfaces, key=lambda s: s.surface_temp_c)
+    lead = len(actions) - sum(1 for a in actions if a.kind in (ActionKind.VENTILATE,
+                                                                 ActionKind.DEHUMIDIFY))
     for surface in by_temperature:
         if surface.policy.sets_room_target and not ventilated_space:
             action = _raise_surface(finding, surface, design)
-            if action is not None:
+            if action is None:
+                continue
+            if action.numbers.dehumidifier_cannot_cure and target.at_practical_floor:
+                actions.insert(lead, action)  # the cure that can work leads
+                lead += 1
+            else:
                 actions.append(action)
     for surface in by_temperature:
         role = surface.policy.role

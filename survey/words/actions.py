@@ -14,6 +14,7 @@ from survey.advise.kinds import (Action, ActionKind, ColdSurfaceNumbers, Dehumid
                                  SourceReason, Target, TargetWhy, VentilatedSpaceNumbers,
                                  VentilateNumbers)
 from survey.assess import RoomFinding
+from survey.safe_text import visible
 from survey.words.display import Display, round_down_rh
 from survey.words.states import USE_PHRASE, humidity_class_range_text, humidity_class_text
 
@@ -27,6 +28,7 @@ TITLES = {
     ActionKind.INSULATE_PIPE: "Insulate the cold pipe",
     ActionKind.REPEAT_READINGS: "Repeat the readings",
     ActionKind.DRY_VENTILATED_SPACE: "Cut the moisture reaching the space",
+    ActionKind.REMOVE_CONTAMINATED_MATERIALS: "Remove contaminated materials before drying",
 }
 
 
@@ -93,31 +95,44 @@ def moisture_missing(moisture: MoistureEstimate) -> str:
 
 def moisture_basis(moisture: MoistureEstimate, use: str, d: Display) -> str:
     """How the moisture load was worked out, with each basis's number."""
-    parts = []
+    people = []
     if moisture.occupants_assumed_zero:
-        parts.append(f"occupants not given, taken as 0 for {USE_PHRASE[use]} that is closed "
-                     f"up: {d.moisture_rate(0.0)}")
+        people.append(f"occupants not given, taken as 0 for {USE_PHRASE[use]} that is closed "
+                      f"up: {d.moisture_rate(0.0)}")
     elif moisture.occupants == 0:
-        parts.append(f"no occupants: {d.moisture_rate(0.0)}")
+        people.append(f"no occupants: {d.moisture_rate(0.0)}")
     elif moisture.occupant_rate_key is not None:
         rate = th.value(moisture.occupant_rate_key)
         kind = "asleep" if moisture.occupant_rate_key.endswith("asleep_g_per_h") else "sitting"
         n = moisture.occupants
-        parts.append(f"{n} {'person' if n == 1 else 'people'} {kind} at "
-                     f"{d.moisture_rate(rate)} each: {d.moisture_rate(moisture.occupants_g_per_h)}")
-    if moisture.activities_g_per_h is not None:
-        parts.append(f"activities averaged over the day: "
-                     f"{d.moisture_rate(moisture.activities_g_per_h)}")
+        people.append(f"{n} {'person' if n == 1 else 'people'} {kind} at "
+                      f"{d.moisture_rate(rate)} each: "
+                      f"{d.moisture_rate(moisture.occupants_g_per_h)}")
+    if moisture.typical_use_assumed is not None:
+        amount = moisture.typical_use_amount
+        what = {"shower": f"{amount:g} showers a day", "cooking": f"{amount:g} h of cooking a "
+                "day", "laundry": f"{amount:g} wash load{'s' if amount != 1 else ''} dried "
+                "indoors a day"}[moisture.typical_use_assumed]
+        people.append(f"no use entered, so {USE_PHRASE[use]}'s typical {what} is assumed: "
+                      f"{d.moisture_rate(moisture.activities_g_per_h)} over the day")
+    elif moisture.activities_g_per_h is not None:
+        people.append(f"activities averaged over the day: "
+                      f"{d.moisture_rate(moisture.activities_g_per_h)}")
+    back = None
     if moisture.back_calculated_g_per_h is not None:
-        parts.append(f"the measured excess over outdoor air at an assumed "
-                     f"{moisture.assumed_air_change_rate_per_h:g} air changes an hour: "
-                     f"{d.moisture_rate(moisture.back_calculated_g_per_h)}")
+        back = (f"the measured excess over outdoor air at an assumed "
+                f"{moisture.assumed_air_change_rate_per_h:g} air changes an hour: "
+                f"{d.moisture_rate(moisture.back_calculated_g_per_h)}")
     if moisture.used_g_per_h is None:
         return f"not known ({moisture_missing(moisture)})"
-    people = moisture.occupants_g_per_h is not None or moisture.activities_g_per_h is not None
-    if people and moisture.back_calculated_g_per_h is not None:
-        return "the larger of " + ", and ".join(parts)
-    return "; ".join(parts)
+    if len(people) > 1:
+        total = (moisture.occupants_g_per_h or 0.0) + (moisture.activities_g_per_h or 0.0)
+        people_text = f"{d.moisture_rate(total)} from the room's use (" + "; ".join(people) + ")"
+    else:
+        people_text = people[0] if people else ""
+    if people and back is not None:
+        return f"the larger of {people_text}, and {back}"
+    return people_text or back
 
 
 # --- ventilation and dehumidification ------------------------------------------------------
@@ -146,13 +161,14 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
         if n.airflow_m3_per_h is None:
             return text + (" The airflow cannot be sized without the moisture load: "
                            f"{moisture_missing(moisture)}.")
-        text += f" About {d('airflow', n.airflow_m3_per_h)} of outdoor air"
+        text += f" At least {d.at_least('airflow', n.airflow_m3_per_h)} of outdoor air"
         if n.air_changes_per_h is not None:
             text += (f" ({n.air_changes_per_h:.1f} air changes an hour in this "
                      f"{d('volume', n.room_volume_m3)} room)")
         text += (f" carries away {d.moisture_rate(n.moisture_generation_g_per_h)} of moisture "
                  f"and holds the room at {target}. Moisture load: "
                  f"{moisture_basis(moisture, finding.use, d)}.")
+        text += _code_minimum(n, d)
         if n.heat_to_warm_air_w is not None:
             text += (f" Warming that air to {d.temperature(air.dry_bulb_c)} takes about "
                      f"{d.heat(n.heat_to_warm_air_w)} of heating.")
@@ -176,8 +192,11 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
     if n.airflow_m3_per_h is None:
         return text + (" Ventilate steadily (trickle vents, a continuous extract fan) and let a "
                        "dehumidifier do the rest; give the room volume to size the airflow.")
-    text += (f" Ventilate at about {n.practical_max_ach:g} air changes an hour "
-             f"({d('airflow', n.airflow_m3_per_h)}), the most that is practical")
+    text += (f" Ventilate at about {n.air_changes_per_h:.1f} air changes an hour "
+             f"({d.at_least('airflow', n.airflow_m3_per_h)}), the most that is practical"
+             if n.code_minimum_m3_per_h is None or n.airflow_m3_per_h > n.code_minimum_m3_per_h
+             else f" Ventilate at least at the code minimum below "
+                  f"({d.at_least('airflow', n.airflow_m3_per_h)})")
     if n.rh_at_practical_ventilation_pct is not None:
         load = d.moisture_rate(n.moisture_generation_g_per_h)
         if n.saturates:
@@ -188,6 +207,7 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
         else:
             text += (f": against {load} of moisture the room would settle near "
                      f"{_pct(n.rh_at_practical_ventilation_pct)}")
+    text += _code_minimum(n, d)
     if n.saturates:
         return text + ("; no dehumidifier of a practical size keeps up with it either. Until "
                        "the source is found, use trickle vents or a continuous extract fan, and "
@@ -223,6 +243,15 @@ def _dehumidify_why(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvi
             f"{d('humidity_ratio', out.humidity_ratio_kg_per_kg)} of water against "
             f"{d('humidity_ratio', w_room)} in the room, so airing would do little; a "
             f"dehumidifier does the work.")
+    if n.why is DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE:
+        coldest = finding.coldest
+        return _bring(finding, advice, d) + (
+            f"Outdoor air is drier than the room air, but its dew point "
+            f"({d.temperature(out.condensation_point_c)}) is above the coldest wall, ceiling "
+            f"or floor ({visible(coldest.label)}, {d.temperature(coldest.surface_temp_c)}): "
+            f"airing can bring the room's dew point down only to outdoor air's, so that "
+            f"surface would stay wet. Keep windows and doors to outside closed and dehumidify "
+            f"the room below it.")
     if n.why is DehumidifyWhy.VENTILATION_OVER_PRACTICAL:
         cap = n.practical_max_ach
         return (f"Ventilation alone needs {n.ventilation_air_changes_needed_per_h:.1f} air "
@@ -275,9 +304,18 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
         verb = "brings" if n.outdoor_gain_g_per_h > 0 else "carries away"
         gains.append(f"outdoor air {how} at about {n.outdoor_air_changes_per_h:g} air changes "
                      f"an hour {verb} {d.moisture_rate(abs(n.outdoor_gain_g_per_h))}")
+    if n.after_removal:
+        text += (" This is for what remains once the contaminated porous materials are out "
+                 "and the area is cleaned: no drying before then.")
     if n.pull_down_l is not None:
         text += (f" Taking the room air itself down to {target} means removing about "
                  f"{d.litres(n.pull_down_l)} once; wet materials hold far more.")
+    if n.materials_load_l_per_day is not None:
+        assumed = (" (no class was recorded: a class 2 loss, part of the room wet, is "
+                   "assumed)" if n.water_loss_class_assumed else "")
+        text += (f" The wet materials give off about {d.water(n.materials_load_l_per_day)}: "
+                 f"the drying chart's figure for a class {n.water_loss_class} water loss in "
+                 f"this room's volume{assumed}.")
     if n.logged_removal_l_per_day is not None:
         text += (f" The dehumidifier logged {n.water_removed_l:g} L in the "
                  f"{n.hours_since_previous:.0f} h since the previous visit, about "
@@ -285,6 +323,9 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
                  f"figure is the load, and the unit should keep up with it at this room's "
                  f"conditions. Falling amounts from visit to visit mean the materials are "
                  f"drying.")
+    elif n.generation_g_per_h is None and n.load_l_per_day is not None:
+        text += (f" Remove at least {d.water_at_least(n.load_l_per_day)} (the wet "
+                 f"materials; give the number of occupants for the room's own load).")
     elif n.generation_g_per_h is None:
         text += (f" The moisture load to hold it there is not known "
                  f"({moisture_missing(moisture)}), so no dehumidifier size can be given")
@@ -293,9 +334,13 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
                      f"{d.water(n.outdoor_gain_g_per_h * 24.0 / 1000.0)}")
         text += "."
     elif n.load_l_per_day > 0.0:
-        text += (" To hold it there: " + "; ".join(gains) + f"; {d.water(n.load_l_per_day)} "
-                 f"in all, the least a dehumidifier should remove at this room's conditions. "
-                 f"Drying wet materials adds much more.")
+        if n.materials_load_l_per_day is not None:
+            gains.append(f"the wet materials {d.water(n.materials_load_l_per_day)}")
+        text += (" To hold it there: " + "; ".join(gains) + f"; "
+                 f"{d.water_at_least(n.load_l_per_day)} in all, the least a "
+                 f"dehumidifier should remove at this room's conditions."
+                 + ("" if n.materials_load_l_per_day is not None
+                    else " Drying wet materials adds much more."))
     else:
         text += (" To hold it there: " + "; ".join(gains) + ". Outdoor air carries away more "
                  "than the room produces, so once the room is down there is no daily load to "
@@ -354,6 +399,20 @@ def _ventilated_space(n: VentilatedSpaceNumbers, d: Display) -> str:
                 "vapour barrier (polyethylene sheet, lapped and taped, held down), fix leaks "
                 "and drainage that bring water in, and check the air bricks or vents are open "
                 "and clear.")
+    if n.keep_vents_closed:
+        why = []
+        if n.outdoor_wetter_than_space:
+            why.append("outdoor air holds more water than the space")
+        if n.outdoor_dew_point_above_coldest_surface:
+            why.append(f"its dew point ({d.temperature(n.outdoor_dew_point_c)}) is above the "
+                       f"space's coldest measured surface ({d.temperature(n.coldest_surface_temp_c)})")
+        text += (" Today " + " and ".join(why) + ": air let in through the vents would add "
+                 "water and condense on cold surfaces, so do not open more vents now. Either "
+                 "keep the vents closed while outdoor air is this humid and dry the closed "
+                 "space with a dehumidifier, or have it sealed and conditioned (vents closed "
+                 "for good, a ground vapour barrier, and dehumidified or conditioned air), "
+                 "designed by someone who can check the combustion air of any appliance in "
+                 "or above the space.")
     text += (" A dehumidifier helps only if the space is sealed (closed off from outdoor air): "
              "in a space open to outdoor air it would spend its effort on the outdoor air "
              "streaming through. Measure the timber with a pin moisture meter (wood scale): "
@@ -406,8 +465,11 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
                        f"a surface of at least "
                        f"{d.minimum_temperature(n.surface_temp_for_factor_limit_c)} (the factor "
                        f"limit)")
+    if n.drying_wet:
+        reasons.append("it is wet and below the dew point now: water forms on it, and "
+                       "evaporation from the wet material keeps it cold while it dries")
     design = _pct(n.design_rh_pct)
-    text = (f"{n.surface} is too cold at {d.temperature(n.surface_temp_c)}: "
+    text = (f"{visible(n.surface)} is too cold at {d.temperature(n.surface_temp_c)}: "
             + "; ".join(reasons) + ". "
             f"Raise it to at least {d.minimum_temperature(n.target_surface_temp_c)} "
             + (f"(the factor limit; {d.minimum_temperature(n.surface_temp_for_target_rh_c)} "
@@ -420,10 +482,67 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
                  "its temperature: its temperature factor is not judged against outdoor air.")
     else:
         text += _REMEDY.get(n.element, _REMEDY["other"])
+    if n.dehumidifier_cannot_cure:
+        text += (f" A dehumidifier cannot cure this: even at {_pct(floor)}, the lowest RH it "
+                 f"is practical to hold, the surface would stay above the mould limit.")
+    if n.drying_wet:
+        text += (" While it dries, keep the room warm and the drying going; judge the surface "
+                 "again once the material reads dry.")
     if n.factor_under:
         text += (" The factor comes from one reading: confirm it on another cold day, or with "
                  "a thermal image, before building work.")
     return text
+
+
+def _code_minimum(n: VentilateNumbers, d: Display) -> str:
+    """The usual code minimum extract for a wet room, named as a minimum local codes set."""
+    if n.code_minimum_m3_per_h is None:
+        return ""
+    def rate(key: str) -> str:
+        t = th.get(key)
+        return f"{t.value:g} {t.unit}"
+    use = n.use
+    intermittent = [rate(f"extract_{use}_intermittent_l_per_s")]
+    continuous = [rate(f"extract_{use}_continuous_l_per_s")]
+    if use == "bathroom":
+        intermittent.append(rate("extract_bathroom_intermittent_cfm"))
+        continuous.append(rate("extract_bathroom_continuous_cfm"))
+    elif use == "kitchen":
+        intermittent.append(rate("extract_kitchen_intermittent_cfm"))
+        continuous.append("5 kitchen air changes an hour")
+    held = (" The moisture balance alone asks for "
+            f"{d('airflow', n.sized_airflow_m3_per_h)}: the fan is held to the minimum."
+            if n.sized_airflow_m3_per_h is not None
+            and n.sized_airflow_m3_per_h < n.code_minimum_m3_per_h else "")
+    return (f" Extract from {USE_PHRASE[use]} is commonly required at no less than "
+            f"{' or '.join(intermittent)} when switched on after use, or {' or '.join(continuous)} "
+            f"running continuously (England's Approved Document F, and ASHRAE 62.2 in the US; "
+            f"from memory): these are minimums, and the local code sets its own. Continuous "
+            f"extract here should be at least {d.at_least('airflow', n.code_minimum_m3_per_h)}."
+            + held)
+
+
+def _remove_contaminated(n, d: Display) -> str:
+    degraded = ""
+    if n.degraded:
+        degraded = (f" The water was recorded as category {n.water_category}, but it has stood "
+                    f"for about {n.water_standing_h:g} h: long enough to be treated as "
+                    f"category {n.effective_category}.")
+    porous = ""
+    if n.porous_materials:
+        porous = (" Porous materials read here (" + ", ".join(visible(m) for m in
+                                                        n.porous_materials) + ") are among them.")
+    movers = (" Stop the air movers now: air blown across contaminated material spreads it "
+              "through the building." if n.stop_air_movers else "")
+    return (f"Category {n.effective_category} water (grossly contaminated: sewage, flood or "
+            f"long-standing water) reached this room.{degraded} Porous materials it soaked — "
+            "plasterboard, carpet and underlay, insulation, fibreboard, soft furnishings — are "
+            "removed and bagged, not dried." + porous + " Before work: contain the area (sheeting, "
+            "the doors to the rest of the building closed), and wear protective equipment "
+            "(gloves, boots, eye protection and a respirator); no air movement across "
+            "contaminated material until it is removed and the area cleaned. This is work for "
+            "trained, licensed contractors." + movers + " Dry only what remains once that is "
+            "done.")
 
 
 def _point(n: ColdSurfaceNumbers) -> tuple[str, str]:
@@ -619,6 +738,8 @@ def action_reason(action: Action, finding: RoomFinding, advice: RoomAdvice, d: D
         return _find_source(n, d)
     if kind is ActionKind.KEEP_DRYING:
         return _keep_drying(n)
+    if kind is ActionKind.REMOVE_CONTAMINATED_MATERIALS:
+        return _remove_contaminated(n, d)
     if kind is ActionKind.REPEAT_READINGS:
         return _repeat(n, d)
     return _ventilated_space(n, d)
@@ -629,12 +750,12 @@ def action_numbers(action: Action, d: Display) -> str:
     n = action.numbers
     kind = action.kind
     if kind is ActionKind.VENTILATE and n.airflow_m3_per_h is not None:
-        text = f"about {d('airflow', n.airflow_m3_per_h)}"
+        text = f"at least {d.at_least('airflow', n.airflow_m3_per_h)}"
         if n.air_changes_per_h is not None:
             text += f" ({n.air_changes_per_h:.1f} air changes an hour)"
         return text
     if kind is ActionKind.DEHUMIDIFY and n.removal_l_per_day:
-        return f"at least {d('water_rate', n.removal_l_per_day)}"
+        return f"at least {d.at_least('water_rate', n.removal_l_per_day)}"
     if kind is ActionKind.RAISE_SURFACE_TEMPERATURE:
         return f"to at least {d.minimum_temperature(n.target_surface_temp_c)}"
     if kind is ActionKind.KEEP_DRYING:

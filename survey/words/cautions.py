@@ -101,7 +101,8 @@ def caution_text(caution: Caution, d: Display) -> str:
         if "asbestos" in caution.risks:
             risks.append(f"asbestos (used in buildings up to about {asbestos:.0f})")
         if "lead_paint" in caution.risks:
-            risks.append(f"lead paint (common before {lead:.0f})")
+            risks.append(f"lead paint (common before {lead:.0f} in the US; the year differs "
+                         "by country, from the 1920s to the 1990s)")
         age = ("of unknown age" if caution.year_built is None
                else f"built in {caution.year_built}")
         return (f"Old materials: in a building {age}, have suspect materials checked for "
@@ -109,4 +110,12 @@ def caution_text(caution: Caution, d: Display) -> str:
                 "removing anything (linings, ceilings, floor tiles, pipe lagging, textured "
                 "coatings, old paint, window putty). Do not disturb suspect material; use a "
                 "licensed surveyor or contractor.")
+    if key == "combustion_air":
+        which = ("there is an open-flued appliance here" if caution.flued
+                 else "if there is an open-flued appliance here or in the building")
+        return (f"Combustion air: {which} (a boiler, water heater, stove or open fire that "
+                "draws its air from the room), closing the space up or running an extract fan "
+                "can pull flue gases back into the room. Have its combustion air and flue "
+                "checked by a registered gas or fuel engineer before the advice here is "
+                "followed, and fit a carbon monoxide alarm.")
     raise KeyError(f"no words for caution {key!r}")

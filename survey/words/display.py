@@ -6,6 +6,7 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
 from survey import thresholds as th
@@ -102,6 +103,14 @@ class Display:
             return f"{text} ({litres_per_day / th.value('us_pint_l'):.1f} US pints/day)"
         return f"{text} ({_si('water_rate', litres_per_day)})"
 
+    def water_at_least(self, litres_per_day: float) -> str:
+        """A least water rate, rounded up, with the other unit beside it."""
+        text = self.at_least("water_rate", litres_per_day)
+        if not self.ip:
+            pints = litres_per_day / th.value('us_pint_l')
+            return f"{text} ({math.ceil(pints * 10 - 1e-9) / 10:.1f} US pints/day)"
+        return f"{text} ({math.ceil(litres_per_day * 10 - 1e-9) / 10:.1f} L/day)"
+
     def litres(self, litres: float) -> str:
         """A one-off amount of water: '0.52 L (1.10 US pints)'."""
         return f"{litres:.2f} L ({litres / th.value('us_pint_l'):.2f} US pints)"
@@ -110,6 +119,22 @@ class Display:
         """A temperature defined in whole degrees Fahrenheit (a test condition): whole °F in
         IP text, so 80 °F reads as 80 °F and not as a conversion back from 26.7 °C."""
         return self.temperature(temp_c, 0) if self.ip else self.temperature(temp_c)
+
+    def at_least(self, quantity: str, value_si: float) -> str:
+        """A minimum (an airflow, a dehumidifier capacity) rounded UP at the shown
+        precision, so the figure shown is never below the one worked out."""
+        import math
+
+        if self.ip:
+            from survey import units
+
+            shown = units.to_display(quantity, value_si, "ip")
+            places = units._DECIMALS[(quantity, "ip")]
+            up = math.ceil(shown * 10 ** places - 1e-9) / 10 ** places
+            return self(quantity, units.from_display(quantity, up, "ip") + 1e-12)
+        places, factor, _ = SI_TEXT[quantity]
+        up = math.ceil(value_si * factor * 10 ** places - 1e-9) / 10 ** places
+        return self(quantity, up / factor + 1e-12)
 
     def minimum_temperature(self, value_c: float) -> str:
         """A minimum temperature, rounded up to the shown 0.1 degree so a shown minimum is
