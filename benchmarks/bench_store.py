@@ -22,6 +22,7 @@ from unittest import mock
 from common import Result, interleaved_best
 
 from survey import model, store
+from survey.store import survey_file
 
 ROOMS = 1000
 
@@ -97,7 +98,7 @@ def run() -> list[Result]:
             store.save_survey(survey, path)
 
         def our_save_unknown() -> None:
-            store._KNOWN_GOOD.clear()  # as if another program had written the file
+            survey_file.forget_known_good()  # as if another program had written the file
             store.save_survey(survey, path)
 
         with mock.patch.object(os, "fsync", lambda fd: None):
