@@ -11,11 +11,10 @@ import datetime as dt
 
 import pytest
 from hypothesis import HealthCheck, given, settings
+from test_store import surveys
 
 from survey import domain, evaluate, model, store
 from survey.errors import InputError
-
-from test_store import surveys
 
 
 def _room(**fields) -> model.Room:

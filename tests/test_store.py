@@ -20,8 +20,8 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from survey import domain, model, psychro, store
-from survey.store import fileio
 from survey.errors import SurveyFileError
+from survey.store import fileio
 
 ROOT = Path(__file__).resolve().parents[1]
 EXAMPLES = ROOT / "example_sites"

@@ -16,9 +16,9 @@ from pathlib import Path
 import msgspec
 import pytest
 
-from survey import model, store
-from survey.store import lock as store_lock
+from survey import store
 from survey.errors import SurveyFileError
+from survey.store import lock as store_lock
 
 ROOT = Path(__file__).resolve().parents[1]
 EXAMPLE = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"

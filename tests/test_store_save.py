@@ -10,9 +10,9 @@ from pathlib import Path
 
 import pytest
 
-from survey import model, store
-from survey.store import fileio
+from survey import store
 from survey.errors import SurveyFileError
+from survey.store import fileio
 
 ROOT = Path(__file__).resolve().parents[1]
 FLAT = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"

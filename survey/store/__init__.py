@@ -114,7 +114,11 @@ if TYPE_CHECKING:  # the same names, for type checkers and editors
     )
     from survey.store.migrations import MIGRATIONS, Migration, migrate, migration
     from survey.store.schema import survey_schema
-    from survey.store.session import EditSession, open_for_editing, remove_stale_temp_files
+    from survey.store.session import (
+        EditSession,
+        open_for_editing,
+        remove_stale_temp_files,
+    )
     from survey.store.survey_file import (
         backup_path,
         damaged_copy_path,

@@ -322,27 +322,39 @@ def duplicate_key(data: bytes, *, decoded_as_survey: bool = True) -> tuple[str, 
 
 # --- in and out --------------------------------------------------------------------------
 
-def loads_survey(data: bytes, path: object = "<survey>") -> Survey:
-    """Decode and check a survey from JSON bytes; ``path`` names it in errors."""
-    data = check_bytes(bytes(data), path)
-    version = schema_version(data, path)
+def _upgraded(data: bytes, version: int, path: object) -> Survey:
+    doc = migrations.migrate(msgspec.json.decode(data), version, path)
     try:
-        if version == SCHEMA_VERSION:
-            try:
-                survey = _decoder(Survey).decode(data)
-            except msgspec.ValidationError as exc:
+        return msgspec.convert(doc, Survey)
+    except msgspec.ValidationError as exc:
+        where, problem = _explain(exc, Survey, doc)
+        raise SurveyFileError(
+            path, where, f"{problem} (after upgrading from schema version {version})"
+        ) from None
+
+
+def loads_survey(data: bytes, path: object = "<survey>") -> Survey:
+    """Decode and check a survey from JSON bytes; ``path`` names it in errors.
+
+    The checked decode runs first: a current file needs nothing else read twice. Only when
+    it fails is the version looked at, to tell a newer or older file from a damaged one.
+    """
+    data = check_bytes(bytes(data), path)
+    version = SCHEMA_VERSION
+    try:
+        try:
+            survey = _decoder(Survey).decode(data)
+        except msgspec.ValidationError as exc:
+            version = schema_version(data, path)  # refuses a newer or unknown version
+            if version == SCHEMA_VERSION:
                 where, problem = _explain(exc, Survey, data)
                 raise SurveyFileError(path, where, problem) from None
+            survey = _upgraded(data, version, path)
         else:
-            doc = msgspec.json.decode(data)
-            doc = migrations.migrate(doc, version, path)
-            try:
-                survey = msgspec.convert(doc, Survey)
-            except msgspec.ValidationError as exc:
-                where, problem = _explain(exc, Survey, doc)
-                raise SurveyFileError(
-                    path, where, f"{problem} (after upgrading from schema version {version})"
-                ) from None
+            # It decoded, so every key is a field and "schema_version" can only be the top
+            # level's; once is right (the default would hide a file that has none).
+            if data.count(b'"schema_version"') != 1:
+                schema_version(data, path)
     except (msgspec.DecodeError, RecursionError) as exc:
         raise _decode_error(path, exc, data) from None
     except MemoryError:

@@ -259,6 +259,16 @@ def resolve(path: str | os.PathLike[str]) -> Path:
     return Path(os.path.realpath(path)) if path.is_symlink() else path
 
 
+def named(path: str | os.PathLike[str]) -> Path:
+    """``path`` as a ``Path`` with a file name; ``.``, ``/`` or an empty path (a folder by
+    its nature) is refused, so that no ``.bak`` or ``.lock`` is made beside the folder."""
+    path = Path(path)
+    if not path.name:
+        raise SurveyFileError(path, "", "this is a folder, not a file; give the path of a "
+                                        "survey file")
+    return path
+
+
 def shown_name(path: Path) -> str:
     """A file's name as a message quotes it (visible, shortened)."""
     return shorten(path.name, 80)

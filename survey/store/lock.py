@@ -34,6 +34,7 @@ from survey.safe_text import shorten
 from survey.store.fileio import (
     NotARegularFile,
     fsync_dir,
+    named,
     open_regular,
     os_problem,
     read_at_most,
@@ -86,7 +87,7 @@ class SurveyLocked(SurveyFileError):
 
 def lock_path(path: str | os.PathLike[str]) -> Path:
     """The lock file of the survey at ``path``: ``NAME.json.lock``."""
-    path = resolve(path)
+    path = resolve(named(path))
     return path.with_name(path.name + ".lock")
 
 

@@ -14,7 +14,13 @@ from pathlib import Path
 
 from survey.errors import SurveyFileError
 from survey.model import Survey
-from survey.store.fileio import FileStamp, file_stamp, remove_quietly, resolve, target_state
+from survey.store.fileio import (
+    FileStamp,
+    file_stamp,
+    remove_quietly,
+    resolve,
+    target_state,
+)
 from survey.store.lock import (
     LockInfo,
     TakeoverGuard,

@@ -27,10 +27,16 @@ from pathlib import Path
 
 from survey.errors import SurveyFileError
 from survey.model import Survey
-from survey.store.decoding import check_bytes, dumps_survey, loads_survey, schema_version
+from survey.store.decoding import (
+    check_bytes,
+    dumps_survey,
+    loads_survey,
+    schema_version,
+)
 from survey.store.fileio import (
     FileStamp,
     fsync_dir,
+    named,
     os_problem,
     read_stamped,
     remove_quietly,
@@ -60,15 +66,15 @@ def _remember_good(target: Path, stamp: FileStamp) -> None:
 
 def backup_path(path: str | os.PathLike[str]) -> Path:
     """Where the previous version of ``path`` is kept: ``NAME.json.bak``."""
-    path = Path(path)
+    path = named(path)
     return path.with_name(path.name + ".bak")
 
 
 def _backup_hint(path: Path) -> str:
-    bak = backup_path(path)
     try:
+        bak = backup_path(path)
         saved = dt.datetime.fromtimestamp(bak.stat().st_mtime).strftime("%Y-%m-%d %H:%M")
-    except OSError:
+    except (OSError, SurveyFileError):
         return ""
     try:
         loads_survey(read_stamped(bak)[0], bak)
