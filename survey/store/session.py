@@ -84,6 +84,7 @@ def open_for_editing(path: str | os.PathLike[str], *, create: Survey | None = No
     """
     path = Path(path)
     ours, previous = acquire_lock(path, take_over_stale=take_over_stale, force=force)
+    stamp: FileStamp | None
     try:
         remove_stale_temp_files(path)
         if create is not None:
