@@ -26,7 +26,9 @@ Conventions
 Checks that span records (unique ids, references to rooms and instruments that exist) are in
 :func:`problems`; the store runs them on every load and save. A record built in memory (a
 reading typed into a form) is checked with :func:`survey.store.check_record`, which words
-its problems as the file errors are worded. This module imports nothing of the store.
+its problems as the file errors are worded. This module imports nothing of the store (the
+one exception, the compatibility name :func:`new_survey`, goes once the faces call
+``store.new_survey``).
 
 The records' docstrings and ``Meta`` descriptions are the descriptions ``survey schema``
 prints: they are plain text, with no markup.

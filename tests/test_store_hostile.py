@@ -176,8 +176,20 @@ def test_unreadable_file_says_no_permission_to_read(tmp_path, monkeypatch):
     monkeypatch.setattr(fileio.os, "open", refusing)
     with pytest.raises(SurveyFileError) as err:
         store.load_survey(path)
-    assert err.value.problem.startswith("cannot read the file: no permission to read it")
+    assert err.value.problem.startswith("no permission to read the file")
     assert "read-only" not in err.value.problem
+
+
+@pytest.mark.skipif(not hasattr(os, "geteuid") or os.geteuid() == 0,
+                    reason="root reads every file; the test above covers it with a stub")
+def test_a_really_unreadable_file_says_no_permission_to_read(tmp_path):
+    """The kernel's own refusal (a file of mode 0000) reads as "no permission to read"."""
+    path = tmp_path / "s.json"
+    shutil.copy(FLAT, path)
+    os.chmod(path, 0)
+    with pytest.raises(SurveyFileError) as err:
+        store.load_survey(path)
+    assert err.value.problem.startswith("no permission to read the file")
 
 
 def test_export_target_that_is_a_pipe_is_refused(fifo):

@@ -53,12 +53,6 @@ _ERRNO_WORDS = {
 if hasattr(errno, "EDQUOT"):
     _ERRNO_WORDS[errno.EDQUOT] = "the disk quota is exceeded"
 
-#: Reading says what a refused permission means for reading (not "read-only").
-_READ_WORDS = {
-    errno.EACCES: "no permission to read it (ask its owner, or check its permissions and "
-                  "those of its folders)",
-    errno.EPERM: "no permission to read it",
-}
 
 
 def os_problem(exc: OSError) -> str:
@@ -67,6 +61,14 @@ def os_problem(exc: OSError) -> str:
     if words:
         return words
     return shorten(exc.strerror or str(exc), 120)
+
+
+def _read_problem(exc: OSError) -> str:
+    """Why a file could not be read; a refused permission is about reading, not writing."""
+    if exc.errno in (errno.EACCES, errno.EPERM):
+        return ("no permission to read the file (ask its owner, or check the permissions of "
+                "the file and its folders)")
+    return f"cannot read the file: {os_problem(exc)}"
 
 
 # --- what a path is ----------------------------------------------------------------------
@@ -159,16 +161,14 @@ def read_stamped(path: Path, what: str = "survey file") -> tuple[bytes, FileStam
     except IsADirectoryError:
         raise SurveyFileError(path, "", f"this is a folder, not a {what}") from None
     except OSError as exc:
-        words = _READ_WORDS.get(exc.errno or 0) or os_problem(exc)
-        raise SurveyFileError(path, "", f"cannot read the file: {words}") from None
+        raise SurveyFileError(path, "", _read_problem(exc)) from None
     try:
         if st.st_size > limit:
             raise SurveyFileError(path, "", f"the file is too large ({_size(st.st_size)}; a "
                                             f"{what} is at most {_size(limit)})")
         data = read_at_most(fd, limit, st.st_size)
     except OSError as exc:
-        words = _READ_WORDS.get(exc.errno or 0) or os_problem(exc)
-        raise SurveyFileError(path, "", f"cannot read the file: {words}") from None
+        raise SurveyFileError(path, "", _read_problem(exc)) from None
     finally:
         os.close(fd)
     if len(data) > limit:
