@@ -12,11 +12,13 @@ from pathlib import Path
 
 import msgspec
 import pytest
+from hypothesis import HealthCheck, given, settings
+from test_store import surveys
 
 from survey import model, store
 from survey.cli import main
 from survey.errors import SurveyFileError
-from survey.store import fileio
+from survey.store import decoding, fileio
 
 ROOT = Path(__file__).resolve().parents[1]
 FLAT = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"
@@ -272,6 +274,19 @@ def test_a_survey_with_logger_samples_loads():
                                                       "samples": []}]
     survey = store.loads_survey(json.dumps(doc, indent=3).encode())
     assert [len(log.samples) for log in survey.logs] == [50, 50, 0]
+
+
+@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(surveys())
+def test_cutting_out_logger_samples_keeps_everything_else(survey):
+    """The duplicate-key check's shortcut empties exactly the samples arrays of any valid
+    survey file, whatever its texts hold, so it never hides a key nor invents one."""
+    data = store.dumps_survey(survey)
+    expected = json.loads(data)
+    for log in expected["logs"]:
+        log["samples"] = []
+    assert json.loads(decoding._without_samples(data)) == expected
+    assert decoding.duplicate_key(data) is None
 
 
 def test_duplicate_in_an_old_schema_file_is_refused():
