@@ -323,6 +323,19 @@ def test_a_megabyte_value_gives_a_short_line():
     assert len(line) < LINE_MAX and "is not allowed" in line and "…" in line
 
 
+def test_a_damaged_file_with_a_damaged_backup_gives_a_short_line(tmp_path):
+    """Both messages together, the file's and its backup's, stay a few hundred characters."""
+    doc = _doc()
+    doc["visits"][0]["rooms"][0]["air"]["x" * 100_000] = 1
+    path = tmp_path / "s.json"
+    path.write_text(json.dumps(doc))
+    doc["site"]["y" * 100_000] = 1
+    store.backup_path(path).write_text(json.dumps(doc))
+    with pytest.raises(SurveyFileError) as err:
+        store.load_survey(path)
+    assert "damaged too" in err.value.problem and len(err.value.problem) < 600
+
+
 def test_a_bad_room_reference_in_a_large_survey_lists_a_few_ids():
     """A reference to a missing room among 5000 names a few ids and counts the rest."""
     doc = _doc()

@@ -27,6 +27,7 @@ from pathlib import Path
 
 from survey.errors import SurveyFileError
 from survey.model import Survey
+from survey.safe_text import shorten
 from survey.store.decoding import (
     check_bytes,
     dumps_survey,
@@ -79,7 +80,8 @@ def _backup_hint(path: Path) -> str:
     try:
         loads_survey(read_stamped(bak)[0], bak)
     except SurveyFileError as exc:
-        return f". The backup {shown_name(bak)} (saved {saved}) is damaged too: {exc.problem}"
+        return (f". The backup {shown_name(bak)} (saved {saved}) is damaged too: "
+                f"{shorten(exc.problem, 160)}")
     return (f". The previous version is in {shown_name(bak)} (saved {saved}) and loads "
             f"cleanly: copy it over {shown_name(path)} to recover")
 
@@ -187,7 +189,7 @@ def _load_problem(target: Path) -> str | None:
         data, stamp = read_stamped(target)
         loads_survey(data, target)
     except SurveyFileError as exc:
-        return f"{exc.where}: {exc.problem}" if exc.where else exc.problem
+        return shorten(f"{exc.where}: {exc.problem}" if exc.where else exc.problem, 200)
     _remember_good(target, stamp)
     return None
 
