@@ -1,7 +1,12 @@
 """Survey files: load and save of a synthetic 1000-room survey against plain ``json``.
 
-* load: ``store.load_survey`` (read, version check, typed decode with every range checked,
-  cross-record checks) against ``json.loads`` of the same bytes (no checks at all);
+* load: ``store.load_survey`` (read, typed decode with every range checked, the check for
+  keys given twice, cross-record checks) against ``json.loads`` of the same bytes (no checks
+  at all);
+* the duplicate-key check alone (a second parse by the C JSON scanner with a hook that
+  builds nothing) against the same ``json.loads``;
+* load of a survey holding one logger series of 200 000 samples against ``json.loads`` (the
+  duplicate-key check skips the samples, which cannot hold keys);
 * save: ``store.save_survey`` (encode, re-check, indent, temp file, backup link, rename)
   with ``os.fsync`` stubbed out, against ``json.dumps(..., indent=2)`` of the same data plus
   a plain ``open``/``write`` of the result;
@@ -22,8 +27,10 @@ from unittest import mock
 from common import Result, interleaved_best
 
 from survey import model, store
+from survey.store import decoding, survey_file
 
 ROOMS = 1000
+SAMPLES = 200_000
 
 
 def synthetic_survey(rooms: int = ROOMS) -> model.Survey:
@@ -68,6 +75,16 @@ def synthetic_survey(rooms: int = ROOMS) -> model.Survey:
                         rooms=room_list, visits=[visit])
 
 
+def logged_survey(samples: int = SAMPLES) -> model.Survey:
+    """A small survey with one room logger of ``samples`` one-minute samples."""
+    start = dt.datetime(2025, 1, 15, 9, 0)
+    survey = synthetic_survey(rooms=5)
+    survey.logs.append(model.LogSeries(room="r0", source="logger.csv", samples=[
+        model.LogSample(at=start + dt.timedelta(minutes=i), dry_bulb_c=18.0 + i % 50 / 10,
+                        rh_pct=50.0 + i % 300 / 10) for i in range(samples)]))
+    return survey
+
+
 def run() -> list[Result]:
     survey = synthetic_survey()
     with tempfile.TemporaryDirectory() as folder:
@@ -85,6 +102,19 @@ def run() -> list[Result]:
                 return json.loads(handle.read())
 
         load_ours, load_base = interleaved_best(our_load, json_load, repeat=7)
+        dup_ours, dup_base = interleaved_best(lambda: decoding.duplicate_key(data), json_load,
+                                              repeat=7)
+
+        logged = Path(folder) / "logged.json"
+        store.save_survey(logged_survey(), logged)
+        logged_mb = logged.stat().st_size / 1e6
+
+        def json_load_logged() -> object:
+            with open(logged, "rb") as handle:
+                return json.loads(handle.read())
+
+        logged_ours, logged_base = interleaved_best(lambda: store.load_survey(logged),
+                                                    json_load_logged, repeat=3)
 
         plain = Path(folder) / "plain.json"
 
@@ -97,7 +127,7 @@ def run() -> list[Result]:
             store.save_survey(survey, path)
 
         def our_save_unknown() -> None:
-            store._KNOWN_GOOD.clear()  # as if another program had written the file
+            survey_file.forget_known_good()  # as if another program had written the file
             store.save_survey(survey, path)
 
         with mock.patch.object(os, "fsync", lambda fd: None):
@@ -108,6 +138,10 @@ def run() -> list[Result]:
     return [
         Result(f"store load, {ROOMS} rooms ({size_mb:.1f} MB) vs json.loads", load_ours * 1e3,
                "ms", load_ours / load_base, goal=3.0),
+        Result(f"store duplicate-key check alone, {ROOMS} rooms vs json.loads", dup_ours * 1e3,
+               "ms", dup_ours / dup_base),
+        Result(f"store load, {SAMPLES} logger samples ({logged_mb:.1f} MB) vs json.loads",
+               logged_ours * 1e3, "ms", logged_ours / logged_base, goal=3.0),
         Result(f"store save without fsync, {ROOMS} rooms vs json.dumps + write",
                save_ours * 1e3, "ms", save_ours / save_base, goal=2.0),
         Result(f"store save over a file not read first (load check), no fsync, {ROOMS} rooms "

@@ -24,7 +24,14 @@ Conventions
   decode.
 
 Checks that span records (unique ids, references to rooms and instruments that exist) are in
-:func:`problems`; the store runs them on every load and save.
+:func:`problems`; the store runs them on every load and save. A record built in memory (a
+reading typed into a form) is checked with :func:`survey.store.check_record`, which words
+its problems as the file errors are worded. This module imports nothing of the store (the
+one exception, the compatibility name :func:`new_survey`, goes once the faces call
+``store.new_survey``).
+
+The records' docstrings and ``Meta`` descriptions are the descriptions ``survey schema``
+prints: they are plain text, with no markup.
 """
 
 from __future__ import annotations
@@ -33,11 +40,9 @@ import datetime as dt
 import re
 from typing import Annotated, Iterator, Literal
 
-import msgspec
 from msgspec import Meta, Struct, field
 
 from survey import domain
-from survey.errors import InputError
 from survey.psychro import (
     ALTITUDE_MAX_M,
     ALTITUDE_MIN_M,
@@ -49,9 +54,10 @@ from survey.psychro import (
     SURFACE_TEMP_MAX_C,
     SURFACE_TEMP_MIN_C,
 )
+from survey.safe_text import count_cut, shorten
 
 #: The schema version this program writes. Older versions are upgraded on load by the
-#: migrations in :mod:`survey.store`; newer ones are refused.
+#: migrations in :mod:`survey.store.migrations`; newer ones are refused.
 SCHEMA_VERSION = 1
 
 # --- choices -----------------------------------------------------------------------------
@@ -307,7 +313,7 @@ class Visit(Struct, **_RECORD):
 
 
 class LogSample(Struct, array_like=True, forbid_unknown_fields=True):
-    """One data-logger sample, stored compactly as ``[time, dry_bulb_c, rh_pct]``."""
+    """One data-logger sample, stored compactly as a list: [time, dry_bulb_c, rh_pct]."""
 
     at: dt.datetime
     dry_bulb_c: DryBulbC
@@ -315,7 +321,8 @@ class LogSample(Struct, array_like=True, forbid_unknown_fields=True):
 
 
 class LogSeries(Struct, **_RECORD):
-    """Samples imported from a data logger's file, for a room or (``room`` null) outdoors."""
+    """Samples imported from a data logger's file, for a room, or outdoors when room is
+    null."""
 
     room: Id | None  #: ``Room.id``; ``None`` for an outdoor logger
     source: Name  #: the imported file's name
@@ -330,7 +337,7 @@ class LogSeries(Struct, **_RECORD):
 class Survey(Struct, kw_only=True, forbid_unknown_fields=True):
     """One survey: one site, its instruments and rooms, the visits, and logger series.
 
-    Every top-level field is always written (``schema_version`` above all), so a file shows
+    Every top-level field is always written (schema_version above all), so a file shows
     its sections even while they are empty.
     """
 
@@ -371,11 +378,11 @@ class Survey(Struct, kw_only=True, forbid_unknown_fields=True):
 # --- helpers -----------------------------------------------------------------------------
 
 def new_survey(reference: str, **site_fields: object) -> Survey:
-    """A valid empty survey for the site ``reference`` (created now, local time)."""
-    site = Site(reference=reference, **site_fields)
-    survey = Survey(site=site, created_at=dt.datetime.now().replace(microsecond=0))
-    check_record(survey)
-    return survey
+    """Compatibility name for :func:`survey.store.new_survey`, kept only until
+    ``survey/commands/files.py`` calls that; new code uses the store's."""
+    from survey.store.explain import new_survey as checked_new_survey  # transitional
+
+    return checked_new_survey(reference, **site_fields)
 
 
 def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:
@@ -390,8 +397,13 @@ def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:
 
 
 def _id_list(ids: Iterator[str]) -> str:
+    """The ids for a message: a few, then how many more ("a, b and 998 more")."""
     shown = list(ids)
-    return ", ".join(shown) if shown else "(none defined)"
+    return count_cut(shown) if shown else "(none defined)"
+
+
+def _quoted(text: str) -> str:
+    return f"'{shorten(text, 40)}'"
 
 
 def _volume_problem(room: Room) -> str:
@@ -430,7 +442,7 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
     room_ids: set[str] = set()
     for i, room in enumerate(survey.rooms):
         if room.id in room_ids:
-            found.append((f"rooms[{i}].id", f"room id '{room.id}' is used twice"))
+            found.append((f"rooms[{i}].id", f"room id {_quoted(room.id)} is used twice"))
         room_ids.add(room.id)
         problem = _volume_problem(room)
         if problem:
@@ -439,17 +451,17 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
     for i, instrument in enumerate(survey.instruments):
         if instrument.id in instrument_ids:
             found.append((f"instruments[{i}].id",
-                          f"instrument id '{instrument.id}' is used twice"))
+                          f"instrument id {_quoted(instrument.id)} is used twice"))
         instrument_ids.add(instrument.id)
 
     def instrument_ref(where: str, instrument_id: str | None) -> None:
         if instrument_id is not None and instrument_id not in instrument_ids:
-            found.append((where, f"no instrument with id '{instrument_id}'; instruments are: "
-                                 f"{_id_list(i.id for i in survey.instruments)}"))
+            found.append((where, f"no instrument with id {_quoted(instrument_id)}; instruments "
+                                 f"are: {_id_list(i.id for i in survey.instruments)}"))
 
     def room_ref(where: str, room_id: str) -> None:
         if room_id not in room_ids:
-            found.append((where, f"no room with id '{room_id}'; rooms are: "
+            found.append((where, f"no room with id {_quoted(room_id)}; rooms are: "
                                  f"{_id_list(r.id for r in survey.rooms)}"))
 
     for v, visit in enumerate(survey.visits):
@@ -462,7 +474,7 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
             room_ref(f"{rat}.room", room_visit.room)
             if room_visit.room in seen:
                 found.append((f"{rat}.room",
-                              f"room '{room_visit.room}' appears twice in this visit"))
+                              f"room {_quoted(room_visit.room)} appears twice in this visit"))
             seen.add(room_visit.room)
             if room_visit.air is not None:
                 instrument_ref(f"{rat}.air.instrument", room_visit.air.instrument)
@@ -483,26 +495,3 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
             room_ref(f"logs[{g}].room", log.room)
         instrument_ref(f"logs[{g}].instrument", log.instrument)
     return found
-
-
-def check_record(record: Struct, field_name: str = "") -> None:
-    """Check a record's types and ranges (which constructing a Struct does not do).
-
-    Raises :class:`~survey.errors.InputError` naming the field (``field_name`` plus the
-    path inside the record), the value and what is allowed. For a :class:`Survey` the
-    cross-record :func:`problems` are checked too.
-    """
-    from survey import store  # the message wording lives with the file errors
-
-    data = msgspec.json.encode(record)
-    try:
-        msgspec.json.decode(data, type=type(record))
-    except msgspec.ValidationError as exc:
-        where, problem = store.explain_validation_error(exc, type(record), data)
-        value = store.value_at(data, where)
-        name = ".".join(part for part in (field_name, where) if part) or type(record).__name__
-        raise InputError(name, "" if value is store.MISSING else value, problem) from None
-    if isinstance(record, Survey):
-        for where, problem in problems(record):
-            name = ".".join(part for part in (field_name, where) if part)
-            raise InputError(name, store.value_at(data, where, default=""), problem)

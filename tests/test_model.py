@@ -39,8 +39,8 @@ def _humidity_ratio_coolprop(dry_bulb_c: float, rh_pct: float, pressure_pa: floa
 
 def test_new_survey_is_valid_and_empty():
     """new_survey gives a survey that passes every check and has no rooms or visits."""
-    survey = model.new_survey("CS-1 Test", address="1 Nowhere Lane", unit_system="ip")
-    model.check_record(survey)
+    survey = store.new_survey("CS-1 Test", address="1 Nowhere Lane", unit_system="ip")
+    store.check_record(survey)
     assert survey.schema_version == model.SCHEMA_VERSION
     assert survey.rooms == [] and survey.visits == [] and survey.logs == []
     assert survey.site.unit_system == "ip"
@@ -49,7 +49,7 @@ def test_new_survey_is_valid_and_empty():
 def test_new_survey_rejects_an_empty_reference():
     """A site needs a reference: an empty one is an InputError naming the field."""
     with pytest.raises(InputError) as err:
-        model.new_survey("")
+        store.new_survey("")
     assert err.value.field == "site.reference"
 
 
@@ -77,7 +77,7 @@ def test_new_survey_rejects_an_empty_reference():
 def test_check_record_names_field_and_allowed_range(record, field, words):
     """check_record rejects an out-of-domain value with the field and what is allowed."""
     with pytest.raises(InputError) as err:
-        model.check_record(record)
+        store.check_record(record)
     assert err.value.field == field
     assert words in err.value.allowed
 
@@ -344,7 +344,7 @@ def test_photo_names_must_stay_inside_the_survey_folder(name, words):
     """A photo's file name is relative to the survey's folder: absolute paths, drive letters
     and '..' are refused with a message saying why."""
     with pytest.raises(InputError) as err:
-        model.check_record(model.RoomVisit(room="bed1", photos=[name]))
+        store.check_record(model.RoomVisit(room="bed1", photos=[name]))
     assert err.value.field == "photos[0]"
     assert words in err.value.allowed
     assert model.photo_name_problem(name)
@@ -354,7 +354,7 @@ def test_photo_names_must_stay_inside_the_survey_folder(name, words):
                                   "visit 1\\IMG_0042.JPG", "~corner.jpg"])
 def test_relative_photo_names_are_accepted(name):
     """Names inside the survey's folder or a sub-folder are fine."""
-    model.check_record(model.RoomVisit(room="bed1", photos=[name]))
+    store.check_record(model.RoomVisit(room="bed1", photos=[name]))
     assert model.photo_name_problem(name) == ""
 
 

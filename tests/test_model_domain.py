@@ -11,11 +11,10 @@ import datetime as dt
 
 import pytest
 from hypothesis import HealthCheck, given, settings
+from test_store import surveys
 
 from survey import domain, evaluate, model, store
 from survey.errors import InputError
-
-from test_store import surveys
 
 
 def _room(**fields) -> model.Room:
@@ -42,7 +41,7 @@ def test_values_the_assessment_refuses_do_not_validate(record, field, words):
     """A room of 0.001 m³, 900 occupants or an 8 K air accuracy is refused by the model
     with the domain's bounds, as the assessment would refuse it."""
     with pytest.raises(InputError) as err:
-        model.check_record(record)
+        store.check_record(record)
     assert err.value.field == field
     assert words in err.value.allowed
 
@@ -118,6 +117,6 @@ def test_survey_at_every_domain_edge_validates_and_is_assessed(tmp_path):
 @given(surveys())
 def test_any_survey_that_validates_can_be_assessed(survey):
     """Every visit of any survey the file model accepts is assessed without InputError."""
-    model.check_record(survey)
+    store.check_record(survey)
     for index in range(len(survey.visits)):
         evaluate.assess_visit(survey, index)

@@ -21,6 +21,7 @@ from hypothesis import strategies as st
 
 from survey import domain, model, psychro, store
 from survey.errors import SurveyFileError
+from survey.store import fileio
 
 ROOT = Path(__file__).resolve().parents[1]
 EXAMPLES = ROOT / "example_sites"
@@ -163,7 +164,7 @@ def test_any_valid_survey_saves_and_loads_equal(survey):
 def test_save_keeps_the_previous_version_as_bak(tmp_path):
     """The second save leaves the first version in NAME.json.bak and no temporary files."""
     path = tmp_path / "site.json"
-    first = model.new_survey("First")
+    first = store.new_survey("First")
     second = msgspec.structs.replace(first, site=model.Site(reference="Second"))
     store.save_survey(first, path)
     assert not store.backup_path(path).exists()
@@ -176,9 +177,9 @@ def test_save_keeps_the_previous_version_as_bak(tmp_path):
 def test_save_preserves_file_permissions(tmp_path):
     """A file made private (0600) stays private after a save."""
     path = tmp_path / "site.json"
-    store.save_survey(model.new_survey("x"), path)
+    store.save_survey(store.new_survey("x"), path)
     os.chmod(path, 0o600)
-    store.save_survey(model.new_survey("y"), path)
+    store.save_survey(store.new_survey("y"), path)
     assert (path.stat().st_mode & 0o777) == 0o600
 
 
@@ -186,9 +187,9 @@ def test_save_through_a_symlink_writes_the_real_file(tmp_path):
     """Saving to a symlinked survey updates the file it points to and keeps the link."""
     real = tmp_path / "real.json"
     link = tmp_path / "link.json"
-    store.save_survey(model.new_survey("x"), real)
+    store.save_survey(store.new_survey("x"), real)
     link.symlink_to(real)
-    store.save_survey(model.new_survey("y"), link)
+    store.save_survey(store.new_survey("y"), link)
     assert link.is_symlink()
     assert store.load_survey(real).site.reference == "y"
 
@@ -198,7 +199,7 @@ def test_exclusive_save_refuses_an_existing_file(tmp_path):
     path = tmp_path / "site.json"
     path.write_text("not mine")
     with pytest.raises(SurveyFileError, match="already exists"):
-        store.save_survey(model.new_survey("x"), path, exclusive=True)
+        store.save_survey(store.new_survey("x"), path, exclusive=True)
     assert path.read_text() == "not mine"
 
 
@@ -218,7 +219,7 @@ def test_invalid_survey_in_memory_is_not_saved(tmp_path):
 
 def test_survey_with_unwritable_value_is_not_saved(tmp_path):
     """A value msgspec cannot encode (an object, a lone surrogate) gives SurveyFileError."""
-    survey = model.new_survey("x")
+    survey = store.new_survey("x")
     survey.site.notes = "\ud800"
     with pytest.raises(SurveyFileError, match="not saved"):
         store.save_survey(survey, tmp_path / "s.json")
@@ -273,7 +274,7 @@ def test_save_where_the_folder_is_a_file(tmp_path):
     blocker = tmp_path / "notafolder"
     blocker.write_text("x")
     with pytest.raises(SurveyFileError) as err:
-        store.save_survey(model.new_survey("x"), blocker / "s.json")
+        store.save_survey(store.new_survey("x"), blocker / "s.json")
     assert "not a folder" in err.value.problem
     assert sorted(p.name for p in tmp_path.iterdir()) == ["notafolder"]
 
@@ -281,7 +282,7 @@ def test_save_where_the_folder_is_a_file(tmp_path):
 def test_save_into_a_missing_folder(tmp_path):
     """Saving into a folder that does not exist says so."""
     with pytest.raises(SurveyFileError, match="folder does not exist"):
-        store.save_survey(model.new_survey("x"), tmp_path / "nope" / "s.json")
+        store.save_survey(store.new_survey("x"), tmp_path / "nope" / "s.json")
 
 
 _CHILD_PRELUDE = textwrap.dedent("""
@@ -490,7 +491,7 @@ def test_oversized_file_is_refused_before_reading(tmp_path, monkeypatch):
     """A file above MAX_FILE_BYTES is refused with its size, without reading it into memory."""
     path = tmp_path / "big.json"
     path.write_bytes(GOOD)
-    monkeypatch.setattr(store, "MAX_FILE_BYTES", 1000)
+    monkeypatch.setattr(fileio, "MAX_FILE_BYTES", 1000)
     with pytest.raises(SurveyFileError, match="too large"):
         store.load_survey(path)
 
@@ -529,8 +530,8 @@ def test_damaged_backup_is_reported_as_damaged(tmp_path):
 def test_newer_version_does_not_offer_the_backup(tmp_path):
     """A file from a newer program is not damaged, so the backup is not suggested."""
     path = tmp_path / "s.json"
-    store.save_survey(model.new_survey("x"), path)
-    store.save_survey(model.new_survey("x"), path)
+    store.save_survey(store.new_survey("x"), path)
+    store.save_survey(store.new_survey("x"), path)
     path.write_bytes(_with(_set(["schema_version"], 2)))
     with pytest.raises(SurveyFileError) as err:
         store.load_survey(path)
@@ -553,7 +554,7 @@ def test_session_refuses_to_save_over_a_file_changed_on_disk(tmp_path):
     """If another program rewrites the file during an editing session, save refuses and
     keeps the other program's version."""
     path = tmp_path / "s.json"
-    store.save_survey(model.new_survey("mine"), path)
+    store.save_survey(store.new_survey("mine"), path)
     with store.open_for_editing(path) as session:
         other = path.read_bytes().replace(b'"mine"', b'"theirs"')
         path.write_bytes(other)
@@ -565,7 +566,7 @@ def test_session_refuses_to_save_over_a_file_changed_on_disk(tmp_path):
 def test_session_saves_repeatedly(tmp_path):
     """An editing session can save many times in a row (its own saves are not 'changes')."""
     path = tmp_path / "s.json"
-    with store.open_for_editing(path, create=model.new_survey("x")) as session:
+    with store.open_for_editing(path, create=store.new_survey("x")) as session:
         for n in range(5):
             session.survey.site.notes = f"edit {n}"
             session.save()

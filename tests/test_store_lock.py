@@ -16,8 +16,9 @@ from pathlib import Path
 import msgspec
 import pytest
 
-from survey import model, store
+from survey import store
 from survey.errors import SurveyFileError
+from survey.store import lock as store_lock
 
 ROOT = Path(__file__).resolve().parents[1]
 EXAMPLE = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"
@@ -107,7 +108,7 @@ def test_stale_lock_is_refused_when_takeover_is_off(survey_path):
 def test_lock_from_before_a_reboot_is_stale(survey_path):
     """A lock whose boot id differs from this host's was left before a reboot: stale, even
     if its process id is now in use (here: this very process)."""
-    here = store._boot_id()
+    here = store_lock.boot_id()
     if not here:
         pytest.skip("no boot id on this system")
     info = _write_lock(survey_path, pid=os.getpid(), boot_id="0" * len(here))
@@ -116,7 +117,7 @@ def test_lock_from_before_a_reboot_is_stale(survey_path):
 
 def test_live_lock_of_this_host_is_not_stale(survey_path):
     """A lock held by a running process on this host is not stale."""
-    info = _write_lock(survey_path, pid=os.getpid(), boot_id=store._boot_id())
+    info = _write_lock(survey_path, pid=os.getpid(), boot_id=store_lock.boot_id())
     assert not store.lock_is_stale(info)
     with pytest.raises(store.SurveyLocked):
         store.open_for_editing(survey_path)
@@ -162,7 +163,7 @@ def test_session_create_refuses_an_existing_file(survey_path):
     """open_for_editing(create=...) never replaces an existing survey and releases its lock."""
     before = survey_path.read_bytes()
     with pytest.raises(SurveyFileError, match="already exists"):
-        store.open_for_editing(survey_path, create=model.new_survey("x"))
+        store.open_for_editing(survey_path, create=store.new_survey("x"))
     assert survey_path.read_bytes() == before
     assert not store.lock_path(survey_path).exists()
 

@@ -10,8 +10,9 @@ from pathlib import Path
 
 import pytest
 
-from survey import model, store
+from survey import store
 from survey.errors import SurveyFileError
+from survey.store import fileio
 
 ROOT = Path(__file__).resolve().parents[1]
 FLAT = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"
@@ -41,7 +42,7 @@ def test_save_over_a_damaged_file_is_refused_and_keeps_the_good_backup(saved_twi
     damaged = path.read_bytes()[:300]
     path.write_bytes(damaged)
     with pytest.raises(SurveyFileError) as err:
-        store.save_survey(model.new_survey("new"), path)
+        store.save_survey(store.new_survey("new"), path)
     assert "does not load as a survey" in err.value.problem
     assert "truncated" in err.value.problem and "left as it is" in err.value.problem
     assert path.read_bytes() == damaged
@@ -57,7 +58,7 @@ def test_forced_save_over_a_damaged_file_keeps_it_aside(saved_twice):
     good_backup = bak.read_bytes()
     damaged = path.read_bytes()[:300]
     path.write_bytes(damaged)
-    store.save_survey(model.new_survey("new"), path, replace_damaged=True)
+    store.save_survey(store.new_survey("new"), path, replace_damaged=True)
     assert store.load_survey(path).site.reference == "new"
     assert bak.read_bytes() == good_backup
     (kept,) = [p for p in path.parent.iterdir() if ".damaged-" in p.name]
@@ -74,7 +75,7 @@ def test_save_over_a_file_that_is_not_a_survey_is_refused(tmp_path, content, wor
     path = tmp_path / "s.json"
     path.write_bytes(content)
     with pytest.raises(SurveyFileError) as err:
-        store.save_survey(model.new_survey("x"), path)
+        store.save_survey(store.new_survey("x"), path)
     assert words in err.value.problem
     assert path.read_bytes() == content
     assert _names(tmp_path) == ["s.json"]
@@ -83,11 +84,11 @@ def test_save_over_a_file_that_is_not_a_survey_is_refused(tmp_path, content, wor
 def test_file_damaged_after_this_process_saved_it_is_noticed(tmp_path):
     """A file this process wrote and then someone truncated is checked again, not trusted."""
     path = tmp_path / "s.json"
-    store.save_survey(model.new_survey("x"), path)
-    store.save_survey(model.new_survey("y"), path)  # over a file known to load: allowed
+    store.save_survey(store.new_survey("x"), path)
+    store.save_survey(store.new_survey("y"), path)  # over a file known to load: allowed
     path.write_bytes(path.read_bytes()[:-10])
     with pytest.raises(SurveyFileError, match="does not load"):
-        store.save_survey(model.new_survey("z"), path)
+        store.save_survey(store.new_survey("z"), path)
 
 
 def test_read_only_survey_file_is_not_replaced(tmp_path):
@@ -116,7 +117,7 @@ def test_failed_first_save_does_not_say_the_file_is_unchanged(tmp_path, monkeypa
 
     monkeypatch.setattr(os, "replace", full)
     with pytest.raises(SurveyFileError) as err:
-        store.save_survey(model.new_survey("x"), path)
+        store.save_survey(store.new_survey("x"), path)
     assert "disk is full" in err.value.problem and "no file was created" in err.value.problem
     assert "unchanged" not in err.value.problem
     assert _names(tmp_path) == []
@@ -138,8 +139,8 @@ def test_write_file_atomically_never_follows_a_planted_temporary_name(tmp_path):
 def test_write_file_atomically_syncs_the_folder_and_keeps_permissions(tmp_path, monkeypatch):
     """The folder is fsynced after the rename; an existing file keeps its mode."""
     synced = []
-    real = store._fsync_dir
-    monkeypatch.setattr(store, "_fsync_dir", lambda folder: (synced.append(folder), real(folder)))
+    real = fileio.fsync_dir
+    monkeypatch.setattr(fileio, "fsync_dir", lambda folder: (synced.append(folder), real(folder)))
     out = tmp_path / "out.csv"
     out.write_bytes(b"old")
     os.chmod(out, 0o640)
@@ -173,7 +174,7 @@ def test_duplicate_schema_version_keys_are_named_plainly(tmp_path):
 
 def test_a_value_with_one_allowed_number_says_which(tmp_path):
     """A range that allows one value reads 'must be 1', not 'between 1 and 1'."""
-    survey = model.new_survey("x")
+    survey = store.new_survey("x")
     survey.schema_version = 0
     with pytest.raises(SurveyFileError) as err:
         store.save_survey(survey, tmp_path / "s.json")
