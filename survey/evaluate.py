@@ -89,7 +89,7 @@ def is_timber(material: str) -> bool:
 
 
 def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
-              entered: dict[str, bool]) -> assess.Accuracy:
+              entered: dict[str, bool], shared_thermometer: bool = True) -> assess.Accuracy:
     """The worst accuracy of each kind among the instruments used, defaults elsewhere."""
     default = assess.DEFAULT_ACCURACY
     found = {"air_temp_k": None, "rh_pct": None, "surface_temp_k": None}
@@ -111,6 +111,7 @@ def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
         rh_pct=default.rh_pct if found["rh_pct"] is None else found["rh_pct"],
         surface_temp_k=(default.surface_temp_k if found["surface_temp_k"] is None
                         else found["surface_temp_k"]),
+        shared_thermometer=shared_thermometer,
     )
 
 
@@ -156,7 +157,15 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
         odour=seen.odour not in (None, "none"),
         drying_in_progress=drying_in_progress(room_visit),
         drying=drying_equipment(survey, visit, room_visit),
+        water_standing_h=seen.water_standing_h,
+        water_loss_class=seen.water_loss_class,
+        wet_area_pct=seen.wet_area_pct,
+        dense_materials_wet=seen.dense_materials_wet,
+        flued_appliance=(room.flued_appliance if room is not None
+                         and room.flued_appliance is not None
+                         else survey.site.flued_appliance),
     )
+    activities = _activities(room)
     instruments = [room_visit.air.instrument, *(s.instrument for s in room_visit.surfaces)]
     return assess.RoomInput(
         name=room.name if room is not None else room_visit.room,
@@ -168,8 +177,34 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
         occupants=room.occupants if room is not None else None,
         materials=materials,
         observations=observations,
-        accuracy=_accuracy(survey, instruments, entered),
+        accuracy=_accuracy(survey, instruments, entered, _shared_thermometer(visit, room_visit)),
+        activities=activities,
+        laundry_loads_per_day=None if room is None else room.laundry_loads_per_day,
     )
+
+
+def _activities(room: model.Room | None) -> tuple[assess.Activity, ...]:
+    """The room's usual showers, baths and cooking, as hours a day of each activity."""
+    if room is None:
+        return ()
+    found = []
+    if room.showers_per_day:
+        found.append(assess.Activity(
+            "shower", room.showers_per_day * th.value("shower_minutes") / 60.0))
+    if room.baths_per_day:
+        found.append(assess.Activity("bath", room.baths_per_day * th.value("bath_minutes") / 60.0))
+    if room.cooking_hours_per_day:
+        found.append(assess.Activity("cooking", room.cooking_hours_per_day))
+    return tuple(found)
+
+
+def _shared_thermometer(visit: model.Visit, room_visit: model.RoomVisit) -> bool:
+    """Whether one thermometer read the room and the outdoor air: the same instrument, or
+    either not said (the usual case on site, and the assumption then)."""
+    if visit.outdoor is None:
+        return True
+    indoor, outdoor = room_visit.air.instrument, visit.outdoor.instrument
+    return indoor is None or outdoor is None or indoor == outdoor
 
 
 def assess_visit(survey: model.Survey, visit_index: int = -1,

@@ -81,7 +81,7 @@ InstrumentKind = Literal[
 ]
 RoomUse = Literal[
     "bedroom", "bathroom", "kitchen", "living", "basement", "crawlspace", "loft",
-    "office", "storage", "hallway", "other",
+    "office", "storage", "hallway", "utility", "other",
 ]
 Element = Literal[
     "external_wall", "internal_wall", "ceiling", "floor", "window_frame", "glazing", "pipe",
@@ -160,6 +160,9 @@ class Site(Struct, **_RECORD):
     pressure_pa: PressurePa | None = None
     construction: Text = ""  #: e.g. "1960s concrete frame, cavity brick infill"
     year_built: Annotated[int, Meta(ge=1000, le=2200)] | None = None
+    #: An open-flued boiler, water heater, stove or fire anywhere in the building: true,
+    #: false, or not said (null). A room may say for itself.
+    flued_appliance: bool | None = None
     notes: Notes = ""
 
 
@@ -198,6 +201,14 @@ class Room(Struct, **_RECORD):
     occupants: Annotated[int, Meta(ge=0, le=domain.OCCUPANTS_MAX)] = 0
     #: True for an unaffected room used as the reference (dry standard, normal conditions).
     is_reference: bool = False
+    #: The room's usual moisture-producing use, for the moisture load (not said: a wet
+    #: room's typical use is assumed).
+    showers_per_day: Annotated[float, Meta(ge=0.0, le=100.0)] | None = None
+    baths_per_day: Annotated[float, Meta(ge=0.0, le=100.0)] | None = None
+    cooking_hours_per_day: Annotated[float, Meta(ge=0.0, le=24.0)] | None = None
+    laundry_loads_per_day: Annotated[float, Meta(ge=0.0, le=50.0)] | None = None
+    #: An open-flued appliance in this room: true, false, or not said (the site's answer).
+    flued_appliance: bool | None = None
     notes: Notes = ""
 
     def volume_estimate_m3(self) -> float | None:
@@ -258,6 +269,15 @@ class Observations(Struct, **_RECORD):
     condensation_seen: bool = False
     odour: Odour | None = None  #: ``None``: not recorded
     water_category: WaterCategory | None = None
+    #: How long the water had stood when seen, hours (category 1 and 2 degrade).
+    water_standing_h: Annotated[float, Meta(ge=0.0, le=100_000.0)] | None = None
+    #: The class of water loss, 1 (least evaporation load) to 4 (bound water in dense
+    #: materials), when the surveyor set it.
+    water_loss_class: Literal[1, 2, 3, 4] | None = None
+    #: Share of the room's floor, wall and ceiling area that is wet, %.
+    wet_area_pct: Annotated[float, Meta(ge=0.0, le=100.0)] | None = None
+    #: Dense materials (hardwood, plaster, concrete, masonry) hold water.
+    dense_materials_wet: bool = False
     notes: Notes = ""
 
 

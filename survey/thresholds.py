@@ -445,7 +445,8 @@ def cited(keys: Iterable[str]) -> list[Threshold]:
 # --- room uses and their temperature-factor limits ---------------------------------------------
 
 ROOM_USES: tuple[str, ...] = ("bedroom", "bathroom", "kitchen", "living", "basement",
-                              "crawlspace", "loft", "office", "storage", "hallway", "other")
+                              "crawlspace", "loft", "office", "storage", "hallway", "utility",
+                              "other")
 
 
 @dataclass(frozen=True, slots=True)
@@ -507,6 +508,9 @@ ROOM_USE_POLICY: dict[str, RoomUse] = {u.use: u for u in (
             "a heated, habitable basement is a dwelling space (0.75): our choice",
             ours=True, ground_contact=True, confined=True, closed_up=True),
     RoomUse("storage", "frsi_storage", "BRE IP1/06: storage buildings 0.50", closed_up=True),
+    RoomUse("utility", "frsi_high_humidity",
+            "a utility room, with laundry and its moisture bursts: treated like a kitchen "
+            "(0.80), our choice on the safe side", ours=True, wet_room=True),
     RoomUse("crawlspace", None,
             "an unheated space outside the heated envelope: no temperature-factor limit",
             ground_contact=True, confined=True, ventilated_space=True, closed_up=True),

@@ -234,13 +234,15 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
 
 def _materials_load(finding: RoomFinding):
     """(L/day leaving wet materials, class, assumed, keys) for a room being dried whose
-    materials read above the dry standard and whose volume is known; else None."""
+    volume is known, when its class of water loss is given or worked out, or its materials
+    read above the dry standard (a class is then assumed); else None."""
     obs = finding.room.observations
-    wet = any(m.dry_standard_state is DryStandardState.ABOVE for m in finding.materials)
-    if not (obs.drying_in_progress and wet) or finding.room.volume_m3 is None:
+    if not obs.drying_in_progress or finding.room.volume_m3 is None:
         return None
     loss_class, assumed, keys = loads.water_loss_class(obs)
     if loss_class is None:
+        if not any(m.dry_standard_state is DryStandardState.ABOVE for m in finding.materials):
+            return None  # nothing says materials are wet
         loss_class, assumed = int(th.value("water_loss_class_assumed")), True
         keys = ("water_loss_class_assumed",)
     return (loads.materials_load_l_per_day(finding.room.volume_m3, loss_class), loss_class,

@@ -21,13 +21,14 @@ from __future__ import annotations
 
 import argparse
 import json
-import math
 import sys
-from typing import Callable
 
 from survey import advise, assess, domain, psychro, units
 from survey import thresholds as th
 from survey.errors import InputError
+from survey.commands.check_parse import (_SurfaceOption, _accuracy_option, _option,
+                                         _parse_mould_area, _parse_occupants, _parse_volume,
+                                         _plausibility, _surfaces)
 from survey.quick import AccuracyGiven, QuickInput, QuickResult, judge
 
 DESCRIPTION = (
@@ -41,32 +42,6 @@ DESCRIPTION = (
     f"±{th.value('accuracy_air_temp_k'):g} K, RH ±{th.value('accuracy_rh_pct'):g} %, surface "
     f"±{th.value('accuracy_surface_temp_k'):g} K); the output says which were used."
 )
-
-VOLUME_MIN_M3 = domain.ROOM_VOLUME_MIN_M3
-VOLUME_MAX_M3 = domain.ROOM_VOLUME_MAX_M3
-OCCUPANTS_MAX = domain.OCCUPANTS_MAX
-#: A bare SI air temperature above this is more likely °F typed without --units ip: a
-#: warning (not an error) says how it was read. A plausibility cue of this face only.
-PLAUSIBLE_SI_AIR_TEMP_MAX_C = 40.0
-
-#: The surface options: option -> (element, label of an unnamed surface).
-_SURFACE_OPTIONS = {
-    "--surface-temp": ("other", "Surface"),
-    "--glazing-temp": ("glazing", "Glazing"),
-    "--frame-temp": ("window_frame", "Window frame"),
-    "--pipe-temp": ("pipe", "Pipe"),
-    "--surface": (None, None),
-}
-
-
-class _SurfaceOption(argparse.Action):
-    """Collects every surface option, in the order typed, as (option, text)."""
-
-    def __call__(self, parser, namespace, values, option_string=None):
-        found = list(getattr(namespace, self.dest, None) or [])
-        found.append((option_string, values))
-        setattr(namespace, self.dest, found)
-
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     parser = subparsers.add_parser(
@@ -115,6 +90,35 @@ def register(subparsers: argparse._SubParsersAction) -> None:
     room.add_argument("--mould-area", metavar="AREA",
                       help="area of visible mould, m² for si, ft² for ip, or with m2 / ft2 "
                            "(implies --mould-seen); sets the small / medium / large guidance")
+    use = parser.add_argument_group("the room's use (for its moisture load; a bathroom, kitchen "
+                                    "or utility room with none given gets its typical use)")
+    use.add_argument("--showers-per-day", metavar="N", help="showers taken a day")
+    use.add_argument("--baths-per-day", metavar="N", help="baths taken a day")
+    use.add_argument("--cooking-hours", metavar="H", help="hours of cooking a day")
+    use.add_argument("--laundry-loads", metavar="N", help="wash loads dried indoors a day")
+    water = parser.add_argument_group("water damage and combustion air")
+    water.add_argument("--water-category", type=int, choices=(1, 2, 3), metavar="1|2|3",
+                       help="category of the water that got in: 1 clean, 2 significantly "
+                            "contaminated, 3 grossly contaminated (sewage, flood)")
+    water.add_argument("--water-standing-hours", metavar="H",
+                       help="how long the water has stood (clean water degrades to category "
+                            "2, and category 2 to 3)")
+    water.add_argument("--water-loss-class", type=int, choices=(1, 2, 3, 4), metavar="1-4",
+                       help="class of water loss, 1 (least evaporation load) to 4 (bound "
+                            "water in dense materials); sets the drying load")
+    water.add_argument("--wet-area-pct", metavar="PCT",
+                       help="share of the room's floor, wall and ceiling area that is wet, "
+                            "for the class of water loss")
+    water.add_argument("--dense-materials-wet", action="store_true",
+                       help="hardwood, plaster, concrete or masonry holds water (class 4)")
+    water.add_argument("--drying", action="store_true",
+                       help="drying equipment is running in the room (it is kept closed and "
+                            "dehumidified)")
+    water.add_argument("--flued-appliance", type=str.lower, choices=("yes", "no"),
+                       metavar="yes|no",
+                       help="an open-flued boiler, water heater, stove or fire in the room or "
+                            "the building (not said: the combustion-air caution is shown "
+                            "wherever the advice closes the space up or extracts air)")
     accuracy = parser.add_argument_group("instrument accuracy (± each)")
     accuracy.add_argument("--air-temp-accuracy", metavar="K",
                           help="air thermometer, K for si, °F for ip (default "
@@ -125,136 +129,16 @@ def register(subparsers: argparse._SubParsersAction) -> None:
     accuracy.add_argument("--surface-temp-accuracy", metavar="K",
                           help="surface thermometer, K for si, °F for ip (default "
                                f"{th.value('accuracy_surface_temp_k'):g} K)")
+    accuracy.add_argument("--outdoor-thermometer", type=str.lower, choices=("same", "separate"),
+                          default="same", metavar="same|separate",
+                          help="whether the room thermometer also read the outdoor air (the "
+                               "usual case, and the default: the two readings' errors are "
+                               "correlated in the temperature factor, GUM 5.2)")
     parser.add_argument("--units", type=str.lower, choices=units.UNIT_SYSTEMS, default="si",
                         help="unit system for bare numbers and for the table (default si)")
     parser.add_argument("--json", action="store_true",
                         help="print one JSON object with SI keys instead of a table")
     parser.set_defaults(handler=run)
-
-
-def _option(option: str, text: str, parse: Callable[[str], float],
-            check: Callable[[float, str], None] | None = None) -> float:
-    """Parse and range-check one option; any error names the option and the text as typed."""
-    try:
-        value = parse(text)
-        if check is not None:
-            check(value, option)
-    except InputError as exc:
-        raise InputError(option, text, exc.allowed) from None
-    return value
-
-
-def _is_bare_number(text: str) -> bool:
-    """A number with no unit (a lone degree sign follows the unit system, so counts)."""
-    try:
-        units.parse_number(str(text).strip().rstrip("°º").strip())
-    except InputError:
-        return False
-    return True
-
-
-def _plausibility(option: str, text: str, value_c: float, system: str) -> str | None:
-    """A warning line when a bare SI air temperature is more likely meant in °F."""
-    if system == "si" and value_c > PLAUSIBLE_SI_AIR_TEMP_MAX_C and _is_bare_number(text):
-        return (f"{option} {text}: read as {value_c:g} °C; for °F use --units ip or "
-                f"{str(text).strip()}F")
-    return None
-
-
-def _parse_volume(text: str, system: units.UnitSystem) -> float:
-    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``; pint only for a suffix."""
-    volume = units.parse_volume(text, "--room-volume", system)
-    if not VOLUME_MIN_M3 <= volume <= VOLUME_MAX_M3:
-        raise InputError("--room-volume", text,
-                         f"room volume must be between {VOLUME_MIN_M3:g} and "
-                         f"{VOLUME_MAX_M3:g} m³")
-    return volume
-
-
-_FT2_PER_M2 = 1.0 / 0.3048 ** 2  # 1 ft = 0.3048 m exactly
-
-
-def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
-    """A visible-mould area in m² (a bare number is m² in si, ft² in ip; "m2", "ft2",
-    "sq ft" may follow it), above 0 and up to the survey file's limit."""
-    raw = str(text).strip()
-    lowered = raw.lower()
-    factor = 1.0 if system == "si" else 1.0 / _FT2_PER_M2
-    for suffix, to_m2 in (("sq ft", 1.0 / _FT2_PER_M2), ("ft2", 1.0 / _FT2_PER_M2),
-                          ("ft²", 1.0 / _FT2_PER_M2), ("m2", 1.0), ("m²", 1.0)):
-        if lowered.endswith(suffix):
-            raw, factor = raw[: -len(suffix)].strip(), to_m2
-            break
-    unit = "m²" if system == "si" else "ft²"
-    allowed = (f"an area above 0 and up to {domain.MOULD_AREA_MAX_M2:g} m², e.g. 0.5 "
-               f"(a bare number is {unit}; m2 or ft2 may follow it)")
-    try:
-        area = units.parse_number(raw, "--mould-area") * factor
-    except InputError:
-        raise InputError("--mould-area", text, allowed) from None
-    if math.isnan(area) or not 0.0 < area <= domain.MOULD_AREA_MAX_M2:
-        raise InputError("--mould-area", text, allowed)
-    return area
-
-
-def _parse_occupants(text: str) -> int:
-    allowed = f"expected a whole number of people from 0 to {OCCUPANTS_MAX}"
-    try:
-        number = units.parse_number(text, "--occupants")
-    except InputError:
-        raise InputError("--occupants", text, allowed) from None
-    if number != math.floor(number) or not 0 <= number <= OCCUPANTS_MAX:
-        raise InputError("--occupants", text, allowed)
-    return int(number)
-
-
-def _accuracy_option(option: str, text: str | None, parse: Callable[[str], float],
-                     default_key: str, top: float, unit: str) -> tuple[float, bool]:
-    if text is None:
-        return th.value(default_key), False
-    value = _option(option, text, parse)
-    if not 0.0 <= value <= top:
-        raise InputError(option, text, f"accuracy must be between 0 and {top:g} {unit}")
-    return value, True
-
-
-def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem
-              ) -> list[assess.SurfaceInput]:
-    """The surfaces typed, in order, each with its element and a label."""
-    counts: dict[str, int] = {}
-    found = []
-
-    def temperature(option: str, text: str) -> float:
-        return _option(option, text, lambda t: units.parse_temperature(t, option, system),
-                       psychro.check_surface_temp)
-
-    for option, text in specs:
-        element, prefix = _SURFACE_OPTIONS[option]
-        label = ""
-        if element is None:
-            parts = str(text).split(":", 2)
-            if len(parts) < 2 or not parts[1].strip():
-                raise InputError(option, text, "expected ELEMENT:TEMPERATURE or "
-                                               "ELEMENT:TEMPERATURE:LABEL, e.g. "
-                                               "external_wall:11.2:NE corner")
-            try:
-                policy = th.check_element(parts[0].strip(), option)
-            except InputError as exc:
-                raise InputError(option, text, "element " + exc.allowed) from None
-            element = policy.element
-            prefix = policy.words.capitalize()
-            try:
-                temp = temperature(option, parts[1].strip())
-            except InputError as exc:
-                raise InputError(option, text, exc.allowed) from None
-            label = parts[2].strip() if len(parts) == 3 else ""
-        else:
-            temp = temperature(option, text)
-        if not label:
-            counts[prefix] = counts.get(prefix, 0) + 1
-            label = f"{prefix} {counts[prefix]}"
-        found.append(assess.SurfaceInput(label, temp, element))
-    return found
 
 
 def gather(args: argparse.Namespace) -> QuickInput:
@@ -318,11 +202,32 @@ def gather(args: argparse.Namespace) -> QuickInput:
         "--surface-temp-accuracy", args.surface_temp_accuracy,
         lambda t: units.parse_temperature_difference(t, "--surface-temp-accuracy", system),
         "accuracy_surface_temp_k", domain.SURFACE_TEMP_ACCURACY_MAX_K, "K")
+    def count(option: str, text: str | None, top: float) -> float | None:
+        if text is None:
+            return None
+        value = _option(option, text, lambda t: units.parse_number(t, option))
+        if not 0.0 <= value <= top:
+            raise InputError(option, text, f"expected a number from 0 to {top:g}")
+        return value
+
     return QuickInput(
         air_temp_c=air_temp, rh_pct=rh, pressure_pa=pressure, surfaces=tuple(surfaces),
         outdoor=outdoor, use=args.use, volume_m3=volume, occupants=occupants,
         target_rh_pct=target, mould_seen=bool(args.mould_seen or mould_area > 0.0),
-        mould_area_m2=mould_area, accuracy=assess.Accuracy(air_acc, rh_acc, surf_acc),
+        mould_area_m2=mould_area,
+        accuracy=assess.Accuracy(air_acc, rh_acc, surf_acc,
+                                 shared_thermometer=args.outdoor_thermometer == "same"),
+        showers_per_day=count("--showers-per-day", args.showers_per_day, 100.0),
+        baths_per_day=count("--baths-per-day", args.baths_per_day, 100.0),
+        cooking_hours_per_day=count("--cooking-hours", args.cooking_hours, 24.0),
+        laundry_loads_per_day=count("--laundry-loads", args.laundry_loads, 50.0),
+        water_category=args.water_category,
+        water_standing_h=count("--water-standing-hours", args.water_standing_hours, 100_000.0),
+        water_loss_class=args.water_loss_class,
+        wet_area_pct=count("--wet-area-pct", args.wet_area_pct, 100.0),
+        dense_materials_wet=args.dense_materials_wet,
+        drying=args.drying,
+        flued_appliance=None if args.flued_appliance is None else args.flued_appliance == "yes",
         accuracy_given=AccuracyGiven(air_given, rh_given, surf_given),
         warnings=tuple(warnings))
 

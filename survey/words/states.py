@@ -20,7 +20,7 @@ from survey.words.display import Display, round_down_rh
 USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
               "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
               "loft": "a loft", "office": "an office", "storage": "a store room",
-              "hallway": "a hallway", "other": None}
+              "hallway": "a hallway", "utility": "a utility room", "other": None}
 
 #: The short phrase for a state the instruments cannot settle.
 CANNOT_TELL = "unclear at this accuracy"

@@ -1,0 +1,161 @@
+"""Parsing ``survey check``'s option texts into SI values, each error naming the option."""
+
+from __future__ import annotations
+
+import argparse
+import math
+from typing import Callable
+
+from survey import assess, domain, psychro, units
+from survey import thresholds as th
+from survey.errors import InputError
+
+VOLUME_MIN_M3 = domain.ROOM_VOLUME_MIN_M3
+VOLUME_MAX_M3 = domain.ROOM_VOLUME_MAX_M3
+OCCUPANTS_MAX = domain.OCCUPANTS_MAX
+#: A bare SI air temperature above this is more likely °F typed without --units ip: a
+#: warning (not an error) says how it was read. A plausibility cue of this face only.
+PLAUSIBLE_SI_AIR_TEMP_MAX_C = 40.0
+
+#: The surface options: option -> (element, label of an unnamed surface).
+_SURFACE_OPTIONS = {
+    "--surface-temp": ("other", "Surface"),
+    "--glazing-temp": ("glazing", "Glazing"),
+    "--frame-temp": ("window_frame", "Window frame"),
+    "--pipe-temp": ("pipe", "Pipe"),
+    "--surface": (None, None),
+}
+
+
+class _SurfaceOption(argparse.Action):
+    """Collects every surface option, in the order typed, as (option, text)."""
+
+    def __call__(self, parser, namespace, values, option_string=None):
+        found = list(getattr(namespace, self.dest, None) or [])
+        found.append((option_string, values))
+        setattr(namespace, self.dest, found)
+
+
+def _option(option: str, text: str, parse: Callable[[str], float],
+            check: Callable[[float, str], None] | None = None) -> float:
+    """Parse and range-check one option; any error names the option and the text as typed."""
+    try:
+        value = parse(text)
+        if check is not None:
+            check(value, option)
+    except InputError as exc:
+        raise InputError(option, text, exc.allowed) from None
+    return value
+
+
+def _is_bare_number(text: str) -> bool:
+    """A number with no unit (a lone degree sign follows the unit system, so counts)."""
+    try:
+        units.parse_number(str(text).strip().rstrip("°º").strip())
+    except InputError:
+        return False
+    return True
+
+
+def _plausibility(option: str, text: str, value_c: float, system: str) -> str | None:
+    """A warning line when a bare SI air temperature is more likely meant in °F."""
+    if system == "si" and value_c > PLAUSIBLE_SI_AIR_TEMP_MAX_C and _is_bare_number(text):
+        return (f"{option} {text}: read as {value_c:g} °C; for °F use --units ip or "
+                f"{str(text).strip()}F")
+    return None
+
+
+def _parse_volume(text: str, system: units.UnitSystem) -> float:
+    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``; pint only for a suffix."""
+    volume = units.parse_volume(text, "--room-volume", system)
+    if not VOLUME_MIN_M3 <= volume <= VOLUME_MAX_M3:
+        raise InputError("--room-volume", text,
+                         f"room volume must be between {VOLUME_MIN_M3:g} and "
+                         f"{VOLUME_MAX_M3:g} m³")
+    return volume
+
+
+_FT2_PER_M2 = 1.0 / 0.3048 ** 2  # 1 ft = 0.3048 m exactly
+
+
+def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
+    """A visible-mould area in m² (a bare number is m² in si, ft² in ip; "m2", "ft2",
+    "sq ft" may follow it), above 0 and up to the survey file's limit."""
+    raw = str(text).strip()
+    lowered = raw.lower()
+    factor = 1.0 if system == "si" else 1.0 / _FT2_PER_M2
+    for suffix, to_m2 in (("sq ft", 1.0 / _FT2_PER_M2), ("ft2", 1.0 / _FT2_PER_M2),
+                          ("ft²", 1.0 / _FT2_PER_M2), ("m2", 1.0), ("m²", 1.0)):
+        if lowered.endswith(suffix):
+            raw, factor = raw[: -len(suffix)].strip(), to_m2
+            break
+    unit = "m²" if system == "si" else "ft²"
+    allowed = (f"an area above 0 and up to {domain.MOULD_AREA_MAX_M2:g} m², e.g. 0.5 "
+               f"(a bare number is {unit}; m2 or ft2 may follow it)")
+    try:
+        area = units.parse_number(raw, "--mould-area") * factor
+    except InputError:
+        raise InputError("--mould-area", text, allowed) from None
+    if math.isnan(area) or not 0.0 < area <= domain.MOULD_AREA_MAX_M2:
+        raise InputError("--mould-area", text, allowed)
+    return area
+
+
+def _parse_occupants(text: str) -> int:
+    allowed = f"expected a whole number of people from 0 to {OCCUPANTS_MAX}"
+    try:
+        number = units.parse_number(text, "--occupants")
+    except InputError:
+        raise InputError("--occupants", text, allowed) from None
+    if number != math.floor(number) or not 0 <= number <= OCCUPANTS_MAX:
+        raise InputError("--occupants", text, allowed)
+    return int(number)
+
+
+def _accuracy_option(option: str, text: str | None, parse: Callable[[str], float],
+                     default_key: str, top: float, unit: str) -> tuple[float, bool]:
+    if text is None:
+        return th.value(default_key), False
+    value = _option(option, text, parse)
+    if not 0.0 <= value <= top:
+        raise InputError(option, text, f"accuracy must be between 0 and {top:g} {unit}")
+    return value, True
+
+
+def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem
+              ) -> list[assess.SurfaceInput]:
+    """The surfaces typed, in order, each with its element and a label."""
+    counts: dict[str, int] = {}
+    found = []
+
+    def temperature(option: str, text: str) -> float:
+        return _option(option, text, lambda t: units.parse_temperature(t, option, system),
+                       psychro.check_surface_temp)
+
+    for option, text in specs:
+        element, prefix = _SURFACE_OPTIONS[option]
+        label = ""
+        if element is None:
+            parts = str(text).split(":", 2)
+            if len(parts) < 2 or not parts[1].strip():
+                raise InputError(option, text, "expected ELEMENT:TEMPERATURE or "
+                                               "ELEMENT:TEMPERATURE:LABEL, e.g. "
+                                               "external_wall:11.2:NE corner")
+            try:
+                policy = th.check_element(parts[0].strip(), option)
+            except InputError as exc:
+                raise InputError(option, text, "element " + exc.allowed) from None
+            element = policy.element
+            prefix = policy.words.capitalize()
+            try:
+                temp = temperature(option, parts[1].strip())
+            except InputError as exc:
+                raise InputError(option, text, exc.allowed) from None
+            label = parts[2].strip() if len(parts) == 3 else ""
+        else:
+            temp = temperature(option, text)
+        if not label:
+            counts[prefix] = counts.get(prefix, 0) + 1
+            label = f"{prefix} {counts[prefix]}"
+        found.append(assess.SurfaceInput(label, temp, element))
+    return found
