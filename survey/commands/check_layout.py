@@ -69,6 +69,7 @@ def encode(result: QuickResult, d: words.Display) -> dict[str, Any]:
         "accuracy": {
             "air_temp_k": acc.air_temp_k, "rh_pct": acc.rh_pct,
             "surface_temp_k": acc.surface_temp_k,
+            "shared_thermometer": acc.shared_thermometer,
             "given": {"air_temp_k": given.accuracy_given.air_temp_k,
                       "rh_pct": given.accuracy_given.rh_pct,
                       "surface_temp_k": given.accuracy_given.surface_temp_k},
@@ -235,8 +236,7 @@ def room_lines(result: QuickResult, d: words.Display) -> list[str]:
             f"(± {d('vapour_pressure', f.vapour_pressure_excess_uncertainty_pa)}) above "
             f"outdoors{spread}. Classes are defined for monthly means; a spot reading is a "
             f"guide.")
-    lines.append(f"Timber in this air settles at about {f.timber_emc_pct:.1f} % moisture "
-                 f"content (Wood Handbook eqn 4-5).")
+    lines.append(words.timber_emc_text(f, d))
     return lines
 
 
@@ -294,10 +294,16 @@ def render(result: QuickResult, d: words.Display) -> None:
     acc = result.input.accuracy
     note = ("typical specifications, none entered" if not given.any
             else "as entered" if given.all else "typical specifications where none was entered")
+    thermometer = ""
+    if result.outdoor is not None:
+        thermometer = (" For the temperature factor, one thermometer read the room and the "
+                       "outdoor air (its errors taken as correlated)." if acc.shared_thermometer
+                       else " For the temperature factor, separate thermometers read the room "
+                            "and the outdoor air.")
     console.print(Text(f"Instrument accuracy: air ±{d.difference(acc.air_temp_k)}, RH "
                        f"±{acc.rh_pct:g} %, surface ±{d.difference(acc.surface_temp_k)} "
                        f"({note}). Ranges and ± are expanded uncertainties (about 95 % "
-                       f"coverage)."))
+                       f"coverage).{thermometer}"))
     if f.surfaces:
         readings = Table(title="Surfaces: readings", title_justify="left")
         for name, right in (("Surface", False), ("Kind", False), ("Temp.", True),

@@ -15,7 +15,8 @@ from survey.words.states import (CANNOT_TELL, CANNOT_TELL_EXPLAINED, ELEMENT_WOR
                                  HUMIDITY_CLASS_EXAMPLES, USE_PHRASE, condensation_text,
                                  factor_not_judged_reason, factor_text,
                                  humidity_class_range_text, humidity_class_text, mould_text,
-                                 rh_limit_text, short_verdict, surface_rh_text, worst_first)
+                                 rh_limit_text, short_verdict, surface_rh_text,
+                                 timber_emc_text, worst_first)
 
 __all__ = [
     "CANNOT_TELL", "CANNOT_TELL_EXPLAINED", "CLOSING_TEXT", "ELEMENT_WORDS",
@@ -25,6 +26,7 @@ __all__ = [
     "humidity_class_range_text", "humidity_class_text", "legend", "limit_value_text",
     "moisture_basis", "mould_text", "rh_limit_shown", "rh_limit_text", "round_down_rh",
     "round_up_temperature_c", "short_verdict", "surface_rh_text", "target_basis",
+    "timber_emc_text",
     "worst_first",
 ]
 

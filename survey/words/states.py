@@ -241,3 +241,16 @@ def humidity_class_range_text(possible: Iterable[int]) -> str:
     else:
         text = f"class {plain[0]} to {plain[-1]}"
     return f"{text} or {ABOVE_CLASS_5_TEXT}" if above else text
+
+
+def timber_emc_text(finding: RoomFinding, d: Display) -> str:
+    """What moisture content timber settles at in the room air, or why it is not said."""
+    if finding.timber_emc_pct is None:
+        return (f"Timber moisture in this air is not estimated: the Wood Handbook equation "
+                f"(eqn 4-5) is used only from "
+                f"{d.temperature(th.value('timber_emc_equation_min_c'), 0)} to "
+                f"{d.temperature(th.value('timber_emc_equation_max_c'), 0)} and up to "
+                f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH; measure the timber "
+                f"with a pin meter instead.")
+    return (f"Timber in this air settles at about {finding.timber_emc_pct:.1f} % moisture "
+            f"content (Wood Handbook eqn 4-5).")
