@@ -119,6 +119,13 @@ def check_unknown_options(parser: argparse.ArgumentParser, tokens: Sequence[str]
         target.error(f"unknown option {name}{hint}")
 
 
+def _safe(exc: Exception) -> str:
+    """An error as one short line with every control character made visible."""
+    from survey.safe_text import shorten
+
+    return shorten(str(exc), 600)
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     parser = build_parser()
     tokens = sys.argv[1:] if argv is None else list(argv)
@@ -131,10 +138,10 @@ def main(argv: Sequence[str] | None = None) -> int:
     try:
         return int(handler(args) or EXIT_OK)
     except InputError as exc:
-        print(f"survey: {exc}", file=sys.stderr)
+        print(f"survey: {_safe(exc)}", file=sys.stderr)
         return EXIT_INPUT_ERROR
     except SurveyFileError as exc:
-        print(f"survey: {exc}", file=sys.stderr)
+        print(f"survey: {_safe(exc)}", file=sys.stderr)
         return EXIT_FILE_ERROR
     except KeyboardInterrupt:
         print("survey: interrupted. Survey files are saved whole or not at all, so each is "
