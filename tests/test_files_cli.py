@@ -135,7 +135,7 @@ def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys)
     pressure = 101325 * (1 - 2.25577e-5 * survey.site.altitude_m) ** 5.2559  # ASHRAE ch. 1 eqn 3
     bedroom = next(r for r in rows if r["kind"] == "room_air" and r["room_id"] == "bed1")
     t, rh = float(bedroom["dry_bulb_c"]), float(bedroom["rh_pct"])
-    assert float(bedroom["pressure_hpa"]) == pytest.approx(pressure / 100, abs=0.05)
+    assert float(bedroom["pressure_pa"]) == pytest.approx(pressure, abs=1)  # written to 1 Pa
     dew = HAPropsSI("D", "T", t + 273.15, "P", pressure, "R", rh / 100) - 273.15
     w = HAPropsSI("W", "T", t + 273.15, "P", pressure, "R", rh / 100)
     assert float(bedroom["dew_point_c"]) == pytest.approx(dew, abs=0.05)
@@ -143,7 +143,7 @@ def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys)
     corner = next(r for r in rows if r["kind"] == "surface" and "wardrobe" in r["location"])
     assert corner["element"] == "external_wall" and corner["mould_visible"] == "yes"
     ts = float(corner["surface_temp_c"])
-    assert float(corner["margin_to_condensation_k"]) == pytest.approx(ts - dew, abs=0.06)
+    assert float(corner["dew_point_margin_k"]) == pytest.approx(ts - dew, abs=0.06)
     vapour = float(bedroom["vapour_pressure_pa"])
     saturation_at_surface = HAPropsSI("P_w", "T", ts + 273.15, "P", pressure, "R", 1.0)
     # CoolProp's saturated vapour pressure in air includes the enhancement factor (about
@@ -161,7 +161,7 @@ def test_export_in_ip_units(tmp_path):
     assert outdoor["kind"] == "outdoor_air"
     assert float(outdoor["dry_bulb_f"]) == pytest.approx(6.0 * 9 / 5 + 32)
     w = HAPropsSI("W", "T", 6.0 + 273.15, "P", 101325 * (1 - 2.25577e-5 * 62) ** 5.2559, "R", 0.88)
-    assert float(outdoor["humidity_ratio_gr_per_lb"]) == pytest.approx(7000 * w, rel=0.007)
+    assert float(outdoor["grains_per_pound"]) == pytest.approx(7000 * w, rel=0.007)
     outlets = [r for r in rows if r["kind"] == "dehumidifier_outlet"]
     assert len(outlets) == 3 and all(float(r["grain_depression_gr_per_lb"]) > 0 for r in outlets)
 
@@ -193,9 +193,10 @@ def test_export_of_a_damaged_survey_exits_1(tmp_path, capsys):
 
 # --- import-log --------------------------------------------------------------------------
 
+# An invented °F layout: a title line, a row-number column, US dates with AM/PM.
 LOG = (
-    '"Plot Title: Main bedroom"\r\n'
-    '"#","Date Time, GMT+00:00","Temp, °F","RH, %"\r\n'
+    '"Unit 7 - main bedroom"\r\n'
+    '"No.","Sample time, local","Air temp, °F","Rel. humidity, %"\r\n'
     "1,01/15/25 10:00:00 AM,63.5,72.0\r\n"
     "2,01/15/25 10:30:00 AM,63.9,71.0\r\n"
     "3,01/15/25 11:00:00 AM,Err,70.0\r\n"
@@ -346,7 +347,7 @@ def test_import_log_summary_names_where_the_unit_came_from(flat_and_log, capsys,
                  "--temp-unit", "c"]) == 0
     out = capsys.readouterr().out
     assert "(°C, unit as given by --temp-unit)" in out and "the stated" not in out
-    assert "The header says °F; --temp-unit c was given: the temperatures are read as °C." in out
+    assert "The header says °F; °C was stated: the temperatures are read as °C." in out
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run"]) == 0
     assert "(°F, converted to °C, unit from the header)" in capsys.readouterr().out
 
@@ -393,7 +394,7 @@ def test_validate_says_a_lock_is_stale(tmp_path, capsys):
     store.lock_path(path).write_bytes(msgspec.json.encode(info))
     assert main(["validate", str(path)]) == 0
     out = capsys.readouterr().out
-    assert "a stale lock from avery" in out and "left by a process that is gone" in out
+    assert "a stale lock from avery" in out and "its process is gone" in out
     assert "open for editing" not in out
 
 
@@ -433,7 +434,7 @@ def test_export_neutralises_spreadsheet_formulas(tmp_path):
     cells = [r["location"] for r in rows if r["kind"] == "surface"][:len(texts)]
     assert cells == ["'" + t for t in texts[:6]] + ["plain text", "-5"]
     outdoor = rows[0]
-    assert outdoor["dry_bulb_c"] == "-3.5" and outdoor["dew_point_c"].startswith("-")
+    assert outdoor["dry_bulb_c"] == "-3.50" and outdoor["dew_point_c"].startswith("-")
 
 
 def test_export_writes_through_the_store_s_crash_safe_writer(tmp_path, capsys):

@@ -1,7 +1,10 @@
 """Reading data-logger CSV files: header spellings, units, dates, separators, skipped rows.
 
 Fahrenheit is converted by the scale's definition, t_C = (t_F − 32) × 5/9 (so 68 °F is
-exactly 20 °C and 50 °F exactly 10 °C); every sample file here is written by the test.
+exactly 20 °C and 50 °F exactly 10 °C). Every sample file here is written by the test, in
+layouts of our own invention that vary what real exports vary: title lines above the header,
+the separator, the decimal mark, the date layout, the spelling of the column names, where
+the temperature unit is written, extra columns.
 """
 
 from __future__ import annotations
@@ -24,14 +27,14 @@ def test_fahrenheit_file_with_preamble_and_bad_rows():
     """A °F export with a title line, an index column, US dates with AM/PM, an error value, an
     empty RH and a footer: good rows converted exactly, each bad row reported by line."""
     data = _csv(
-        '"Plot Title: Bedroom 1"',
-        '"#","Date Time, GMT+00:00","Temp, °F","RH, %","Dew Pt, °F"',
+        '"Unit 7 - back bedroom"',
+        '"No.","Sample time, local","Air temp, °F","Rel. humidity, %","Dew point, °F"',
         "1,01/15/25 11:30:00 PM,68.00,70.5,57.9",
         "2,01/16/25 12:00:00 AM,50.00,72.0,41.4",
         "3,01/16/25 12:30:00 AM,Err,72.0,",
         "4,01/16/25 01:00:00 AM,49.1,,",
         "5,01/16/25 01:30:00 PM,48.2,73.5,40.3",
-        '"Logged","","","",""',
+        '"End of data","","","",""',
         encoding="cp1252",
     )
     result = logimport.read_logger_csv(data)
@@ -41,7 +44,8 @@ def test_fahrenheit_file_with_preamble_and_bad_rows():
     assert result.samples[2].dry_bulb_c == pytest.approx((48.2 - 32) * 5 / 9, abs=1e-4)
     assert [s.rh_pct for s in result.samples] == [70.5, 72.0, 73.5]
     assert result.temperature_unit == "f" and result.unit_source == "header"
-    assert result.temperature_column == "Temp, °F" and result.rh_column == "RH, %"
+    assert result.temperature_column == "Air temp, °F"
+    assert result.rh_column == "Rel. humidity, %"
     assert result.header_line == 2 and result.encoding == "Windows-1252"
     assert [(s.line, s.reason) for s in result.skipped] == [
         (5, "temperature 'Err' is not a number"), (6, "RH is empty"), (8, "no time given")]
@@ -49,7 +53,7 @@ def test_fahrenheit_file_with_preamble_and_bad_rows():
 
 def test_semicolon_file_with_decimal_comma_and_day_first_dates():
     """A European export: semicolons, decimal commas, dd.mm.yyyy dates, German headers."""
-    data = _csv("Zeit;Temperatur [°C];Feuchte [%rH]",
+    data = _csv("Datum/Zeit;Lufttemperatur [°C];rel. Feuchte [%]",
                 "14.01.2025 22:00;19,5;64,0",
                 "14.01.2025 22:15;19,25;64,5",
                 "15.01.2025 09:00;-1,5;80")
@@ -63,14 +67,15 @@ def test_semicolon_file_with_decimal_comma_and_day_first_dates():
 
 
 def test_separate_date_and_time_columns_tab_separated():
-    """Separate Date and Time columns are combined; tab separators and 'Celsius(°C)' work."""
-    data = _csv("Date\tTime\tCelsius(°C)\tHumidity(%rh)\tDew Point(°C)",
+    """Separate date and clock columns are combined; tab separators and a unit-only
+    temperature name ('Reading °C') work."""
+    data = _csv("Date\tTime\tReading °C\tHumidity %\tDew point °C",
                 "2025-02-03\t10:00:00\t17.5\t82.0\t14.4",
                 "2025-02-03\t10:05:00\t17.6\t81.5\t14.3")
     result = logimport.read_logger_csv(data)
     assert result.time_columns == ("Date", "Time")
     assert [s.at for s in result.samples] == [D(2025, 2, 3, 10, 0), D(2025, 2, 3, 10, 5)]
-    assert result.samples[0].dry_bulb_c == 17.5 and result.rh_column == "Humidity(%rh)"
+    assert result.samples[0].dry_bulb_c == 17.5 and result.rh_column == "Humidity %"
 
 
 def test_dew_point_column_is_not_taken_for_the_temperature():
@@ -91,21 +96,22 @@ def test_units_row_under_the_header():
 
 
 def test_header_without_unit_needs_the_unit_stated():
-    """Without a unit in the header the import stops and asks for --temp-unit, then works."""
+    """Without a unit in the header the import stops and asks for the unit, then works."""
     data = _csv("time,temp,rh", "2025-07-22 14:00,22.5,82")
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(data)
-    assert err.value.field == "--temp-unit" and "--temp-unit c" in err.value.allowed
+    assert err.value.field == "temperature unit"
+    assert "state it: c (°C) or f (°F)" in err.value.allowed
     result = logimport.read_logger_csv(data, temp_unit="c")
     assert result.samples[0].dry_bulb_c == 22.5 and result.unit_source == "stated"
 
 
 def test_ambiguous_dates_need_the_order_stated():
-    """Dates like 03/02/2025 with no day above 12 stop the import until --date-order is given."""
+    """Dates like 03/02/2025 with no day above 12 stop the import until the order is given."""
     data = _csv("Date/Time,Temp (C),RH (%)", "03/02/2025 10:00,17.5,82", "04/02/2025 10:00,20.5,55")
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(data)
-    assert err.value.field == "--date-order"
+    assert err.value.field == "date order"
     dmy = logimport.read_logger_csv(data, date_order="dmy")
     mdy = logimport.read_logger_csv(data, date_order="mdy")
     assert dmy.samples[0].at == D(2025, 2, 3, 10) and mdy.samples[0].at == D(2025, 3, 2, 10)
@@ -161,7 +167,7 @@ def test_file_without_a_usable_header_is_refused():
     """A file with no time/temperature/RH header raises InputError quoting its first line."""
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(_csv("a,b,c", "1,2,3"))
-    assert err.value.field == "--csv" and "no header row" in err.value.allowed
+    assert err.value.field == "logger file" and "no header row" in err.value.allowed
     with pytest.raises(InputError, match="empty file"):
         logimport.read_logger_csv(b"")
 
@@ -219,8 +225,8 @@ def test_one_impossible_date_does_not_stop_the_date_order_detection():
 
 
 def test_the_date_order_message_does_not_pass_a_date_off_as_the_option():
-    """The ambiguous-date message quotes the date as an example, not as the --date-order
-    value given."""
+    """The ambiguous-date message quotes the date as an example, not as the date order
+    given."""
     data = _csv("Time,Temp (C),RH", "03/02/2025 10:00,17.5,82", "04/02/2025 10:00,20.5,55")
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(data)
@@ -230,11 +236,11 @@ def test_the_date_order_message_does_not_pass_a_date_off_as_the_option():
 
 def test_dates_only_possible_in_opposite_orders_need_the_order_stated():
     """13/01/2025 (day first only) and 01/13/2025 (month first only) in one file contradict
-    each other: the import asks for --date-order, naming both lines."""
+    each other: the import asks for the date order, naming both lines."""
     data = _csv("Time,Temp (C),RH", "13/01/2025 10:00,17.5,82", "01/13/2025 11:00,17.5,82")
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(data)
-    assert err.value.field == "--date-order"
+    assert err.value.field == "date order"
     assert "(line 2)" in err.value.allowed and "(line 3)" in err.value.allowed
 
 
@@ -252,12 +258,12 @@ def test_times_with_and_without_utc_offset_do_not_crash():
 
 
 def test_temp_unit_against_the_header_is_obeyed_with_a_warning():
-    """--temp-unit c on a °F header reads °C, and the notes say the header disagreed."""
+    """A unit stated as c on a °F header reads °C, and the notes say the header disagreed."""
     data = _csv("Time,Temp (°F),RH (%)", "2025-07-22 14:00,22.5,82")
     result = logimport.read_logger_csv(data, temp_unit="c")
     assert result.samples[0].dry_bulb_c == 22.5
     assert result.unit_source == "stated"
-    assert result.notes == ["The header says °F; --temp-unit c was given: the temperatures "
-                            "are read as °C."]
+    assert result.notes == ["The header says °F; °C was stated: the temperatures are read "
+                            "as °C."]
     agreeing = logimport.read_logger_csv(data, temp_unit="f")
     assert agreeing.unit_source == "header" and agreeing.notes == []
