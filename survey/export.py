@@ -257,7 +257,7 @@ class _AirCells:
 class _Rows:
     """Builds the CSV lines of one survey."""
 
-    def __init__(self, survey: "Survey", system: UnitSystem, for_terminal: bool) -> None:
+    def __init__(self, survey: Survey, system: UnitSystem, for_terminal: bool) -> None:
         self.survey = survey
         self.numbers = _Numbers(system)
         self.air = _AirCells(self.numbers)
@@ -278,13 +278,13 @@ class _Rows:
         """One CSV line from cells by role, the rest empty."""
         return ",".join(self.row(cells)) + "\r\n"
 
-    def room_cells(self, room: "Room | None") -> dict[str, str]:
+    def room_cells(self, room: Room | None) -> dict[str, str]:
         if room is None:
             return {}
         return {"room_id": self.text(room.id), "room_name": self.text(room.name),
                 "room_use": self.text(room.use), "reference_room": _flag(room.is_reference)}
 
-    def air_reading(self, reading: "AirReading", pressure_pa: float) -> dict[str, str]:
+    def air_reading(self, reading: AirReading, pressure_pa: float) -> dict[str, str]:
         joined = self.air.joined(reading.dry_bulb_c, reading.rh_pct, pressure_pa)
         cells = dict(zip(_ROLES[_INDEX["dry_bulb"]:_INDEX["absolute_humidity"] + 1],
                          joined.split(",")))
@@ -350,7 +350,7 @@ class _Rows:
                             state.humidity_ratio_kg_per_kg - outlet.humidity_ratio_kg_per_kg)
                     yield self.line(cells)
 
-    def log_blocks(self, log: "LogSeries", pressure_pa: float) -> Iterator[tuple[str, int]]:
+    def log_blocks(self, log: LogSeries, pressure_pa: float) -> Iterator[tuple[str, int]]:
         """Every sample of ``log``, as blocks of lines; the cells that do not change are made
         once, and the air cells once per distinct reading."""
         room = self.rooms.get(log.room) if log.room is not None else None
@@ -393,7 +393,7 @@ class _Rows:
 _BLOCK_ROWS = 4096
 
 
-def csv_blocks(survey: "Survey", system: UnitSystem | None = None, include_logs: bool = True,
+def csv_blocks(survey: Survey, system: UnitSystem | None = None, include_logs: bool = True,
                *, for_terminal: bool = False) -> Iterator[tuple[str, int]]:
     """The CSV as blocks of whole lines (each line ending in CR LF) with the number of rows
     in each, the header (0 rows) first; made as they are consumed, so a large survey is never
@@ -404,7 +404,7 @@ def csv_blocks(survey: "Survey", system: UnitSystem | None = None, include_logs:
     yield from _Rows(survey, chosen, for_terminal).blocks(include_logs)
 
 
-def write_csv(survey: "Survey", out: TextIO, system: UnitSystem | None = None,
+def write_csv(survey: Survey, out: TextIO, system: UnitSystem | None = None,
               include_logs: bool = True, *, for_terminal: bool = False) -> int:
     """Write the survey's readings as CSV to the text stream ``out``; return the row count
     (the header not counted).
@@ -421,7 +421,7 @@ def write_csv(survey: "Survey", out: TextIO, system: UnitSystem | None = None,
 
 # --- writing a file ----------------------------------------------------------------------
 
-def save_csv(survey: "Survey", path: str | os.PathLike[str], system: UnitSystem | None = None,
+def save_csv(survey: Survey, path: str | os.PathLike[str], system: UnitSystem | None = None,
              include_logs: bool = True) -> int:
     """Write the CSV to ``path`` the way survey files are saved, streaming; return the row
     count.

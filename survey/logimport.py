@@ -229,9 +229,9 @@ _CLOCK = (r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac
 #: A date with the month as an English word or its abbreviation, day first or month first:
 #: ``15 Jan 2025``, ``15-Jan-25``, ``Jan 15, 2025``, ``January 15 2025``.
 _MONTH_FIRST = re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+"
-                          r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.I)
+                          r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.IGNORECASE)
 _DAY_FIRST = re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+"
-                        r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.I)
+                        r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.IGNORECASE)
 _MONTHS = {name: n for n, names in enumerate(
     (("jan", "january"), ("feb", "february"), ("mar", "march"), ("apr", "april"),
      ("may",), ("jun", "june"), ("jul", "july"), ("aug", "august"),
@@ -242,7 +242,7 @@ _DATE_TIME = re.compile(
     r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})"
     r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
     r"\s*(?P<ampm>[ap]\.?m\.?)?)?$",
-    re.I,
+    re.IGNORECASE,
 )
 
 

@@ -267,3 +267,75 @@ def test_temp_unit_against_the_header_is_obeyed_with_a_warning():
                             "as °C."]
     agreeing = logimport.read_logger_csv(data, temp_unit="f")
     assert agreeing.unit_source == "header" and agreeing.notes == []
+
+
+# --- layouts found by what the header says -----------------------------------------------
+
+def test_columns_are_found_in_any_order_with_extra_columns_between():
+    """RH first, then a battery column, the temperature, and the time last: each column is
+    found by its name."""
+    data = _csv("Humidity (%),Battery (V),Air temperature (°C),Sample index,Timestamp",
+                "55.5,3.01,21.25,1,2025-03-04 08:00:00",
+                "56.0,3.01,21.00,2,2025-03-04 08:05:00")
+    result = logimport.read_logger_csv(data)
+    assert result.time_columns == ("Timestamp",) and result.rh_column == "Humidity (%)"
+    assert [(s.dry_bulb_c, s.rh_pct) for s in result.samples] == [(21.25, 55.5), (21.0, 56.0)]
+
+
+def test_several_title_and_settings_lines_above_the_header_are_passed_over():
+    """Five lines of title and settings (some with separators) come before the header;
+    the header line is reported."""
+    data = _csv("Export of unit 12", "Interval;60 s", "Start;2025-03-04 08:00", "",
+                "Channels;2", "Date and time;T (°C);RH (%)", "14.03.2025 08:00:00;20,5;61,0")
+    result = logimport.read_logger_csv(data)
+    assert result.header_line == 6 and result.delimiter == ";"
+    assert result.samples[0].at == D(2025, 3, 14, 8) and result.samples[0].dry_bulb_c == 20.5
+
+
+def test_a_temperature_column_named_only_by_its_unit_is_found():
+    """A column called 'Probe 1 [°F]' is the temperature, in °F."""
+    data = _csv("Time,Probe 1 [°F],RH [%]", "2025-07-22 14:00,77.0,60")
+    result = logimport.read_logger_csv(data)
+    assert result.temperature_column == "Probe 1 [°F]" and result.temperature_unit == "f"
+    assert result.samples[0].dry_bulb_c == 25.0  # (77 − 32) × 5/9, exact
+
+
+@pytest.mark.parametrize("when", ["15 Jan 2025 10:00", "15-Jan-25 10:00", "Jan 15, 2025 10:00",
+                                  "January 15 2025 10:00:00", "15 jan 2025 10:00 AM"])
+def test_dates_with_the_month_as_a_word_are_read(when):
+    """Day-first and month-first dates with an English month name, two- or four-digit
+    years, with or without seconds and AM/PM, all read as 15 January 2025 10:00."""
+    data = _csv("Time;Temperature (°C);RH (%)", f"{when};18,0;65")
+    assert logimport.read_logger_csv(data).samples[0].at == D(2025, 1, 15, 10, 0)
+
+
+def test_a_month_word_that_is_no_month_is_a_skipped_row():
+    """'15 Foo 2025' is not a date: that row is skipped with the reason."""
+    data = _csv("Time,Temperature (°C),RH (%)", "15 Foo 2025 10:00,18,65",
+                "15 Jan 2025 10:30,18,65")
+    result = logimport.read_logger_csv(data)
+    assert len(result.samples) == 1
+    assert result.skipped[0].line == 2 and "is not a date and time" in result.skipped[0].reason
+
+
+def test_tab_separated_with_decimal_commas_and_two_digit_years():
+    """Tabs, decimal commas and dd/mm/yy dates (a day above 12 settles the order)."""
+    data = _csv("Date/time\tTemperature °C\tRel. humidity %",
+                "13/02/25 09:00\t-2,5\t88,5", "13/02/25 09:15\t-2,0\t87,0")
+    result = logimport.read_logger_csv(data)
+    assert result.delimiter == "\t" and result.date_order == "dmy"
+    assert [(s.at, s.dry_bulb_c, s.rh_pct) for s in result.samples] == [
+        (D(2025, 2, 13, 9, 0), -2.5, 88.5), (D(2025, 2, 13, 9, 15), -2.0, 87.0)]
+
+
+def test_errors_name_the_quantity_not_an_option():
+    """No error or note of the reader names a command-line option."""
+    cases = [_csv("a,b,c"), _csv("time,temp,rh", "2025-07-22 14:00,22.5,82"),
+             _csv("Time,Temp (C),RH", "03/02/2025 10:00,17.5,82")]
+    for data in cases:
+        with pytest.raises(InputError) as err:
+            logimport.read_logger_csv(data)
+        assert "--" not in str(err.value)
+    note = logimport.read_logger_csv(_csv("Time,Temp (°F),RH", "2025-07-22 14:00,22.5,82"),
+                                     temp_unit="c").notes
+    assert note and "--" not in note[0]

@@ -23,8 +23,9 @@ import argparse
 import functools
 import os
 import sys
+from collections.abc import Callable
 from pathlib import Path
-from typing import TYPE_CHECKING, Any, Callable
+from typing import TYPE_CHECKING, Any
 
 from survey.errors import InputError, SurveyFileError
 from survey.safe_text import shorten, visible
@@ -180,7 +181,7 @@ def run_new(args: argparse.Namespace) -> int:
 
 # --- validate ----------------------------------------------------------------------------
 
-def _count_readings(survey: "Survey") -> dict[str, int]:
+def _count_readings(survey: Survey) -> dict[str, int]:
     counts = {"air": 0, "surface": 0, "material": 0, "logger": 0}
     for visit in survey.visits:
         counts["air"] += visit.outdoor is not None
@@ -288,7 +289,7 @@ def run_export(args: argparse.Namespace) -> int:
     return 0
 
 
-def _empty_hint(survey: "Survey", count: int, no_logs: bool) -> str:
+def _empty_hint(survey: Survey, count: int, no_logs: bool) -> str:
     """Why an export has no rows, when it has none."""
     if count:
         return ""
