@@ -459,3 +459,152 @@ def test_export_of_a_survey_without_readings_says_why(tmp_path, capsys):
     assert "Wrote 0 rows" in message
     assert "the survey has no visits or logger readings yet" in message
     assert len(out.read_text(encoding="utf-8-sig").splitlines()) == 1
+
+
+# --- help, option names, and text from people and files ----------------------------------
+
+FILE_COMMANDS = ("new", "validate", "export", "import-log", "schema")
+
+
+@pytest.mark.parametrize("command", FILE_COMMANDS)
+def test_every_option_and_argument_of_the_file_commands_has_help(command):
+    """Each option and positional argument of the file commands carries a help text."""
+    from survey.cli import _subcommands, build_parser
+
+    parser = _subcommands(build_parser())[command]
+    missing = [action.dest for action in parser._actions
+               if action.dest != "help" and not (action.help or "").strip()]
+    assert missing == []
+
+
+def test_a_logger_header_without_a_unit_is_reported_under_temp_unit(flat_and_log, capsys,
+                                                                     tmp_path):
+    """The core's "temperature unit" error reaches the user as --temp-unit, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "plain.csv"
+    log.write_text("time,temp,rh\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    err = capsys.readouterr().err
+    assert err.startswith("survey: --temp-unit (not given): the temperature column 'temp' "
+                          "does not say its unit")
+
+
+def test_a_logger_file_without_a_header_is_reported_under_csv(flat_and_log, capsys, tmp_path):
+    """The core's "logger file" error reaches the user as --csv, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "junk.csv"
+    log.write_text("a,b,c\n1,2,3\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    assert capsys.readouterr().err.startswith("survey: --csv 'a,b,c': no header row")
+
+
+def test_ambiguous_dates_are_reported_under_date_order(flat_and_log, capsys, tmp_path):
+    """The core's "date order" error reaches the user as --date-order, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "dates.csv"
+    log.write_text("Time,Temp (C),RH\n03/02/2025 10:00,17.5,82\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    assert capsys.readouterr().err.startswith("survey: --date-order (not given): dates such as")
+
+
+def _no_raw_control(text: str) -> bool:
+    """True when ``text`` has no control or format character other than newline and tab."""
+    import unicodedata
+
+    return not any(unicodedata.category(c) in ("Cc", "Cf") and c not in "\n\t" for c in text)
+
+
+def test_import_log_output_shows_room_names_and_file_text_escaped(tmp_path, capsys):
+    """A room name, a column name and a cell holding ESC sequences are printed with the
+    escapes visible, never raw."""
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = "Bed\x1b]0;owned\x07room"
+    path = tmp_path / "s.json"
+    store.save_survey(survey, path)
+    log = tmp_path / "odd\x1b[2Jname.csv"
+    log.write_text("Time,Temp \x1b[31m(°C),RH (%)\n2025-01-15 10:00,18.5,70\n"
+                   "2025-01-15 10:30,\x1b[5mhot,70\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out)
+    assert "Bed\\x1b]0;owned\\x07room (bed1)" in out and "odd\\x1b[2Jname.csv" in out
+
+
+def test_an_unknown_room_with_escapes_is_reported_escaped(flat_and_log, capsys):
+    """An unknown --room holding ESC and a bidi override is quoted visibly in the error."""
+    path, log = flat_and_log
+    assert main(["import-log", str(path), "--room", "att\x1b[1mic\u202e", "--csv",
+                 str(log)]) == 2
+    err = capsys.readouterr().err
+    assert _no_raw_control(err) and "att\\x1b[1mic\\u202e" in err
+
+
+def test_validate_shows_an_unknown_key_and_the_file_name_escaped(tmp_path, capsys):
+    """An unknown key with an ESC sequence, in a file whose name has one, is reported with
+    both made visible."""
+    doc = json.loads(FLAT.read_text())
+    doc["site"]["\x1b[31mcolour"] = 1
+    path = tmp_path / "bad\x1b[0m.json"
+    path.write_text(json.dumps(doc))
+    assert main(["validate", str(path)]) == 1
+    err = capsys.readouterr().err
+    assert _no_raw_control(err) and "bad\\x1b[0m.json" in err
+
+
+def test_validate_ok_line_shows_the_file_name_escaped(tmp_path, capsys):
+    """A good survey whose file name holds a CR is listed with the CR visible."""
+    path = tmp_path / "flat\r.json"
+    shutil.copy(FLAT, path)
+    assert main(["validate", str(path)]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out) and "flat\\x0d.json: ok (" in out
+
+
+def test_new_prints_the_site_and_file_name_escaped(tmp_path, capsys):
+    """`survey new` with ESC in the site and the file name prints both visibly."""
+    path = tmp_path / "n\x1b[2J.json"
+    assert main(["new", str(path), "--site", "Site \x1b[31mred"]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out) and "n\\x1b[2J.json" in out and "Site \\x1b[31mred" in out
+
+
+def _survey_with_odd_room(tmp_path: Path) -> Path:
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = "Bed\x1b[31m\x00room"
+    path = tmp_path / "s.json"
+    store.save_survey(survey, path)
+    return path
+
+
+def test_export_to_a_terminal_escapes_control_characters(tmp_path, capsys, monkeypatch):
+    """`export --csv -` on a terminal writes an ESC in a room name as \\x1b."""
+    path = _survey_with_odd_room(tmp_path)
+    monkeypatch.setattr(sys.stdout, "isatty", lambda: True)
+    assert main(["export", str(path), "--csv", "-"]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out.replace("\r\n", "\n")) and "Bed\\x1b[31m\\x00room" in out
+
+
+def test_export_to_a_pipe_keeps_the_text_but_no_nul(tmp_path):
+    """`export --csv -` into a pipe keeps the ESC as data but never writes a NUL byte."""
+    path = _survey_with_odd_room(tmp_path)
+    result = subprocess.run([sys.executable, "-m", "survey", "export", str(path), "--csv", "-"],
+                            capture_output=True, timeout=60, cwd=ROOT)
+    assert result.returncode == 0 and b"\x00" not in result.stdout
+    assert "Bed\x1b[31m\\x00room".encode() in result.stdout
+
+
+def test_export_file_has_no_nul_bytes(tmp_path):
+    """A CSV file written from a survey with a NUL in a name holds no NUL byte."""
+    path = _survey_with_odd_room(tmp_path)
+    out = tmp_path / "o.csv"
+    assert main(["export", str(path), "--csv", str(out)]) == 0
+    assert b"\x00" not in out.read_bytes()
+
+
+def test_export_message_shows_the_csv_name_escaped(tmp_path, capsys):
+    """The "Wrote … to NAME" line shows a control character in the CSV's name visibly."""
+    out = tmp_path / "o\x1b[2J.csv"
+    assert main(["export", str(FLAT), "--csv", str(out)]) == 0
+    message = capsys.readouterr().out
+    assert _no_raw_control(message) and "o\\x1b[2J.csv" in message

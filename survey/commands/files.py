@@ -175,7 +175,7 @@ def run_new(args: argparse.Namespace) -> int:
         raise SurveyFileError(path, "", "already exists; choose another name (new never "
                                         "overwrites a file)")
     store.save_survey(survey, path, exclusive=True)
-    print(f"Created {visible(path)} for site {shorten(survey.site.reference)!r}.")
+    print(f"Created {visible(path)} for site '{shorten(survey.site.reference)}'.")
     return 0
 
 
