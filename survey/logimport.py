@@ -1,37 +1,30 @@
 """Reading a data logger's CSV export: time, air temperature and relative humidity.
 
-Loggers write CSV in many layouts, and the reader finds its columns by what the header says
-rather than by where one maker puts them:
+Loggers write CSV in many layouts; the reader finds its columns by what the header says,
+not by where one maker puts them:
 
-* the column header may come first or after a few title, serial-number or settings lines
-  (it is looked for in the first :data:`HEADER_SEARCH_LINES` lines); columns besides the
-  three wanted ones (a row number, dew point, absolute humidity, battery …) are ignored;
-* cells are separated by commas, semicolons or tabs, and numbers may use a decimal comma
-  (``21,5``) or a minus sign (``−3``);
-* the text may be UTF-8 (with or without a byte-order mark), UTF-16 or Windows-1252;
-* the time is one column whose name says date or time (in English and a few other
-  languages), or a date column and a clock column side by side;
-* the temperature column is the one whose name says temperature (or just carries a
-  temperature unit), never one that names a dew point, wet bulb or surface; its unit is read
-  from the name (°C, C, degC, Celsius, °F, F, degF, Fahrenheit, in brackets or after a
-  comma) or from a row of units just under the header; °F is converted with
-  t_C = (t_F − 32) × 5/9, the definition of the Fahrenheit scale. A header without a unit
-  needs the unit stated by the caller; a unit stated against the header's wins, and the
-  result's notes say so;
-* the RH column is the one whose name says relative humidity, humidity or RH, never one that
-  names a dew point or an absolute or specific humidity; values in percent, or written as
-  fractions (``0.65``): when every RH value in the file is at most 1 they are read as
-  fractions × 100 (and the notes say so); when only some rows are below 1 % among
-  percentages, those rows are skipped as looking like fractions;
-* times in ISO 8601 (``2025-01-15 10:00:00``, ``2025-01-15T10:00``, with or without a UTC
-  offset), as day, month and year with slashes, dots or dashes (``15/01/2025 10:00``,
-  ``15.01.2025 10:00``), month first (``01/15/2025 10:00:00 AM``), two-digit years, a
-  12-hour clock with AM/PM, or with the month as a word (``15 Jan 2025 10:00``,
-  ``Jan 15 2025 10:00``). Whether ``03/04/2025`` is day/month or month/day is settled by
-  any day above 12 in the file, counting only dates that are real in one of the orders (a
-  row such as ``13/15/2025`` is skipped, not taken as evidence); if no date settles it, or
-  dates contradict each other, the caller must say. Times with and without a UTC offset
-  are not mixed: the kind most rows have is kept.
+* the header may follow title, serial-number or settings lines (it is looked for in the
+  first :data:`HEADER_SEARCH_LINES` lines); other columns (row number, dew point, battery …)
+  are ignored, in any order;
+* commas, semicolons or tabs; decimal commas (``21,5``) and minus signs (``−3``); UTF-8
+  (with or without a byte-order mark), UTF-16 or Windows-1252 text;
+* the time: one column whose name says date or time (in English and a few other languages),
+  or a date column and a clock column side by side;
+* the temperature: the column whose name says temperature or only carries a temperature
+  unit, never a dew point, wet bulb or surface; its unit (°C, C, degC, Celsius, °F, F, degF,
+  Fahrenheit) from the name or a row of units under the header; °F is converted with
+  t_C = (t_F − 32) × 5/9, the definition of the scale. Without a unit the caller must state
+  it; a unit stated against the header's wins, and the notes say so;
+* RH: the column whose name says relative humidity, humidity or RH, never a dew point or an
+  absolute or specific humidity. When every value is at most 1 they are fractions, × 100
+  (the notes say so); a few values below 1 % among percentages are skipped as fractions;
+* times in ISO 8601 (with or without a UTC offset), day or month first with slashes, dots
+  or dashes (``15/01/2025 10:00``, ``15.01.2025``, ``01/15/2025 10:00:00 AM``), two-digit
+  years, AM/PM, or with the month as a word (``15 Jan 2025 10:00``, ``Jan 15, 2025``).
+  Whether ``03/04/2025`` is day or month first is settled by any day above 12, counting only
+  dates real in one of the orders (``13/15/2025`` is skipped, not taken as evidence); if no
+  date settles it, or dates contradict each other, the caller must say. Times with and
+  without a UTC offset are not mixed: the kind most rows have is kept.
 
 Every data row that cannot be used is reported with its line number and the reason (empty
 value, not a number, out of the reading range, a repeated time, no time, a line far too
@@ -48,6 +41,7 @@ import csv
 import datetime as dt
 import hashlib
 import io
+import itertools
 import math
 import re
 from dataclasses import dataclass, field
@@ -226,24 +220,16 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
 
 _CLOCK = (r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
           r"\s*(?P<ampm>[ap]\.?m\.?)?)?$")
-#: A date with the month as an English word or its abbreviation, day first or month first:
-#: ``15 Jan 2025``, ``15-Jan-25``, ``Jan 15, 2025``, ``January 15 2025``.
-_MONTH_FIRST = re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+"
-                          r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.IGNORECASE)
-_DAY_FIRST = re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+"
-                        r"(?P<year>\d{4}|\d{2})" + _CLOCK, re.IGNORECASE)
-_MONTHS = {name: n for n, names in enumerate(
-    (("jan", "january"), ("feb", "february"), ("mar", "march"), ("apr", "april"),
-     ("may",), ("jun", "june"), ("jul", "july"), ("aug", "august"),
-     ("sep", "sept", "september"), ("oct", "october"), ("nov", "november"),
-     ("dec", "december")), 1) for name in names}
-
-_DATE_TIME = re.compile(
-    r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})"
-    r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
-    r"\s*(?P<ampm>[ap]\.?m\.?)?)?$",
-    re.IGNORECASE,
-)
+#: A date with the month as an English word or its abbreviation, month first or day first:
+#: ``Jan 15, 2025``, ``January 15 2025``, ``15 Jan 2025``, ``15-Jan-25``.
+_NAMED_MONTH = (re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+(?P<year>\d{4}|\d{2})"
+                           + _CLOCK, re.IGNORECASE),
+                re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+(?P<year>\d{4}|\d{2})"
+                           + _CLOCK, re.IGNORECASE))
+_MONTH_NAMES = ("january", "february", "march", "april", "may", "june", "july", "august",
+                "september", "october", "november", "december")
+_DATE_TIME = re.compile(r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})" + _CLOCK,
+                        re.IGNORECASE)
 
 
 def _clean(cell: str) -> str:
@@ -294,12 +280,10 @@ def _clock(m: re.Match[str]) -> tuple[int, int, int, int]:
 
 
 def _named_month_time(m: re.Match[str]) -> dt.datetime | None:
-    month = _MONTHS.get(m["month"].lower())
-    if month is None:
-        return None
-    year = int(m["year"])
+    word, year = m["month"].lower(), int(m["year"])
+    month = next((n for n, name in enumerate(_MONTH_NAMES, 1) if name.startswith(word)), None)
     try:
-        return dt.datetime(year + 2000 if year < 100 else year, month, int(m["day"]),
+        return dt.datetime(year + 2000 if year < 100 else year, month or 0, int(m["day"]),
                            *_clock(m))
     except ValueError:
         return None
@@ -315,8 +299,8 @@ def _parse_time(text: str, order: DateOrder | None) -> dt.datetime | None:
             return _build_time(m, order)
         except ValueError:
             return None
-    named = _MONTH_FIRST.match(text) or _DAY_FIRST.match(text)
-    if named is not None:
+    named = _NAMED_MONTH[0].match(text) or _NAMED_MONTH[1].match(text)
+    if named is not None and len(named["month"]) >= 3:
         return _named_month_time(named)
     try:
         return dt.datetime.fromisoformat(text)
@@ -606,7 +590,7 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
         reasons = "; ".join(f"line {s.line}: {s.reason}" for s in skipped[:3])
         raise InputError(FILE_FIELD, f"({len(data_rows)} data rows)",
                          "no row could be imported" + (f" ({reasons})" if reasons else ""))
-    reordered = any(b.at < a.at for a, b in zip(samples, samples[1:]))
+    reordered = any(b.at < a.at for a, b in itertools.pairwise(samples))
     if reordered:
         samples.sort(key=lambda s: s.at)
     return LoggerData(
