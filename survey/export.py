@@ -34,7 +34,7 @@ from typing import TYPE_CHECKING, Literal, TextIO
 import msgspec
 
 from survey import psychro
-from survey.errors import SurveyFileError
+from survey.errors import InputError, SurveyFileError
 from survey.safe_text import visible
 
 if TYPE_CHECKING:
@@ -95,11 +95,10 @@ DECIMALS: dict[tuple[str, UnitSystem], int] = {
     ("moisture", "si"): 1, ("moisture", "ip"): 1,
 }
 
-#: The quantity (in :mod:`survey.units`' names) converted for display in IP units; in SI
-#: every column is the core's own unit except the humidity ratio (kg/kg written as g/kg).
-_IP_QUANTITY = {"pressure": "pressure", "vapour_pressure": "vapour_pressure",
-                "temperature": "temperature", "temperature_difference": "temperature_difference",
-                "humidity_ratio": "humidity_ratio", "absolute_humidity": "absolute_humidity"}
+#: Quantities written as they are in every unit system (the others are converted by
+#: :func:`survey.units.to_display` in IP units; in SI every column is the core's own unit,
+#: except the humidity ratio, kg/kg written as g/kg).
+_SAME_IN_EVERY_SYSTEM = frozenset({"rh", "moisture"})
 
 
 def column_names(system: UnitSystem = "si") -> list[str]:
@@ -110,8 +109,6 @@ def column_names(system: UnitSystem = "si") -> list[str]:
 
 def _check_system(system: str) -> None:
     if system not in ("si", "ip"):
-        from survey.errors import InputError
-
         raise InputError("unit system", system, "si or ip")
 
 
@@ -195,12 +192,12 @@ class _Numbers:
     def _conversion(self, quantity: str) -> tuple[float, float]:
         if quantity == "humidity_ratio" and self.system == "si":
             return 1000.0, 0.0  # kg/kg -> g/kg
-        if self.system == "si" or quantity not in _IP_QUANTITY:
+        if self.system == "si" or quantity in _SAME_IN_EVERY_SYSTEM:
             return 1.0, 0.0
         from survey import units
 
-        zero = units.to_display(_IP_QUANTITY[quantity], 0.0, "ip")
-        one = units.to_display(_IP_QUANTITY[quantity], 1.0, "ip")
+        zero = units.to_display(quantity, 0.0, "ip")
+        one = units.to_display(quantity, 1.0, "ip")
         return one - zero, zero
 
     def format(self, quantity: str, value_si: float | None) -> str:
@@ -223,9 +220,10 @@ _CACHE_LIMIT = 50_000
 class _AirCells:
     """The eight air columns (dry bulb … absolute humidity) of a reading, as text.
 
-    Without the wet bulb (an iterative solve the export does not show), :func:`psychro.vapour_state` gives the same numbers as
-    :func:`psychro.state_from_rh`, which is used whenever the dew point lies below the
-    triple point (it is then over supercooled water, and the frost point is shown too).
+    :func:`psychro.vapour_state` gives the same numbers as :func:`psychro.state_from_rh`
+    without the wet bulb (an iterative solve the export does not show); ``state_from_rh``
+    is used whenever the dew point lies below the triple point (it is then over supercooled
+    water, and the frost point is shown too).
     """
 
     def __init__(self, numbers: _Numbers) -> None:
@@ -285,9 +283,8 @@ class _Rows:
                 "room_use": self.text(room.use), "reference_room": _flag(room.is_reference)}
 
     def air_reading(self, reading: AirReading, pressure_pa: float) -> dict[str, str]:
-        joined = self.air.joined(reading.dry_bulb_c, reading.rh_pct, pressure_pa)
         cells = dict(zip(_ROLES[_INDEX["dry_bulb"]:_INDEX["absolute_humidity"] + 1],
-                         joined.split(",")))
+                         self.air.cells(reading.dry_bulb_c, reading.rh_pct, pressure_pa)))
         cells["taken_at"] = _time(reading.taken_at)
         cells["instrument"] = self.text(reading.instrument or "")
         return cells
