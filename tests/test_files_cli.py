@@ -437,7 +437,7 @@ def test_export_neutralises_spreadsheet_formulas(tmp_path):
     assert outdoor["dry_bulb_c"] == "-3.50" and outdoor["dew_point_c"].startswith("-")
 
 
-def test_export_writes_through_the_store_s_crash_safe_writer(tmp_path, capsys):
+def test_export_writes_through_a_crash_safe_writer(tmp_path, capsys):
     """The CSV's temporary file is not the old predictable name: a symlink planted there
     is left alone and its target unchanged."""
     victim = tmp_path / "victim.txt"
