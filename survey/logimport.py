@@ -222,10 +222,12 @@ _CLOCK = (r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac
           r"\s*(?P<ampm>[ap]\.?m\.?)?)?$")
 #: A date with the month as an English word or its abbreviation, month first or day first:
 #: ``Jan 15, 2025``, ``January 15 2025``, ``15 Jan 2025``, ``15-Jan-25``.
-_NAMED_MONTH = (re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+(?P<year>\d{4}|\d{2})"
-                           + _CLOCK, re.IGNORECASE),
-                re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+(?P<year>\d{4}|\d{2})"
-                           + _CLOCK, re.IGNORECASE))
+_YEAR = r"(?P<year>\d{4}|\d{2})"
+_NAMED_MONTH = (
+    re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+" + _YEAR + _CLOCK,
+               re.IGNORECASE),
+    re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+" + _YEAR + _CLOCK,
+               re.IGNORECASE))
 _MONTH_NAMES = ("january", "february", "march", "april", "may", "june", "july", "august",
                 "september", "october", "november", "december")
 _DATE_TIME = re.compile(r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})" + _CLOCK,

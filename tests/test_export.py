@@ -50,8 +50,7 @@ def _samples(*readings: tuple[float, float]) -> list[model.LogSample]:
 # --- columns -----------------------------------------------------------------------------
 
 def test_air_columns_hold_what_check_json_holds_under_the_same_key(capsys):
-    """The bedroom's air row and `survey check --json` for the same readings agree on every
-    shared key (to the CSV's decimals)."""
+    """The bedroom's air row and check's JSON for the same air agree on every shared key."""
     survey = store.load_survey(FLAT)
     bedroom = next(r for r in _rows(survey) if r["kind"] == "room_air" and r["room_id"] == "bed1")
     pressure = model.pressure_pa_for(survey, survey.visits[0])
@@ -66,8 +65,7 @@ def test_air_columns_hold_what_check_json_holds_under_the_same_key(capsys):
 
 
 def test_surface_columns_hold_what_check_json_holds_under_the_same_key(capsys):
-    """A surface row's surface_temp_c, surface_rh_pct and dew_point_margin_k are the values
-    `survey check --json` gives for that surface under those keys."""
+    """A surface row's values are what check's JSON gives that surface under the same keys."""
     survey = store.load_survey(FLAT)
     rows = _rows(survey)
     air = next(r for r in rows if r["kind"] == "room_air" and r["room_id"] == "bed1")
@@ -82,8 +80,7 @@ def test_surface_columns_hold_what_check_json_holds_under_the_same_key(capsys):
 
 
 def test_ip_columns_use_check_json_s_name_for_grains_per_pound():
-    """In IP units the humidity ratio column is grains_per_pound, the key check's JSON uses,
-    and holds 7000 × W (7000 grains = 1 lb, exact)."""
+    """In IP units the humidity ratio is the column grains_per_pound (check's JSON key)."""
     survey = store.load_survey(BASEMENT)
     outdoor = _rows(survey, "ip")[0]
     pressure = model.pressure_pa_for(survey, survey.visits[0])
@@ -112,8 +109,7 @@ _DECIMALS_BY_COLUMN = {
 
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.stem)
 def test_every_number_has_its_column_s_fixed_decimals(path):
-    """Every number of the example exports is written with its quantity's decimals (no
-    float noise such as 15.799999999999999)."""
+    """Every number of the example exports has its quantity's fixed decimals, no float noise."""
     for row in _rows(store.load_survey(path), "si"):
         for column, places in _DECIMALS_BY_COLUMN.items():
             if row[column]:
@@ -141,8 +137,7 @@ def test_negative_zero_is_written_without_its_sign():
     "\uff1d1+1", "\uff0b1", "\uff0d1", "\uff20SUM(A1)", "  \uff1dx",
 ])
 def test_text_that_a_spreadsheet_would_run_gets_an_apostrophe(cell):
-    """Formula starts, also after white space or a line break and in full-width form
-    (OWASP, "CSV Injection"), are neutralised with a leading apostrophe."""
+    """A formula start, also after white space or in full-width form, gets an apostrophe."""
     assert export.spreadsheet_safe(cell) == "'" + cell
 
 
@@ -194,8 +189,7 @@ def test_control_characters_are_made_visible_for_a_terminal():
 # --- logger rows -------------------------------------------------------------------------
 
 def test_logger_rows_agree_with_coolprop():
-    """A logger sample at 20 °C / 50 % gets the dew point and humidity ratio CoolProp gives
-    at the survey's pressure."""
+    """A logger sample's dew point and humidity ratio are CoolProp's for the same air."""
     survey = _with_logs(store.load_survey(FLAT), model.LogSeries(
         room="bed1", source="unit.csv", samples=_samples((20.0, 50.0))))
     (row,) = [r for r in _rows(survey) if r["kind"] == "logger"]
@@ -208,8 +202,7 @@ def test_logger_rows_agree_with_coolprop():
 
 
 def test_repeated_logger_readings_give_the_same_cells_as_a_room_reading():
-    """A logger sample's air cells equal those of a spot reading of the same air (one
-    computation, cached or not), also below 0 °C where the frost point is shown."""
+    """Logged and spot readings of the same air get the same cells, also below 0 °C."""
     survey = store.load_survey(FLAT)
     readings = [(17.5, 72.0), (-5.0, 80.0), (17.5, 72.0), (-5.0, 80.0)]
     survey = _with_logs(survey, model.LogSeries(room=None, source="garden.csv",
@@ -227,8 +220,7 @@ def test_repeated_logger_readings_give_the_same_cells_as_a_room_reading():
 
 
 def test_a_long_series_is_written_in_bounded_blocks():
-    """20 000 samples reach the stream in many writes of at most a few hundred kB: the CSV
-    is never held whole."""
+    """20 000 samples reach the stream in many bounded writes, never as one whole text."""
     samples = _samples(*[(18.0 + (n % 50) / 10, 60.0 + (n % 30) / 10) for n in range(20_000)])
     survey = _with_logs(store.load_survey(FLAT), model.LogSeries(
         room="bed1", source="unit.csv", samples=samples))

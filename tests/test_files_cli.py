@@ -515,8 +515,7 @@ def _no_raw_control(text: str) -> bool:
 
 
 def test_import_log_output_shows_room_names_and_file_text_escaped(tmp_path, capsys):
-    """A room name, a column name and a cell holding ESC sequences are printed with the
-    escapes visible, never raw."""
+    """ESC sequences in a room name, a file name and the file's text are printed visibly."""
     survey = store.load_survey(FLAT)
     survey.rooms[0].name = "Bed\x1b]0;owned\x07room"
     path = tmp_path / "s.json"
@@ -540,8 +539,7 @@ def test_an_unknown_room_with_escapes_is_reported_escaped(flat_and_log, capsys):
 
 
 def test_validate_shows_an_unknown_key_and_the_file_name_escaped(tmp_path, capsys):
-    """An unknown key with an ESC sequence, in a file whose name has one, is reported with
-    both made visible."""
+    """An unknown key and a file name holding ESC sequences are reported visibly."""
     doc = json.loads(FLAT.read_text())
     doc["site"]["\x1b[31mcolour"] = 1
     path = tmp_path / "bad\x1b[0m.json"

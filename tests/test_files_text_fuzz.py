@@ -74,8 +74,7 @@ _FORMULA = tuple("=+-@\uff1d\uff0b\uff0d\uff20")
 @_SETTINGS
 @given(texts=st.lists(_TEXT, min_size=5, max_size=5))
 def test_exported_text_cells_never_start_a_formula_or_hold_a_nul(texts):
-    """Every text cell of the CSV that would start a formula starts with an apostrophe
-    instead, and no NUL is written."""
+    """No text cell of the CSV starts a live formula, and no NUL is written."""
     survey = store.load_survey(FLAT)
     survey.rooms[0].name = texts[0]
     survey.visits[0].label = texts[1]
@@ -103,8 +102,7 @@ def test_validate_prints_no_control_character(tmp_path_factory, texts, capsys):
 @_SETTINGS
 @given(name=_TEXT, header=_TEXT, cell=_TEXT)
 def test_import_log_prints_no_control_character(tmp_path_factory, name, header, cell, capsys):
-    """import-log with an odd room name, column name and cell prints nothing raw, whether
-    it imports or refuses."""
+    """import-log with odd names, headers and cells prints nothing raw, import or refusal."""
     folder = tmp_path_factory.mktemp("i")
     path = _odd_survey(folder, [name, "v", "l", "m", "x"])
     log = folder / "unit.csv"

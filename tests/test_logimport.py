@@ -67,8 +67,7 @@ def test_semicolon_file_with_decimal_comma_and_day_first_dates():
 
 
 def test_separate_date_and_time_columns_tab_separated():
-    """Separate date and clock columns are combined; tab separators and a unit-only
-    temperature name ('Reading °C') work."""
+    """Separate date and clock columns, tabs and a unit-only temperature name are read."""
     data = _csv("Date\tTime\tReading °C\tHumidity %\tDew point °C",
                 "2025-02-03\t10:00:00\t17.5\t82.0\t14.4",
                 "2025-02-03\t10:05:00\t17.6\t81.5\t14.3")
@@ -272,8 +271,7 @@ def test_temp_unit_against_the_header_is_obeyed_with_a_warning():
 # --- layouts found by what the header says -----------------------------------------------
 
 def test_columns_are_found_in_any_order_with_extra_columns_between():
-    """RH first, then a battery column, the temperature, and the time last: each column is
-    found by its name."""
+    """Columns in an unusual order among extra columns are found by their names."""
     data = _csv("Humidity (%),Battery (V),Air temperature (°C),Sample index,Timestamp",
                 "55.5,3.01,21.25,1,2025-03-04 08:00:00",
                 "56.0,3.01,21.00,2,2025-03-04 08:05:00")
@@ -283,8 +281,7 @@ def test_columns_are_found_in_any_order_with_extra_columns_between():
 
 
 def test_several_title_and_settings_lines_above_the_header_are_passed_over():
-    """Five lines of title and settings (some with separators) come before the header;
-    the header line is reported."""
+    """Five title and settings lines above the header are passed over."""
     data = _csv("Export of unit 12", "Interval;60 s", "Start;2025-03-04 08:00", "",
                 "Channels;2", "Date and time;T (°C);RH (%)", "14.03.2025 08:00:00;20,5;61,0")
     result = logimport.read_logger_csv(data)
@@ -303,8 +300,7 @@ def test_a_temperature_column_named_only_by_its_unit_is_found():
 @pytest.mark.parametrize("when", ["15 Jan 2025 10:00", "15-Jan-25 10:00", "Jan 15, 2025 10:00",
                                   "January 15 2025 10:00:00", "15 jan 2025 10:00 AM"])
 def test_dates_with_the_month_as_a_word_are_read(when):
-    """Day-first and month-first dates with an English month name, two- or four-digit
-    years, with or without seconds and AM/PM, all read as 15 January 2025 10:00."""
+    """Dates with an English month name, day or month first, read as 15 January 2025 10:00."""
     data = _csv("Time;Temperature (°C);RH (%)", f"{when};18,0;65")
     assert logimport.read_logger_csv(data).samples[0].at == D(2025, 1, 15, 10, 0)
 

@@ -38,8 +38,7 @@ def test_a_first_import_keeps_every_sample():
 
 
 def test_samples_already_in_the_room_s_series_are_left_out_and_counted():
-    """A later export repeating two earlier times adds only the new time, counts 2 and names
-    the series that held them."""
+    """A later export repeating two times adds only the new one and counts the two."""
     survey = _imported(store.load_survey(FLAT),
                        _logger_file("2025-01-15 10:00", "2025-01-15 10:30"), "bed1")
     later = _logger_file("2025-01-15 10:00", "2025-01-15 10:30", "2025-01-15 11:00")
