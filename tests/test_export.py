@@ -231,7 +231,7 @@ def test_a_long_series_is_written_in_bounded_blocks():
             writes.append(len(text))
             return len(text)
 
-    assert export.write_csv(survey, Recorder()) == 23 + 20_000
+    assert export.write_csv(survey, Recorder()) == 23 + 20_000  # the example's 23 readings
     assert len(writes) >= 5 and max(writes) < 1_000_000
 
 
@@ -240,7 +240,7 @@ def test_a_long_series_is_written_in_bounded_blocks():
 def test_save_csv_writes_utf8_with_a_byte_order_mark(tmp_path):
     """The file starts with the UTF-8 byte-order mark and holds the header and rows."""
     out = tmp_path / "o.csv"
-    assert export.save_csv(store.load_survey(FLAT), out) == 23
+    assert export.save_csv(store.load_survey(FLAT), out) == 23  # the example's readings
     data = out.read_bytes()
     assert data.startswith(b"\xef\xbb\xbfvisit,") and data.count(b"\r\n") == 24
 

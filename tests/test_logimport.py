@@ -262,8 +262,8 @@ def test_temp_unit_against_the_header_is_obeyed_with_a_warning():
     result = logimport.read_logger_csv(data, temp_unit="c")
     assert result.samples[0].dry_bulb_c == 22.5
     assert result.unit_source == "stated"
-    assert result.notes == ["The header says °F; °C was stated: the temperatures are read "
-                            "as °C."]
+    assert result.notes == [("The header says °F; °C was stated: the temperatures are read "
+                             "as °C.")]
     agreeing = logimport.read_logger_csv(data, temp_unit="f")
     assert agreeing.unit_source == "header" and agreeing.notes == []
 

@@ -100,7 +100,7 @@ def test_a_long_room_list_is_cut_with_a_count():
     survey.rooms += [model.Room(id=f"r{n}", name=f"Room {n}") for n in range(25)]
     with pytest.raises(InputError) as err:
         logseries.room_id_for(survey, "attic")
-    assert err.value.allowed.endswith("and 22 more")
+    assert err.value.allowed.endswith("and 22 more")  # 5 + 25 rooms, 8 listed
 
 
 def test_an_unknown_instrument_names_the_quantity():
