@@ -142,9 +142,19 @@ def _text_cell(value: object, for_terminal: bool) -> str:
     text = "" if value is None else str(value)
     if for_terminal:
         text = visible(text, keep_newlines=True)
-    elif "\x00" in text:
-        text = text.replace("\x00", "\\x00")
+    elif not text.isprintable():  # kept as data, but never a NUL nor a lone surrogate
+        text = "".join(map(_writable, text))
     return _quote(spreadsheet_safe(text))
+
+
+def _writable(char: str) -> str:
+    """``char``, or a visible escape for the two that cannot go into the file: NUL (which
+    spreadsheets and many tools cut text at) and a lone surrogate (not encodable)."""
+    if char == "\x00":
+        return "\\x00"
+    if "\ud800" <= char <= "\udfff":
+        return f"\\u{ord(char):04x}"
+    return char
 
 
 def _quote(cell: str) -> str:

@@ -167,6 +167,16 @@ def test_no_nul_byte_is_ever_written():
     assert rows[1]["room_name"] == "Bed\\x00room"
 
 
+def test_a_lone_surrogate_is_written_as_an_escape():
+    """A lone surrogate in a survey made in memory is written as \\udc80, not an error."""
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = "Bed\udc80room"
+    out = io.StringIO()
+    export.write_csv(survey, out)
+    out.getvalue().encode("utf-8")
+    assert "Bed\\udc80room" in out.getvalue()
+
+
 def test_control_characters_are_kept_exact_for_a_file():
     """Without for_terminal an ESC in a name is data and is written as it is."""
     survey = store.load_survey(FLAT)
