@@ -286,3 +286,14 @@ def test_a_failed_save_leaves_the_old_file_and_no_temporary_file(tmp_path, monke
     with pytest.raises(SurveyFileError, match="no space left on device"):
         export.save_csv(store.load_survey(FLAT), out)
     assert out.read_text() == "old" and os.listdir(tmp_path) == ["o.csv"]
+
+
+def test_text_with_separators_quotes_and_line_breaks_reads_back_the_same():
+    """A name with a comma, quotes and a line break reads back unchanged (RFC 4180)."""
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = 'Bed, "main"\r\nroom'
+    survey = _with_logs(survey, model.LogSeries(room="bed1", source='a,"b".csv',
+                                                samples=_samples((18.0, 60.0))))
+    rows = _rows(survey)
+    assert rows[1]["room_name"] == 'Bed, "main"\r\nroom'
+    assert [r["location"] for r in rows if r["kind"] == "logger"] == ['a,"b".csv']

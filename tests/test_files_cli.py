@@ -606,3 +606,11 @@ def test_export_message_shows_the_csv_name_escaped(tmp_path, capsys):
     assert main(["export", str(FLAT), "--csv", str(out)]) == 0
     message = capsys.readouterr().out
     assert _no_raw_control(message) and "o\\x1b[2J.csv" in message
+
+
+def test_a_huge_option_value_gives_a_short_error_line(flat_and_log, capsys):
+    """A 100 000-character --room is quoted shortened: the error stays one short line."""
+    path, log = flat_and_log
+    assert main(["import-log", str(path), "--room", "x" * 100_000, "--csv", str(log)]) == 2
+    err = capsys.readouterr().err
+    assert len(err) < 700 and err.count("\n") == 1 and "…" in err
