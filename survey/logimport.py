@@ -140,13 +140,16 @@ def _is_time_only(name: str) -> bool:
     return bool(re.search(r"\btime\b|\bzeit\b|\bheure\b", name)) and "date" not in name
 
 
-def _is_temperature(name: str) -> bool:
+def _temperature_rank(name: str) -> int | None:
+    """0 for a name that says temperature, 1 for one that only carries a temperature unit
+    ("Sensor 2 (°C)", "degF"), ``None`` for any other (a dew point, a surface …)."""
     if any(word in name for word in ("dew", "wet bulb", "wetbulb", "surface", "heat index")):
-        return False
-    # A name that says temperature, or one that only carries a temperature unit
-    # ("Sensor 2 (°C)", "degF").
-    return bool(re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^air\b|°\s*[cf]\b"
-                          r"|\bdeg\s?[cf]\b", name))
+        return None
+    if re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^air\b", name):
+        return 0
+    if re.search(r"°\s*[cf]\b|\bdeg\s?[cf]\b", name) and not _is_rh(name):
+        return 1
+    return None
 
 
 def _is_rh(name: str) -> bool:
@@ -196,7 +199,9 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
             names = [_norm(cell) for cell in row]
             if len(names) < 3:
                 continue
-            temp = [i for i, n in enumerate(names) if _is_temperature(n)]
+            ranks = {i: _temperature_rank(n) for i, n in enumerate(names)}
+            temp = sorted((i for i, rank in ranks.items() if rank is not None),
+                          key=lambda i: (ranks[i], i))
             rh = [i for i, n in enumerate(names) if _is_rh(n)]
             times = [i for i, n in enumerate(names) if _is_time(n) and i not in temp + rh]
             if not (temp and rh and times):

@@ -335,3 +335,18 @@ def test_errors_name_the_quantity_not_an_option():
     note = logimport.read_logger_csv(_csv("Time,Temp (°F),RH", "2025-07-22 14:00,22.5,82"),
                                      temp_unit="c").notes
     assert note and "--" not in note[0]
+
+
+def test_a_column_that_says_temperature_wins_over_one_with_only_a_unit():
+    """With 'Probe (°C)' before 'Air temperature (°C)', the one that says temperature is read."""
+    data = _csv("Time,Probe (°C),Air temperature (°C),RH (%)", "2025-07-22 14:00,5.0,21.5,60")
+    result = logimport.read_logger_csv(data)
+    assert result.temperature_column == "Air temperature (°C)"
+    assert result.samples[0].dry_bulb_c == 21.5
+
+
+def test_an_rh_column_naming_a_reference_temperature_is_not_the_temperature():
+    """'RH at 20 °C (%)' is the RH column, not a temperature column."""
+    data = _csv("Time,RH at 20 °C (%),Reading (°C)", "2025-07-22 14:00,60,21.5")
+    result = logimport.read_logger_csv(data)
+    assert result.rh_column == "RH at 20 °C (%)" and result.temperature_column == "Reading (°C)"
