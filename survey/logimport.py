@@ -1,25 +1,28 @@
 """Reading a data logger's CSV export: time, air temperature and relative humidity.
 
-Loggers write CSV in many dialects. This reader finds its way through the common ones:
+Loggers write CSV in many layouts; the reader finds its columns by what the header says,
+not by where one maker puts them:
 
-* a preamble of title or serial-number lines before the column header;
-* comma, semicolon or tab separators, and a decimal comma (``21,5``);
-* UTF-8 (with or without a byte-order mark), UTF-16, or Windows-1252 text;
-* header spellings such as ``Time``, ``Date Time, GMT+01:00``, ``Timestamp``, separate
-  ``Date`` and ``Time`` columns; ``Temperature (°C)``, ``Temp, °F``, ``Celsius(°C)``,
-  ``T [degF]``; ``RH (%)``, ``Humidity(%rh)``, ``%RH``, ``Relative humidity``. Dew-point,
-  absolute-humidity and other columns are ignored;
-* the temperature unit from the header (°C, C, degC, Celsius, °F, F, degF, Fahrenheit) or a
-  units row just under it; °F is converted with t_C = (t_F − 32) × 5/9, the definition of
-  the Fahrenheit scale. A header without a unit needs the unit stated by the caller; a unit
-  stated against the header's wins, and the result's notes say so;
-* RH in percent, or written as fractions (``0.65``): when every RH value in the file is at
-  most 1 they are read as fractions × 100 (and the notes say so); when only some rows are
-  below 1 % among percentages, those rows are skipped as looking like fractions;
-* times in ISO 8601 (``2025-01-15 10:00:00``, ``2025-01-15T10:00``), or as ``15/01/2025 10:00``,
-  ``01/15/2025 10:00:00 AM``, ``15.01.2025 10:00``. Whether ``03/04/2025`` is day/month or
-  month/day is settled by any day above 12 in the file, counting only dates that are real in
-  one of the orders (a row such as ``13/15/2025`` is skipped, not taken as evidence); if no
+* the header may follow title, serial-number or settings lines (it is looked for in the
+  first :data:`HEADER_SEARCH_LINES` lines); other columns (row number, dew point, battery …)
+  are ignored, in any order;
+* commas, semicolons or tabs; decimal commas (``21,5``) and minus signs (``−3``); UTF-8
+  (with or without a byte-order mark), UTF-16 or Windows-1252 text;
+* the time: one column whose name says date or time (in English and a few other languages),
+  or a date column and a clock column side by side;
+* the temperature: the column whose name says temperature or only carries a temperature
+  unit, never a dew point, wet bulb or surface; its unit (°C, C, degC, Celsius, °F, F, degF,
+  Fahrenheit) from the name or a row of units under the header; °F is converted with
+  t_C = (t_F − 32) × 5/9, the definition of the scale. Without a unit the caller must state
+  it; a unit stated against the header's wins, and the notes say so;
+* RH: the column whose name says relative humidity, humidity or RH, never a dew point or an
+  absolute or specific humidity. When every value is at most 1 they are fractions, × 100
+  (the notes say so); a few values below 1 % among percentages are skipped as fractions;
+* times in ISO 8601 (with or without a UTC offset), day or month first with slashes, dots
+  or dashes (``15/01/2025 10:00``, ``15.01.2025``, ``01/15/2025 10:00:00 AM``), two-digit
+  years, AM/PM, or with the month as a word (``15 Jan 2025 10:00``, ``Jan 15, 2025``).
+  Whether ``03/04/2025`` is day or month first is settled by any day above 12, counting only
+  dates real in one of the orders (``13/15/2025`` is skipped, not taken as evidence); if no
   date settles it, or dates contradict each other, the caller must say. Times with and
   without a UTC offset are not mixed: the kind most rows have is kept.
 
@@ -27,7 +30,9 @@ Every data row that cannot be used is reported with its line number and the reas
 value, not a number, out of the reading range, a repeated time, no time, a line far too
 long to be a logger row); nothing is silently dropped. Whatever the bytes, the reader
 returns a result or raises :class:`~survey.errors.InputError` — for what the caller asked
-for and for a file that cannot be used at all — and nothing else.
+for and for a file that cannot be used at all — and nothing else. The error names the
+quantity (:data:`FILE_FIELD`, :data:`UNIT_FIELD`, :data:`ORDER_FIELD`), never an option of
+one face.
 """
 
 from __future__ import annotations
@@ -36,6 +41,7 @@ import csv
 import datetime as dt
 import hashlib
 import io
+import itertools
 import math
 import re
 from dataclasses import dataclass, field
@@ -47,6 +53,11 @@ from survey.psychro import DRY_BULB_MAX_C, DRY_BULB_MIN_C, RH_MIN_PCT
 
 TempUnit = Literal["c", "f"]
 DateOrder = Literal["dmy", "mdy", "ymd"]
+
+#: The quantities an :class:`InputError` from :func:`read_logger_csv` names.
+FILE_FIELD = "logger file"
+UNIT_FIELD = "temperature unit"
+ORDER_FIELD = "date order"
 
 #: How far into the file the column header is looked for.
 HEADER_SEARCH_LINES = 40
@@ -71,8 +82,9 @@ class LoggerData:
     temperature_column: str
     rh_column: str
     temperature_unit: TempUnit
-    #: Where the unit came from: "header", "units row" (agreeing with ``--temp-unit`` if
-    #: given) or "stated" (``--temp-unit`` alone, or against the header: see ``notes``).
+    #: Where the unit came from: "header", "units row" (agreeing with the stated unit if
+    #: one was given) or "stated" (the caller's unit alone, or against the header: see
+    #: ``notes``).
     unit_source: str
     date_order: DateOrder | None
     delimiter: str
@@ -128,11 +140,16 @@ def _is_time_only(name: str) -> bool:
     return bool(re.search(r"\btime\b|\bzeit\b|\bheure\b", name)) and "date" not in name
 
 
-def _is_temperature(name: str) -> bool:
+def _temperature_rank(name: str) -> int | None:
+    """0 for a name that says temperature, 1 for one that only carries a temperature unit
+    ("Sensor 2 (°C)", "degF"), ``None`` for any other (a dew point, a surface …)."""
     if any(word in name for word in ("dew", "wet bulb", "wetbulb", "surface", "heat index")):
-        return False
-    return bool(re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^°[cf]$|^deg\s?[cf]$|^air\b",
-                          name))
+        return None
+    if re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^air\b", name):
+        return 0
+    if re.search(r"°\s*[cf]\b|\bdeg\s?[cf]\b", name) and not _is_rh(name):
+        return 1
+    return None
 
 
 def _is_rh(name: str) -> bool:
@@ -182,7 +199,9 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
             names = [_norm(cell) for cell in row]
             if len(names) < 3:
                 continue
-            temp = [i for i, n in enumerate(names) if _is_temperature(n)]
+            ranks = {i: _temperature_rank(n) for i, n in enumerate(names)}
+            temp = sorted((i for i, rank in ranks.items() if rank is not None),
+                          key=lambda i: (ranks[i], i))
             rh = [i for i, n in enumerate(names) if _is_rh(n)]
             times = [i for i, n in enumerate(names) if _is_time(n) and i not in temp + rh]
             if not (temp and rh and times):
@@ -204,12 +223,20 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
 
 # --- values ------------------------------------------------------------------------------
 
-_DATE_TIME = re.compile(
-    r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})"
-    r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
-    r"\s*(?P<ampm>[ap]\.?m\.?)?)?$",
-    re.I,
-)
+_CLOCK = (r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
+          r"\s*(?P<ampm>[ap]\.?m\.?)?)?$")
+#: A date with the month as an English word or its abbreviation, month first or day first:
+#: ``Jan 15, 2025``, ``January 15 2025``, ``15 Jan 2025``, ``15-Jan-25``.
+_YEAR = r"(?P<year>\d{4}|\d{2})"
+_NAMED_MONTH = (
+    re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+" + _YEAR + _CLOCK,
+               re.IGNORECASE),
+    re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+" + _YEAR + _CLOCK,
+               re.IGNORECASE))
+_MONTH_NAMES = ("january", "february", "march", "april", "may", "june", "july", "august",
+                "september", "october", "november", "december")
+_DATE_TIME = re.compile(r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})" + _CLOCK,
+                        re.IGNORECASE)
 
 
 def _clean(cell: str) -> str:
@@ -243,6 +270,11 @@ def _build_time(m: re.Match[str], order: DateOrder | None) -> dt.datetime:
         day, month, year = a, b, c
     if year < 100:
         year += 2000
+    return dt.datetime(year, month, day, *_clock(m))
+
+
+def _clock(m: re.Match[str]) -> tuple[int, int, int, int]:
+    """Hour, minute, second and microsecond of a matched clock (midnight when absent)."""
     hour = int(m["h"] or 0)
     minute = int(m["mi"] or 0)
     second = int(m["s"] or 0)
@@ -251,7 +283,17 @@ def _build_time(m: re.Match[str], order: DateOrder | None) -> dt.datetime:
         if not 1 <= hour <= 12:
             raise ValueError("hour out of range for AM/PM")
         hour = hour % 12 + (12 if m["ampm"][0].lower() == "p" else 0)
-    return dt.datetime(year, month, day, hour, minute, second, micro)
+    return hour, minute, second, micro
+
+
+def _named_month_time(m: re.Match[str]) -> dt.datetime | None:
+    word, year = m["month"].lower(), int(m["year"])
+    month = next((n for n, name in enumerate(_MONTH_NAMES, 1) if name.startswith(word)), None)
+    try:
+        return dt.datetime(year + 2000 if year < 100 else year, month or 0, int(m["day"]),
+                           *_clock(m))
+    except ValueError:
+        return None
 
 
 def _parse_time(text: str, order: DateOrder | None) -> dt.datetime | None:
@@ -264,6 +306,9 @@ def _parse_time(text: str, order: DateOrder | None) -> dt.datetime | None:
             return _build_time(m, order)
         except ValueError:
             return None
+    named = _NAMED_MONTH[0].match(text) or _NAMED_MONTH[1].match(text)
+    if named is not None and len(named["month"]) >= 3:
+        return _named_month_time(named)
     try:
         return dt.datetime.fromisoformat(text)
     except ValueError:
@@ -379,15 +424,16 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
 
     ``temp_unit`` ("c" or "f") is needed when the header does not state the unit and
     overrides it when it does (the result's notes say so); ``date_order`` is needed when
-    the dates are ambiguous. Raises :class:`~survey.errors.InputError` (field ``--csv``,
-    ``--temp-unit`` or ``--date-order``) when the file cannot be read as CSV, no usable
+    the dates are ambiguous. Raises :class:`~survey.errors.InputError` (field
+    :data:`FILE_FIELD`, :data:`UNIT_FIELD` or :data:`ORDER_FIELD`: the quantity, which a
+    face re-labels with its own option name) when the file cannot be read as CSV, no usable
     header is found, the unit or date order is unknown, or no row at all can be used.
     Nothing else escapes, whatever the bytes.
     """
     if temp_unit not in (None, "c", "f"):
-        raise InputError("--temp-unit", temp_unit, "c (°C) or f (°F)")
+        raise InputError(UNIT_FIELD, temp_unit, "c (°C) or f (°F)")
     if date_order not in (None, "dmy", "mdy", "ymd"):
-        raise InputError("--date-order", date_order, "dmy, mdy or ymd")
+        raise InputError(ORDER_FIELD, date_order, "dmy, mdy or ymd")
     digest = hashlib.sha256(data).hexdigest()
     text, encoding = _decode_text(data)
     # CR LF and a lone CR (old Mac exports) end lines as LF does.
@@ -396,12 +442,12 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     try:
         found = _find_layout(text)
     except _CsvProblem as exc:
-        raise InputError("--csv", f"(line {exc.line})", f"cannot be read as CSV: "
+        raise InputError(FILE_FIELD, f"(line {exc.line})", f"cannot be read as CSV: "
                                                         f"{exc.detail}") from None
     if found is None:
         first = next((line for line in text.splitlines() if line.strip()), "")
         raise InputError(
-            "--csv", _show(first) if first else "(empty file)",
+            FILE_FIELD, _show(first) if first else "(empty file)",
             "no header row with a time, a temperature and a relative-humidity column was found "
             f"in the first {HEADER_SEARCH_LINES} lines (e.g. 'Time,Temperature (°C),RH (%)')")
     layout, rows = found
@@ -420,9 +466,9 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     if temp_unit is None:
         if header_unit is None:
             raise InputError(
-                "--temp-unit", "(not given)",
+                UNIT_FIELD, "(not given)",
                 f"the temperature column {names[layout.temp_col].strip()!r} does not say its "
-                "unit; give --temp-unit c or --temp-unit f")
+                "unit; state it: c (°C) or f (°F)")
         temp_unit, unit_source = header_unit, where_unit
     elif header_unit is None:
         unit_source = "stated"
@@ -431,8 +477,8 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     else:
         unit_source = "stated"
         said, given = ("°F", "°C") if header_unit == "f" else ("°C", "°F")
-        notes.append(f"The {where_unit} says {said}; --temp-unit {temp_unit} was given: the "
-                     f"temperatures are read as {given}.")
+        notes.append(f"The {where_unit} says {said}; {given} was stated: the temperatures "
+                     f"are read as {given}.")
     if unit_row:
         data_rows = data_rows[1:]
     row_offset = layout.header_index + 1 + (1 if unit_row else 0)
@@ -451,17 +497,18 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
         if detected == "ambiguous":
             (line, sample), = examples
             raise InputError(
-                "--date-order", "(not given)",
+                ORDER_FIELD, "(not given)",
                 f"dates such as {_show(sample)} (line {line}) could be day/month/year or "
-                "month/day/year and no day above 12 settles it; give --date-order dmy or "
-                "--date-order mdy")
+                "month/day/year and no day above 12 settles it; state the order: dmy "
+                "(day/month/year) or mdy (month/day/year)")
         if detected == "conflict":
             (dmy_line, dmy_text), (mdy_line, mdy_text) = examples
             raise InputError(
-                "--date-order", "(not given)",
+                ORDER_FIELD, "(not given)",
                 f"the dates contradict each other: {_show(dmy_text)} (line {dmy_line}) is "
                 f"only possible as day/month/year, {_show(mdy_text)} (line {mdy_line}) only "
-                "as month/day/year; give --date-order dmy or --date-order mdy")
+                "as month/day/year; state the order: dmy (day/month/year) or mdy "
+                "(month/day/year)")
         if detected in ("dmy", "mdy"):
             order = detected  # type: ignore[assignment]
 
@@ -548,9 +595,9 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     skipped.sort(key=lambda row: row.line)
     if not samples:
         reasons = "; ".join(f"line {s.line}: {s.reason}" for s in skipped[:3])
-        raise InputError("--csv", f"({len(data_rows)} data rows)",
+        raise InputError(FILE_FIELD, f"({len(data_rows)} data rows)",
                          "no row could be imported" + (f" ({reasons})" if reasons else ""))
-    reordered = any(b.at < a.at for a, b in zip(samples, samples[1:]))
+    reordered = any(b.at < a.at for a, b in itertools.pairwise(samples))
     if reordered:
         samples.sort(key=lambda s: s.at)
     return LoggerData(

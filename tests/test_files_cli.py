@@ -135,7 +135,7 @@ def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys)
     pressure = 101325 * (1 - 2.25577e-5 * survey.site.altitude_m) ** 5.2559  # ASHRAE ch. 1 eqn 3
     bedroom = next(r for r in rows if r["kind"] == "room_air" and r["room_id"] == "bed1")
     t, rh = float(bedroom["dry_bulb_c"]), float(bedroom["rh_pct"])
-    assert float(bedroom["pressure_hpa"]) == pytest.approx(pressure / 100, abs=0.05)
+    assert float(bedroom["pressure_pa"]) == pytest.approx(pressure, abs=1)  # written to 1 Pa
     dew = HAPropsSI("D", "T", t + 273.15, "P", pressure, "R", rh / 100) - 273.15
     w = HAPropsSI("W", "T", t + 273.15, "P", pressure, "R", rh / 100)
     assert float(bedroom["dew_point_c"]) == pytest.approx(dew, abs=0.05)
@@ -143,7 +143,7 @@ def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys)
     corner = next(r for r in rows if r["kind"] == "surface" and "wardrobe" in r["location"])
     assert corner["element"] == "external_wall" and corner["mould_visible"] == "yes"
     ts = float(corner["surface_temp_c"])
-    assert float(corner["margin_to_condensation_k"]) == pytest.approx(ts - dew, abs=0.06)
+    assert float(corner["dew_point_margin_k"]) == pytest.approx(ts - dew, abs=0.06)
     vapour = float(bedroom["vapour_pressure_pa"])
     saturation_at_surface = HAPropsSI("P_w", "T", ts + 273.15, "P", pressure, "R", 1.0)
     # CoolProp's saturated vapour pressure in air includes the enhancement factor (about
@@ -161,7 +161,7 @@ def test_export_in_ip_units(tmp_path):
     assert outdoor["kind"] == "outdoor_air"
     assert float(outdoor["dry_bulb_f"]) == pytest.approx(6.0 * 9 / 5 + 32)
     w = HAPropsSI("W", "T", 6.0 + 273.15, "P", 101325 * (1 - 2.25577e-5 * 62) ** 5.2559, "R", 0.88)
-    assert float(outdoor["humidity_ratio_gr_per_lb"]) == pytest.approx(7000 * w, rel=0.007)
+    assert float(outdoor["grains_per_pound"]) == pytest.approx(7000 * w, rel=0.007)
     outlets = [r for r in rows if r["kind"] == "dehumidifier_outlet"]
     assert len(outlets) == 3 and all(float(r["grain_depression_gr_per_lb"]) > 0 for r in outlets)
 
@@ -193,9 +193,10 @@ def test_export_of_a_damaged_survey_exits_1(tmp_path, capsys):
 
 # --- import-log --------------------------------------------------------------------------
 
+# An invented °F layout: a title line, a row-number column, US dates with AM/PM.
 LOG = (
-    '"Plot Title: Main bedroom"\r\n'
-    '"#","Date Time, GMT+00:00","Temp, °F","RH, %"\r\n'
+    '"Unit 7 - main bedroom"\r\n'
+    '"No.","Sample time, local","Air temp, °F","Rel. humidity, %"\r\n'
     "1,01/15/25 10:00:00 AM,63.5,72.0\r\n"
     "2,01/15/25 10:30:00 AM,63.9,71.0\r\n"
     "3,01/15/25 11:00:00 AM,Err,70.0\r\n"
@@ -346,7 +347,7 @@ def test_import_log_summary_names_where_the_unit_came_from(flat_and_log, capsys,
                  "--temp-unit", "c"]) == 0
     out = capsys.readouterr().out
     assert "(°C, unit as given by --temp-unit)" in out and "the stated" not in out
-    assert "The header says °F; --temp-unit c was given: the temperatures are read as °C." in out
+    assert "The header says °F; °C was stated: the temperatures are read as °C." in out
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run"]) == 0
     assert "(°F, converted to °C, unit from the header)" in capsys.readouterr().out
 
@@ -393,7 +394,7 @@ def test_validate_says_a_lock_is_stale(tmp_path, capsys):
     store.lock_path(path).write_bytes(msgspec.json.encode(info))
     assert main(["validate", str(path)]) == 0
     out = capsys.readouterr().out
-    assert "a stale lock from avery" in out and "left by a process that is gone" in out
+    assert "a stale lock from avery" in out and "its process is gone" in out
     assert "open for editing" not in out
 
 
@@ -433,10 +434,10 @@ def test_export_neutralises_spreadsheet_formulas(tmp_path):
     cells = [r["location"] for r in rows if r["kind"] == "surface"][:len(texts)]
     assert cells == ["'" + t for t in texts[:6]] + ["plain text", "-5"]
     outdoor = rows[0]
-    assert outdoor["dry_bulb_c"] == "-3.5" and outdoor["dew_point_c"].startswith("-")
+    assert outdoor["dry_bulb_c"] == "-3.50" and outdoor["dew_point_c"].startswith("-")
 
 
-def test_export_writes_through_the_store_s_crash_safe_writer(tmp_path, capsys):
+def test_export_writes_through_a_crash_safe_writer(tmp_path, capsys):
     """The CSV's temporary file is not the old predictable name: a symlink planted there
     is left alone and its target unchanged."""
     victim = tmp_path / "victim.txt"
@@ -458,3 +459,158 @@ def test_export_of_a_survey_without_readings_says_why(tmp_path, capsys):
     assert "Wrote 0 rows" in message
     assert "the survey has no visits or logger readings yet" in message
     assert len(out.read_text(encoding="utf-8-sig").splitlines()) == 1
+
+
+# --- help, option names, and text from people and files ----------------------------------
+
+FILE_COMMANDS = ("new", "validate", "export", "import-log", "schema")
+
+
+@pytest.mark.parametrize("command", FILE_COMMANDS)
+def test_every_option_and_argument_of_the_file_commands_has_help(command):
+    """Each option and positional argument of the file commands carries a help text."""
+    from survey.cli import _subcommands, build_parser
+
+    parser = _subcommands(build_parser())[command]
+    missing = [action.dest for action in parser._actions
+               if action.dest != "help" and not (action.help or "").strip()]
+    assert missing == []
+
+
+def test_a_logger_header_without_a_unit_is_reported_under_temp_unit(flat_and_log, capsys,
+                                                                     tmp_path):
+    """The core's "temperature unit" error reaches the user as --temp-unit, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "plain.csv"
+    log.write_text("time,temp,rh\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    err = capsys.readouterr().err
+    assert err.startswith("survey: --temp-unit (not given): the temperature column 'temp' "
+                          "does not say its unit")
+
+
+def test_a_logger_file_without_a_header_is_reported_under_csv(flat_and_log, capsys, tmp_path):
+    """The core's "logger file" error reaches the user as --csv, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "junk.csv"
+    log.write_text("a,b,c\n1,2,3\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    assert capsys.readouterr().err.startswith("survey: --csv 'a,b,c': no header row")
+
+
+def test_ambiguous_dates_are_reported_under_date_order(flat_and_log, capsys, tmp_path):
+    """The core's "date order" error reaches the user as --date-order, exit 2."""
+    path, _log = flat_and_log
+    log = tmp_path / "dates.csv"
+    log.write_text("Time,Temp (C),RH\n03/02/2025 10:00,17.5,82\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
+    assert capsys.readouterr().err.startswith("survey: --date-order (not given): dates such as")
+
+
+def _no_raw_control(text: str) -> bool:
+    """True when ``text`` has no control or format character other than newline and tab."""
+    import unicodedata
+
+    return not any(unicodedata.category(c) in ("Cc", "Cf") and c not in "\n\t" for c in text)
+
+
+def test_import_log_output_shows_room_names_and_file_text_escaped(tmp_path, capsys):
+    """ESC sequences in a room name, a file name and the file's text are printed visibly."""
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = "Bed\x1b]0;owned\x07room"
+    path = tmp_path / "s.json"
+    store.save_survey(survey, path)
+    log = tmp_path / "odd\x1b[2Jname.csv"
+    log.write_text("Time,Temp \x1b[31m(°C),RH (%)\n2025-01-15 10:00,18.5,70\n"
+                   "2025-01-15 10:30,\x1b[5mhot,70\n", encoding="utf-8")
+    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out)
+    assert "Bed\\x1b]0;owned\\x07room (bed1)" in out and "odd\\x1b[2Jname.csv" in out
+
+
+def test_an_unknown_room_with_escapes_is_reported_escaped(flat_and_log, capsys):
+    """An unknown --room holding ESC and a bidi override is quoted visibly in the error."""
+    path, log = flat_and_log
+    assert main(["import-log", str(path), "--room", "att\x1b[1mic\u202e", "--csv",
+                 str(log)]) == 2
+    err = capsys.readouterr().err
+    assert _no_raw_control(err) and "att\\x1b[1mic\\u202e" in err
+
+
+def test_validate_shows_an_unknown_key_and_the_file_name_escaped(tmp_path, capsys):
+    """An unknown key and a file name holding ESC sequences are reported visibly."""
+    doc = json.loads(FLAT.read_text())
+    doc["site"]["\x1b[31mcolour"] = 1
+    path = tmp_path / "bad\x1b[0m.json"
+    path.write_text(json.dumps(doc))
+    assert main(["validate", str(path)]) == 1
+    err = capsys.readouterr().err
+    assert _no_raw_control(err) and "bad\\x1b[0m.json" in err
+
+
+def test_validate_ok_line_shows_the_file_name_escaped(tmp_path, capsys):
+    """A good survey whose file name holds a CR is listed with the CR visible."""
+    path = tmp_path / "flat\r.json"
+    shutil.copy(FLAT, path)
+    assert main(["validate", str(path)]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out) and "flat\\x0d.json: ok (" in out
+
+
+def test_new_prints_the_site_and_file_name_escaped(tmp_path, capsys):
+    """`survey new` with ESC in the site and the file name prints both visibly."""
+    path = tmp_path / "n\x1b[2J.json"
+    assert main(["new", str(path), "--site", "Site \x1b[31mred"]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out) and "n\\x1b[2J.json" in out and "Site \\x1b[31mred" in out
+
+
+def _survey_with_odd_room(tmp_path: Path) -> Path:
+    survey = store.load_survey(FLAT)
+    survey.rooms[0].name = "Bed\x1b[31m\x00room"
+    path = tmp_path / "s.json"
+    store.save_survey(survey, path)
+    return path
+
+
+def test_export_to_a_terminal_escapes_control_characters(tmp_path, capsys, monkeypatch):
+    """`export --csv -` on a terminal writes an ESC in a room name as \\x1b."""
+    path = _survey_with_odd_room(tmp_path)
+    monkeypatch.setattr(sys.stdout, "isatty", lambda: True)
+    assert main(["export", str(path), "--csv", "-"]) == 0
+    out = capsys.readouterr().out
+    assert _no_raw_control(out.replace("\r\n", "\n")) and "Bed\\x1b[31m\\x00room" in out
+
+
+def test_export_to_a_pipe_keeps_the_text_but_no_nul(tmp_path):
+    """`export --csv -` into a pipe keeps the ESC as data but never writes a NUL byte."""
+    path = _survey_with_odd_room(tmp_path)
+    result = subprocess.run([sys.executable, "-m", "survey", "export", str(path), "--csv", "-"],
+                            capture_output=True, timeout=60, cwd=ROOT, check=False)
+    assert result.returncode == 0 and b"\x00" not in result.stdout
+    assert b"Bed\x1b[31m\\x00room" in result.stdout
+
+
+def test_export_file_has_no_nul_bytes(tmp_path):
+    """A CSV file written from a survey with a NUL in a name holds no NUL byte."""
+    path = _survey_with_odd_room(tmp_path)
+    out = tmp_path / "o.csv"
+    assert main(["export", str(path), "--csv", str(out)]) == 0
+    assert b"\x00" not in out.read_bytes()
+
+
+def test_export_message_shows_the_csv_name_escaped(tmp_path, capsys):
+    """The "Wrote … to NAME" line shows a control character in the CSV's name visibly."""
+    out = tmp_path / "o\x1b[2J.csv"
+    assert main(["export", str(FLAT), "--csv", str(out)]) == 0
+    message = capsys.readouterr().out
+    assert _no_raw_control(message) and "o\\x1b[2J.csv" in message
+
+
+def test_a_huge_option_value_gives_a_short_error_line(flat_and_log, capsys):
+    """A 100 000-character --room is quoted shortened: the error stays one short line."""
+    path, log = flat_and_log
+    assert main(["import-log", str(path), "--room", "x" * 100_000, "--csv", str(log)]) == 2
+    err = capsys.readouterr().err
+    assert len(err) < 700 and err.count("\n") == 1 and "…" in err

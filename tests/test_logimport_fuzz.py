@@ -1,6 +1,6 @@
 """The logger reader on random input: a result or an InputError, never another exception.
 
-Random bytes, random text, and — to get past the header search — random rows under real
+Random bytes, random text, and — to get past the header search — random rows under logger-like
 headers with random cells drawn from what logger files hold (numbers with decimal commas,
 dates in several orders, offsets, AM/PM, quotes, separators, empty cells, long cells).
 Every sample the reader returns must be one a survey file accepts.
@@ -21,9 +21,9 @@ _SETTINGS = settings(max_examples=int(__import__("os").environ.get("FUZZ_N", "15
 
 _HEADERS = [
     "Time,Temperature (°C),RH (%)",
-    '"#","Date Time, GMT+00:00","Temp, °F","RH, %"',
-    "Zeit;Temperatur [°C];Feuchte [%rH]",
-    "Date\tTime\tCelsius(°C)\tHumidity(%rh)",
+    '"No.","Sample time, local","Air temp, °F","Rel. humidity, %"',
+    "Datum/Zeit;Lufttemperatur [°C];rel. Feuchte [%]",
+    "Date\tTime\tReading °C\tHumidity %",
     "timestamp,temp,rh",
     "Time,Temperature,Humidity",
 ]
@@ -56,7 +56,8 @@ def _read(data: bytes, **options) -> None:
     try:
         result = logimport.read_logger_csv(data, **options)
     except InputError as exc:
-        assert exc.field in ("--csv", "--temp-unit", "--date-order") and exc.allowed
+        assert exc.field in (logimport.FILE_FIELD, logimport.UNIT_FIELD,
+                             logimport.ORDER_FIELD) and exc.allowed
         return
     assert result.samples
     for sample in result.samples:
@@ -74,9 +75,9 @@ def test_random_bytes_never_raise_anything_but_input_error(data):
 @_SETTINGS
 @given(_logger_files(), st.sampled_from([None, "c", "f"]),
        st.sampled_from([None, "dmy", "mdy", "ymd"]))
-def test_random_rows_under_real_headers_never_raise_anything_but_input_error(
+def test_random_rows_under_logger_headers_never_raise_anything_but_input_error(
         data, temp_unit, date_order):
-    """Random cells under real logger headers, with any options: a result or InputError,
+    """Random cells under logger-like headers, with any options: a result or InputError,
     and every sample returned is valid for a survey file."""
     _read(data, temp_unit=temp_unit, date_order=date_order)
 
@@ -100,4 +101,4 @@ def test_a_quoted_field_spanning_many_lines_beyond_the_limit_is_an_input_error()
     data += ("y" * 5000 + "\n") * 40
     with pytest.raises(InputError) as err:
         logimport.read_logger_csv(data.encode())
-    assert err.value.field == "--csv" and "cannot be read as CSV" in err.value.allowed
+    assert err.value.field == "logger file" and "cannot be read as CSV" in err.value.allowed
