@@ -26,9 +26,8 @@ Conventions
 Checks that span records (unique ids, references to rooms and instruments that exist) are in
 :func:`problems`; the store runs them on every load and save. A record built in memory (a
 reading typed into a form) is checked with :func:`survey.store.check_record`, which words
-its problems as the file errors are worded. This module imports nothing of the store (the
-one exception, the compatibility name :func:`new_survey`, goes once the faces call
-``store.new_survey``).
+its problems as the file errors are worded; a new survey is made by
+:func:`survey.store.new_survey`. This module imports nothing of the store.
 
 The records' docstrings and ``Meta`` descriptions are the descriptions ``survey schema``
 prints: they are plain text, with no markup.
@@ -90,7 +89,7 @@ Element = Literal[
 #: ``mc_pct``: timber moisture content, % of oven-dry mass (pin meter on wood);
 #: ``wme_pct``: wood moisture equivalent, % (the reading a meter gives on a non-wood material,
 #: as the moisture content wood would have in equilibrium with it);
-#: ``relative``: the meter's own relative scale (comparative only, e.g. 0–100 or 0–999).
+#: ``relative``: the meter's own relative scale (comparative only; its range is the meter's).
 MoistureScale = Literal["mc_pct", "wme_pct", "relative"]
 MeterMethod = Literal["pin", "pinless"]
 Odour = Literal["none", "musty", "earthy", "sewage", "chemical", "other"]
@@ -397,12 +396,6 @@ class Survey(Struct, kw_only=True, forbid_unknown_fields=True):
 
 # --- helpers -----------------------------------------------------------------------------
 
-def new_survey(reference: str, **site_fields: object) -> Survey:
-    """Compatibility name for :func:`survey.store.new_survey`, kept only until
-    ``survey/commands/files.py`` calls that; new code uses the store's."""
-    from survey.store.explain import new_survey as checked_new_survey  # transitional
-
-    return checked_new_survey(reference, **site_fields)
 
 
 def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:

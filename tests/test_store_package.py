@@ -67,14 +67,9 @@ def test_no_store_module_is_large(module):
 
 
 def test_model_imports_nothing_of_the_store():
-    """survey/model.py has no import of survey.store, except the transitional
-    compatibility name new_survey (kept until the faces call store.new_survey)."""
+    """survey/model.py has no import of survey.store."""
     tree = ast.parse((ROOT / "survey" / "model.py").read_text())
-    allowed = {node for fn in tree.body if isinstance(fn, ast.FunctionDef)
-               and fn.name == "new_survey" for node in ast.walk(fn)}
     for node in ast.walk(tree):
-        if node in allowed:
-            continue
         if isinstance(node, ast.ImportFrom):
             names = [node.module or ""] + [f"{node.module}.{a.name}" for a in node.names]
         elif isinstance(node, ast.Import):

@@ -149,7 +149,7 @@ _SITE_OPTIONS = {"reference": "--site", "address": "--address", "client": "--cli
 
 @_safe_errors
 def run_new(args: argparse.Namespace) -> int:
-    from survey import model, psychro, store, units
+    from survey import psychro, store, units
 
     fields: dict[str, Any] = {"address": args.address, "client": args.client,
                               "inspector": args.inspector, "purpose": args.purpose,
@@ -166,7 +166,7 @@ def run_new(args: argparse.Namespace) -> int:
         option = "--altitude" if args.altitude is not None else "--pressure"
         raise InputError(option, getattr(args, option[2:]), exc.allowed) from None
     try:
-        survey = model.new_survey(args.site, **fields)
+        survey = store.new_survey(args.site, **fields)
     except InputError as exc:
         name = exc.field.split(".")[-1]
         raise exc.with_field(_SITE_OPTIONS.get(name, exc.field)) from None
