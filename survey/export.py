@@ -25,16 +25,13 @@ from __future__ import annotations
 import datetime as dt
 import os
 import re
-import stat
-import tempfile
 from collections.abc import Iterator
-from pathlib import Path
 from typing import TYPE_CHECKING, Literal, TextIO
 
 import msgspec
 
 from survey import psychro
-from survey.errors import InputError, SurveyFileError
+from survey.errors import InputError
 from survey.safe_text import visible
 
 if TYPE_CHECKING:
@@ -434,92 +431,22 @@ def save_csv(survey: Survey, path: str | os.PathLike[str], system: UnitSystem | 
     count.
 
     UTF-8 with a byte-order mark, so that spreadsheet programs read names correctly. The
-    rows go to a uniquely named temporary file created exclusively in the same folder,
-    which is fsynced and renamed over ``path`` in one step, then the folder is fsynced: a
-    crash leaves the old file or the new one. A read-only existing file is refused; the
-    permissions of a file replaced are kept. Raises
-    :class:`~survey.errors.SurveyFileError` ("not written: …") on any failure.
-
-    (:func:`survey.store.write_file_atomically` does the same for data held in memory; a
-    large export is written as it is made instead.)
+    blocks go through :func:`survey.store.write_file_atomically` as they are made (a
+    temporary file in the same folder, fsynced, renamed over ``path``): a crash leaves the
+    old file or the new one. Raises :class:`~survey.errors.SurveyFileError` ("not written:
+    …") on any failure.
     """
-    shown = Path(path)
-    target = Path(os.path.realpath(shown)) if shown.is_symlink() else shown
-    mode = _writable_mode(target, shown)
-    try:
-        fd, tmp_name = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp",
-                                        dir=target.parent if str(target.parent) else ".")
-    except OSError as exc:
-        raise SurveyFileError(shown, "", f"not written: {_os_words(exc)}; "
-                                         f"{_untouched(mode)}") from None
-    tmp = Path(tmp_name)
-    try:
-        os.fchmod(fd, mode if mode is not None else 0o666 & ~_umask())
-        with open(fd, "w", encoding="utf-8-sig", newline="", buffering=1 << 20) as handle:
-            count = write_csv(survey, handle, system, include_logs)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.replace(tmp, target)
-    except OSError as exc:
-        _remove_quietly(tmp)
-        raise SurveyFileError(shown, "", f"not written: {_os_words(exc)}; "
-                                         f"{_untouched(mode)}") from None
-    except BaseException:
-        _remove_quietly(tmp)
-        raise
-    _fsync_dir(target.parent)
+    from survey import store
+
+    count = 0
+
+    def chunks():
+        nonlocal count
+        yield "\ufeff".encode()
+        for text, rows in csv_blocks(survey, system, include_logs):
+            count += rows
+            yield text.encode("utf-8")
+
+    store.write_file_atomically(path, chunks())
     return count
-
-
-def _umask() -> int:
-    mask = os.umask(0)
-    os.umask(mask)
-    return mask
-
-
-def _writable_mode(target: Path, shown: Path) -> int | None:
-    """The permission bits of the file about to be replaced (``None`` if there is none),
-    after refusing a folder and a file that is read-only for this user."""
-    try:
-        current = os.stat(target)
-    except FileNotFoundError:
-        return None
-    except OSError as exc:
-        raise SurveyFileError(shown, "", f"not written: {_os_words(exc)}") from None
-    if stat.S_ISDIR(current.st_mode):
-        raise SurveyFileError(shown, "", "not written: the name is a folder")
-    mode = stat.S_IMODE(current.st_mode)
-    if not os.access(target, os.W_OK) or not mode & 0o222:
-        raise SurveyFileError(shown, "", f"not written: the file is read-only (mode "
-                                         f"{mode:04o}) and is left as it is; write the CSV "
-                                         f"under another name, or make it writable first")
-    return mode
-
-
-def _untouched(mode: int | None) -> str:
-    return "the file on disk is unchanged" if mode is not None else "no file was created"
-
-
-def _os_words(exc: OSError) -> str:
-    return (exc.strerror or str(exc)).lower()
-
-
-def _remove_quietly(path: Path) -> None:
-    try:
-        os.unlink(path)
-    except OSError:
-        pass
-
-
-def _fsync_dir(folder: Path) -> None:
-    try:
-        fd = os.open(folder if str(folder) else ".", os.O_RDONLY | getattr(os, "O_DIRECTORY", 0))
-    except OSError:
-        return
-    try:
-        os.fsync(fd)
-    except OSError:
-        pass
-    finally:
-        os.close(fd)
 

@@ -283,7 +283,7 @@ def test_a_failed_save_leaves_the_old_file_and_no_temporary_file(tmp_path, monke
         raise OSError(28, "No space left on device")
 
     monkeypatch.setattr(export.os, "replace", fail)
-    with pytest.raises(SurveyFileError, match="no space left on device"):
+    with pytest.raises(SurveyFileError, match="the disk is full"):
         export.save_csv(store.load_survey(FLAT), out)
     assert out.read_text() == "old" and os.listdir(tmp_path) == ["o.csv"]
 

@@ -23,6 +23,8 @@ Writing (:func:`write_file_atomically`)
 
 from __future__ import annotations
 
+from collections.abc import Iterable
+
 import errno
 import os
 import stat
@@ -218,14 +220,23 @@ def write_all(fd: int, data: bytes) -> None:
         view = view[written:]
 
 
-def write_synced(path: Path, data: bytes, mode: int | None) -> FileStamp:
+#: Data to write: bytes, or an iterable of byte chunks made as they are written (a large
+#: export is never held whole).
+Data = bytes | bytearray | memoryview | Iterable[bytes]
+
+
+def write_synced(path: Path, data: Data, mode: int | None) -> FileStamp:
     """Create ``path`` exclusively with ``data`` (and ``mode``), fsynced; its stamp."""
     flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
     fd = os.open(path, flags, 0o666)
     try:
         if mode is not None and hasattr(os, "fchmod"):
             os.fchmod(fd, mode)
-        write_all(fd, data)
+        if isinstance(data, (bytes, bytearray, memoryview)):
+            write_all(fd, bytes(data))
+        else:
+            for chunk in data:
+                write_all(fd, chunk)
         os.fsync(fd)
         return FileStamp.of(os.fstat(fd))
     finally:
@@ -321,7 +332,7 @@ def untouched(current: os.stat_result | None) -> str:
     return "the file on disk is unchanged" if current is not None else "no file was created"
 
 
-def replace_atomically(target: Path, shown: Path, data: bytes,
+def replace_atomically(target: Path, shown: Path, data: Data,
                        current: os.stat_result | None, verb: str,
                        before_replace: Callable[[], object] | None = None) -> FileStamp:
     """Write ``data`` to a new temporary file beside ``target`` (exclusive create, unique
@@ -349,8 +360,9 @@ def replace_atomically(target: Path, shown: Path, data: bytes,
     return stamp
 
 
-def write_file_atomically(path: str | os.PathLike[str], data: bytes) -> FileStamp:
-    """Write ``data`` to ``path`` (any file, e.g. an export) the way surveys are saved: a
+def write_file_atomically(path: str | os.PathLike[str], data: Data) -> FileStamp:
+    """Write ``data`` (bytes, or byte chunks made as they are written) to ``path`` (any
+    file, e.g. an export or a report) the way surveys are saved: a
     uniquely named temporary file created exclusively in the same folder, fsynced, renamed
     over ``path`` in one step, the folder fsynced. A crash leaves the old file or the new
     one. A read-only existing file, and anything that is not a regular file, is refused;
@@ -361,4 +373,6 @@ def write_file_atomically(path: str | os.PathLike[str], data: bytes) -> FileStam
     shown = Path(path)
     target = resolve(path)
     current = target_state(target, shown, "not written")
-    return replace_atomically(target, shown, bytes(data), current, "not written")
+    if isinstance(data, (bytearray, memoryview)):
+        data = bytes(data)
+    return replace_atomically(target, shown, data, current, "not written")
