@@ -9,10 +9,10 @@ keys ``survey check --json`` prints).
 
 from __future__ import annotations
 
-import dataclasses
-from dataclasses import dataclass, field
 from enum import Enum
-from typing import Any, Union
+from typing import Any, ClassVar, Union
+
+import msgspec
 
 
 class ActionKind(Enum):
@@ -35,15 +35,15 @@ class ActionKind(Enum):
 #: optional field is left out of the JSON when it is ``None`` (it does not apply).
 _KEEP_NONE = frozenset({"moisture_generation_g_per_h", "load_l_per_day", "removal_l_per_day",
                         "removal_us_pints_per_day", "humidity_class", "vapour_pressure_excess_pa"})
-#: Metadata of a field that only the words read (the decision is carried by the kind and
-#: the numbers already); it is not encoded.
-_WORDS = {"words_only": True}
+#: A numbers record lists in ``__words__`` the fields only the words read (the decision is
+#: carried by the kind and the numbers already); they are not encoded. Records are msgspec
+#: Structs: typed, frozen, and made at import in microseconds.
 
 
 def _encode(value: Any) -> Any:
     if isinstance(value, Enum):
         return value.value
-    if dataclasses.is_dataclass(value) and not isinstance(value, type):
+    if isinstance(value, msgspec.Struct):
         return {k: _encode(v) for k, v in _fields(value)}
     if isinstance(value, tuple):
         return [_encode(v) for v in value]
@@ -51,13 +51,14 @@ def _encode(value: Any) -> Any:
 
 
 def _fields(record: Any):
-    for f in dataclasses.fields(record):
-        if f.metadata.get("words_only"):
+    words_only = getattr(record, "__words__", frozenset())
+    for name in record.__struct_fields__:
+        if name in words_only:
             continue
-        value = getattr(record, f.name)
-        if value is None and f.name not in _KEEP_NONE:
+        value = getattr(record, name)
+        if value is None and name not in _KEEP_NONE:
             continue
-        yield f.name, value
+        yield name, value
 
 
 class OutdoorMode(Enum):
@@ -86,16 +87,16 @@ class DehumidifyWhy(Enum):
     DRYING_WITHIN_TARGET = "drying_within_target"
 
 
-@dataclass(frozen=True, kw_only=True)
-class VentilateNumbers:
+class VentilateNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('outdoor_mode', 'room_volume_m3', 'saturates', 'practical_max_ach', 'use'))
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
     room_humidity_ratio_g_per_kg: float
     outdoor_humidity_ratio_g_per_kg: float
     moisture_generation_g_per_h: float | None
     target_reachable_by_ventilation: bool
-    outdoor_mode: OutdoorMode = field(metadata=_WORDS)
-    room_volume_m3: float | None = field(default=None, metadata=_WORDS)
+    outdoor_mode: OutdoorMode
+    room_volume_m3: float | None = None
     dry_air_flow_kg_per_h: float | None = None
     airflow_m3_per_h: float | None = None
     airflow_ft3_per_min: float | None = None
@@ -104,19 +105,19 @@ class VentilateNumbers:
     outdoor_air_rh_at_room_temp_pct: float | None = None
     rh_at_practical_ventilation_pct: float | None = None
     #: the load is more than air at the practical rate can carry: it would saturate
-    saturates: bool = field(default=False, metadata=_WORDS)
-    practical_max_ach: float | None = field(default=None, metadata=_WORDS)
+    saturates: bool = False
+    practical_max_ach: float | None = None
     occupants_share_of_load: float | None = None
     #: the airflow the moisture balance asks for, before the code minimum was applied
     sized_airflow_m3_per_h: float | None = None
     #: the usual code minimum continuous extract for the room use (the higher of those
     #: compared), never undercut by ``airflow_m3_per_h``
     code_minimum_m3_per_h: float | None = None
-    use: str = field(default="other", metadata=_WORDS)
+    use: str = "other"
 
 
-@dataclass(frozen=True, kw_only=True)
-class DehumidifyNumbers:
+class DehumidifyNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('why', 'outdoor_gain_g_per_h', 'outdoor_air_how', 'generation_g_per_h', 'water_removed_l', 'hours_since_previous', 'rated_capacity_l_per_day', 'ventilation_air_changes_needed_per_h', 'practical_max_ach', 'water_loss_class_assumed'))
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
     room_temp_c: float
@@ -124,19 +125,19 @@ class DehumidifyNumbers:
     load_l_per_day: float | None
     removal_l_per_day: float | None
     removal_us_pints_per_day: float | None
-    why: DehumidifyWhy = field(metadata=_WORDS)
+    why: DehumidifyWhy
     outdoor_air_changes_per_h: float | None = None
     outdoor_air_l_per_day: float | None = None
-    outdoor_gain_g_per_h: float | None = field(default=None, metadata=_WORDS)  #: signed: negative when outdoor air dries
-    outdoor_air_how: str | None = field(default=None, metadata=_WORDS)  #: "leaking_in" or "ventilating"
-    generation_g_per_h: float | None = field(default=None, metadata=_WORDS)
+    outdoor_gain_g_per_h: float | None = None  #: signed: negative when outdoor air dries
+    outdoor_air_how: str | None = None  #: "leaking_in" or "ventilating"
+    generation_g_per_h: float | None = None
     pull_down_l: float | None = None
     logged_removal_l_per_day: float | None = None
-    water_removed_l: float | None = field(default=None, metadata=_WORDS)
-    hours_since_previous: float | None = field(default=None, metadata=_WORDS)
-    rated_capacity_l_per_day: float | None = field(default=None, metadata=_WORDS)
-    ventilation_air_changes_needed_per_h: float | None = field(default=None, metadata=_WORDS)
-    practical_max_ach: float | None = field(default=None, metadata=_WORDS)
+    water_removed_l: float | None = None
+    hours_since_previous: float | None = None
+    rated_capacity_l_per_day: float | None = None
+    ventilation_air_changes_needed_per_h: float | None = None
+    practical_max_ach: float | None = None
     grain_depression_g_per_kg: float | None = None
     grain_depression_gr_per_lb: float | None = None
     outlet_humidity_ratio_g_per_kg: float | None = None
@@ -146,33 +147,33 @@ class DehumidifyNumbers:
     #: water leaving wet materials, L/day, from the class of water loss and the room volume
     materials_load_l_per_day: float | None = None
     water_loss_class: int | None = None
-    water_loss_class_assumed: bool = field(default=False, metadata=_WORDS)
+    water_loss_class_assumed: bool = False
     #: contaminated water: drying is only for what remains after removal
     after_removal: bool | None = None
 
 
-@dataclass(frozen=True, kw_only=True)
-class RaiseSurfaceNumbers:
+class RaiseSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('design_rh_pct', 'too_cold', 'factor_under', 'ground_contact', 'temperature_factor_uncertainty', 'use'))
     surface: str
     element: str
     surface_temp_c: float
     max_room_rh_pct: float
     surface_temp_for_target_rh_c: float
     target_surface_temp_c: float
-    design_rh_pct: float = field(metadata=_WORDS)
-    too_cold: bool = field(metadata=_WORDS)
-    factor_under: bool = field(metadata=_WORDS)
-    ground_contact: bool = field(metadata=_WORDS)
+    design_rh_pct: float
+    too_cold: bool
+    factor_under: bool
+    ground_contact: bool
     #: no practical room RH keeps this surface under the mould limit: a dehumidifier
     #: cannot cure it, the surface must be warmer
     dehumidifier_cannot_cure: bool = False
     #: a wet surface of a room being dried, below the dew point now
     drying_wet: bool = False
     temperature_factor: float | None = None
-    temperature_factor_uncertainty: float | None = field(default=None, metadata=_WORDS)
+    temperature_factor_uncertainty: float | None = None
     temperature_factor_limit: float | None = None
     surface_temp_for_factor_limit_c: float | None = None
-    use: str = field(default="other", metadata=_WORDS)
+    use: str = "other"
 
 
 class Forming(Enum):
@@ -183,10 +184,10 @@ class Forming(Enum):
     NO = "no"
 
 
-@dataclass(frozen=True, kw_only=True)
-class ColdSurfaceNumbers:
+class ColdSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     """A pane, frame or pipe at or near its condensation point."""
 
+    __words__: ClassVar[frozenset[str]] = frozenset(('target_rh_pct', 'forming', 'mouldy', 'drying'))
     surface: str
     element: str
     surface_temp_c: float
@@ -194,14 +195,13 @@ class ColdSurfaceNumbers:
     frost: bool
     max_room_rh_pct_dry: float
     surface_temp_to_stay_dry_c: float
-    target_rh_pct: float = field(metadata=_WORDS)
-    forming: Forming = field(metadata=_WORDS)
-    mouldy: bool = field(default=False, metadata=_WORDS)
-    drying: bool = field(default=False, metadata=_WORDS)
+    target_rh_pct: float
+    forming: Forming
+    mouldy: bool = False
+    drying: bool = False
 
 
-@dataclass(frozen=True, kw_only=True)
-class MaterialPoint:
+class MaterialPoint(msgspec.Struct, frozen=True, kw_only=True):
     """A material reading above its dry standard, and the reading at which it is dry."""
 
     label: str
@@ -212,8 +212,7 @@ class MaterialPoint:
     dry_at_or_below: float
 
 
-@dataclass(frozen=True, kw_only=True)
-class TimberPoint:
+class TimberPoint(msgspec.Struct, frozen=True, kw_only=True):
     """A timber moisture reading and what the room air alone would give it."""
 
     label: str
@@ -236,44 +235,43 @@ class SourceReason(Enum):
     HIGH_HUMIDITY_CLASS = "high_humidity_class"
 
 
-@dataclass(frozen=True, kw_only=True)
-class FindSourceNumbers:
-    reasons: tuple[SourceReason, ...] = field(metadata=_WORDS)
-    first: bool = field(metadata=_WORDS)  #: liquid water suspected: before any drying
-    wet: tuple[MaterialPoint, ...] = field(default=(), metadata=_WORDS)
-    damp_timber: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
-    decaying: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
-    decay_slowed: bool = field(default=False, metadata=_WORDS)
-    water_category: int | None = field(default=None, metadata=_WORDS)
-    use: str = field(default="other", metadata=_WORDS)
+class FindSourceNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('reasons', 'first', 'wet', 'damp_timber', 'decaying', 'decay_slowed', 'water_category', 'use', 'humidity_class_possible'))
+    reasons: tuple[SourceReason, ...]
+    first: bool  #: liquid water suspected: before any drying
+    wet: tuple[MaterialPoint, ...] = ()
+    damp_timber: tuple[TimberPoint, ...] = ()
+    decaying: tuple[TimberPoint, ...] = ()
+    decay_slowed: bool = False
+    water_category: int | None = None
+    use: str = "other"
     materials_above_dry_standard: int | None = None
     vapour_pressure_excess_pa: float | None = None
     humidity_class: int | None = None
-    humidity_class_possible: tuple[int, ...] | None = field(default=None, metadata=_WORDS)
+    humidity_class_possible: tuple[int, ...] | None = None
 
 
-@dataclass(frozen=True, kw_only=True)
-class KeepDryingNumbers:
+class KeepDryingNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('damp_timber', 'decaying', 'decay_slowed'))
     materials_above_dry_standard: int
     materials: tuple[MaterialPoint, ...]
-    damp_timber: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
-    decaying: tuple[TimberPoint, ...] = field(default=(), metadata=_WORDS)
-    decay_slowed: bool = field(default=False, metadata=_WORDS)
+    damp_timber: tuple[TimberPoint, ...] = ()
+    decaying: tuple[TimberPoint, ...] = ()
+    decay_slowed: bool = False
 
 
-@dataclass(frozen=True, kw_only=True)
-class RepeatReadingsNumbers:
+class RepeatReadingsNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('wet_room_peak', 'use'))
     vapour_pressure_excess_pa: float | None
     humidity_class: int | None
-    wet_room_peak: bool = field(metadata=_WORDS)
-    use: str = field(default="other", metadata=_WORDS)
+    wet_room_peak: bool
+    use: str = "other"
     vapour_pressure_excess_uncertainty_pa: float | None = None
     humidity_class_possible: tuple[int, ...] | None = None
     reread_after_use_minutes: tuple[float, float] | None = None
 
 
-@dataclass(frozen=True, kw_only=True)
-class TimberSurface:
+class TimberSurface(msgspec.Struct, frozen=True, kw_only=True):
     """A surface read as timber in a ventilated space, and the moisture it would settle at."""
 
     surface: str
@@ -282,11 +280,11 @@ class TimberSurface:
     emc_pct: float
 
 
-@dataclass(frozen=True, kw_only=True)
-class VentilatedSpaceNumbers:
+class VentilatedSpaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    __words__: ClassVar[frozenset[str]] = frozenset(('loft',))
     room_rh_pct: float
     dehumidify_only_if_sealed: bool
-    loft: bool = field(metadata=_WORDS)
+    loft: bool
     timber_surfaces: tuple[TimberSurface, ...] | None = None
     #: outdoor air holds more water than the space
     outdoor_wetter_than_space: bool | None = None
@@ -298,8 +296,7 @@ class VentilatedSpaceNumbers:
     coldest_surface_temp_c: float | None = None
 
 
-@dataclass(frozen=True, kw_only=True)
-class RemoveContaminatedNumbers:
+class RemoveContaminatedNumbers(msgspec.Struct, frozen=True, kw_only=True):
     """Category 3 water (or category 2 left standing long enough to degrade)."""
 
     water_category: int
@@ -317,8 +314,7 @@ ActionNumbers = Union[RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNum
                       RepeatReadingsNumbers, VentilatedSpaceNumbers]
 
 
-@dataclass(frozen=True, slots=True)
-class Action:
+class Action(msgspec.Struct, frozen=True):
     """One thing to do and its numbers; ``surface`` names the surface it is about."""
 
     kind: ActionKind
@@ -343,8 +339,7 @@ class Action:
         return out
 
 
-@dataclass(frozen=True, slots=True)
-class Caution:
+class Caution(msgspec.Struct, frozen=True):
     """A safety caution: its key says which; the numbers it needs ride along."""
 
     key: str
@@ -356,8 +351,7 @@ class Caution:
     flued: bool | None = None  #: combustion air: an open-flued appliance said to be there
 
 
-@dataclass(frozen=True, kw_only=True)
-class MoistureEstimate:
+class MoistureEstimate(msgspec.Struct, frozen=True, kw_only=True):
     """Moisture generated in the room, g/h, by each basis that could be worked out."""
 
     occupants_g_per_h: float | None
@@ -385,8 +379,7 @@ class TargetWhy(Enum):
     GIVEN = "given"
 
 
-@dataclass(frozen=True, kw_only=True)
-class Target:
+class Target(msgspec.Struct, frozen=True, kw_only=True):
     """The room RH the advice aims for, and why."""
 
     rh_pct: float
@@ -402,8 +395,7 @@ class Target:
     threshold_keys: tuple[str, ...] = ()
 
 
-@dataclass(frozen=True, kw_only=True)
-class RoomAdvice:
+class RoomAdvice(msgspec.Struct, frozen=True, kw_only=True):
     room: str
     target: Target
     moisture: MoistureEstimate
@@ -422,7 +414,6 @@ class RoomAdvice:
         return tuple(sorted(keys))
 
 
-@dataclass(frozen=True, kw_only=True)
-class SiteAdvice:
+class SiteAdvice(msgspec.Struct, frozen=True, kw_only=True):
     rooms: tuple[RoomAdvice, ...]
-    cautions: tuple[Caution, ...] = field(default=())  #: every room's, once, closing last
+    cautions: tuple[Caution, ...] = ()  #: every room's, once, closing last

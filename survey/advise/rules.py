@@ -18,6 +18,8 @@ from __future__ import annotations
 
 import math
 
+import msgspec
+
 from survey import psychro
 from survey import thresholds as th
 from survey.advise import loads
@@ -615,9 +617,7 @@ def _after_removal(action: Action) -> Action:
     """A drying action where contaminated material is removed first: for what remains."""
     if action.kind is not ActionKind.DEHUMIDIFY:
         return action
-    import dataclasses
-
-    return Action(action.kind, dataclasses.replace(action.numbers, after_removal=True),
+    return Action(action.kind, msgspec.structs.replace(action.numbers, after_removal=True),
                   action.threshold_keys)
 
 
@@ -698,12 +698,10 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
             actions.append(action)
 
     if occupants_explain:
-        import dataclasses
-
         for i, a in enumerate(actions):
             if a.kind in (ActionKind.VENTILATE, ActionKind.DEHUMIDIFY):
                 actions[i] = Action(a.kind,
-                                    dataclasses.replace(a.numbers, occupants_share_of_load=share),
+                                    msgspec.structs.replace(a.numbers, occupants_share_of_load=share),
                                     (*a.threshold_keys, "occupants_explain_fraction"))
                 break
     if find_source is not None and not find_source.numbers.first:
