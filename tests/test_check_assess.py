@@ -131,9 +131,10 @@ def test_humid_summer_dehumidify(check):
     assert dehum["removal_us_pints_per_day"] == pytest.approx(
         dehum["removal_l_per_day"] / 0.473176)  # 1 US pint = 0.473176 L [R]
     # No occupants: the daily load is outdoor air leaking in at 0.5 ACH (common practice)
-    # bringing W_o − W_t, 24 h × 0.5 × 60 m³ / v_o × (W_o − W_t), W and v from CoolProp.
+    # bringing W_o − W_t, 24 h × 0.5 × 60 m³ / v_i × (W_o − W_t) (air changes counted in
+    # room volumes of room air), W and v from CoolProp.
     w_o, w_t = cp("W", 28.0, 75.0), cp("W", 22.0, dehum["target_rh_pct"])
-    load = 24 * 0.5 * 60.0 / cp("Vda", 28.0, 75.0) * (w_o - w_t)
+    load = 24 * 0.5 * 60.0 / cp("Vda", 22.0, 75.0) * (w_o - w_t)
     assert dehum["removal_l_per_day"] == pytest.approx(load, rel=0.02)
     # The one-off pull-down of the room air, 60 m³ / v_i × (W_i − W_t), is apart, in litres.
     pull_down = 60.0 / cp("Vda", 22.0, 75.0) * (cp("W", 22.0, 75.0) - w_t)

@@ -272,12 +272,13 @@ class RepeatReadingsNumbers(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class TimberSurface(msgspec.Struct, frozen=True, kw_only=True):
-    """A surface read as timber in a ventilated space, and the moisture it would settle at."""
+    """A surface read as timber in a ventilated space, and the moisture it would settle at
+    (None where the Wood Handbook equation is not used: above 98 % RH, outside 0-100 °C)."""
 
     surface: str
     surface_temp_c: float
     surface_rh_pct: float
-    emc_pct: float
+    emc_pct: float | None
 
 
 class VentilatedSpaceNumbers(msgspec.Struct, frozen=True, kw_only=True):

@@ -5,11 +5,11 @@ Formulas
 * Target humidity ratio W_t: room air at its temperature and the target RH.
 * Ventilation (steady-state moisture balance, ASHRAE Handbook Fundamentals): the dry-air flow
   that carries a moisture generation G away is ṁ_da = G / (W_t − W_o); the volume flow is
-  ṁ_da · v_o, v_o the specific volume of the supply (outdoor) air; air changes per hour =
-  volume flow / room volume. Warming it costs ṁ_da (1.006 + 1.86 W_o)(t_i − t_o) kJ
+  ṁ_da · v_i, v_i the specific volume of the room air the fan moves; air changes per hour =
+  volume flow / room volume (room volumes of room air, so ṁ_da = n·V / v_i). Warming it costs ṁ_da (1.006 + 1.86 W_o)(t_i − t_o) kJ
   (ASHRAE ch. 1 eqn 30, enthalpy of moist air). At a given flow the room settles at
   W = W_o + G / ṁ_da.
-* Back-calculated generation: G = ṁ_da (W_i − W_o) with ṁ_da = n·V / v_o at an assumed air
+* Back-calculated generation: G = ṁ_da (W_i − W_o) with ṁ_da = n·V / v_i at an assumed air
   change rate n (threshold ``assumed_air_change_rate_per_h``).
 * Dehumidification: the load per day, 24 h × (G + ṁ_out (W_o − W_t)), with outdoor air
   coming in at the assumed rate (or at the ventilation rate advised beside it); 1 kg of
@@ -91,7 +91,7 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
     if out is not None and room.volume_m3 is not None \
             and air.humidity_ratio_kg_per_kg > out.humidity_ratio_kg_per_kg:
         ach = th.value("assumed_air_change_rate_per_h")
-        dry_air = ach * room.volume_m3 / out.specific_volume_m3_per_kg
+        dry_air = ach * room.volume_m3 / air.specific_volume_m3_per_kg
         back = 1000.0 * dry_air * (air.humidity_ratio_kg_per_kg - out.humidity_ratio_kg_per_kg)
         keys.append("assumed_air_change_rate_per_h")
     people = None if occupants is None and activities is None else \

@@ -198,7 +198,9 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
             air_changes_per_h = th.value("assumed_air_change_rate_per_h")
             keys.append("assumed_air_change_rate_per_h")
             how = "leaking_in"
-        dry_air = air_changes_per_h * room.volume_m3 / out.specific_volume_m3_per_kg
+        # air changes are room volumes an hour: dry air at the room air's specific volume,
+        # the same flow the ventilate action counts
+        dry_air = air_changes_per_h * room.volume_m3 / air.specific_volume_m3_per_kg
         outdoor_g_per_h = 1000.0 * dry_air * (out.humidity_ratio_kg_per_kg - wt)
         fields.update(outdoor_air_changes_per_h=air_changes_per_h,
                       outdoor_air_l_per_day=outdoor_g_per_h * 24.0 / 1000.0
@@ -282,10 +284,12 @@ def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState
         ventilate = _ventilate(finding, target, target_air, moisture)
         actions = [ventilate]
         n = ventilate.numbers
-        # over the practical rate by the moisture balance itself (a code minimum above the
-        # practical rate is no reason for a dehumidifier)
+        # Over what is practical by the moisture balance itself: the practical rate, or the
+        # code-minimum extract where that is higher (it is asked for anyway).
         ach = (None if n.air_changes_per_h is None
                else (n.sized_airflow_m3_per_h or n.airflow_m3_per_h) / finding.room.volume_m3)
+        if n.code_minimum_m3_per_h is not None and finding.room.volume_m3 is not None:
+            cap = max(cap, n.code_minimum_m3_per_h / finding.room.volume_m3)
         if ach is not None and ach > cap:
             actions.append(_dehumidify(
                 finding, target, target_air, moisture, DehumidifyWhy.VENTILATION_OVER_PRACTICAL,
@@ -341,9 +345,7 @@ def _ventilated_space(finding: RoomFinding) -> Action:
                 and surface.surface_rh_pct < th.value("surface_rh_mould_limit_pct"):
             continue
         rh_s = min(100.0, surface.surface_rh_pct)
-        emc = loads.timber_emc(surface.surface_temp_c, rh_s)
-        if emc is None:
-            continue
+        emc = loads.timber_emc(surface.surface_temp_c, rh_s)  # None outside the equation
         timber.append(TimberSurface(surface=surface.label, surface_temp_c=surface.surface_temp_c,
                                     surface_rh_pct=rh_s, emc_pct=emc))
     weather: dict = {}

@@ -146,6 +146,14 @@ def _hr(d: Display, g_per_kg: float) -> str:
     return d("humidity_ratio", g_per_kg / 1000.0)
 
 
+def _rest(advice: RoomAdvice, dehumidifier: str, warmer: str) -> str:
+    """Who does the rest of the drying: the dehumidifier beside this action, or, where none
+    is advised (no practical RH can save the coldest surface), warming the surface."""
+    if any(a.kind is ActionKind.DEHUMIDIFY for a in advice.actions):
+        return dehumidifier
+    return warmer
+
+
 def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
                d: Display) -> str:
     air = finding.air
@@ -183,15 +191,19 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
                  f"itself at {warmed}.")
         return text + (f" Air the room out (windows wide open for a few minutes, several times "
                        f"a day) while it is above about {warmed}; from there on, keep to "
-                       f"background ventilation (trickle vents, extract fans) while a "
-                       f"dehumidifier takes it down to {target}.")
+                       f"background ventilation (trickle vents, extract fans) "
+                       + _rest(advice, f"while a dehumidifier takes it down to {target}.",
+                               "and make the cold surface warmer, as below: no practical "
+                               "room RH keeps it dry.") )
     margin = th.value("ventilation_outdoor_drier_margin_g_per_kg") / 1000.0
     text += (f"less than {d('humidity_ratio', margin)} more than outdoor air, so the airflow "
              f"needed would grow out of proportion (outdoor air warmed to "
              f"{d.temperature(air.dry_bulb_c)} is at {warmed}).")
     if n.airflow_m3_per_h is None:
-        return text + (" Ventilate steadily (trickle vents, a continuous extract fan) and let a "
-                       "dehumidifier do the rest; give the room volume to size the airflow.")
+        return text + (" Ventilate steadily (trickle vents, a continuous extract fan) "
+                       + _rest(advice, "and let a dehumidifier do the rest",
+                               "and make the cold surface warmer, as below")
+                       + "; give the room volume to size the airflow.")
     text += (f" Ventilate at about {n.air_changes_per_h:.1f} air changes an hour "
              f"({d.at_least('airflow', n.airflow_m3_per_h)}), the most that is practical"
              if n.code_minimum_m3_per_h is None or n.airflow_m3_per_h > n.code_minimum_m3_per_h
@@ -212,8 +224,11 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice,
         return text + ("; no dehumidifier of a practical size keeps up with it either. Until "
                        "the source is found, use trickle vents or a continuous extract fan, and "
                        "open windows fully for a few minutes, often.")
-    return text + ("; a dehumidifier does the rest. Use trickle vents or a continuous extract "
-                   "fan, and open windows fully for a few minutes, often.")
+    return text + _rest(advice, "; a dehumidifier does the rest.",
+                        "; warming the cold surface, as below, does the rest: no practical "
+                        "room RH keeps it dry.") + (
+        " Use trickle vents or a continuous extract fan, and open windows fully for a few "
+        "minutes, often.")
 
 
 _DRYING_CLOSED = ("Keep the drying area closed and dehumidify: keep windows, trickle vents and "
@@ -419,6 +434,13 @@ def _ventilated_space(n: VentilatedSpaceNumbers, d: Display) -> str:
              f"decay fungi need about {decay:.0f} % moisture content or more.")
     for t in n.timber_surfaces or ():
         name = t.surface[:1].upper() + t.surface[1:]
+        if t.emc_pct is None:
+            text += (f" {name} at {d.temperature(t.surface_temp_c)} and "
+                     f"{_pct(t.surface_rh_pct)} surface RH is too wet for the Wood Handbook "
+                     f"equation (used up to "
+                     f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH): its moisture is "
+                     f"not estimated; it may well be in the decay range, so measure it.")
+            continue
         sentence = (f" {name} at {d.temperature(t.surface_temp_c)} and "
                     f"{_pct(t.surface_rh_pct)} surface RH would settle at about "
                     f"{t.emc_pct:.1f} % moisture content (Wood Handbook eqn 4-5 at the "
@@ -546,7 +568,11 @@ def _remove_contaminated(n, d: Display) -> str:
 
 
 def _point(n: ColdSurfaceNumbers) -> tuple[str, str]:
-    return ("frost point", "frost") if n.frost else ("dew point", "water")
+    """(the room air's condensation point by its name, what forms on this surface): the
+    point is a frost point when it lies below 0 °C; what forms on a surface below 0 °C is
+    frost."""
+    point = "frost point" if n.condensation_point_c <= 0.01 else "dew point"
+    return point, ("frost" if n.frost else "water")
 
 
 def _forming(n: ColdSurfaceNumbers) -> str:

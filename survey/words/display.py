@@ -80,9 +80,8 @@ class Display:
 
     def area(self, value_m2: float) -> str:
         """An area: '0.5 m²' or '5.4 sq ft' (US practice reads mould areas in ft²)."""
-        if self.ip:
-            return f"{value_m2 * _FT2_PER_M2:.3g} sq ft"
-        return f"{value_m2:.2g} m²"
+        value, unit = (value_m2 * _FT2_PER_M2, "sq ft") if self.ip else (value_m2, "m²")
+        return f"{_plain(value)} {unit}"
 
     def moisture_rate(self, g_per_h: float) -> str:
         """A moisture rate: '65 g/h' in SI; '1003 gr/h (0.14 lb/h)' in IP."""
@@ -140,6 +139,17 @@ class Display:
         """A minimum temperature, rounded up to the shown 0.1 degree so a shown minimum is
         never below the true one."""
         return self.temperature(round_up_temperature_c(value_c, self.ip))
+
+
+def _plain(value: float) -> str:
+    """Two significant figures below 10, three below 100, whole numbers above, never an
+    exponent."""
+    if value < 10.0:
+        text = f"{value:.2g}"
+        return text if "e" not in text else f"{value:.2f}"
+    if value < 100.0:
+        return f"{value:.3g}"
+    return f"{value:,.0f}"
 
 
 def round_up_temperature_c(value_c: float, ip: bool = False) -> float:

@@ -91,9 +91,17 @@ def _with_span(words: dict, state, possible) -> str:
     return f"{CANNOT_TELL}: " + " or ".join(words[p] for p in possible)
 
 
+def _frost_point(surface: SurfaceFinding) -> bool:
+    """The room air's condensation point is a frost point (below 0 °C)."""
+    return surface.condensation_point_c <= psychro.TRIPLE_POINT_C
+
+
 def condensation_text(surface: SurfaceFinding) -> str:
-    """'clear of the dew point', 'frost forming now', 'unclear at this accuracy: …'."""
-    words = FROST_WORDS if _below_freezing(surface) else CONDENSATION_WORDS
+    """'clear of the dew point', 'frost forming now', 'unclear at this accuracy: …': the
+    point named as the air's (a frost point below 0 °C), what forms as the surface's."""
+    words = dict(FROST_WORDS if _frost_point(surface) else CONDENSATION_WORDS)
+    words[CondensationState.CONDENSING] = ("frost forming now" if _below_freezing(surface)
+                                           else "condensing now")
     return _with_span(words, surface.condensation, surface.condensation_possible)
 
 
@@ -141,9 +149,8 @@ def surface_rh_text(surface: SurfaceFinding) -> str:
 
 def short_verdict(surface: SurfaceFinding, d: Display) -> str:
     """A few words per surface for a summary: what forms, mould, the factor."""
-    frost = _below_freezing(surface)
-    what = "frost" if frost else "water"
-    point = "frost point" if frost else "dew point"
+    what = "frost" if _below_freezing(surface) else "water"
+    point = "frost point" if _frost_point(surface) else "dew point"
     margin = d.difference(th.value("dew_point_margin_k"))
     parts = []
     condensation, possible = surface.condensation, surface.condensation_possible
