@@ -37,7 +37,7 @@ computed, not clamped to the air temperature.
 from __future__ import annotations
 
 import math
-from typing import NamedTuple
+from typing import NamedTuple, TypeGuard
 
 import psychrolib
 
@@ -98,7 +98,7 @@ class MoistAir(NamedTuple):
 
 # --- range guards ------------------------------------------------------------------------
 
-def _is_number(value: object) -> bool:
+def _is_number(value: object) -> TypeGuard[int | float]:
     return isinstance(value, (int, float)) and not isinstance(value, bool)
 
 
