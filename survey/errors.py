@@ -30,18 +30,16 @@ class InputError(SurveyError, ValueError):
         self.value = value
         self.allowed = allowed
         self.read_as = read_as
-        if isinstance(value, str) and not value.strip():
-            shown = repr(value)
-        else:
-            shown = shorten(value)
+        shown = repr(value) if isinstance(value, str) and not value.strip() else shorten(value)
         said = f"{field} {shown} (read as {read_as})" if read_as else f"{field} {shown}"
         super().__init__(f"{said}: {allowed}")
 
     def with_field(self, field: str, value: object = _SAME) -> InputError:
         """The same error reported under another field name (e.g. the CLI option), and for
         another ``value`` (the whole text typed) when one is given; ``read_as`` is kept."""
-        return InputError(field, self.value if value is _SAME else value, self.allowed,
-                          read_as=self.read_as)
+        return InputError(
+            field, self.value if value is _SAME else value, self.allowed, read_as=self.read_as
+        )
 
 
 class SurveyFileError(SurveyError):

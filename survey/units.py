@@ -53,7 +53,7 @@ import sys
 import unicodedata
 from collections.abc import Callable
 from dataclasses import dataclass
-from functools import lru_cache
+from functools import cache, lru_cache
 from typing import TYPE_CHECKING, Literal
 
 from survey.errors import InputError
@@ -66,8 +66,15 @@ UnitSystem = Literal["si", "ip"]
 UNIT_SYSTEMS: tuple[UnitSystem, ...] = ("si", "ip")
 
 #: The quantities :func:`read` knows. RH and a plain number are never converted.
-ReadQuantity = Literal["temperature", "temperature_difference", "relative_humidity",
-                       "pressure", "length", "volume", "number"]
+ReadQuantity = Literal[
+    "temperature",
+    "temperature_difference",
+    "relative_humidity",
+    "pressure",
+    "length",
+    "volume",
+    "number",
+]
 
 #: A typed value longer than this is refused unread: no number with its unit comes close.
 TEXT_MAX_CHARS = 100
@@ -77,12 +84,16 @@ TEXT_MAX_CHARS = 100
 # ("21.").
 _NUMBER = re.compile(
     r"(?P<num>[+\-\u2212]?(?:[0-9]+(?:\.[0-9]*|,[0-9]+)?|\.[0-9]+)(?:[eE][+\-]?[0-9]+)?)"
-    r"(?P<gap>\s*)(?P<unit>.*)", re.DOTALL)
+    r"(?P<gap>\s*)(?P<unit>.*)",
+    re.DOTALL,
+)
 _LEADING_COMMA = re.compile(r"[+\-\u2212]?,[0-9]")
 _RADIX_PREFIX = re.compile(r"[xXbBoO][0-9a-fA-F_]+")
+# fmt: off
 _NON_NUMBERS = frozenset({"nan", "inf", "infinity", "+nan", "-nan", "+inf", "-inf",
                           "+infinity", "-infinity", "\u2212inf", "\u2212infinity", "∞",
                           "-∞", "+∞", "\u2212∞"})
+# fmt: on
 #: Control, format, surrogate and line/paragraph-separator characters: never inside a number.
 _CONTROL_CATEGORIES = frozenset({"Cc", "Cf", "Cs", "Zl", "Zp"})
 _WRITE_LIKE = "write a number as 1013.25 or 1013,25"
@@ -91,6 +102,7 @@ _WRITE_LIKE = "write a number as 1013.25 or 1013,25"
 # and the pint name each stands for. Only these reach pint: pint's own expression parser
 # would accept (or choke on) arbitrary arithmetic. "C" is the coulomb to pint and "F" the
 # farad, hence the table. A bare degree sign follows the unit system (see parse_temperature).
+# fmt: off
 _TEMPERATURE_ALIASES = {
     "c": "degC", "°c": "degC", "ºc": "degC", "degc": "degC", "deg c": "degC", "° c": "degC",
     "℃": "degC", "celsius": "degC", "degree_celsius": "degC",
@@ -111,33 +123,39 @@ _VOLUME_ALIASES = {"m3": "m**3", "m^3": "m**3", "m³": "m**3", "cu m": "m**3",
                    "ft3": "ft**3", "ft^3": "ft**3", "ft³": "ft**3", "cu ft": "ft**3",
                    "cuft": "ft**3", "l": "L", "litre": "L", "liter": "L", "litres": "L",
                    "liters": "L"}
+# fmt: on
 _RH_UNITS = frozenset({"", "%", "percent", "pct", "% rh", "%rh", "rh"})
 _DEGREE_SIGNS = ("°", "º", "deg")
 
 _ACCEPTED: dict[ReadQuantity, str] = {
     "temperature": "a number in °C (SI) or °F (IP), or with a unit: 21, 21.5, 21,5, 21 °C, "
-                   "21C, 70F, 294.15 K",
-    "temperature_difference": "a number of kelvin (SI) or °F (IP), or with a unit: 0.5, "
-                              "0.5 K, 1F",
+    "21C, 70F, 294.15 K",
+    "temperature_difference": "a number of kelvin (SI) or °F (IP), or with a unit: 0.5, 0.5 K, 1F",
     "relative_humidity": "a percentage: 65, 65 %, 65%",
     "pressure": "a number in hPa (SI) or inHg (IP), or with a unit: 1013 hPa, 101.3 kPa, "
-                "29.92 inHg",
+    "29.92 inHg",
     "length": "a number in m (SI) or ft (IP), or with a unit: 350 m, 1150 ft",
     "volume": "a number in m³ (SI) or ft³ (IP), or with a unit: 30, 30 m3, 1060 ft3",
     "number": "a number such as 3, 2.5 or 2,5",
 }
 _KIND_WORDS: dict[ReadQuantity, str] = {
-    "temperature": "temperature", "temperature_difference": "temperature difference",
-    "relative_humidity": "relative humidity", "pressure": "pressure", "length": "length",
-    "volume": "volume", "number": "number",
+    "temperature": "temperature",
+    "temperature_difference": "temperature difference",
+    "relative_humidity": "relative humidity",
+    "pressure": "pressure",
+    "length": "length",
+    "volume": "volume",
+    "number": "number",
 }
 # What a value is said to be "read as", in the unit the range limits are written in:
 # (unit text, factor from the core's SI unit).
+# fmt: off
 _READ_AS_UNIT: dict[ReadQuantity, tuple[str, float]] = {
     "temperature": ("°C", 1.0), "temperature_difference": ("K", 1.0),
     "relative_humidity": ("%", 1.0), "pressure": ("hPa", 0.01), "length": ("m", 1.0),
     "volume": ("m³", 1.0), "number": ("", 1.0),
 }
+# fmt: on
 
 
 @lru_cache(maxsize=1)
@@ -151,6 +169,7 @@ def registry() -> pint.UnitRegistry[float]:
 
 
 # --- reading a number --------------------------------------------------------------------
+
 
 @dataclass(frozen=True, slots=True)
 class Reading:
@@ -209,6 +228,34 @@ def _refuse(field: str, text: object, kind: ReadQuantity, problem: str) -> Input
     return InputError(field, text, f"{problem}; expected {_ACCEPTED[kind]}")
 
 
+def _odd_number(raw: str, body: str, match: re.Match[str] | None) -> str:
+    """Why ``body`` (``raw`` stripped) is not a number as people type it, or ``""``."""
+    whole = f"'{shorten(body)}'"
+    if len(raw) > TEXT_MAX_CHARS:
+        return f"{len(raw)} characters is too long for a number"
+    if any(unicodedata.category(char) in _CONTROL_CATEGORIES and char != "\t" for char in body):
+        return f"{whole} has a line break or a control character in it; type it on one line"
+    if any(unicodedata.category(char) == "Nd" and not "0" <= char <= "9" for char in body):
+        return f"{whole} has digits other than 0-9 (full-width or another script's)"
+    if body.lower() in _NON_NUMBERS:
+        return f"{whole} is not a number to compute with"
+    if match is None:
+        if _LEADING_COMMA.match(body):
+            return f"{whole} starts with a decimal comma; write a digit before it, e.g. 0,5"
+        return ""
+    number, gap, unit = match["num"], match["gap"], match["unit"].strip()
+    not_understood = f"the number was not understood: {whole}"
+    if not unit:
+        return ""
+    if not gap and number.lstrip("+-\u2212") == "0" and _RADIX_PREFIX.fullmatch(unit):
+        return f"{not_understood} is not a decimal number (hexadecimal, binary, octal)"
+    if "_" in unit and (unit[0] == "_" or unit[0].isdigit()):
+        return f"{not_understood} has an underscore in it; {_WRITE_LIKE}"
+    if unit[0].isdigit() or unit[0] in ".,_":
+        return f"{not_understood} has a thousands separator or a space inside; {_WRITE_LIKE}"
+    return ""
+
+
 def _split(text: object, field: str, kind: ReadQuantity) -> tuple[float, str]:
     """The number (as typed, before any conversion) and the unit text after it."""
     if isinstance(text, (int, float)) and not isinstance(text, bool):
@@ -220,64 +267,51 @@ def _split(text: object, field: str, kind: ReadQuantity) -> tuple[float, str]:
             raise _refuse(field, text, kind, f"{value} is not a number to compute with")
         return value, ""
     raw = str(text)
-    if len(raw) > TEXT_MAX_CHARS:
-        raise _refuse(field, text, kind, f"{len(raw)} characters is too long for a number")
     body = raw.strip()
     if not body:
         raise InputError(field, repr(raw), f"expected {_ACCEPTED[kind]}")
-    whole = shorten(body)
-    if any(unicodedata.category(char) in _CONTROL_CATEGORIES and char != "\t" for char in body):
-        raise _refuse(field, text, kind, f"'{whole}' has a line break or a control "
-                                         "character in it; type the number on one line")
-    if any(unicodedata.category(char) == "Nd" and not "0" <= char <= "9" for char in body):
-        raise _refuse(field, text, kind, f"'{whole}' has digits other than 0-9 (full-width "
-                                         "or another script's); type the digits 0-9")
-    if body.lower() in _NON_NUMBERS:
-        raise _refuse(field, text, kind, f"'{whole}' is not a number to compute with")
-    match = _NUMBER.fullmatch(body)
+    match = _NUMBER.fullmatch(body) if len(raw) <= TEXT_MAX_CHARS else None
+    if problem := _odd_number(raw, body, match):
+        raise _refuse(field, text, kind, problem)
     if match is None:
-        if _LEADING_COMMA.match(body):
-            raise _refuse(field, text, kind, f"'{whole}' starts with a decimal comma; write "
-                                             "a digit before it, e.g. 0,5")
         raise InputError(field, text, f"expected {_ACCEPTED[kind]}")
-    number, gap, unit = match["num"], match["gap"], match["unit"].strip()
-    if unit:
-        if not gap and number.lstrip("+-\u2212") == "0" and _RADIX_PREFIX.fullmatch(unit):
-            raise _refuse(field, text, kind, f"the number was not understood: '{whole}' is "
-                                             "not a decimal number (hexadecimal, binary and "
-                                             "octal are not read)")
-        if "_" in unit and (unit[0] == "_" or unit[0].isdigit()):
-            raise _refuse(field, text, kind, f"the number was not understood: '{whole}' has "
-                                             f"an underscore in it; {_WRITE_LIKE}")
-        if unit[0].isdigit() or unit[0] in ".,_":
-            raise _refuse(field, text, kind, f"the number was not understood: '{whole}' has "
-                                             "a thousands separator or a space inside the "
-                                             f"number; {_WRITE_LIKE}")
+    number = match["num"]
     value = float(number.replace(",", ".").replace("\u2212", "-"))
     if not math.isfinite(value):
-        raise _refuse(field, text, kind, f"{shorten(number)} is too large to compute with")
-    if abs(value) < sys.float_info.min and any(d in "123456789" for d in
-                                                re.split("[eE]", number)[0]):
-        raise _refuse(field, text, kind, f"{shorten(number)} is too small to compute with "
-                                         "(it would be read as 0)")
-    return value, unit
+        raise _refuse(field, text, kind, f"{number} is too large to compute with")
+    mantissa = re.split("[eE]", number)[0]
+    if abs(value) < sys.float_info.min and mantissa.strip("+-\u2212.,0"):
+        raise _refuse(field, text, kind, f"{number} is too small to compute with (read as 0)")
+    return value, match["unit"].strip()
 
 
-def _convert(value: float, unit: str, target: str, field: str, text: object,
-             kind: ReadQuantity, aliases: dict[str, str]) -> float:
+def _convert(
+    value: float,
+    unit: str,
+    target: str,
+    field: str,
+    text: object,
+    kind: ReadQuantity,
+    aliases: dict[str, str],
+) -> float:
     """Convert ``value`` in ``unit`` (as typed) to ``target`` with pint.
 
     Only unit texts listed in ``aliases`` are accepted, so nothing a person types is ever
     evaluated as a pint expression."""
     name = aliases.get(" ".join(unit.lower().split()))
     if name is None:
-        raise InputError(field, text, f"unit {shorten(unit, 40)!r} is not a "
-                                      f"{_KIND_WORDS[kind]} unit; expected {_ACCEPTED[kind]}")
+        raise InputError(
+            field,
+            text,
+            f"unit {shorten(unit, 40)!r} is not a "
+            f"{_KIND_WORDS[kind]} unit; expected {_ACCEPTED[kind]}",
+        )
     try:
         converted = float(registry().Quantity(value, name).to(target).magnitude)
     except Exception:  # pint or arithmetic failure: report, never a traceback
-        raise InputError(field, text, f"could not convert to {target}; "
-                                      f"expected {_ACCEPTED[kind]}") from None
+        raise InputError(
+            field, text, f"could not convert to {target}; expected {_ACCEPTED[kind]}"
+        ) from None
     return converted
 
 
@@ -297,23 +331,28 @@ def _temperature(number: float, unit: str, field: str, text: object, system: str
     return _convert(number, unit, "degC", field, text, "temperature", _TEMPERATURE_ALIASES)
 
 
-def _temperature_difference(number: float, unit: str, field: str, text: object,
-                            system: str) -> float:
+def _temperature_difference(
+    number: float, unit: str, field: str, text: object, system: str
+) -> float:
     if not unit or _is_degree_sign(unit):
         return number if system == "si" else number / 1.8
-    return _convert(number, unit, "kelvin", field, text, "temperature_difference",
-                    _DIFFERENCE_ALIASES)
+    return _convert(
+        number, unit, "kelvin", field, text, "temperature_difference", _DIFFERENCE_ALIASES
+    )
 
 
-def _relative_humidity(number: float, unit: str, field: str, text: object,
-                       system: str) -> float:
+def _relative_humidity(number: float, unit: str, field: str, text: object, system: str) -> float:
     if unit.lower() not in _RH_UNITS:
         raise InputError(field, text, f"expected {_ACCEPTED['relative_humidity']}")
     if 0.0 < number < 1.0 and not unit:
         # 0.65 is far more often a fraction typed by mistake than a real 0.65 % reading.
-        raise InputError(field, text, "looks like a fraction: give RH in percent "
-                                      f"({number:g} as a fraction is {number * 100:g}); "
-                                      "write '0.65 %' if you really mean below 1 %")
+        raise InputError(
+            field,
+            text,
+            "looks like a fraction: give RH in percent "
+            f"({number:g} as a fraction is {number * 100:g}); "
+            "write '0.65 %' if you really mean below 1 %",
+        )
     return number
 
 
@@ -331,7 +370,7 @@ def _length(number: float, unit: str, field: str, text: object, system: str) -> 
 
 def _volume(number: float, unit: str, field: str, text: object, system: str) -> float:
     if not unit:
-        return number if system == "si" else number * 0.3048 ** 3
+        return number if system == "si" else number * 0.3048**3
     return _convert(number, unit, "m**3", field, text, "volume", _VOLUME_ALIASES)
 
 
@@ -342,14 +381,17 @@ def _plain(number: float, unit: str, field: str, text: object, system: str) -> f
 
 
 _READERS: dict[ReadQuantity, Callable[[float, str, str, object, str], float]] = {
-    "temperature": _temperature, "temperature_difference": _temperature_difference,
-    "relative_humidity": _relative_humidity, "pressure": _pressure, "length": _length,
-    "volume": _volume, "number": _plain,
+    "temperature": _temperature,
+    "temperature_difference": _temperature_difference,
+    "relative_humidity": _relative_humidity,
+    "pressure": _pressure,
+    "length": _length,
+    "volume": _volume,
+    "number": _plain,
 }
 
 
-def read(quantity: ReadQuantity, text: object, field: str,
-         system: UnitSystem = "si") -> Reading:
+def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = "si") -> Reading:
     """Read ``text`` as ``quantity`` (a bare number in ``system``'s unit): a :class:`Reading`
     with the value in the core's SI unit (°C, K, %, Pa, m, m³) and what it was read as.
 
@@ -368,8 +410,9 @@ def parse_temperature(text: object, field: str = "temperature", system: UnitSyst
     return read("temperature", text, field, system).value
 
 
-def parse_temperature_difference(text: object, field: str = "temperature difference",
-                                 system: UnitSystem = "si") -> float:
+def parse_temperature_difference(
+    text: object, field: str = "temperature difference", system: UnitSystem = "si"
+) -> float:
     """A temperature difference (an instrument accuracy, a margin) in kelvin."""
     return read("temperature_difference", text, field, system).value
 
@@ -405,6 +448,7 @@ def parse_number(text: object, field: str = "number") -> float:
 # --- formatting --------------------------------------------------------------------------
 
 # Display units per quantity: (SI unit, IP unit) as pint names, and the text shown.
+# fmt: off
 _DISPLAY = {
     "temperature": (("degC", "°C"), ("degF", "°F")),
     "temperature_difference": (("kelvin", "K"), ("delta_degF", "°F")),
@@ -442,9 +486,10 @@ _DECIMALS = {
     ("airflow", "si"): 0, ("airflow", "ip"): 0,
     ("water_rate", "si"): 1, ("water_rate", "ip"): 1,
 }
+# fmt: on
 
 
-@lru_cache(maxsize=None)
+@cache
 def _factor_offset(source: str, target: str) -> tuple[float, float]:
     """``target = factor * source + offset``, worked out once by pint per unit pair."""
     ureg = registry()
@@ -481,8 +526,13 @@ def unit_label(quantity: str, system: UnitSystem = "si") -> str:
     return _DISPLAY[quantity][0 if system == "si" else 1][1]
 
 
-def format_value(quantity: str, value_si: float | None, system: UnitSystem = "si",
-                 decimals: int | None = None, unit: bool = True) -> str:
+def format_value(
+    quantity: str,
+    value_si: float | None,
+    system: UnitSystem = "si",
+    decimals: int | None = None,
+    unit: bool = True,
+) -> str:
     """Format a core SI value for display, e.g. ``format_value("temperature", 21, "ip")``
     gives ``'69.8 °F'``. ``None`` shows as an en dash."""
     if value_si is None:
