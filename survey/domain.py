@@ -23,6 +23,16 @@ OCCUPANTS_MAX = 500
 AIR_TEMP_ACCURACY_MAX_K = 5.0
 RH_ACCURACY_MAX_PCT = 20.0
 SURFACE_TEMP_ACCURACY_MAX_K = 10.0
+#: ... and below these an accuracy claims more than any instrument can give. No reading is
+#: exact: an accuracy of 0 would remove every "cannot tell" band and present a limit inside
+#: the real uncertainty as certain, so 0 is refused (survey files refuse it too). The minimums
+#: only need to lie below every real specification: a calibrated reference thermometer is
+#: good to about ±0.01 K and electronic hygrometers to about ±1 %RH at best (both from
+#: memory); a chilled-mirror meter of ±0.1 K in dew point gives ±0.3 to ±0.6 %RH between 50
+#: and 95 %RH at 20 °C (computed: d ln pws/dt = 0.062 /K there, ASHRAE ch. 1 eqn 6).
+AIR_TEMP_ACCURACY_MIN_K = 0.01
+RH_ACCURACY_MIN_PCT = 0.1
+SURFACE_TEMP_ACCURACY_MIN_K = 0.01
 #: Area of visible mould, m².
 MOULD_AREA_MAX_M2 = 100_000.0
 #: Hours a day a moisture-producing activity goes on.

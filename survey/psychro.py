@@ -37,7 +37,7 @@ computed, not clamped to the air temperature.
 from __future__ import annotations
 
 import math
-from typing import NamedTuple
+from typing import NamedTuple, TypeGuard
 
 import psychrolib
 
@@ -98,7 +98,8 @@ class MoistAir(NamedTuple):
 
 # --- range guards ------------------------------------------------------------------------
 
-def _is_number(value: object) -> bool:
+
+def _is_number(value: object) -> TypeGuard[int | float]:
     return isinstance(value, (int, float)) and not isinstance(value, bool)
 
 
@@ -123,43 +124,57 @@ def _shown(value: object, unit: str = "") -> str:
 
 def check_dry_bulb(dry_bulb_c: float, field: str = "dry bulb") -> None:
     if not in_range(dry_bulb_c, DRY_BULB_MIN_C, DRY_BULB_MAX_C):
-        raise InputError(field, _shown(dry_bulb_c, "°C"),
-                         f"air temperature must be {_temp_range(DRY_BULB_MIN_C, DRY_BULB_MAX_C)}")
+        raise InputError(
+            field,
+            _shown(dry_bulb_c, "°C"),
+            f"air temperature must be {_temp_range(DRY_BULB_MIN_C, DRY_BULB_MAX_C)}",
+        )
 
 
 def check_rh(rh_pct: float, field: str = "relative humidity") -> None:
     if not (_is_number(rh_pct) and math.isfinite(rh_pct) and 0.0 < rh_pct <= 100.0):
-        raise InputError(field, _shown(rh_pct),
-                         "relative humidity must be above 0 and at most 100 %")
+        raise InputError(
+            field, _shown(rh_pct), "relative humidity must be above 0 and at most 100 %"
+        )
     if rh_pct < RH_MIN_PCT:
-        raise InputError(field, _shown(rh_pct),
-                         f"relative humidity below {RH_MIN_PCT:g} % is too dry for the "
-                         "psychrometric equations used here (dew point below −100 °C)")
+        raise InputError(
+            field,
+            _shown(rh_pct),
+            f"relative humidity below {RH_MIN_PCT:g} % is too dry for the "
+            "psychrometric equations used here (dew point below −100 °C)",
+        )
 
 
 def check_pressure(pressure_pa: float, field: str = "pressure") -> None:
     if not in_range(pressure_pa, PRESSURE_MIN_PA, PRESSURE_MAX_PA):
         shown = _shown(pressure_pa / 100.0 if _is_number(pressure_pa) else pressure_pa, "hPa")
-        raise InputError(field, shown,
-                         f"pressure must be between {PRESSURE_MIN_PA / 100:g} and "
-                         f"{PRESSURE_MAX_PA / 100:g} hPa ({PRESSURE_MIN_PA / 3386.389:.2f} and "
-                         f"{PRESSURE_MAX_PA / 3386.389:.2f} inHg)")
+        raise InputError(
+            field,
+            shown,
+            f"pressure must be between {PRESSURE_MIN_PA / 100:g} and "
+            f"{PRESSURE_MAX_PA / 100:g} hPa ({PRESSURE_MIN_PA / 3386.389:.2f} and "
+            f"{PRESSURE_MAX_PA / 3386.389:.2f} inHg)",
+        )
 
 
 def check_surface_temp(surface_temp_c: float, field: str = "surface temperature") -> None:
     if not in_range(surface_temp_c, SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C):
-        raise InputError(field, _shown(surface_temp_c, "°C"),
-                         "surface temperature must be "
-                         f"{_temp_range(SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C)}")
+        raise InputError(
+            field,
+            _shown(surface_temp_c, "°C"),
+            f"surface temperature must be {_temp_range(SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C)}",
+        )
 
 
 def _check_temperature(value: float, field: str, low_c: float, high_c: float) -> None:
     if not in_range(value, low_c, high_c):
-        raise InputError(field, _shown(value, "°C"),
-                         f"{field} must be {_temp_range(low_c, high_c)}")
+        raise InputError(
+            field, _shown(value, "°C"), f"{field} must be {_temp_range(low_c, high_c)}"
+        )
 
 
 # --- saturation --------------------------------------------------------------------------
+
 
 def sat_vapour_pressure_pa(temp_c: float) -> float:
     """Saturation pressure over the phase that forms at ``temp_c``: ice below the triple
@@ -173,8 +188,14 @@ _C11, _C12, _C13 = 4.1764768e-05, -1.4452093e-08, 6.5459673
 
 
 def _ln_pws_water(t_k: float) -> float:
-    return (_C8 / t_k + _C9 + _C10 * t_k + _C11 * t_k * t_k + _C12 * t_k * t_k * t_k
-            + _C13 * math.log(t_k))
+    return (
+        _C8 / t_k
+        + _C9
+        + _C10 * t_k
+        + _C11 * t_k * t_k
+        + _C12 * t_k * t_k * t_k
+        + _C13 * math.log(t_k)
+    )
 
 
 def sat_vapour_pressure_water_pa(temp_c: float) -> float:
@@ -214,12 +235,17 @@ _LOWEST_VAPOUR_PRESSURE_PA = psychrolib.GetSatVapPres(-100.0) * 1.0001
 
 # --- states ------------------------------------------------------------------------------
 
-def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
-           pressure_pa: float) -> MoistAir:
+
+def _state(
+    dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float, pressure_pa: float
+) -> MoistAir:
     dry_bulb_c, pressure_pa = float(dry_bulb_c), float(pressure_pa)
     if vapour_pressure_pa < _LOWEST_VAPOUR_PRESSURE_PA:
-        raise InputError("relative humidity", _shown(rh_pct),
-                         "too dry to compute: the dew point would be below −100 °C")
+        raise InputError(
+            "relative humidity",
+            _shown(rh_pct),
+            "too dry to compute: the dew point would be below −100 °C",
+        )
     humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure_pa, pressure_pa)
     if vapour_pressure_pa >= _TRIPLE_POINT_PRESSURE_PA:
         dew_point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure_pa)
@@ -231,8 +257,9 @@ def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
         # point, which then lies above the air temperature: such air rimes anything at
         # air temperature.
         frost_point = psychrolib.GetTDewPointFromVapPres(TRIPLE_POINT_C, vapour_pressure_pa)
-        dew_point = min(_dew_point_water_below_triple_c(vapour_pressure_pa, frost_point),
-                        dry_bulb_c)
+        dew_point = min(
+            _dew_point_water_below_triple_c(vapour_pressure_pa, frost_point), dry_bulb_c
+        )
     volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
     return MoistAir(
         dry_bulb_c=dry_bulb_c,
@@ -251,8 +278,9 @@ def _state(dry_bulb_c: float, rh_pct: float, vapour_pressure_pa: float,
     )
 
 
-def state_from_rh(dry_bulb_c: float, rh_pct: float,
-                  pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+def state_from_rh(
+    dry_bulb_c: float, rh_pct: float, pressure_pa: float = STANDARD_PRESSURE_PA
+) -> MoistAir:
     """Moist air from dry bulb (°C), RH (%, relative to liquid water) and pressure (Pa)."""
     check_dry_bulb(dry_bulb_c)
     check_rh(rh_pct)
@@ -262,50 +290,65 @@ def state_from_rh(dry_bulb_c: float, rh_pct: float,
     return _state(dry_bulb_c, rh_pct, vapour_pressure, pressure_pa)
 
 
-def state_from_dew_point(dry_bulb_c: float, dew_point_c: float,
-                         pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+def state_from_dew_point(
+    dry_bulb_c: float, dew_point_c: float, pressure_pa: float = STANDARD_PRESSURE_PA
+) -> MoistAir:
     """Moist air from dry bulb and dew point (°C, over liquid water) and pressure (Pa)."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
     _check_temperature(dew_point_c, "dew point", DRY_BULB_MIN_C - 30.0, DRY_BULB_MAX_C)
     if dew_point_c > dry_bulb_c:
-        raise InputError("dew point", f"{dew_point_c:g} °C",
-                         f"dew point must not be above the air temperature ({dry_bulb_c:g} °C)")
+        raise InputError(
+            "dew point",
+            f"{dew_point_c:g} °C",
+            f"dew point must not be above the air temperature ({dry_bulb_c:g} °C)",
+        )
     vapour_pressure = sat_vapour_pressure_water_pa(dew_point_c)
     rh = 100.0 * vapour_pressure / sat_vapour_pressure_water_pa(dry_bulb_c)
     return _state(dry_bulb_c, min(rh, 100.0), vapour_pressure, pressure_pa)
 
 
-def state_from_wet_bulb(dry_bulb_c: float, wet_bulb_c: float,
-                        pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+def state_from_wet_bulb(
+    dry_bulb_c: float, wet_bulb_c: float, pressure_pa: float = STANDARD_PRESSURE_PA
+) -> MoistAir:
     """Moist air from dry bulb and psychrometric wet bulb (°C) and pressure (Pa)
     (psychrolib ``GetHumRatioFromTWetBulb``, ASHRAE ch. 1 eqn 33 & 35)."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
     _check_temperature(wet_bulb_c, "wet bulb", DRY_BULB_MIN_C - 30.0, DRY_BULB_MAX_C)
     if wet_bulb_c > dry_bulb_c:
-        raise InputError("wet bulb", f"{wet_bulb_c:g} °C",
-                         f"wet bulb must not be above the air temperature ({dry_bulb_c:g} °C)")
+        raise InputError(
+            "wet bulb",
+            f"{wet_bulb_c:g} °C",
+            f"wet bulb must not be above the air temperature ({dry_bulb_c:g} °C)",
+        )
     humidity_ratio = psychrolib.GetHumRatioFromTWetBulb(dry_bulb_c, wet_bulb_c, pressure_pa)
     if humidity_ratio <= 1e-7:
-        raise InputError("wet bulb", f"{wet_bulb_c:g} °C",
-                         f"too low for an air temperature of {dry_bulb_c:g} °C "
-                         "(it would mean air with no water vapour)")
+        raise InputError(
+            "wet bulb",
+            f"{wet_bulb_c:g} °C",
+            f"too low for an air temperature of {dry_bulb_c:g} °C "
+            "(it would mean air with no water vapour)",
+        )
     vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio, pressure_pa)
     rh = 100.0 * vapour_pressure / sat_vapour_pressure_water_pa(dry_bulb_c)
     return _state(dry_bulb_c, min(rh, 100.0), vapour_pressure, pressure_pa)
 
 
-def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float,
-                              pressure_pa: float = STANDARD_PRESSURE_PA) -> MoistAir:
+def state_from_humidity_ratio(
+    dry_bulb_c: float, humidity_ratio_kg_per_kg: float, pressure_pa: float = STANDARD_PRESSURE_PA
+) -> MoistAir:
     """Moist air from dry bulb, humidity ratio (kg/kg) and pressure; RH capped at 100 %.
 
     Used for air that is heated, cooled or mixed at constant moisture content."""
     check_dry_bulb(dry_bulb_c)
     check_pressure(pressure_pa)
     if not in_range(humidity_ratio_kg_per_kg, 1e-7, 1.0):
-        raise InputError("humidity ratio", _shown(humidity_ratio_kg_per_kg, "kg/kg"),
-                         "humidity ratio must be between 1e-07 and 1 kg/kg")
+        raise InputError(
+            "humidity ratio",
+            _shown(humidity_ratio_kg_per_kg, "kg/kg"),
+            "humidity ratio must be between 1e-07 and 1 kg/kg",
+        )
     vapour_pressure = psychrolib.GetVapPresFromHumRatio(humidity_ratio_kg_per_kg, pressure_pa)
     saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
     vapour_pressure = min(vapour_pressure, saturation)
@@ -313,6 +356,7 @@ def state_from_humidity_ratio(dry_bulb_c: float, humidity_ratio_kg_per_kg: float
 
 
 # --- light state and slopes, for assessing many surfaces ---------------------------------
+
 
 class VapourState(NamedTuple):
     """The parts of a moist-air state that surface and room judgements need, without the
@@ -334,8 +378,9 @@ class VapourState(NamedTuple):
         return 1000.0 * self.humidity_ratio_kg_per_kg
 
 
-def vapour_state(dry_bulb_c: float, rh_pct: float,
-                 pressure_pa: float = STANDARD_PRESSURE_PA) -> VapourState:
+def vapour_state(
+    dry_bulb_c: float, rh_pct: float, pressure_pa: float = STANDARD_PRESSURE_PA
+) -> VapourState:
     """A :class:`VapourState` from dry bulb (°C), RH (%, relative to water) and pressure (Pa),
     with the conventions and domain of :func:`state_from_rh`."""
     check_dry_bulb(dry_bulb_c)
@@ -344,17 +389,28 @@ def vapour_state(dry_bulb_c: float, rh_pct: float,
     saturation = sat_vapour_pressure_water_pa(dry_bulb_c)
     vapour_pressure = rh_pct / 100.0 * saturation
     if vapour_pressure < _LOWEST_VAPOUR_PRESSURE_PA:
-        raise InputError("relative humidity", _shown(rh_pct),
-                         "too dry to compute: the dew point would be below −100 °C")
+        raise InputError(
+            "relative humidity",
+            _shown(rh_pct),
+            "too dry to compute: the dew point would be below −100 °C",
+        )
     if vapour_pressure >= _TRIPLE_POINT_PRESSURE_PA:
         point = psychrolib.GetTDewPointFromVapPres(dry_bulb_c, vapour_pressure)
     else:  # frost point, unclamped (see _state)
         point = psychrolib.GetTDewPointFromVapPres(TRIPLE_POINT_C, vapour_pressure)
     humidity_ratio = psychrolib.GetHumRatioFromVapPres(vapour_pressure, pressure_pa)
     volume = psychrolib.GetMoistAirVolume(dry_bulb_c, humidity_ratio, pressure_pa)
-    return VapourState(float(dry_bulb_c), float(rh_pct), float(pressure_pa), vapour_pressure,
-                       point, humidity_ratio, volume, saturation,
-                       dln_sat_vapour_pressure_water_per_k(dry_bulb_c))
+    return VapourState(
+        float(dry_bulb_c),
+        float(rh_pct),
+        float(pressure_pa),
+        vapour_pressure,
+        point,
+        humidity_ratio,
+        volume,
+        saturation,
+        dln_sat_vapour_pressure_water_per_k(dry_bulb_c),
+    )
 
 
 def dln_sat_vapour_pressure_water_per_k(temp_c: float) -> float:
@@ -374,6 +430,7 @@ def dln_sat_vapour_pressure_per_k(temp_c: float) -> float:
 
 # --- surfaces ----------------------------------------------------------------------------
 
+
 def condensation_point_c(state: MoistAir) -> float:
     """Dew point, or frost point when it lies below 0.01 °C: the surface temperature at
     which water or frost starts to form from this air."""
@@ -391,8 +448,9 @@ def surface_rh_pct(state: MoistAir, surface_temp_c: float) -> float:
     return 100.0 * state.vapour_pressure_pa / sat_vapour_pressure_pa(surface_temp_c)
 
 
-def max_room_rh_pct(dry_bulb_c: float, surface_temp_c: float,
-                    surface_rh_limit_pct: float = 100.0) -> float:
+def max_room_rh_pct(
+    dry_bulb_c: float, surface_temp_c: float, surface_rh_limit_pct: float = 100.0
+) -> float:
     """Highest room RH (%, relative to water) at which a surface at ``surface_temp_c`` stays
     at or below ``surface_rh_limit_pct``; 100 when any room RH keeps it there.
 
@@ -402,8 +460,9 @@ def max_room_rh_pct(dry_bulb_c: float, surface_temp_c: float,
     check_dry_bulb(dry_bulb_c, "room air temperature")
     check_surface_temp(surface_temp_c)
     if not 0.0 < surface_rh_limit_pct <= 100.0:
-        raise InputError("surface RH limit", surface_rh_limit_pct,
-                         "must be above 0 and at most 100 %")
+        raise InputError(
+            "surface RH limit", surface_rh_limit_pct, "must be above 0 and at most 100 %"
+        )
     ratio = sat_vapour_pressure_pa(surface_temp_c) / sat_vapour_pressure_water_pa(dry_bulb_c)
     return min(100.0, surface_rh_limit_pct * ratio)
 
@@ -414,28 +473,39 @@ def surface_temp_for_rh_c(state: MoistAir, surface_rh_limit_pct: float) -> float
 
     Raises InputError when the answer would lie outside the surface-temperature domain."""
     if not (_is_number(surface_rh_limit_pct) and 0.0 < surface_rh_limit_pct <= 100.0):
-        raise InputError("surface RH limit", _shown(surface_rh_limit_pct),
-                         "must be above 0 and at most 100 %")
+        raise InputError(
+            "surface RH limit", _shown(surface_rh_limit_pct), "must be above 0 and at most 100 %"
+        )
     needed = state.vapour_pressure_pa / (surface_rh_limit_pct / 100.0)
-    if not (sat_vapour_pressure_pa(SURFACE_TEMP_MIN_C) <= needed
-            <= sat_vapour_pressure_pa(SURFACE_TEMP_MAX_C)):
-        raise InputError("surface RH limit", _shown(surface_rh_limit_pct),
-                         "no surface temperature " + _temp_range(SURFACE_TEMP_MIN_C,
-                                                                 SURFACE_TEMP_MAX_C)
-                         + " keeps this air at or below that surface RH")
+    if not (
+        sat_vapour_pressure_pa(SURFACE_TEMP_MIN_C)
+        <= needed
+        <= sat_vapour_pressure_pa(SURFACE_TEMP_MAX_C)
+    ):
+        raise InputError(
+            "surface RH limit",
+            _shown(surface_rh_limit_pct),
+            "no surface temperature "
+            + _temp_range(SURFACE_TEMP_MIN_C, SURFACE_TEMP_MAX_C)
+            + " keeps this air at or below that surface RH",
+        )
     # psychrolib clamps its answer to the "dry bulb" passed: give it the domain's top.
     return psychrolib.GetTDewPointFromVapPres(SURFACE_TEMP_MAX_C, needed)
 
 
 # --- pressure ----------------------------------------------------------------------------
 
+
 def pressure_from_altitude_m(altitude_m: float) -> float:
     """Standard-atmosphere pressure (Pa) at ``altitude_m`` (psychrolib
     ``GetStandardAtmPressure``, ASHRAE ch. 1 eqn 3)."""
     if not in_range(altitude_m, ALTITUDE_MIN_M, ALTITUDE_MAX_M):
-        raise InputError("altitude", _shown(altitude_m, "m"),
-                         f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m "
-                         f"({ALTITUDE_MIN_M / 0.3048:.0f} and {ALTITUDE_MAX_M / 0.3048:.0f} ft)")
+        raise InputError(
+            "altitude",
+            _shown(altitude_m, "m"),
+            f"altitude must be between {ALTITUDE_MIN_M:g} and {ALTITUDE_MAX_M:g} m "
+            f"({ALTITUDE_MIN_M / 0.3048:.0f} and {ALTITUDE_MAX_M / 0.3048:.0f} ft)",
+        )
     return psychrolib.GetStandardAtmPressure(altitude_m)
 
 

@@ -31,4 +31,5 @@ def check(capsys, monkeypatch):
             status = exc.code
         captured = capsys.readouterr()
         return status, captured.out, captured.err
+
     return _run

@@ -21,16 +21,31 @@ from survey import psychro
 from survey.errors import InputError
 
 # ASHRAE Fundamentals 2017 ch. 1 Table 3, saturation pressure in Pa (over ice below 0 °C).
-TABLE_3_SAT_PRESSURE_PA = [(-20.0, 103.24), (-5.0, 401.74), (5.0, 872.6), (25.0, 3169.7),
-                           (50.0, 12351.3)]
+TABLE_3_SAT_PRESSURE_PA = [
+    (-20.0, 103.24),
+    (-5.0, 401.74),
+    (5.0, 872.6),
+    (25.0, 3169.7),
+    (50.0, 12351.3),
+]
 # ASHRAE Fundamentals 2017 ch. 1 Table 2, saturation humidity ratio at 101 325 Pa (over ice
 # below 0 °C). The table includes the enhancement factor, so the ideal-gas formula runs
 # 0.4-0.5 % low; psychrolib's own tests accept 0.5-1 %.
-TABLE_2_SAT_HUMIDITY_RATIO = [(-20.0, 0.0006373), (-5.0, 0.0024863), (5.0, 0.005425),
-                              (25.0, 0.020173), (50.0, 0.086863)]
+TABLE_2_SAT_HUMIDITY_RATIO = [
+    (-20.0, 0.0006373),
+    (-5.0, 0.0024863),
+    (5.0, 0.005425),
+    (25.0, 0.020173),
+    (50.0, 0.086863),
+]
 # Standard atmosphere, ASHRAE ch. 1 eqn 3 / Table 1, as in psychrolib's tests (±1 Pa).
-STANDARD_ATMOSPHERE_PA = [(-500.0, 107478.0), (0.0, 101325.0), (500.0, 95461.0),
-                          (1000.0, 89875.0), (4000.0, 61640.0)]
+STANDARD_ATMOSPHERE_PA = [
+    (-500.0, 107478.0),
+    (0.0, 101325.0),
+    (500.0, 95461.0),
+    (1000.0, 89875.0),
+    (4000.0, 61640.0),
+]
 
 
 @pytest.mark.parametrize(("temp_c", "expected_pa"), TABLE_3_SAT_PRESSURE_PA)
@@ -44,8 +59,12 @@ def test_saturation_humidity_ratio_matches_ashrae_table_2(temp_c, expected):
     """Air saturated over the forming phase has Table 2's humidity ratio within 1 %
     (ideal gas, no enhancement factor: Table 2 runs 0.4-0.5 % higher)."""
     # Saturation over ice below 0 °C is an RH below 100 % relative to water.
-    rh = min(100.0, 100.0 * psychro.sat_vapour_pressure_pa(temp_c)
-             / psychro.sat_vapour_pressure_water_pa(temp_c))
+    rh = min(
+        100.0,
+        100.0
+        * psychro.sat_vapour_pressure_pa(temp_c)
+        / psychro.sat_vapour_pressure_water_pa(temp_c),
+    )
     state = psychro.state_from_rh(temp_c, rh, 101_325.0)
     assert state.humidity_ratio_kg_per_kg == pytest.approx(expected, rel=0.01)
     assert state.humidity_ratio_kg_per_kg < expected  # the known sign of the departure
@@ -69,8 +88,9 @@ def _coolprop_grid():
         for rh_pct in (10, 25, 40, 55, 70, 85, 95):
             # Below 0 °C, a high RH over water is supersaturated over ice (it would frost at
             # once); CoolProp accepts no RH above 100 % over ice, so such points are left out.
-            if rh_pct / 100.0 * psychro.sat_vapour_pressure_water_pa(temp_c) < \
-                    psychro.sat_vapour_pressure_pa(temp_c):
+            if rh_pct / 100.0 * psychro.sat_vapour_pressure_water_pa(
+                temp_c
+            ) < psychro.sat_vapour_pressure_pa(temp_c):
                 yield float(temp_c), float(rh_pct)
 
 
@@ -81,8 +101,12 @@ def test_state_agrees_with_coolprop(temp_c, rh_pct):
     RH we take is converted first and compared with our condensation point)."""
     pressure = 101_325.0
     state = psychro.state_from_rh(temp_c, rh_pct, pressure)
-    rh_coolprop = (rh_pct / 100.0 * psychro.sat_vapour_pressure_water_pa(temp_c)
-                   / psychro.sat_vapour_pressure_pa(temp_c))
+    rh_coolprop = (
+        rh_pct
+        / 100.0
+        * psychro.sat_vapour_pressure_water_pa(temp_c)
+        / psychro.sat_vapour_pressure_pa(temp_c)
+    )
     t_k = temp_c + 273.15
     dew_coolprop = HAPropsSI("D", "T", t_k, "P", pressure, "R", rh_coolprop) - 273.15
     w_coolprop = HAPropsSI("W", "T", t_k, "P", pressure, "R", rh_coolprop)
@@ -95,8 +119,9 @@ def test_done_when_case_25c_80pct_matches_psychrolib_and_coolprop():
     import psychrolib
 
     state = psychro.state_from_rh(25.0, 80.0)
-    assert state.dew_point_c == pytest.approx(psychrolib.GetTDewPointFromRelHum(25.0, 0.8),
-                                              abs=1e-6)
+    assert state.dew_point_c == pytest.approx(
+        psychrolib.GetTDewPointFromRelHum(25.0, 0.8), abs=1e-6
+    )
     coolprop = HAPropsSI("D", "T", 298.15, "P", 101325.0, "R", 0.8) - 273.15
     assert state.dew_point_c == pytest.approx(coolprop, abs=0.05)
     # 21.31 °C: CoolProp value rounded, computed for this check.
@@ -113,8 +138,9 @@ def _wmo_ice_hpa(temp_c):
     return 6.112 * math.exp(22.46 * temp_c / (272.62 + temp_c))
 
 
-@pytest.mark.parametrize("temp_c", [-40.0, -30.0, -20.0, -10.0, -5.0, 0.0, 5.0, 15.0, 25.0,
-                                    35.0, 50.0])
+@pytest.mark.parametrize(
+    "temp_c", [-40.0, -30.0, -20.0, -10.0, -5.0, 0.0, 5.0, 15.0, 25.0, 35.0, 50.0]
+)
 def test_water_saturation_agrees_with_magnus(temp_c):
     """Saturation over (supercooled) water within 0.5 % of Alduchov & Eskridge's Magnus form."""
     ours_hpa = psychro.sat_vapour_pressure_water_pa(temp_c) / 100.0
@@ -172,8 +198,10 @@ def test_air_supersaturated_over_ice_has_a_frost_point_above_air_temperature(tem
     (CoolProp includes the enhancement factor, about 0.5 % in pressure, 0.05 K here)."""
     state = psychro.state_from_rh(temp_c, rh_pct)
     assert state.frost_point_c > temp_c
-    coolprop = HAPropsSI("D", "T", temp_c + 273.15, "P", 101325.0, "P_w",
-                         state.vapour_pressure_pa) - 273.15
+    coolprop = (
+        HAPropsSI("D", "T", temp_c + 273.15, "P", 101325.0, "P_w", state.vapour_pressure_pa)
+        - 273.15
+    )
     assert state.frost_point_c == pytest.approx(coolprop, abs=0.06)
     # A surface at air temperature frosts: surface RH over ice above 100 %.
     assert psychro.surface_rh_pct(state, temp_c) > 100.0
@@ -201,8 +229,9 @@ def test_from_dew_point_and_from_wet_bulb_round_trip():
     by_wet = psychro.state_from_wet_bulb(23.0, state.wet_bulb_c, 98_000.0)
     assert by_dew.rh_pct == pytest.approx(55.0, abs=1e-3)
     assert by_wet.rh_pct == pytest.approx(55.0, abs=0.01)
-    assert by_wet.humidity_ratio_kg_per_kg == pytest.approx(state.humidity_ratio_kg_per_kg,
-                                                            rel=1e-4)
+    assert by_wet.humidity_ratio_kg_per_kg == pytest.approx(
+        state.humidity_ratio_kg_per_kg, rel=1e-4
+    )
 
 
 def test_state_values_agree_with_coolprop_enthalpy_volume_wet_bulb():
@@ -221,7 +250,8 @@ def test_state_values_agree_with_coolprop_enthalpy_volume_wet_bulb():
     assert a.wet_bulb_c == pytest.approx(wb_coolprop, abs=0.1)
     # Absolute humidity = W / v, g/m³.
     assert a.absolute_humidity_g_per_m3 == pytest.approx(
-        1000 * a.humidity_ratio_kg_per_kg / a.specific_volume_m3_per_kg)
+        1000 * a.humidity_ratio_kg_per_kg / a.specific_volume_m3_per_kg
+    )
 
 
 def test_max_room_rh_for_a_cold_surface():
@@ -260,24 +290,30 @@ def test_surface_temp_for_rh_refuses_answers_outside_the_domain():
     assert psychro.surface_rh_pct(state, ts) == pytest.approx(50.0, rel=1e-4)
 
 
-@pytest.mark.parametrize(("call", "field"), [
-    (lambda: psychro.state_from_rh(21.0, 120.0), "relative humidity"),
-    (lambda: psychro.state_from_rh(21.0, 0.0), "relative humidity"),
-    (lambda: psychro.state_from_rh(21.0, -3.0), "relative humidity"),
-    (lambda: psychro.state_from_rh(21.0, 0.05), "relative humidity"),
-    (lambda: psychro.state_from_rh(21.0, float("inf")), "relative humidity"),
-    (lambda: psychro.state_from_rh(21.0, 50.0, 1e308), "pressure"),
-    (lambda: psychro.state_from_rh(75.0, 50.0), "dry bulb"),
-    (lambda: psychro.state_from_rh(-51.0, 50.0), "dry bulb"),
-    (lambda: psychro.state_from_rh(21.0, 50.0, 40_000.0), "pressure"),
-    (lambda: psychro.state_from_rh(21.0, 50.0, 120_000.0), "pressure"),
-    (lambda: psychro.state_from_rh(float("nan"), 50.0), "dry bulb"),
-    (lambda: psychro.state_from_dew_point(20.0, 22.0), "dew point"),
-    (lambda: psychro.state_from_wet_bulb(20.0, 22.0), "wet bulb"),
-    (lambda: psychro.state_from_wet_bulb(40.0, -20.0), "wet bulb"),
-    (lambda: psychro.pressure_from_altitude_m(9000.0), "altitude"),
-    (lambda: psychro.surface_rh_pct(psychro.state_from_rh(20, 50), 150.0), "surface temperature"),
-])
+@pytest.mark.parametrize(
+    ("call", "field"),
+    [
+        (lambda: psychro.state_from_rh(21.0, 120.0), "relative humidity"),
+        (lambda: psychro.state_from_rh(21.0, 0.0), "relative humidity"),
+        (lambda: psychro.state_from_rh(21.0, -3.0), "relative humidity"),
+        (lambda: psychro.state_from_rh(21.0, 0.05), "relative humidity"),
+        (lambda: psychro.state_from_rh(21.0, float("inf")), "relative humidity"),
+        (lambda: psychro.state_from_rh(21.0, 50.0, 1e308), "pressure"),
+        (lambda: psychro.state_from_rh(75.0, 50.0), "dry bulb"),
+        (lambda: psychro.state_from_rh(-51.0, 50.0), "dry bulb"),
+        (lambda: psychro.state_from_rh(21.0, 50.0, 40_000.0), "pressure"),
+        (lambda: psychro.state_from_rh(21.0, 50.0, 120_000.0), "pressure"),
+        (lambda: psychro.state_from_rh(float("nan"), 50.0), "dry bulb"),
+        (lambda: psychro.state_from_dew_point(20.0, 22.0), "dew point"),
+        (lambda: psychro.state_from_wet_bulb(20.0, 22.0), "wet bulb"),
+        (lambda: psychro.state_from_wet_bulb(40.0, -20.0), "wet bulb"),
+        (lambda: psychro.pressure_from_altitude_m(9000.0), "altitude"),
+        (
+            lambda: psychro.surface_rh_pct(psychro.state_from_rh(20, 50), 150.0),
+            "surface temperature",
+        ),
+    ],
+)
 def test_out_of_domain_raises_input_error(call, field):
     """Values outside the documented domain raise InputError naming the field."""
     with pytest.raises(InputError) as info:
@@ -300,8 +336,9 @@ def test_dew_point_never_above_dry_bulb(temp_c, rh_pct, pressure_pa):
     is supersaturated over ice (RH over water above pws_ice / pws_water)."""
     state = psychro.state_from_rh(temp_c, rh_pct, pressure_pa)
     assert state.dew_point_c <= temp_c + 1e-9
-    supersaturated_over_ice = (state.vapour_pressure_pa
-                               > psychro.sat_vapour_pressure_pa(temp_c) * (1 + 1e-9))
+    supersaturated_over_ice = state.vapour_pressure_pa > psychro.sat_vapour_pressure_pa(temp_c) * (
+        1 + 1e-9
+    )
     assert (state.condensation_point_c > temp_c + 1e-3) <= supersaturated_over_ice
 
 
