@@ -62,7 +62,7 @@ import math
 from dataclasses import dataclass
 from enum import Enum
 from functools import lru_cache
-from typing import Iterable, NamedTuple
+from typing import Any, Iterable, NamedTuple
 
 from survey import domain, psychro
 from survey import thresholds as th
@@ -80,14 +80,14 @@ class _State(Enum):
 
     rank: int | None
 
-    def __new__(cls, value: str, rank: int | None):
+    def __new__(cls, value: str, rank: int | None) -> "_State":
         member = object.__new__(cls)
         member._value_ = value
         member.rank = rank
         return member
 
     def __str__(self) -> str:
-        return self.value
+        return str(self.value)
 
 
 class CondensationState(_State):
@@ -461,7 +461,7 @@ class RoomFinding(NamedTuple):
         and the condensation margin."""
         if self.max_room_rh_pct_mould is None:
             return None
-        return min(self.max_room_rh_pct_mould, self.max_room_rh_pct_margin)
+        return min(self.max_room_rh_pct_mould, self.max_room_rh_pct_margin or 100.0)
 
     def moist_air(self) -> psychro.MoistAir:
         """The room air as a full :class:`~survey.psychro.MoistAir` (computed on demand)."""
@@ -542,6 +542,7 @@ def _context(air: AirState, outdoor: AirState | None, accuracy: Accuracy, use: s
     u_tc = math.sqrt(u_ln_pw_sq) / _dln_pws(air.condensation_point_c)
     limit = limits.frsi[use]
     delta_t = None
+    keys: tuple[str, ...]
     if limit is None:
         keys = _SURFACE_KEYS
         not_judged = FactorState.NOT_APPLICABLE
@@ -565,7 +566,7 @@ _BELOW, _APPROACHING, _ABOVE = _MOULD_ORDER
 _MEETS, _UNDER = _FACTOR_ORDER
 
 
-def _spans(order: tuple, cannot_tell: _State) -> dict:
+def _spans(order: tuple[Any, ...], cannot_tell: _State) -> dict[Any, Any]:
     """(best, worst) -> (state, possible states), precomputed for every pair."""
     table = {}
     for low, best in enumerate(order):
@@ -633,6 +634,7 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
         factor_state = ctx.factor_state_if_not_judged
         factor_possible = _ONE_FACTOR[factor_state]
     else:
+        assert ctx.outdoor_temp_c is not None and ctx.factor_limit is not None
         factor = (ts - ctx.outdoor_temp_c) / d
         u_ti = ctx.u_ti  # the outdoor thermometer is taken to be as good as the room's
         if ctx.shared_thermometer:
@@ -757,7 +759,8 @@ def _check_room(room: RoomInput) -> str:
 
 
 def _humidity_class(air: AirState, outdoor: AirState, accuracy: Accuracy, k: float,
-                    limits: tuple[float, ...] | None):
+                    limits: tuple[float, ...] | None
+                    ) -> tuple[float, float, int | None, tuple[int, ...]]:
     """Vapour-pressure excess, its expanded uncertainty, the class and the classes its band
     spans (see :func:`survey.thresholds.humidity_class` for the class rule)."""
     excess = air.vapour_pressure_pa - outdoor.vapour_pressure_pa
@@ -799,9 +802,9 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
 
     coldest = other = None
     rh_mould = rh_margin = rh_low = rh_high = rh_dry_other = None
-    setting = surfaces
+    setting: tuple[SurfaceFinding, ...] = surfaces
     if surfaces and not {s.element for s in surfaces} <= _SETS_TARGET:
-        setting = [s for s in surfaces if s.element in _SETS_TARGET]
+        setting = tuple(s for s in surfaces if s.element in _SETS_TARGET)
         others = [s for s in surfaces if s.element not in _SETS_TARGET]
         other = min(others, key=_surface_temp)
         # Clear of condensation while the surface RH stays below 100 %: the same relation
@@ -837,7 +840,7 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
         excess, excess_u, number, possible = _humidity_class(air, outdoor, accuracy, limits.k,
                                                              limits.class_limits)
 
-    materials = ()
+    materials: tuple[MaterialFinding, ...] = ()
     if room.materials:
         emc = emc_or_none(air.dry_bulb_c, air.rh_pct)
         materials = tuple(_material(m, emc, air.dry_bulb_c, f"room {room.name!r} ")

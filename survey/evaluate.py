@@ -92,18 +92,20 @@ def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
               entered: dict[str, bool], shared_thermometer: bool = True) -> assess.Accuracy:
     """The worst accuracy of each kind among the instruments used, defaults elsewhere."""
     default = assess.DEFAULT_ACCURACY
-    found = {"air_temp_k": None, "rh_pct": None, "surface_temp_k": None}
+    found: dict[str, float | None] = {"air_temp_k": None, "rh_pct": None, "surface_temp_k": None}
     for instrument_id in instrument_ids:
         if instrument_id is None:
             continue
-        instrument = survey.instrument(instrument_id)
-        if instrument is None:
+        try:
+            instrument = survey.instrument(instrument_id)
+        except KeyError:  # a file that validates names only instruments it has
             continue
         for key, value in (("air_temp_k", instrument.air_temp_accuracy_k),
                            ("rh_pct", instrument.rh_accuracy_pct),
                            ("surface_temp_k", instrument.surface_temp_accuracy_k)):
             if value is not None:
-                found[key] = value if found[key] is None else max(found[key], value)
+                previous = found[key]
+                found[key] = value if previous is None else max(previous, value)
     for key, value in found.items():
         entered[key] = entered.get(key, True) and value is not None
     return assess.Accuracy(
@@ -202,6 +204,8 @@ def _shared_thermometer(visit: model.Visit, room_visit: model.RoomVisit) -> bool
     """Whether one thermometer read the room and the outdoor air: the same instrument, or
     either not said (the usual case on site, and the assumption then)."""
     if visit.outdoor is None:
+        return True
+    if room_visit.air is None:
         return True
     indoor, outdoor = room_visit.air.instrument, visit.outdoor.instrument
     return indoor is None or outdoor is None or indoor == outdoor

@@ -440,7 +440,7 @@ def save_csv(survey: Survey, path: str | os.PathLike[str], system: UnitSystem | 
 
     count = 0
 
-    def chunks():
+    def chunks() -> Iterator[bytes]:
         nonlocal count
         yield "\ufeff".encode()
         for text, rows in csv_blocks(survey, system, include_logs):

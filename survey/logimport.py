@@ -377,7 +377,7 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
                 "as month/day/year; state the order: dmy (day/month/year) or mdy "
                 "(month/day/year)")
         if detected in ("dmy", "mdy"):
-            order = detected  # type: ignore[assignment]
+            order = detected
 
     skipped: list[SkippedRow] = [
         SkippedRow(line, f"the line is {length} characters long, longer than any logger row")

@@ -100,10 +100,10 @@ def _orders_possible(m: re.Match[str]) -> set[DateOrder]:
     possible: set[DateOrder] = set()
     for order in ("dmy", "mdy"):
         try:
-            _build_time(m, order)  # type: ignore[arg-type]
+            _build_time(m, order)
         except ValueError:
             continue
-        possible.add(order)  # type: ignore[arg-type]
+        possible.add(order)
     return possible
 
 

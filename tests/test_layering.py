@@ -94,11 +94,6 @@ def test_quick_check_json_path_loads_neither_pint_nor_rich():
     assert "pint" not in loaded and "rich" not in loaded and "textual" not in loaded
 
 
-@pytest.mark.xfail(
-    strict=True,
-    reason="survey.model still imports survey.store (model.new_survey / check_record); "
-    "remove this mark when that import is gone",
-)
 def test_import_linter_contract_holds():
     """`lint-imports` (contracts in pyproject.toml: the layers, textual and Rich only in the
     faces, pint only in units, psychrolib only in psychro) finds nothing broken."""

@@ -8,6 +8,8 @@ deferral to local codes and licensed professionals ends every list.
 
 from __future__ import annotations
 
+from typing import Any
+
 from survey import thresholds as th
 from survey.advise.kinds import Action, ActionKind, Caution, DehumidifyWhy, RoomAdvice
 from survey.assess import MouldState, RoomFinding
@@ -16,7 +18,7 @@ CLOSING = Caution("closing")
 _MOULD_AREA_KEYS = ("mould_area_small_m2", "mould_area_large_m2")
 
 
-def cautions_for(finding: RoomFinding, actions: tuple[Action, ...], year_built: int | None
+def cautions_for(finding: RoomFinding, actions: tuple[Action[Any], ...], year_built: int | None
                  ) -> tuple[Caution, ...]:
     """The cautions for one room, in a fixed order, closing last."""
     obs = finding.room.observations
@@ -76,7 +78,7 @@ _CLOSING_WHY = frozenset({DehumidifyWhy.OUTDOOR_WETTER, DehumidifyWhy.OUTDOOR_AB
                           DehumidifyWhy.DRYING_WITHIN_TARGET})
 
 
-def _closes_up(actions: tuple[Action, ...]) -> bool:
+def _closes_up(actions: tuple[Action[Any], ...]) -> bool:
     """Whether the advice closes a space up: windows and vents shut while dehumidifying or
     drying, a ventilated space sealed, contaminated water contained."""
     for a in actions:
@@ -87,7 +89,7 @@ def _closes_up(actions: tuple[Action, ...]) -> bool:
     return False
 
 
-def _extracts(actions: tuple[Action, ...]) -> bool:
+def _extracts(actions: tuple[Action[Any], ...]) -> bool:
     """Whether the advice adds extract ventilation (a fan pulling air out of the room)."""
     return any(a.kind is ActionKind.VENTILATE
                or (a.kind is ActionKind.REPEAT_READINGS and a.numbers.wet_room_peak)

@@ -9,8 +9,9 @@ keys ``survey check --json`` prints).
 
 from __future__ import annotations
 
+from collections.abc import Iterator
 from enum import Enum
-from typing import Any, ClassVar, Union
+from typing import Any, ClassVar, Generic, TypeVar, Union
 
 import msgspec
 
@@ -50,8 +51,8 @@ def _encode(value: Any) -> Any:
     return value
 
 
-def _fields(record: Any):
-    words_only = getattr(record, "__words__", frozenset())
+def _fields(record: Any) -> Iterator[tuple[str, Any]]:
+    words_only: frozenset[str] = getattr(record, "__words__", frozenset())
     for name in record.__struct_fields__:
         if name in words_only:
             continue
@@ -310,16 +311,21 @@ class RemoveContaminatedNumbers(msgspec.Struct, frozen=True, kw_only=True):
     stop_air_movers: bool = False
 
 
-ActionNumbers = Union[RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers, RaiseSurfaceNumbers,
-                      ColdSurfaceNumbers, FindSourceNumbers, KeepDryingNumbers,
-                      RepeatReadingsNumbers, VentilatedSpaceNumbers]
+ActionNumbers = Union[RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers,
+                      RaiseSurfaceNumbers, ColdSurfaceNumbers, FindSourceNumbers,
+                      KeepDryingNumbers, RepeatReadingsNumbers, VentilatedSpaceNumbers]
+#: The numbers record of one action kind.
+N = TypeVar("N", RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers,
+            RaiseSurfaceNumbers, ColdSurfaceNumbers, FindSourceNumbers, KeepDryingNumbers,
+            RepeatReadingsNumbers, VentilatedSpaceNumbers, ActionNumbers)
 
 
-class Action(msgspec.Struct, frozen=True):
-    """One thing to do and its numbers; ``surface`` names the surface it is about."""
+class Action(msgspec.Struct, Generic[N], frozen=True):
+    """One thing to do and its numbers; ``surface`` names the surface it is about.
+    ``Action[VentilateNumbers]`` is a ventilate action; a list of any is ``Action[Any]``."""
 
     kind: ActionKind
-    numbers: ActionNumbers
+    numbers: N
     threshold_keys: tuple[str, ...]
 
     @property
@@ -400,7 +406,7 @@ class RoomAdvice(msgspec.Struct, frozen=True, kw_only=True):
     room: str
     target: Target
     moisture: MoistureEstimate
-    actions: tuple[Action, ...]
+    actions: tuple[Action[Any], ...]
     cautions: tuple[Caution, ...]
 
     @property
@@ -410,8 +416,10 @@ class RoomAdvice(msgspec.Struct, frozen=True, kw_only=True):
     @property
     def threshold_keys(self) -> tuple[str, ...]:
         keys = set(self.moisture.threshold_keys)
-        for item in (*self.actions, *self.cautions):
-            keys.update(item.threshold_keys)
+        for action in self.actions:
+            keys.update(action.threshold_keys)
+        for caution in self.cautions:
+            keys.update(caution.threshold_keys)
         return tuple(sorted(keys))
 
 

@@ -22,7 +22,7 @@ from __future__ import annotations
 from survey import psychro
 from survey import thresholds as th
 from survey.advise.kinds import MoistureEstimate
-from survey.assess import AirState, RoomFinding
+from survey.assess import AirState, Observations, RoomFinding
 from survey.errors import InputError
 
 WATER_L_PER_KG = 1.0  # 1 kg of water taken as 1 L (0.2 % off at 20 °C)
@@ -153,7 +153,7 @@ def extract_minimum(use: str, volume_m3: float | None) -> tuple[float, tuple[str
     return max(value for value, _ in candidates), keys + intermittent
 
 
-def water_loss_class(obs) -> tuple[int | None, bool, tuple[str, ...]]:
+def water_loss_class(obs: Observations) -> tuple[int | None, bool, tuple[str, ...]]:
     """(class 1-4 of the water loss, whether it was assumed, keys): given, or from the wet
     share of the room's surfaces and whether dense materials hold water (restoration
     standard of practice, from memory); None when nothing says."""

@@ -17,6 +17,9 @@ is cut instead.
 from __future__ import annotations
 
 import math
+from collections.abc import Iterable
+
+from typing import Any
 
 import msgspec
 
@@ -31,16 +34,16 @@ from survey.advise.kinds import (Action, ActionKind, ColdSurfaceNumbers, Dehumid
                                  RepeatReadingsNumbers, RoomAdvice,
                                  SiteAdvice, SourceReason, Target, TargetWhy, TimberPoint,
                                  TimberSurface, VentilatedSpaceNumbers, VentilateNumbers)
-from survey.assess import (AirState, CondensationState, DryStandardState, FactorState,
-                           MouldState, RoomFinding, SiteFinding, SurfaceFinding, TimberState,
-                           air_state)
+from survey.assess import (AirState, CondensationState, DryingEquipment, DryStandardState,
+                           FactorState, MaterialFinding, MouldState, Observations,
+                           RoomFinding, SiteFinding, SurfaceFinding, TimberState, air_state)
 from survey.errors import InputError
 
 TARGET_RH_MIN_PCT = 25.0
 TARGET_RH_MAX_PCT = 80.0
 
 
-def _keys(*groups) -> tuple[str, ...]:
+def _keys(*groups: Iterable[str | None]) -> tuple[str, ...]:
     """Threshold keys, in order, once each, without empties."""
     return tuple(dict.fromkeys(k for group in groups for k in group if k))
 
@@ -51,7 +54,7 @@ def rh_limit_shown(limit_pct: float) -> int:
     return int(math.floor(limit_pct + 1e-9))
 
 
-def _drying(finding: RoomFinding):
+def _drying(finding: RoomFinding) -> DryingEquipment | None:
     """The room's running drying equipment (dehumidifiers, air movers), or None."""
     obs = finding.room.observations
     return obs.drying if obs.drying_in_progress else None
@@ -84,6 +87,8 @@ def room_target(finding: RoomFinding, target_rh_pct: float | None) -> Target:
     whole = float(rh_limit_shown(limit))
     target = max(whole, min(floor, design))
     coldest = finding.coldest
+    assert coldest is not None  # a limit means a coldest surface
+    assert finding.max_room_rh_pct_mould is not None and finding.max_room_rh_pct_margin is not None
     mould_binds = finding.max_room_rh_pct_mould <= finding.max_room_rh_pct_margin
     return Target(
         rh_pct=target, why=why, design_rh_pct=design, lowered_by_surface=True,
@@ -97,12 +102,13 @@ def room_target(finding: RoomFinding, target_rh_pct: float | None) -> Target:
 # --- ventilation and dehumidification --------------------------------------------------------
 
 def _ventilate(finding: RoomFinding, target: Target, target_air: AirState,
-               moisture: MoistureEstimate) -> Action:
+               moisture: MoistureEstimate) -> Action[Any]:
     """Ventilation sized to hold the target (outdoor air usefully drier than room air at
     the target)."""
     out, air, room = finding.outdoor, finding.air, finding.room
+    assert out is not None  # ventilation is only weighed against measured outdoor air
     wt, wo = target_air.humidity_ratio_kg_per_kg, out.humidity_ratio_kg_per_kg
-    flows: dict = {}
+    flows: dict[str, Any] = {}
     extra_keys: tuple[str, ...] = ()
     if moisture.used_g_per_h is not None:
         # The fan moves room air: the volume flow is at the room air's specific volume.
@@ -137,14 +143,15 @@ def _ventilate(finding: RoomFinding, target: Target, target_air: AirState,
 
 
 def _ventilate_partly(finding: RoomFinding, target: Target, target_air: AirState,
-                      moisture: MoistureEstimate) -> Action:
+                      moisture: MoistureEstimate) -> Action[Any]:
     """Outdoor air is drier than the room now but not usefully drier than room air at the
     target: ventilate as far as it helps (a dehumidifier does the rest)."""
     out, air, room = finding.outdoor, finding.air, finding.room
+    assert out is not None  # ventilation is only weighed against measured outdoor air
     wt, wo = target_air.humidity_ratio_kg_per_kg, out.humidity_ratio_kg_per_kg
     cap = th.value("ventilation_practical_max_ach")
     warmed, _ = loads.rh_at(air, wo)
-    flows: dict = {}
+    flows: dict[str, Any] = {}
     saturates = False
     extra_keys: tuple[str, ...] = ()
     if wo < wt and room.volume_m3 is not None:
@@ -180,7 +187,7 @@ def _ventilate_partly(finding: RoomFinding, target: Target, target_air: AirState
 def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
                 moisture: MoistureEstimate, why: DehumidifyWhy,
                 air_changes_per_h: float | None = None, extra_keys: tuple[str, ...] = (),
-                drying=None, **more) -> Action:
+                drying: DryingEquipment | None = None, **more: Any) -> Action[Any]:
     """Water to take out per day to hold the target, with outdoor air coming in at
     ``air_changes_per_h`` (default: the assumed rate); the one-off pull-down of the room air
     is stated apart, in litres."""
@@ -189,7 +196,7 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
     keys = [*extra_keys, "dehumidifier_rating_old_dry_bulb_c",
             "dehumidifier_rating_current_dry_bulb_c", "dehumidifier_rating_rh_pct",
             "refrigerant_dehumidifier_min_c", "us_pint_l", *moisture.threshold_keys]
-    fields: dict = {}
+    fields: dict[str, Any] = {}
     generation = moisture.used_g_per_h
     outdoor_g_per_h = None
     if out is not None and room.volume_m3 is not None:
@@ -214,7 +221,8 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
         fields.update(materials_load_l_per_day=materials[0], water_loss_class=materials[1],
                       water_loss_class_assumed=materials[2])
         keys += materials[3]
-    if logged is not None:
+    load: float | None
+    if logged is not None and drying is not None:
         load = logged
         fields.update(logged_removal_l_per_day=logged, water_removed_l=drying.water_removed_l,
                       hours_since_previous=drying.hours_since_previous)
@@ -236,7 +244,7 @@ def _dehumidify(finding: RoomFinding, target: Target, target_air: AirState,
     return Action(ActionKind.DEHUMIDIFY, numbers, _keys(keys))
 
 
-def _materials_load(finding: RoomFinding):
+def _materials_load(finding: RoomFinding) -> tuple[float, int, bool, tuple[str, ...]] | None:
     """(L/day leaving wet materials, class, assumed, keys) for a room being dried whose
     volume is known, when its class of water loss is given or worked out, or its materials
     read above the dry standard (a class is then assumed); else None."""
@@ -254,7 +262,7 @@ def _materials_load(finding: RoomFinding):
 
 
 def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState,
-                      moisture: MoistureEstimate) -> list[Action]:
+                      moisture: MoistureEstimate) -> list[Action[Any]]:
     """Ventilate, dehumidify, or both, for a room above its target (see the module notes)."""
     air, out = finding.air, finding.outdoor
     margin_key = "ventilation_outdoor_drier_margin_g_per_kg"
@@ -305,7 +313,7 @@ def _moisture_actions(finding: RoomFinding, target: Target, target_air: AirState
                         extra_keys=("ventilation_practical_max_ach",))]
 
 
-def _grain_depression(finding: RoomFinding, drying) -> dict:
+def _grain_depression(finding: RoomFinding, drying: DryingEquipment) -> dict[str, float]:
     """The humidity-ratio drop across the dehumidifier (inlet: room air), g/kg and gr/lb."""
     if drying.outlet_temp_c is None or drying.outlet_rh_pct is None:
         return {}
@@ -317,8 +325,9 @@ def _grain_depression(finding: RoomFinding, drying) -> dict:
             "outlet_humidity_ratio_g_per_kg": outlet.humidity_ratio_g_per_kg}
 
 
-def _drying_actions(finding: RoomFinding, drying, target: Target, target_air: AirState,
-                    moisture: MoistureEstimate) -> list[Action]:
+def _drying_actions(finding: RoomFinding, drying: DryingEquipment, target: Target,
+                    target_air: AirState,
+                    moisture: MoistureEstimate) -> list[Action[Any]]:
     """A room being dried: keep the drying area closed and dehumidify, never ventilate."""
     if drying.dehumidifiers == 0:
         why = DehumidifyWhy.DRYING_AIR_MOVERS_ONLY
@@ -333,7 +342,7 @@ def _drying_actions(finding: RoomFinding, drying, target: Target, target_air: Ai
                         **_grain_depression(finding, drying))]
 
 
-def _ventilated_space(finding: RoomFinding) -> Action:
+def _ventilated_space(finding: RoomFinding) -> Action[Any]:
     """A loft or crawl space that follows outdoor air: cut the moisture coming in, check
     its ventilation, measure the timber; a dehumidifier only if the space is sealed."""
     timber = []
@@ -348,7 +357,7 @@ def _ventilated_space(finding: RoomFinding) -> Action:
         emc = loads.timber_emc(surface.surface_temp_c, rh_s)  # None outside the equation
         timber.append(TimberSurface(surface=surface.label, surface_temp_c=surface.surface_temp_c,
                                     surface_rh_pct=rh_s, emc_pct=emc))
-    weather: dict = {}
+    weather: dict[str, Any] = {}
     out, air = finding.outdoor, finding.air
     if out is not None:
         wetter = out.humidity_ratio_kg_per_kg > air.humidity_ratio_kg_per_kg
@@ -371,7 +380,7 @@ def _ventilated_space(finding: RoomFinding) -> Action:
 # --- surfaces ------------------------------------------------------------------------------------
 
 def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: float
-                   ) -> Action | None:
+                   ) -> Action[Any] | None:
     """A wall, ceiling or floor too cold for the room to be held at a practical RH, or with
     its temperature factor under the limit."""
     air = finding.air
@@ -388,19 +397,20 @@ def _raise_surface(finding: RoomFinding, surface: SurfaceFinding, design_rh: flo
         return None
     keys = ["surface_rh_mould_limit_pct", "dew_point_margin_k", "room_rh_floor_pct"]
     design_air = air_state(air.dry_bulb_c, design_rh, air.pressure_pa)
-    for_rh = max(psychro.surface_temp_for_rh_c(design_air, mould_limit),
+    for_rh = max(psychro.surface_temp_for_rh_c(design_air, mould_limit),  # type: ignore[arg-type]
                  design_air.condensation_point_c + margin)
     target = for_rh
-    factor: dict = {}
+    factor: dict[str, Any] = {}
     if surface.temperature_factor is not None:
         f_limit = surface.temperature_factor_limit
+        assert finding.outdoor is not None and f_limit is not None  # a factor needs both
         outdoor_c = finding.outdoor.dry_bulb_c
         for_factor = outdoor_c + f_limit * (air.dry_bulb_c - outdoor_c)
         factor = {"temperature_factor": surface.temperature_factor,
                   "temperature_factor_uncertainty": surface.temperature_factor_uncertainty,
                   "temperature_factor_limit": f_limit,
                   "surface_temp_for_factor_limit_c": for_factor}
-        keys += [finding.frsi_limit_key, "frsi_min_temperature_difference_k"]
+        keys += [finding.frsi_limit_key or "", "frsi_min_temperature_difference_k"]
         if factor_under:
             target = max(target, for_factor)
     numbers = RaiseSurfaceNumbers(
@@ -433,7 +443,7 @@ def _cold_surface(finding: RoomFinding, surface: SurfaceFinding, target: float,
 
 
 def _glazing(finding: RoomFinding, surface: SurfaceFinding, target: float,
-             target_air: AirState) -> Action | None:
+             target_air: AirState) -> Action[Any] | None:
     """Glass or a window frame at or near the condensation point, or a frame above the
     mould limit: a window remedy, not a drier room."""
     forming = _forming(surface)
@@ -446,7 +456,7 @@ def _glazing(finding: RoomFinding, surface: SurfaceFinding, target: float,
 
 
 def _pipe(finding: RoomFinding, surface: SurfaceFinding, target: float,
-          target_air: AirState) -> Action | None:
+          target_air: AirState) -> Action[Any] | None:
     """A cold pipe at or near the condensation point: insulate it."""
     forming = _forming(surface)
     if forming is Forming.NO:
@@ -457,12 +467,12 @@ def _pipe(finding: RoomFinding, surface: SurfaceFinding, target: float,
 
 # --- sources, drying and repeat readings ----------------------------------------------------------
 
-def _material_points(wet) -> tuple[MaterialPoint, ...]:
+def _material_points(wet: Iterable[MaterialFinding]) -> tuple[MaterialPoint, ...]:
     tolerance = th.value("dry_standard_tolerance_fraction")
     return tuple(MaterialPoint(label=m.label, material=m.material, scale=m.scale, value=m.value,
                                dry_standard=m.dry_standard,
                                dry_at_or_below=m.dry_standard * (1.0 + tolerance))
-                 for m in wet)
+                 for m in wet if m.dry_standard is not None)
 
 
 def _class_high(finding: RoomFinding) -> tuple[bool, bool]:
@@ -470,14 +480,15 @@ def _class_high(finding: RoomFinding) -> tuple[bool, bool]:
     if finding.humidity_class is None:
         return False, False
     high = int(th.value("humidity_class_high")) + (1 if th.room_use(finding.use).wet_room else 0)
-    possible = finding.humidity_class_possible or (finding.humidity_class,)
+    possible: tuple[int, ...] = finding.humidity_class_possible or (
+        () if finding.humidity_class is None else (finding.humidity_class,))
     if max(possible) < high:
         return False, False
     return min(possible) >= high, min(possible) < high
 
 
 def _sources(finding: RoomFinding, occupants_explain: bool
-             ) -> tuple[Action | None, Action | None, Action | None]:
+             ) -> tuple[Action[Any] | None, Action[Any] | None, Action[Any] | None]:
     """(find the source, keep drying, repeat the readings): what the materials, observations
     and humidity class call for."""
     obs = finding.room.observations
@@ -521,6 +532,8 @@ def _sources(finding: RoomFinding, occupants_explain: bool
         later.append(SourceReason.MUSTY_SMELL)
     # While a room is being dried its air is humid from the drying itself: the humidity
     # class says nothing about a hidden source then.
+    possible: tuple[int, ...] = finding.humidity_class_possible or (
+        () if finding.humidity_class is None else (finding.humidity_class,))
     high, maybe = (False, False) if drying or occupants_explain else _class_high(finding)
     wet_room_peak = th.room_use(finding.use).wet_room and (high or maybe)
     if wet_room_peak:
@@ -539,45 +552,43 @@ def _sources(finding: RoomFinding, occupants_explain: bool
             materials_above_dry_standard=len(wet) if wet and not drying else None,
             vapour_pressure_excess_pa=finding.vapour_pressure_excess_pa if high else None,
             humidity_class=finding.humidity_class if high else None,
-            humidity_class_possible=(finding.humidity_class_possible
-                                     or (finding.humidity_class,)) if high else None)
+            humidity_class_possible=possible if high else None)
         find_source = Action(ActionKind.FIND_SOURCE, numbers, _keys(keys))
 
     keep_drying = None
     if drying and (wet or decaying or damp):
         if damp:
             drying_keys.append("timber_mould_mc_pct")
-        numbers = KeepDryingNumbers(materials_above_dry_standard=len(wet),
+        drying_numbers = KeepDryingNumbers(materials_above_dry_standard=len(wet),
                                     materials=_material_points(wet), damp_timber=damp_points,
                                     decaying=decay_points, decay_slowed=slowed)
-        keep_drying = Action(ActionKind.KEEP_DRYING, numbers,
+        keep_drying = Action(ActionKind.KEEP_DRYING, drying_numbers,
                              _keys(["dry_standard_tolerance_fraction"], drying_keys))
 
     repeat = None
-    possible = finding.humidity_class_possible or (finding.humidity_class,)
     if wet_room_peak:
-        numbers = RepeatReadingsNumbers(
+        repeat_numbers = RepeatReadingsNumbers(
             vapour_pressure_excess_pa=finding.vapour_pressure_excess_pa,
             humidity_class=finding.humidity_class, wet_room_peak=True, use=finding.use,
             reread_after_use_minutes=(th.value("wet_room_reread_after_use_from_minutes"),
                                       th.value("wet_room_reread_after_use_to_minutes")))
-        repeat = Action(ActionKind.REPEAT_READINGS, numbers,
+        repeat = Action(ActionKind.REPEAT_READINGS, repeat_numbers,
                         _keys(["wet_room_reread_after_use_from_minutes",
                                "wet_room_reread_after_use_to_minutes"],
                               th.HUMIDITY_CLASS_KEYS))
     elif maybe:
-        numbers = RepeatReadingsNumbers(
+        repeat_numbers = RepeatReadingsNumbers(
             vapour_pressure_excess_pa=finding.vapour_pressure_excess_pa,
             humidity_class=finding.humidity_class, wet_room_peak=False, use=finding.use,
             vapour_pressure_excess_uncertainty_pa=finding.vapour_pressure_excess_uncertainty_pa,
             humidity_class_possible=tuple(possible))
-        repeat = Action(ActionKind.REPEAT_READINGS, numbers, _keys(class_keys))
+        repeat = Action(ActionKind.REPEAT_READINGS, repeat_numbers, _keys(class_keys))
     return (find_source if find_source is not None else None), keep_drying, repeat
 
 
 # --- contaminated water ------------------------------------------------------------------------
 
-def effective_water_category(obs) -> tuple[int | None, bool]:
+def effective_water_category(obs: Observations) -> tuple[int | None, bool]:
     """(the water category to act on, whether standing water raised it): category 1 left
     standing degrades to 2, and 2 to 3 (restoration standard of practice; the times are
     threshold records)."""
@@ -595,7 +606,7 @@ def effective_water_category(obs) -> tuple[int | None, bool]:
     return category, category != obs.water_category
 
 
-def _contaminated(finding: RoomFinding) -> Action | None:
+def _contaminated(finding: RoomFinding) -> Action[Any] | None:
     """Category 3 water (or water that has stood long enough to become it): remove the
     porous materials it reached before any drying, contain, no air movement."""
     obs = finding.room.observations
@@ -604,7 +615,8 @@ def _contaminated(finding: RoomFinding) -> Action | None:
         return None
     drying = obs.drying
     numbers = RemoveContaminatedNumbers(
-        water_category=obs.water_category, effective_category=category, degraded=degraded,
+        water_category=obs.water_category or category, effective_category=category,
+        degraded=degraded,
         water_standing_h=obs.water_standing_h,
         porous_materials=tuple(dict.fromkeys(m.label for m in finding.materials
                                              if th.is_porous(m.material))),
@@ -615,7 +627,7 @@ def _contaminated(finding: RoomFinding) -> Action | None:
     return Action(ActionKind.REMOVE_CONTAMINATED_MATERIALS, numbers, tuple(keys))
 
 
-def _after_removal(action: Action) -> Action:
+def _after_removal(action: Action[Any]) -> Action[Any]:
     """A drying action where contaminated material is removed first: for what remains."""
     if action.kind is not ActionKind.DEHUMIDIFY:
         return action
@@ -641,7 +653,7 @@ def advise_room(finding: RoomFinding, target_rh_pct: float | None = None,
               else target_rh_pct)
     target_air = air_state(air.dry_bulb_c, target.rh_pct, air.pressure_pa)
     moisture = loads.moisture_generation(finding)
-    actions: list[Action] = []
+    actions: list[Action[Any]] = []
 
     share = loads.occupants_share(moisture)
     # In a bathroom or kitchen a high class is first read as a use peak.

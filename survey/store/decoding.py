@@ -28,7 +28,7 @@ finds a duplicate does a slower pass work out where.
 from __future__ import annotations
 
 import re
-from typing import Any
+from typing import Any, cast
 
 import msgspec
 
@@ -39,7 +39,7 @@ from survey.safe_text import shorten
 from survey.store import migrations
 
 _ENCODER = msgspec.json.Encoder()
-_DECODERS: dict[type, msgspec.json.Decoder] = {}
+_DECODERS: dict[type, msgspec.json.Decoder[Any]] = {}
 
 
 class _Head(msgspec.Struct):
@@ -48,7 +48,7 @@ class _Head(msgspec.Struct):
     schema_version: Any = msgspec.UNSET
 
 
-def _decoder(cls: type) -> msgspec.json.Decoder:
+def _decoder(cls: type) -> msgspec.json.Decoder[Any]:
     """The decoder of ``cls``, built on first use (building the survey's costs a few ms)."""
     decoder = _DECODERS.get(cls)
     if decoder is None:
@@ -190,7 +190,7 @@ def _top_level_values(data: bytes, key: str) -> list[Any]:
 
     pairs: list[list[tuple[str, Any]]] = []
 
-    def keep(items: list[tuple[str, Any]]) -> dict:
+    def keep(items: list[tuple[str, Any]]) -> dict[str, Any]:
         pairs.append(items)
         return {}
 
@@ -222,7 +222,7 @@ class _Found:
         self.tokens: list[str | int] = [key]
 
 
-_AN_OBJECT: dict = {}
+_AN_OBJECT: dict[str, Any] = {}
 
 
 def _found_in(value: Any) -> _Found | None:
@@ -369,7 +369,7 @@ def loads_survey(data: bytes, path: object = "<survey>") -> Survey:
         others = len(found) - 1
         more = f" (and {others} more problem{'s' * (others > 1)})" if others else ""
         raise SurveyFileError(path, where, problem + more)
-    return survey
+    return cast(Survey, survey)
 
 
 def dumps_survey(survey: Survey, path: object = "<survey>") -> bytes:

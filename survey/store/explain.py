@@ -199,7 +199,7 @@ def _close_match(text: str, allowed: list[str]) -> str | None:
     return close[0] if close else None
 
 
-def _overlong_array_like(doc: Any, info: Any, tokens: list[str | int]):
+def _overlong_array_like(doc: Any, info: Any, tokens: list[str | int]) -> Any:
     """Where a record stored as a list has too many items (msgspec gives no path for it)."""
     info = _unwrap(info)
     if isinstance(info, mi.StructType):

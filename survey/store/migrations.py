@@ -12,7 +12,7 @@ with ``@migration(old_version)``, and add a fixture of the old layout under ``te
 
 from __future__ import annotations
 
-from typing import Any, Callable, Iterable
+from typing import Any, Callable, Iterable, cast
 
 from survey.errors import SurveyFileError
 from survey.model import SCHEMA_VERSION
@@ -47,10 +47,11 @@ def migrate(doc: Any, version: int, path: object = "<survey>") -> dict[str, Any]
                           f"have that version's layout ({detail})") from None
         version += 1
         doc["schema_version"] = version
-    return doc
+    return cast(dict[str, Any], doc)
 
 
-def _copy_keys(source: dict, target: dict, names: Iterable[str]) -> dict:
+def _copy_keys(source: dict[str, Any], target: dict[str, Any], names: Iterable[str]
+               ) -> dict[str, Any]:
     for name in names:
         if name in source:
             target[name] = source[name]
@@ -92,7 +93,7 @@ def _upgrade_0_to_1(doc: dict[str, Any]) -> dict[str, Any]:
             new["is_reference"] = old["reference"]
         rooms.append(new)
 
-    def air(old: dict | None) -> dict | None:
+    def air(old: dict[str, Any] | None) -> dict[str, Any] | None:
         if old is None:
             return None
         return {"dry_bulb_c": old["temp_c"], "rh_pct": old["rh_pct"]}

@@ -6,8 +6,10 @@ the sentence quotes a reading, and a :class:`~survey.words.display.Display`.
 
 from __future__ import annotations
 
+from typing import Any
+
 from survey import thresholds as th
-from survey.advise.kinds import (Action, ActionKind, ColdSurfaceNumbers, DehumidifyNumbers,
+from survey.advise.kinds import (Action, ActionKind, RemoveContaminatedNumbers, ColdSurfaceNumbers, DehumidifyNumbers,
                                  DehumidifyWhy, FindSourceNumbers, Forming, KeepDryingNumbers,
                                  MaterialPoint, MoistureEstimate, OutdoorMode,
                                  RaiseSurfaceNumbers, RepeatReadingsNumbers, RoomAdvice,
@@ -32,11 +34,11 @@ TITLES = {
 }
 
 
-def _pct(x: float) -> str:
-    return f"{x:.0f} %"
+def _pct(x: float | None) -> str:
+    return "–" if x is None else f"{x:.0f} %"
 
 
-def action_title(action: Action) -> str:
+def action_title(action: Action[Any]) -> str:
     """The kind's title; an action about one surface names it (two surfaces, two titles)."""
     base = TITLES[action.kind]
     return f"{base}: {action.surface}" if action.surface else base
@@ -132,7 +134,7 @@ def moisture_basis(moisture: MoistureEstimate, use: str, d: Display) -> str:
         people_text = people[0] if people else ""
     if people and back is not None:
         return f"the larger of {people_text}, and {back}"
-    return people_text or back
+    return people_text or back or ""
 
 
 # --- ventilation and dehumidification ------------------------------------------------------
@@ -237,6 +239,13 @@ _DRYING_CLOSED = ("Keep the drying area closed and dehumidify: keep windows, tri
                   "than out of outdoor air.")
 
 
+#: Why-s that do not quote the outdoor air.
+_NO_OUTDOOR_NEEDED = frozenset({
+    DehumidifyWhy.OUTDOOR_NOT_MEASURED, DehumidifyWhy.VENTILATION_OVER_PRACTICAL,
+    DehumidifyWhy.VENTILATION_CANNOT_HOLD, DehumidifyWhy.DRYING_AIR_MOVERS_ONLY,
+    DehumidifyWhy.DRYING_ABOVE_TARGET, DehumidifyWhy.DRYING_WITHIN_TARGET})
+
+
 def _dehumidify_why(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
                     d: Display) -> str:
     air, out = finding.air, finding.outdoor
@@ -246,20 +255,22 @@ def _dehumidify_why(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvi
         return _bring(finding, advice, d) + (
             f"The outdoor air was not measured: if it holds less water than the "
             f"{d('humidity_ratio', w_room)} of the room air now, airing the room helps too.")
-    if n.why is DehumidifyWhy.OUTDOOR_WETTER:
+    assert out is not None or n.why in _NO_OUTDOOR_NEEDED
+    if n.why is DehumidifyWhy.OUTDOOR_WETTER and out is not None:
         return _bring(finding, advice, d) + (
             f"Outdoor air is wetter than the room air: it holds "
             f"{d('humidity_ratio', out.humidity_ratio_kg_per_kg)} of water against "
             f"{d('humidity_ratio', w_room)} in the room, so ventilating would add moisture. "
             f"Keep windows and doors to outside closed while dehumidifying.")
-    if n.why is DehumidifyWhy.OUTDOOR_ABOUT_SAME:
+    if n.why is DehumidifyWhy.OUTDOOR_ABOUT_SAME and out is not None:
         return _bring(finding, advice, d) + (
             f"Outdoor air is about as wet as the room air: "
             f"{d('humidity_ratio', out.humidity_ratio_kg_per_kg)} of water against "
             f"{d('humidity_ratio', w_room)} in the room, so airing would do little; a "
             f"dehumidifier does the work.")
-    if n.why is DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE:
-        coldest = finding.coldest
+    coldest = finding.coldest
+    if (n.why is DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE and out is not None
+            and coldest is not None):
         return _bring(finding, advice, d) + (
             f"Outdoor air is drier than the room air, but its dew point "
             f"({d.temperature(out.condensation_point_c)}) is above the coldest wall, ceiling "
@@ -293,7 +304,7 @@ def _grain_depression(n: DehumidifyNumbers, finding: RoomFinding) -> str:
     if n.grain_depression_g_per_kg is None:
         return ""
     w_in = finding.air.humidity_ratio_g_per_kg
-    w_out = n.outlet_humidity_ratio_g_per_kg
+    w_out = n.outlet_humidity_ratio_g_per_kg or 0.0
     g_in, g_out = 7.0 * w_in, 7.0 * w_out
     text = (f" Grain depression (room air in, minus air out of the dehumidifier): "
             f"{w_in:.2f} − {w_out:.2f} = {n.grain_depression_g_per_kg:.2f} g/kg "
@@ -348,7 +359,7 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
             text += (f"; outdoor air leaking in alone brings "
                      f"{d.water(n.outdoor_gain_g_per_h * 24.0 / 1000.0)}")
         text += "."
-    elif n.load_l_per_day > 0.0:
+    elif n.load_l_per_day is not None and n.load_l_per_day > 0.0:
         if n.materials_load_l_per_day is not None:
             gains.append(f"the wet materials {d.water(n.materials_load_l_per_day)}")
         text += (" To hold it there: " + "; ".join(gains) + f"; "
@@ -383,7 +394,8 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice,
     return text
 
 
-def _occupants_note(n, advice: RoomAdvice, d: Display) -> str:
+def _occupants_note(n: VentilateNumbers | DehumidifyNumbers, advice: RoomAdvice,
+                    d: Display) -> str:
     if n.occupants_share_of_load is None:
         return ""
     moisture = advice.moisture
@@ -483,7 +495,8 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
     if n.factor_under:
         reasons.append(f"its temperature factor is {n.temperature_factor:.2f} "
                        f"(±{n.temperature_factor_uncertainty:.2f}), under "
-                       f"{_limit_phrase(n.use, n.temperature_factor_limit)}, which today means "
+                       f"{_limit_phrase(n.use, n.temperature_factor_limit or 0.0)}, which today "
+                       f"means "
                        f"a surface of at least "
                        f"{d.minimum_temperature(n.surface_temp_for_factor_limit_c)} (the factor "
                        f"limit)")
@@ -544,7 +557,7 @@ def _code_minimum(n: VentilateNumbers, d: Display) -> str:
             + held)
 
 
-def _remove_contaminated(n, d: Display) -> str:
+def _remove_contaminated(n: RemoveContaminatedNumbers, d: Display) -> str:
     degraded = ""
     if n.degraded:
         degraded = (f" The water was recorded as category {n.water_category}, but it has stood "
@@ -682,7 +695,7 @@ def _source_reason(reason: SourceReason, n: FindSourceNumbers, d: Display) -> st
                 else "more than ordinary occupied rooms produce")
     return (f"the room air holds {d('vapour_pressure', n.vapour_pressure_excess_pa)} more "
             f"vapour pressure than outdoors, "
-            f"{humidity_class_range_text(n.humidity_class_possible)} of EN ISO 13788 — "
+            f"{humidity_class_range_text(n.humidity_class_possible or ())} of EN ISO 13788 — "
             f"{expected} (look for laundry drying indoors, unflued heaters, a blocked or missing "
             f"extract, or a leak)")
 
@@ -720,7 +733,7 @@ def _keep_drying(n: KeepDryingNumbers) -> str:
 def _repeat(n: RepeatReadingsNumbers, d: Display) -> str:
     excess = d("vapour_pressure", n.vapour_pressure_excess_pa)
     if n.wet_room_peak:
-        low, high = n.reread_after_use_minutes
+        low, high = n.reread_after_use_minutes or (0.0, 0.0)
         what = "a shower or bath" if n.use == "bathroom" else "cooking"
         return (f"The room air holds {excess} more vapour pressure than outdoors, "
                 f"{humidity_class_text(n.humidity_class)} of EN ISO 13788, but in "
@@ -739,14 +752,16 @@ def _repeat(n: RepeatReadingsNumbers, d: Display) -> str:
                 else "more than ordinary occupied rooms produce")
     band = d("vapour_pressure", n.vapour_pressure_excess_uncertainty_pa)
     return (f"The humidity class may be high: the room air holds {excess} (± {band}) more "
-            f"vapour pressure than outdoors, {humidity_class_range_text(n.humidity_class_possible)} "
+            f"vapour pressure than outdoors, "
+            f"{humidity_class_range_text(n.humidity_class_possible or ())} "
             f"of EN ISO 13788 at this instrument accuracy, and class {high_class} or above "
             f"would be {expected}. One spot reading cannot settle it: repeat the readings on "
             f"other days, or log the room for a week or two, before looking for a hidden "
             f"source.")
 
 
-def action_reason(action: Action, finding: RoomFinding, advice: RoomAdvice, d: Display) -> str:
+def action_reason(action: Action[Any], finding: RoomFinding, advice: RoomAdvice,
+                  d: Display) -> str:
     """Why and how, in sentences, with the action's numbers in ``d``'s units."""
     n = action.numbers
     kind = action.kind
@@ -771,7 +786,7 @@ def action_reason(action: Action, finding: RoomFinding, advice: RoomAdvice, d: D
     return _ventilated_space(n, d)
 
 
-def action_numbers(action: Action, d: Display) -> str:
+def action_numbers(action: Action[Any], d: Display) -> str:
     """The action's headline number, for a summary line ('' when it has none)."""
     n = action.numbers
     kind = action.kind

@@ -72,51 +72,69 @@ class Display:
 
         return units.format_value(quantity, value_si, "ip", decimals, unit)
 
-    def temperature(self, value_c: float, decimals: int | None = None) -> str:
+    def temperature(self, value_c: float | None, decimals: int | None = None) -> str:
+        if value_c is None:
+            return "–"
         return self("temperature", value_c, decimals)
 
-    def difference(self, value_k: float, decimals: int | None = None) -> str:
+    def difference(self, value_k: float | None, decimals: int | None = None) -> str:
+        if value_k is None:
+            return "–"
         return self("temperature_difference", value_k, decimals)
 
-    def area(self, value_m2: float) -> str:
+    def area(self, value_m2: float | None) -> str:
         """An area: '0.5 m²' or '5.4 sq ft' (US practice reads mould areas in ft²)."""
+        if value_m2 is None:
+            return "–"
         value, unit = (value_m2 * _FT2_PER_M2, "sq ft") if self.ip else (value_m2, "m²")
         return f"{_plain(value)} {unit}"
 
-    def moisture_rate(self, g_per_h: float) -> str:
+    def moisture_rate(self, g_per_h: float | None) -> str:
         """A moisture rate: '65 g/h' in SI; '1003 gr/h (0.14 lb/h)' in IP."""
+        if g_per_h is None:
+            return "–"
         if self.ip:
             return (f"{g_per_h * 7000.0 / _G_PER_LB:.0f} gr/h "
                     f"({g_per_h / _G_PER_LB:.2f} lb/h)")
         return f"{g_per_h:.0f} g/h"
 
-    def heat(self, watts: float) -> str:
+    def heat(self, watts: float | None) -> str:
         """A heating rate: '64 W' in SI, '218 Btu/h' in IP."""
+        if watts is None:
+            return "–"
         return f"{watts * _BTU_H_PER_W:.0f} Btu/h" if self.ip else f"{watts:.0f} W"
 
-    def water(self, litres_per_day: float) -> str:
+    def water(self, litres_per_day: float | None) -> str:
         """A water rate with the other unit beside it: '2.1 L/day (4.4 US pints/day)' or
         '4.4 pt/day (2.1 L/day)'."""
+        if litres_per_day is None:
+            return "–"
         text = self("water_rate", litres_per_day)
         if not self.ip:
             return f"{text} ({litres_per_day / th.value('us_pint_l'):.1f} US pints/day)"
         return f"{text} ({_si('water_rate', litres_per_day)})"
 
-    def water_at_least(self, litres_per_day: float) -> str:
+    def water_at_least(self, litres_per_day: float | None) -> str:
         """A least water rate, rounded up, with the other unit beside it."""
+        if litres_per_day is None:
+            return "–"
         text = self.at_least("water_rate", litres_per_day)
         if not self.ip:
             pints = litres_per_day / th.value('us_pint_l')
             return f"{text} ({math.ceil(pints * 10 - 1e-9) / 10:.1f} US pints/day)"
         return f"{text} ({math.ceil(litres_per_day * 10 - 1e-9) / 10:.1f} L/day)"
 
-    def litres(self, litres: float) -> str:
+    def litres(self, litres: float | None) -> str:
         """A one-off amount of water: '0.52 L (1.10 US pints)'."""
+        if litres is None:
+            return "–"
         return f"{litres:.2f} L ({litres / th.value('us_pint_l'):.2f} US pints)"
 
-    def nominal_temperature(self, temp_c: float) -> str:
+    def nominal_temperature(self, temp_c: float | None) -> str:
         """A temperature defined in whole degrees Fahrenheit (a test condition): whole °F in
         IP text, so 80 °F reads as 80 °F and not as a conversion back from 26.7 °C."""
+        if temp_c is None:
+            return "–"
         return self.temperature(temp_c, 0) if self.ip else self.temperature(temp_c)
 
     def at_least(self, quantity: str, value_si: float) -> str:
@@ -135,9 +153,11 @@ class Display:
         up = math.ceil(value_si * factor * 10 ** places - 1e-9) / 10 ** places
         return self(quantity, up / factor + 1e-12)
 
-    def minimum_temperature(self, value_c: float) -> str:
+    def minimum_temperature(self, value_c: float | None) -> str:
         """A minimum temperature, rounded up to the shown 0.1 degree so a shown minimum is
         never below the true one."""
+        if value_c is None:
+            return "–"
         return self.temperature(round_up_temperature_c(value_c, self.ip))
 
 

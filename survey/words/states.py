@@ -8,7 +8,8 @@ shown once below a table.
 
 from __future__ import annotations
 
-from typing import Iterable
+from collections.abc import Iterable, Mapping
+from typing import Any
 
 from survey import psychro
 from survey import thresholds as th
@@ -84,7 +85,7 @@ def _below_freezing(surface: SurfaceFinding) -> bool:
     return surface.surface_temp_c <= psychro.TRIPLE_POINT_C
 
 
-def _with_span(words: dict, state, possible) -> str:
+def _with_span(words: Mapping[Any, str], state: Any, possible: Iterable[Any]) -> str:
     """A state in words; one the band cannot settle names the states it spans."""
     if state.value != "cannot_tell":
         return words[state]
@@ -163,9 +164,9 @@ def short_verdict(surface: SurfaceFinding, d: Display) -> str:
                      else f"may be within {margin} of the {point}")
     else:
         parts.append(f"clear of the {point}")
-    mould, possible = surface.mould, surface.mould_possible
+    mould, mould_possible = surface.mould, surface.mould_possible
     if mould is MouldState.CANNOT_TELL:
-        parts.append("may be above the mould limit" if MouldState.ABOVE in possible
+        parts.append("may be above the mould limit" if MouldState.ABOVE in mould_possible
                      else "may be approaching the mould limit")
     elif mould is not MouldState.NOT_JUDGED:
         parts.append(MOULD_WORDS[mould])
@@ -199,8 +200,8 @@ def rh_limit_text(finding: RoomFinding) -> str | None:
     if top >= 100.0:
         return "any room RH (it stays below the limits even at 100 %)"
     shown = round_down_rh(top)
-    low, high = (round_down_rh(finding.max_room_rh_low_pct),
-                 round_down_rh(finding.max_room_rh_high_pct))
+    low, high = (round_down_rh(finding.max_room_rh_low_pct or top),
+                 round_down_rh(finding.max_room_rh_high_pct or top))
     if low == high == shown:
         return f"{shown} %"
     return f"{shown} % ({low} to {high} % at this accuracy)"
