@@ -23,8 +23,8 @@ room RH target) is on the measured path.
 from __future__ import annotations
 
 import psychrolib
-
 from common import Result, interleaved_best
+
 from survey import assess
 
 PRESSURE_PA = 101_325.0
@@ -37,9 +37,14 @@ def _rooms(per_room: int, glazing: bool = False) -> list[assess.RoomInput]:
     for n in range(SURFACES // per_room):
         air_c = 16.0 + (n % 9) * 0.7
         rh = 45.0 + (n % 13) * 3.1
-        surfaces = tuple(assess.SurfaceInput(f"s{k}", air_c - 1.0 - ((n + k) % 11) * 0.9,
-                                             "glazing" if glazing and k == 0 else "other")
-                         for k in range(per_room))
+        surfaces = tuple(
+            assess.SurfaceInput(
+                f"s{k}",
+                air_c - 1.0 - ((n + k) % 11) * 0.9,
+                "glazing" if glazing and k == 0 else "other",
+            )
+            for k in range(per_room)
+        )
         rooms.append(assess.RoomInput(f"room {n}", "bedroom", air_c, rh, surfaces))
     return rooms
 
@@ -79,8 +84,7 @@ def _calls_needed(rooms: list[assess.RoomInput], outdoor: assess.OutdoorInput) -
     return out
 
 
-def _case(name: str, per_room: int, baseline, goal: float | None,
-          glazing: bool = False) -> Result:
+def _case(name: str, per_room: int, baseline, goal: float | None, glazing: bool = False) -> Result:
     rooms = _rooms(per_room, glazing)
     outdoor = assess.OutdoorInput(2.0, 85.0)
     accuracy = assess.Accuracy()
@@ -94,12 +98,30 @@ def _case(name: str, per_room: int, baseline, goal: float | None,
 
 def run() -> list[Result]:
     return [
-        _case("assess 10000 surfaces (4 per room) with uncertainty, vs psychrolib calls "
-              "needed", 4, _calls_needed, 3.0),
-        _case("assess 10000 surfaces (4 per room) with uncertainty, vs values only", 4,
-              _values_only, None),
-        _case("assess 10000 surfaces (1 per room) with uncertainty, vs psychrolib calls "
-              "needed", 1, _calls_needed, None),
-        _case("assess 10000 surfaces (4 per room, one a window pane) with uncertainty, vs "
-              "psychrolib calls needed", 4, _calls_needed, None, glazing=True),
+        _case(
+            "assess 10000 surfaces (4 per room) with uncertainty, vs psychrolib calls needed",
+            4,
+            _calls_needed,
+            3.0,
+        ),
+        _case(
+            "assess 10000 surfaces (4 per room) with uncertainty, vs values only",
+            4,
+            _values_only,
+            None,
+        ),
+        _case(
+            "assess 10000 surfaces (1 per room) with uncertainty, vs psychrolib calls needed",
+            1,
+            _calls_needed,
+            None,
+        ),
+        _case(
+            "assess 10000 surfaces (4 per room, one a window pane) with uncertainty, vs "
+            "psychrolib calls needed",
+            4,
+            _calls_needed,
+            None,
+            glazing=True,
+        ),
     ]

@@ -43,7 +43,7 @@ def logger_survey() -> model.Survey:
     base = store.load_survey(ROOT / "example_sites" / "winter-flat-bedroom-mould.json")
     rng = random.Random(20250115)
     start = dt.datetime(2024, 10, 1)
-    rooms: list[str | None] = [room.id for room in base.rooms[:SERIES - 1]] + [None]
+    rooms: list[str | None] = [room.id for room in base.rooms[: SERIES - 1]] + [None]
     logs = []
     for k, room in enumerate(rooms):
         outdoors = room is None
@@ -53,9 +53,13 @@ def logger_survey() -> model.Survey:
             season = math.sin(2 * math.pi * i / SAMPLES_PER_SERIES)
             temp = (6.0 if outdoors else 18.0) + 3 * day + 4 * season + rng.gauss(0, 0.3)
             rh = (85.0 if outdoors else 62.0) - 8 * day - 5 * season + rng.gauss(0, 1.5)
-            samples.append(model.LogSample(at=start + dt.timedelta(minutes=i),
-                                           dry_bulb_c=round(temp, 1),
-                                           rh_pct=round(min(99.0, max(20.0, rh)), 1)))
+            samples.append(
+                model.LogSample(
+                    at=start + dt.timedelta(minutes=i),
+                    dry_bulb_c=round(temp, 1),
+                    rh_pct=round(min(99.0, max(20.0, rh)), 1),
+                )
+            )
         logs.append(model.LogSeries(room=room, source=f"logger-{k + 1}.csv", samples=samples))
     return msgspec.structs.replace(base, logs=logs)
 
@@ -87,8 +91,7 @@ def run(repeat: int = 2) -> list[Result]:
         size_mb = path.stat().st_size / 1e6
         out = Path(folder) / "logged.csv"
         ours = [sys.executable, "-m", "survey", "export", str(path), "--csv", str(out)]
-        base = [sys.executable, "-c",
-                f"import json; json.loads(open({str(path)!r}, 'rb').read())"]
+        base = [sys.executable, "-c", f"import json; json.loads(open({str(path)!r}, 'rb').read())"]
         best_ours = best_base = (float("inf"), float("inf"))
         for _ in range(repeat):  # interleaved, best of each
             best_base = min(best_base, _measure(base))
@@ -96,10 +99,18 @@ def run(repeat: int = 2) -> list[Result]:
     samples = SERIES * SAMPLES_PER_SERIES
     name = f"export {samples / 1e6:.1f} M logger samples ({size_mb:.0f} MB) to CSV"
     return [
-        Result(f"{name}, time vs json.loads (goal < 10 s)", best_ours[0], "s",
-               best_ours[0] / best_base[0]),
-        Result(f"{name}, peak memory vs json.loads (goal < 300 MB)", best_ours[1], "MB",
-               best_ours[1] / best_base[1]),
+        Result(
+            f"{name}, time vs json.loads (goal < 10 s)",
+            best_ours[0],
+            "s",
+            best_ours[0] / best_base[0],
+        ),
+        Result(
+            f"{name}, peak memory vs json.loads (goal < 300 MB)",
+            best_ours[1],
+            "MB",
+            best_ours[1] / best_base[1],
+        ),
     ]
 
 

@@ -22,8 +22,10 @@ N_READINGS = 10_000
 
 def _readings(n: int = N_READINGS, seed: int = 20261201):
     rng = random.Random(seed)
-    return [(rng.uniform(0.5, 40.0), rng.uniform(5.0, 100.0), rng.uniform(80_000.0, 105_000.0))
-            for _ in range(n)]
+    return [
+        (rng.uniform(0.5, 40.0), rng.uniform(5.0, 100.0), rng.uniform(80_000.0, 105_000.0))
+        for _ in range(n)
+    ]
 
 
 def _bare(readings):
@@ -51,9 +53,23 @@ def _ours(readings):
 def _check_command():
     script = shutil.which("survey")
     prefix = [script] if script else [sys.executable, "-m", "survey"]
-    return prefix + ["check", "--air-temp", "21", "--rh", "65", "--surface-temp", "12.5",
-                     "--surface-temp", "16", "--outdoor-temp", "4", "--outdoor-rh", "85",
-                     "--json"]
+    return [
+        *prefix,
+        "check",
+        "--air-temp",
+        "21",
+        "--rh",
+        "65",
+        "--surface-temp",
+        "12.5",
+        "--surface-temp",
+        "16",
+        "--outdoor-temp",
+        "4",
+        "--outdoor-rh",
+        "85",
+        "--json",
+    ]
 
 
 def run() -> list[Result]:
@@ -66,6 +82,7 @@ def run() -> list[Result]:
     run_check = lambda: subprocess.run(command, check=True, capture_output=True)  # noqa: E731
     run_base = lambda: subprocess.run(baseline, check=True, capture_output=True)  # noqa: E731
     ours_s, base_s = interleaved_best(run_check, run_base, repeat=10)
-    results.append(Result("survey check --json wall time", ours_s * 1000.0, "ms",
-                          ours_s / base_s, goal=4.0))
+    results.append(
+        Result("survey check --json wall time", ours_s * 1000.0, "ms", ours_s / base_s, goal=4.0)
+    )
     return results

@@ -59,10 +59,11 @@ test (GUM Supplement 1 style, seeded) checks u and the coverage of ±U.
 from __future__ import annotations
 
 import math
+from collections.abc import Iterable
 from dataclasses import dataclass
 from enum import Enum
 from functools import lru_cache
-from typing import Any, Iterable, NamedTuple
+from typing import Any, NamedTuple
 
 from survey import domain, psychro
 from survey import thresholds as th
@@ -74,13 +75,14 @@ _SQRT3 = math.sqrt(3.0)
 
 # --- ordered state names ---------------------------------------------------------------------
 
+
 class _State(Enum):
     """A state name with a rank (higher is worse; None for 'cannot tell'). Its words for
     people are :mod:`survey.words`'."""
 
     rank: int | None
 
-    def __new__(cls, value: str, rank: int | None) -> "_State":
+    def __new__(cls, value: str, rank: int | None) -> _State:
         member = object.__new__(cls)
         member._value_ = value
         member.rank = rank
@@ -130,19 +132,27 @@ class TimberState(_State):
     DECAY_RANGE = ("decay_range", 2)
 
 
-_CONDENSATION_ORDER = (CondensationState.CLEAR, CondensationState.NEAR,
-                       CondensationState.CONDENSING)
+_CONDENSATION_ORDER = (
+    CondensationState.CLEAR,
+    CondensationState.NEAR,
+    CondensationState.CONDENSING,
+)
 _MOULD_ORDER = (MouldState.BELOW, MouldState.APPROACHING, MouldState.ABOVE)
 _FACTOR_ORDER = (FactorState.MEETS, FactorState.UNDER)
 
 
 # --- inputs ------------------------------------------------------------------------------------
 
-_ACCURACY_MAX = {"air_temp_k": domain.AIR_TEMP_ACCURACY_MAX_K,
-                 "rh_pct": domain.RH_ACCURACY_MAX_PCT,
-                 "surface_temp_k": domain.SURFACE_TEMP_ACCURACY_MAX_K}
-_ACCURACY_FIELD = {"air_temp_k": "air temperature accuracy", "rh_pct": "RH accuracy",
-                   "surface_temp_k": "surface temperature accuracy"}
+_ACCURACY_MAX = {
+    "air_temp_k": domain.AIR_TEMP_ACCURACY_MAX_K,
+    "rh_pct": domain.RH_ACCURACY_MAX_PCT,
+    "surface_temp_k": domain.SURFACE_TEMP_ACCURACY_MAX_K,
+}
+_ACCURACY_FIELD = {
+    "air_temp_k": "air temperature accuracy",
+    "rh_pct": "RH accuracy",
+    "surface_temp_k": "surface temperature accuracy",
+}
 
 
 @dataclass(frozen=True, slots=True)
@@ -160,10 +170,15 @@ class Accuracy:
         for name, top in _ACCURACY_MAX.items():
             got = getattr(self, name)
             unit = "%RH" if name == "rh_pct" else "K"
-            if (not isinstance(got, (int, float)) or isinstance(got, bool)
-                    or not math.isfinite(got) or not 0.0 <= got <= top):
-                raise InputError(_ACCURACY_FIELD[name], got,
-                                 f"must be between 0 and {top:g} {unit}")
+            if (
+                not isinstance(got, (int, float))
+                or isinstance(got, bool)
+                or not math.isfinite(got)
+                or not 0.0 <= got <= top
+            ):
+                raise InputError(
+                    _ACCURACY_FIELD[name], got, f"must be between 0 and {top:g} {unit}"
+                )
 
 
 DEFAULT_ACCURACY = Accuracy()
@@ -222,7 +237,7 @@ class Observations:
     electrics_near_water: bool = False
     visible_mould: bool = False  #: mould seen (its area may not have been measured)
     drying_in_progress: bool = False  #: drying equipment at work: the source is dealt with
-    drying: "DryingEquipment | None" = None  #: what the drying equipment is and logged
+    drying: DryingEquipment | None = None  #: what the drying equipment is and logged
     water_standing_h: float | None = None  #: how long the water has stood, hours
     water_loss_class: int | None = None  #: 1-4 when given (the trade's evaporation classes)
     wet_area_pct: float | None = None  #: share of the floor, wall and ceiling area wet
@@ -289,9 +304,12 @@ class OutdoorInput:
 AirState = psychro.VapourState
 
 
-def air_state(dry_bulb_c: float, rh_pct: float,
-              pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
-              field: str = "") -> AirState:
+def air_state(
+    dry_bulb_c: float,
+    rh_pct: float,
+    pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
+    field: str = "",
+) -> AirState:
     """The light state of air at ``dry_bulb_c`` and ``rh_pct`` (relative to water), with
     errors named for ``field`` (e.g. "outdoor")."""
     try:
@@ -308,6 +326,7 @@ _dln_pws = psychro.dln_sat_vapour_pressure_per_k
 
 # --- timber ------------------------------------------------------------------------------------
 
+
 def timber_emc_pct(temp_c: float, rh_pct: float) -> float:
     """Equilibrium moisture content of wood (% MC) at ``temp_c`` and ``rh_pct``.
 
@@ -319,19 +338,22 @@ def timber_emc_pct(temp_c: float, rh_pct: float) -> float:
     psychro.check_dry_bulb(temp_c, "air temperature")
     psychro.check_rh(rh_pct, "relative humidity")
     if not emc_in_range(temp_c, rh_pct):
-        raise InputError("timber equilibrium moisture content", f"{temp_c:g} °C, {rh_pct:g} %",
-                         "the Wood Handbook equation is used only from "
-                         f"{th.value('timber_emc_equation_min_c'):g} to "
-                         f"{th.value('timber_emc_equation_max_c'):g} °C and up to "
-                         f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH")
+        raise InputError(
+            "timber equilibrium moisture content",
+            f"{temp_c:g} °C, {rh_pct:g} %",
+            "the Wood Handbook equation is used only from "
+            f"{th.value('timber_emc_equation_min_c'):g} to "
+            f"{th.value('timber_emc_equation_max_c'):g} °C and up to "
+            f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH",
+        )
     return _emc(temp_c, rh_pct)
 
 
 def emc_in_range(temp_c: float, rh_pct: float) -> bool:
     """Whether the Wood Handbook equation is used at this temperature and RH (its range)."""
-    return (th.value("timber_emc_equation_min_c") <= temp_c
-            <= th.value("timber_emc_equation_max_c")
-            and rh_pct <= th.value("timber_emc_equation_max_rh_pct"))
+    return th.value("timber_emc_equation_min_c") <= temp_c <= th.value(
+        "timber_emc_equation_max_c"
+    ) and rh_pct <= th.value("timber_emc_equation_max_rh_pct")
 
 
 def emc_or_none(temp_c: float, rh_pct: float) -> float | None:
@@ -347,13 +369,15 @@ def _emc(temp_c: float, rh_pct: float) -> float:
     k1 = 6.27 - 0.00938 * t - 0.000303 * t * t
     k2 = 1.91 + 0.0407 * t - 0.000293 * t * t
     kh = k * h
-    return (1800.0 / w) * (kh / (1.0 - kh) + (k1 * kh + 2.0 * k1 * k2 * kh * kh)
-                           / (1.0 + k1 * kh + k1 * k2 * kh * kh))
+    return (1800.0 / w) * (
+        kh / (1.0 - kh) + (k1 * kh + 2.0 * k1 * k2 * kh * kh) / (1.0 + k1 * kh + k1 * k2 * kh * kh)
+    )
 
 
 # --- findings ----------------------------------------------------------------------------------
 # Typed, immutable records (NamedTuples: an assessment of thousands of surfaces builds them
 # several times faster than frozen dataclasses).
+
 
 class SurfaceFinding(NamedTuple):
     """Condensation, mould and temperature-factor judgement of one surface."""
@@ -481,6 +505,7 @@ class SiteFinding(NamedTuple):
 
 # --- limits, read once per assessment ---------------------------------------------------------
 
+
 class _Limits(NamedTuple):
     frsi: dict[str, th.Threshold | None]  #: temperature-factor limit by room use
     k: float
@@ -503,11 +528,17 @@ def _limits(outdoor: AirState | None) -> _Limits:
     )
 
 
-_SURFACE_KEYS = ("condensation_dew_point_margin_k", "dew_point_margin_k",
-                 "surface_rh_mould_limit_pct", "surface_rh_mould_watch_pct", "coverage_factor")
+_SURFACE_KEYS = (
+    "condensation_dew_point_margin_k",
+    "dew_point_margin_k",
+    "surface_rh_mould_limit_pct",
+    "surface_rh_mould_watch_pct",
+    "coverage_factor",
+)
 
 
 # --- surfaces ----------------------------------------------------------------------------------
+
 
 class _RoomContext(NamedTuple):
     """Per-room numbers every surface of the room shares (plain floats, for speed)."""
@@ -533,8 +564,9 @@ class _RoomContext(NamedTuple):
     keys: tuple[str, ...]  #: threshold keys every surface of this room uses
 
 
-def _context(air: AirState, outdoor: AirState | None, accuracy: Accuracy, use: str,
-             limits: _Limits) -> _RoomContext:
+def _context(
+    air: AirState, outdoor: AirState | None, accuracy: Accuracy, use: str, limits: _Limits
+) -> _RoomContext:
     u_rh = accuracy.rh_pct / _SQRT3
     u_ti = accuracy.air_temp_k / _SQRT3
     u_ts = accuracy.surface_temp_k / _SQRT3
@@ -547,17 +579,32 @@ def _context(air: AirState, outdoor: AirState | None, accuracy: Accuracy, use: s
         keys = _SURFACE_KEYS
         not_judged = FactorState.NOT_APPLICABLE
     else:
-        keys = _SURFACE_KEYS + (limit.key, "frsi_min_temperature_difference_k")
+        keys = (*_SURFACE_KEYS, limit.key, "frsi_min_temperature_difference_k")
         not_judged = FactorState.NOT_JUDGED
         if outdoor is not None:
             d = air.dry_bulb_c - outdoor.dry_bulb_c
             if d >= limits.frsi_min_dt:
                 delta_t = d
     return _RoomContext(
-        air, air.vapour_pressure_pa, air.condensation_point_c, u_ln_pw_sq, u_tc, u_ts, u_ti, accuracy.shared_thermometer,
-        limits.k, limits.k * math.sqrt(u_tc * u_tc + u_ts * u_ts), limits.margin,
-        limits.mould, limits.watch, limits, None if outdoor is None else outdoor.dry_bulb_c,
-        delta_t, None if limit is None else limit.value, not_judged, keys,
+        air,
+        air.vapour_pressure_pa,
+        air.condensation_point_c,
+        u_ln_pw_sq,
+        u_tc,
+        u_ts,
+        u_ti,
+        accuracy.shared_thermometer,
+        limits.k,
+        limits.k * math.sqrt(u_tc * u_tc + u_ts * u_ts),
+        limits.margin,
+        limits.mould,
+        limits.watch,
+        limits,
+        None if outdoor is None else outdoor.dry_bulb_c,
+        delta_t,
+        None if limit is None else limit.value,
+        not_judged,
+        keys,
     )
 
 
@@ -574,7 +621,7 @@ def _spans(order: tuple[Any, ...], cannot_tell: _State) -> dict[Any, Any]:
             if low == high:
                 table[best, worst] = (best, (best,))
             elif low < high:
-                table[best, worst] = (cannot_tell, order[low:high + 1])
+                table[best, worst] = (cannot_tell, order[low : high + 1])
     return table
 
 
@@ -592,8 +639,9 @@ _SETS_TARGET = frozenset(e for e, p in _POLICY.items() if p.sets_room_target)
 
 def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
     ts = surface.surface_temp_c
-    if ts.__class__ is not float or not (psychro.SURFACE_TEMP_MIN_C <= ts
-                                         <= psychro.SURFACE_TEMP_MAX_C):
+    if ts.__class__ is not float or not (
+        psychro.SURFACE_TEMP_MIN_C <= ts <= psychro.SURFACE_TEMP_MAX_C
+    ):
         psychro.check_surface_temp(ts, f"surface temperature of {surface.label}")
         ts = float(ts)
     policy = _POLICY.get(surface.element)
@@ -610,7 +658,8 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
         watch, limit = ctx.mould_watch, ctx.mould_limit
         mould, mould_possible = _MOULD_SPAN[
             _ABOVE if rh_low > limit else _APPROACHING if rh_low >= watch else _BELOW,
-            _ABOVE if rh_high > limit else _APPROACHING if rh_high >= watch else _BELOW]
+            _ABOVE if rh_high > limit else _APPROACHING if rh_high >= watch else _BELOW,
+        ]
     else:
         mould, mould_possible = _NO_MOULD, _NO_MOULD_POSSIBLE
 
@@ -621,7 +670,8 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
     limit = ctx.margin_limit
     condensation, condensation_possible = _CONDENSATION_SPAN[
         _CONDENSING if hi <= 0.0 else _NEAR if hi < limit else _CLEAR,
-        _CONDENSING if lo <= 0.0 else _NEAR if lo < limit else _CLEAR]
+        _CONDENSING if lo <= 0.0 else _NEAR if lo < limit else _CLEAR,
+    ]
 
     # temperature factor fRsi = (ts − te)/(ti − te) and its band
     d = ctx.delta_t
@@ -641,42 +691,74 @@ def _surface(ctx: _RoomContext, surface: SurfaceInput) -> SurfaceFinding:
             # one thermometer, r = 1 (GUM 5.2): (∂f/∂t_i + ∂f/∂t_e) = −1/Δ
             factor_u = ctx.k * math.sqrt(u_ts * u_ts + u_ti * u_ti) / d
         else:
-            factor_u = ctx.k * math.sqrt(u_ts * u_ts + (factor * u_ti) ** 2
-                                         + ((1.0 - factor) * u_ti) ** 2) / d
+            factor_u = (
+                ctx.k
+                * math.sqrt(u_ts * u_ts + (factor * u_ti) ** 2 + ((1.0 - factor) * u_ti) ** 2)
+                / d
+            )
         limit = ctx.factor_limit
         factor_state, factor_possible = _FACTOR_SPAN[
             _MEETS if factor + factor_u >= limit else _UNDER,
-            _MEETS if factor - factor_u >= limit else _UNDER]
+            _MEETS if factor - factor_u >= limit else _UNDER,
+        ]
     return SurfaceFinding(
-        surface.label, policy.element, ts, rh_s, rh_low, rh_high, ctx.condensation_point_c,
-        margin, big_u, condensation, condensation_possible, mould, mould_possible,
-        factor, factor_u, ctx.factor_limit if policy.temperature_factor else None,
-        factor_state, factor_possible, ctx.keys,
+        surface.label,
+        policy.element,
+        ts,
+        rh_s,
+        rh_low,
+        rh_high,
+        ctx.condensation_point_c,
+        margin,
+        big_u,
+        condensation,
+        condensation_possible,
+        mould,
+        mould_possible,
+        factor,
+        factor_u,
+        ctx.factor_limit if policy.temperature_factor else None,
+        factor_state,
+        factor_possible,
+        ctx.keys,
     )
 
 
-def assess_surface(surface: SurfaceInput, air: AirState, outdoor: AirState | None = None,
-                   use: str = "other", accuracy: Accuracy = DEFAULT_ACCURACY) -> SurfaceFinding:
+def assess_surface(
+    surface: SurfaceInput,
+    air: AirState,
+    outdoor: AirState | None = None,
+    use: str = "other",
+    accuracy: Accuracy = DEFAULT_ACCURACY,
+) -> SurfaceFinding:
     """Judge one surface against the room air ``air`` (from :func:`air_state`)."""
-    return _surface(_context(air, outdoor, accuracy, th.check_use(use), _limits(outdoor)),
-                    surface)
+    return _surface(_context(air, outdoor, accuracy, th.check_use(use), _limits(outdoor)), surface)
 
 
 # --- materials ---------------------------------------------------------------------------------
 
-def _material(reading: MaterialReading, emc_pct: float | None, air_c: float,
-              where: str) -> MaterialFinding:
+
+def _material(
+    reading: MaterialReading, emc_pct: float | None, air_c: float, where: str
+) -> MaterialFinding:
     field = f"{where}material {reading.label}"
     if reading.scale not in MATERIAL_SCALES:
-        raise InputError(f"{field} scale", reading.scale,
-                         "expected mc_pct (timber moisture content, %), wme_pct (wood moisture "
-                         "equivalent, %) or relative (the meter's own scale)")
+        raise InputError(
+            f"{field} scale",
+            reading.scale,
+            "expected mc_pct (timber moisture content, %), wme_pct (wood moisture "
+            "equivalent, %) or relative (the meter's own scale)",
+        )
     top = _MATERIAL_READING_MAX
     for name, number in (("reading", reading.value), ("dry standard", reading.dry_standard)):
         if number is None and name == "dry standard":
             continue
-        if (not isinstance(number, (int, float)) or isinstance(number, bool)
-                or not math.isfinite(number) or not 0.0 <= number <= top):
+        if (
+            not isinstance(number, (int, float))
+            or isinstance(number, bool)
+            or not math.isfinite(number)
+            or not 0.0 <= number <= top
+        ):
             raise InputError(f"{field} {name}", number, f"must be between 0 and {top:g}")
     keys: list[str] = []
     if reading.dry_standard is None:
@@ -700,22 +782,32 @@ def _material(reading: MaterialReading, emc_pct: float | None, air_c: float,
             timber_state = TimberState.MOULD_RANGE
         else:
             timber_state = TimberState.DRY
-        wetter = (timber_state is not TimberState.DRY and emc_pct is not None
-                  and emc_pct < mould_mc)
+        wetter = timber_state is not TimberState.DRY and emc_pct is not None and emc_pct < mould_mc
         if timber_state is TimberState.DECAY_RANGE:
             keys += ["timber_decay_slow_below_c", "timber_decay_slow_above_c"]
-            slowed = not (th.value("timber_decay_slow_below_c") <= air_c
-                          <= th.value("timber_decay_slow_above_c"))
+            slowed = not (
+                th.value("timber_decay_slow_below_c")
+                <= air_c
+                <= th.value("timber_decay_slow_above_c")
+            )
     return MaterialFinding(
-        label=reading.label, material=reading.material, value=reading.value,
-        scale=reading.scale, dry_standard=reading.dry_standard, dry_standard_state=dry_state,
-        excess_over_dry_standard=excess, timber_state=timber_state, emc_pct=emc,
-        wetter_than_air_explains=wetter, decay_slowed_by_temperature=slowed,
+        label=reading.label,
+        material=reading.material,
+        value=reading.value,
+        scale=reading.scale,
+        dry_standard=reading.dry_standard,
+        dry_standard_state=dry_state,
+        excess_over_dry_standard=excess,
+        timber_state=timber_state,
+        emc_pct=emc,
+        wetter_than_air_explains=wetter,
+        decay_slowed_by_temperature=slowed,
         threshold_keys=tuple(keys),
     )
 
 
 # --- rooms and site ----------------------------------------------------------------------------
+
 
 def _check_room(room: RoomInput) -> str:
     """The room's canonical use, after checking what the psychrometric core does not."""
@@ -728,39 +820,54 @@ def _check_room(room: RoomInput) -> str:
     people = domain.OCCUPANTS_MAX
     area_high = domain.MOULD_AREA_MAX_M2
     area = obs.visible_mould_area_m2
-    if (room.volume_m3 is None or _number_in(room.volume_m3, v_low, v_high)) \
-            and (room.occupants is None or (room.occupants.__class__ is int
-                                            and 0 <= room.occupants <= people)) \
-            and not room.activities and obs.water_category in (None, 1, 2, 3) \
-            and ((area.__class__ is float and 0.0 <= area <= area_high)
-                 or _number_in(area, 0.0, area_high)):
+    if (
+        (room.volume_m3 is None or _number_in(room.volume_m3, v_low, v_high))
+        and (
+            room.occupants is None
+            or (room.occupants.__class__ is int and 0 <= room.occupants <= people)
+        )
+        and not room.activities
+        and obs.water_category in (None, 1, 2, 3)
+        and (
+            (area.__class__ is float and 0.0 <= area <= area_high)
+            or _number_in(area, 0.0, area_high)
+        )
+    ):
         return use
     where = f"room {room.name!r}"
     if room.volume_m3 is not None and not _number_in(room.volume_m3, v_low, v_high):
-        raise InputError(f"{where} volume", room.volume_m3,
-                         f"must be between {v_low:g} and {v_high:g} m³")
+        raise InputError(
+            f"{where} volume", room.volume_m3, f"must be between {v_low:g} and {v_high:g} m³"
+        )
     n = room.occupants
     if n is not None and (n.__class__ is not int or not 0 <= n <= people):
         raise InputError(f"{where} occupants", n, f"must be a whole number from 0 to {people}")
     hours = domain.ACTIVITY_HOURS_MAX
     for activity in room.activities:
         if activity.kind not in th.ACTIVITY_RATE:
-            raise InputError(f"{where} activity", activity.kind,
-                             "expected one of " + ", ".join(th.ACTIVITY_RATE))
+            raise InputError(
+                f"{where} activity", activity.kind, "expected one of " + ", ".join(th.ACTIVITY_RATE)
+            )
         if not _number_in(activity.hours_per_day, 0.0, hours):
-            raise InputError(f"{where} {activity.kind} hours per day", activity.hours_per_day,
-                             f"must be between 0 and {hours:g}")
+            raise InputError(
+                f"{where} {activity.kind} hours per day",
+                activity.hours_per_day,
+                f"must be between 0 and {hours:g}",
+            )
     if obs.water_category not in (None, 1, 2, 3):
         raise InputError(f"{where} water category", obs.water_category, "expected 1, 2 or 3")
     if not _number_in(obs.visible_mould_area_m2, 0.0, area_high):
-        raise InputError(f"{where} visible mould area", obs.visible_mould_area_m2,
-                         f"must be between 0 and {area_high:g} m²")
+        raise InputError(
+            f"{where} visible mould area",
+            obs.visible_mould_area_m2,
+            f"must be between 0 and {area_high:g} m²",
+        )
     return use
 
 
-def _humidity_class(air: AirState, outdoor: AirState, accuracy: Accuracy, k: float,
-                    limits: tuple[float, ...] | None
-                    ) -> tuple[float, float, int | None, tuple[int, ...]]:
+def _humidity_class(
+    air: AirState, outdoor: AirState, accuracy: Accuracy, k: float, limits: tuple[float, ...] | None
+) -> tuple[float, float, int | None, tuple[int, ...]]:
     """Vapour-pressure excess, its expanded uncertainty, the class and the classes its band
     spans (see :func:`survey.thresholds.humidity_class` for the class rule)."""
     excess = air.vapour_pressure_pa - outdoor.vapour_pressure_pa
@@ -775,8 +882,7 @@ def _humidity_class(air: AirState, outdoor: AirState, accuracy: Accuracy, k: flo
         return excess, big_u, None, ()
     low = th.humidity_class_in(excess - big_u, limits)
     high = th.humidity_class_in(excess + big_u, limits)
-    return (excess, big_u, th.humidity_class_in(excess, limits),
-            tuple(range(low, high + 1)))
+    return (excess, big_u, th.humidity_class_in(excess, limits), tuple(range(low, high + 1)))
 
 
 _CLASS_KEYS = (*th.HUMIDITY_CLASS_KEYS, "humidity_class_flat_below_c", "humidity_class_zero_at_c")
@@ -787,8 +893,13 @@ def _with_class_keys(keys: tuple[str, ...]) -> tuple[str, ...]:
     return keys + _CLASS_KEYS
 
 
-def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
-                 site_accuracy: Accuracy, limits: _Limits) -> RoomFinding:
+def _assess_room(
+    room: RoomInput,
+    outdoor: AirState | None,
+    pressure_pa: float,
+    site_accuracy: Accuracy,
+    limits: _Limits,
+) -> RoomFinding:
     use = _check_room(room)
     accuracy = room.accuracy or site_accuracy
     try:
@@ -819,16 +930,24 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
         # equal to psychro's.
         rh_mould = min(100.0, air.rh_pct * limits.mould / coldest.surface_rh_pct)
         margin_ts = ts - limits.margin
-        rh_margin = (min(100.0, 100.0 * psychro.sat_vapour_pressure_pa(margin_ts)
-                         / air.sat_pressure_water_pa)
-                     if margin_ts >= psychro.SURFACE_TEMP_MIN_C else 0.0)
+        rh_margin = (
+            min(
+                100.0, 100.0 * psychro.sat_vapour_pressure_pa(margin_ts) / air.sat_pressure_water_pa
+            )
+            if margin_ts >= psychro.SURFACE_TEMP_MIN_C
+            else 0.0
+        )
         # ln RH_max = ln(limit) + ln p_ws(t_s) − ln p_ws,water(t_i): the band of the binding
         # limit from the surface and air thermometers.
         binding_ts, binding = (ts, rh_mould) if rh_mould <= rh_margin else (margin_ts, rh_margin)
         if 0.0 < binding < 100.0:
             l_s = _dln_pws(binding_ts)
-            spread = math.exp(limits.k * math.sqrt(
-                (l_s * ctx.u_ts) ** 2 + (air.dln_sat_pressure_water_per_k * ctx.u_ti) ** 2))
+            spread = math.exp(
+                limits.k
+                * math.sqrt(
+                    (l_s * ctx.u_ts) ** 2 + (air.dln_sat_pressure_water_per_k * ctx.u_ti) ** 2
+                )
+            )
             rh_low = binding / spread
             rh_high = min(100.0, binding * spread)
         else:
@@ -837,28 +956,49 @@ def _assess_room(room: RoomInput, outdoor: AirState | None, pressure_pa: float,
     excess = excess_u = number = None
     possible: tuple[int, ...] = ()
     if outdoor is not None:
-        excess, excess_u, number, possible = _humidity_class(air, outdoor, accuracy, limits.k,
-                                                             limits.class_limits)
+        excess, excess_u, number, possible = _humidity_class(
+            air, outdoor, accuracy, limits.k, limits.class_limits
+        )
 
     materials: tuple[MaterialFinding, ...] = ()
     if room.materials:
         emc = emc_or_none(air.dry_bulb_c, air.rh_pct)
-        materials = tuple(_material(m, emc, air.dry_bulb_c, f"room {room.name!r} ")
-                          for m in room.materials)
+        materials = tuple(
+            _material(m, emc, air.dry_bulb_c, f"room {room.name!r} ") for m in room.materials
+        )
         extra = {key for m in materials for key in m.threshold_keys}
         keys = keys + tuple(sorted(extra - set(keys)))
     return RoomFinding(
-        room, use, air, outdoor, accuracy, limits.k * ctx.u_tc, surfaces, coldest,
-        rh_mould, rh_margin, rh_low, rh_high, other, rh_dry_other, excess, excess_u, number,
-        possible, materials, th.FRSI_LIMIT_BY_USE[use].key, keys,
+        room,
+        use,
+        air,
+        outdoor,
+        accuracy,
+        limits.k * ctx.u_tc,
+        surfaces,
+        coldest,
+        rh_mould,
+        rh_margin,
+        rh_low,
+        rh_high,
+        other,
+        rh_dry_other,
+        excess,
+        excess_u,
+        number,
+        possible,
+        materials,
+        th.FRSI_LIMIT_BY_USE[use].key,
+        keys,
     )
 
 
 #: Uses where the ground, not outdoor air, sets floor and wall temperatures.
 GROUND_USES = frozenset(u for u, p in th.ROOM_USE_POLICY.items() if p.ground_contact)
 _GROUND_ELEMENTS = frozenset({"floor", "external_wall", "internal_wall"})
-_FACTOR_JUDGED = frozenset({FactorState.MEETS, FactorState.UNDER, FactorState.CANNOT_TELL,
-                            FactorState.NOT_JUDGED})
+_FACTOR_JUDGED = frozenset(
+    {FactorState.MEETS, FactorState.UNDER, FactorState.CANNOT_TELL, FactorState.NOT_JUDGED}
+)
 
 
 def _wet_and_drying(room: RoomInput) -> bool:
@@ -866,12 +1006,15 @@ def _wet_and_drying(room: RoomInput) -> bool:
     if not room.observations.drying_in_progress:
         return False
     tolerance = th.value("dry_standard_tolerance_fraction")
-    return any(m.dry_standard is not None and m.value > m.dry_standard * (1.0 + tolerance)
-               for m in room.materials)
+    return any(
+        m.dry_standard is not None and m.value > m.dry_standard * (1.0 + tolerance)
+        for m in room.materials
+    )
 
 
-def _not_judged_by_use(room: RoomInput, use: str, surfaces: tuple[SurfaceFinding, ...]
-                       ) -> tuple[SurfaceFinding, ...]:
+def _not_judged_by_use(
+    room: RoomInput, use: str, surfaces: tuple[SurfaceFinding, ...]
+) -> tuple[SurfaceFinding, ...]:
     """The temperature factor set aside where outdoor air does not set the surface
     temperature (ground contact) or evaporation cools it (wet materials drying); mould not
     judged outside the 5-40 °C surface range of the 80 % criterion."""
@@ -887,11 +1030,20 @@ def _not_judged_by_use(room: RoomInput, use: str, surfaces: tuple[SurfaceFinding
             elif use in GROUND_USES and s.element in _GROUND_ELEMENTS:
                 state = FactorState.GROUND_CONTACT
         if state is not None:
-            s = s._replace(temperature_factor=None, temperature_factor_uncertainty=None,
-                           temperature_factor_state=state, temperature_factor_possible=(state,))
+            s = s._replace(
+                temperature_factor=None,
+                temperature_factor_uncertainty=None,
+                temperature_factor_state=state,
+                temperature_factor_possible=(state,),
+            )
         if s.mould is not MouldState.NOT_JUDGED:
-            mould = (MouldState.TOO_COLD if s.surface_temp_c < low
-                     else MouldState.TOO_HOT if s.surface_temp_c > high else None)
+            mould = (
+                MouldState.TOO_COLD
+                if s.surface_temp_c < low
+                else MouldState.TOO_HOT
+                if s.surface_temp_c > high
+                else None
+            )
             if mould is not None:
                 s = s._replace(mould=mould, mould_possible=(mould,))
         out.append(s)
@@ -902,30 +1054,39 @@ def _surface_temp(finding: SurfaceFinding) -> float:
     return finding.surface_temp_c
 
 
-def outdoor_state(outdoor: OutdoorInput, pressure_pa: float = psychro.STANDARD_PRESSURE_PA
-                  ) -> AirState:
+def outdoor_state(
+    outdoor: OutdoorInput, pressure_pa: float = psychro.STANDARD_PRESSURE_PA
+) -> AirState:
     """The light state of the outdoor air."""
     return air_state(outdoor.air_temp_c, outdoor.rh_pct, pressure_pa, "outdoor")
 
 
-def assess_room(room: RoomInput, outdoor: OutdoorInput | None = None,
-                pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
-                accuracy: Accuracy = DEFAULT_ACCURACY) -> RoomFinding:
+def assess_room(
+    room: RoomInput,
+    outdoor: OutdoorInput | None = None,
+    pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
+    accuracy: Accuracy = DEFAULT_ACCURACY,
+) -> RoomFinding:
     """Judge one room's air, surfaces and materials. ``accuracy`` is used when the room
     carries none of its own."""
     out = None if outdoor is None else outdoor_state(outdoor, pressure_pa)
     return _assess_room(room, out, pressure_pa, accuracy, _limits(out))
 
 
-def assess_site(rooms: Iterable[RoomInput], outdoor: OutdoorInput | None = None,
-                pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
-                accuracy: Accuracy = DEFAULT_ACCURACY,
-                year_built: int | None = None) -> SiteFinding:
+def assess_site(
+    rooms: Iterable[RoomInput],
+    outdoor: OutdoorInput | None = None,
+    pressure_pa: float = psychro.STANDARD_PRESSURE_PA,
+    accuracy: Accuracy = DEFAULT_ACCURACY,
+    year_built: int | None = None,
+) -> SiteFinding:
     """Judge every room of a visit against the same outdoor air and pressure."""
     psychro.check_pressure(pressure_pa)
-    if year_built is not None and (not isinstance(year_built, int)
-                                   or isinstance(year_built, bool)
-                                   or not 1000 <= year_built <= 2200):
+    if year_built is not None and (
+        not isinstance(year_built, int)
+        or isinstance(year_built, bool)
+        or not 1000 <= year_built <= 2200
+    ):
         raise InputError("year built", year_built, "expected a year such as 1935")
     out = None if outdoor is None else outdoor_state(outdoor, pressure_pa)
     limits = _limits(out)
@@ -933,5 +1094,6 @@ def assess_site(rooms: Iterable[RoomInput], outdoor: OutdoorInput | None = None,
     keys: set[str] = {"coverage_factor"}
     for f in findings:
         keys.update(f.threshold_keys)
-    return SiteFinding(findings, out, pressure_pa, accuracy, year_built,
-                       tuple(t.key for t in th.cited(keys)))
+    return SiteFinding(
+        findings, out, pressure_pa, accuracy, year_built, tuple(t.key for t in th.cited(keys))
+    )

@@ -26,6 +26,7 @@ from dataclasses import dataclass
 from survey import advise, assess, model
 from survey import thresholds as th
 
+
 @dataclass(frozen=True)
 class VisitAssessment:
     """One visit judged: the findings, the advice, and what the judgement rested on."""
@@ -39,8 +40,9 @@ class VisitAssessment:
 
 
 #: Equipment that, running in a room, means the room is being dried (the source dealt with).
-DRYING_EQUIPMENT = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier",
-                              "air_mover", "heater"})
+DRYING_EQUIPMENT = frozenset(
+    {"refrigerant_dehumidifier", "desiccant_dehumidifier", "air_mover", "heater"}
+)
 
 
 def drying_in_progress(room_visit: model.RoomVisit) -> bool:
@@ -53,8 +55,9 @@ _DEHUMIDIFIERS = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier"
 
 def _hours_since_previous(survey: model.Survey, visit: model.Visit) -> float | None:
     """Hours from the visit before ``visit`` (by start time) to ``visit``; None if first."""
-    earlier = [v.started_at for v in survey.visits
-               if v is not visit and v.started_at < visit.started_at]
+    earlier = [
+        v.started_at for v in survey.visits if v is not visit and v.started_at < visit.started_at
+    ]
     if not earlier:
         return None
     try:
@@ -63,8 +66,9 @@ def _hours_since_previous(survey: model.Survey, visit: model.Visit) -> float | N
         return None
 
 
-def drying_equipment(survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit
-                     ) -> assess.DryingEquipment | None:
+def drying_equipment(
+    survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit
+) -> assess.DryingEquipment | None:
     """The running dehumidifiers and air movers of a room, with what they logged."""
     running = [e for e in room_visit.equipment if e.running]
     dehumidifiers = [e for e in running if e.kind in _DEHUMIDIFIERS]
@@ -75,12 +79,14 @@ def drying_equipment(survey: model.Survey, visit: model.Visit, room_visit: model
     removed = [e.water_removed_l for e in dehumidifiers if e.water_removed_l is not None]
     outlet = next((e.outlet for e in dehumidifiers if e.outlet is not None), None)
     return assess.DryingEquipment(
-        dehumidifiers=len(dehumidifiers), air_movers=len(movers),
+        dehumidifiers=len(dehumidifiers),
+        air_movers=len(movers),
         capacity_l_per_day=sum(capacities) if capacities else None,
         water_removed_l=sum(removed) if removed else None,
         hours_since_previous=_hours_since_previous(survey, visit) if removed else None,
         outlet_temp_c=None if outlet is None else outlet.dry_bulb_c,
-        outlet_rh_pct=None if outlet is None else outlet.rh_pct)
+        outlet_rh_pct=None if outlet is None else outlet.rh_pct,
+    )
 
 
 def is_timber(material: str) -> bool:
@@ -88,8 +94,12 @@ def is_timber(material: str) -> bool:
     return th.is_timber(material)
 
 
-def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
-              entered: dict[str, bool], shared_thermometer: bool = True) -> assess.Accuracy:
+def _accuracy(
+    survey: model.Survey,
+    instrument_ids: list[str | None],
+    entered: dict[str, bool],
+    shared_thermometer: bool = True,
+) -> assess.Accuracy:
     """The worst accuracy of each kind among the instruments used, defaults elsewhere."""
     default = assess.DEFAULT_ACCURACY
     found: dict[str, float | None] = {"air_temp_k": None, "rh_pct": None, "surface_temp_k": None}
@@ -100,9 +110,11 @@ def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
             instrument = survey.instrument(instrument_id)
         except KeyError:  # a file that validates names only instruments it has
             continue
-        for key, value in (("air_temp_k", instrument.air_temp_accuracy_k),
-                           ("rh_pct", instrument.rh_accuracy_pct),
-                           ("surface_temp_k", instrument.surface_temp_accuracy_k)):
+        for key, value in (
+            ("air_temp_k", instrument.air_temp_accuracy_k),
+            ("rh_pct", instrument.rh_accuracy_pct),
+            ("surface_temp_k", instrument.surface_temp_accuracy_k),
+        ):
             if value is not None:
                 previous = found[key]
                 found[key] = value if previous is None else max(previous, value)
@@ -111,28 +123,35 @@ def _accuracy(survey: model.Survey, instrument_ids: list[str | None],
     return assess.Accuracy(
         air_temp_k=default.air_temp_k if found["air_temp_k"] is None else found["air_temp_k"],
         rh_pct=default.rh_pct if found["rh_pct"] is None else found["rh_pct"],
-        surface_temp_k=(default.surface_temp_k if found["surface_temp_k"] is None
-                        else found["surface_temp_k"]),
+        surface_temp_k=(
+            default.surface_temp_k if found["surface_temp_k"] is None else found["surface_temp_k"]
+        ),
         shared_thermometer=shared_thermometer,
     )
 
 
-def _dry_standards(visit: model.Visit, survey: model.Survey, room_visit: model.RoomVisit
-                   ) -> dict[tuple[str, str], float]:
+def _dry_standards(
+    visit: model.Visit, survey: model.Survey, room_visit: model.RoomVisit
+) -> dict[tuple[str, str], float]:
     """Dry-standard readings by (material, scale): this room's first, then reference rooms'."""
     standards: dict[tuple[str, str], float] = {}
-    reference_rooms = [rv for rv in visit.rooms if rv is not room_visit
-                       and (room := survey.room(rv.room)) is not None and room.is_reference]
+    reference_rooms = [
+        rv
+        for rv in visit.rooms
+        if rv is not room_visit and (room := survey.room(rv.room)) is not None and room.is_reference
+    ]
     for source in (room_visit, *reference_rooms):
         for reading in source.materials:
             if reading.dry_standard:
-                standards.setdefault((reading.material.strip().lower(), reading.scale),
-                                     reading.value)
+                standards.setdefault(
+                    (reading.material.strip().lower(), reading.scale), reading.value
+                )
     return standards
 
 
-def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit,
-               entered: dict[str, bool]) -> assess.RoomInput | None:
+def room_input(
+    survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit, entered: dict[str, bool]
+) -> assess.RoomInput | None:
     """The assessment's input for one room on one visit; None when no air was measured."""
     if room_visit.air is None:
         return None
@@ -140,14 +159,19 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
     standards = _dry_standards(visit, survey, room_visit)
     materials = tuple(
         assess.MaterialReading(
-            label=reading.location, material=reading.material, value=reading.value,
+            label=reading.location,
+            material=reading.material,
+            value=reading.value,
             scale=reading.scale,
             dry_standard=standards.get((reading.material.strip().lower(), reading.scale)),
-            timber=reading.scale == "mc_pct" and is_timber(reading.material))
-        for reading in room_visit.materials if not reading.dry_standard
+            timber=reading.scale == "mc_pct" and is_timber(reading.material),
+        )
+        for reading in room_visit.materials
+        if not reading.dry_standard
     )
-    surfaces = tuple(assess.SurfaceInput(s.location, s.surface_temp_c, s.element)
-                     for s in room_visit.surfaces)
+    surfaces = tuple(
+        assess.SurfaceInput(s.location, s.surface_temp_c, s.element) for s in room_visit.surfaces
+    )
     seen = room_visit.observations
     mould_visible = seen.mould_visible or any(s.mould_visible for s in room_visit.surfaces)
     observations = assess.Observations(
@@ -163,9 +187,11 @@ def room_input(survey: model.Survey, visit: model.Visit, room_visit: model.RoomV
         water_loss_class=seen.water_loss_class,
         wet_area_pct=seen.wet_area_pct,
         dense_materials_wet=seen.dense_materials_wet,
-        flued_appliance=(room.flued_appliance if room is not None
-                         and room.flued_appliance is not None
-                         else survey.site.flued_appliance),
+        flued_appliance=(
+            room.flued_appliance
+            if room is not None and room.flued_appliance is not None
+            else survey.site.flued_appliance
+        ),
     )
     activities = _activities(room)
     instruments = [room_visit.air.instrument, *(s.instrument for s in room_visit.surfaces)]
@@ -191,8 +217,9 @@ def _activities(room: model.Room | None) -> tuple[assess.Activity, ...]:
         return ()
     found = []
     if room.showers_per_day:
-        found.append(assess.Activity(
-            "shower", room.showers_per_day * th.value("shower_minutes") / 60.0))
+        found.append(
+            assess.Activity("shower", room.showers_per_day * th.value("shower_minutes") / 60.0)
+        )
     if room.baths_per_day:
         found.append(assess.Activity("bath", room.baths_per_day * th.value("bath_minutes") / 60.0))
     if room.cooking_hours_per_day:
@@ -211,8 +238,9 @@ def _shared_thermometer(visit: model.Visit, room_visit: model.RoomVisit) -> bool
     return indoor is None or outdoor is None or indoor == outdoor
 
 
-def assess_visit(survey: model.Survey, visit_index: int = -1,
-                 target_rh_pct: float | None = None) -> VisitAssessment:
+def assess_visit(
+    survey: model.Survey, visit_index: int = -1, target_rh_pct: float | None = None
+) -> VisitAssessment:
     """Judge one visit of ``survey`` (the last by default): findings and advice per room."""
     visit = survey.visits[visit_index]
     index = visit_index % len(survey.visits)
@@ -224,13 +252,21 @@ def assess_visit(survey: model.Survey, visit_index: int = -1,
         if judged is not None:
             rooms.append(judged)
             room_ids.append(room_visit.room)
-    outdoor = (None if visit.outdoor is None
-               else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct))
-    findings = assess.assess_site(rooms, outdoor, model.pressure_pa_for(survey, visit),
-                                  year_built=survey.site.year_built)
+    outdoor = (
+        None
+        if visit.outdoor is None
+        else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
+    )
+    findings = assess.assess_site(
+        rooms, outdoor, model.pressure_pa_for(survey, visit), year_built=survey.site.year_built
+    )
     return VisitAssessment(
-        visit_index=index, visit=visit, findings=findings,
-        advice=advise.advise_site(findings, target_rh_pct), room_ids=tuple(room_ids),
-        accuracy_entered={key: entered.get(key, False)
-                          for key in ("air_temp_k", "rh_pct", "surface_temp_k")},
+        visit_index=index,
+        visit=visit,
+        findings=findings,
+        advice=advise.advise_site(findings, target_rh_pct),
+        room_ids=tuple(room_ids),
+        accuracy_entered={
+            key: entered.get(key, False) for key in ("air_temp_k", "rh_pct", "surface_temp_k")
+        },
     )

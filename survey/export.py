@@ -82,14 +82,22 @@ _INDEX = {role: n for n, role in enumerate(_ROLES)}
 #: 1 Pa or 0.001 inHg; vapour pressure 1 Pa or 0.0001 inHg; absolute humidity 0.01 g/m³ or
 #: 0.001 gr/ft³; moisture readings 0.1 on their own scale.
 DECIMALS: dict[tuple[str, UnitSystem], int] = {
-    ("temperature", "si"): 2, ("temperature", "ip"): 2,
-    ("temperature_difference", "si"): 2, ("temperature_difference", "ip"): 2,
-    ("rh", "si"): 1, ("rh", "ip"): 1,
-    ("humidity_ratio", "si"): 2, ("humidity_ratio", "ip"): 1,
-    ("pressure", "si"): 0, ("pressure", "ip"): 3,
-    ("vapour_pressure", "si"): 0, ("vapour_pressure", "ip"): 4,
-    ("absolute_humidity", "si"): 2, ("absolute_humidity", "ip"): 3,
-    ("moisture", "si"): 1, ("moisture", "ip"): 1,
+    ("temperature", "si"): 2,
+    ("temperature", "ip"): 2,
+    ("temperature_difference", "si"): 2,
+    ("temperature_difference", "ip"): 2,
+    ("rh", "si"): 1,
+    ("rh", "ip"): 1,
+    ("humidity_ratio", "si"): 2,
+    ("humidity_ratio", "ip"): 1,
+    ("pressure", "si"): 0,
+    ("pressure", "ip"): 3,
+    ("vapour_pressure", "si"): 0,
+    ("vapour_pressure", "ip"): 4,
+    ("absolute_humidity", "si"): 2,
+    ("absolute_humidity", "ip"): 3,
+    ("moisture", "si"): 1,
+    ("moisture", "ip"): 1,
 }
 
 #: Quantities written as they are in every unit system (the others are converted by
@@ -128,8 +136,9 @@ def spreadsheet_safe(cell: str) -> str:
     if not cell:
         return cell
     start = cell.lstrip()
-    if (cell[0] in "\t\r" or (start and start[0] in _FORMULA_CHARS)) \
-            and not _PLAIN_NUMBER.fullmatch(cell):
+    if (
+        cell[0] in "\t\r" or (start and start[0] in _FORMULA_CHARS)
+    ) and not _PLAIN_NUMBER.fullmatch(cell):
         return "'" + cell
     return cell
 
@@ -190,8 +199,16 @@ class _Numbers:
     def __init__(self, system: UnitSystem) -> None:
         self.system = system
         self._linear: dict[str, tuple[float, float, str]] = {}
-        for quantity in ("temperature", "temperature_difference", "rh", "humidity_ratio",
-                         "pressure", "vapour_pressure", "absolute_humidity", "moisture"):
+        for quantity in (
+            "temperature",
+            "temperature_difference",
+            "rh",
+            "humidity_ratio",
+            "pressure",
+            "vapour_pressure",
+            "absolute_humidity",
+            "moisture",
+        ):
             factor, offset = self._conversion(quantity)
             places = DECIMALS[(quantity, system)]
             self._linear[quantity] = (factor, offset, f"{{:.{places}f}}")
@@ -252,12 +269,20 @@ class _AirCells:
             dew, frost = state.dew_point_c, state.frost_point_c
             ratio, vapour = state.humidity_ratio_kg_per_kg, state.vapour_pressure_pa
             absolute = state.absolute_humidity_g_per_m3
-        return [n("temperature", dry_bulb_c), n("rh", rh_pct), n("pressure", pressure_pa),
-                n("temperature", dew), n("temperature", frost), n("humidity_ratio", ratio),
-                n("vapour_pressure", vapour), n("absolute_humidity", absolute)]
+        return [
+            n("temperature", dry_bulb_c),
+            n("rh", rh_pct),
+            n("pressure", pressure_pa),
+            n("temperature", dew),
+            n("temperature", frost),
+            n("humidity_ratio", ratio),
+            n("vapour_pressure", vapour),
+            n("absolute_humidity", absolute),
+        ]
 
 
 # --- rows --------------------------------------------------------------------------------
+
 
 class _Rows:
     """Builds the CSV lines of one survey."""
@@ -286,12 +311,21 @@ class _Rows:
     def room_cells(self, room: Room | None) -> dict[str, str]:
         if room is None:
             return {}
-        return {"room_id": self.text(room.id), "room_name": self.text(room.name),
-                "room_use": self.text(room.use), "reference_room": _flag(room.is_reference)}
+        return {
+            "room_id": self.text(room.id),
+            "room_name": self.text(room.name),
+            "room_use": self.text(room.use),
+            "reference_room": _flag(room.is_reference),
+        }
 
     def air_reading(self, reading: AirReading, pressure_pa: float) -> dict[str, str]:
-        cells = dict(zip(_ROLES[_INDEX["dry_bulb"]:_INDEX["absolute_humidity"] + 1],
-                         self.air.cells(reading.dry_bulb_c, reading.rh_pct, pressure_pa)))
+        cells = dict(
+            zip(
+                _ROLES[_INDEX["dry_bulb"] : _INDEX["absolute_humidity"] + 1],
+                self.air.cells(reading.dry_bulb_c, reading.rh_pct, pressure_pa),
+                strict=False,
+            )
+        )
         cells["taken_at"] = _time(reading.taken_at)
         cells["instrument"] = self.text(reading.instrument or "")
         return cells
@@ -302,64 +336,95 @@ class _Rows:
         n = self.numbers.format
         for number, visit in enumerate(self.survey.visits, 1):
             pressure = pressure_pa_for(self.survey, visit)
-            base = {"visit": str(number), "visit_label": self.text(visit.label),
-                    "visit_started_at": _time(visit.started_at)}
+            base = {
+                "visit": str(number),
+                "visit_label": self.text(visit.label),
+                "visit_started_at": _time(visit.started_at),
+            }
             if visit.outdoor is not None:
-                yield self.line({**base, "kind": "outdoor_air", "location": "outdoors",
-                                 **self.air_reading(visit.outdoor, pressure)})
+                yield self.line(
+                    {
+                        **base,
+                        "kind": "outdoor_air",
+                        "location": "outdoors",
+                        **self.air_reading(visit.outdoor, pressure),
+                    }
+                )
             for room_visit in visit.rooms:
                 here = {**base, **self.room_cells(self.rooms.get(room_visit.room))}
                 state = None
                 if room_visit.air is not None:
-                    state = psychro.state_from_rh(room_visit.air.dry_bulb_c,
-                                                  room_visit.air.rh_pct, pressure)
-                    yield self.line({**here, "kind": "room_air",
-                                     **self.air_reading(room_visit.air, pressure)})
+                    state = psychro.state_from_rh(
+                        room_visit.air.dry_bulb_c, room_visit.air.rh_pct, pressure
+                    )
+                    yield self.line(
+                        {**here, "kind": "room_air", **self.air_reading(room_visit.air, pressure)}
+                    )
                 for surface in room_visit.surfaces:
-                    cells = {**here, "kind": "surface", "location": self.text(surface.location),
-                             "element": self.text(surface.element),
-                             "material": self.text(surface.material),
-                             "taken_at": _time(surface.taken_at),
-                             "instrument": self.text(surface.instrument or ""),
-                             "surface_temp": n("temperature", surface.surface_temp_c),
-                             "condensation_seen": _flag(surface.condensation_seen),
-                             "mould_visible": _flag(surface.mould_visible)}
+                    cells = {
+                        **here,
+                        "kind": "surface",
+                        "location": self.text(surface.location),
+                        "element": self.text(surface.element),
+                        "material": self.text(surface.material),
+                        "taken_at": _time(surface.taken_at),
+                        "instrument": self.text(surface.instrument or ""),
+                        "surface_temp": n("temperature", surface.surface_temp_c),
+                        "condensation_seen": _flag(surface.condensation_seen),
+                        "mould_visible": _flag(surface.mould_visible),
+                    }
                     if state is not None:
-                        cells["surface_rh"] = n("rh", psychro.surface_rh_pct(
-                            state, surface.surface_temp_c))
-                        cells["margin"] = n("temperature_difference",
-                                            surface.surface_temp_c - state.condensation_point_c)
+                        cells["surface_rh"] = n(
+                            "rh", psychro.surface_rh_pct(state, surface.surface_temp_c)
+                        )
+                        cells["margin"] = n(
+                            "temperature_difference",
+                            surface.surface_temp_c - state.condensation_point_c,
+                        )
                     yield self.line(cells)
                 for material in room_visit.materials:
-                    yield self.line({
-                        **here, "kind": "material", "location": self.text(material.location),
-                        "material": self.text(material.material),
-                        "taken_at": _time(material.taken_at),
-                        "instrument": self.text(material.instrument or ""),
-                        "moisture_value": n("moisture", material.value),
-                        "moisture_scale": self.text(material.scale),
-                        "moisture_method": self.text(material.method or ""),
-                        "dry_standard": _flag(material.dry_standard)})
+                    yield self.line(
+                        {
+                            **here,
+                            "kind": "material",
+                            "location": self.text(material.location),
+                            "material": self.text(material.material),
+                            "taken_at": _time(material.taken_at),
+                            "instrument": self.text(material.instrument or ""),
+                            "moisture_value": n("moisture", material.value),
+                            "moisture_scale": self.text(material.scale),
+                            "moisture_method": self.text(material.method or ""),
+                            "dry_standard": _flag(material.dry_standard),
+                        }
+                    )
                 for equipment in room_visit.equipment:
                     if equipment.outlet is None:
                         continue
-                    cells = {**here, "kind": "dehumidifier_outlet",
-                             "location": self.text(equipment.label or equipment.kind),
-                             **self.air_reading(equipment.outlet, pressure)}
+                    cells = {
+                        **here,
+                        "kind": "dehumidifier_outlet",
+                        "location": self.text(equipment.label or equipment.kind),
+                        **self.air_reading(equipment.outlet, pressure),
+                    }
                     if state is not None:
-                        outlet = psychro.vapour_state(equipment.outlet.dry_bulb_c,
-                                                      equipment.outlet.rh_pct, pressure)
+                        outlet = psychro.vapour_state(
+                            equipment.outlet.dry_bulb_c, equipment.outlet.rh_pct, pressure
+                        )
                         cells["humidity_ratio_drop"] = n(
                             "humidity_ratio",
-                            state.humidity_ratio_kg_per_kg - outlet.humidity_ratio_kg_per_kg)
+                            state.humidity_ratio_kg_per_kg - outlet.humidity_ratio_kg_per_kg,
+                        )
                     yield self.line(cells)
 
     def log_blocks(self, log: LogSeries, pressure_pa: float) -> Iterator[tuple[str, int]]:
         """Every sample of ``log``, as blocks of lines; the cells that do not change are made
         once, and the air cells once per distinct reading."""
         room = self.rooms.get(log.room) if log.room is not None else None
-        fixed = {**self.room_cells(room), "kind": "logger" if room else "outdoor_logger",
-                 "location": self.text(log.source)}
+        fixed = {
+            **self.room_cells(room),
+            "kind": "logger" if room else "outdoor_logger",
+            "location": self.text(log.source),
+        }
         row = self.row(fixed)
         # taken_at, instrument and the air cells are consecutive columns: the rest is fixed.
         taken, last_air = _INDEX["taken_at"], _INDEX["absolute_humidity"]
@@ -370,11 +435,11 @@ class _Rows:
         cache: dict[tuple[float, float], str] = {}
         samples = log.samples
         for first in range(0, len(samples), _BLOCK_ROWS):
-            block = samples[first:first + _BLOCK_ROWS]
+            block = samples[first : first + _BLOCK_ROWS]
             if len(cache) > _CACHE_LIMIT:
                 cache.clear()
             lines = []
-            for sample, when in zip(block, _times([sample.at for sample in block])):
+            for sample, when in zip(block, _times([sample.at for sample in block]), strict=False):
                 key = (sample.dry_bulb_c, sample.rh_pct)
                 air = cache.get(key)
                 if air is None:
@@ -397,8 +462,13 @@ class _Rows:
 _BLOCK_ROWS = 4096
 
 
-def csv_blocks(survey: Survey, system: UnitSystem | None = None, include_logs: bool = True,
-               *, for_terminal: bool = False) -> Iterator[tuple[str, int]]:
+def csv_blocks(
+    survey: Survey,
+    system: UnitSystem | None = None,
+    include_logs: bool = True,
+    *,
+    for_terminal: bool = False,
+) -> Iterator[tuple[str, int]]:
     """The CSV as blocks of whole lines (each line ending in CR LF) with the number of rows
     in each, the header (0 rows) first; made as they are consumed, so a large survey is never
     held as text. See :func:`write_csv` for ``for_terminal``."""
@@ -408,8 +478,14 @@ def csv_blocks(survey: Survey, system: UnitSystem | None = None, include_logs: b
     yield from _Rows(survey, chosen, for_terminal).blocks(include_logs)
 
 
-def write_csv(survey: Survey, out: TextIO, system: UnitSystem | None = None,
-              include_logs: bool = True, *, for_terminal: bool = False) -> int:
+def write_csv(
+    survey: Survey,
+    out: TextIO,
+    system: UnitSystem | None = None,
+    include_logs: bool = True,
+    *,
+    for_terminal: bool = False,
+) -> int:
     """Write the survey's readings as CSV to the text stream ``out``; return the row count
     (the header not counted).
 
@@ -425,8 +501,13 @@ def write_csv(survey: Survey, out: TextIO, system: UnitSystem | None = None,
 
 # --- writing a file ----------------------------------------------------------------------
 
-def save_csv(survey: Survey, path: str | os.PathLike[str], system: UnitSystem | None = None,
-             include_logs: bool = True) -> int:
+
+def save_csv(
+    survey: Survey,
+    path: str | os.PathLike[str],
+    system: UnitSystem | None = None,
+    include_logs: bool = True,
+) -> int:
     """Write the CSV to ``path`` the way survey files are saved, streaming; return the row
     count.
 
@@ -449,4 +530,3 @@ def save_csv(survey: Survey, path: str | os.PathLike[str], system: UnitSystem | 
 
     store.write_file_atomically(path, chunks())
     return count
-

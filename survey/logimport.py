@@ -48,7 +48,15 @@ from dataclasses import dataclass, field
 from typing import Literal
 
 from survey.errors import InputError
-from survey.logtime import (DateOrder, _clean, _date_fields, _parse_time, _orders_possible, _ORDER_WORDS, _detect_date_order)
+from survey.logtime import (
+    _ORDER_WORDS,
+    DateOrder,
+    _clean,
+    _date_fields,
+    _detect_date_order,
+    _orders_possible,
+    _parse_time,
+)
 from survey.model import LogSample
 from survey.psychro import DRY_BULB_MAX_C, DRY_BULB_MIN_C, RH_MIN_PCT
 
@@ -103,13 +111,14 @@ class LoggerData:
         if len(self.samples) < 2:
             return None
         steps: dict[dt.timedelta, int] = {}
-        for a, b in zip(self.samples, self.samples[1:]):
+        for a, b in zip(self.samples, self.samples[1:], strict=False):
             step = b.at - a.at
             steps[step] = steps.get(step, 0) + 1
         return max(steps, key=steps.__getitem__)
 
 
 # --- text and header ---------------------------------------------------------------------
+
 
 def _decode_text(data: bytes) -> tuple[str, str]:
     if data.startswith((b"\xff\xfe", b"\xfe\xff")):
@@ -128,8 +137,14 @@ def _norm(cell: str) -> str:
 
 
 def _is_time(name: str) -> bool:
-    return bool(re.search(r"\b(date|time|timestamp|datetime|zeit|datum|heure|fecha)\b", name)
-                or name.startswith(("date", "time"))) and not _is_rh(name) and "temp" not in name
+    return (
+        bool(
+            re.search(r"\b(date|time|timestamp|datetime|zeit|datum|heure|fecha)\b", name)
+            or name.startswith(("date", "time"))
+        )
+        and not _is_rh(name)
+        and "temp" not in name
+    )
 
 
 def _is_date_only(name: str) -> bool:
@@ -200,8 +215,9 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
             if len(names) < 3:
                 continue
             ranks = {i: _temperature_rank(n) for i, n in enumerate(names)}
-            temp = sorted((i for i, rank in ranks.items() if rank is not None),
-                          key=lambda i: (ranks[i], i))
+            temp = sorted(
+                (i for i, rank in ranks.items() if rank is not None), key=lambda i: (ranks[i], i)
+            )
             rh = [i for i, n in enumerate(names) if _is_rh(n)]
             times = [i for i, n in enumerate(names) if _is_time(n) and i not in temp + rh]
             if not (temp and rh and times):
@@ -222,6 +238,7 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
 
 
 # --- values ------------------------------------------------------------------------------
+
 
 def _parse_number(text: str) -> float | None:
     text = _clean(text).replace("\u2212", "-").replace(" ", "")
@@ -285,8 +302,10 @@ class _Candidate:
 
 # --- the reader --------------------------------------------------------------------------
 
-def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
-                    date_order: DateOrder | None = None) -> LoggerData:
+
+def read_logger_csv(
+    data: bytes, *, temp_unit: TempUnit | None = None, date_order: DateOrder | None = None
+) -> LoggerData:
     """Read a logger's CSV export (the file's bytes) into samples and skipped rows.
 
     ``temp_unit`` ("c" or "f") is needed when the header does not state the unit and
@@ -309,17 +328,20 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     try:
         found = _find_layout(text)
     except _CsvProblem as exc:
-        raise InputError(FILE_FIELD, f"(line {exc.line})", f"cannot be read as CSV: "
-                                                        f"{exc.detail}") from None
+        raise InputError(
+            FILE_FIELD, f"(line {exc.line})", f"cannot be read as CSV: {exc.detail}"
+        ) from None
     if found is None:
         first = next((line for line in text.splitlines() if line.strip()), "")
         raise InputError(
-            FILE_FIELD, _show(first) if first else "(empty file)",
+            FILE_FIELD,
+            _show(first) if first else "(empty file)",
             "no header row with a time, a temperature and a relative-humidity column was found "
-            f"in the first {HEADER_SEARCH_LINES} lines (e.g. 'Time,Temperature (°C),RH (%)')")
+            f"in the first {HEADER_SEARCH_LINES} lines (e.g. 'Time,Temperature (°C),RH (%)')",
+        )
     layout, rows = found
     names = layout.names
-    data_rows = rows[layout.header_index + 1:]
+    data_rows = rows[layout.header_index + 1 :]
     first_line = _line_numbers(text, layout.delimiter)
     notes: list[str] = []
     header_unit = _unit_in(names[layout.temp_col])
@@ -333,9 +355,11 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     if temp_unit is None:
         if header_unit is None:
             raise InputError(
-                UNIT_FIELD, "(not given)",
+                UNIT_FIELD,
+                "(not given)",
                 f"the temperature column {names[layout.temp_col].strip()!r} does not say its "
-                "unit; state it: c (°C) or f (°F)")
+                "unit; state it: c (°C) or f (°F)",
+            )
         temp_unit, unit_source = header_unit, where_unit
     elif header_unit is None:
         unit_source = "stated"
@@ -344,8 +368,10 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     else:
         unit_source = "stated"
         said, given = ("°F", "°C") if header_unit == "f" else ("°C", "°F")
-        notes.append(f"The {where_unit} says {said}; {given} was stated: the temperatures "
-                     f"are read as {given}.")
+        notes.append(
+            f"The {where_unit} says {said}; {given} was stated: the temperatures "
+            f"are read as {given}."
+        )
     if unit_row:
         data_rows = data_rows[1:]
     row_offset = layout.header_index + 1 + (1 if unit_row else 0)
@@ -360,28 +386,35 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     order: DateOrder | None = date_order
     if date_order is None:
         detected, examples = _detect_date_order(
-            [(line_of(n), time_text(r)) for n, r in enumerate(data_rows) if r])
+            [(line_of(n), time_text(r)) for n, r in enumerate(data_rows) if r]
+        )
         if detected == "ambiguous":
-            (line, sample), = examples
+            ((line, sample),) = examples
             raise InputError(
-                ORDER_FIELD, "(not given)",
+                ORDER_FIELD,
+                "(not given)",
                 f"dates such as {_show(sample)} (line {line}) could be day/month/year or "
                 "month/day/year and no day above 12 settles it; state the order: dmy "
-                "(day/month/year) or mdy (month/day/year)")
+                "(day/month/year) or mdy (month/day/year)",
+            )
         if detected == "conflict":
             (dmy_line, dmy_text), (mdy_line, mdy_text) = examples
             raise InputError(
-                ORDER_FIELD, "(not given)",
+                ORDER_FIELD,
+                "(not given)",
                 f"the dates contradict each other: {_show(dmy_text)} (line {dmy_line}) is "
                 f"only possible as day/month/year, {_show(mdy_text)} (line {mdy_line}) only "
                 "as month/day/year; state the order: dmy (day/month/year) or mdy "
-                "(month/day/year)")
+                "(month/day/year)",
+            )
         if detected in ("dmy", "mdy"):
             order = detected
 
     skipped: list[SkippedRow] = [
         SkippedRow(line, f"the line is {length} characters long, longer than any logger row")
-        for line, length in long_lines if line > first_line[layout.header_index]]
+        for line, length in long_lines
+        if line > first_line[layout.header_index]
+    ]
     candidates: list[_Candidate] = []
     need = max(layout.temp_col, layout.rh_col, *layout.time_cols) + 1
     for n, row in enumerate(data_rows):
@@ -421,8 +454,10 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     # RH written as fractions (0.65 for 65 %): all of them, or a few rows among percentages.
     as_fraction = bool(candidates) and all(c.rh <= 1.0 for c in candidates)
     if as_fraction:
-        notes.append("Every RH value is at most 1: they were read as fractions and "
-                     "multiplied by 100 (0.65 → 65 %).")
+        notes.append(
+            "Every RH value is at most 1: they were read as fractions and "
+            "multiplied by 100 (0.65 → 65 %)."
+        )
     # Times with and without a UTC offset cannot be put in one order: the kind most rows
     # have wins and the others are skipped.
     aware = sum(c.when.utcoffset() is not None for c in candidates)
@@ -434,25 +469,41 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
         rh = round(c.rh * 100.0, 6) if as_fraction else c.rh
         offset = c.when.utcoffset()
         if (offset is not None) != keep_aware:
-            skipped.append(SkippedRow(c.line, (
-                "the time has no UTC offset, unlike most rows" if offset is None
-                else "the time carries a UTC offset, unlike most rows")))
+            skipped.append(
+                SkippedRow(
+                    c.line,
+                    (
+                        "the time has no UTC offset, unlike most rows"
+                        if offset is None
+                        else "the time carries a UTC offset, unlike most rows"
+                    ),
+                )
+            )
             continue
         if offset is not None and offset % dt.timedelta(minutes=1):
-            skipped.append(SkippedRow(c.line, "the time's UTC offset is not a whole number "
-                                              "of minutes"))
+            skipped.append(
+                SkippedRow(c.line, "the time's UTC offset is not a whole number of minutes")
+            )
             continue
         if not DRY_BULB_MIN_C <= c.t_c <= DRY_BULB_MAX_C:
-            skipped.append(SkippedRow(c.line, f"temperature {c.t_shown} is outside "
-                                              f"{DRY_BULB_MIN_C:g}…{DRY_BULB_MAX_C:g} °C"))
+            skipped.append(
+                SkippedRow(
+                    c.line,
+                    f"temperature {c.t_shown} is outside {DRY_BULB_MIN_C:g}…{DRY_BULB_MAX_C:g} °C",
+                )
+            )
             continue
         if 0.0 < rh < 1.0 and not as_fraction:
-            skipped.append(SkippedRow(c.line, f"RH {rh:g}: RH below 1 % looks like a "
-                                              "fraction (other rows are in %)"))
+            skipped.append(
+                SkippedRow(
+                    c.line, f"RH {rh:g}: RH below 1 % looks like a fraction (other rows are in %)"
+                )
+            )
             continue
         if not RH_MIN_PCT <= rh <= 100.0:
-            skipped.append(SkippedRow(c.line, f"RH {rh:g} % is outside the range "
-                                              f"{RH_MIN_PCT:g} to 100 %"))
+            skipped.append(
+                SkippedRow(c.line, f"RH {rh:g} % is outside the range {RH_MIN_PCT:g} to 100 %")
+            )
             continue
         if c.when in seen:
             skipped.append(SkippedRow(c.line, f"same time as line {seen[c.when]}"))
@@ -462,18 +513,30 @@ def read_logger_csv(data: bytes, *, temp_unit: TempUnit | None = None,
     skipped.sort(key=lambda row: row.line)
     if not samples:
         reasons = "; ".join(f"line {s.line}: {s.reason}" for s in skipped[:3])
-        raise InputError(FILE_FIELD, f"({len(data_rows)} data rows)",
-                         "no row could be imported" + (f" ({reasons})" if reasons else ""))
+        raise InputError(
+            FILE_FIELD,
+            f"({len(data_rows)} data rows)",
+            "no row could be imported" + (f" ({reasons})" if reasons else ""),
+        )
     reordered = any(b.at < a.at for a, b in itertools.pairwise(samples))
     if reordered:
         samples.sort(key=lambda s: s.at)
     return LoggerData(
-        samples=samples, skipped=skipped,
+        samples=samples,
+        skipped=skipped,
         time_columns=tuple(names[i].strip() for i in layout.time_cols),
-        temperature_column=names[layout.temp_col].strip(), rh_column=names[layout.rh_col].strip(),
-        temperature_unit=temp_unit, unit_source=unit_source, date_order=order,
-        delimiter=layout.delimiter, encoding=encoding, header_line=first_line[layout.header_index],
-        sha256=digest, reordered=reordered, rh_as_fraction=as_fraction, notes=notes,
+        temperature_column=names[layout.temp_col].strip(),
+        rh_column=names[layout.rh_col].strip(),
+        temperature_unit=temp_unit,
+        unit_source=unit_source,
+        date_order=order,
+        delimiter=layout.delimiter,
+        encoding=encoding,
+        header_line=first_line[layout.header_index],
+        sha256=digest,
+        reordered=reordered,
+        rh_as_fraction=as_fraction,
+        notes=notes,
     )
 
 
@@ -485,8 +548,9 @@ def _parse_time_or_reason(text: str, order: DateOrder | None) -> tuple[dt.dateti
     m = _date_fields(_clean(text))
     if m is not None and len(m["a"]) != 4:
         if order is None and not _orders_possible(m):
-            return None, (f"time {_show(text)} is not a real date as day/month/year nor as "
-                          "month/day/year")
+            return None, (
+                f"time {_show(text)} is not a real date as day/month/year nor as month/day/year"
+            )
         if order is not None:
             return None, f"time {_show(text)} is not a real date read as {_ORDER_WORDS[order]}"
     return None, f"time {_show(text)} is not a date and time"

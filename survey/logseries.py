@@ -60,8 +60,11 @@ def check_instrument(survey: Survey, instrument: str | None) -> None:
         return
     ids = [i.id for i in survey.instruments]
     if instrument not in ids:
-        raise InputError("instrument", instrument, "no such instrument in the survey; "
-                                                   f"instruments: {count_cut(ids) or 'none yet'}")
+        raise InputError(
+            "instrument",
+            instrument,
+            f"no such instrument in the survey; instruments: {count_cut(ids) or 'none yet'}",
+        )
 
 
 def where(survey: Survey, room_id: str | None) -> str:
@@ -87,9 +90,15 @@ def _plural(n: int, word: str) -> str:
     return f"{n} {word}{'' if n == 1 else 's'}"
 
 
-def plan_import(survey: Survey, data: LoggerData, *, room: str | None, source: str,
-                instrument: str | None = None,
-                imported_at: dt.datetime | None = None) -> LogImport:
+def plan_import(
+    survey: Survey,
+    data: LoggerData,
+    *,
+    room: str | None,
+    source: str,
+    instrument: str | None = None,
+    imported_at: dt.datetime | None = None,
+) -> LogImport:
     """The series that importing ``data`` (read from the file named ``source``) into
     ``survey`` for ``room`` (a ``Room.id``; ``None`` for outdoors) would add.
 
@@ -98,14 +107,15 @@ def plan_import(survey: Survey, data: LoggerData, *, room: str | None, source: s
     """
     for log in survey.logs:
         if log.source_sha256 == data.sha256:
-            when = (f", imported {log.imported_at:%Y-%m-%d %H:%M}"
-                    if log.imported_at else "")
+            when = f", imported {log.imported_at:%Y-%m-%d %H:%M}" if log.imported_at else ""
             held = f", {span(log.samples)}" if log.samples else ""
             raise InputError(
-                "logger file", source,
+                "logger file",
+                source,
                 f"this logger file was already imported into {where(survey, log.room)} "
                 f"({_plural(len(log.samples), 'sample')}{held}, from {log.source}{when}); "
-                "nothing was changed")
+                "nothing was changed",
+            )
     known: set[dt.datetime] = set()
     overlapping: list[str] = []
     for log in survey.logs:
@@ -123,12 +133,18 @@ def plan_import(survey: Survey, data: LoggerData, *, room: str | None, source: s
     notes = [f"Times as written in the file (time column {' + '.join(data.time_columns)!r})."]
     notes += data.notes
     if repeated:
-        notes.append(f"{_plural(repeated, 'sample')} of the file already in the survey "
-                     f"(from {', '.join(sources)}) left out.")
+        notes.append(
+            f"{_plural(repeated, 'sample')} of the file already in the survey "
+            f"(from {', '.join(sources)}) left out."
+        )
     series = LogSeries(
-        room=room, source=source[:SOURCE_MAX_CHARS] or "logger.csv", samples=samples,
-        instrument=instrument, source_sha256=data.sha256,
+        room=room,
+        source=source[:SOURCE_MAX_CHARS] or "logger.csv",
+        samples=samples,
+        instrument=instrument,
+        source_sha256=data.sha256,
         imported_at=imported_at or dt.datetime.now().replace(microsecond=0),
         skipped_rows=len(data.skipped) + repeated,
-        notes=" ".join(notes)[:NOTES_MAX_CHARS])
+        notes=" ".join(notes)[:NOTES_MAX_CHARS],
+    )
     return LogImport(room, samples, repeated, sources, series)

@@ -12,26 +12,43 @@ from typing import Literal
 DateOrder = Literal["dmy", "mdy", "ymd"]
 
 
-_CLOCK = (r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
-          r"\s*(?P<ampm>[ap]\.?m\.?)?)?$")
+_CLOCK = (
+    r"(?:[ T,]+(?P<h>\d{1,2}):(?P<mi>\d{2})(?::(?P<s>\d{2})(?:[.,](?P<frac>\d{1,6}))?)?"
+    r"\s*(?P<ampm>[ap]\.?m\.?)?)?$"
+)
 #: A date with the month as an English word or its abbreviation, month first or day first:
 #: ``Jan 15, 2025``, ``January 15 2025``, ``15 Jan 2025``, ``15-Jan-25``.
 _YEAR = r"(?P<year>\d{4}|\d{2})"
 _NAMED_MONTH = (
-    re.compile(r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+" + _YEAR + _CLOCK,
-               re.IGNORECASE),
-    re.compile(r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+" + _YEAR + _CLOCK,
-               re.IGNORECASE))
-_MONTH_NAMES = ("january", "february", "march", "april", "may", "june", "july", "august",
-                "september", "october", "november", "december")
-_DATE_TIME = re.compile(r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})" + _CLOCK,
-                        re.IGNORECASE)
+    re.compile(
+        r"^(?P<month>[a-z]{3,9})\.?[ \-]+(?P<day>\d{1,2}),?[ \-]+" + _YEAR + _CLOCK, re.IGNORECASE
+    ),
+    re.compile(
+        r"^(?P<day>\d{1,2})[ \-./]+(?P<month>[a-z]{3,9})\.?[ \-./,]+" + _YEAR + _CLOCK,
+        re.IGNORECASE,
+    ),
+)
+_MONTH_NAMES = (
+    "january",
+    "february",
+    "march",
+    "april",
+    "may",
+    "june",
+    "july",
+    "august",
+    "september",
+    "october",
+    "november",
+    "december",
+)
+_DATE_TIME = re.compile(
+    r"^(?P<a>\d{1,4})[/.\-](?P<b>\d{1,2})[/.\-](?P<c>\d{1,4})" + _CLOCK, re.IGNORECASE
+)
 
 
 def _clean(cell: str) -> str:
     return cell.strip().strip('"').strip()
-
-
 
 
 def _date_fields(text: str) -> re.Match[str] | None:
@@ -70,8 +87,9 @@ def _named_month_time(m: re.Match[str]) -> dt.datetime | None:
     word, year = m["month"].lower(), int(m["year"])
     month = next((n for n, name in enumerate(_MONTH_NAMES, 1) if name.startswith(word)), None)
     try:
-        return dt.datetime(year + 2000 if year < 100 else year, month or 0, int(m["day"]),
-                           *_clock(m))
+        return dt.datetime(
+            year + 2000 if year < 100 else year, month or 0, int(m["day"]), *_clock(m)
+        )
     except ValueError:
         return None
 
@@ -110,8 +128,9 @@ def _orders_possible(m: re.Match[str]) -> set[DateOrder]:
 _ORDER_WORDS = {"dmy": "day/month/year", "mdy": "month/day/year", "ymd": "year/month/day"}
 
 
-def _detect_date_order(values: list[tuple[int, str]]) -> tuple[
-        DateOrder | None | Literal["ambiguous", "conflict"], list[tuple[int, str]]]:
+def _detect_date_order(
+    values: list[tuple[int, str]],
+) -> tuple[DateOrder | Literal["ambiguous", "conflict"] | None, list[tuple[int, str]]]:
     """The date order the rows show, from the rows whose date is possible in some order.
 
     Returns ``(order, examples)``: ``None`` when every time is year-first (or ISO);

@@ -37,7 +37,8 @@ from __future__ import annotations
 
 import datetime as dt
 import re
-from typing import Annotated, Iterator, Literal
+from collections.abc import Iterator
+from typing import Annotated, Literal
 
 from msgspec import Meta, Struct, field
 
@@ -79,11 +80,27 @@ InstrumentKind = Literal[
     "other",
 ]
 RoomUse = Literal[
-    "bedroom", "bathroom", "kitchen", "living", "basement", "crawlspace", "loft",
-    "office", "storage", "hallway", "utility", "other",
+    "bedroom",
+    "bathroom",
+    "kitchen",
+    "living",
+    "basement",
+    "crawlspace",
+    "loft",
+    "office",
+    "storage",
+    "hallway",
+    "utility",
+    "other",
 ]
 Element = Literal[
-    "external_wall", "internal_wall", "ceiling", "floor", "window_frame", "glazing", "pipe",
+    "external_wall",
+    "internal_wall",
+    "ceiling",
+    "floor",
+    "window_frame",
+    "glazing",
+    "pipe",
     "other",
 ]
 #: ``mc_pct``: timber moisture content, % of oven-dry mass (pin meter on wood);
@@ -97,16 +114,24 @@ Odour = Literal["none", "musty", "earthy", "sewage", "chemical", "other"]
 #: contamination, 3 grossly contaminated.
 WaterCategory = Literal[1, 2, 3]
 EquipmentKind = Literal[
-    "refrigerant_dehumidifier", "desiccant_dehumidifier", "air_mover", "heater",
-    "extract_fan", "air_scrubber", "other",
+    "refrigerant_dehumidifier",
+    "desiccant_dehumidifier",
+    "air_mover",
+    "heater",
+    "extract_fan",
+    "air_scrubber",
+    "other",
 ]
 
 # --- constrained scalars -----------------------------------------------------------------
 
-Id = Annotated[str, Meta(
-    pattern=r"^[A-Za-z0-9][A-Za-z0-9_.-]{0,39}$",
-    description="Short identifier: letters, digits, '-', '_' or '.', up to 40 characters.",
-)]
+Id = Annotated[
+    str,
+    Meta(
+        pattern=r"^[A-Za-z0-9][A-Za-z0-9_.-]{0,39}$",
+        description="Short identifier: letters, digits, '-', '_' or '.', up to 40 characters.",
+    ),
+]
 Name = Annotated[str, Meta(min_length=1, max_length=200)]
 Text = Annotated[str, Meta(max_length=200)]
 Address = Annotated[str, Meta(max_length=1000)]
@@ -114,34 +139,52 @@ Notes = Annotated[str, Meta(max_length=20_000, description="Free notes.")]
 #: A photo's file name relative to the survey file's folder: no absolute path (``/``, ``\\``
 #: or a drive letter such as ``C:`` first), no ``..`` step out of the folder, no control
 #: characters. Sub-folders (``photos/bed1-corner.jpg``) are fine.
-PHOTO_NAME_PATTERN = (r"^(?![/\\])(?![A-Za-z]:)(?!(?:.*[/\\])?\.\.(?:[/\\]|$))"
-                      r"[^\x00-\x1f\x7f]+$")
-FileName = Annotated[str, Meta(
-    min_length=1, max_length=255, pattern=PHOTO_NAME_PATTERN,
-    description="A photo's file name, relative to the survey file's folder (no absolute "
-                "path, drive letter or '..').",
-)]
+PHOTO_NAME_PATTERN = (
+    r"^(?![/\\])(?![A-Za-z]:)(?!(?:.*[/\\])?\.\.(?:[/\\]|$))"
+    r"[^\x00-\x1f\x7f]+$"
+)
+FileName = Annotated[
+    str,
+    Meta(
+        min_length=1,
+        max_length=255,
+        pattern=PHOTO_NAME_PATTERN,
+        description="A photo's file name, relative to the survey file's folder (no absolute "
+        "path, drive letter or '..').",
+    ),
+]
 
-DryBulbC = Annotated[float, Meta(
-    ge=DRY_BULB_MIN_C, le=DRY_BULB_MAX_C, description="Air (dry-bulb) temperature, °C.")]
-RhPct = Annotated[float, Meta(
-    ge=RH_MIN_PCT, le=100.0,
-    description="Relative humidity, %, relative to liquid water as hygrometers report it.")]
-SurfaceTempC = Annotated[float, Meta(
-    ge=SURFACE_TEMP_MIN_C, le=SURFACE_TEMP_MAX_C, description="Surface temperature, °C.")]
-PressurePa = Annotated[float, Meta(
-    ge=PRESSURE_MIN_PA, le=PRESSURE_MAX_PA, description="Barometric pressure, Pa.")]
-AltitudeM = Annotated[float, Meta(
-    ge=ALTITUDE_MIN_M, le=ALTITUDE_MAX_M, description="Altitude above sea level, m.")]
+DryBulbC = Annotated[
+    float, Meta(ge=DRY_BULB_MIN_C, le=DRY_BULB_MAX_C, description="Air (dry-bulb) temperature, °C.")
+]
+RhPct = Annotated[
+    float,
+    Meta(
+        ge=RH_MIN_PCT,
+        le=100.0,
+        description="Relative humidity, %, relative to liquid water as hygrometers report it.",
+    ),
+]
+SurfaceTempC = Annotated[
+    float,
+    Meta(ge=SURFACE_TEMP_MIN_C, le=SURFACE_TEMP_MAX_C, description="Surface temperature, °C."),
+]
+PressurePa = Annotated[
+    float, Meta(ge=PRESSURE_MIN_PA, le=PRESSURE_MAX_PA, description="Barometric pressure, Pa.")
+]
+AltitudeM = Annotated[
+    float, Meta(ge=ALTITUDE_MIN_M, le=ALTITUDE_MAX_M, description="Altitude above sea level, m.")
+]
 AirTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.AIR_TEMP_ACCURACY_MAX_K)]
 SurfaceTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.SURFACE_TEMP_ACCURACY_MAX_K)]
 RhAccuracyPct = Annotated[float, Meta(gt=0.0, le=domain.RH_ACCURACY_MAX_PCT)]
 Sha256 = Annotated[str, Meta(pattern=r"^[0-9a-f]{64}$")]
 
-_RECORD = dict(kw_only=True, forbid_unknown_fields=True, omit_defaults=True)
+_RECORD = {"kw_only": True, "forbid_unknown_fields": True, "omit_defaults": True}
 
 
 # --- records -----------------------------------------------------------------------------
+
 
 class Site(Struct, **_RECORD):
     """Where the survey is, for whom, why, and how numbers are shown."""
@@ -190,12 +233,15 @@ class Room(Struct, **_RECORD):
     name: Name
     level: Annotated[int, Meta(ge=-10, le=200)] = 0  #: storey: 0 ground, 1 first, −1 basement
     use: RoomUse = "other"
-    volume_m3: Annotated[float, Meta(ge=domain.ROOM_VOLUME_MIN_M3,
-                                     le=domain.ROOM_VOLUME_MAX_M3)] | None = None
-    floor_area_m2: Annotated[float, Meta(ge=domain.FLOOR_AREA_MIN_M2,
-                                         le=domain.FLOOR_AREA_MAX_M2)] | None = None
-    height_m: Annotated[float, Meta(ge=domain.ROOM_HEIGHT_MIN_M,
-                                    le=domain.ROOM_HEIGHT_MAX_M)] | None = None
+    volume_m3: (
+        Annotated[float, Meta(ge=domain.ROOM_VOLUME_MIN_M3, le=domain.ROOM_VOLUME_MAX_M3)] | None
+    ) = None
+    floor_area_m2: (
+        Annotated[float, Meta(ge=domain.FLOOR_AREA_MIN_M2, le=domain.FLOOR_AREA_MAX_M2)] | None
+    ) = None
+    height_m: (
+        Annotated[float, Meta(ge=domain.ROOM_HEIGHT_MIN_M, le=domain.ROOM_HEIGHT_MAX_M)] | None
+    ) = None
     #: People who usually use it.
     occupants: Annotated[int, Meta(ge=0, le=domain.OCCUPANTS_MAX)] = 0
     #: True for an unaffected room used as the reference (dry standard, normal conditions).
@@ -397,7 +443,6 @@ class Survey(Struct, kw_only=True, forbid_unknown_fields=True):
 # --- helpers -----------------------------------------------------------------------------
 
 
-
 def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:
     """The pressure to compute a visit's moist-air states with: the visit's measured
     pressure, else the site's, else the standard atmosphere at the site's altitude, else
@@ -426,9 +471,11 @@ def _volume_problem(room: Room) -> str:
     volume = room.floor_area_m2 * room.height_m
     if domain.ROOM_VOLUME_MIN_M3 <= volume <= domain.ROOM_VOLUME_MAX_M3:
         return ""
-    return (f"floor area {room.floor_area_m2:g} m² × height {room.height_m:g} m gives "
-            f"{volume:g} m³; a room's volume must be between {domain.ROOM_VOLUME_MIN_M3:g} "
-            f"and {domain.ROOM_VOLUME_MAX_M3:g} m³")
+    return (
+        f"floor area {room.floor_area_m2:g} m² × height {room.height_m:g} m gives "
+        f"{volume:g} m³; a room's volume must be between {domain.ROOM_VOLUME_MIN_M3:g} "
+        f"and {domain.ROOM_VOLUME_MAX_M3:g} m³"
+    )
 
 
 def photo_name_problem(name: str) -> str:
@@ -436,11 +483,15 @@ def photo_name_problem(name: str) -> str:
     if re.search(r"[\x00-\x1f\x7f]", name):
         return "contains control characters"
     if name[:1] in ("/", "\\") or re.match(r"[A-Za-z]:", name):
-        return ("is an absolute path; give the photo's name relative to the survey file's "
-                "folder (e.g. 'photos/bed1-corner.jpg')")
+        return (
+            "is an absolute path; give the photo's name relative to the survey file's "
+            "folder (e.g. 'photos/bed1-corner.jpg')"
+        )
     if ".." in re.split(r"[/\\]", name):
-        return ("steps out of the survey file's folder with '..'; keep photos in that folder "
-                "or a sub-folder of it")
+        return (
+            "steps out of the survey file's folder with '..'; keep photos in that folder "
+            "or a sub-folder of it"
+        )
     return ""
 
 
@@ -463,19 +514,34 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
     instrument_ids: set[str] = set()
     for i, instrument in enumerate(survey.instruments):
         if instrument.id in instrument_ids:
-            found.append((f"instruments[{i}].id",
-                          f"instrument id {_quoted(instrument.id)} is used twice"))
+            found.append(
+                (f"instruments[{i}].id", f"instrument id {_quoted(instrument.id)} is used twice")
+            )
         instrument_ids.add(instrument.id)
 
     def instrument_ref(where: str, instrument_id: str | None) -> None:
         if instrument_id is not None and instrument_id not in instrument_ids:
-            found.append((where, f"no instrument with id {_quoted(instrument_id)}; instruments "
-                                 f"are: {_id_list(i.id for i in survey.instruments)}"))
+            found.append(
+                (
+                    where,
+                    (
+                        f"no instrument with id {_quoted(instrument_id)}; instruments "
+                        f"are: {_id_list(i.id for i in survey.instruments)}"
+                    ),
+                )
+            )
 
     def room_ref(where: str, room_id: str) -> None:
         if room_id not in room_ids:
-            found.append((where, f"no room with id {_quoted(room_id)}; rooms are: "
-                                 f"{_id_list(r.id for r in survey.rooms)}"))
+            found.append(
+                (
+                    where,
+                    (
+                        f"no room with id {_quoted(room_id)}; rooms are: "
+                        f"{_id_list(r.id for r in survey.rooms)}"
+                    ),
+                )
+            )
 
     for v, visit in enumerate(survey.visits):
         at = f"visits[{v}]"
@@ -486,8 +552,9 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
             rat = f"{at}.rooms[{r}]"
             room_ref(f"{rat}.room", room_visit.room)
             if room_visit.room in seen:
-                found.append((f"{rat}.room",
-                              f"room {_quoted(room_visit.room)} appears twice in this visit"))
+                found.append(
+                    (f"{rat}.room", f"room {_quoted(room_visit.room)} appears twice in this visit")
+                )
             seen.add(room_visit.room)
             if room_visit.air is not None:
                 instrument_ref(f"{rat}.air.instrument", room_visit.air.instrument)
@@ -497,12 +564,17 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
                 instrument_ref(f"{rat}.materials[{m}].instrument", material.instrument)
             for e, equipment in enumerate(room_visit.equipment):
                 if equipment.outlet is not None:
-                    instrument_ref(f"{rat}.equipment[{e}].outlet.instrument",
-                                   equipment.outlet.instrument)
+                    instrument_ref(
+                        f"{rat}.equipment[{e}].outlet.instrument", equipment.outlet.instrument
+                    )
             obs = room_visit.observations
             if obs.mould_area_m2 and not obs.mould_visible:
-                found.append((f"{rat}.observations.mould_area_m2",
-                              "a mould area is given but mould_visible is false"))
+                found.append(
+                    (
+                        f"{rat}.observations.mould_area_m2",
+                        "a mould area is given but mould_visible is false",
+                    )
+                )
     for g, log in enumerate(survey.logs):
         if log.room is not None:
             room_ref(f"logs[{g}].room", log.room)

@@ -91,35 +91,60 @@ def judge(given: QuickInput) -> QuickResult:
     """Judge one room: states, per-surface risk, the room finding, actions and cautions."""
     use = given.use or "other"
     room = psychro.state_from_rh(given.air_temp_c, given.rh_pct, given.pressure_pa)
-    outdoor = None if given.outdoor is None else psychro.state_from_rh(
-        given.outdoor.air_temp_c, given.outdoor.rh_pct, given.pressure_pa)
+    outdoor = (
+        None
+        if given.outdoor is None
+        else psychro.state_from_rh(
+            given.outdoor.air_temp_c, given.outdoor.rh_pct, given.pressure_pa
+        )
+    )
     activities = []
     if given.showers_per_day:
-        activities.append(assess.Activity(
-            "shower", given.showers_per_day * th.value("shower_minutes") / 60.0))
+        activities.append(
+            assess.Activity("shower", given.showers_per_day * th.value("shower_minutes") / 60.0)
+        )
     if given.baths_per_day:
-        activities.append(assess.Activity(
-            "bath", given.baths_per_day * th.value("bath_minutes") / 60.0))
+        activities.append(
+            assess.Activity("bath", given.baths_per_day * th.value("bath_minutes") / 60.0)
+        )
     if given.cooking_hours_per_day:
         activities.append(assess.Activity("cooking", given.cooking_hours_per_day))
     observations = assess.Observations(
-        visible_mould_area_m2=given.mould_area_m2, visible_mould=given.mould_seen,
-        water_category=given.water_category, standing_water=given.water_category is not None,
-        water_standing_h=given.water_standing_h, water_loss_class=given.water_loss_class,
-        wet_area_pct=given.wet_area_pct, dense_materials_wet=given.dense_materials_wet,
+        visible_mould_area_m2=given.mould_area_m2,
+        visible_mould=given.mould_seen,
+        water_category=given.water_category,
+        standing_water=given.water_category is not None,
+        water_standing_h=given.water_standing_h,
+        water_loss_class=given.water_loss_class,
+        wet_area_pct=given.wet_area_pct,
+        dense_materials_wet=given.dense_materials_wet,
         drying_in_progress=given.drying,
         drying=assess.DryingEquipment(dehumidifiers=1) if given.drying else None,
-        flued_appliance=given.flued_appliance)
+        flued_appliance=given.flued_appliance,
+    )
     room_input = assess.RoomInput(
-        name="Room", use=use, air_temp_c=given.air_temp_c, rh_pct=given.rh_pct,
-        surfaces=given.surfaces, volume_m3=given.volume_m3, occupants=given.occupants,
-        activities=tuple(activities), laundry_loads_per_day=given.laundry_loads_per_day,
-        observations=observations)
+        name="Room",
+        use=use,
+        air_temp_c=given.air_temp_c,
+        rh_pct=given.rh_pct,
+        surfaces=given.surfaces,
+        volume_m3=given.volume_m3,
+        occupants=given.occupants,
+        activities=tuple(activities),
+        laundry_loads_per_day=given.laundry_loads_per_day,
+        observations=observations,
+    )
     site = assess.assess_site([room_input], given.outdoor, given.pressure_pa, given.accuracy)
     advice = advise.advise_site(site, given.target_rh_pct)
     finding = site.rooms[0]
     room_advice = advice.rooms[0]
     keys = set(finding.threshold_keys) | set(room_advice.threshold_keys)
-    return QuickResult(input=given, room=room, outdoor=outdoor, finding=finding,
-                       advice=room_advice, cautions=advice.cautions,
-                       limits=tuple(th.cited(keys)))
+    return QuickResult(
+        input=given,
+        room=room,
+        outdoor=outdoor,
+        finding=finding,
+        advice=room_advice,
+        cautions=advice.cautions,
+        limits=tuple(th.cited(keys)),
+    )

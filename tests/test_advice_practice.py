@@ -13,11 +13,18 @@ from CoolProp.HumidAirProp import HAPropsSI
 from survey import assess, quick, words
 from survey import thresholds as th
 from survey.advise import ActionKind, DehumidifyWhy
-from survey.assess import (Accuracy, DryingEquipment, MaterialReading, Observations,
-                           OutdoorInput, RoomInput, SurfaceInput)
+from survey.assess import (
+    Accuracy,
+    DryingEquipment,
+    MaterialReading,
+    Observations,
+    OutdoorInput,
+    RoomInput,
+    SurfaceInput,
+)
 
 P = 101_325.0
-FT3_PER_M3 = 1.0 / 0.3048 ** 3  # 1 ft = 0.3048 m exactly
+FT3_PER_M3 = 1.0 / 0.3048**3  # 1 ft = 0.3048 m exactly
 US_PINT_L = 0.473176  # US customary units [R]
 
 
@@ -40,13 +47,20 @@ def dew_point_c(temp_c: float, rh_pct: float) -> float:
 
 
 def basement(**more):
-    base = dict(air_temp_c=20.0, rh_pct=80.0, surfaces=(assess.SurfaceInput("wall", 17.0),),
-                outdoor=assess.OutdoorInput(15.0, 70.0), use="basement", volume_m3=40.0)
+    base = {
+        "air_temp_c": 20.0,
+        "rh_pct": 80.0,
+        "surfaces": (assess.SurfaceInput("wall", 17.0),),
+        "outdoor": assess.OutdoorInput(15.0, 70.0),
+        "use": "basement",
+        "volume_m3": 40.0,
+    }
     base.update(more)
     return judge(**base)
 
 
 # --- 1. contaminated water -----------------------------------------------------------------
+
 
 def test_category_3_removes_porous_materials_first():
     """Category 3 water (restoration standard of practice [R, secondary]): removal of porous
@@ -85,12 +99,22 @@ def test_air_movers_are_stopped_and_porous_readings_named():
     """No air movement over unremoved contaminated material: running air movers are to be
     stopped; plasterboard and carpet readings are listed as porous, timber is not."""
     room = RoomInput(
-        "Cellar", "basement", 20.0, 80.0, volume_m3=40.0,
-        materials=(MaterialReading("wall low", "gypsum plasterboard", 40.0, "wme_pct", 20.0),
-                   MaterialReading("floor", "carpet and underlay", 30.0, "wme_pct", 15.0),
-                   MaterialReading("skirting", "pine skirting", 25.0, "mc_pct", 12.0, True)),
-        observations=Observations(water_category=3, drying_in_progress=True,
-                                  drying=DryingEquipment(dehumidifiers=1, air_movers=3)))
+        "Cellar",
+        "basement",
+        20.0,
+        80.0,
+        volume_m3=40.0,
+        materials=(
+            MaterialReading("wall low", "gypsum plasterboard", 40.0, "wme_pct", 20.0),
+            MaterialReading("floor", "carpet and underlay", 30.0, "wme_pct", 15.0),
+            MaterialReading("skirting", "pine skirting", 25.0, "mc_pct", 12.0, True),
+        ),
+        observations=Observations(
+            water_category=3,
+            drying_in_progress=True,
+            drying=DryingEquipment(dehumidifiers=1, air_movers=3),
+        ),
+    )
     finding = assess.assess_room(room, OutdoorInput(15.0, 70.0), P)
     from survey import advise
 
@@ -101,8 +125,10 @@ def test_air_movers_are_stopped_and_porous_readings_named():
     assert removal.numbers.porous_materials == ("wall low", "floor")
 
 
-@pytest.mark.parametrize(("wet_pct", "dense", "expected"), [
-    (3.0, False, 1), (20.0, False, 2), (55.0, False, 3), (3.0, True, 4)])
+@pytest.mark.parametrize(
+    ("wet_pct", "dense", "expected"),
+    [(3.0, False, 1), (20.0, False, 2), (55.0, False, 3), (3.0, True, 4)],
+)
 def test_class_of_water_loss_from_area_and_materials(wet_pct, dense, expected):
     """Classes of water loss (restoration standard of practice, from memory): under 5 % of
     the room's surfaces wet class 1, 5-40 % class 2, over 40 % class 3, bound water in
@@ -117,21 +143,30 @@ def test_drying_load_includes_the_wet_materials():
     materials (hand arithmetic), added to the air's load, so the removal is not 0."""
     result = basement(drying=True, wet_area_pct=20.0)
     n = action(result, ActionKind.DEHUMIDIFY).numbers
-    assert n.materials_load_l_per_day == pytest.approx(40.0 * FT3_PER_M3 / 50.0 * US_PINT_L,
-                                                       rel=1e-6)
+    assert n.materials_load_l_per_day == pytest.approx(
+        40.0 * FT3_PER_M3 / 50.0 * US_PINT_L, rel=1e-6
+    )
     assert n.materials_load_l_per_day == pytest.approx(13.37, abs=0.01)
     assert n.removal_l_per_day > n.materials_load_l_per_day
 
 
 # --- 2. combustion air ----------------------------------------------------------------------
 
+
 def test_closing_up_carries_the_combustion_air_caution():
     """Outdoor air wetter than the room (humid summer, CoolProp W): dehumidify with windows
     closed, and the combustion-air caution unless no flued appliance is said."""
-    assert HAPropsSI("W", "T", 301.15, "P", P, "R", 0.75) > \
-        HAPropsSI("W", "T", 295.15, "P", P, "R", 0.75)
-    given = dict(air_temp_c=22.0, rh_pct=75.0, outdoor=assess.OutdoorInput(28.0, 75.0),
-                 use="basement", volume_m3=60.0, occupants=0)
+    assert HAPropsSI("W", "T", 301.15, "P", P, "R", 0.75) > HAPropsSI(
+        "W", "T", 295.15, "P", P, "R", 0.75
+    )
+    given = {
+        "air_temp_c": 22.0,
+        "rh_pct": 75.0,
+        "outdoor": assess.OutdoorInput(28.0, 75.0),
+        "use": "basement",
+        "volume_m3": 60.0,
+        "occupants": 0,
+    }
     result = judge(**given)
     assert action(result, ActionKind.DEHUMIDIFY).numbers.why is DehumidifyWhy.OUTDOOR_WETTER
     (caution,) = [c for c in result.cautions if c.key == "combustion_air"]
@@ -144,8 +179,14 @@ def test_closing_up_carries_the_combustion_air_caution():
 
 def test_extract_ventilation_carries_the_combustion_air_caution():
     """A ventilate action (extract fan) carries the caution too; a dry room needs none."""
-    result = judge(air_temp_c=18.0, rh_pct=72.0, outdoor=assess.OutdoorInput(3.0, 88.0),
-                   use="bedroom", volume_m3=30.0, occupants=2)
+    result = judge(
+        air_temp_c=18.0,
+        rh_pct=72.0,
+        outdoor=assess.OutdoorInput(3.0, 88.0),
+        use="bedroom",
+        volume_m3=30.0,
+        occupants=2,
+    )
     assert "ventilate" in kinds(result)
     assert "combustion_air" in [c.key for c in result.cautions]
     dry = judge(air_temp_c=20.0, rh_pct=45.0, outdoor=assess.OutdoorInput(5.0, 80.0))
@@ -156,15 +197,28 @@ def test_caution_keys_are_listed_beside_the_cautions(check):
     """--json lists caution_keys in the order of cautions, one for one."""
     import json
 
-    _, out, _ = check("--air-temp", "22", "--rh", "75", "--outdoor-temp", "28",
-                      "--outdoor-rh", "75", "--use", "basement", "--room-volume", "60",
-                      "--json")
+    _, out, _ = check(
+        "--air-temp",
+        "22",
+        "--rh",
+        "75",
+        "--outdoor-temp",
+        "28",
+        "--outdoor-rh",
+        "75",
+        "--use",
+        "basement",
+        "--room-volume",
+        "60",
+        "--json",
+    )
     data = json.loads(out)
     assert len(data["caution_keys"]) == len(data["cautions"])
     assert data["caution_keys"][-1] == "closing" and "combustion_air" in data["caution_keys"]
 
 
 # --- 3. vented spaces and windows against the weather ---------------------------------------
+
 
 def test_crawl_space_vents_stay_closed_when_outdoor_air_is_wetter():
     """Crawl space at 18 °C / 85 % under 27 °C / 70 % outdoor air: outdoor W 15.6 g/kg >
@@ -173,8 +227,13 @@ def test_crawl_space_vents_stay_closed_when_outdoor_air_is_wetter():
     w_out = HAPropsSI("W", "T", 300.15, "P", P, "R", 0.70)
     w_in = HAPropsSI("W", "T", 291.15, "P", P, "R", 0.85)
     assert w_out > w_in and dew_point_c(27.0, 70.0) > 17.0
-    result = judge(air_temp_c=18.0, rh_pct=85.0, surfaces=(assess.SurfaceInput("joist", 17.0),),
-                   outdoor=assess.OutdoorInput(27.0, 70.0), use="crawlspace")
+    result = judge(
+        air_temp_c=18.0,
+        rh_pct=85.0,
+        surfaces=(assess.SurfaceInput("joist", 17.0),),
+        outdoor=assess.OutdoorInput(27.0, 70.0),
+        use="crawlspace",
+    )
     n = action(result, ActionKind.DRY_VENTILATED_SPACE).numbers
     assert n.outdoor_wetter_than_space is True
     assert n.outdoor_dew_point_above_coldest_surface is True
@@ -186,8 +245,13 @@ def test_crawl_space_in_dry_weather_keeps_its_vents():
     """Dry cold outdoor air (5 °C / 80 %, dew point 1.9 °C by CoolProp, below the 8 °C
     joist): the vents may stay open."""
     assert dew_point_c(5.0, 80.0) < 8.0
-    result = judge(air_temp_c=9.0, rh_pct=90.0, surfaces=(assess.SurfaceInput("joist", 8.0),),
-                   outdoor=assess.OutdoorInput(5.0, 80.0), use="crawlspace")
+    result = judge(
+        air_temp_c=9.0,
+        rh_pct=90.0,
+        surfaces=(assess.SurfaceInput("joist", 8.0),),
+        outdoor=assess.OutdoorInput(5.0, 80.0),
+        use="crawlspace",
+    )
     assert action(result, ActionKind.DRY_VENTILATED_SPACE).numbers.keep_vents_closed is False
 
 
@@ -195,23 +259,40 @@ def test_windows_stay_shut_when_outdoor_dew_point_is_above_the_coldest_wall():
     """Room 24 °C / 80 % with a 14 °C wall, outdoor 22 °C / 75 % (W 12.4 < 15.1 g/kg, but
     dew point 17.4 °C > 14 °C, CoolProp): airing cannot bring the dew point under the wall,
     so dehumidify with windows closed, and no ventilate action."""
-    assert HAPropsSI("W", "T", 295.15, "P", P, "R", 0.75) < \
-        HAPropsSI("W", "T", 297.15, "P", P, "R", 0.80) - 0.001
+    assert (
+        HAPropsSI("W", "T", 295.15, "P", P, "R", 0.75)
+        < HAPropsSI("W", "T", 297.15, "P", P, "R", 0.80) - 0.001
+    )
     assert dew_point_c(22.0, 75.0) > 14.0
-    result = judge(air_temp_c=24.0, rh_pct=80.0, surfaces=(assess.SurfaceInput("wall", 14.0),),
-                   outdoor=assess.OutdoorInput(22.0, 75.0), use="living", volume_m3=40.0,
-                   occupants=2)
+    result = judge(
+        air_temp_c=24.0,
+        rh_pct=80.0,
+        surfaces=(assess.SurfaceInput("wall", 14.0),),
+        outdoor=assess.OutdoorInput(22.0, 75.0),
+        use="living",
+        volume_m3=40.0,
+        occupants=2,
+    )
     assert "ventilate" not in kinds(result)
-    assert action(result, ActionKind.DEHUMIDIFY).numbers.why is \
-        DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE
+    assert (
+        action(result, ActionKind.DEHUMIDIFY).numbers.why
+        is DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE
+    )
 
 
 # --- 4. wet rooms at their loads, code minimum extract --------------------------------------
 
+
 def bathroom(**more):
-    base = dict(air_temp_c=21.0, rh_pct=75.0, surfaces=(assess.SurfaceInput("wall", 17.0),),
-                outdoor=assess.OutdoorInput(5.0, 80.0), use="bathroom", volume_m3=12.0,
-                occupants=0)
+    base = {
+        "air_temp_c": 21.0,
+        "rh_pct": 75.0,
+        "surfaces": (assess.SurfaceInput("wall", 17.0),),
+        "outdoor": assess.OutdoorInput(5.0, 80.0),
+        "use": "bathroom",
+        "volume_m3": 12.0,
+        "occupants": 0,
+    }
     base.update(more)
     return judge(**base)
 
@@ -236,7 +317,7 @@ def test_bathroom_extract_never_below_the_code_minimum():
     = 28.8 m³/h (Approved Document F, from memory) and 20 cfm = 33.98 m³/h (ASHRAE 62.2,
     from memory; 1 cfm = 1.699 m³/h)."""
     vent = action(bathroom(), ActionKind.VENTILATE).numbers
-    minimum = max(8.0 * 3.6, 20.0 * 0.3048 ** 3 * 60.0)
+    minimum = max(8.0 * 3.6, 20.0 * 0.3048**3 * 60.0)
     assert minimum == pytest.approx(33.98, abs=0.01)
     assert vent.code_minimum_m3_per_h == pytest.approx(minimum, rel=1e-9)
     assert vent.airflow_m3_per_h >= minimum - 1e-9
@@ -246,8 +327,14 @@ def test_bathroom_extract_never_below_the_code_minimum():
 def test_kitchen_minimum_is_five_air_changes_when_larger():
     """A 40 m³ kitchen: 5 kitchen air changes an hour = 200 m³/h (ASHRAE 62.2 continuous,
     from memory) is above 13 L/s = 46.8 m³/h (Approved Document F)."""
-    result = judge(air_temp_c=21.0, rh_pct=75.0, outdoor=assess.OutdoorInput(5.0, 80.0),
-                   use="kitchen", volume_m3=40.0, occupants=1)
+    result = judge(
+        air_temp_c=21.0,
+        rh_pct=75.0,
+        outdoor=assess.OutdoorInput(5.0, 80.0),
+        use="kitchen",
+        volume_m3=40.0,
+        occupants=1,
+    )
     vent = action(result, ActionKind.VENTILATE).numbers
     assert vent.code_minimum_m3_per_h == pytest.approx(200.0)
     assert vent.airflow_m3_per_h >= 200.0
@@ -255,12 +342,19 @@ def test_kitchen_minimum_is_five_air_changes_when_larger():
 
 # --- 5. the cure that fits ------------------------------------------------------------------
 
+
 def test_no_dehumidifier_for_a_room_already_below_the_practical_floor():
     """A room at 38 % RH, under the 40 % practical floor (common practice), gets no
     dehumidifier even with a cold wall; the wall is to be warmed."""
-    result = judge(air_temp_c=20.0, rh_pct=38.0, surfaces=(assess.SurfaceInput("wall", 4.0),),
-                   outdoor=assess.OutdoorInput(0.0, 80.0), use="bedroom", volume_m3=30.0,
-                   occupants=2)
+    result = judge(
+        air_temp_c=20.0,
+        rh_pct=38.0,
+        surfaces=(assess.SurfaceInput("wall", 4.0),),
+        outdoor=assess.OutdoorInput(0.0, 80.0),
+        use="bedroom",
+        volume_m3=30.0,
+        occupants=2,
+    )
     assert "dehumidify" not in kinds(result)
     assert "raise_surface_temperature" in kinds(result)
 
@@ -270,15 +364,23 @@ def test_wet_surface_below_the_dew_point_in_a_drying_room_still_gets_its_action(
     the temperature factor is not judged while it dries, but the wall gets its action."""
     assert dew_point_c(20.0, 70.0) > 12.0
     room = RoomInput(
-        "Hall", "hallway", 20.0, 70.0, (SurfaceInput("wet wall", 12.0),), volume_m3=30.0,
+        "Hall",
+        "hallway",
+        20.0,
+        70.0,
+        (SurfaceInput("wet wall", 12.0),),
+        volume_m3=30.0,
         materials=(MaterialReading("wall", "plaster", 40.0, "wme_pct", 15.0),),
-        observations=Observations(drying_in_progress=True,
-                                  drying=DryingEquipment(dehumidifiers=1)))
+        observations=Observations(drying_in_progress=True, drying=DryingEquipment(dehumidifiers=1)),
+    )
     from survey import advise
 
     finding = assess.assess_room(room, OutdoorInput(5.0, 80.0), P)
-    raised = [a for a in advise.advise_room(finding).actions
-              if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
+    raised = [
+        a
+        for a in advise.advise_room(finding).actions
+        if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE
+    ]
     assert len(raised) == 1 and raised[0].numbers.drying_wet is True
 
 
@@ -292,28 +394,45 @@ def test_minimums_shown_are_rounded_up():
 
 # --- 6. one thermometer indoors and out ----------------------------------------------------
 
+
 def test_shared_thermometer_factor_uncertainty_is_the_correlated_one():
     """21 °C in, 1 °C out, surface 15 °C, ±0.5 K air and ±1 K surface: with one thermometer
     (r = 1, GUM 5.2) U = 2 √((1/√3)² + (0.5/√3)²) / 20 = 0.0645; with two, the quadrature
     U = 2 √((1/√3)² + (0.7·0.5/√3)² + (0.3·0.5/√3)²)/20 = 0.0612 (hand arithmetic)."""
+
     def factor_u(shared):
         acc = Accuracy(0.5, 3.0, 1.0, shared_thermometer=shared)
         room = RoomInput("R", "bedroom", 21.0, 50.0, (SurfaceInput("w", 15.0),))
-        return assess.assess_room(room, OutdoorInput(1.0, 80.0), P, acc) \
-            .surfaces[0].temperature_factor_uncertainty
+        return (
+            assess.assess_room(room, OutdoorInput(1.0, 80.0), P, acc)
+            .surfaces[0]
+            .temperature_factor_uncertainty
+        )
+
     u_s, u_a = 1.0 / math.sqrt(3), 0.5 / math.sqrt(3)
     assert factor_u(True) == pytest.approx(2 * math.hypot(u_s, u_a) / 20, rel=1e-9)
     f = 0.7
     assert factor_u(False) == pytest.approx(
-        2 * math.sqrt(u_s ** 2 + (f * u_a) ** 2 + ((1 - f) * u_a) ** 2) / 20, rel=1e-9)
+        2 * math.sqrt(u_s**2 + (f * u_a) ** 2 + ((1 - f) * u_a) ** 2) / 20, rel=1e-9
+    )
     assert factor_u(True) == pytest.approx(0.0645, abs=0.0001)
 
 
 def test_check_says_which_thermometer_was_assumed(check, monkeypatch):
     """The table says whether the outdoor reading was taken as the room thermometer's."""
     monkeypatch.setenv("COLUMNS", "300")
-    args = ["--air-temp", "21", "--rh", "50", "--surface-temp", "15", "--outdoor-temp", "1",
-            "--outdoor-rh", "80"]
+    args = [
+        "--air-temp",
+        "21",
+        "--rh",
+        "50",
+        "--surface-temp",
+        "15",
+        "--outdoor-temp",
+        "1",
+        "--outdoor-rh",
+        "80",
+    ]
     _, out, _ = check(*args)
     assert "one thermometer read the room and the outdoor air" in " ".join(out.split())
     _, out, _ = check(*args, "--outdoor-thermometer", "separate")
@@ -321,6 +440,7 @@ def test_check_says_which_thermometer_was_assumed(check, monkeypatch):
 
 
 # --- 7. region-neutral facts and the timber equation's range -------------------------------
+
 
 @pytest.mark.parametrize(("temp_c", "rh_pct"), [(-5.0, 80.0), (20.0, 99.0)])
 def test_timber_equation_outside_its_range_gives_no_number(temp_c, rh_pct):

@@ -15,10 +15,24 @@ from hypothesis import strategies as st
 
 from survey import advise, assess
 from survey import thresholds as th
-from survey.advise import (ActionKind, DehumidifyWhy, Forming, OutdoorMode, SourceReason,
-                           TargetWhy, TimberPoint)
-from survey.assess import (Accuracy, Activity, MaterialReading, Observations, OutdoorInput,
-                           RoomInput, SurfaceInput)
+from survey.advise import (
+    ActionKind,
+    DehumidifyWhy,
+    Forming,
+    OutdoorMode,
+    SourceReason,
+    TargetWhy,
+    TimberPoint,
+)
+from survey.assess import (
+    Accuracy,
+    Activity,
+    MaterialReading,
+    Observations,
+    OutdoorInput,
+    RoomInput,
+    SurfaceInput,
+)
 from survey.errors import InputError
 
 P = 101_325.0
@@ -50,11 +64,11 @@ def keeps_windows_closed(advice) -> bool:
     """The advice keeps windows and doors to outside closed: a dehumidifier chosen because
     outdoor air is wetter than the room air, or its dew point is above the coldest wall (no
     drying under way in these tests)."""
-    return any(a.kind is ActionKind.DEHUMIDIFY and a.numbers.why in _CLOSED
-               for a in advice.actions)
+    return any(a.kind is ActionKind.DEHUMIDIFY and a.numbers.why in _CLOSED for a in advice.actions)
 
 
 # --- ventilation -----------------------------------------------------------------------------
+
 
 def test_ventilation_flow_formula_worked_case():
     """The airflow formula gives the handbook's worked numbers.
@@ -69,9 +83,15 @@ def test_ventilation_flow_formula_worked_case():
 
 
 def winter_bedroom(occupants=2, volume=30.0):
-    return RoomInput("Bedroom", "bedroom", 18.0, 72.0,
-                     (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
-                     volume_m3=volume, occupants=occupants)
+    return RoomInput(
+        "Bedroom",
+        "bedroom",
+        18.0,
+        72.0,
+        (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
+        volume_m3=volume,
+        occupants=occupants,
+    )
 
 
 def test_winter_case_ventilation_wins_with_coolprop_numbers():
@@ -91,7 +111,8 @@ def test_winter_case_ventilation_wins_with_coolprop_numbers():
     allowed = 80.0 * coolprop("P_w", 11.0, 100.0) / coolprop("P_w", 18.0, 100.0)
     assert target == float(int(allowed)) == 50.0
     # G: the larger of 2 × 40 g/h asleep (BS 5250 via a building-science text [R]) and the
-    # excess at 0.5 air changes an hour (common practice): ṁ = 0.5 · 30 / v_i (room volumes of room air).
+    # excess at 0.5 air changes an hour (common practice): ṁ = 0.5 · 30 / v_i (room
+    # volumes of room air).
     w_i, w_o = coolprop("W", 18.0, 72.0), coolprop("W", 3.0, 88.0)
     v_o = coolprop("Vda", 18.0, 72.0)  # the room air: air changes are room volumes
     back = 1000 * 0.5 * 30.0 / v_o * (w_i - w_o)
@@ -106,7 +127,8 @@ def test_winter_case_ventilation_wins_with_coolprop_numbers():
     assert vent.numbers.air_changes_per_h == pytest.approx(vent.numbers.airflow_m3_per_h / 30.0)
     # 1 ft = 0.3048 m exactly: cfm = m³/h / 60 / 0.3048³.
     assert vent.numbers.airflow_ft3_per_min == pytest.approx(
-        vent.numbers.airflow_m3_per_h / 60.0 / 0.3048 ** 3)
+        vent.numbers.airflow_m3_per_h / 60.0 / 0.3048**3
+    )
     # Heat to warm it: ṁ (1.006 + 1.86 W_o) ΔT kJ/kg (ASHRAE ch. 1 eqn 30), W_o from CoolProp.
     heat = vent.numbers.dry_air_flow_kg_per_h / 3600 * (1006 + 1860 * w_o) * 15.0
     assert vent.numbers.heat_to_warm_air_w == pytest.approx(heat, rel=1e-3)
@@ -137,15 +159,25 @@ def test_humid_summer_case_dehumidification_wins():
 
     A basement at 22 °C / 75 % under 28 °C / 75 % outdoor air: outdoor air is wetter, so
     the action is to dehumidify; the numbers follow the water balance (CoolProp W, v)."""
-    room = RoomInput("Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0, occupants=0)
+    room = RoomInput(
+        "Basement",
+        "basement",
+        22.0,
+        75.0,
+        (SurfaceInput("slab", 17.0),),
+        volume_m3=60.0,
+        occupants=0,
+    )
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     assert ActionKind.VENTILATE not in kinds(advice)
     dehum = action(advice, ActionKind.DEHUMIDIFY)
     assert dehum.numbers.why is DehumidifyWhy.OUTDOOR_WETTER
     target = dehum.numbers.target_rh_pct
-    w_i, w_o, w_t = coolprop("W", 22.0, 75.0), coolprop("W", 28.0, 75.0), coolprop("W", 22.0,
-                                                                                      target)
+    w_i, w_o, w_t = (
+        coolprop("W", 22.0, 75.0),
+        coolprop("W", 28.0, 75.0),
+        coolprop("W", 22.0, target),
+    )
     v_i = v_o = coolprop("Vda", 22.0, 75.0)  # air changes counted in room air
     pull_down = 60.0 / v_i * (w_i - w_t)  # kg, 1 kg taken as 1 L
     load = 24 * 0.5 * 60.0 / v_o * (w_o - w_t)  # infiltration at 0.5 ACH, no occupants
@@ -155,7 +187,8 @@ def test_humid_summer_case_dehumidification_wins():
     assert dehum.numbers.removal_l_per_day == pytest.approx(load, rel=0.02)
     assert dehum.numbers.removal_l_per_day == dehum.numbers.load_l_per_day
     assert dehum.numbers.removal_us_pints_per_day == pytest.approx(
-        dehum.numbers.removal_l_per_day / US_PINT_L)
+        dehum.numbers.removal_l_per_day / US_PINT_L
+    )
     assert dehum.numbers.suggest_desiccant is False
 
 
@@ -165,16 +198,29 @@ def test_dehumidify_cites_the_rating_points():
     The dehumidifier action cites both rating points: 80 °F = 26.7 °C (AHAM DH-1) and
     65 °F = 18.3 °C (current US test), both at 60 % RH [R, secondary]; °F → °C by hand,
     (F − 32) × 5/9."""
-    room = RoomInput("Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0, occupants=0)
+    room = RoomInput(
+        "Basement",
+        "basement",
+        22.0,
+        75.0,
+        (SurfaceInput("slab", 17.0),),
+        volume_m3=60.0,
+        occupants=0,
+    )
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     keys = action(advice, ActionKind.DEHUMIDIFY).threshold_keys
-    assert {"dehumidifier_rating_old_dry_bulb_c", "dehumidifier_rating_current_dry_bulb_c",
-            "dehumidifier_rating_rh_pct", "us_pint_l"} <= set(keys)
-    assert th.value("dehumidifier_rating_old_dry_bulb_c") == pytest.approx((80 - 32) * 5 / 9,
-                                                                           abs=0.05)
+    assert {
+        "dehumidifier_rating_old_dry_bulb_c",
+        "dehumidifier_rating_current_dry_bulb_c",
+        "dehumidifier_rating_rh_pct",
+        "us_pint_l",
+    } <= set(keys)
+    assert th.value("dehumidifier_rating_old_dry_bulb_c") == pytest.approx(
+        (80 - 32) * 5 / 9, abs=0.05
+    )
     assert th.value("dehumidifier_rating_current_dry_bulb_c") == pytest.approx(
-        (65 - 32) * 5 / 9, abs=0.05)
+        (65 - 32) * 5 / 9, abs=0.05
+    )
     assert th.value("dehumidifier_rating_rh_pct") == 60.0
 
 
@@ -212,10 +258,18 @@ def test_too_much_airflow_brings_in_a_dehumidifier():
     choices inside the BS 5250 ranges quoted by a building-science text [R, secondary]) =
     367 g/h; the airflow it asks for = G/(W_t − W_o) · v_i (room air, as the fan moves it),
     over the 100 m³/h minimum (below); the dehumidifier holds
-    24 h × (G − ṁ_5ACH (W_t − W_o)), ṁ_5ACH = 5 · 20 / v_i: the kitchen's code-minimum extract (5 ACH, ASHRAE 62.2 from
+    24 h × (G − ṁ_5ACH (W_t − W_o)), ṁ_5ACH = 5 · 20 / v_i: the kitchen's code-minimum
+    extract (5 ACH, ASHRAE 62.2 from
     memory) is asked for anyway, so the dehumidifier counts that, in room air."""
-    room = RoomInput("Kitchen", "kitchen", 20.0, 75.0, volume_m3=20.0, occupants=4,
-                     activities=(Activity("cooking", 4.0),))
+    room = RoomInput(
+        "Kitchen",
+        "kitchen",
+        20.0,
+        75.0,
+        volume_m3=20.0,
+        occupants=4,
+        activities=(Activity("cooking", 4.0),),
+    )
     _, advice = advice_for(room, OutdoorInput(8.0, 90.0))
     vent = action(advice, ActionKind.VENTILATE)
     dehum = action(advice, ActionKind.DEHUMIDIFY)
@@ -231,8 +285,9 @@ def test_too_much_airflow_brings_in_a_dehumidifier():
     assert vent.numbers.sized_airflow_m3_per_h == pytest.approx(flow, rel=0.015)
     assert vent.numbers.airflow_m3_per_h == vent.numbers.sized_airflow_m3_per_h
     assert flow > 100.0 and flow / 20.0 > 2.0
-    assert dehum.numbers.ventilation_air_changes_needed_per_h == pytest.approx(flow / 20.0,
-                                                                               rel=0.015)
+    assert dehum.numbers.ventilation_air_changes_needed_per_h == pytest.approx(
+        flow / 20.0, rel=0.015
+    )
     assert dehum.numbers.outdoor_air_changes_per_h == 5.0
     load = 24.0 * (g - 1000.0 * 5.0 * 20.0 / v_o * (w_t - w_o)) / 1000.0
     # A difference of two terms of about 8.8 and 7.9 L/day, each known to about 0.5 % (the
@@ -243,8 +298,15 @@ def test_too_much_airflow_brings_in_a_dehumidifier():
 def small_kitchen():
     """4 sitting at 50 g/h and 1.5 h of cooking at 1000 g/h a day (our choices inside the
     BS 5250 ranges quoted by a building-science text [R, secondary]): 262.5 g/h."""
-    return RoomInput("Kitchen", "kitchen", 20.0, 75.0, volume_m3=20.0, occupants=4,
-                     activities=(Activity("cooking", 1.5),))
+    return RoomInput(
+        "Kitchen",
+        "kitchen",
+        20.0,
+        75.0,
+        volume_m3=20.0,
+        occupants=4,
+        activities=(Activity("cooking", 1.5),),
+    )
 
 
 def test_kitchen_extract_is_held_to_the_code_minimum():
@@ -266,8 +328,9 @@ def test_kitchen_extract_is_held_to_the_code_minimum():
     assert vent.numbers.code_minimum_m3_per_h == pytest.approx(minimum)
     assert vent.numbers.airflow_m3_per_h == pytest.approx(minimum)
     assert vent.numbers.air_changes_per_h == pytest.approx(5.0)
-    assert {"extract_kitchen_continuous_l_per_s",
-            "extract_kitchen_continuous_ach"} <= set(vent.threshold_keys)
+    assert {"extract_kitchen_continuous_l_per_s", "extract_kitchen_continuous_ach"} <= set(
+        vent.threshold_keys
+    )
 
 
 def test_code_minimum_extract_that_carries_the_load_needs_no_dehumidifier():
@@ -287,8 +350,9 @@ def test_room_already_dry_enough_gets_no_moisture_action():
 
     At or below the target there is nothing to remove: no action, only the closing
     caution."""
-    room = RoomInput("Living", "living", 21.0, 45.0, (SurfaceInput("wall", 18.0),),
-                     volume_m3=50.0, occupants=2)
+    room = RoomInput(
+        "Living", "living", 21.0, 45.0, (SurfaceInput("wall", 18.0),), volume_m3=50.0, occupants=2
+    )
     _, advice = advice_for(room, OutdoorInput(5.0, 80.0))
     assert advice.actions == ()
     assert advice.cautions == (advise.CLOSING,)
@@ -296,8 +360,9 @@ def test_room_already_dry_enough_gets_no_moisture_action():
 
 def test_target_rh_given_is_used_and_checked():
     """A target RH given is used when the surfaces allow it; outside 25-80 % it is refused."""
-    room = RoomInput("Living", "living", 21.0, 65.0, (SurfaceInput("wall", 19.0),),
-                     volume_m3=50.0, occupants=2)
+    room = RoomInput(
+        "Living", "living", 21.0, 65.0, (SurfaceInput("wall", 19.0),), volume_m3=50.0, occupants=2
+    )
     _, advice = advice_for(room, OutdoorInput(5.0, 80.0), target=55.0)
     assert advice.target_rh_pct == 55.0
     assert advice.target.why is TargetWhy.GIVEN and advice.target.lowered_by_surface is False
@@ -307,13 +372,15 @@ def test_target_rh_given_is_used_and_checked():
 
 # --- moisture load ---------------------------------------------------------------------------
 
+
 def test_moisture_from_occupants_and_activities():
     """The moisture load adds occupants and activities averaged over the day.
 
     Occupants at their rate by use plus activities averaged over 24 h: 3 sitting at 50 g/h
     and a 15-minute shower a day at 2500 g/h (BS 5250 figures via a building-science text [R])."""
-    room = RoomInput("Bath", "bathroom", 21.0, 70.0, occupants=3,
-                     activities=(Activity("shower", 0.25),))
+    room = RoomInput(
+        "Bath", "bathroom", 21.0, 70.0, occupants=3, activities=(Activity("shower", 0.25),)
+    )
     estimate = advise.moisture_generation(assess.assess_room(room))
     assert estimate.occupants_g_per_h == 150.0
     assert estimate.activities_g_per_h == pytest.approx(2500 * 0.25 / 24)
@@ -322,30 +389,52 @@ def test_moisture_from_occupants_and_activities():
 
 
 @settings(max_examples=80, deadline=None)
-@given(st.integers(0, 6), st.integers(1, 6), st.floats(0.0, 3.0), st.floats(30.0, 70.0),
-       st.floats(-5.0, 10.0))
+@given(
+    st.integers(0, 6),
+    st.integers(1, 6),
+    st.floats(0.0, 3.0),
+    st.floats(30.0, 70.0),
+    st.floats(-5.0, 10.0),
+)
 def test_more_moisture_never_lowers_the_airflow(occupants, more, cooking_h, volume, outdoor_c):
     """Adding occupants or cooking never lowers the airflow the advice asks for."""
+
     def airflow(n, hours):
-        room = RoomInput("R", "living", 20.0, 75.0, volume_m3=volume, occupants=n,
-                         activities=(Activity("cooking", hours),))
+        room = RoomInput(
+            "R",
+            "living",
+            20.0,
+            75.0,
+            volume_m3=volume,
+            occupants=n,
+            activities=(Activity("cooking", hours),),
+        )
         _, advice = advice_for(room, OutdoorInput(outdoor_c, 80.0))
         return action(advice, ActionKind.VENTILATE).numbers.airflow_m3_per_h
+
     base = airflow(occupants, cooking_h)
     assert airflow(occupants + more, cooking_h) >= base
     assert airflow(occupants, cooking_h + 1.0) >= base
 
 
 @settings(max_examples=80, deadline=None)
-@given(st.floats(0.001, 2.0), st.floats(0.0, 2.0), st.floats(0.004, 0.015),
-       st.floats(0.001, 0.003), st.floats(0.75, 0.9))
+@given(
+    st.floats(0.001, 2.0),
+    st.floats(0.0, 2.0),
+    st.floats(0.004, 0.015),
+    st.floats(0.001, 0.003),
+    st.floats(0.75, 0.9),
+)
 def test_airflow_formula_is_monotonic_in_generation(g, extra, w_t, w_o, v):
     """ṁ_da = G/(W_t − W_o) grows with G."""
-    assert advise.ventilation_airflow(g + extra, w_t, w_o, v)[1] >= \
-        advise.ventilation_airflow(g, w_t, w_o, v)[1]
+    assert (
+        advise.ventilation_airflow(g + extra, w_t, w_o, v)[1]
+        >= advise.ventilation_airflow(g, w_t, w_o, v)[1]
+    )
 
 
 # --- surfaces and sources -----------------------------------------------------------------------
+
 
 def _magnus_hpa(t: float) -> float:
     """Alduchov & Eskridge (1996) over water: es = 6.1094 exp(17.625 t/(243.04 + t)) hPa,
@@ -367,8 +456,15 @@ def test_raise_surface_when_the_wall_needs_the_room_below_the_floor():
     be made warmer. At the 60 % target the surface must reach the temperature where
     e_s = 0.6 e(20)/0.8, 15.4 °C (Magnus), which is more than 3 K above the 12.0 °C dew point
     (ISO 8502-4 practice [R, secondary])."""
-    room = RoomInput("Bedroom", "bedroom", 20.0, 65.0, (SurfaceInput("corner", 6.0),),
-                     volume_m3=30.0, occupants=1)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        20.0,
+        65.0,
+        (SurfaceInput("corner", 6.0),),
+        volume_m3=30.0,
+        occupants=1,
+    )
     _, advice = advice_for(room, None)
     raise_ = action(advice, ActionKind.RAISE_SURFACE_TEMPERATURE)
     allowed = 80.0 * _magnus_hpa(6.0) / _magnus_hpa(20.0)
@@ -402,10 +498,16 @@ def test_raise_surface_when_the_factor_is_under_its_limit():
 
 
 def wet_skirting_hall():
-    return RoomInput("Hall", "other", 19.0, 70.0, (SurfaceInput("wall", 15.0),),
-                     volume_m3=20.0, occupants=0,
-                     materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0,
-                                                True),))
+    return RoomInput(
+        "Hall",
+        "other",
+        19.0,
+        70.0,
+        (SurfaceInput("wall", 15.0),),
+        volume_m3=20.0,
+        occupants=0,
+        materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
+    )
 
 
 def test_find_source_first_when_materials_are_wet():
@@ -439,8 +541,14 @@ def test_timber_in_the_decay_range_is_to_be_checked_for_rot():
 
 def test_find_source_when_condensation_is_seen_but_not_explained():
     """Condensation seen while every measured surface is clear points to another source."""
-    room = RoomInput("Bedroom", "bedroom", 21.0, 45.0, (SurfaceInput("wall", 19.0),),
-                     observations=Observations(condensation_seen=True))
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        21.0,
+        45.0,
+        (SurfaceInput("wall", 19.0),),
+        observations=Observations(condensation_seen=True),
+    )
     _, advice = advice_for(room, None)
     assert kinds(advice) == [ActionKind.FIND_SOURCE]
     assert advice.actions[0].numbers.reasons == (SourceReason.CONDENSATION_SEEN_SURFACES_CLEAR,)
@@ -463,6 +571,7 @@ def test_find_source_last_for_a_high_humidity_class():
 
 
 # --- cautions -----------------------------------------------------------------------------------
+
 
 def cautions(room, outdoor=None, year=None) -> dict:
     """The room's cautions by key."""
@@ -489,8 +598,8 @@ def test_mould_area_bands_are_10_and_100_square_feet():
 
     The band limits are 10 sq ft and 100 sq ft (US EPA, from memory) in m²: 1 ft =
     0.3048 m exactly, so 0.929 m² and 9.29 m² (hand arithmetic), held to two figures."""
-    assert th.value("mould_area_small_m2") == pytest.approx(10 * 0.3048 ** 2, abs=0.005)
-    assert th.value("mould_area_large_m2") == pytest.approx(100 * 0.3048 ** 2, abs=0.05)
+    assert th.value("mould_area_small_m2") == pytest.approx(10 * 0.3048**2, abs=0.005)
+    assert th.value("mould_area_large_m2") == pytest.approx(100 * 0.3048**2, abs=0.05)
 
 
 def test_contaminated_water_and_electrics():
@@ -548,24 +657,37 @@ def test_closing_caution_always_last_and_once_per_site():
 
     Every room's cautions end with the closing one (the deferral to local codes and
     licensed professionals); the site's list has each caution once, closing last."""
-    site = assess.assess_site([winter_bedroom(), RoomInput("Loft", "loft", 5.0, 80.0),
-                               RoomInput("Loft 2", "loft", 5.0, 80.0)],
-                              OutdoorInput(3.0, 88.0), P)
+    site = assess.assess_site(
+        [
+            winter_bedroom(),
+            RoomInput("Loft", "loft", 5.0, 80.0),
+            RoomInput("Loft 2", "loft", 5.0, 80.0),
+        ],
+        OutdoorInput(3.0, 88.0),
+        P,
+    )
     advice = advise.advise_site(site)
     for room in advice.rooms:
         assert room.cautions[-1] is advise.CLOSING
     assert advice.cautions[-1] is advise.CLOSING
     assert len(advice.cautions) == len(set(advice.cautions))
-    assert [c.key for c in advice.cautions] == ["mould_if_visible", "combustion_heaters",
-                                                "asbestos_lead", "combustion_air",
-                                                "confined_space", "closing"]
+    assert [c.key for c in advice.cautions] == [
+        "mould_if_visible",
+        "combustion_heaters",
+        "asbestos_lead",
+        "combustion_air",
+        "confined_space",
+        "closing",
+    ]
 
 
 def test_every_key_in_the_advice_exists():
     """Actions and cautions only cite keys the thresholds table has."""
-    site = assess.assess_site([winter_bedroom(), RoomInput("Cellar", "basement", 8.0, 90.0,
-                                                           volume_m3=40.0, occupants=0)],
-                              OutdoorInput(3.0, 88.0), P)
+    site = assess.assess_site(
+        [winter_bedroom(), RoomInput("Cellar", "basement", 8.0, 90.0, volume_m3=40.0, occupants=0)],
+        OutdoorInput(3.0, 88.0),
+        P,
+    )
     for room in advise.advise_site(site).rooms:
         assert room.threshold_keys
         for key in room.threshold_keys:
@@ -577,11 +699,14 @@ def test_room_of_unknown_use_gets_the_general_factor_limit():
 
     A room whose use is not said is judged against the general fRsi limit 0.70 (IEA
     Annex 14 [M]); an office against 0.75 (BRE IP1/06 [M])."""
+
     def raised(use):
-        room = RoomInput("Study", use, 18.0, 72.0, (SurfaceInput("wall", 11.0),),
-                         volume_m3=30.0, occupants=2)
+        room = RoomInput(
+            "Study", use, 18.0, 72.0, (SurfaceInput("wall", 11.0),), volume_m3=30.0, occupants=2
+        )
         _, advice = advice_for(room, OutdoorInput(3.0, 88.0))
         return action(advice, ActionKind.RAISE_SURFACE_TEMPERATURE).numbers
+
     other = raised("other")
     assert other.use == "other" and other.temperature_factor_limit == 0.70
     office = raised("office")
@@ -589,6 +714,7 @@ def test_room_of_unknown_use_gets_the_general_factor_limit():
 
 
 # --- ventilation against the room's present humidity ratio --------------------------------------
+
 
 def coolprop_rh_of_w(temp_c: float, w: float) -> float:
     """RH (%) of air at ``temp_c`` holding ``w`` kg/kg (CoolProp)."""
@@ -601,9 +727,19 @@ def coolprop_rh_for_w(temp_c: float, w: float) -> float:
 
 
 def clamped_bedroom():
-    return RoomInput("Bedroom", "bedroom", 16.0, 75.0,
-                     (SurfaceInput("Surface 1", 9.5), SurfaceInput("Surface 2", 12.0),
-                      SurfaceInput("Surface 3", 5.0)), volume_m3=30.0, occupants=2)
+    return RoomInput(
+        "Bedroom",
+        "bedroom",
+        16.0,
+        75.0,
+        (
+            SurfaceInput("Surface 1", 9.5),
+            SurfaceInput("Surface 2", 12.0),
+            SurfaceInput("Surface 3", 5.0),
+        ),
+        volume_m3=30.0,
+        occupants=2,
+    )
 
 
 def test_clamped_winter_target_still_ventilates():
@@ -617,15 +753,15 @@ def test_clamped_winter_target_still_ventilates():
     CoolProp's W and v by the moisture balance, the room air's v for the fan's flow."""
     _, advice = advice_for(clamped_bedroom(), OutdoorInput(2.0, 90.0))
     assert advice.target_rh_pct == 40.0 and advice.target.at_practical_floor is True
-    w_i, w_o, w_t = (coolprop("W", 16.0, 75.0), coolprop("W", 2.0, 90.0),
-                     coolprop("W", 16.0, 40.0))
+    w_i, w_o, w_t = (coolprop("W", 16.0, 75.0), coolprop("W", 2.0, 90.0), coolprop("W", 16.0, 40.0))
     assert w_i - w_o > 0.004 and 0.0 < w_t - w_o < 0.001
     assert not keeps_windows_closed(advice)
     vent = action(advice, ActionKind.VENTILATE)
     assert vent.numbers.target_reachable_by_ventilation is False
     assert vent.numbers.outdoor_mode is OutdoorMode.DRIER_NOT_ENOUGH
     assert vent.numbers.outdoor_air_rh_at_room_temp_pct == pytest.approx(
-        coolprop_rh_of_w(16.0, w_o), abs=0.5)
+        coolprop_rh_of_w(16.0, w_o), abs=0.5
+    )
     v_o = coolprop("Vda", 16.0, 75.0)  # room volumes of room air
     g = max(80.0, 1000 * 0.5 * 30.0 / v_o * (w_i - w_o))  # 2 asleep at 40 g/h (our choice)
     assert advice.moisture.used_g_per_h == pytest.approx(g, rel=0.015)
@@ -635,7 +771,8 @@ def test_clamped_winter_target_still_ventilates():
     assert vent.numbers.dry_air_flow_kg_per_h == pytest.approx(dry_air, rel=0.005)
     assert vent.numbers.saturates is False
     assert vent.numbers.rh_at_practical_ventilation_pct == pytest.approx(
-        coolprop_rh_of_w(16.0, w_o + g / 1000.0 / dry_air), abs=0.5)
+        coolprop_rh_of_w(16.0, w_o + g / 1000.0 / dry_air), abs=0.5
+    )
 
 
 def test_a_wall_no_practical_rh_can_save_is_warmed_first():
@@ -677,7 +814,7 @@ def test_dehumidifier_beside_partial_ventilation_is_sized_at_2_ach():
     ṁ_2ACH = 2 · 40 / v_i, room air (CoolProp W and v)."""
     w_t = coolprop("W", 20.0, 60.0)
     w_o = w_t - 0.85 / 1000.0
-    finding, advice = room_75(12.0, w_o)
+    _finding, advice = room_75(12.0, w_o)
     assert kinds(advice)[:2] == [ActionKind.VENTILATE, ActionKind.DEHUMIDIFY]
     dehum = action(advice, ActionKind.DEHUMIDIFY)
     assert dehum.numbers.why is DehumidifyWhy.VENTILATION_CANNOT_HOLD
@@ -703,7 +840,8 @@ def test_dehumidifier_counts_the_ventilation_the_ventilate_action_advises():
     dehum = action(advice, ActionKind.DEHUMIDIFY).numbers
     assert dehum.outdoor_air_changes_per_h == vent.air_changes_per_h == 2.0
     carried = vent.dry_air_flow_kg_per_h * (  # kg/h × g/kg = g/h
-        dehum.target_humidity_ratio_g_per_kg - vent.outdoor_humidity_ratio_g_per_kg)
+        dehum.target_humidity_ratio_g_per_kg - vent.outdoor_humidity_ratio_g_per_kg
+    )
     assert -dehum.outdoor_gain_g_per_h == pytest.approx(carried, rel=1e-6)
 
 
@@ -714,8 +852,9 @@ def test_load_beyond_what_the_air_can_carry_is_a_finding():
     0 °C: at the practical 2 ACH (common practice) the air would have to hold
     W_o + G/ṁ_da, about 1000 g/kg, against 3.8 g/kg at saturation (CoolProp): the advice
     says the room would saturate (100 % RH) instead of failing."""
-    room = RoomInput("Bedroom", "bedroom", 0.0, 41.0, (SurfaceInput("wall", -8.0),),
-                     volume_m3=1.0, occupants=65)
+    room = RoomInput(
+        "Bedroom", "bedroom", 0.0, 41.0, (SurfaceInput("wall", -8.0),), volume_m3=1.0, occupants=65
+    )
     _, advice = advice_for(room, OutdoorInput(0.0, 14.0))
     vent = action(advice, ActionKind.VENTILATE).numbers
     w_o = coolprop("W", 0.0, 14.0)
@@ -726,10 +865,13 @@ def test_load_beyond_what_the_air_can_carry_is_a_finding():
     assert vent.saturates is True and vent.rh_at_practical_ventilation_pct == 100.0
 
 
-@pytest.mark.parametrize(("offset_g_per_kg", "reachable", "mode"), [
-    (-1.15, True, OutdoorMode.HOLDS_TARGET),
-    (-0.85, False, OutdoorMode.DRIER_NOT_ENOUGH),
-])
+@pytest.mark.parametrize(
+    ("offset_g_per_kg", "reachable", "mode"),
+    [
+        (-1.15, True, OutdoorMode.HOLDS_TARGET),
+        (-0.85, False, OutdoorMode.DRIER_NOT_ENOUGH),
+    ],
+)
 def test_margin_boundary_against_the_target(offset_g_per_kg, reachable, mode):
     """Ventilation holds the target only past the 1 g/kg margin below it.
 
@@ -747,16 +889,18 @@ def test_margin_boundary_against_the_target(offset_g_per_kg, reachable, mode):
     assert not keeps_windows_closed(advice)
 
 
-@pytest.mark.parametrize(("outdoor_c", "offset_g_per_kg", "ventilate", "closed", "why"), [
-    # drier than the room now by more than the margin: ventilate as far as it helps
-    (18.0, -1.15, True, False, DehumidifyWhy.VENTILATION_CANNOT_HOLD),
-    # drier, but within the margin: about as wet, a dehumidifier alone
-    (18.0, -0.85, False, False, DehumidifyWhy.OUTDOOR_ABOUT_SAME),
-    # wetter than the room: keep closed
-    (22.0, +0.5, False, True, DehumidifyWhy.OUTDOOR_WETTER),
-])
-def test_margin_boundary_against_the_room_now(outdoor_c, offset_g_per_kg, ventilate, closed,
-                                              why):
+@pytest.mark.parametrize(
+    ("outdoor_c", "offset_g_per_kg", "ventilate", "closed", "why"),
+    [
+        # drier than the room now by more than the margin: ventilate as far as it helps
+        (18.0, -1.15, True, False, DehumidifyWhy.VENTILATION_CANNOT_HOLD),
+        # drier, but within the margin: about as wet, a dehumidifier alone
+        (18.0, -0.85, False, False, DehumidifyWhy.OUTDOOR_ABOUT_SAME),
+        # wetter than the room: keep closed
+        (22.0, +0.5, False, True, DehumidifyWhy.OUTDOOR_WETTER),
+    ],
+)
+def test_margin_boundary_against_the_room_now(outdoor_c, offset_g_per_kg, ventilate, closed, why):
     """Whether to ventilate is judged against the room air now, with the margin.
 
     Whether to ventilate is judged against the room's present humidity ratio with the
@@ -780,8 +924,9 @@ def test_outdoor_dew_point_above_the_coldest_wall_keeps_windows_closed():
     w_i, w_o = coolprop("W", 15.0, 75.0), coolprop("W", 15.0, 60.0)
     dew_o = coolprop("D", 15.0, 60.0) - 273.15
     assert w_i - w_o > 0.001 and dew_o == pytest.approx(7.3, abs=0.05)
-    room = RoomInput("R", "bedroom", 15.0, 75.0, (SurfaceInput("wall", 5.0),), volume_m3=30.0,
-                     occupants=1)
+    room = RoomInput(
+        "R", "bedroom", 15.0, 75.0, (SurfaceInput("wall", 5.0),), volume_m3=30.0, occupants=1
+    )
     _, advice = advice_for(room, OutdoorInput(15.0, 60.0))
     assert ActionKind.VENTILATE not in kinds(advice)
     dehum = action(advice, ActionKind.DEHUMIDIFY)
@@ -789,8 +934,13 @@ def test_outdoor_dew_point_above_the_coldest_wall_keeps_windows_closed():
 
 
 @settings(max_examples=60, deadline=None)
-@given(st.floats(10.0, 28.0), st.floats(55.0, 95.0), st.floats(-10.0, 32.0),
-       st.floats(20.0, 100.0), st.floats(5.0, 16.0))
+@given(
+    st.floats(10.0, 28.0),
+    st.floats(55.0, 95.0),
+    st.floats(-10.0, 32.0),
+    st.floats(20.0, 100.0),
+    st.floats(5.0, 16.0),
+)
 def test_never_closed_while_outdoor_air_is_drier(air_c, rh, outdoor_c, outdoor_rh, wall_c):
     """Windows are never kept closed while outdoor air is drier and can dry the wall.
 
@@ -800,8 +950,9 @@ def test_never_closed_while_outdoor_air_is_drier(air_c, rh, outdoor_c, outdoor_r
     margin (1 g/kg, plus 0.1 for CoolProp's difference) then always brings a ventilate action
     when the room is above its target."""
     wall = min(wall_c, air_c)
-    room = RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("wall", wall),),
-                     volume_m3=30.0, occupants=1)
+    room = RoomInput(
+        "R", "bedroom", air_c, rh, (SurfaceInput("wall", wall),), volume_m3=30.0, occupants=1
+    )
     _, advice = advice_for(room, OutdoorInput(outdoor_c, outdoor_rh))
     w_i, w_o = coolprop("W", air_c, rh), coolprop("W", outdoor_c, outdoor_rh)
     if coolprop("D", outdoor_c, outdoor_rh) - 273.15 > wall - 0.1:
@@ -814,6 +965,7 @@ def test_never_closed_while_outdoor_air_is_drier(air_c, rh, outdoor_c, outdoor_r
 
 # --- dehumidifier sizing -------------------------------------------------------------------------
 
+
 def test_unknown_load_gives_no_size():
     """An unknown moisture load gives no dehumidifier size and asks for occupants.
 
@@ -821,8 +973,9 @@ def test_unknown_load_gives_no_size():
     so the load cannot be back-calculated; no per-day size is given (None, not 0), the one-off
     pull-down stays in litres, and only the occupants are asked for (the room volume was
     given)."""
-    room = RoomInput("Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0)
+    room = RoomInput(
+        "Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
+    )
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     assert coolprop("W", 28.0, 75.0) > coolprop("W", 22.0, 75.0)
     dehum = action(advice, ActionKind.DEHUMIDIFY)
@@ -840,8 +993,9 @@ def test_unknown_load_still_gives_the_outdoor_air_leaking_in():
 
     What is known is still given: outdoor air leaking in at 0.5 ACH (common practice),
     24 h × 0.5 · 60 / v_i × (W_o − W_t), room air's v, with CoolProp's W and v."""
-    room = RoomInput("Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0)
+    room = RoomInput(
+        "Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
+    )
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     dehum = action(advice, ActionKind.DEHUMIDIFY)
     w_o, w_t = coolprop("W", 28.0, 75.0), coolprop("W", 22.0, dehum.numbers.target_rh_pct)
@@ -850,10 +1004,13 @@ def test_unknown_load_still_gives_the_outdoor_air_leaking_in():
     assert dehum.numbers.outdoor_air_l_per_day == pytest.approx(leak, rel=0.02)
 
 
-@pytest.mark.parametrize(("volume", "missing"), [
-    (None, ("occupants", "outdoor_air", "room_volume")),
-    (30.0, ("occupants", "outdoor_air")),
-])
+@pytest.mark.parametrize(
+    ("volume", "missing"),
+    [
+        (None, ("occupants", "outdoor_air", "room_volume")),
+        (30.0, ("occupants", "outdoor_air")),
+    ],
+)
 def test_missing_volume_is_asked_for_only_when_missing(volume, missing):
     """Only the inputs not given are listed as missing for the load.
 
@@ -867,6 +1024,7 @@ def test_missing_volume_is_asked_for_only_when_missing(volume, missing):
 
 # --- glazing, frames, pipes ----------------------------------------------------------------------
 
+
 def test_single_glazing_does_not_pull_the_target_down():
     """A cold pane gets a window remedy and does not lower the room target.
 
@@ -874,9 +1032,15 @@ def test_single_glazing_does_not_pull_the_target_down():
     reason to hold the room drier: the target is the one the walls set, and the pane gets a
     window remedy with the room RH at which it stays dry, 100 × p_ws(4)/p_ws(18) (CoolProp)."""
     walls = winter_bedroom()
-    with_pane = RoomInput(walls.name, walls.use, walls.air_temp_c, walls.rh_pct,
-                          walls.surfaces + (SurfaceInput("bay window", 4.0, "glazing"),),
-                          volume_m3=30.0, occupants=2)
+    with_pane = RoomInput(
+        walls.name,
+        walls.use,
+        walls.air_temp_c,
+        walls.rh_pct,
+        (*walls.surfaces, SurfaceInput("bay window", 4.0, "glazing")),
+        volume_m3=30.0,
+        occupants=2,
+    )
     out = OutdoorInput(3.0, 88.0)
     _, plain = advice_for(walls, out)
     _, advice = advice_for(with_pane, out)
@@ -889,8 +1053,7 @@ def test_single_glazing_does_not_pull_the_target_down():
     dew = coolprop("D", 18.0, 72.0) - 273.15
     assert glazing.numbers.condensation_point_c == pytest.approx(dew, abs=0.05)
     # It is not told to raise the glass by a wall remedy.
-    raised = [a.surface for a in advice.actions
-              if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
+    raised = [a.surface for a in advice.actions if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
     assert raised == ["north wall"]
 
 
@@ -900,8 +1063,15 @@ def test_cold_pipe_is_insulated():
     A sweating cold pipe (9 °C, below the 12.9 °C dew point, CoolProp) gets "insulate the
     pipe", water (not frost) forming now, and no wall remedy; old lagging brings the
     old-materials caution."""
-    room = RoomInput("Bedroom", "bedroom", 18.0, 72.0, (SurfaceInput("cold main", 9.0, "pipe"),),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        18.0,
+        72.0,
+        (SurfaceInput("cold main", 9.0, "pipe"),),
+        volume_m3=30.0,
+        occupants=2,
+    )
     _, advice = advice_for(room, OutdoorInput(3.0, 88.0))
     pipe = action(advice, ActionKind.INSULATE_PIPE)
     assert (pipe.surface, pipe.numbers.element) == ("cold main", "pipe")
@@ -938,13 +1108,20 @@ def test_frost_on_glazing_is_called_frost():
 
 def test_two_raised_surfaces_name_their_surfaces():
     """Each raise-the-surface action names its surface, coldest first."""
-    room = RoomInput("Bedroom", "bedroom", 16.0, 75.0,
-                     (SurfaceInput("north wall", 9.5, "external_wall"),
-                      SurfaceInput("corner", 5.0, "external_wall")),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        16.0,
+        75.0,
+        (
+            SurfaceInput("north wall", 9.5, "external_wall"),
+            SurfaceInput("corner", 5.0, "external_wall"),
+        ),
+        volume_m3=30.0,
+        occupants=2,
+    )
     _, advice = advice_for(room, OutdoorInput(2.0, 90.0))
-    surfaces = [a.surface for a in advice.actions
-                if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
+    surfaces = [a.surface for a in advice.actions if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
     assert surfaces == ["corner", "north wall"]
 
 
@@ -954,8 +1131,9 @@ def test_internal_wall_gets_its_own_remedy():
     An internal wall too cold for the 40 % floor (common practice) is raised as a
     partition: the action carries its element, and no temperature factor (the factor is for
     the envelope, ISO 13788 [M])."""
-    room = RoomInput("Bedroom", "bedroom", 20.0, 65.0,
-                     (SurfaceInput("party wall", 6.0, "internal_wall"),))
+    room = RoomInput(
+        "Bedroom", "bedroom", 20.0, 65.0, (SurfaceInput("party wall", 6.0, "internal_wall"),)
+    )
     finding, advice = advice_for(room, OutdoorInput(0.0, 80.0))
     assert finding.surfaces[0].temperature_factor_state is assess.FactorState.NOT_FOR_ELEMENT
     raised = action(advice, ActionKind.RAISE_SURFACE_TEMPERATURE)
@@ -966,6 +1144,7 @@ def test_internal_wall_gets_its_own_remedy():
 
 
 # --- visible mould, drying, humidity class -------------------------------------------------------
+
 
 def test_visible_mould_without_an_area():
     """Mould seen but not measured gets its caution with no area, and old materials.
@@ -979,12 +1158,21 @@ def test_visible_mould_without_an_area():
 
 
 def drying_room(drying: bool):
-    materials = (MaterialReading("party wall", "plasterboard", 46.0, "relative", 22.0),
-                 MaterialReading("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True))
-    return RoomInput("Family room", "basement", 20.0, 55.0,
-                     (SurfaceInput("screed", 17.0, "floor"),), volume_m3=50.0, occupants=0,
-                     materials=materials,
-                     observations=Observations(water_category=1, drying_in_progress=drying))
+    materials = (
+        MaterialReading("party wall", "plasterboard", 46.0, "relative", 22.0),
+        MaterialReading("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
+    )
+    return RoomInput(
+        "Family room",
+        "basement",
+        20.0,
+        55.0,
+        (SurfaceInput("screed", 17.0, "floor"),),
+        volume_m3=50.0,
+        occupants=0,
+        materials=materials,
+        observations=Observations(water_category=1, drying_in_progress=drying),
+    )
 
 
 def test_drying_under_way_says_keep_drying():
@@ -1066,8 +1254,9 @@ def test_closed_up_basement_without_occupants_is_sized_from_air_leakage():
     A closed-up basement with no occupant count: 0 occupants is assumed (and marked), and
     the size is the outdoor air leaking in at the assumed 0.5 ACH (common practice, no
     source), worked out with CoolProp humidity ratios and dry-air volume."""
-    room = RoomInput("Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0)
+    room = RoomInput(
+        "Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
+    )
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     assert advice.moisture.occupants_assumed_zero is True
     assert advice.moisture.occupants_g_per_h == 0.0
@@ -1085,8 +1274,9 @@ def test_bathroom_peak_gets_an_extract_and_a_reread_not_a_source_hunt():
     Bathroom at 20 °C / 90 % with 0 °C / 80 % outdoors: above class 5 by vapour-pressure
     excess (EN ISO 13788 limits, from memory), but a bathroom peak: no find-the-source, a
     wet-room re-reading 30-60 min after use (common practice)."""
-    room = RoomInput("Bathroom", "bathroom", 20.0, 90.0, (SurfaceInput("wall", 16.0),),
-                     volume_m3=10.0)
+    room = RoomInput(
+        "Bathroom", "bathroom", 20.0, 90.0, (SurfaceInput("wall", 16.0),), volume_m3=10.0
+    )
     finding, advice = advice_for(room, OutdoorInput(0.0, 80.0))
     assert finding.humidity_class >= 5
     assert ActionKind.FIND_SOURCE not in kinds(advice)
@@ -1126,10 +1316,14 @@ def test_ground_contact_floor_has_no_temperature_factor():
     Basement floor, 18 °C room, 2 °C outdoors: the ground sets its temperature, so the
     factor is not judged against outdoor air, and no surface remedy is given (10 °C allows
     80 × p_ws(10)/p_ws(18) = 47.6 % room RH, CoolProp, above the 40 % floor)."""
-    room = RoomInput("Basement", "basement", 18.0, 65.0, (SurfaceInput("slab", 10.0, "floor"),
-                                                          SurfaceInput("wall", 10.0,
-                                                                       "external_wall")),
-                     volume_m3=40.0)
+    room = RoomInput(
+        "Basement",
+        "basement",
+        18.0,
+        65.0,
+        (SurfaceInput("slab", 10.0, "floor"), SurfaceInput("wall", 10.0, "external_wall")),
+        volume_m3=40.0,
+    )
     finding, advice = advice_for(room, OutdoorInput(2.0, 80.0))
     for s in finding.surfaces:
         assert s.temperature_factor is None
@@ -1145,14 +1339,16 @@ def test_too_cold_ground_contact_floor_is_raised_without_a_factor():
     A 6 °C basement slab at 20 °C allows only 80 × e(6)/e(20) = 32.0 % room RH (Magnus,
     as above), under the 40 % floor (common practice): it is raised as a ground-contact
     surface, with no temperature factor."""
-    room = RoomInput("Basement", "basement", 20.0, 65.0, (SurfaceInput("slab", 6.0, "floor"),),
-                     volume_m3=40.0)
+    room = RoomInput(
+        "Basement", "basement", 20.0, 65.0, (SurfaceInput("slab", 6.0, "floor"),), volume_m3=40.0
+    )
     _, advice = advice_for(room, OutdoorInput(2.0, 80.0))
     raised = action(advice, ActionKind.RAISE_SURFACE_TEMPERATURE).numbers
     assert raised.ground_contact is True and raised.too_cold is True
     assert raised.factor_under is False and raised.temperature_factor is None
-    assert raised.max_room_rh_pct == pytest.approx(80.0 * _magnus_hpa(6.0) / _magnus_hpa(20.0),
-                                                   rel=0.005)
+    assert raised.max_room_rh_pct == pytest.approx(
+        80.0 * _magnus_hpa(6.0) / _magnus_hpa(20.0), rel=0.005
+    )
 
 
 def test_occupants_explaining_the_excess_mean_under_ventilation_not_a_source():
@@ -1163,8 +1359,13 @@ def test_occupants_explaining_the_excess_mean_under_ventilation_not_a_source():
     about 98 g/h (CoolProp), so occupants explain about 82 %, over the 70 % line (our
     choice): no find-the-source; the moisture action carries the occupants' share."""
     finding, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
-    back = 1000 * 0.5 * 30.0 / coolprop("Vda", 18.0, 72.0) * (
-        coolprop("W", 18.0, 72.0) - coolprop("W", 3.0, 88.0))
+    back = (
+        1000
+        * 0.5
+        * 30.0
+        / coolprop("Vda", 18.0, 72.0)
+        * (coolprop("W", 18.0, 72.0) - coolprop("W", 3.0, 88.0))
+    )
     assert 80.0 / back >= 0.7
     assert finding.humidity_class == 4
     assert ActionKind.FIND_SOURCE not in kinds(advice)
@@ -1176,12 +1377,18 @@ def test_occupants_explaining_the_excess_mean_under_ventilation_not_a_source():
 def wood_handbook_emc(t: float, h: float) -> float:
     """Wood Handbook eqn 4-5 EMC, % (written out from check-values), T in °C, h as a
     fraction."""
-    w = 349 + 1.29 * t + 0.0135 * t ** 2
-    k = 0.805 + 0.000736 * t - 0.00000273 * t ** 2
-    k1 = 6.27 - 0.00938 * t - 0.000303 * t ** 2
-    k2 = 1.91 + 0.0407 * t - 0.000293 * t ** 2
-    return 1800 / w * (k * h / (1 - k * h) + (k1 * k * h + 2 * k1 * k2 * k ** 2 * h ** 2)
-                       / (1 + k1 * k * h + k1 * k2 * k ** 2 * h ** 2))
+    w = 349 + 1.29 * t + 0.0135 * t**2
+    k = 0.805 + 0.000736 * t - 0.00000273 * t**2
+    k1 = 6.27 - 0.00938 * t - 0.000303 * t**2
+    k2 = 1.91 + 0.0407 * t - 0.000293 * t**2
+    return (
+        1800
+        / w
+        * (
+            k * h / (1 - k * h)
+            + (k1 * k * h + 2 * k1 * k2 * k**2 * h**2) / (1 + k1 * k * h + k1 * k2 * k**2 * h**2)
+        )
+    )
 
 
 def loft(rafter_c: float):
@@ -1194,8 +1401,11 @@ def test_loft_gets_moisture_from_below_advice_not_a_dehumidifier():
     Loft 3 °C / 92 %: no ventilate, dehumidify or wall action; the ventilated-space action,
     with a dehumidifier only if sealed (common practice, no source)."""
     _, advice = advice_for(loft(2.5), OutdoorInput(2.0, 90.0))
-    assert not {ActionKind.VENTILATE, ActionKind.DEHUMIDIFY,
-                ActionKind.RAISE_SURFACE_TEMPERATURE} & set(kinds(advice))
+    assert not {
+        ActionKind.VENTILATE,
+        ActionKind.DEHUMIDIFY,
+        ActionKind.RAISE_SURFACE_TEMPERATURE,
+    } & set(kinds(advice))
     act = action(advice, ActionKind.DRY_VENTILATED_SPACE)
     assert act.numbers.loft is True and act.numbers.dehumidify_only_if_sealed is True
     assert act.numbers.room_rh_pct == 92.0

@@ -9,8 +9,17 @@ from CoolProp.HumidAirProp import HAPropsSI
 
 from survey import assess, psychro
 from survey import thresholds as th
-from survey.assess import (Accuracy, CondensationState, FactorState, MaterialReading,
-                           MouldState, OutdoorInput, RoomInput, SurfaceInput, TimberState)
+from survey.assess import (
+    Accuracy,
+    CondensationState,
+    FactorState,
+    MaterialReading,
+    MouldState,
+    OutdoorInput,
+    RoomInput,
+    SurfaceInput,
+    TimberState,
+)
 from survey.errors import InputError
 
 P = 101_325.0
@@ -29,21 +38,31 @@ def one_surface(air_c, rh, ts, use="other", outdoor=None, accuracy=EXACT):
 
 # --- the light state agrees with psychro ------------------------------------------------------
 
-@pytest.mark.parametrize(("air_c", "rh"), [
-    (21.0, 65.0), (18.0, 72.0), (35.0, 90.0), (5.0, 40.0), (0.5, 95.0),
-    (-5.0, 80.0), (-20.0, 60.0), (-20.0, 90.0),  # frost points; -20/90 is supersaturated over ice
-    (-45.0, 30.0),
-])
+
+@pytest.mark.parametrize(
+    ("air_c", "rh"),
+    [
+        (21.0, 65.0),
+        (18.0, 72.0),
+        (35.0, 90.0),
+        (5.0, 40.0),
+        (0.5, 95.0),
+        (-5.0, 80.0),
+        (-20.0, 60.0),
+        (-20.0, 90.0),  # frost points; -20/90 is supersaturated over ice
+        (-45.0, 30.0),
+    ],
+)
 def test_air_state_matches_psychro(air_c, rh):
     """The assessment's light state equals psychro.state_from_rh on both sides of 0 °C."""
     light = assess.air_state(air_c, rh, P)
     full = psychro.state_from_rh(air_c, rh, P)
     assert light.condensation_point_c == pytest.approx(full.condensation_point_c, abs=1e-9)
     assert light.vapour_pressure_pa == pytest.approx(full.vapour_pressure_pa, rel=1e-12)
-    assert light.humidity_ratio_kg_per_kg == pytest.approx(full.humidity_ratio_kg_per_kg,
-                                                           rel=1e-12)
-    assert light.specific_volume_m3_per_kg == pytest.approx(full.specific_volume_m3_per_kg,
-                                                            rel=1e-12)
+    assert light.humidity_ratio_kg_per_kg == pytest.approx(full.humidity_ratio_kg_per_kg, rel=1e-12)
+    assert light.specific_volume_m3_per_kg == pytest.approx(
+        full.specific_volume_m3_per_kg, rel=1e-12
+    )
 
 
 @pytest.mark.parametrize("temp_c", [-40.0, -5.0, -0.5, 0.0, 0.5, 12.0, 25.0, 60.0])
@@ -53,25 +72,28 @@ def test_saturation_slope_matches_a_numerical_difference(temp_c):
     h = 1e-4
     side = -1.0 if temp_c <= psychro.TRIPLE_POINT_C else 1.0
     t0 = temp_c + side * 2 * h  # stay on one phase
-    numeric = (math.log(psychro.sat_vapour_pressure_pa(t0 + h))
-               - math.log(psychro.sat_vapour_pressure_pa(t0 - h))) / (2 * h)
+    numeric = (
+        math.log(psychro.sat_vapour_pressure_pa(t0 + h))
+        - math.log(psychro.sat_vapour_pressure_pa(t0 - h))
+    ) / (2 * h)
     assert psychro.dln_sat_vapour_pressure_per_k(t0) == pytest.approx(numeric, rel=1e-5)
     if temp_c > psychro.TRIPLE_POINT_C:  # over water both slopes are eqn 6's
-        assert psychro.dln_sat_vapour_pressure_water_per_k(t0) == pytest.approx(numeric,
-                                                                                rel=1e-5)
+        assert psychro.dln_sat_vapour_pressure_water_per_k(t0) == pytest.approx(numeric, rel=1e-5)
 
 
 @pytest.mark.parametrize("temp_c", [-45.0, -20.0, -5.0, -0.5])
 def test_supercooled_water_slope_matches_a_numerical_difference(temp_c):
     """The slope of the supercooled-water continuation equals its central difference."""
     h = 1e-4
-    numeric = (math.log(psychro.sat_vapour_pressure_water_pa(temp_c + h))
-               - math.log(psychro.sat_vapour_pressure_water_pa(temp_c - h))) / (2 * h)
-    assert psychro.dln_sat_vapour_pressure_water_per_k(temp_c) == pytest.approx(numeric,
-                                                                                rel=1e-5)
+    numeric = (
+        math.log(psychro.sat_vapour_pressure_water_pa(temp_c + h))
+        - math.log(psychro.sat_vapour_pressure_water_pa(temp_c - h))
+    ) / (2 * h)
+    assert psychro.dln_sat_vapour_pressure_water_per_k(temp_c) == pytest.approx(numeric, rel=1e-5)
 
 
 # --- surface RH: worked cases -----------------------------------------------------------------
+
 
 def test_surface_rh_worked_case_from_ashrae_table_3():
     """25 °C / 50 % air on a 5 °C surface: RH_s = RH · p_ws(25)/p_ws(5) = 50 × 3169.7 / 872.6
@@ -87,8 +109,10 @@ def test_surface_rh_at_the_magnus_dew_point_is_100():
     """20 °C / 60 % has its dew point at 12.0 °C by the Alduchov-Eskridge Magnus formula
     (es = 6.1094 exp(17.625 t/(243.04 + t)) hPa, deviation < 0.38 % [R, secondary]), so a
     12.0 °C surface sits at 100 % surface RH, within 0.8 %."""
+
     def es(t):
         return 6.1094 * math.exp(17.625 * t / (243.04 + t))
+
     magnus = 60.0 * es(20.0) / es(12.0)
     assert magnus == pytest.approx(100.0, abs=0.01)
     surface = one_surface(20.0, 60.0, 12.0).surfaces[0]
@@ -104,6 +128,7 @@ def test_surface_rh_against_coolprop():
 
 
 # --- the limits -------------------------------------------------------------------------------
+
 
 def test_mould_limit_is_80_percent_surface_rh():
     """BS 5250:2002 Annex D / EN ISO 13788: 80 % surface RH is the limit [R]; exactly at it is
@@ -125,6 +150,7 @@ def test_three_kelvin_margin_rule():
 
     def state(ts):
         return one_surface(20.0, 50.0, ts).surfaces[0]
+
     assert state(dew + 3.05).condensation is CondensationState.CLEAR
     assert state(dew + 2.95).condensation is CondensationState.NEAR
     assert state(dew + 0.05).condensation is CondensationState.NEAR
@@ -197,6 +223,7 @@ def test_no_outdoor_reading_means_no_factor_and_no_class():
 
 # --- room findings ------------------------------------------------------------------------------
 
+
 def test_humidity_class_of_a_worked_case():
     """20 °C / 60 % inside, 0 °C / 80 % outside: Δp = 914 Pa (CoolProp 918 Pa, which includes
     the enhancement factor; within 1 %), class 4 of ISO 13788 (810 < Δp <= 1080 at θe <= 0 °C,
@@ -213,9 +240,14 @@ def test_humidity_class_band_can_span_two_classes():
     # 0 °C outside at 80 %: the class 3/4 limit of 810 Pa is reached at about 54.5 % inside.
     finding = assess.assess_room(
         RoomInput("R", "bedroom", 20.0, 54.5, (SurfaceInput("S", 15.0),)),
-        OutdoorInput(0.0, 80.0), P, Accuracy())
-    assert (abs(finding.vapour_pressure_excess_pa - 810.0)
-            < finding.vapour_pressure_excess_uncertainty_pa)
+        OutdoorInput(0.0, 80.0),
+        P,
+        Accuracy(),
+    )
+    assert (
+        abs(finding.vapour_pressure_excess_pa - 810.0)
+        < finding.vapour_pressure_excess_uncertainty_pa
+    )
     assert finding.humidity_class_possible == (3, 4)
 
 
@@ -224,17 +256,25 @@ def test_highest_room_rh_for_the_coldest_surface():
     (CoolProp saturation pressures); 3 K above the dew point up to 100 × p_ws(9)/p_ws(20).
     Both equal psychro.max_room_rh_pct, and the room at that RH puts the surface at 80 %."""
     finding = assess.assess_room(
-        RoomInput("R", "bedroom", 20.0, 65.0, (SurfaceInput("warm", 16.0),
-                                               SurfaceInput("cold", 12.0))), None, P, EXACT)
+        RoomInput(
+            "R", "bedroom", 20.0, 65.0, (SurfaceInput("warm", 16.0), SurfaceInput("cold", 12.0))
+        ),
+        None,
+        P,
+        EXACT,
+    )
     assert finding.coldest.label == "cold"
     expected = 80.0 * coolprop_pw(12.0, 100.0) / coolprop_pw(20.0, 100.0)
     assert finding.max_room_rh_pct_mould == pytest.approx(expected, rel=0.003)
     assert finding.max_room_rh_pct_mould == pytest.approx(
-        psychro.max_room_rh_pct(20.0, 12.0, 80.0), rel=1e-9)
+        psychro.max_room_rh_pct(20.0, 12.0, 80.0), rel=1e-9
+    )
     assert finding.max_room_rh_pct_margin == pytest.approx(
-        psychro.max_room_rh_pct(20.0, 9.0), rel=1e-9)
-    assert finding.max_room_rh_pct == min(finding.max_room_rh_pct_mould,
-                                          finding.max_room_rh_pct_margin)
+        psychro.max_room_rh_pct(20.0, 9.0), rel=1e-9
+    )
+    assert finding.max_room_rh_pct == min(
+        finding.max_room_rh_pct_mould, finding.max_room_rh_pct_margin
+    )
     at_limit = psychro.state_from_rh(20.0, finding.max_room_rh_pct_mould)
     assert psychro.surface_rh_pct(at_limit, 12.0) == pytest.approx(80.0, rel=1e-9)
 
@@ -277,6 +317,7 @@ def test_materials_against_dry_standard_and_timber_limits():
 
 # --- uncertainty -----------------------------------------------------------------------------
 
+
 def test_exact_instruments_leave_no_band():
     """Zero accuracy gives zero uncertainty and decided states."""
     s = one_surface(18.0, 72.0, 15.5, "bedroom", OutdoorInput(3.0, 88.0), EXACT).surfaces[0]
@@ -312,8 +353,10 @@ def test_default_accuracies_are_the_typical_specifications():
     assert acc.air_temp_k == th.value("accuracy_air_temp_k")
 
 
-@pytest.mark.parametrize("bad", [{"air_temp_k": -0.1}, {"rh_pct": 25.0},
-                                 {"surface_temp_k": float("nan")}, {"rh_pct": True}])
+@pytest.mark.parametrize(
+    "bad",
+    [{"air_temp_k": -0.1}, {"rh_pct": 25.0}, {"surface_temp_k": float("nan")}, {"rh_pct": True}],
+)
 def test_bad_accuracy_is_refused(bad):
     """An accuracy outside 0..limit raises InputError naming the instrument."""
     with pytest.raises(InputError, match="accuracy"):
@@ -322,16 +365,20 @@ def test_bad_accuracy_is_refused(bad):
 
 # --- bad input ---------------------------------------------------------------------------------
 
-@pytest.mark.parametrize(("change", "field"), [
-    ({"use": "garage"}, "room 'R' use"),
-    ({"volume_m3": 0.2}, "room 'R' volume"),
-    ({"occupants": 2.5}, "room 'R' occupants"),
-    ({"rh_pct": 120.0}, "room 'R' relative humidity"),
-    ({"air_temp_c": 99.0}, "room 'R' air temperature"),
-    ({"surfaces": (SurfaceInput("north wall", 200.0),)}, "surface temperature of north wall"),
-    ({"activities": (assess.Activity("sauna", 1.0),)}, "room 'R' activity"),
-    ({"observations": assess.Observations(water_category=4)}, "room 'R' water category"),
-])
+
+@pytest.mark.parametrize(
+    ("change", "field"),
+    [
+        ({"use": "garage"}, "room 'R' use"),
+        ({"volume_m3": 0.2}, "room 'R' volume"),
+        ({"occupants": 2.5}, "room 'R' occupants"),
+        ({"rh_pct": 120.0}, "room 'R' relative humidity"),
+        ({"air_temp_c": 99.0}, "room 'R' air temperature"),
+        ({"surfaces": (SurfaceInput("north wall", 200.0),)}, "surface temperature of north wall"),
+        ({"activities": (assess.Activity("sauna", 1.0),)}, "room 'R' activity"),
+        ({"observations": assess.Observations(water_category=4)}, "room 'R' water category"),
+    ],
+)
 def test_bad_room_input_names_the_field(change, field):
     """Bad readings raise InputError whose field names the room and the reading."""
     base = {"name": "R", "use": "bedroom", "air_temp_c": 20.0, "rh_pct": 50.0}
@@ -343,24 +390,39 @@ def test_bad_room_input_names_the_field(change, field):
 def test_bad_material_reading_is_refused():
     """A reading on an unknown scale, or out of range, names the material."""
     with pytest.raises(InputError, match="material plaster scale"):
-        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
-                                     materials=(MaterialReading("plaster", "gypsum", 10.0,
-                                                                "ohms"),)))
+        assess.assess_room(
+            RoomInput(
+                "R",
+                "living",
+                20.0,
+                50.0,
+                materials=(MaterialReading("plaster", "gypsum", 10.0, "ohms"),),
+            )
+        )
     with pytest.raises(InputError, match="material joist reading"):
-        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
-                                     materials=(MaterialReading("joist", "pine", -1.0),)))
+        assess.assess_room(
+            RoomInput(
+                "R", "living", 20.0, 50.0, materials=(MaterialReading("joist", "pine", -1.0),)
+            )
+        )
 
 
 def test_site_shares_outdoor_air_and_collects_keys():
     """assess_site judges every room against one outdoor state and lists every key used."""
-    rooms = [RoomInput("A", "bedroom", 18.0, 70.0, (SurfaceInput("a", 12.0),)),
-             RoomInput("B", "kitchen", 21.0, 65.0, (SurfaceInput("b", 14.0),))]
+    rooms = [
+        RoomInput("A", "bedroom", 18.0, 70.0, (SurfaceInput("a", 12.0),)),
+        RoomInput("B", "kitchen", 21.0, 65.0, (SurfaceInput("b", 14.0),)),
+    ]
     site = assess.assess_site(rooms, OutdoorInput(2.0, 85.0), P, Accuracy(), year_built=1930)
     assert [r.name for r in site.rooms] == ["A", "B"]
     assert site.rooms[0].outdoor is site.rooms[1].outdoor is site.outdoor
     assert site.rooms[1].surfaces[0].temperature_factor_limit == 0.80
-    assert {"frsi_dwelling", "frsi_high_humidity", "humidity_class_3_pa",
-            "surface_rh_mould_limit_pct"} <= set(site.threshold_keys)
+    assert {
+        "frsi_dwelling",
+        "frsi_high_humidity",
+        "humidity_class_3_pa",
+        "surface_rh_mould_limit_pct",
+    } <= set(site.threshold_keys)
     for key in site.threshold_keys:
         th.get(key)
     with pytest.raises(InputError, match="year built"):
@@ -369,7 +431,11 @@ def test_site_shares_outdoor_air_and_collects_keys():
 
 # --- what each kind of surface is judged by -----------------------------------------------------
 
-def winter_room(*surfaces, outdoor=OutdoorInput(2.0, 85.0), accuracy=EXACT):
+
+WINTER_OUTDOOR = OutdoorInput(2.0, 85.0)
+
+
+def winter_room(*surfaces, outdoor=WINTER_OUTDOOR, accuracy=EXACT):
     room = RoomInput("R", "bedroom", 18.0, 65.0, tuple(surfaces))
     return assess.assess_room(room, outdoor, P, accuracy)
 
@@ -379,9 +445,11 @@ def test_glazing_and_pipes_do_not_set_the_room_rh():
     behind the highest safe room RH is the wall: 80 × p_ws(12)/p_ws(18) (CoolProp) = 54.4 %
     (BS 5250 Annex D limit [R]). The pane is reported apart, with the room RH at which it
     stays dry: 100 × p_ws(4)/p_ws(18) = 39.4 % (CoolProp)."""
-    finding = winter_room(SurfaceInput("pane", 4.0, "glazing"),
-                          SurfaceInput("wall", 12.0, "external_wall"),
-                          SurfaceInput("pipe", 8.0, "pipe"))
+    finding = winter_room(
+        SurfaceInput("pane", 4.0, "glazing"),
+        SurfaceInput("wall", 12.0, "external_wall"),
+        SurfaceInput("pipe", 8.0, "pipe"),
+    )
     assert finding.coldest.label == "wall"
     expected = 80.0 * coolprop_pw(12.0, 100.0) / coolprop_pw(18.0, 100.0)
     assert finding.max_room_rh_pct_mould == pytest.approx(expected, rel=0.003)
@@ -395,8 +463,16 @@ def test_glazing_and_pipes_do_not_set_the_room_rh():
 def test_temperature_factor_only_for_the_envelope():
     """fRsi (EN ISO 13788 [M]) is judged on external walls, ceilings, floors and surfaces
     not said; glazing, frames, pipes and internal walls get no factor and no limit."""
-    elements = ("external_wall", "ceiling", "floor", "other", "internal_wall", "glazing",
-                "window_frame", "pipe")
+    elements = (
+        "external_wall",
+        "ceiling",
+        "floor",
+        "other",
+        "internal_wall",
+        "glazing",
+        "window_frame",
+        "pipe",
+    )
     finding = winter_room(*(SurfaceInput(e, 10.0, e) for e in elements))
     by = {s.label: s for s in finding.surfaces}
     for element in ("external_wall", "ceiling", "floor", "other"):
@@ -420,8 +496,9 @@ def test_temperature_factor_only_for_the_envelope():
 
 def test_an_internal_wall_can_set_the_room_rh():
     """An internal wall is inside the envelope: no factor, but mould on it sets the room RH."""
-    finding = winter_room(SurfaceInput("party", 13.0, "internal_wall"),
-                          SurfaceInput("pane", 5.0, "glazing"))
+    finding = winter_room(
+        SurfaceInput("party", 13.0, "internal_wall"), SurfaceInput("pane", 5.0, "glazing")
+    )
     assert finding.coldest.label == "party"
 
 
@@ -455,17 +532,23 @@ def test_why_the_factor_cannot_be_judged():
     assert reason(winter_room(SurfaceInput("w", 12.0))) is None
 
 
-@pytest.mark.parametrize(("rh", "outdoor"), [(54.5, (0.0, 80.0)), (72.0, (3.0, 88.0)),
-                                             (45.0, (8.0, 70.0)), (90.0, (-5.0, 95.0))])
+@pytest.mark.parametrize(
+    ("rh", "outdoor"),
+    [(54.5, (0.0, 80.0)), (72.0, (3.0, 88.0)), (45.0, (8.0, 70.0)), (90.0, (-5.0, 95.0))],
+)
 def test_room_class_is_the_thresholds_rule(rh, outdoor):
     """The room's class is thresholds.humidity_class of its excess (ISO 13788 limits [M]):
     one rule, used by both."""
-    finding = assess.assess_room(RoomInput("R", "bedroom", 20.0, rh), OutdoorInput(*outdoor),
-                                 P, Accuracy())
-    assert finding.humidity_class == th.humidity_class(finding.vapour_pressure_excess_pa,
-                                                       outdoor[0])
-    low = th.humidity_class(finding.vapour_pressure_excess_pa
-                            - finding.vapour_pressure_excess_uncertainty_pa, outdoor[0])
+    finding = assess.assess_room(
+        RoomInput("R", "bedroom", 20.0, rh), OutdoorInput(*outdoor), P, Accuracy()
+    )
+    assert finding.humidity_class == th.humidity_class(
+        finding.vapour_pressure_excess_pa, outdoor[0]
+    )
+    low = th.humidity_class(
+        finding.vapour_pressure_excess_pa - finding.vapour_pressure_excess_uncertainty_pa,
+        outdoor[0],
+    )
     assert finding.humidity_class_possible[0] == low
 
 
@@ -480,16 +563,20 @@ def test_room_bounds_come_from_the_domain():
     """Volume, occupants and accuracies are checked against survey.domain's bounds, and a
     material reading the survey file model allows (up to 1000 on any scale) is assessed."""
     from survey import domain
+
     with pytest.raises(InputError, match=f"{domain.ROOM_VOLUME_MAX_M3:g}"):
-        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
-                                     volume_m3=domain.ROOM_VOLUME_MAX_M3 * 1.01))
+        assess.assess_room(
+            RoomInput("R", "living", 20.0, 50.0, volume_m3=domain.ROOM_VOLUME_MAX_M3 * 1.01)
+        )
     with pytest.raises(InputError, match=f"{domain.OCCUPANTS_MAX}"):
-        assess.assess_room(RoomInput("R", "living", 20.0, 50.0,
-                                     occupants=domain.OCCUPANTS_MAX + 1))
+        assess.assess_room(RoomInput("R", "living", 20.0, 50.0, occupants=domain.OCCUPANTS_MAX + 1))
     with pytest.raises(InputError):
         Accuracy(rh_pct=domain.RH_ACCURACY_MAX_PCT + 0.1)
-    Accuracy(domain.AIR_TEMP_ACCURACY_MAX_K, domain.RH_ACCURACY_MAX_PCT,
-             domain.SURFACE_TEMP_ACCURACY_MAX_K)
+    Accuracy(
+        domain.AIR_TEMP_ACCURACY_MAX_K,
+        domain.RH_ACCURACY_MAX_PCT,
+        domain.SURFACE_TEMP_ACCURACY_MAX_K,
+    )
     wet = MaterialReading("sole plate", "softwood", 240.0, "mc_pct", 12.0, timber=True)
     found = assess.assess_room(RoomInput("R", "living", 20.0, 50.0, materials=(wet,)))
     assert found.materials[0].timber_state is TimberState.DECAY_RANGE

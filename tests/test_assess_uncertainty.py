@@ -67,8 +67,12 @@ def test_bands_match_monte_carlo(case):
     """Standard uncertainties agree with the Monte Carlo spread within 3 %, and ±U (k = 2)
     holds 94-99.5 % of the draws, for margin, surface RH, fRsi and vapour-pressure excess."""
     air_c, rh, ts, out_c, out_rh, acc = case
-    finding = assess.assess_room(RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("S", ts),)),
-                                 OutdoorInput(out_c, out_rh), P, acc)
+    finding = assess.assess_room(
+        RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("S", ts),)),
+        OutdoorInput(out_c, out_rh),
+        P,
+        acc,
+    )
     s = finding.surfaces[0]
     margin, ln_rh_s, factor, excess = _monte_carlo(*case)
     k = 2.0
@@ -92,18 +96,22 @@ def test_shared_thermometer_factor_band_matches_monte_carlo(case):
     (fully correlated, GUM 5.2), and the fRsi band follows u² = (u_ts² + u_ti²)/Δ²."""
     air_c, rh, ts, out_c, out_rh, acc = case
     shared = Accuracy(acc.air_temp_k, acc.rh_pct, acc.surface_temp_k, shared_thermometer=True)
-    s = assess.assess_room(RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("S", ts),)),
-                           OutdoorInput(out_c, out_rh), P, shared).surfaces[0]
+    s = assess.assess_room(
+        RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("S", ts),)),
+        OutdoorInput(out_c, out_rh),
+        P,
+        shared,
+    ).surfaces[0]
     rng = random.Random(99)
     factor = []
     for _ in range(SAMPLES):
         offset = rng.uniform(-acc.air_temp_k, acc.air_temp_k)
         surface = _draws(rng, ts, acc.surface_temp_k)
         factor.append((surface - (out_c + offset)) / ((air_c + offset) - (out_c + offset)))
-    assert statistics.pstdev(factor) == pytest.approx(s.temperature_factor_uncertainty / 2.0,
-                                                      rel=STD_TOLERANCE)
-    assert 0.94 <= _inside(factor, s.temperature_factor, s.temperature_factor_uncertainty) \
-        <= 0.995
+    assert statistics.pstdev(factor) == pytest.approx(
+        s.temperature_factor_uncertainty / 2.0, rel=STD_TOLERANCE
+    )
+    assert 0.94 <= _inside(factor, s.temperature_factor, s.temperature_factor_uncertainty) <= 0.995
 
 
 def test_condensation_point_band_matches_monte_carlo():
@@ -111,10 +119,15 @@ def test_condensation_point_band_matches_monte_carlo():
     acc = Accuracy(0.5, 3.0, 1.0)
     finding = assess.assess_room(RoomInput("R", "bedroom", 18.0, 72.0), None, P, acc)
     rng = random.Random(7)
-    dews = [psychro.state_from_rh(_draws(rng, 18.0, 0.5), _draws(rng, 72.0, 3.0), P)
-            .condensation_point_c for _ in range(SAMPLES)]
+    dews = [
+        psychro.state_from_rh(
+            _draws(rng, 18.0, 0.5), _draws(rng, 72.0, 3.0), P
+        ).condensation_point_c
+        for _ in range(SAMPLES)
+    ]
     assert statistics.pstdev(dews) == pytest.approx(
-        finding.condensation_point_uncertainty_k / 2.0, rel=STD_TOLERANCE)
+        finding.condensation_point_uncertainty_k / 2.0, rel=STD_TOLERANCE
+    )
 
 
 def test_monte_carlo_would_catch_a_wrong_band():
@@ -137,6 +150,7 @@ accuracies = st.builds(Accuracy, st.floats(0.0, 1.0), st.floats(0.0, 5.0), st.fl
 #: (ASHRAE Standard 160-2009, secondary source).
 _OUT_OF_RANGE = (assess.MouldState.TOO_COLD, assess.MouldState.TOO_HOT)
 
+
 @settings(max_examples=150, deadline=None)
 @given(rooms, st.floats(-10.0, 30.0), st.floats(0.01, 10.0), accuracies, st.floats(-15.0, -5.0))
 def test_a_colder_surface_is_never_safer(room, warm_c, drop, accuracy, outdoor_c):
@@ -145,9 +159,13 @@ def test_a_colder_surface_is_never_safer(room, warm_c, drop, accuracy, outdoor_c
     air_c, rh = room
     cold_c = warm_c - drop
     finding = assess.assess_room(
-        RoomInput("R", "bedroom", air_c, rh, (SurfaceInput("warm", warm_c),
-                                              SurfaceInput("cold", cold_c))),
-        OutdoorInput(outdoor_c, 80.0), P, accuracy)
+        RoomInput(
+            "R", "bedroom", air_c, rh, (SurfaceInput("warm", warm_c), SurfaceInput("cold", cold_c))
+        ),
+        OutdoorInput(outdoor_c, 80.0),
+        P,
+        accuracy,
+    )
     warm, cold = finding.surfaces
     assert cold.surface_rh_pct > warm.surface_rh_pct
     assert cold.margin_k < warm.margin_k
@@ -168,10 +186,10 @@ def test_a_colder_surface_is_never_safer(room, warm_c, drop, accuracy, outdoor_c
 def test_states_are_consistent_with_their_bands(room, ts, accuracy):
     """A decided state holds at both ends of the band; 'cannot tell' lists at least two."""
     air_c, rh = room
-    s = assess.assess_room(RoomInput("R", "other", air_c, rh, (SurfaceInput("S", ts),)),
-                           None, P, accuracy).surfaces[0]
-    for state, possible in ((s.condensation, s.condensation_possible),
-                            (s.mould, s.mould_possible)):
+    s = assess.assess_room(
+        RoomInput("R", "other", air_c, rh, (SurfaceInput("S", ts),)), None, P, accuracy
+    ).surfaces[0]
+    for state, possible in ((s.condensation, s.condensation_possible), (s.mould, s.mould_possible)):
         if state in _OUT_OF_RANGE:
             assert possible == (state,) and not 5.0 <= ts <= 40.0
             continue

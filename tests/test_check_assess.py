@@ -10,15 +10,45 @@ import sys
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
-
 P = 101_325.0
-BEDROOM = ["--air-temp", "18", "--rh", "72", "--surface-temp", "11", "--surface-temp", "15.5",
-           "--outdoor-temp", "3", "--outdoor-rh", "88", "--room-volume", "30", "--occupants",
-           "2", "--use", "bedroom"]
-SUMMER = ["--air-temp", "22", "--rh", "75", "--surface-temp", "17", "--outdoor-temp", "28",
-          "--outdoor-rh", "75", "--room-volume", "60", "--occupants", "0", "--use", "basement"]
-
-
+BEDROOM = [
+    "--air-temp",
+    "18",
+    "--rh",
+    "72",
+    "--surface-temp",
+    "11",
+    "--surface-temp",
+    "15.5",
+    "--outdoor-temp",
+    "3",
+    "--outdoor-rh",
+    "88",
+    "--room-volume",
+    "30",
+    "--occupants",
+    "2",
+    "--use",
+    "bedroom",
+]
+SUMMER = [
+    "--air-temp",
+    "22",
+    "--rh",
+    "75",
+    "--surface-temp",
+    "17",
+    "--outdoor-temp",
+    "28",
+    "--outdoor-rh",
+    "75",
+    "--room-volume",
+    "60",
+    "--occupants",
+    "0",
+    "--use",
+    "basement",
+]
 
 
 def cp(output: str, temp_c: float, rh_pct: float) -> float:
@@ -58,7 +88,8 @@ def test_cold_damp_bedroom_json(check):
     # Δp = p_w(18/72) − p_w(3/88) = 819 Pa at 3 °C outside: class 4 (limits × 17/20: 688.5
     # < Δp <= 918, ISO 13788 [M]); CoolProp's partial pressures within 1 %.
     assert data["vapour_pressure_excess_pa"] == pytest.approx(
-        cp("P_w", 18.0, 72.0) - cp("P_w", 3.0, 88.0), rel=0.01)
+        cp("P_w", 18.0, 72.0) - cp("P_w", 3.0, 88.0), rel=0.01
+    )
     assert data["humidity_class"] == 4
     kinds = [a["kind"] for a in data["actions"]]
     assert kinds[0] == "ventilate" and "dehumidify" not in kinds
@@ -68,16 +99,20 @@ def test_cold_damp_bedroom_json(check):
     g = vent["moisture_generation_g_per_h"] / 1000.0
     # ṁ_da = G / (W_t − W_o) (handbook moisture balance), volume = ṁ_da · v of the room air
     # the fan moves, CoolProp W and v.
-    assert vent["airflow_m3_per_h"] == pytest.approx(g / (w_t - w_o) * cp("Vda", 18.0, 72.0),
-                                                     rel=0.015)
+    assert vent["airflow_m3_per_h"] == pytest.approx(
+        g / (w_t - w_o) * cp("Vda", 18.0, 72.0), rel=0.015
+    )
     assert vent["air_changes_per_h"] == pytest.approx(vent["airflow_m3_per_h"] / 30.0)
     raise_ = next(a for a in data["actions"] if a["kind"] == "raise_surface_temperature")
     assert raise_["surface"] == "Surface 1"
     assert raise_["target_surface_temp_c"] == pytest.approx(3 + 0.75 * 15, abs=1e-9)
     assert data["cautions"][-1].startswith("These findings come from spot readings")
     assert "licensed professionals" in data["cautions"][-1]
-    assert data["accuracy"]["given"] == {"air_temp_k": False, "rh_pct": False,
-                                         "surface_temp_k": False}
+    assert data["accuracy"]["given"] == {
+        "air_temp_k": False,
+        "rh_pct": False,
+        "surface_temp_k": False,
+    }
     cited = {t["key"] for t in data["thresholds"]}
     assert {"dew_point_margin_k", "surface_rh_mould_limit_pct", "frsi_dwelling"} <= cited
 
@@ -89,23 +124,33 @@ def test_cold_damp_bedroom_table(check, monkeypatch):
     status, out, _ = check(*BEDROOM)
     assert status == 0
     flat = " ".join(out.split())
-    for words in ("condensing now", "above the mould limit", "under the limit",
-                  "unclear at this accuracy: clear of the dew point "
-                  "or close to the dew point",
-                  "unclear at this accuracy: approaching the mould "
-                  "limit or above the mould limit",
-                  '"Unclear at this accuracy": the reading\'s range',
-                  "Highest room RH the coldest wall, ceiling or floor (Surface 1, 11.0 °C) "
-                  "can bear: 50 %",
-                  "class 4", "1. Ventilate", "m³/h", "air changes an hour",
-                  "2. Raise the surface temperature: Surface 1",
-                  # 3 + 0.75 × (18 − 3) = 14.25 °C (fRsi 0.75, BRE IP1/06, from memory),
-                  # a minimum, so shown rounded up:
-                  "at least 14.3 °C (the factor limit", "Safety",
-                  "unflued gas or paraffin heaters", "asbestos",
-                  "Follow local building codes", "Instrument accuracy: air ±0.5 K, RH ±3 %, "
-                  "surface ±1.0 K (typical specifications, none entered)", "Limits used",
-                  "BS 5250:2002 Annex D"):
+    for words in (
+        "condensing now",
+        "above the mould limit",
+        "under the limit",
+        "unclear at this accuracy: clear of the dew point or close to the dew point",
+        "unclear at this accuracy: approaching the mould limit or above the mould limit",
+        '"Unclear at this accuracy": the reading\'s range',
+        "Highest room RH the coldest wall, ceiling or floor (Surface 1, 11.0 °C) can bear: 50 %",
+        "class 4",
+        "1. Ventilate",
+        "m³/h",
+        "air changes an hour",
+        "2. Raise the surface temperature: Surface 1",
+        # 3 + 0.75 × (18 − 3) = 14.25 °C (fRsi 0.75, BRE IP1/06, from memory),
+        # a minimum, so shown rounded up:
+        "at least 14.3 °C (the factor limit",
+        "Safety",
+        "unflued gas or paraffin heaters",
+        "asbestos",
+        "Follow local building codes",
+        (
+            "Instrument accuracy: air ±0.5 K, RH ±3 %, "
+            "surface ±1.0 K (typical specifications, none entered)"
+        ),
+        "Limits used",
+        "BS 5250:2002 Annex D",
+    ):
         assert words in flat, words
 
 
@@ -129,7 +174,8 @@ def test_humid_summer_dehumidify(check):
     assert kinds[0] == "dehumidify" and "ventilate" not in kinds
     dehum = data["actions"][0]
     assert dehum["removal_us_pints_per_day"] == pytest.approx(
-        dehum["removal_l_per_day"] / 0.473176)  # 1 US pint = 0.473176 L [R]
+        dehum["removal_l_per_day"] / 0.473176
+    )  # 1 US pint = 0.473176 L [R]
     # No occupants: the daily load is outdoor air leaking in at 0.5 ACH (common practice)
     # bringing W_o − W_t, 24 h × 0.5 × 60 m³ / v_i × (W_o − W_t) (air changes counted in
     # room volumes of room air), W and v from CoolProp.
@@ -149,44 +195,83 @@ def test_humid_summer_dehumidify(check):
 
 def test_accuracies_entered_are_used_and_stated(check):
     """Zero-accuracy instruments leave no band: the warm wall is plainly near the dew point."""
-    status, out, _ = check(*BEDROOM, "--air-temp-accuracy", "0", "--rh-accuracy", "0",
-                           "--surface-temp-accuracy", "0", "--json")
+    status, out, _ = check(
+        *BEDROOM,
+        "--air-temp-accuracy",
+        "0",
+        "--rh-accuracy",
+        "0",
+        "--surface-temp-accuracy",
+        "0",
+        "--json",
+    )
     assert status == 0
     data = json.loads(out)
     warm = data["surfaces"][1]
     assert warm["margin_uncertainty_k"] == 0.0
     assert warm["condensation"] == "near_dew_point"
     assert data["accuracy"]["given"]["rh_pct"] is True
-    _, out, _ = check(*BEDROOM, "--air-temp-accuracy", "0.2", "--rh-accuracy", "1.5",
-                      "--surface-temp-accuracy", "0.3")
+    _, out, _ = check(
+        *BEDROOM,
+        "--air-temp-accuracy",
+        "0.2",
+        "--rh-accuracy",
+        "1.5",
+        "--surface-temp-accuracy",
+        "0.3",
+    )
     assert "air ±0.2 K, RH ±1.5 %, surface ±0.3 K (as entered)" in " ".join(out.split())
 
 
 def test_ip_units_for_volume_and_accuracy(check):
     """--units ip reads the volume in ft³ and accuracies in °F; a unit suffix works too."""
-    _, out_ip, _ = check(*BEDROOM[:-6], "--room-volume", "1059.44", "--occupants", "2", "--use",
-                         "bedroom", "--units", "ip", "--air-temp", "64.4", "--rh", "72",
-                         "--surface-temp-accuracy", "1.8", "--json")
+    _, out_ip, _ = check(
+        *BEDROOM[:-6],
+        "--room-volume",
+        "1059.44",
+        "--occupants",
+        "2",
+        "--use",
+        "bedroom",
+        "--units",
+        "ip",
+        "--air-temp",
+        "64.4",
+        "--rh",
+        "72",
+        "--surface-temp-accuracy",
+        "1.8",
+        "--json",
+    )
     data = json.loads(out_ip)
-    assert data["room_volume_m3"] == pytest.approx(1059.44 * 0.3048 ** 3)  # 1 ft = 0.3048 m
+    assert data["room_volume_m3"] == pytest.approx(1059.44 * 0.3048**3)  # 1 ft = 0.3048 m
     assert data["accuracy"]["surface_temp_k"] == pytest.approx(1.0)
     _, out_m3, _ = check(*BEDROOM[:-6], "--room-volume", "30 m3", "--json")
     assert json.loads(out_m3)["room_volume_m3"] == 30.0
 
 
-@pytest.mark.parametrize(("args", "message"), [
-    (["--room-volume", "-5"], "--room-volume -5: room volume must be between 1 and 100000 m³"),
-    (["--room-volume", "30 kg"], "--room-volume 30 kg: unit 'kg' is not a volume unit"),
-    (["--room-volume", "big"], "--room-volume big: expected a number in m³"),
-    (["--occupants", "2.5"], "--occupants 2.5: expected a whole number of people from 0 to 500"),
-    (["--occupants", "-1"], "--occupants -1: expected a whole number"),
-    (["--occupants", "two"], "--occupants two: expected a whole number"),
-    (["--target-rh", "95"], "--target-rh 95: target RH must be between 25 and 80 %"),
-    (["--use", "garage"], "argument --use: invalid choice: 'garage'"),
-    (["--rh-accuracy", "50"], "--rh-accuracy 50: accuracy must be between 0 and 20 %RH"),
-    (["--air-temp-accuracy", "abc"], "--air-temp-accuracy abc: expected a number"),
-    (["--surface-temp-accuracy", "-1"], "--surface-temp-accuracy -1: accuracy must be between 0"),
-])
+@pytest.mark.parametrize(
+    ("args", "message"),
+    [
+        (["--room-volume", "-5"], "--room-volume -5: room volume must be between 1 and 100000 m³"),
+        (["--room-volume", "30 kg"], "--room-volume 30 kg: unit 'kg' is not a volume unit"),
+        (["--room-volume", "big"], "--room-volume big: expected a number in m³"),
+        (
+            ["--occupants", "2.5"],
+            "--occupants 2.5: expected a whole number of people from 0 to 500",
+        ),
+        (["--occupants", "-1"], "--occupants -1: expected a whole number"),
+        (["--occupants", "two"], "--occupants two: expected a whole number"),
+        (["--target-rh", "95"], "--target-rh 95: target RH must be between 25 and 80 %"),
+        (["--use", "garage"], "argument --use: invalid choice: 'garage'"),
+        (["--rh-accuracy", "50"], "--rh-accuracy 50: accuracy must be between 0 and 20 %RH"),
+        (["--air-temp-accuracy", "abc"], "--air-temp-accuracy abc: expected a number"),
+        (
+            ["--surface-temp-accuracy", "-1"],
+            "--surface-temp-accuracy -1: accuracy must be between 0",
+        ),
+    ],
+)
 def test_bad_new_options_exit_2_with_one_line(check, args, message):
     """Bad input to the new options: status 2, one line naming option, value and what is
     allowed, nothing on stdout."""
@@ -209,26 +294,48 @@ def test_use_is_case_insensitive_and_defaults_to_other(check):
 
 def test_new_options_keep_the_fast_json_path():
     """With every new option given as a bare number, --json loads neither pint nor Rich."""
-    code = ("import contextlib, io, sys\nfrom survey.cli import main\n"
-            "with contextlib.redirect_stdout(io.StringIO()):\n"
-            f"    main(['check', *{BEDROOM!r}, '--target-rh', '55', '--rh-accuracy', '2',"
-            " '--air-temp-accuracy', '0.3', '--surface-temp-accuracy', '0.5',"
-            " '--glazing-temp', '5', '--pipe-temp', '9', '--surface', 'floor:14:slab',"
-            " '--json'])\n"
-            "print(' '.join(sys.modules))")
-    result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
-                            timeout=60)
+    code = (
+        "import contextlib, io, sys\nfrom survey.cli import main\n"
+        "with contextlib.redirect_stdout(io.StringIO()):\n"
+        f"    main(['check', *{BEDROOM!r}, '--target-rh', '55', '--rh-accuracy', '2',"
+        " '--air-temp-accuracy', '0.3', '--surface-temp-accuracy', '0.5',"
+        " '--glazing-temp', '5', '--pipe-temp', '9', '--surface', 'floor:14:slab',"
+        " '--json'])\n"
+        "print(' '.join(sys.modules))"
+    )
+    result = subprocess.run(
+        [sys.executable, "-c", code], capture_output=True, text=True, timeout=60
+    )
     assert result.returncode == 0, result.stderr
     loaded = set(result.stdout.split())
     assert "survey.assess" in loaded and "survey.advise" in loaded
     assert "pint" not in loaded and "rich" not in loaded and "textual" not in loaded
 
 
-# --- what each surface is ---------------------------------------------------------------------------
+# --- what each surface is -----------------------------------------------------------------
 
-WINTER = ["--air-temp", "16", "--rh", "75", "--surface-temp", "9.5", "--surface-temp", "12",
-          "--surface-temp", "5", "--outdoor-temp", "2", "--outdoor-rh", "90", "--room-volume",
-          "30", "--occupants", "2", "--use", "bedroom"]
+WINTER = [
+    "--air-temp",
+    "16",
+    "--rh",
+    "75",
+    "--surface-temp",
+    "9.5",
+    "--surface-temp",
+    "12",
+    "--surface-temp",
+    "5",
+    "--outdoor-temp",
+    "2",
+    "--outdoor-rh",
+    "90",
+    "--room-volume",
+    "30",
+    "--occupants",
+    "2",
+    "--use",
+    "bedroom",
+]
 
 
 def test_the_winter_repro_leads_with_warming_the_wall(check):
@@ -254,14 +361,29 @@ def test_glazing_and_pipes_are_named_and_judged_apart(check):
     highest safe room RH refers to the coldest wall, ceiling or floor and says so, with its
     label and element: for the 11 °C wall, 80 × p_ws(11)/p_ws(18) (CoolProp, BS 5250 limit
     [R]); glazing and pipes are reported apart."""
-    status, out, err = check("--air-temp", "18", "--rh", "72", "--glazing-temp", "4",
-                             "--surface", "external_wall:11:north wall", "--pipe-temp", "8",
-                             "--surface", "internal_wall:15.5", "--json")
+    status, out, err = check(
+        "--air-temp",
+        "18",
+        "--rh",
+        "72",
+        "--glazing-temp",
+        "4",
+        "--surface",
+        "external_wall:11:north wall",
+        "--pipe-temp",
+        "8",
+        "--surface",
+        "internal_wall:15.5",
+        "--json",
+    )
     assert status == 0, err
     data = json.loads(out)
     assert [(s["label"], s["element"]) for s in data["surfaces"]] == [
-        ("Glazing 1", "glazing"), ("north wall", "external_wall"), ("Pipe 1", "pipe"),
-        ("Internal wall 1", "internal_wall")]
+        ("Glazing 1", "glazing"),
+        ("north wall", "external_wall"),
+        ("Pipe 1", "pipe"),
+        ("Internal wall 1", "internal_wall"),
+    ]
     assert data["coldest_surface"] == "north wall"
     assert data["coldest_surface_element"] == "external_wall"
     assert "coldest wall, ceiling or floor" in data["max_room_rh_basis"]
@@ -269,20 +391,24 @@ def test_glazing_and_pipes_are_named_and_judged_apart(check):
     assert data["max_room_rh_pct_for_coldest_surface"] == pytest.approx(allowed, rel=0.003)
     assert data["coldest_glazing_or_pipe"] == "Glazing 1"
     assert data["max_room_rh_pct_dry_glazing_or_pipe"] == pytest.approx(
-        100.0 * cp("P_w", 4.0, 100.0) / cp("P_w", 18.0, 100.0), rel=0.003)
-    glass, _, pipe, _ = data["surfaces"]
+        100.0 * cp("P_w", 4.0, 100.0) / cp("P_w", 18.0, 100.0), rel=0.003
+    )
+    glass, _, _pipe, _ = data["surfaces"]
     assert glass["judged_as"] == "glazing" and glass["mould"] == "not_judged"
     assert glass["temperature_factor_state"] == "not_for_element"
     kinds = [a["kind"] for a in data["actions"]]
     assert "reduce_glazing_condensation" in kinds and "insulate_pipe" in kinds
 
 
-@pytest.mark.parametrize(("args", "message"), [
-    (["--surface", "roof:5"], "--surface roof:5: element expected one of external_wall"),
-    (["--surface", "glazing"], "--surface glazing: expected ELEMENT:TEMPERATURE"),
-    (["--surface", "glazing:warm"], "--surface glazing:warm: expected a number"),
-    (["--glazing-temp", "200"], "--glazing-temp 200: surface temperature must be between"),
-])
+@pytest.mark.parametrize(
+    ("args", "message"),
+    [
+        (["--surface", "roof:5"], "--surface roof:5: element expected one of external_wall"),
+        (["--surface", "glazing"], "--surface glazing: expected ELEMENT:TEMPERATURE"),
+        (["--surface", "glazing:warm"], "--surface glazing:warm: expected a number"),
+        (["--glazing-temp", "200"], "--glazing-temp 200: surface temperature must be between"),
+    ],
+)
 def test_bad_surface_options(check, args, message):
     """Bad surface options: status 2, one line naming the option, the text and the fix."""
     status, out, err = check("--air-temp", "18", "--rh", "72", *args)
@@ -296,15 +422,22 @@ def test_help_explains_the_surface_options(check):
     status, out, _ = check("--help")
     assert status == 0
     flat = " ".join(out.split())
-    for words in ("--glazing-temp", "--pipe-temp", "--frame-temp", "ELEMENT:T[:LABEL]",
-                  "external_wall:11.2:NE corner", "never set the room's RH target"):
+    for words in (
+        "--glazing-temp",
+        "--pipe-temp",
+        "--frame-temp",
+        "ELEMENT:T[:LABEL]",
+        "external_wall:11.2:NE corner",
+        "never set the room's RH target",
+    ):
         assert words in flat, words
     # The defaults quoted are the thresholds table's (typical specifications, common
     # practice): air ±0.5 K, RH ±3 %, surface ±1 K.
     assert "(air ±0.5 K, RH ±3 %, surface ±1 K)" in flat
 
 
-# --- words for a client ------------------------------------------------------------------------------
+# --- words for a client -------------------------------------------------------------------
+
 
 def test_summary_comes_first(check, monkeypatch):
     """A short summary (3 to 6 lines: surfaces, highest safe RH, first action) opens the
@@ -328,8 +461,9 @@ def test_surface_rh_over_100_and_degenerate_bands(check, monkeypatch):
     """100 % surface RH or more reads "100 % or more (water forming)" (frost below 0 °C); the
     JSON keeps the number; a surface warmer than the air shows no "100 to 100" band."""
     monkeypatch.setenv("COLUMNS", "400")
-    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "5",
-                      "--surface-temp", "-4")
+    _, out, _ = check(
+        "--air-temp", "18", "--rh", "72", "--surface-temp", "5", "--surface-temp", "-4"
+    )
     flat = " ".join(out.split())
     assert "100 % or more (water forming)" in flat and "100 % or more (frost forming)" in flat
     assert "frost forming now" in flat
@@ -357,17 +491,23 @@ def test_frost_point_is_called_so(check, monkeypatch):
     assert data["surfaces"][0]["condensation"] == "condensing"
 
 
-@pytest.mark.parametrize(("extra", "reason"), [
-    ([], "no outdoor reading"),
-    (["--outdoor-temp", "12", "--outdoor-rh", "80"],
-     "the inside-outside difference is 6.0 K, under the 10 K needed"),
-])
+@pytest.mark.parametrize(
+    ("extra", "reason"),
+    [
+        ([], "no outdoor reading"),
+        (
+            ["--outdoor-temp", "12", "--outdoor-rh", "80"],
+            "the inside-outside difference is 6.0 K, under the 10 K needed",
+        ),
+    ],
+)
 def test_factor_not_judged_says_why(check, monkeypatch, extra, reason):
-    """"Cannot be judged today" always says why: no outdoor reading, or an inside-outside
+    """ "Cannot be judged today" always says why: no outdoor reading, or an inside-outside
     difference under the 10 K needed (common practice, no source)."""
     monkeypatch.setenv("COLUMNS", "400")
-    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "11", "--use",
-                      "bedroom", *extra)
+    _, out, _ = check(
+        "--air-temp", "18", "--rh", "72", "--surface-temp", "11", "--use", "bedroom", *extra
+    )
     flat = " ".join(out.split())
     assert f"cannot be judged today: {reason}" in flat
     assert f"Temperature factor: cannot be judged today — {reason}" in flat
@@ -387,9 +527,26 @@ def test_ip_limits_and_rating_points(check, monkeypatch):
     """In IP the 3 K margin reads 5.4 °F (3 × 1.8) and the dehumidifier rating points read
     80 °F and 65 °F (AHAM DH-1, current US test [R, secondary]); the marks read for a client."""
     monkeypatch.setenv("COLUMNS", "400")
-    _, out, _ = check("--units", "ip", "--air-temp", "71.6", "--rh", "75", "--surface-temp",
-                      "62.6", "--outdoor-temp", "82.4", "--outdoor-rh", "75", "--room-volume",
-                      "2119", "--occupants", "0", "--use", "basement")
+    _, out, _ = check(
+        "--units",
+        "ip",
+        "--air-temp",
+        "71.6",
+        "--rh",
+        "75",
+        "--surface-temp",
+        "62.6",
+        "--outdoor-temp",
+        "82.4",
+        "--outdoor-rh",
+        "75",
+        "--room-volume",
+        "2119",
+        "--occupants",
+        "0",
+        "--use",
+        "basement",
+    )
     flat = " ".join(out.split())
     assert "Dew-point margin 5.4 °F: ISO 8502-4" in flat
     assert "Dew-point margin 3 K" not in flat
@@ -404,11 +561,14 @@ def test_units_upper_case_and_plausibility_warning(check):
     stderr and the check goes on; 70F or --units ip give none."""
     status, out, err = check("--air-temp", "70", "--rh", "55", "--json")
     assert status == 0
-    assert err.strip() == ("survey: warning: --air-temp 70: read as 70 °C; for °F use "
-                           "--units ip or 70F")
+    assert err.strip() == (
+        "survey: warning: --air-temp 70: read as 70 °C; for °F use --units ip or 70F"
+    )
     assert json.loads(out)["dry_bulb_c"] == 70.0
-    for args in (["--air-temp", "70F", "--rh", "55"],
-                 ["--air-temp", "70", "--rh", "55", "--units", "IP"]):
+    for args in (
+        ["--air-temp", "70F", "--rh", "55"],
+        ["--air-temp", "70", "--rh", "55", "--units", "IP"],
+    ):
         status, out, err = check(*args, "--json")
         assert status == 0 and err == ""
         # 70 °F = (70 − 32)/1.8 °C, exact by definition of the scales.
@@ -430,8 +590,9 @@ def test_dehumidifier_numbers_read_once(check, monkeypatch):
 def test_mould_area_option_feeds_the_mould_caution(check):
     """--mould-area 2 (m²) is a medium area: between the small and large area guidance
     limits of thresholds (common practice, no source); the caution says so."""
-    _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "12",
-                      "--mould-area", "2", "--json")
+    _, out, _ = check(
+        "--air-temp", "18", "--rh", "72", "--surface-temp", "12", "--mould-area", "2", "--json"
+    )
     cautions = json.loads(out)["cautions"]
     medium = [c for c in cautions if c.startswith("Visible mould, about 2 m²: a medium area")]
     assert medium and "FFP2 / N95" in medium[0]
@@ -439,8 +600,9 @@ def test_mould_area_option_feeds_the_mould_caution(check):
 
 def test_mould_seen_without_area_is_treated_as_medium(check):
     _, out, _ = check("--air-temp", "18", "--rh", "72", "--mould-seen", "--json")
-    assert any(c.startswith("Visible mould, area not measured")
-               for c in json.loads(out)["cautions"])
+    assert any(
+        c.startswith("Visible mould, area not measured") for c in json.loads(out)["cautions"]
+    )
 
 
 def test_surface_above_mould_limit_without_mould_options_adds_if_visible_caution(check):
@@ -450,8 +612,10 @@ def test_surface_above_mould_limit_without_mould_options_adds_if_visible_caution
     _, out, _ = check("--air-temp", "18", "--rh", "72", "--surface-temp", "12", "--json")
     data = json.loads(out)
     assert data["surfaces"][0]["mould"] == "above_limit"
-    assert any(c.startswith("A surface is above the mould limit: if mould is visible")
-               for c in data["cautions"])
+    assert any(
+        c.startswith("A surface is above the mould limit: if mould is visible")
+        for c in data["cautions"]
+    )
 
 
 @pytest.mark.parametrize("area", ["0", "-1", "abc"])
@@ -474,8 +638,20 @@ def test_factor_above_limit_with_band_touching_it_needs_no_action(check, monkeyp
     the ±1 K surface accuracy band reaching below: the summary gives the value and says no
     action is needed, with no 'may be under' beside 'Nothing to do'."""
     monkeypatch.setenv("COLUMNS", "400")
-    _, out, _ = check("--air-temp", "20", "--rh", "50", "--surface", "external_wall:15.2",
-                      "--outdoor-temp", "0", "--outdoor-rh", "80", "--use", "bedroom")
+    _, out, _ = check(
+        "--air-temp",
+        "20",
+        "--rh",
+        "50",
+        "--surface",
+        "external_wall:15.2",
+        "--outdoor-temp",
+        "0",
+        "--outdoor-rh",
+        "80",
+        "--use",
+        "bedroom",
+    )
     flat = " ".join(out.split())
     assert "temperature factor 0.76, meets the 0.75 limit" in flat
     assert "no action needed" in flat and "may be under the limit" not in flat
@@ -484,7 +660,19 @@ def test_factor_above_limit_with_band_touching_it_needs_no_action(check, monkeyp
 def test_factor_just_under_limit_inside_band_is_not_nothing_to_do(check, monkeypatch):
     """Wall 14.5 °C: fRsi 0.725, under 0.75 but inside the band: not 'Nothing to do'."""
     monkeypatch.setenv("COLUMNS", "400")
-    _, out, _ = check("--air-temp", "20", "--rh", "50", "--surface", "external_wall:14.5",
-                      "--outdoor-temp", "0", "--outdoor-rh", "80", "--use", "bedroom")
+    _, out, _ = check(
+        "--air-temp",
+        "20",
+        "--rh",
+        "50",
+        "--surface",
+        "external_wall:14.5",
+        "--outdoor-temp",
+        "0",
+        "--outdoor-rh",
+        "80",
+        "--use",
+        "bedroom",
+    )
     flat = " ".join(out.split())
     assert "Nothing to do" not in flat and "No action is certain" in flat

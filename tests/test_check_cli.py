@@ -12,33 +12,53 @@ import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
 
-
-
-
 def test_json_dew_point_agrees_with_psychrolib_and_coolprop(check):
     """25 °C / 80 %: --json dew point equals psychrolib's and is within 0.05 K of CoolProp."""
     status, out, err = check("--air-temp", "25", "--rh", "80", "--json")
     assert status == 0 and err == ""
     data = json.loads(out)
     psychrolib.SetUnitSystem(psychrolib.SI)
-    assert data["dew_point_c"] == pytest.approx(psychrolib.GetTDewPointFromRelHum(25, 0.8),
-                                                abs=1e-6)
     assert data["dew_point_c"] == pytest.approx(
-        HAPropsSI("D", "T", 298.15, "P", 101325, "R", 0.8) - 273.15, abs=0.05)
+        psychrolib.GetTDewPointFromRelHum(25, 0.8), abs=1e-6
+    )
+    assert data["dew_point_c"] == pytest.approx(
+        HAPropsSI("D", "T", 298.15, "P", 101325, "R", 0.8) - 273.15, abs=0.05
+    )
     assert data["frost_point_c"] is None
     assert data["pressure_pa"] == 101325.0
     # grains per pound = 7000 × W (7000 grains = 1 lb).
     assert data["grains_per_pound"] == pytest.approx(7.0 * data["humidity_ratio_g_per_kg"])
-    for key in ("humidity_ratio_g_per_kg", "vapour_pressure_pa", "enthalpy_kj_per_kg",
-                "wet_bulb_c", "absolute_humidity_g_per_m3", "surfaces", "outdoor"):
+    for key in (
+        "humidity_ratio_g_per_kg",
+        "vapour_pressure_pa",
+        "enthalpy_kj_per_kg",
+        "wet_bulb_c",
+        "absolute_humidity_g_per_m3",
+        "surfaces",
+        "outdoor",
+    ):
         assert key in data
 
 
 def test_json_surfaces_and_outdoor(check):
     """Each surface gets surface RH, margin and condensing; outdoor gets the state keys."""
-    status, out, _ = check("--air-temp", "21", "--rh", "65", "--surface-temp", "12.5",
-                               "--surface-temp", "16", "--outdoor-temp", "4", "--outdoor-rh",
-                               "85", "--altitude", "350", "--json")
+    status, out, _ = check(
+        "--air-temp",
+        "21",
+        "--rh",
+        "65",
+        "--surface-temp",
+        "12.5",
+        "--surface-temp",
+        "16",
+        "--outdoor-temp",
+        "4",
+        "--outdoor-rh",
+        "85",
+        "--altitude",
+        "350",
+        "--json",
+    )
     assert status == 0
     data = json.loads(out)
     # Standard atmosphere at 350 m: 101325 (1 − 2.25577e−5 · 350)^5.2559 = 97 190 Pa
@@ -52,16 +72,33 @@ def test_json_surfaces_and_outdoor(check):
     assert cold["dew_point_margin_k"] == pytest.approx(12.5 - coolprop_dew, abs=0.05)
     assert warm["condensing"] is False and warm["dew_point_margin_k"] > 0
     assert data["outdoor"]["dew_point_c"] == pytest.approx(
-        HAPropsSI("D", "T", 277.15, "P", data["pressure_pa"], "R", 0.85) - 273.15, abs=0.05)
+        HAPropsSI("D", "T", 277.15, "P", data["pressure_pa"], "R", 0.85) - 273.15, abs=0.05
+    )
     assert data["outdoor"]["frost_point_c"] is None
 
 
 def test_unit_suffixes_work_in_every_option(check):
     """70F / 65% / 1013.25hPa give the same state as 21.11 / 65 / default pressure."""
-    _, out_units, _ = check("--air-temp", "70F", "--rh", "65%", "--pressure",
-                                "1013.25hPa", "--surface-temp", "55 °F", "--json")
-    _, out_plain, _ = check("--air-temp", str((70 - 32) / 1.8), "--rh", "65",
-                                "--surface-temp", str((55 - 32) / 1.8), "--json")
+    _, out_units, _ = check(
+        "--air-temp",
+        "70F",
+        "--rh",
+        "65%",
+        "--pressure",
+        "1013.25hPa",
+        "--surface-temp",
+        "55 °F",
+        "--json",
+    )
+    _, out_plain, _ = check(
+        "--air-temp",
+        str((70 - 32) / 1.8),
+        "--rh",
+        "65",
+        "--surface-temp",
+        str((55 - 32) / 1.8),
+        "--json",
+    )
     with_units, plain = json.loads(out_units), json.loads(out_plain)
     assert with_units["dew_point_c"] == pytest.approx(plain["dew_point_c"], abs=1e-9)
     for a, b in zip(with_units["surfaces"], plain["surfaces"], strict=True):
@@ -82,40 +119,62 @@ def test_table_output_shows_the_numbers(check):
     assert "Dew point" in out and "14.2 °C" in out and "12.5 °C" in out
 
 
-@pytest.mark.parametrize(("args", "message"), [
-    (["--air-temp", "21", "--rh", "120"],
-     "--rh 120: relative humidity must be above 0 and at most 100 %"),
-    (["--air-temp", "21", "--rh", "0"], "--rh 0: relative humidity must be above 0"),
-    (["--air-temp", "21", "--rh", "-5"], "--rh -5: relative humidity must be above 0"),
-    (["--air-temp", "21", "--rh", "wet"], "--rh wet: expected a percentage"),
-    (["--air-temp", "95", "--rh", "50"], "--air-temp 95: air temperature must be between -50"),
-    (["--air-temp", "-60", "--rh", "50"], "--air-temp -60: air temperature must be between"),
-    (["--air-temp", "21 hPa", "--rh", "50"], "--air-temp 21 hPa: unit 'hPa' is not a temperature"),
-    (["--air-temp", "warm", "--rh", "50"], "--air-temp warm: expected a number"),
-    (["--air-temp", "21", "--rh", "50", "--pressure", "300hPa"],
-     "--pressure 300hPa: pressure must be between 500 and 1100 hPa"),
-    (["--air-temp", "21", "--rh", "50", "--altitude", "12000"],
-     "--altitude 12000: altitude must be between -500 and 5000 m"),
-    (["--air-temp", "21", "--rh", "50", "--surface-temp", "200"],
-     "--surface-temp 200: surface temperature must be between -60 and 90 °C"),
-    (["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4"],
-     "--outdoor-temp 4: give --outdoor-rh as well"),
-    (["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4", "--outdoor-rh", "101"],
-     "--outdoor-rh 101: relative humidity must be above 0 and at most 100 %"),
-    (["--air-temp", "nan", "--rh", "50"], "--air-temp nan:"),
-    (["--air-temp", "21 °C)", "--rh", "50"], "--air-temp 21 °C): unit '°C)' is not"),
-    (["--air-temp", "21", "--rh", "0.65"], "--rh 0.65: looks like a fraction"),
-    (["--air-temp", "21", "--rh", "0.01 %"], "--rh 0.01 %: relative humidity below 0.1 %"),
-    (["--air-temp", "", "--rh", "50"], "--air-temp '': expected a number"),
-    (["--air-temp", "21", "--rh", "50", "--pressure", "1,013.25 hPa"],
-     "the number was not understood"),
-    (["--rh", "50"], "the following arguments are required: --air-temp"),
-    (["--air-temp", "21", "--rh", "50", "--units", "metric"], "invalid choice: 'metric'"),
-    (["--air-temp", "21", "--rh", "50", "--altitude", "10", "--pressure", "1000"],
-     "not allowed with argument"),
-    (["--air-tmp", "21", "--rh", "50"], "unknown option --air-tmp; did you mean --air-temp?"),
-    (["--air-temp", "21", "--rh", "50", "--frobnicate"], "unknown option --frobnicate"),
-])
+@pytest.mark.parametrize(
+    ("args", "message"),
+    [
+        (
+            ["--air-temp", "21", "--rh", "120"],
+            "--rh 120: relative humidity must be above 0 and at most 100 %",
+        ),
+        (["--air-temp", "21", "--rh", "0"], "--rh 0: relative humidity must be above 0"),
+        (["--air-temp", "21", "--rh", "-5"], "--rh -5: relative humidity must be above 0"),
+        (["--air-temp", "21", "--rh", "wet"], "--rh wet: expected a percentage"),
+        (["--air-temp", "95", "--rh", "50"], "--air-temp 95: air temperature must be between -50"),
+        (["--air-temp", "-60", "--rh", "50"], "--air-temp -60: air temperature must be between"),
+        (
+            ["--air-temp", "21 hPa", "--rh", "50"],
+            "--air-temp 21 hPa: unit 'hPa' is not a temperature",
+        ),
+        (["--air-temp", "warm", "--rh", "50"], "--air-temp warm: expected a number"),
+        (
+            ["--air-temp", "21", "--rh", "50", "--pressure", "300hPa"],
+            "--pressure 300hPa: pressure must be between 500 and 1100 hPa",
+        ),
+        (
+            ["--air-temp", "21", "--rh", "50", "--altitude", "12000"],
+            "--altitude 12000: altitude must be between -500 and 5000 m",
+        ),
+        (
+            ["--air-temp", "21", "--rh", "50", "--surface-temp", "200"],
+            "--surface-temp 200: surface temperature must be between -60 and 90 °C",
+        ),
+        (
+            ["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4"],
+            "--outdoor-temp 4: give --outdoor-rh as well",
+        ),
+        (
+            ["--air-temp", "21", "--rh", "50", "--outdoor-temp", "4", "--outdoor-rh", "101"],
+            "--outdoor-rh 101: relative humidity must be above 0 and at most 100 %",
+        ),
+        (["--air-temp", "nan", "--rh", "50"], "--air-temp nan:"),
+        (["--air-temp", "21 °C)", "--rh", "50"], "--air-temp 21 °C): unit '°C)' is not"),
+        (["--air-temp", "21", "--rh", "0.65"], "--rh 0.65: looks like a fraction"),
+        (["--air-temp", "21", "--rh", "0.01 %"], "--rh 0.01 %: relative humidity below 0.1 %"),
+        (["--air-temp", "", "--rh", "50"], "--air-temp '': expected a number"),
+        (
+            ["--air-temp", "21", "--rh", "50", "--pressure", "1,013.25 hPa"],
+            "the number was not understood",
+        ),
+        (["--rh", "50"], "the following arguments are required: --air-temp"),
+        (["--air-temp", "21", "--rh", "50", "--units", "metric"], "invalid choice: 'metric'"),
+        (
+            ["--air-temp", "21", "--rh", "50", "--altitude", "10", "--pressure", "1000"],
+            "not allowed with argument",
+        ),
+        (["--air-tmp", "21", "--rh", "50"], "unknown option --air-tmp; did you mean --air-temp?"),
+        (["--air-temp", "21", "--rh", "50", "--frobnicate"], "unknown option --frobnicate"),
+    ],
+)
 def test_bad_input_exits_2_with_one_line(check, args, message):
     """Bad input: status 2, one line on stderr naming the option and value, no traceback."""
     status, out, err = check(*args)
@@ -126,13 +185,19 @@ def test_bad_input_exits_2_with_one_line(check, args, message):
     assert "Traceback" not in err
 
 
-@pytest.mark.parametrize(("args", "key", "expected"), [
-    (["--air-temp", "-23F", "--rh", "60"], "dry_bulb_c", (-23 - 32) / 1.8),
-    (["--air-temp", "21", "--rh", "60", "--surface-temp", "-2,5"], None, -2.5),
-    (["--air-temp", "21", "--rh", "60", "--outdoor-temp", "-3C", "--outdoor-rh", "90"],
-     "outdoor", -3.0),
-    (["--air-temp", "\u22125", "--rh", "60"], "dry_bulb_c", -5.0),
-])
+@pytest.mark.parametrize(
+    ("args", "key", "expected"),
+    [
+        (["--air-temp", "-23F", "--rh", "60"], "dry_bulb_c", (-23 - 32) / 1.8),
+        (["--air-temp", "21", "--rh", "60", "--surface-temp", "-2,5"], None, -2.5),
+        (
+            ["--air-temp", "21", "--rh", "60", "--outdoor-temp", "-3C", "--outdoor-rh", "90"],
+            "outdoor",
+            -3.0,
+        ),
+        (["--air-temp", "\u22125", "--rh", "60"], "dry_bulb_c", -5.0),
+    ],
+)
 def test_negative_values_with_units_or_commas_are_read(check, args, key, expected):
     """Winter readings like -3C, -2,5 and -23F are values, not unknown options."""
     status, out, err = check(*args, "--json")
@@ -149,8 +214,9 @@ def test_negative_values_with_units_or_commas_are_read(check, args, key, expecte
 def test_python_dash_m_and_console_script_agree():
     """`python -m survey check` and the installed `survey` script give the same answer."""
     args = ["check", "--air-temp", "20", "--rh", "50", "--json"]
-    by_module = subprocess.run([sys.executable, "-m", "survey", *args], capture_output=True,
-                               text=True, timeout=60)
+    by_module = subprocess.run(
+        [sys.executable, "-m", "survey", *args], capture_output=True, text=True, timeout=60
+    )
     assert by_module.returncode == 0, by_module.stderr
     # CoolProp HAPropsSI at 20 °C / 50 %: dew point 9.274 °C.
     assert json.loads(by_module.stdout)["dew_point_c"] == pytest.approx(9.274, abs=0.02)
@@ -164,9 +230,12 @@ def test_python_dash_m_and_console_script_agree():
 
 def test_closed_pipe_is_not_a_traceback():
     """`survey check --json | (reader that closes at once)` exits quietly."""
-    process = subprocess.Popen([sys.executable, "-m", "survey", "check", "--air-temp", "21",
-                                "--rh", "65", "--json"] + ["--surface-temp", "10"] * 2000,
-                               stdout=subprocess.PIPE, stderr=subprocess.PIPE)
+    process = subprocess.Popen(
+        [sys.executable, "-m", "survey", "check", "--air-temp", "21", "--rh", "65", "--json"]
+        + ["--surface-temp", "10"] * 2000,
+        stdout=subprocess.PIPE,
+        stderr=subprocess.PIPE,
+    )
     process.stdout.close()  # the reader goes away before the output is written
     _, err = process.communicate(timeout=60)
     assert b"Traceback" not in err
@@ -175,8 +244,13 @@ def test_closed_pipe_is_not_a_traceback():
 
 def test_bad_input_in_a_real_process_has_no_traceback():
     """A real process given bad input prints one line and exits 2."""
-    result = subprocess.run([sys.executable, "-m", "survey", "check", "--air-temp", "21",
-                             "--rh", "120"], capture_output=True, text=True, timeout=60)
+    result = subprocess.run(
+        [sys.executable, "-m", "survey", "check", "--air-temp", "21", "--rh", "120"],
+        capture_output=True,
+        text=True,
+        timeout=60,
+    )
     assert result.returncode == 2
     assert result.stderr.strip() == (
-        "survey: --rh 120: relative humidity must be above 0 and at most 100 %")
+        "survey: --rh 120: relative humidity must be above 0 and at most 100 %"
+    )

@@ -13,10 +13,9 @@ from pathlib import Path
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
-from survey.advise import DehumidifyWhy
-from survey import words
-from survey import assess, evaluate, model, store
+from survey import assess, evaluate, model, store, words
 from survey import thresholds as th
+from survey.advise import DehumidifyWhy
 
 EXAMPLES = Path(__file__).resolve().parents[1] / "example_sites"
 
@@ -74,10 +73,12 @@ def test_humid_summer_cottage_is_not_told_to_ventilate():
     judged = evaluate.assess_visit(survey, 0)
     pressure = model.pressure_pa_for(survey, judged.visit)
     w_out = HAPropsSI("W", "T", 22.5 + 273.15, "P", pressure, "R", 0.82)
-    for room_id, finding, advice in zip(judged.room_ids, judged.findings.rooms,
-                                        judged.advice.rooms):
-        w_in = HAPropsSI("W", "T", finding.air.dry_bulb_c + 273.15, "P", pressure,
-                         "R", finding.air.rh_pct / 100)
+    for room_id, finding, advice in zip(
+        judged.room_ids, judged.findings.rooms, judged.advice.rooms, strict=False
+    ):
+        w_in = HAPropsSI(
+            "W", "T", finding.air.dry_bulb_c + 273.15, "P", pressure, "R", finding.air.rh_pct / 100
+        )
         assert w_out > w_in, room_id
         assert "ventilate" not in _kinds(advice), room_id
     living = judged.advice.rooms[judged.room_ids.index("living")]
@@ -112,8 +113,13 @@ def test_dry_standard_found_in_the_same_room_first():
     visit = survey.visits[0]
     family = next(rv for rv in visit.rooms if rv.room == "family")
     wet = next(m for m in family.materials if not m.dry_standard)
-    own = model.MaterialReading(location="own dry spot", material=wet.material,
-                                value=wet.value / 3, scale=wet.scale, dry_standard=True)
+    own = model.MaterialReading(
+        location="own dry spot",
+        material=wet.material,
+        value=wet.value / 3,
+        scale=wet.scale,
+        dry_standard=True,
+    )
     family.materials.append(own)
     entered: dict[str, bool] = {}
     judged = evaluate.room_input(survey, visit, family, entered)
@@ -130,10 +136,17 @@ def test_room_without_an_air_reading_is_left_out():
     assert len(judged.room_ids) == len(survey.visits[0].rooms) - 1
 
 
-@pytest.mark.parametrize(("material", "timber"), [
-    ("softwood skirting", True), ("Pine floorboards", True), ("chipboard floor", True),
-    ("gypsum plaster", False), ("concrete screed", False), ("painted brick", False),
-])
+@pytest.mark.parametrize(
+    ("material", "timber"),
+    [
+        ("softwood skirting", True),
+        ("Pine floorboards", True),
+        ("chipboard floor", True),
+        ("gypsum plaster", False),
+        ("concrete screed", False),
+        ("painted brick", False),
+    ],
+)
 def test_timber_is_recognised_by_name(material, timber):
     """Timber limits apply to wood products only."""
     assert evaluate.is_timber(material) is timber
@@ -186,8 +199,11 @@ def test_basement_drying_visits_say_keep_drying():
     goals = {m.label: (m.value, m.dry_at_or_below) for m in keep.numbers.materials}
     value, goal = goals["Skirting, party wall"]
     assert value > goal
-    standard = next(m.dry_standard for m in day3.findings.rooms[
-        day3.room_ids.index("family")].materials if m.label == "Skirting, party wall")
+    standard = next(
+        m.dry_standard
+        for m in day3.findings.rooms[day3.room_ids.index("family")].materials
+        if m.label == "Skirting, party wall"
+    )
     assert goal == pytest.approx(standard * 1.1)
 
 
@@ -208,16 +224,19 @@ def test_room_being_dried_is_kept_closed_and_dehumidified_never_ventilated():
     survey = load("basement-burst-pipe-drying")
     for index in range(len(survey.visits)):
         judged = evaluate.assess_visit(survey, index)
-        for room_id, room_visit in zip(judged.room_ids,
-                                       [r for r in judged.visit.rooms if r.air is not None]):
+        for room_id, room_visit in zip(
+            judged.room_ids, [r for r in judged.visit.rooms if r.air is not None], strict=False
+        ):
             if not evaluate.drying_in_progress(room_visit):
                 continue
             advice = _room_advice(judged, room_id)
             assert "ventilate" not in _kinds(advice)
             dehumidify = next(a for a in advice.actions if a.kind.value == "dehumidify")
-            assert dehumidify.numbers.why in (DehumidifyWhy.DRYING_ABOVE_TARGET,
-                                              DehumidifyWhy.DRYING_WITHIN_TARGET,
-                                              DehumidifyWhy.DRYING_AIR_MOVERS_ONLY)
+            assert dehumidify.numbers.why in (
+                DehumidifyWhy.DRYING_ABOVE_TARGET,
+                DehumidifyWhy.DRYING_WITHIN_TARGET,
+                DehumidifyWhy.DRYING_AIR_MOVERS_ONLY,
+            )
             assert dehumidify.numbers.drying_in_progress is True
             assert dehumidify.numbers.target_rh_pct == 50.0
             for glazing in advice.actions:
@@ -235,12 +254,15 @@ def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
     room_visit = next(r for r in judged.visit.rooms if r.room == room_id)
     unit = next(e for e in room_visit.equipment if e.kind.endswith("dehumidifier"))
     hours = (survey.visits[1].started_at - survey.visits[0].started_at).total_seconds() / 3600
-    dehumidify = next(a for a in _room_advice(judged, room_id).actions
-                      if a.kind.value == "dehumidify")
+    dehumidify = next(
+        a for a in _room_advice(judged, room_id).actions if a.kind.value == "dehumidify"
+    )
     assert dehumidify.numbers.removal_l_per_day == pytest.approx(
-        unit.water_removed_l * 24.0 / hours, rel=1e-9)
+        unit.water_removed_l * 24.0 / hours, rel=1e-9
+    )
     drop = _cp_w(room_visit.air.dry_bulb_c, room_visit.air.rh_pct) - _cp_w(
-        unit.outlet.dry_bulb_c, unit.outlet.rh_pct)
+        unit.outlet.dry_bulb_c, unit.outlet.rh_pct
+    )
     assert dehumidify.numbers.grain_depression_g_per_kg == pytest.approx(1000 * drop, rel=0.02)
     assert dehumidify.numbers.grain_depression_gr_per_lb == pytest.approx(7000 * drop, rel=0.02)
     assert dehumidify.numbers.rated_capacity_l_per_day == pytest.approx(50.0)  # the example
@@ -251,10 +273,14 @@ def test_air_movers_without_a_dehumidifier_are_told_to_join_the_dried_area():
     no source): join the dehumidified area or get a unit."""
     survey = load("basement-burst-pipe-drying")
     judged = evaluate.assess_visit(survey, 0)
-    store_id = next(r.room for r in judged.visit.rooms
-                    if r.equipment and all(e.kind == "air_mover" for e in r.equipment))
-    dehumidify = next(a for a in _room_advice(judged, store_id).actions
-                      if a.kind.value == "dehumidify")
+    store_id = next(
+        r.room
+        for r in judged.visit.rooms
+        if r.equipment and all(e.kind == "air_mover" for e in r.equipment)
+    )
+    dehumidify = next(
+        a for a in _room_advice(judged, store_id).actions if a.kind.value == "dehumidify"
+    )
     assert dehumidify.numbers.air_movers_without_dehumidifier is True
     assert dehumidify.numbers.why is DehumidifyWhy.DRYING_AIR_MOVERS_ONLY
 
@@ -266,7 +292,8 @@ def test_wet_drying_room_surfaces_are_not_judged_by_temperature_factor():
     judged = evaluate.assess_visit(survey, 1)
     room = judged.findings.rooms[0]
     assert all(s.temperature_factor is None for s in room.surfaces)
-    assert {s.temperature_factor_state for s in room.surfaces
-            if s.policy.temperature_factor} == {assess.FactorState.DRYING_WET}
+    assert {s.temperature_factor_state for s in room.surfaces if s.policy.temperature_factor} == {
+        assess.FactorState.DRYING_WET
+    }
     advice = judged.advice.rooms[0]
     assert "raise_surface_temperature" not in _kinds(advice)

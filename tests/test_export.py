@@ -43,25 +43,48 @@ def _with_logs(survey: model.Survey, *series: model.LogSeries) -> model.Survey:
 
 def _samples(*readings: tuple[float, float]) -> list[model.LogSample]:
     start = dt.datetime(2025, 1, 15, 10, 0)
-    return [model.LogSample(at=start + dt.timedelta(minutes=10 * n), dry_bulb_c=t, rh_pct=rh)
-            for n, (t, rh) in enumerate(readings)]
+    return [
+        model.LogSample(at=start + dt.timedelta(minutes=10 * n), dry_bulb_c=t, rh_pct=rh)
+        for n, (t, rh) in enumerate(readings)
+    ]
 
 
 # --- columns -----------------------------------------------------------------------------
+
 
 def test_air_columns_hold_what_check_json_holds_under_the_same_key(capsys):
     """The bedroom's air row and check's JSON for the same air agree on every shared key."""
     survey = store.load_survey(FLAT)
     bedroom = next(r for r in _rows(survey) if r["kind"] == "room_air" and r["room_id"] == "bed1")
     pressure = model.pressure_pa_for(survey, survey.visits[0])
-    assert main(["check", "--air-temp", bedroom["dry_bulb_c"], "--rh", bedroom["rh_pct"],
-                 "--pressure", f"{pressure} Pa", "--json"]) == 0
+    assert (
+        main(
+            [
+                "check",
+                "--air-temp",
+                bedroom["dry_bulb_c"],
+                "--rh",
+                bedroom["rh_pct"],
+                "--pressure",
+                f"{pressure} Pa",
+                "--json",
+            ]
+        )
+        == 0
+    )
     result = json.loads(capsys.readouterr().out)
-    shared = ["dry_bulb_c", "rh_pct", "pressure_pa", "dew_point_c", "humidity_ratio_g_per_kg",
-              "vapour_pressure_pa", "absolute_humidity_g_per_m3"]
+    shared = [
+        "dry_bulb_c",
+        "rh_pct",
+        "pressure_pa",
+        "dew_point_c",
+        "humidity_ratio_g_per_kg",
+        "vapour_pressure_pa",
+        "absolute_humidity_g_per_m3",
+    ]
     for key in shared:
         places = len(bedroom[key].partition(".")[2])
-        assert float(bedroom[key]) == pytest.approx(result[key], abs=0.51 * 10 ** -places), key
+        assert float(bedroom[key]) == pytest.approx(result[key], abs=0.51 * 10**-places), key
 
 
 def test_surface_columns_hold_what_check_json_holds_under_the_same_key(capsys):
@@ -71,12 +94,27 @@ def test_surface_columns_hold_what_check_json_holds_under_the_same_key(capsys):
     air = next(r for r in rows if r["kind"] == "room_air" and r["room_id"] == "bed1")
     corner = next(r for r in rows if r["kind"] == "surface" and "wardrobe" in r["location"])
     pressure = model.pressure_pa_for(survey, survey.visits[0])
-    assert main(["check", "--air-temp", air["dry_bulb_c"], "--rh", air["rh_pct"], "--pressure",
-                 f"{pressure} Pa", "--surface-temp", corner["surface_temp_c"], "--json"]) == 0
+    assert (
+        main(
+            [
+                "check",
+                "--air-temp",
+                air["dry_bulb_c"],
+                "--rh",
+                air["rh_pct"],
+                "--pressure",
+                f"{pressure} Pa",
+                "--surface-temp",
+                corner["surface_temp_c"],
+                "--json",
+            ]
+        )
+        == 0
+    )
     (surface,) = json.loads(capsys.readouterr().out)["surfaces"]
     for key in ("surface_temp_c", "surface_rh_pct", "dew_point_margin_k"):
         places = len(corner[key].partition(".")[2])
-        assert float(corner[key]) == pytest.approx(surface[key], abs=0.51 * 10 ** -places), key
+        assert float(corner[key]) == pytest.approx(surface[key], abs=0.51 * 10**-places), key
 
 
 def test_ip_columns_use_check_json_s_name_for_grains_per_pound():
@@ -100,9 +138,18 @@ def test_header_is_the_column_names_of_the_unit_system():
 # --- fixed decimals ----------------------------------------------------------------------
 
 _DECIMALS_BY_COLUMN = {
-    "dry_bulb_c": 2, "rh_pct": 1, "pressure_pa": 0, "dew_point_c": 2, "frost_point_c": 2,
-    "humidity_ratio_g_per_kg": 2, "vapour_pressure_pa": 0, "absolute_humidity_g_per_m3": 2,
-    "surface_temp_c": 2, "surface_rh_pct": 1, "dew_point_margin_k": 2, "moisture_value": 1,
+    "dry_bulb_c": 2,
+    "rh_pct": 1,
+    "pressure_pa": 0,
+    "dew_point_c": 2,
+    "frost_point_c": 2,
+    "humidity_ratio_g_per_kg": 2,
+    "vapour_pressure_pa": 0,
+    "absolute_humidity_g_per_m3": 2,
+    "surface_temp_c": 2,
+    "surface_rh_pct": 1,
+    "dew_point_margin_k": 2,
+    "moisture_value": 1,
     "humidity_ratio_drop_g_per_kg": 2,
 }
 
@@ -132,10 +179,26 @@ def test_negative_zero_is_written_without_its_sign():
 
 # --- spreadsheet safety and NUL ----------------------------------------------------------
 
-@pytest.mark.parametrize("cell", [
-    "=1+1", "+1+1", "-2+3", "@SUM(A1)", " =1+1", "\n=1+1", "\r\n@x", "\t=1", "\u3000=1",
-    "\uff1d1+1", "\uff0b1", "\uff0d1", "\uff20SUM(A1)", "  \uff1dx",
-])
+
+@pytest.mark.parametrize(
+    "cell",
+    [
+        "=1+1",
+        "+1+1",
+        "-2+3",
+        "@SUM(A1)",
+        " =1+1",
+        "\n=1+1",
+        "\r\n@x",
+        "\t=1",
+        "\u3000=1",
+        "\uff1d1+1",
+        "\uff0b1",
+        "\uff0d1",
+        "\uff20SUM(A1)",
+        "  \uff1dx",
+    ],
+)
 def test_text_that_a_spreadsheet_would_run_gets_an_apostrophe(cell):
     """A formula start, also after white space or in full-width form, gets an apostrophe."""
     assert export.spreadsheet_safe(cell) == "'" + cell
@@ -198,10 +261,13 @@ def test_control_characters_are_made_visible_for_a_terminal():
 
 # --- logger rows -------------------------------------------------------------------------
 
+
 def test_logger_rows_agree_with_coolprop():
     """A logger sample's dew point and humidity ratio are CoolProp's for the same air."""
-    survey = _with_logs(store.load_survey(FLAT), model.LogSeries(
-        room="bed1", source="unit.csv", samples=_samples((20.0, 50.0))))
+    survey = _with_logs(
+        store.load_survey(FLAT),
+        model.LogSeries(room="bed1", source="unit.csv", samples=_samples((20.0, 50.0))),
+    )
     (row,) = [r for r in _rows(survey) if r["kind"] == "logger"]
     pressure = model.pressure_pa_for(survey)
     dew = HAPropsSI("D", "T", 293.15, "P", pressure, "R", 0.5) - 273.15
@@ -215,13 +281,22 @@ def test_repeated_logger_readings_give_the_same_cells_as_a_room_reading():
     """Logged and spot readings of the same air get the same cells, also below 0 °C."""
     survey = store.load_survey(FLAT)
     readings = [(17.5, 72.0), (-5.0, 80.0), (17.5, 72.0), (-5.0, 80.0)]
-    survey = _with_logs(survey, model.LogSeries(room=None, source="garden.csv",
-                                                samples=_samples(*readings)))
+    survey = _with_logs(
+        survey, model.LogSeries(room=None, source="garden.csv", samples=_samples(*readings))
+    )
     survey.visits[0].outdoor.dry_bulb_c, survey.visits[0].outdoor.rh_pct = -5.0, 80.0
     survey.visits[0].pressure_pa = None
     rows = _rows(survey)
-    air = ["dry_bulb_c", "rh_pct", "pressure_pa", "dew_point_c", "frost_point_c",
-           "humidity_ratio_g_per_kg", "vapour_pressure_pa", "absolute_humidity_g_per_m3"]
+    air = [
+        "dry_bulb_c",
+        "rh_pct",
+        "pressure_pa",
+        "dew_point_c",
+        "frost_point_c",
+        "humidity_ratio_g_per_kg",
+        "vapour_pressure_pa",
+        "absolute_humidity_g_per_m3",
+    ]
     bedroom = next(r for r in rows if r["kind"] == "room_air" and r["room_id"] == "bed1")
     logged = [r for r in rows if r["kind"] == "outdoor_logger"]
     assert [logged[0][k] for k in air] == [logged[2][k] for k in air]
@@ -232,8 +307,9 @@ def test_repeated_logger_readings_give_the_same_cells_as_a_room_reading():
 def test_a_long_series_is_written_in_bounded_blocks():
     """20 000 samples reach the stream in many bounded writes, never as one whole text."""
     samples = _samples(*[(18.0 + (n % 50) / 10, 60.0 + (n % 30) / 10) for n in range(20_000)])
-    survey = _with_logs(store.load_survey(FLAT), model.LogSeries(
-        room="bed1", source="unit.csv", samples=samples))
+    survey = _with_logs(
+        store.load_survey(FLAT), model.LogSeries(room="bed1", source="unit.csv", samples=samples)
+    )
     writes: list[int] = []
 
     class Recorder(io.StringIO):
@@ -246,6 +322,7 @@ def test_a_long_series_is_written_in_bounded_blocks():
 
 
 # --- the file ----------------------------------------------------------------------------
+
 
 def test_save_csv_writes_utf8_with_a_byte_order_mark(tmp_path):
     """The file starts with the UTF-8 byte-order mark and holds the header and rows."""
@@ -292,8 +369,9 @@ def test_text_with_separators_quotes_and_line_breaks_reads_back_the_same():
     """A name with a comma, quotes and a line break reads back unchanged (RFC 4180)."""
     survey = store.load_survey(FLAT)
     survey.rooms[0].name = 'Bed, "main"\r\nroom'
-    survey = _with_logs(survey, model.LogSeries(room="bed1", source='a,"b".csv',
-                                                samples=_samples((18.0, 60.0))))
+    survey = _with_logs(
+        survey, model.LogSeries(room="bed1", source='a,"b".csv', samples=_samples((18.0, 60.0)))
+    )
     rows = _rows(survey)
     assert rows[1]["room_name"] == 'Bed, "main"\r\nroom'
     assert [r["location"] for r in rows if r["kind"] == "logger"] == ['a,"b".csv']

@@ -30,8 +30,13 @@ BASEMENT = EXAMPLES / "basement-burst-pipe-drying.json"
 
 
 def _run(*argv: str) -> subprocess.CompletedProcess:
-    return subprocess.run([sys.executable, "-m", "survey", *argv], capture_output=True,
-                          text=True, timeout=60, cwd=ROOT)
+    return subprocess.run(
+        [sys.executable, "-m", "survey", *argv],
+        capture_output=True,
+        text=True,
+        timeout=60,
+        cwd=ROOT,
+    )
 
 
 def _read_csv(path: Path) -> list[dict[str, str]]:
@@ -40,11 +45,29 @@ def _read_csv(path: Path) -> list[dict[str, str]]:
 
 # --- new ---------------------------------------------------------------------------------
 
+
 def test_new_creates_a_valid_empty_survey(tmp_path, capsys):
     """`survey new FILE --site …` writes a survey that validates, with no rooms yet."""
     path = tmp_path / "flat.json"
-    assert main(["new", str(path), "--site", "CS-1 Flat 2", "--inspector", "A. Tester",
-                 "--purpose", "pre_purchase", "--units", "ip", "--altitude", "400 ft"]) == 0
+    assert (
+        main(
+            [
+                "new",
+                str(path),
+                "--site",
+                "CS-1 Flat 2",
+                "--inspector",
+                "A. Tester",
+                "--purpose",
+                "pre_purchase",
+                "--units",
+                "ip",
+                "--altitude",
+                "400 ft",
+            ]
+        )
+        == 0
+    )
     assert "Created" in capsys.readouterr().out
     survey = store.load_survey(path)
     assert survey.site.reference == "CS-1 Flat 2" and survey.site.purpose == "pre_purchase"
@@ -62,11 +85,14 @@ def test_new_never_overwrites(tmp_path, capsys):
     assert path.read_text() == "precious"
 
 
-@pytest.mark.parametrize("args, field", [
-    (["--purpose", "survey"], "--purpose"),
-    (["--altitude", "9 km"], "--altitude"),
-    (["--pressure", "20 kPa"], "--pressure"),
-])
+@pytest.mark.parametrize(
+    ("args", "field"),
+    [
+        (["--purpose", "survey"], "--purpose"),
+        (["--altitude", "9 km"], "--altitude"),
+        (["--pressure", "20 kPa"], "--pressure"),
+    ],
+)
 def test_new_rejects_bad_options_naming_them(tmp_path, capsys, args, field):
     """A bad option value exits 2 with the option's name and creates no file."""
     path = tmp_path / "flat.json"
@@ -76,6 +102,7 @@ def test_new_rejects_bad_options_naming_them(tmp_path, capsys, args, field):
 
 
 # --- validate ----------------------------------------------------------------------------
+
 
 def test_validate_accepts_the_example_sites(capsys):
     """`survey validate` on the three examples prints one ok line each and exits 0."""
@@ -97,7 +124,8 @@ def test_validate_bad_file_exits_1_without_a_traceback(tmp_path):
     assert "Traceback" not in result.stderr
     assert result.stderr.strip() == (
         f"survey: {path} at visits[0].rooms[3].surfaces[0].surface_temp_c: 120 is out of "
-        "range; allowed: between -60 and 90 °C")
+        "range; allowed: between -60 and 90 °C"
+    )
 
 
 def test_validate_reports_every_file(tmp_path, capsys):
@@ -120,6 +148,7 @@ def test_validate_mentions_an_old_schema_and_a_lock(tmp_path, capsys):
 
 
 # --- export ------------------------------------------------------------------------------
+
 
 def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys):
     """The CSV has a row per reading; dew point and humidity ratio agree with CoolProp and
@@ -148,8 +177,9 @@ def test_export_writes_one_row_per_reading_with_derived_values(tmp_path, capsys)
     saturation_at_surface = HAPropsSI("P_w", "T", ts + 273.15, "P", pressure, "R", 1.0)
     # CoolProp's saturated vapour pressure in air includes the enhancement factor (about
     # 0.4 % at 1 atm) that the ideal-gas ASHRAE formulas leave out: hence 0.7 %.
-    assert float(corner["surface_rh_pct"]) == pytest.approx(100 * vapour / saturation_at_surface,
-                                                           rel=0.007)
+    assert float(corner["surface_rh_pct"]) == pytest.approx(
+        100 * vapour / saturation_at_surface, rel=0.007
+    )
 
 
 def test_export_in_ip_units(tmp_path):
@@ -170,7 +200,9 @@ def test_export_to_standard_output(capsys):
     """--csv - writes the CSV to standard output."""
     assert main(["export", str(BASEMENT), "--csv", "-"]) == 0
     rows = list(csv.DictReader(io.StringIO(capsys.readouterr().out)))
-    assert len(rows) == 3 * (1 + 3 + 6 + 7 + 1)  # per visit: outdoor, air, surfaces, materials, outlet
+    assert len(rows) == 3 * (
+        1 + 3 + 6 + 7 + 1
+    )  # per visit: outdoor, air, surfaces, materials, outlet
 
 
 def test_export_refuses_to_overwrite_the_survey(tmp_path, capsys):
@@ -217,8 +249,21 @@ def flat_and_log(tmp_path) -> tuple[Path, Path]:
 def test_import_log_adds_samples_and_lists_skipped_rows(flat_and_log, capsys):
     """import-log adds the good rows to the room, converts °F, and lists each skipped row."""
     path, log = flat_and_log
-    assert main(["import-log", str(path), "--room", "Main bedroom", "--csv", str(log),
-                 "--instrument", "th1"]) == 0
+    assert (
+        main(
+            [
+                "import-log",
+                str(path),
+                "--room",
+                "Main bedroom",
+                "--csv",
+                str(log),
+                "--instrument",
+                "th1",
+            ]
+        )
+        == 0
+    )
     out = capsys.readouterr().out
     assert "Imported 3 samples from bedroom-logger.csv into Main bedroom (bed1)" in out
     assert "every 30 min" in out and "°F, converted to °C" in out
@@ -240,8 +285,10 @@ def test_import_log_refuses_the_same_file_twice(flat_and_log, capsys):
     capsys.readouterr()
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
     err = capsys.readouterr().err
-    assert "already imported into Main bedroom (bed1) (3 samples, 2025-01-15 10:00 to 12:00, " \
-           "from bedroom-logger.csv" in err
+    assert (
+        "already imported into Main bedroom (bed1) (3 samples, 2025-01-15 10:00 to 12:00, "
+        "from bedroom-logger.csv" in err
+    )
     assert err.rstrip().endswith("nothing was changed") and "logs[" not in err
     assert path.read_bytes() == before
 
@@ -295,6 +342,7 @@ def test_import_log_missing_csv_is_a_file_error(tmp_path, capsys):
 
 # --- schema and help ---------------------------------------------------------------------
 
+
 def test_schema_prints_the_generated_json_schema(capsys):
     """`survey schema` prints the JSON Schema generated from the model."""
     assert main(["schema"]) == 0
@@ -321,11 +369,15 @@ def test_import_log_of_a_later_export_adds_only_the_new_samples(flat_and_log, ca
     capsys.readouterr()
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(later)]) == 0
     out = capsys.readouterr().out
-    assert "Imported 1 sample from bedroom-logger-later.csv into Main bedroom (bed1) at " \
-           "2025-01-15 12:30" in out
-    assert "Left out 3 samples already in the survey for Main bedroom (bed1), from " \
-           "bedroom-logger.csv" in out
-    first, second = store.load_survey(path).logs
+    assert (
+        "Imported 1 sample from bedroom-logger-later.csv into Main bedroom (bed1) at "
+        "2025-01-15 12:30" in out
+    )
+    assert (
+        "Left out 3 samples already in the survey for Main bedroom (bed1), from "
+        "bedroom-logger.csv" in out
+    )
+    _first, second = store.load_survey(path).logs
     assert [s.at.hour * 60 + s.at.minute for s in second.samples] == [12 * 60 + 30]
     before = path.read_bytes()
     again = tmp_path / "bedroom-logger-copy.csv"
@@ -343,8 +395,22 @@ def test_import_log_summary_names_where_the_unit_came_from(flat_and_log, capsys,
     path, _log = flat_and_log
     log = tmp_path / "c.csv"
     log.write_text("Time,Temp (°F),RH (%)\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
-    assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run",
-                 "--temp-unit", "c"]) == 0
+    assert (
+        main(
+            [
+                "import-log",
+                str(path),
+                "--room",
+                "bed1",
+                "--csv",
+                str(log),
+                "--dry-run",
+                "--temp-unit",
+                "c",
+            ]
+        )
+        == 0
+    )
     out = capsys.readouterr().out
     assert "(°C, unit as given by --temp-unit)" in out and "the stated" not in out
     assert "The header says °F; °C was stated: the temperatures are read as °C." in out
@@ -389,8 +455,13 @@ def test_validate_says_a_lock_is_stale(tmp_path, capsys):
     shutil.copy(FLAT, path)
     gone = subprocess.Popen([sys.executable, "-c", "pass"])
     gone.wait()
-    info = store.LockInfo(pid=gone.pid, host=socket.gethostname(), user="avery",
-                          started_at="2025-01-15T09:30:00", token="t")
+    info = store.LockInfo(
+        pid=gone.pid,
+        host=socket.gethostname(),
+        user="avery",
+        started_at="2025-01-15T09:30:00",
+        token="t",
+    )
     store.lock_path(path).write_bytes(msgspec.json.encode(info))
     assert main(["validate", str(path)]) == 0
     out = capsys.readouterr().out
@@ -413,7 +484,8 @@ def test_validate_of_other_json_is_one_plain_sentence(tmp_path, capsys):
     path.write_text('{"name": "something else"}')
     assert main(["validate", str(path)]) == 1
     assert capsys.readouterr().err.strip() == (
-        f"survey: {path}: this is not a condition-survey file (it has no schema_version)")
+        f"survey: {path}: this is not a condition-survey file (it has no schema_version)"
+    )
 
 
 def test_export_neutralises_spreadsheet_formulas(tmp_path):
@@ -421,9 +493,17 @@ def test_export_neutralises_spreadsheet_formulas(tmp_path):
     spreadsheet shows them as text; numbers, negative ones too, are left alone."""
     survey = store.load_survey(FLAT)
     surfaces = [surface for room in survey.visits[0].rooms for surface in room.surfaces]
-    texts = ['=HYPERLINK("http://example.invalid","x")', "+1+cmd|' /C calc'!A0", "-2+3",
-             "@SUM(A1)", "\tleading tab", "\rleading CR", "plain text", "-5"]
-    for surface, text in zip(surfaces, texts):
+    texts = [
+        '=HYPERLINK("http://example.invalid","x")',
+        "+1+cmd|' /C calc'!A0",
+        "-2+3",
+        "@SUM(A1)",
+        "\tleading tab",
+        "\rleading CR",
+        "plain text",
+        "-5",
+    ]
+    for surface, text in zip(surfaces, texts, strict=False):
         surface.location = text
     survey.visits[0].outdoor.dry_bulb_c = -3.5
     path = tmp_path / "s.json"
@@ -431,7 +511,7 @@ def test_export_neutralises_spreadsheet_formulas(tmp_path):
     out = tmp_path / "o.csv"
     assert main(["export", str(path), "--csv", str(out)]) == 0
     rows = _read_csv(out)
-    cells = [r["location"] for r in rows if r["kind"] == "surface"][:len(texts)]
+    cells = [r["location"] for r in rows if r["kind"] == "surface"][: len(texts)]
     assert cells == ["'" + t for t in texts[:6]] + ["plain text", "-5"]
     outdoor = rows[0]
     assert outdoor["dry_bulb_c"] == "-3.50" and outdoor["dew_point_c"].startswith("-")
@@ -472,21 +552,24 @@ def test_every_option_and_argument_of_the_file_commands_has_help(command):
     from survey.cli import _subcommands, build_parser
 
     parser = _subcommands(build_parser())[command]
-    missing = [action.dest for action in parser._actions
-               if action.dest != "help" and not (action.help or "").strip()]
+    missing = [
+        action.dest
+        for action in parser._actions
+        if action.dest != "help" and not (action.help or "").strip()
+    ]
     assert missing == []
 
 
-def test_a_logger_header_without_a_unit_is_reported_under_temp_unit(flat_and_log, capsys,
-                                                                     tmp_path):
+def test_a_logger_header_without_a_unit_is_reported_under_temp_unit(flat_and_log, capsys, tmp_path):
     """The core's "temperature unit" error reaches the user as --temp-unit, exit 2."""
     path, _log = flat_and_log
     log = tmp_path / "plain.csv"
     log.write_text("time,temp,rh\n2025-01-15 10:00,18.5,70\n", encoding="utf-8")
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 2
     err = capsys.readouterr().err
-    assert err.startswith("survey: --temp-unit (not given): the temperature column 'temp' "
-                          "does not say its unit")
+    assert err.startswith(
+        "survey: --temp-unit (not given): the temperature column 'temp' does not say its unit"
+    )
 
 
 def test_a_logger_file_without_a_header_is_reported_under_csv(flat_and_log, capsys, tmp_path):
@@ -521,8 +604,10 @@ def test_import_log_output_shows_room_names_and_file_text_escaped(tmp_path, caps
     path = tmp_path / "s.json"
     store.save_survey(survey, path)
     log = tmp_path / "odd\x1b[2Jname.csv"
-    log.write_text("Time,Temp \x1b[31m(°C),RH (%)\n2025-01-15 10:00,18.5,70\n"
-                   "2025-01-15 10:30,\x1b[5mhot,70\n", encoding="utf-8")
+    log.write_text(
+        "Time,Temp \x1b[31m(°C),RH (%)\n2025-01-15 10:00,18.5,70\n2025-01-15 10:30,\x1b[5mhot,70\n",
+        encoding="utf-8",
+    )
     assert main(["import-log", str(path), "--room", "bed1", "--csv", str(log)]) == 0
     out = capsys.readouterr().out
     assert _no_raw_control(out)
@@ -532,8 +617,7 @@ def test_import_log_output_shows_room_names_and_file_text_escaped(tmp_path, caps
 def test_an_unknown_room_with_escapes_is_reported_escaped(flat_and_log, capsys):
     """An unknown --room holding ESC and a bidi override is quoted visibly in the error."""
     path, log = flat_and_log
-    assert main(["import-log", str(path), "--room", "att\x1b[1mic\u202e", "--csv",
-                 str(log)]) == 2
+    assert main(["import-log", str(path), "--room", "att\x1b[1mic\u202e", "--csv", str(log)]) == 2
     err = capsys.readouterr().err
     assert _no_raw_control(err) and "att\\x1b[1mic\\u202e" in err
 
@@ -586,8 +670,13 @@ def test_export_to_a_terminal_escapes_control_characters(tmp_path, capsys, monke
 def test_export_to_a_pipe_keeps_the_text_but_no_nul(tmp_path):
     """`export --csv -` into a pipe keeps the ESC as data but never writes a NUL byte."""
     path = _survey_with_odd_room(tmp_path)
-    result = subprocess.run([sys.executable, "-m", "survey", "export", str(path), "--csv", "-"],
-                            capture_output=True, timeout=60, cwd=ROOT, check=False)
+    result = subprocess.run(
+        [sys.executable, "-m", "survey", "export", str(path), "--csv", "-"],
+        capture_output=True,
+        timeout=60,
+        cwd=ROOT,
+        check=False,
+    )
     assert result.returncode == 0 and b"\x00" not in result.stdout
     assert b"Bed\x1b[31m\\x00room" in result.stdout
 

@@ -24,23 +24,56 @@ from survey.cli import main
 
 FLAT = Path(__file__).resolve().parents[1] / "example_sites" / "winter-flat-bedroom-mould.json"
 
-_SETTINGS = settings(max_examples=40, deadline=None,
-                     suppress_health_check=[HealthCheck.function_scoped_fixture,
-                                            HealthCheck.too_slow])
+_SETTINGS = settings(
+    max_examples=40,
+    deadline=None,
+    suppress_health_check=[HealthCheck.function_scoped_fixture, HealthCheck.too_slow],
+)
 
 #: Text as hostile files carry it: control characters, ESC sequences, bidi overrides,
 #: markup brackets, spreadsheet formula starts, full-width forms, any other character.
 _TEXT = st.lists(
-    st.one_of(st.sampled_from(["\x1b", "\x07", "\x00", "\x08", "\r", "\n", "\t", "\u202e",
-                               "\u2066", "\u200b", "[", "]", "[/bold]", "[link=x]", "=", "+",
-                               "-", "@", "\uff1d", "\uff20", " ", ",", '"', "\x9b", "\x1b[2J"]),
-              st.characters(exclude_categories=("Cs",))),  # a file cannot hold a lone surrogate
-    min_size=1, max_size=15).map("".join)
+    st.one_of(
+        st.sampled_from(
+            [
+                "\x1b",
+                "\x07",
+                "\x00",
+                "\x08",
+                "\r",
+                "\n",
+                "\t",
+                "\u202e",
+                "\u2066",
+                "\u200b",
+                "[",
+                "]",
+                "[/bold]",
+                "[link=x]",
+                "=",
+                "+",
+                "-",
+                "@",
+                "\uff1d",
+                "\uff20",
+                " ",
+                ",",
+                '"',
+                "\x9b",
+                "\x1b[2J",
+            ]
+        ),
+        st.characters(exclude_categories=("Cs",)),
+    ),  # a file cannot hold a lone surrogate
+    min_size=1,
+    max_size=15,
+).map("".join)
 
 
 def _no_raw_control(text: str) -> bool:
-    return not any(unicodedata.category(c) in ("Cc", "Cf", "Cs", "Zl", "Zp")
-                   and c not in "\n\t" for c in text)
+    return not any(
+        unicodedata.category(c) in ("Cc", "Cf", "Cs", "Zl", "Zp") and c not in "\n\t" for c in text
+    )
 
 
 def _odd_survey(tmp_path: Path, texts: list[str]) -> Path:
@@ -58,8 +91,9 @@ def _odd_survey(tmp_path: Path, texts: list[str]) -> Path:
 
 @_SETTINGS
 @given(texts=st.lists(_TEXT, min_size=5, max_size=5))
-def test_export_to_a_terminal_prints_no_control_character(tmp_path_factory, texts, capsys,
-                                                          monkeypatch):
+def test_export_to_a_terminal_prints_no_control_character(
+    tmp_path_factory, texts, capsys, monkeypatch
+):
     """`export --csv -` on a terminal: only newline and tab (and CR LF line ends) remain."""
     path = _odd_survey(tmp_path_factory.mktemp("t"), texts)
     monkeypatch.setattr(sys.stdout, "isatty", lambda: True)
@@ -106,8 +140,10 @@ def test_import_log_prints_no_control_character(tmp_path_factory, name, header, 
     folder = tmp_path_factory.mktemp("i")
     path = _odd_survey(folder, [name, "v", "l", "m", "x"])
     log = folder / "unit.csv"
-    text = (f"Time,Temperature {header.replace(',', ' ')} (°C),RH (%)\n"
-            f"2025-01-15 10:00,18.5,70\n2025-01-15 10:30,{cell.replace(',', ' ')},70\n")
+    text = (
+        f"Time,Temperature {header.replace(',', ' ')} (°C),RH (%)\n"
+        f"2025-01-15 10:00,18.5,70\n2025-01-15 10:30,{cell.replace(',', ' ')},70\n"
+    )
     log.write_text(text, encoding="utf-8", errors="replace")
     status = main(["import-log", str(path), "--room", "bed1", "--csv", str(log), "--dry-run"])
     captured = capsys.readouterr()

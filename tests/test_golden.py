@@ -24,34 +24,48 @@ EXAMPLES = HERE.parent / "example_sites"
 WRITE = os.environ.get("SURVEY_GOLDEN_WRITE") == "1"
 
 #: Keys whose values are sentences for people, not numbers or decisions.
-PROSE = {"title", "reason", "cautions", "target_basis", "moisture_generation_basis",
-         "temperature_factor_limit_basis", "max_room_rh_basis", "meaning", "citation",
-         "humidity_class_text", "humidity_class_possible_text", "warnings",
-         "temperature_factor_not_judged_reason", "caution_texts"}
+PROSE = {
+    "title",
+    "reason",
+    "cautions",
+    "target_basis",
+    "moisture_generation_basis",
+    "temperature_factor_limit_basis",
+    "max_room_rh_basis",
+    "meaning",
+    "citation",
+    "humidity_class_text",
+    "humidity_class_possible_text",
+    "warnings",
+    "temperature_factor_not_judged_reason",
+    "caution_texts",
+}
 
 #: Keys renamed on purpose, old name -> new name (one name for one quantity).
-RENAMED = {"reread_after_use_min": "reread_after_use_minutes",
-           "wet_room_reread_after_use_min": "wet_room_reread_after_use_from_minutes",
-           "wet_room_reread_after_use_max_min": "wet_room_reread_after_use_to_minutes"}
+RENAMED = {
+    "reread_after_use_min": "reread_after_use_minutes",
+    "wet_room_reread_after_use_min": "wet_room_reread_after_use_from_minutes",
+    "wet_room_reread_after_use_max_min": "wet_room_reread_after_use_to_minutes",
+}
 
 CHECK_CASES = {
     "readme-quick-start": "--air-temp 21 --rh 65 --surface-temp 12.5 --surface-temp 16 "
-                          "--outdoor-temp 4 --outdoor-rh 85",
+    "--outdoor-temp 4 --outdoor-rh 85",
     "readme-bedroom": "--air-temp 18 --rh 72 --surface-temp 11 --glazing-temp 6 --outdoor-temp 3 "
-                      "--outdoor-rh 88 --use bedroom --room-volume 30 --occupants 2",
+    "--outdoor-rh 88 --use bedroom --room-volume 30 --occupants 2",
     "ip-living": "--units ip --air-temp 68 --rh 62 --surface-temp 54 --frame-temp 48 "
-                 "--outdoor-temp 30 --outdoor-rh 80 --use living --room-volume 1400 "
-                 "--occupants 3 --mould-area 4",
+    "--outdoor-temp 30 --outdoor-rh 80 --use living --room-volume 1400 "
+    "--occupants 3 --mould-area 4",
     "frost-pane": "--air-temp 2 --rh 85 --glazing-temp=-4 --surface-temp=-1 --outdoor-temp=-8 "
-                  "--outdoor-rh 90 --use storage --room-volume 40",
+    "--outdoor-rh 90 --use storage --room-volume 40",
     "humid-basement": "--air-temp 17 --rh 78 --surface-temp 13 --pipe-temp 11 --outdoor-temp 24 "
-                      "--outdoor-rh 75 --use basement --room-volume 90",
+    "--outdoor-rh 75 --use basement --room-volume 90",
     "bathroom-peak": "--air-temp 21 --rh 78 --surface-temp 15 --outdoor-temp 5 --outdoor-rh 80 "
-                     "--use bathroom --room-volume 12 --occupants 1",
+    "--use bathroom --room-volume 12 --occupants 1",
     "loft": "--air-temp 6 --rh 88 --surface 'ceiling:4:rafter north' --outdoor-temp 5 "
-            "--outdoor-rh 85 --use loft",
+    "--outdoor-rh 85 --use loft",
     "no-outdoor": "--air-temp 20 --rh 70 --surface-temp 14 --room-volume 25 --occupants 2 "
-                  "--target-rh 55 --rh-accuracy 2 --air-temp-accuracy 0.3",
+    "--target-rh 55 --rh-accuracy 2 --air-temp-accuracy 0.3",
 }
 
 
@@ -79,7 +93,7 @@ def _close(a, b, where="$"):
             _close(a[k], b[k], f"{where}.{k}")
     elif isinstance(a, list):
         assert isinstance(b, list) and len(a) == len(b), f"{where}: {a} != {b}"
-        for i, (x, y) in enumerate(zip(a, b)):
+        for i, (x, y) in enumerate(zip(a, b, strict=False)):
             _close(x, y, f"{where}[{i}]")
     else:
         assert a == b, f"{where}: {a!r} != {b!r}"
@@ -107,14 +121,16 @@ def test_check_json_numbers_unchanged(check, name):
 def _visit_record(survey, index):
     judged = evaluate.assess_visit(survey, index)
     rooms = []
-    for room_id, advice in zip(judged.room_ids, judged.advice.rooms):
-        rooms.append({
-            "room": room_id,
-            "target_rh_pct": advice.target_rh_pct,
-            "moisture_generation_g_per_h": advice.moisture.used_g_per_h,
-            "actions": [a.as_dict() for a in advice.actions],
-            "caution_keys": [c.key for c in advice.cautions],
-        })
+    for room_id, advice in zip(judged.room_ids, judged.advice.rooms, strict=False):
+        rooms.append(
+            {
+                "room": room_id,
+                "target_rh_pct": advice.target_rh_pct,
+                "moisture_generation_g_per_h": advice.moisture.used_g_per_h,
+                "actions": [a.as_dict() for a in advice.actions],
+                "caution_keys": [c.key for c in advice.cautions],
+            }
+        )
     return {"rooms": rooms, "site_caution_keys": [c.key for c in judged.advice.cautions]}
 
 

@@ -21,16 +21,18 @@ def test_markup_in_a_label_is_shown_literally(check, monkeypatch):
     (it raised MarkupError, or became a terminal hyperlink)."""
     monkeypatch.setenv("COLUMNS", "200")
     for label in ("[/bold]", "[link=http://x.invalid]click[/link]", "[b]Loft[/b]"):
-        status, out, err = check("--air-temp", "18", "--rh", "72",
-                                 "--surface", f"external_wall:12:{label}")
+        status, out, err = check(
+            "--air-temp", "18", "--rh", "72", "--surface", f"external_wall:12:{label}"
+        )
         assert status == 0, err
         assert label in out
 
 
 def test_escape_sequences_in_a_label_are_made_visible(check):
     """An ESC colour sequence or BEL in a label reaches the output as a visible escape."""
-    status, out, _ = check("--air-temp", "18", "--rh", "72",
-                           "--surface", "external_wall:12:a\x1b[31mred\x07")
+    status, out, _ = check(
+        "--air-temp", "18", "--rh", "72", "--surface", "external_wall:12:a\x1b[31mred\x07"
+    )
     assert status == 0
     assert "\x1b" not in out and "\x07" not in out
     assert "\\x1b[31mred\\x07" in out
@@ -60,17 +62,45 @@ _label_text = st.text(st.characters(blacklist_categories=("Cs",)), max_size=40)
 def test_any_label_is_safe_in_the_table(label):
     """Random Unicode labels (control characters, markup brackets, escapes): no output line
     holds a control character other than newline and tab, and nothing raises."""
-    status, out, err = _run("--air-temp", "18", "--rh", "72", "--outdoor-temp", "3",
-                            "--outdoor-rh", "88", "--surface", f"external_wall:12:{label}")
+    status, out, err = _run(
+        "--air-temp",
+        "18",
+        "--rh",
+        "72",
+        "--outdoor-temp",
+        "3",
+        "--outdoor-rh",
+        "88",
+        "--surface",
+        f"external_wall:12:{label}",
+    )
     assert status in (0, 2)
     assert _clean(out) and _clean(err)
 
 
 @settings(max_examples=60, deadline=None)
-@given(text=_label_text, option=st.sampled_from(
-    ["--air-temp", "--rh", "--outdoor-temp", "--room-volume", "--occupants", "--target-rh",
-     "--mould-area", "--altitude", "--pressure", "--rh-accuracy", "--showers-per-day",
-     "--water-standing-hours", "--wet-area-pct", "--surface-temp", "--use"]))
+@given(
+    text=_label_text,
+    option=st.sampled_from(
+        [
+            "--air-temp",
+            "--rh",
+            "--outdoor-temp",
+            "--room-volume",
+            "--occupants",
+            "--target-rh",
+            "--mould-area",
+            "--altitude",
+            "--pressure",
+            "--rh-accuracy",
+            "--showers-per-day",
+            "--water-standing-hours",
+            "--wet-area-pct",
+            "--surface-temp",
+            "--use",
+        ]
+    ),
+)
 def test_any_option_value_gives_a_clean_line(text, option):
     """Random text in any option: exit 0 or 2, and the error line shows no raw control
     character and stays short."""
@@ -88,7 +118,8 @@ def test_any_option_value_gives_a_clean_line(text, option):
 def test_json_keeps_the_label_exactly(check):
     """The JSON encoding keeps user text as it was (JSON escapes it)."""
     label = "NE corner [b] \x1b"
-    status, out, _ = check("--air-temp", "18", "--rh", "72", "--surface",
-                           f"external_wall:12:{label}", "--json")
+    status, out, _ = check(
+        "--air-temp", "18", "--rh", "72", "--surface", f"external_wall:12:{label}", "--json"
+    )
     assert status == 0
     assert json.loads(out)["surfaces"][0]["label"] == label

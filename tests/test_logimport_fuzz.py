@@ -16,8 +16,11 @@ from hypothesis import strategies as st
 from survey import logimport, model
 from survey.errors import InputError
 
-_SETTINGS = settings(max_examples=int(__import__("os").environ.get("FUZZ_N", "150")), deadline=None,
-                     suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large])
+_SETTINGS = settings(
+    max_examples=int(__import__("os").environ.get("FUZZ_N", "150")),
+    deadline=None,
+    suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large],
+)
 
 _HEADERS = [
     "Time,Temperature (°C),RH (%)",
@@ -28,14 +31,43 @@ _HEADERS = [
     "Time,Temperature,Humidity",
 ]
 _CELLS = st.one_of(
-    st.sampled_from(["", " ", "Err", "-", "NaN", "inf", "1e400", "0", "0,81", "0.65", "101",
-                     "-3,5", "68.0", "\u221212", "12/13/2025 10:00", "13/15/2025 10:00",
-                     "03/04/2025 10:00", "01/15/25 11:30:00 PM", "2025-01-15T10:00:00+01:00",
-                     "2025-01-15 10:00", "2025-01-15T10:00+05:30:30", "15.01.2025 22:00",
-                     "0001-01-01T00:00", "9999-12-31T23:59:59.999999", "2025-02-30 10:00",
-                     '"', '""', "°F", "%RH", "00/00/0000 25:61", "١٢/٠١/٢٠٢٥ 10:00"]),
+    st.sampled_from(
+        [
+            "",
+            " ",
+            "Err",
+            "-",
+            "NaN",
+            "inf",
+            "1e400",
+            "0",
+            "0,81",
+            "0.65",
+            "101",
+            "-3,5",
+            "68.0",
+            "\u221212",
+            "12/13/2025 10:00",
+            "13/15/2025 10:00",
+            "03/04/2025 10:00",
+            "01/15/25 11:30:00 PM",
+            "2025-01-15T10:00:00+01:00",
+            "2025-01-15 10:00",
+            "2025-01-15T10:00+05:30:30",
+            "15.01.2025 22:00",
+            "0001-01-01T00:00",
+            "9999-12-31T23:59:59.999999",
+            "2025-02-30 10:00",
+            '"',
+            '""',
+            "°F",
+            "%RH",
+            "00/00/0000 25:61",
+            "١٢/٠١/٢٠٢٥ 10:00",
+        ]
+    ),
     st.floats(allow_nan=True, allow_infinity=True).map(repr),
-    st.integers(-10**6, 10**6).map(str),
+    st.integers(-(10**6), 10**6).map(str),
     st.text(max_size=12),
 )
 
@@ -55,9 +87,11 @@ def _logger_files(draw) -> bytes:
 def _read(data: bytes, **options) -> None:
     try:
         result = logimport.read_logger_csv(data, **options)
-    except InputError as exc:
-        assert exc.field in (logimport.FILE_FIELD, logimport.UNIT_FIELD,
-                             logimport.ORDER_FIELD) and exc.allowed
+    except InputError as exc:  # any refusal must name its quantity and say what is allowed
+        assert (  # noqa: PT017
+            exc.field in (logimport.FILE_FIELD, logimport.UNIT_FIELD, logimport.ORDER_FIELD)
+            and exc.allowed
+        )
         return
     assert result.samples
     for sample in result.samples:
@@ -73,10 +107,12 @@ def test_random_bytes_never_raise_anything_but_input_error(data):
 
 
 @_SETTINGS
-@given(_logger_files(), st.sampled_from([None, "c", "f"]),
-       st.sampled_from([None, "dmy", "mdy", "ymd"]))
+@given(
+    _logger_files(), st.sampled_from([None, "c", "f"]), st.sampled_from([None, "dmy", "mdy", "ymd"])
+)
 def test_random_rows_under_logger_headers_never_raise_anything_but_input_error(
-        data, temp_unit, date_order):
+    data, temp_unit, date_order
+):
     """Random cells under logger-like headers, with any options: a result or InputError,
     and every sample returned is valid for a survey file."""
     _read(data, temp_unit=temp_unit, date_order=date_order)
@@ -86,9 +122,10 @@ def test_random_rows_under_logger_headers_never_raise_anything_but_input_error(
 def test_a_line_too_long_for_the_csv_module_is_a_skipped_row(tail):
     """A 200 000-character field (over the csv module's 131 072 limit) is reported as a
     skipped line, and the other rows are imported."""
-    data = ("Time,Temperature (°C),RH (%)\n2025-01-15 10:00,20.0,55\n"
-            f"2025-01-15 10:30,{tail}{'9' * 200_000}{tail},55\n2025-01-15 11:00,20.5,54\n"
-            ).encode()
+    data = (
+        "Time,Temperature (°C),RH (%)\n2025-01-15 10:00,20.0,55\n"
+        f"2025-01-15 10:30,{tail}{'9' * 200_000}{tail},55\n2025-01-15 11:00,20.5,54\n"
+    ).encode()
     result = logimport.read_logger_csv(data)
     assert len(result.samples) == 2
     ((line, reason),) = [(s.line, s.reason) for s in result.skipped]

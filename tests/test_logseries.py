@@ -21,10 +21,13 @@ def _logger_file(*times: str) -> logimport.LoggerData:
     return logimport.read_logger_csv(text.encode())
 
 
-def _imported(survey: model.Survey, data: logimport.LoggerData, room: str | None,
-              instrument: str | None = None) -> model.Survey:
-    plan = logseries.plan_import(survey, data, room=room, source="unit.csv",
-                                 instrument=instrument)
+def _imported(
+    survey: model.Survey,
+    data: logimport.LoggerData,
+    room: str | None,
+    instrument: str | None = None,
+) -> model.Survey:
+    plan = logseries.plan_import(survey, data, room=room, source="unit.csv", instrument=instrument)
     assert plan.series is not None
     return msgspec.structs.replace(survey, logs=[*survey.logs, plan.series])
 
@@ -39,8 +42,9 @@ def test_a_first_import_keeps_every_sample():
 
 def test_samples_already_in_the_room_s_series_are_left_out_and_counted():
     """A later export repeating two times adds only the new one and counts the two."""
-    survey = _imported(store.load_survey(FLAT),
-                       _logger_file("2025-01-15 10:00", "2025-01-15 10:30"), "bed1")
+    survey = _imported(
+        store.load_survey(FLAT), _logger_file("2025-01-15 10:00", "2025-01-15 10:30"), "bed1"
+    )
     later = _logger_file("2025-01-15 10:00", "2025-01-15 10:30", "2025-01-15 11:00")
     plan = logseries.plan_import(survey, later, room="bed1", source="unit-later.csv")
     assert [s.at for s in plan.samples] == [dt.datetime(2025, 1, 15, 11, 0)]
@@ -72,8 +76,9 @@ def test_a_second_instrument_in_the_same_room_keeps_its_own_samples():
     survey.instruments.append(model.Instrument(id="lg2", kind="data_logger", name="Logger 2"))
     survey.instruments.append(model.Instrument(id="lg3", kind="data_logger", name="Logger 3"))
     survey = _imported(survey, _logger_file("2025-01-15 10:00"), "bed1", "lg2")
-    plan = logseries.plan_import(survey, _logger_file("2025-01-15 10:00", ""), room="bed1",
-                                 source="b.csv", instrument="lg3")
+    plan = logseries.plan_import(
+        survey, _logger_file("2025-01-15 10:00", ""), room="bed1", source="b.csv", instrument="lg3"
+    )
     assert plan.repeated == 0 and len(plan.samples) == 1
 
 
@@ -111,7 +116,7 @@ def test_an_unknown_instrument_names_the_quantity():
 
 
 def test_a_room_is_found_by_its_name_ignoring_case():
-    """"main BEDROOM" finds bed1; None means outdoors."""
+    """ "main BEDROOM" finds bed1; None means outdoors."""
     survey = store.load_survey(FLAT)
     assert logseries.room_id_for(survey, "main BEDROOM") == "bed1"
     assert logseries.room_id_for(survey, None) is None

@@ -9,6 +9,7 @@ stated accuracy, and a surface well below the dew point must be marked wet.
 from __future__ import annotations
 
 import datetime as dt
+import itertools
 import json
 from pathlib import Path
 
@@ -37,6 +38,7 @@ def _humidity_ratio_coolprop(dry_bulb_c: float, rh_pct: float, pressure_pa: floa
 
 # --- records -----------------------------------------------------------------------------
 
+
 def test_new_survey_is_valid_and_empty():
     """new_survey gives a survey that passes every check and has no rooms or visits."""
     survey = store.new_survey("CS-1 Test", address="1 Nowhere Lane", unit_system="ip")
@@ -54,7 +56,7 @@ def test_new_survey_rejects_an_empty_reference():
 
 
 @pytest.mark.parametrize(
-    "record, field, words",
+    ("record", "field", "words"),
     [
         (model.AirReading(dry_bulb_c=71.0, rh_pct=50.0), "dry_bulb_c", "between -50 and 70 °C"),
         (model.AirReading(dry_bulb_c=20.0, rh_pct=0.0), "rh_pct", "between 0.1 and 100 %"),
@@ -62,16 +64,32 @@ def test_new_survey_rejects_an_empty_reference():
         (model.AirReading(dry_bulb_c=20.0, rh_pct=100.5), "rh_pct", "between 0.1 and 100 %"),
         (model.AirReading(dry_bulb_c=float("nan"), rh_pct=50.0), "dry_bulb_c", "expected a number"),
         (model.AirReading(dry_bulb_c=float("inf"), rh_pct=50.0), "dry_bulb_c", "expected a number"),
-        (model.SurfaceReading(location="x", element="glazing", surface_temp_c=-61.0),
-         "surface_temp_c", "between -60 and 90 °C"),
-        (model.SurfaceReading(location="x", element="window", surface_temp_c=5.0),
-         "element", "choose one of"),
+        (
+            model.SurfaceReading(location="x", element="glazing", surface_temp_c=-61.0),
+            "surface_temp_c",
+            "between -60 and 90 °C",
+        ),
+        (
+            model.SurfaceReading(location="x", element="window", surface_temp_c=5.0),
+            "element",
+            "choose one of",
+        ),
         (model.Room(id="a b", name="Bedroom"), "id", "not a valid id"),
-        (model.Room(id="b1", name="Bedroom", volume_m3=-2.0), "volume_m3",
-         "between 1 and 100000 m³"),
-        (model.MaterialReading(location="x", material="plaster", value=-1, scale="wme_pct"),
-         "value", "between 0 and 1000"),
-        (model.Site(reference="x", pressure_pa=120_000.0), "pressure_pa", "between 50000 and 110000 Pa"),
+        (
+            model.Room(id="b1", name="Bedroom", volume_m3=-2.0),
+            "volume_m3",
+            "between 1 and 100000 m³",
+        ),
+        (
+            model.MaterialReading(location="x", material="plaster", value=-1, scale="wme_pct"),
+            "value",
+            "between 0 and 1000",
+        ),
+        (
+            model.Site(reference="x", pressure_pa=120_000.0),
+            "pressure_pa",
+            "between 50000 and 110000 Pa",
+        ),
     ],
 )
 def test_check_record_names_field_and_allowed_range(record, field, words):
@@ -90,8 +108,10 @@ def test_reading_ranges_are_the_psychro_input_domain():
     assert air["dry_bulb_c"]["maximum"] == psychro.DRY_BULB_MAX_C
     assert air["rh_pct"]["minimum"] == psychro.RH_MIN_PCT and air["rh_pct"]["maximum"] == 100
     surface = schema["SurfaceReading"]["properties"]["surface_temp_c"]
-    assert (surface["minimum"], surface["maximum"]) == (psychro.SURFACE_TEMP_MIN_C,
-                                                        psychro.SURFACE_TEMP_MAX_C)
+    assert (surface["minimum"], surface["maximum"]) == (
+        psychro.SURFACE_TEMP_MIN_C,
+        psychro.SURFACE_TEMP_MAX_C,
+    )
 
 
 def test_every_struct_forbids_unknown_fields():
@@ -104,26 +124,34 @@ def test_every_struct_forbids_unknown_fields():
 
 def test_volume_estimate_uses_area_times_height():
     """A room's volume is the stated one, else floor area times height, else unknown."""
-    assert model.Room(id="a", name="A", volume_m3=30.0, floor_area_m2=1, height_m=1) \
-        .volume_estimate_m3() == 30.0
-    assert model.Room(id="a", name="A", floor_area_m2=12.5, height_m=2.4) \
-        .volume_estimate_m3() == pytest.approx(30.0)
+    assert (
+        model.Room(
+            id="a", name="A", volume_m3=30.0, floor_area_m2=1, height_m=1
+        ).volume_estimate_m3()
+        == 30.0
+    )
+    assert model.Room(
+        id="a", name="A", floor_area_m2=12.5, height_m=2.4
+    ).volume_estimate_m3() == pytest.approx(30.0)
     assert model.Room(id="a", name="A", floor_area_m2=12.5).volume_estimate_m3() is None
 
 
 def test_find_room_by_id_or_name_ignoring_case():
     """find_room matches the id exactly or the name ignoring case and spaces."""
-    survey = model.Survey(site=model.Site(reference="x"),
-                          rooms=[model.Room(id="bed1", name="Main Bedroom")])
+    survey = model.Survey(
+        site=model.Site(reference="x"), rooms=[model.Room(id="bed1", name="Main Bedroom")]
+    )
     assert survey.find_room("bed1").id == "bed1"
     assert survey.find_room(" main bedroom ").id == "bed1"
     assert survey.find_room("loft") is None
 
 
 def _survey_with(**parts) -> model.Survey:
-    base = dict(site=model.Site(reference="x"),
-                instruments=[model.Instrument(id="th", kind="thermo_hygrometer", name="TH")],
-                rooms=[model.Room(id="bed1", name="Bedroom")])
+    base = {
+        "site": model.Site(reference="x"),
+        "instruments": [model.Instrument(id="th", kind="thermo_hygrometer", name="TH")],
+        "rooms": [model.Room(id="bed1", name="Bedroom")],
+    }
     base.update(parts)
     return model.Survey(**base)
 
@@ -133,24 +161,62 @@ def _visit(*room_visits: model.RoomVisit) -> model.Visit:
 
 
 @pytest.mark.parametrize(
-    "survey, where, words",
+    ("survey", "where", "words"),
     [
-        (_survey_with(rooms=[model.Room(id="a", name="A"), model.Room(id="a", name="B")]),
-         "rooms[1].id", "used twice"),
-        (_survey_with(instruments=[model.Instrument(id="t", kind="other", name="T")] * 2),
-         "instruments[1].id", "used twice"),
-        (_survey_with(visits=[_visit(model.RoomVisit(room="loft"))]),
-         "visits[0].rooms[0].room", "no room with id 'loft'; rooms are: bed1"),
-        (_survey_with(visits=[_visit(model.RoomVisit(room="bed1"), model.RoomVisit(room="bed1"))]),
-         "visits[0].rooms[1].room", "appears twice"),
-        (_survey_with(visits=[_visit(model.RoomVisit(
-            room="bed1", air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="zz")))]),
-         "visits[0].rooms[0].air.instrument", "no instrument with id 'zz'"),
-        (_survey_with(visits=[_visit(model.RoomVisit(
-            room="bed1", observations=model.Observations(mould_area_m2=0.5)))]),
-         "visits[0].rooms[0].observations.mould_area_m2", "mould_visible is false"),
-        (_survey_with(logs=[model.LogSeries(room="attic", source="a.csv", samples=[])]),
-         "logs[0].room", "no room with id 'attic'"),
+        (
+            _survey_with(rooms=[model.Room(id="a", name="A"), model.Room(id="a", name="B")]),
+            "rooms[1].id",
+            "used twice",
+        ),
+        (
+            _survey_with(instruments=[model.Instrument(id="t", kind="other", name="T")] * 2),
+            "instruments[1].id",
+            "used twice",
+        ),
+        (
+            _survey_with(visits=[_visit(model.RoomVisit(room="loft"))]),
+            "visits[0].rooms[0].room",
+            "no room with id 'loft'; rooms are: bed1",
+        ),
+        (
+            _survey_with(
+                visits=[_visit(model.RoomVisit(room="bed1"), model.RoomVisit(room="bed1"))]
+            ),
+            "visits[0].rooms[1].room",
+            "appears twice",
+        ),
+        (
+            _survey_with(
+                visits=[
+                    _visit(
+                        model.RoomVisit(
+                            room="bed1",
+                            air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="zz"),
+                        )
+                    )
+                ]
+            ),
+            "visits[0].rooms[0].air.instrument",
+            "no instrument with id 'zz'",
+        ),
+        (
+            _survey_with(
+                visits=[
+                    _visit(
+                        model.RoomVisit(
+                            room="bed1", observations=model.Observations(mould_area_m2=0.5)
+                        )
+                    )
+                ]
+            ),
+            "visits[0].rooms[0].observations.mould_area_m2",
+            "mould_visible is false",
+        ),
+        (
+            _survey_with(logs=[model.LogSeries(room="attic", source="a.csv", samples=[])]),
+            "logs[0].room",
+            "no room with id 'attic'",
+        ),
     ],
 )
 def test_problems_finds_broken_references(survey, where, words):
@@ -163,8 +229,15 @@ def test_problems_finds_broken_references(survey, where, words):
 
 def test_problems_is_empty_for_a_consistent_survey():
     """A survey whose references all resolve has no problems."""
-    survey = _survey_with(visits=[_visit(model.RoomVisit(
-        room="bed1", air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="th")))])
+    survey = _survey_with(
+        visits=[
+            _visit(
+                model.RoomVisit(
+                    room="bed1", air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="th")
+                )
+            )
+        ]
+    )
     assert model.problems(survey) == []
 
 
@@ -183,10 +256,14 @@ def test_pressure_for_a_visit_prefers_the_measured_value():
 
 # --- the example sites ------------------------------------------------------------------
 
+
 def test_there_are_three_example_sites():
     """example_sites holds the three scenarios: winter flat, coastal cottage, drying basement."""
     assert [p.stem for p in EXAMPLE_FILES] == [
-        "basement-burst-pipe-drying", "coastal-cottage-summer", "winter-flat-bedroom-mould"]
+        "basement-burst-pipe-drying",
+        "coastal-cottage-summer",
+        "winter-flat-bedroom-mould",
+    ]
 
 
 @pytest.mark.parametrize("path", EXAMPLE_FILES, ids=lambda p: p.stem)
@@ -195,8 +272,12 @@ def test_example_site_loads_and_is_complete(path):
     survey = store.load_survey(path)
     assert "invented" in survey.site.notes
     assert survey.instruments and all(
-        i.air_temp_accuracy_k or i.rh_accuracy_pct or i.surface_temp_accuracy_k
-        or i.moisture_accuracy for i in survey.instruments)
+        i.air_temp_accuracy_k
+        or i.rh_accuracy_pct
+        or i.surface_temp_accuracy_k
+        or i.moisture_accuracy
+        for i in survey.instruments
+    )
     assert all(room.volume_estimate_m3() for room in survey.rooms)
     for visit in survey.visits:
         assert visit.outdoor is not None and visit.weather
@@ -243,8 +324,9 @@ def test_winter_flat_outdoor_air_is_colder_and_drier():
     bedroom = visit.room_visit("bed1")
     out = visit.outdoor
     assert out.dry_bulb_c < bedroom.air.dry_bulb_c - 10
-    assert (_humidity_ratio_coolprop(out.dry_bulb_c, out.rh_pct, pressure)
-            < _humidity_ratio_coolprop(bedroom.air.dry_bulb_c, bedroom.air.rh_pct, pressure))
+    assert _humidity_ratio_coolprop(
+        out.dry_bulb_c, out.rh_pct, pressure
+    ) < _humidity_ratio_coolprop(bedroom.air.dry_bulb_c, bedroom.air.rh_pct, pressure)
     corner = bedroom.surfaces[0]
     assert corner.mould_visible and corner.element == "external_wall"
     state = psychro.state_from_rh(bedroom.air.dry_bulb_c, bedroom.air.rh_pct, pressure)
@@ -278,7 +360,7 @@ def test_basement_drying_readings_fall_toward_the_dry_standard():
     survey = _example("basement-burst-pipe-drying")
     assert survey.site.purpose == "drying_check" and len(survey.visits) == 3
     days = [v.started_at.date() for v in survey.visits]
-    assert [(b - a).days for a, b in zip(days, days[1:])] == [1, 1]
+    assert [(b - a).days for a, b in itertools.pairwise(days)] == [1, 1]
     reference = [room for room in survey.rooms if room.is_reference]
     assert len(reference) == 1
     series: dict[tuple[str, str], list[float]] = {}
@@ -290,14 +372,18 @@ def test_basement_drying_readings_fall_toward_the_dry_standard():
             for m in room_visit.materials:
                 if not m.dry_standard:
                     series.setdefault((room_visit.room, m.location), []).append(m.value)
-    standards = {m.material: m.value for m in survey.visits[-1].room_visit(reference[0].id).materials
-                 if m.dry_standard}
+    standards = {
+        m.material: m.value
+        for m in survey.visits[-1].room_visit(reference[0].id).materials
+        if m.dry_standard
+    }
     assert len(series) >= 3
     last = survey.visits[-1]
     for (room_id, location), values in series.items():
         assert len(values) == 3 and values[0] > values[1] > values[2], (location, values)
-        material = next(m.material for m in last.room_visit(room_id).materials
-                        if m.location == location)
+        material = next(
+            m.material for m in last.room_visit(room_id).materials if m.location == location
+        )
         assert values[-1] > standards[material]
 
 
@@ -330,16 +416,19 @@ def test_log_sample_is_stored_as_a_three_item_list():
     assert msgspec.json.decode(msgspec.json.encode(sample)) == ["2025-01-01T12:00:00", 18.5, 61.0]
 
 
-@pytest.mark.parametrize("name, words", [
-    ("/home/avery/photos/corner.jpg", "is an absolute path"),
-    ("\\\\server\\share\\corner.jpg", "is an absolute path"),
-    ("C:\\Photos\\corner.jpg", "is an absolute path"),
-    ("../corner.jpg", "steps out of the survey file's folder"),
-    ("photos/../../corner.jpg", "steps out of the survey file's folder"),
-    ("photos\\..\\..\\corner.jpg", "steps out of the survey file's folder"),
-    ("..", "steps out of the survey file's folder"),
-    ("corner\x07.jpg", "control characters"),
-])
+@pytest.mark.parametrize(
+    ("name", "words"),
+    [
+        ("/home/avery/photos/corner.jpg", "is an absolute path"),
+        ("\\\\server\\share\\corner.jpg", "is an absolute path"),
+        ("C:\\Photos\\corner.jpg", "is an absolute path"),
+        ("../corner.jpg", "steps out of the survey file's folder"),
+        ("photos/../../corner.jpg", "steps out of the survey file's folder"),
+        ("photos\\..\\..\\corner.jpg", "steps out of the survey file's folder"),
+        ("..", "steps out of the survey file's folder"),
+        ("corner\x07.jpg", "control characters"),
+    ],
+)
 def test_photo_names_must_stay_inside_the_survey_folder(name, words):
     """A photo's file name is relative to the survey's folder: absolute paths, drive letters
     and '..' are refused with a message saying why."""
@@ -350,8 +439,10 @@ def test_photo_names_must_stay_inside_the_survey_folder(name, words):
     assert model.photo_name_problem(name)
 
 
-@pytest.mark.parametrize("name", ["corner.jpg", "photos/bed1 corner.jpg", "a..b.jpg",
-                                  "visit 1\\IMG_0042.JPG", "~corner.jpg"])
+@pytest.mark.parametrize(
+    "name",
+    ["corner.jpg", "photos/bed1 corner.jpg", "a..b.jpg", "visit 1\\IMG_0042.JPG", "~corner.jpg"],
+)
 def test_relative_photo_names_are_accepted(name):
     """Names inside the survey's folder or a sub-folder are fine."""
     store.check_record(model.RoomVisit(room="bed1", photos=[name]))

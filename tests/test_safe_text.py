@@ -9,8 +9,9 @@ from survey.safe_text import count_cut, shorten, visible
 def _no_raw_controls(text: str, allow: str = "\t") -> bool:
     import unicodedata
 
-    return all(c in allow or unicodedata.category(c) not in {"Cc", "Cf", "Cs", "Zl", "Zp"}
-               for c in text)
+    return all(
+        c in allow or unicodedata.category(c) not in {"Cc", "Cf", "Cs", "Zl", "Zp"} for c in text
+    )
 
 
 def test_escape_sequence_is_made_visible():

@@ -39,6 +39,7 @@ def _example_doc() -> dict:
 
 # --- strategies for any valid survey ---------------------------------------------------------
 
+
 def _floats(low: float, high: float, *, exclude_low: bool = False) -> st.SearchStrategy[float]:
     return st.floats(low, high, exclude_min=exclude_low, allow_nan=False, allow_infinity=False)
 
@@ -46,14 +47,17 @@ def _floats(low: float, high: float, *, exclude_low: bool = False) -> st.SearchS
 _text = st.text(max_size=20)
 _name = st.text(min_size=1, max_size=20)
 _ids = st.from_regex(r"\A[A-Za-z0-9][A-Za-z0-9_.-]{0,8}\Z")
-_file_names = st.text(st.characters(min_codepoint=0x20, blacklist_categories=("Cs",)),
-                      min_size=1, max_size=20).filter(lambda n: not model.photo_name_problem(n))
+_file_names = st.text(
+    st.characters(min_codepoint=0x20, blacklist_categories=("Cs",)), min_size=1, max_size=20
+).filter(lambda n: not model.photo_name_problem(n))
 _times = st.one_of(
     st.none(),
     st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
-    st.builds(lambda d, minutes: d.replace(tzinfo=dt.timezone(dt.timedelta(minutes=minutes))),
-              st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
-              st.integers(-12 * 60, 14 * 60)),
+    st.builds(
+        lambda d, minutes: d.replace(tzinfo=dt.timezone(dt.timedelta(minutes=minutes))),
+        st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
+        st.integers(-12 * 60, 14 * 60),
+    ),
 )
 
 
@@ -76,73 +80,176 @@ def surveys(draw) -> model.Survey:
     instrument_ref = _maybe(st.sampled_from(instrument_ids)) if instrument_ids else st.none()
 
     def air():
-        return st.builds(model.AirReading, dry_bulb_c=_floats(-50, 70),
-                         rh_pct=_floats(psychro.RH_MIN_PCT, 100), taken_at=_times,
-                         instrument=instrument_ref)
+        return st.builds(
+            model.AirReading,
+            dry_bulb_c=_floats(-50, 70),
+            rh_pct=_floats(psychro.RH_MIN_PCT, 100),
+            taken_at=_times,
+            instrument=instrument_ref,
+        )
 
-    instruments = [draw(st.builds(
-        model.Instrument, id=st.just(i), kind=st.sampled_from(model.InstrumentKind.__args__),
-        name=_name, serial=_text, calibrated_on=_maybe(st.dates(dt.date(1990, 1, 1))),
-        air_temp_accuracy_k=_maybe(_floats(0, domain.AIR_TEMP_ACCURACY_MAX_K, exclude_low=True)),
-        rh_accuracy_pct=_maybe(_floats(0, domain.RH_ACCURACY_MAX_PCT, exclude_low=True)),
-        surface_temp_accuracy_k=_maybe(_floats(0, domain.SURFACE_TEMP_ACCURACY_MAX_K,
-                                               exclude_low=True)),
-        emissivity=_maybe(_floats(0, 1, exclude_low=True)), notes=_text)) for i in instrument_ids]
-    rooms = [draw(st.builds(
-        _room, id=st.just(r), name=_name, level=st.integers(-10, 200),
-        use=st.sampled_from(model.RoomUse.__args__),
-        volume_m3=_maybe(_floats(domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3)),
-        floor_area_m2=_maybe(_floats(domain.FLOOR_AREA_MIN_M2, domain.FLOOR_AREA_MAX_M2)),
-        height_m=_maybe(_floats(domain.ROOM_HEIGHT_MIN_M, domain.ROOM_HEIGHT_MAX_M)),
-        occupants=st.integers(0, domain.OCCUPANTS_MAX),
-        is_reference=st.booleans(), notes=_text)) for r in room_ids]
-    surface = st.builds(model.SurfaceReading, location=_name,
-                        element=st.sampled_from(model.Element.__args__),
-                        surface_temp_c=_floats(-60, 90), material=_text, taken_at=_times,
-                        instrument=instrument_ref, condensation_seen=st.booleans(),
-                        mould_visible=st.booleans())
-    material = st.builds(model.MaterialReading, location=_name, material=_name,
-                         value=_floats(0, 1000), scale=st.sampled_from(model.MoistureScale.__args__),
-                         dry_standard=st.booleans(), method=_maybe(st.sampled_from(("pin", "pinless"))),
-                         taken_at=_times, instrument=instrument_ref)
+    instruments = [
+        draw(
+            st.builds(
+                model.Instrument,
+                id=st.just(i),
+                kind=st.sampled_from(model.InstrumentKind.__args__),
+                name=_name,
+                serial=_text,
+                calibrated_on=_maybe(st.dates(dt.date(1990, 1, 1))),
+                air_temp_accuracy_k=_maybe(
+                    _floats(0, domain.AIR_TEMP_ACCURACY_MAX_K, exclude_low=True)
+                ),
+                rh_accuracy_pct=_maybe(_floats(0, domain.RH_ACCURACY_MAX_PCT, exclude_low=True)),
+                surface_temp_accuracy_k=_maybe(
+                    _floats(0, domain.SURFACE_TEMP_ACCURACY_MAX_K, exclude_low=True)
+                ),
+                emissivity=_maybe(_floats(0, 1, exclude_low=True)),
+                notes=_text,
+            )
+        )
+        for i in instrument_ids
+    ]
+    rooms = [
+        draw(
+            st.builds(
+                _room,
+                id=st.just(r),
+                name=_name,
+                level=st.integers(-10, 200),
+                use=st.sampled_from(model.RoomUse.__args__),
+                volume_m3=_maybe(_floats(domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3)),
+                floor_area_m2=_maybe(_floats(domain.FLOOR_AREA_MIN_M2, domain.FLOOR_AREA_MAX_M2)),
+                height_m=_maybe(_floats(domain.ROOM_HEIGHT_MIN_M, domain.ROOM_HEIGHT_MAX_M)),
+                occupants=st.integers(0, domain.OCCUPANTS_MAX),
+                is_reference=st.booleans(),
+                notes=_text,
+            )
+        )
+        for r in room_ids
+    ]
+    surface = st.builds(
+        model.SurfaceReading,
+        location=_name,
+        element=st.sampled_from(model.Element.__args__),
+        surface_temp_c=_floats(-60, 90),
+        material=_text,
+        taken_at=_times,
+        instrument=instrument_ref,
+        condensation_seen=st.booleans(),
+        mould_visible=st.booleans(),
+    )
+    material = st.builds(
+        model.MaterialReading,
+        location=_name,
+        material=_name,
+        value=_floats(0, 1000),
+        scale=st.sampled_from(model.MoistureScale.__args__),
+        dry_standard=st.booleans(),
+        method=_maybe(st.sampled_from(("pin", "pinless"))),
+        taken_at=_times,
+        instrument=instrument_ref,
+    )
     observations = st.builds(
         lambda visible, area, **kw: model.Observations(
-            mould_visible=visible, mould_area_m2=area if visible else None, **kw),
-        st.booleans(), _maybe(_floats(0, domain.MOULD_AREA_MAX_M2)), staining=st.booleans(),
-        condensation_seen=st.booleans(), odour=_maybe(st.sampled_from(model.Odour.__args__)),
-        water_category=_maybe(st.sampled_from((1, 2, 3))), notes=_text)
-    equipment = st.builds(model.Equipment, kind=st.sampled_from(model.EquipmentKind.__args__),
-                          label=_text, running=st.booleans(),
-                          capacity_l_per_day=_maybe(_floats(0, 1e4, exclude_low=True)),
-                          water_removed_l=_maybe(_floats(0, 1e5)), outlet=_maybe(air()))
+            mould_visible=visible, mould_area_m2=area if visible else None, **kw
+        ),
+        st.booleans(),
+        _maybe(_floats(0, domain.MOULD_AREA_MAX_M2)),
+        staining=st.booleans(),
+        condensation_seen=st.booleans(),
+        odour=_maybe(st.sampled_from(model.Odour.__args__)),
+        water_category=_maybe(st.sampled_from((1, 2, 3))),
+        notes=_text,
+    )
+    equipment = st.builds(
+        model.Equipment,
+        kind=st.sampled_from(model.EquipmentKind.__args__),
+        label=_text,
+        running=st.booleans(),
+        capacity_l_per_day=_maybe(_floats(0, 1e4, exclude_low=True)),
+        water_removed_l=_maybe(_floats(0, 1e5)),
+        outlet=_maybe(air()),
+    )
     visits = []
     for _ in range(draw(st.integers(0, 3))):
         seen = draw(st.lists(st.sampled_from(room_ids), unique=True, max_size=len(room_ids)))
-        room_visits = [draw(st.builds(
-            model.RoomVisit, room=st.just(r), air=_maybe(air()), surfaces=st.lists(surface, max_size=3),
-            materials=st.lists(material, max_size=2), observations=observations,
-            equipment=st.lists(equipment, max_size=2), heating_on=_maybe(st.booleans()),
-            windows_open=_maybe(st.booleans()), notes=_text,
-            photos=st.lists(_file_names, max_size=2))) for r in seen]
-        visits.append(draw(st.builds(
-            model.Visit, started_at=st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
-            label=_text, weather=_text, outdoor=_maybe(air()),
-            pressure_pa=_maybe(_floats(50_000, 110_000)), rooms=st.just(room_visits))))
-    sample = st.builds(model.LogSample, at=st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
-                       dry_bulb_c=_floats(-50, 70), rh_pct=_floats(psychro.RH_MIN_PCT, 100))
-    logs = draw(st.lists(st.builds(
-        model.LogSeries, room=_maybe(st.sampled_from(room_ids)), source=_name,
-        samples=st.lists(sample, max_size=5), instrument=instrument_ref,
-        source_sha256=_maybe(st.from_regex(r"\A[0-9a-f]{64}\Z")), imported_at=_times,
-        skipped_rows=st.integers(0, 10**6)), max_size=2))
-    site = draw(st.builds(
-        model.Site, reference=_name, address=_text, client=_text,
-        purpose=st.sampled_from(model.Purpose.__args__), inspector=_text,
-        unit_system=st.sampled_from(("si", "ip")), altitude_m=_maybe(_floats(-500, 5000)),
-        pressure_pa=_maybe(_floats(50_000, 110_000)), construction=_text,
-        year_built=_maybe(st.integers(1000, 2200)), notes=_text))
-    return model.Survey(site=site, instruments=instruments, rooms=rooms, visits=visits, logs=logs,
-                        created_at=draw(_times))
+        room_visits = [
+            draw(
+                st.builds(
+                    model.RoomVisit,
+                    room=st.just(r),
+                    air=_maybe(air()),
+                    surfaces=st.lists(surface, max_size=3),
+                    materials=st.lists(material, max_size=2),
+                    observations=observations,
+                    equipment=st.lists(equipment, max_size=2),
+                    heating_on=_maybe(st.booleans()),
+                    windows_open=_maybe(st.booleans()),
+                    notes=_text,
+                    photos=st.lists(_file_names, max_size=2),
+                )
+            )
+            for r in seen
+        ]
+        visits.append(
+            draw(
+                st.builds(
+                    model.Visit,
+                    started_at=st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
+                    label=_text,
+                    weather=_text,
+                    outdoor=_maybe(air()),
+                    pressure_pa=_maybe(_floats(50_000, 110_000)),
+                    rooms=st.just(room_visits),
+                )
+            )
+        )
+    sample = st.builds(
+        model.LogSample,
+        at=st.datetimes(dt.datetime(1990, 1, 1), dt.datetime(2100, 1, 1)),
+        dry_bulb_c=_floats(-50, 70),
+        rh_pct=_floats(psychro.RH_MIN_PCT, 100),
+    )
+    logs = draw(
+        st.lists(
+            st.builds(
+                model.LogSeries,
+                room=_maybe(st.sampled_from(room_ids)),
+                source=_name,
+                samples=st.lists(sample, max_size=5),
+                instrument=instrument_ref,
+                source_sha256=_maybe(st.from_regex(r"\A[0-9a-f]{64}\Z")),
+                imported_at=_times,
+                skipped_rows=st.integers(0, 10**6),
+            ),
+            max_size=2,
+        )
+    )
+    site = draw(
+        st.builds(
+            model.Site,
+            reference=_name,
+            address=_text,
+            client=_text,
+            purpose=st.sampled_from(model.Purpose.__args__),
+            inspector=_text,
+            unit_system=st.sampled_from(("si", "ip")),
+            altitude_m=_maybe(_floats(-500, 5000)),
+            pressure_pa=_maybe(_floats(50_000, 110_000)),
+            construction=_text,
+            year_built=_maybe(st.integers(1000, 2200)),
+            notes=_text,
+        )
+    )
+    return model.Survey(
+        site=site,
+        instruments=instruments,
+        rooms=rooms,
+        visits=visits,
+        logs=logs,
+        created_at=draw(_times),
+    )
 
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
@@ -160,6 +267,7 @@ def test_any_valid_survey_saves_and_loads_equal(survey):
 
 
 # --- saving ------------------------------------------------------------------------------
+
 
 def test_save_keeps_the_previous_version_as_bak(tmp_path):
     """The second save leaves the first version in NAME.json.bak and no temporary files."""
@@ -237,12 +345,15 @@ def _assert_failed_save_left_everything(tmp_path, path, before, survey, snapshot
     assert leftovers == []
 
 
-@pytest.mark.parametrize("stage, code, words", [
-    ("replace", errno.EROFS, "read-only file system"),
-    ("fsync", errno.ENOSPC, "disk is full"),
-    ("write", errno.ENOSPC, "disk is full"),
-    ("open", errno.EACCES, "permission denied"),
-])
+@pytest.mark.parametrize(
+    ("stage", "code", "words"),
+    [
+        ("replace", errno.EROFS, "read-only file system"),
+        ("fsync", errno.ENOSPC, "disk is full"),
+        ("write", errno.ENOSPC, "disk is full"),
+        ("open", errno.EACCES, "permission denied"),
+    ],
+)
 def test_failed_save_leaves_old_file_and_survey(tmp_path, monkeypatch, stage, code, words):
     """A save failing at any step raises a clear error; the old file, the survey in memory
     and the folder (no temporary file) are as before."""
@@ -255,9 +366,11 @@ def test_failed_save_leaves_old_file_and_survey(tmp_path, monkeypatch, stage, co
     real = getattr(os, stage)
 
     def failing(*args, **kwargs):
-        if (stage in ("write", "fsync")
-                or (stage == "open" and str(args[0]).endswith(".tmp"))
-                or (stage == "replace" and str(args[1]) == str(path))):
+        if (
+            stage in ("write", "fsync")
+            or (stage == "open" and str(args[0]).endswith(".tmp"))
+            or (stage == "replace" and str(args[1]) == str(path))
+        ):
             raise OSError(code, os.strerror(code))
         return real(*args, **kwargs)
 
@@ -324,8 +437,13 @@ def test_save_beyond_the_file_size_limit_fails_cleanly(tmp_path):
         resource.setrlimit(resource.RLIMIT_FSIZE, (limit, limit))
         attempt(Path(sys.argv[1]))
     """)
-    result = subprocess.run([sys.executable, "-c", code, str(path)], capture_output=True,
-                            text=True, timeout=60, cwd=ROOT)
+    result = subprocess.run(
+        [sys.executable, "-c", code, str(path)],
+        capture_output=True,
+        text=True,
+        timeout=60,
+        cwd=ROOT,
+    )
     assert result.returncode == 0, result.stderr
     outcome = json.loads(result.stdout)
     assert outcome["problem"] and "largest size" in outcome["problem"]
@@ -352,8 +470,22 @@ def test_save_into_a_read_only_folder_fails_cleanly(tmp_path):
             print(json.dumps({"lock_problem": exc.problem}))
     """)
     result = subprocess.run(
-        ["unshare", "--user", "--map-root-user", "--mount", sys.executable, "-c", code,
-         str(folder), str(BASEMENT)], capture_output=True, text=True, timeout=60, cwd=ROOT)
+        [
+            "unshare",
+            "--user",
+            "--map-root-user",
+            "--mount",
+            sys.executable,
+            "-c",
+            code,
+            str(folder),
+            str(BASEMENT),
+        ],
+        capture_output=True,
+        text=True,
+        timeout=60,
+        cwd=ROOT,
+    )
     if result.returncode != 0 and ("mount" in result.stderr or "unshare" in result.stderr):
         pytest.skip(f"cannot make a read-only mount here: {result.stderr.strip()[-200:]}")
     assert result.returncode == 0, result.stderr
@@ -364,6 +496,7 @@ def test_save_into_a_read_only_folder_fails_cleanly(tmp_path):
 
 
 # --- loading damaged and hostile files --------------------------------------------------------
+
 
 def _with(doc_change) -> bytes:
     doc = _example_doc()
@@ -377,6 +510,7 @@ def _set(path: list, value):
         for key in path[:-1]:
             node = node[key]
         node[path[-1]] = value
+
     return change
 
 
@@ -400,58 +534,139 @@ HOSTILE = {
     "top level array": (b"[1, 2, 3]", "", "top level is not a JSON object"),
     "top level number": (b"42", "", "top level is not a JSON object"),
     "trailing text": (GOOD + b"\nEND OF MESSAGE\n", "line", "more text after"),
-    "missing schema_version": (_with(lambda d: d.pop("schema_version")), "",
-                               "this is not a condition-survey file (it has no schema_version)"),
-    "schema_version as text": (_with(_set(["schema_version"], "1")), "schema_version",
-                               "whole number"),
-    "newer schema_version": (_with(_set(["schema_version"], 99)), "schema_version",
-                             "newer condition-survey"),
-    "negative schema_version": (_with(_set(["schema_version"], -1)), "schema_version",
-                                "unknown schema version"),
-    "wrong type": (_with(_set(["visits", 1, "rooms", 0, "air", "dry_bulb_c"], "20")),
-                   "visits[1].rooms[0].air.dry_bulb_c", "expected a number, found text '20'"),
-    "surface out of range": (_with(_set(["visits", 1, "rooms", 2, "surfaces", 0, "surface_temp_c"],
-                                        500)),
-                             "visits[1].rooms[2].surfaces[0].surface_temp_c",
-                             "500 is out of range; allowed: between -60 and 90 °C"),
-    "rh above 100": (_with(_set(["visits", 0, "outdoor", "rh_pct"], 101)),
-                     "visits[0].outdoor.rh_pct", "between 0.1 and 100 %"),
-    "huge number": (GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": 1e400'),
-                    "site.altitude_m", "too large"),
-    "huge integer": (_with(_set(["rooms", 0, "occupants"], 10**40)), "rooms[0].occupants",
-                     "out of range"),
-    "NaN literal": (GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": NaN'), "line",
-                    "not valid JSON"),
-    "Infinity literal": (GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": Infinity'), "line",
-                         "not valid JSON"),
-    "deeply nested value": (GOOD.replace(b'"notes": "Burst', b'"notes": ' + _nested(200_000)
-                                         + b', "x": "Burst', 1), "", "nested too deeply"),
+    "missing schema_version": (
+        _with(lambda d: d.pop("schema_version")),
+        "",
+        "this is not a condition-survey file (it has no schema_version)",
+    ),
+    "schema_version as text": (
+        _with(_set(["schema_version"], "1")),
+        "schema_version",
+        "whole number",
+    ),
+    "newer schema_version": (
+        _with(_set(["schema_version"], 99)),
+        "schema_version",
+        "newer condition-survey",
+    ),
+    "negative schema_version": (
+        _with(_set(["schema_version"], -1)),
+        "schema_version",
+        "unknown schema version",
+    ),
+    "wrong type": (
+        _with(_set(["visits", 1, "rooms", 0, "air", "dry_bulb_c"], "20")),
+        "visits[1].rooms[0].air.dry_bulb_c",
+        "expected a number, found text '20'",
+    ),
+    "surface out of range": (
+        _with(_set(["visits", 1, "rooms", 2, "surfaces", 0, "surface_temp_c"], 500)),
+        "visits[1].rooms[2].surfaces[0].surface_temp_c",
+        "500 is out of range; allowed: between -60 and 90 °C",
+    ),
+    "rh above 100": (
+        _with(_set(["visits", 0, "outdoor", "rh_pct"], 101)),
+        "visits[0].outdoor.rh_pct",
+        "between 0.1 and 100 %",
+    ),
+    "huge number": (
+        GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": 1e400'),
+        "site.altitude_m",
+        "too large",
+    ),
+    "huge integer": (
+        _with(_set(["rooms", 0, "occupants"], 10**40)),
+        "rooms[0].occupants",
+        "out of range",
+    ),
+    "NaN literal": (
+        GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": NaN'),
+        "line",
+        "not valid JSON",
+    ),
+    "Infinity literal": (
+        GOOD.replace(b'"altitude_m": 62.0', b'"altitude_m": Infinity'),
+        "line",
+        "not valid JSON",
+    ),
+    "deeply nested value": (
+        GOOD.replace(b'"notes": "Burst', b'"notes": ' + _nested(200_000) + b', "x": "Burst', 1),
+        "",
+        "nested too deeply",
+    ),
     "deeply nested document": (_nested(500_000), "", "top level is not a JSON object"),
-    "deeply nested object": (b'{"schema_version": 1, "site": ' + b'{"a": ' * 200_000 + b'1'
-                             + b'}' * 200_000 + b'}', "", "nested too deeply"),
-    "50 MB string": (_with(_set(["site", "notes"], "m" * 50_000_000)), "site.notes",
-                     "text too long (50000000 characters; at most 20000)"),
-    "unknown field": (_with(lambda d: d["visits"][0]["rooms"][0]["air"].update(rh=50)),
-                      "visits[0].rooms[0].air.rh", "did you mean 'rh_pct'"),
-    "misspelt choice": (_with(_set(["rooms", 0, "use"], "basment")), "rooms[0].use",
-                        "did you mean 'basement'"),
-    "missing required field": (_with(lambda d: d["rooms"][1].pop("name")), "rooms[1].name",
-                               "required field 'name' is missing"),
-    "bad date and time": (_with(_set(["visits", 2, "started_at"], "5 Feb 2025")),
-                          "visits[2].started_at", "not a date and time"),
+    "deeply nested object": (
+        b'{"schema_version": 1, "site": ' + b'{"a": ' * 200_000 + b"1" + b"}" * 200_000 + b"}",
+        "",
+        "nested too deeply",
+    ),
+    "50 MB string": (
+        _with(_set(["site", "notes"], "m" * 50_000_000)),
+        "site.notes",
+        "text too long (50000000 characters; at most 20000)",
+    ),
+    "unknown field": (
+        _with(lambda d: d["visits"][0]["rooms"][0]["air"].update(rh=50)),
+        "visits[0].rooms[0].air.rh",
+        "did you mean 'rh_pct'",
+    ),
+    "misspelt choice": (
+        _with(_set(["rooms", 0, "use"], "basment")),
+        "rooms[0].use",
+        "did you mean 'basement'",
+    ),
+    "missing required field": (
+        _with(lambda d: d["rooms"][1].pop("name")),
+        "rooms[1].name",
+        "required field 'name' is missing",
+    ),
+    "bad date and time": (
+        _with(_set(["visits", 2, "started_at"], "5 Feb 2025")),
+        "visits[2].started_at",
+        "not a date and time",
+    ),
     "null where an object belongs": (_with(_set(["site"], None)), "site", "expected an object"),
-    "dangling room reference": (_with(_set(["visits", 2, "rooms", 1, "room"], "garage")),
-                                "visits[2].rooms[1].room", "no room with id 'garage'"),
-    "duplicate room id": (_with(lambda d: d["rooms"][1].update(id="family")), "rooms[1].id",
-                          "used twice"),
-    "short logger sample": (_with(_set(["logs"], [{"room": "family", "source": "a.csv",
-                                                   "samples": [["2025-02-03T10:00:00", 18.0]]}])),
-                            "logs[0].samples[0]", "expected a list of 3 items"),
-    "long logger sample": (_with(_set(["logs"], [{"room": "family", "source": "a.csv",
-                                                  "samples": [["2025-02-03T10:00:00", 18.0, 50, 1]]}])),
-                           "logs[0].samples[0]", "expected a list of 3 items"),
-    "lone surrogate escape": (GOOD.replace(b"Example Row", b"Example \\ud800 Row", 1), "line",
-                              "surrogate"),
+    "dangling room reference": (
+        _with(_set(["visits", 2, "rooms", 1, "room"], "garage")),
+        "visits[2].rooms[1].room",
+        "no room with id 'garage'",
+    ),
+    "duplicate room id": (
+        _with(lambda d: d["rooms"][1].update(id="family")),
+        "rooms[1].id",
+        "used twice",
+    ),
+    "short logger sample": (
+        _with(
+            _set(
+                ["logs"],
+                [{"room": "family", "source": "a.csv", "samples": [["2025-02-03T10:00:00", 18.0]]}],
+            )
+        ),
+        "logs[0].samples[0]",
+        "expected a list of 3 items",
+    ),
+    "long logger sample": (
+        _with(
+            _set(
+                ["logs"],
+                [
+                    {
+                        "room": "family",
+                        "source": "a.csv",
+                        "samples": [["2025-02-03T10:00:00", 18.0, 50, 1]],
+                    }
+                ],
+            )
+        ),
+        "logs[0].samples[0]",
+        "expected a list of 3 items",
+    ),
+    "lone surrogate escape": (
+        GOOD.replace(b"Example Row", b"Example \\ud800 Row", 1),
+        "line",
+        "surrogate",
+    ),
 }
 
 
@@ -474,8 +689,16 @@ def test_damaged_or_hostile_file_gives_survey_file_error(tmp_path, name):
 def test_there_are_at_least_twenty_kinds_of_bad_file():
     """The hostile-file list holds at least 20 kinds, among them garbage, NaN and a 50 MB string."""
     assert len(HOSTILE) >= 20
-    for kind in ("random garbage", "truncated in half", "wrong type", "huge number", "NaN literal",
-                 "deeply nested document", "50 MB string", "newer schema_version"):
+    for kind in (
+        "random garbage",
+        "truncated in half",
+        "wrong type",
+        "huge number",
+        "NaN literal",
+        "deeply nested document",
+        "50 MB string",
+        "newer schema_version",
+    ):
         assert kind in HOSTILE
 
 
@@ -576,6 +799,7 @@ def test_session_saves_repeatedly(tmp_path):
 
 # --- versions ----------------------------------------------------------------------------
 
+
 def test_prerelease_schema_0_file_loads_upgraded():
     """A schema-0 file (the pre-release layout) loads as schema 1 with every value moved."""
     survey = store.load_survey(DATA / "schema0-prerelease.json")
@@ -607,7 +831,7 @@ def test_upgraded_file_is_saved_in_the_current_version(tmp_path):
 
 def test_every_older_version_has_a_migration():
     """There is a migration from each version below the current one to the next."""
-    assert sorted(store.MIGRATIONS) == list(range(0, model.SCHEMA_VERSION))
+    assert sorted(store.MIGRATIONS) == list(range(model.SCHEMA_VERSION))
 
 
 def test_schema_0_file_with_a_broken_layout_is_reported(tmp_path):

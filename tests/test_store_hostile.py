@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import contextlib
 import json
 import os
 import shutil
@@ -59,13 +60,12 @@ def fifo(tmp_path) -> Path:
     path = tmp_path / "pipe.json"
     os.mkfifo(path)
     yield path
-    try:  # release a reader that blocked despite everything
+    with contextlib.suppress(OSError):  # release a reader that blocked despite everything
         os.close(os.open(path, os.O_WRONLY | os.O_NONBLOCK))
-    except OSError:
-        pass
 
 
 # --- special files and size ------------------------------------------------------------------
+
 
 def test_fifo_is_refused_without_blocking(fifo):
     """A named pipe given as the survey is refused at once (no writer is waited for)."""
@@ -124,9 +124,11 @@ def test_a_file_swapped_for_a_pipe_after_the_check_is_not_read(fifo, tmp_path, m
     regular = tmp_path / "regular.json"
     regular.write_text("{}")
     real_stat = os.stat
-    monkeypatch.setattr(fileio.os, "stat",
-                        lambda path, *a, **k: real_stat(regular if Path(path) == fifo else path,
-                                                        *a, **k))
+    monkeypatch.setattr(
+        fileio.os,
+        "stat",
+        lambda path, *a, **k: real_stat(regular if Path(path) == fifo else path, *a, **k),
+    )
     with pytest.raises(SurveyFileError) as err:
         _within(10, store.read_input_file, fifo)
     assert err.value.problem == "this is a named pipe (FIFO), not a survey file"
@@ -182,8 +184,10 @@ def test_unreadable_file_says_no_permission_to_read(tmp_path, monkeypatch):
     assert "read-only" not in err.value.problem
 
 
-@pytest.mark.skipif(not hasattr(os, "geteuid") or os.geteuid() == 0,
-                    reason="root reads every file; the test above covers it with a stub")
+@pytest.mark.skipif(
+    not hasattr(os, "geteuid") or os.geteuid() == 0,
+    reason="root reads every file; the test above covers it with a stub",
+)
 def test_a_really_unreadable_file_says_no_permission_to_read(tmp_path):
     """The kernel's own refusal (a file of mode 0000) reads as "no permission to read"."""
     path = tmp_path / "s.json"
@@ -203,6 +207,7 @@ def test_export_target_that_is_a_pipe_is_refused(fifo):
 
 # --- keys given twice --------------------------------------------------------------------
 
+
 def _with_text(change, marker: str, replacement: str) -> bytes:
     doc = _doc()
     change(doc, marker)
@@ -213,8 +218,9 @@ def _with_text(change, marker: str, replacement: str) -> bytes:
 
 def test_a_reading_given_twice_is_refused_at_its_place():
     """`"rh_pct": 72, "rh_pct": 99` is a damaged file, named at the key's place."""
-    data = _with_text(lambda d, m: d["visits"][0]["rooms"][1]["air"].update(rh_pct=m),
-                      "@dup@", '72, "rh_pct": 99')
+    data = _with_text(
+        lambda d, m: d["visits"][0]["rooms"][1]["air"].update(rh_pct=m), "@dup@", '72, "rh_pct": 99'
+    )
     with pytest.raises(SurveyFileError) as err:
         store.loads_survey(data, "dup.json")
     assert err.value.where == "visits[0].rooms[1].air.rh_pct"
@@ -223,8 +229,11 @@ def test_a_reading_given_twice_is_refused_at_its_place():
 
 def test_a_key_given_three_times_at_the_top_level_is_counted():
     """A site given three times is reported once, with the count and what each was."""
-    data = _with_text(lambda d, m: d.update(site=m), "@dup@",
-                      '{"reference": "a"}, "site": {"reference": "b"}, "site": {"reference": "c"}')
+    data = _with_text(
+        lambda d, m: d.update(site=m),
+        "@dup@",
+        '{"reference": "a"}, "site": {"reference": "b"}, "site": {"reference": "c"}',
+    )
     with pytest.raises(SurveyFileError) as err:
         store.loads_survey(data)
     assert err.value.where == "site"
@@ -246,11 +255,14 @@ def test_the_first_duplicate_in_the_file_is_named():
 def test_a_duplicate_after_logger_samples_keeps_its_place():
     """Skipping logger samples for speed does not move the place of a later duplicate."""
     doc = _doc()
-    doc["logs"] = [{"room": "bed1", "source": "a.csv",
-                    "samples": [["2025-01-15T10:00:00", 18.0, 60.0],
-                                ["2025-01-15T10:10:00", 18.1, 61.0]]},
-                   {"room": "bed2", "source": "b.csv", "samples": [],
-                    "skipped_rows": "@dup@"}]
+    doc["logs"] = [
+        {
+            "room": "bed1",
+            "source": "a.csv",
+            "samples": [["2025-01-15T10:00:00", 18.0, 60.0], ["2025-01-15T10:10:00", 18.1, 61.0]],
+        },
+        {"room": "bed2", "source": "b.csv", "samples": [], "skipped_rows": "@dup@"},
+    ]
     text = json.dumps(doc, indent=1).replace('"@dup@"', '1, "skipped_rows": 2')
     with pytest.raises(SurveyFileError) as err:
         store.loads_survey(text.encode())
@@ -268,10 +280,14 @@ def test_key_text_inside_a_note_is_not_a_duplicate():
 def test_a_survey_with_logger_samples_loads():
     """A valid survey with several logger series passes the duplicate check."""
     doc = _doc()
-    doc["logs"] = [{"room": room, "source": f"{room}.csv",
-                    "samples": [[f"2025-01-15T10:{m:02d}:00", 18.0, 60.0] for m in range(50)]}
-                   for room in ("bed1", "bed2")] + [{"room": None, "source": "out.csv",
-                                                      "samples": []}]
+    doc["logs"] = [
+        {
+            "room": room,
+            "source": f"{room}.csv",
+            "samples": [[f"2025-01-15T10:{m:02d}:00", 18.0, 60.0] for m in range(50)],
+        }
+        for room in ("bed1", "bed2")
+    ] + [{"room": None, "source": "out.csv", "samples": []}]
     survey = store.loads_survey(json.dumps(doc, indent=3).encode())
     assert [len(log.samples) for log in survey.logs] == [50, 50, 0]
 
@@ -292,14 +308,18 @@ def test_cutting_out_logger_samples_keeps_everything_else(survey):
 def test_duplicate_in_an_old_schema_file_is_refused():
     """A file of an older schema version is checked for duplicate keys too."""
     text = (ROOT / "tests" / "data" / "schema0-prerelease.json").read_text()
-    text = text.replace('"reference": "CS-24-099 Test flat"',
-                        '"reference": "CS-24-099 Test flat", "reference": "other"', 1)
+    text = text.replace(
+        '"reference": "CS-24-099 Test flat"',
+        '"reference": "CS-24-099 Test flat", "reference": "other"',
+        1,
+    )
     with pytest.raises(SurveyFileError) as err:
         store.loads_survey(text.encode())
     assert err.value.where == "reference" and "given twice" in err.value.problem
 
 
 # --- bounded, visible messages -----------------------------------------------------------
+
 
 def _error_line(data: bytes) -> str:
     with pytest.raises(SurveyFileError) as err:
@@ -349,21 +369,33 @@ def test_a_bad_room_reference_in_a_large_survey_lists_a_few_ids():
 def test_a_bad_instrument_reference_lists_a_few_ids():
     """The same holds for instruments."""
     survey = store.new_survey("x")
-    survey.instruments = [model.Instrument(id=f"i{n}", kind="other", name="meter")
-                          for n in range(300)]
+    survey.instruments = [
+        model.Instrument(id=f"i{n}", kind="other", name="meter") for n in range(300)
+    ]
     survey.rooms = [model.Room(id="r", name="R")]
-    survey.visits = [model.Visit(started_at=survey.created_at, rooms=[model.RoomVisit(
-        room="r", air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="nope"))])]
+    survey.visits = [
+        model.Visit(
+            started_at=survey.created_at,
+            rooms=[
+                model.RoomVisit(
+                    room="r", air=model.AirReading(dry_bulb_c=20, rh_pct=50, instrument="nope")
+                )
+            ],
+        )
+    ]
     with pytest.raises(SurveyFileError) as err:
         store.dumps_survey(survey)
     assert len(str(err.value)) < LINE_MAX and "and 292 more" in err.value.problem
 
 
-@pytest.mark.parametrize("where, value", [
-    (("rooms", 0, "use"), "\x1b]8;;http://x\x07link\x1b]8;;\x07"),
-    (("visits", 0, "rooms", 0, "air", "dry_bulb_c"), "\x1b[2J\x1b[H"),
-    (("visits", 0, "started_at"), "2025\u202e-01-15"),
-])
+@pytest.mark.parametrize(
+    ("where", "value"),
+    [
+        (("rooms", 0, "use"), "\x1b]8;;http://x\x07link\x1b]8;;\x07"),
+        (("visits", 0, "rooms", 0, "air", "dry_bulb_c"), "\x1b[2J\x1b[H"),
+        (("visits", 0, "started_at"), "2025\u202e-01-15"),
+    ],
+)
 def test_control_characters_in_a_value_are_shown_escaped(where, value):
     """A value with terminal escapes or a bidi override is quoted with them made visible."""
     doc = _doc()
@@ -390,8 +422,13 @@ def test_a_hostile_lock_file_is_described_safely(tmp_path):
     """What a lock file says of its holder reaches a message shortened and escaped."""
     path = tmp_path / "s.json"
     shutil.copy(FLAT, path)
-    info = store.LockInfo(pid=1, host="far-away-host", user="\x1b]0;owned\x07" + "u" * 5000,
-                          started_at="2025-01-15T09:30:00\x1b[2J", token="t")
+    info = store.LockInfo(
+        pid=1,
+        host="far-away-host",
+        user="\x1b]0;owned\x07" + "u" * 5000,
+        started_at="2025-01-15T09:30:00\x1b[2J",
+        token="t",
+    )
     store.lock_path(path).write_bytes(msgspec.json.encode(info))
     with pytest.raises(store.SurveyLocked) as err:
         store.open_for_editing(path)
@@ -412,6 +449,7 @@ def test_a_lock_file_that_is_a_pipe_does_not_block_opening(tmp_path):
 
 
 # --- tidy edges --------------------------------------------------------------------------
+
 
 def test_save_with_a_backup_linked_to_the_survey_leaves_no_temp_file(tmp_path):
     """A .bak that is a hard link to the survey itself: the save leaves no temporary file,

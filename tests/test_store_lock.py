@@ -32,8 +32,16 @@ def survey_path(tmp_path) -> Path:
 
 
 def _write_lock(path: Path, **fields) -> store.LockInfo:
-    info = store.LockInfo(**{"pid": 1, "host": socket.gethostname(), "user": "avery",
-                             "started_at": "2025-01-15T09:30:00", "token": "t0", **fields})
+    info = store.LockInfo(
+        **{
+            "pid": 1,
+            "host": socket.gethostname(),
+            "user": "avery",
+            "started_at": "2025-01-15T09:30:00",
+            "token": "t0",
+            **fields,
+        }
+    )
     store.lock_path(path).write_bytes(msgspec.json.encode(info))
     return info
 
@@ -65,8 +73,13 @@ def test_second_opener_in_another_process_is_told_who_holds_it(survey_path):
         sys.stdin.read()
         session.close()
     """)
-    holder = subprocess.Popen([sys.executable, "-c", code, str(survey_path)], cwd=ROOT,
-                              stdin=subprocess.PIPE, stdout=subprocess.PIPE, text=True)
+    holder = subprocess.Popen(
+        [sys.executable, "-c", code, str(survey_path)],
+        cwd=ROOT,
+        stdin=subprocess.PIPE,
+        stdout=subprocess.PIPE,
+        text=True,
+    )
     try:
         pid = int(holder.stdout.readline())
         with pytest.raises(store.SurveyLocked) as err:
@@ -83,9 +96,11 @@ def test_second_opener_in_another_process_is_told_who_holds_it(survey_path):
 
 def test_second_session_in_the_same_process_is_refused(survey_path):
     """Even this process cannot open the same survey twice for editing."""
-    with store.open_for_editing(survey_path):
-        with pytest.raises(store.SurveyLocked, match="open for editing by"):
-            store.open_for_editing(survey_path)
+    with (
+        store.open_for_editing(survey_path),
+        pytest.raises(store.SurveyLocked, match="open for editing by"),
+    ):
+        store.open_for_editing(survey_path)
 
 
 def test_stale_lock_of_a_dead_process_is_taken_over(survey_path):
@@ -171,8 +186,10 @@ def test_session_create_refuses_an_existing_file(survey_path):
 def test_stale_temporary_files_are_removed_on_open(survey_path):
     """Temporary files of a killed save (dead process id) are removed; live ones are kept."""
     gone = _dead_pid()
-    dead = [survey_path.with_name(f".{survey_path.name}{kind}.{gone}-0123abcd.tmp")
-            for kind in ("", ".bak", ".lock")]
+    dead = [
+        survey_path.with_name(f".{survey_path.name}{kind}.{gone}-0123abcd.tmp")
+        for kind in ("", ".bak", ".lock")
+    ]
     mine = survey_path.with_name(f".{survey_path.name}.{os.getpid()}-0123abcd.tmp")
     unrelated = survey_path.with_name(".other.json.1-0123abcd.tmp")
     for path in (*dead, mine, unrelated):
@@ -188,12 +205,14 @@ ROUNDS = 6
 
 def _jittered(fn, rng, most_s=0.002):
     """``fn`` with a random pause before and after: a busy, slow machine."""
+
     def call(*args, **kwargs):
         time.sleep(rng.uniform(0, most_s))
         try:
             return fn(*args, **kwargs)
         finally:
             time.sleep(rng.uniform(0, most_s))
+
     return call
 
 
@@ -211,7 +230,7 @@ def _racer(path, seed, barrier, results, release):
     except store.SurveyLocked as exc:
         results.put(("locked", exc.holder.token if exc.holder else ""))
         return
-    except Exception as exc:  # noqa: BLE001 - reported to the test
+    except Exception as exc:
         results.put(("error", repr(exc)))
         return
     results.put(("won", ours.token))
@@ -230,8 +249,12 @@ def test_stale_lock_taken_over_by_several_processes_at_once_has_one_winner(surve
     for round_ in range(ROUNDS):
         _write_lock(survey_path, pid=_dead_pid(), token=f"stale{round_}")
         barrier, results, release = ctx.Barrier(racers), ctx.Queue(), ctx.Event()
-        procs = [ctx.Process(target=_racer, args=(survey_path, 1000 * round_ + i, barrier,
-                                                  results, release)) for i in range(racers)]
+        procs = [
+            ctx.Process(
+                target=_racer, args=(survey_path, 1000 * round_ + i, barrier, results, release)
+            )
+            for i in range(racers)
+        ]
         for proc in procs:
             proc.start()
         try:

@@ -19,19 +19,47 @@ EXAMPLE = ROOT / "example_sites" / "winter-flat-bedroom-mould.json"
 
 #: Every name importable from the single-module store before it became a package.
 NAMES_BEFORE_THE_SPLIT = (
-    "MAX_FILE_BYTES", "MISSING", "MIGRATIONS", "Migration", "migration", "migrate",
-    "value_at", "explain_validation_error", "loads_survey", "dumps_survey", "read_input_file",
-    "backup_path", "load_survey", "FileStamp", "file_stamp", "write_file_atomically",
-    "damaged_copy_path", "save_survey", "remove_stale_temp_files", "LockInfo", "SurveyLocked",
-    "lock_path", "read_lock", "lock_is_stale", "describe_lock", "acquire_lock", "release_lock",
-    "EditSession", "open_for_editing", "survey_schema", "read_schema_version",
+    "MAX_FILE_BYTES",
+    "MISSING",
+    "MIGRATIONS",
+    "Migration",
+    "migration",
+    "migrate",
+    "value_at",
+    "explain_validation_error",
+    "loads_survey",
+    "dumps_survey",
+    "read_input_file",
+    "backup_path",
+    "load_survey",
+    "FileStamp",
+    "file_stamp",
+    "write_file_atomically",
+    "damaged_copy_path",
+    "save_survey",
+    "remove_stale_temp_files",
+    "LockInfo",
+    "SurveyLocked",
+    "lock_path",
+    "read_lock",
+    "lock_is_stale",
+    "describe_lock",
+    "acquire_lock",
+    "release_lock",
+    "EditSession",
+    "open_for_editing",
+    "survey_schema",
+    "read_schema_version",
 )
 
 
 def _loaded_after(code: str) -> set[str]:
     result = subprocess.run(
         [sys.executable, "-c", code + "\nimport sys\nprint('\\n'.join(sys.modules))"],
-        capture_output=True, text=True, timeout=60, cwd=ROOT,
+        capture_output=True,
+        text=True,
+        timeout=60,
+        cwd=ROOT,
     )
     assert result.returncode == 0, result.stderr
     return set(result.stdout.split())
@@ -76,8 +104,9 @@ def test_model_imports_nothing_of_the_store():
             names = [a.name for a in node.names]
         else:
             continue
-        assert not any(n == "survey.store" or n.startswith("survey.store.") for n in names), \
+        assert not any(n == "survey.store" or n.startswith("survey.store.") for n in names), (
             ast.unparse(node)
+        )
 
 
 def test_importing_the_model_loads_no_store():
@@ -98,8 +127,15 @@ def test_loading_a_good_survey_loads_only_what_it_needs():
     wording (nor difflib, socket, secrets)."""
     loaded = _loaded_after(f"from survey import store\nstore.load_survey({str(EXAMPLE)!r})")
     assert "survey.store.survey_file" in loaded
-    unwanted = {"survey.store.lock", "survey.store.session", "survey.store.schema",
-                "survey.store.explain", "difflib", "socket", "secrets"}
+    unwanted = {
+        "survey.store.lock",
+        "survey.store.session",
+        "survey.store.schema",
+        "survey.store.explain",
+        "difflib",
+        "socket",
+        "secrets",
+    }
     assert not unwanted & loaded
 
 
@@ -112,6 +148,7 @@ def test_store_module_loads_no_face_library(module):
 
 
 # --- the schema's text -------------------------------------------------------------------
+
 
 def _descriptions(node) -> list[str]:
     found = []

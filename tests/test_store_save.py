@@ -65,11 +65,14 @@ def test_forced_save_over_a_damaged_file_keeps_it_aside(saved_twice):
     assert kept.name.startswith("flat.json.damaged-") and kept.read_bytes() == damaged
 
 
-@pytest.mark.parametrize("content, words", [
-    (b"Meeting notes, not a survey\n", "not valid JSON"),
-    (b'{"schema_version": 7, "site": {"reference": "x"}}', "newer condition-survey"),
-    (b"", "empty"),
-])
+@pytest.mark.parametrize(
+    ("content", "words"),
+    [
+        (b"Meeting notes, not a survey\n", "not valid JSON"),
+        (b'{"schema_version": 7, "site": {"reference": "x"}}', "newer condition-survey"),
+        (b"", "empty"),
+    ],
+)
 def test_save_over_a_file_that_is_not_a_survey_is_refused(tmp_path, content, words):
     """Some other file, or one from a newer program, under the survey's name is not replaced."""
     path = tmp_path / "s.json"
@@ -161,8 +164,9 @@ def test_write_file_atomically_refuses_a_read_only_file(tmp_path):
 
 def test_duplicate_schema_version_keys_are_named_plainly(tmp_path):
     """Two schema_version keys give a message saying so, not 'between 1 and 1'."""
-    doc = FLAT.read_text().replace('"schema_version": 1', '"schema_version": 2, '
-                                                          '"schema_version": 1', 1)
+    doc = FLAT.read_text().replace(
+        '"schema_version": 1', '"schema_version": 2, "schema_version": 1', 1
+    )
     path = tmp_path / "dup.json"
     path.write_text(doc)
     with pytest.raises(SurveyFileError) as err:

@@ -47,10 +47,12 @@ def test_published_limits_have_their_published_values():
     # Mould on timber from about 16-19 % MC [M, common practice]: the lower end.
     assert th.value("timber_mould_mc_pct") == 16.0
     # AHAM DH-1 80 °F = 26.7 °C; current US test 65 °F = 18.3 °C; both 60 % RH [R, secondary].
-    assert th.value("dehumidifier_rating_old_dry_bulb_c") == pytest.approx((80 - 32) / 1.8,
-                                                                           abs=0.05)
-    assert th.value("dehumidifier_rating_current_dry_bulb_c") == pytest.approx((65 - 32) / 1.8,
-                                                                               abs=0.05)
+    assert th.value("dehumidifier_rating_old_dry_bulb_c") == pytest.approx(
+        (80 - 32) / 1.8, abs=0.05
+    )
+    assert th.value("dehumidifier_rating_current_dry_bulb_c") == pytest.approx(
+        (65 - 32) / 1.8, abs=0.05
+    )
     assert th.value("dehumidifier_rating_rh_pct") == 60.0
     # 1 US pint = 0.473176 L [R].
     assert th.value("us_pint_l") == 0.473176
@@ -80,23 +82,26 @@ def test_propane_water_from_stoichiometry():
 
 def test_mould_area_bands_are_the_square_foot_bands():
     """10 and 100 sq ft (US EPA mould remediation bands, from memory) in m²."""
-    sq_ft = 0.3048 ** 2
+    sq_ft = 0.3048**2
     assert th.value("mould_area_small_m2") == pytest.approx(10 * sq_ft, abs=0.005)
     assert th.value("mould_area_large_m2") == pytest.approx(100 * sq_ft, abs=0.05)
 
 
-@pytest.mark.parametrize(("use", "expected"), [
-    ("bedroom", 0.75),   # BRE IP1/06 dwellings 0.75 [M]
-    ("living", 0.75),    # BRE IP1/06 dwellings 0.75 [M]
-    ("office", 0.75),    # our choice, safe side: BRE IP1/06's figure for offices not verified
-    ("basement", 0.75),  # a habitable basement is a dwelling space (our mapping)
-    ("kitchen", 0.80),   # BRE IP1/06 kitchens 0.80 [M]
-    ("bathroom", 0.80),  # our choice: treated like a kitchen
-    ("storage", 0.50),   # BRE IP1/06 storage 0.50 [M]
-    ("other", 0.70),     # IEA Annex 14 fRsi >= 0.7 [M]
-    ("loft", None),      # unheated: no limit
-    ("crawlspace", None),
-])
+@pytest.mark.parametrize(
+    ("use", "expected"),
+    [
+        ("bedroom", 0.75),  # BRE IP1/06 dwellings 0.75 [M]
+        ("living", 0.75),  # BRE IP1/06 dwellings 0.75 [M]
+        ("office", 0.75),  # our choice, safe side: BRE IP1/06's figure for offices not verified
+        ("basement", 0.75),  # a habitable basement is a dwelling space (our mapping)
+        ("kitchen", 0.80),  # BRE IP1/06 kitchens 0.80 [M]
+        ("bathroom", 0.80),  # our choice: treated like a kitchen
+        ("storage", 0.50),  # BRE IP1/06 storage 0.50 [M]
+        ("other", 0.70),  # IEA Annex 14 fRsi >= 0.7 [M]
+        ("loft", None),  # unheated: no limit
+        ("crawlspace", None),
+    ],
+)
 def test_frsi_limit_by_room_use(use, expected):
     """Each room use maps to its cited temperature-factor limit, or none."""
     limit = th.frsi_limit(use)
@@ -131,12 +136,21 @@ def test_humidity_class_limits_follow_iso_13788():
     assert th.humidity_class_limits_pa(20.0) is None
 
 
-@pytest.mark.parametrize(("excess", "outdoor", "expected"), [
-    (-50.0, 0.0, 1), (270.0, 0.0, 1), (270.1, 0.0, 2), (540.0, 0.0, 2), (800.0, 0.0, 3),
-    (1000.0, -5.0, 4), (1300.0, 0.0, 5), (1351.0, 0.0, th.BEYOND_CLASS_5),
-    (500.0, 10.0, 4),  # limits halve at 10 °C: 405 < 500 <= 540 → class 4
-    (100.0, 22.0, None),
-])
+@pytest.mark.parametrize(
+    ("excess", "outdoor", "expected"),
+    [
+        (-50.0, 0.0, 1),
+        (270.0, 0.0, 1),
+        (270.1, 0.0, 2),
+        (540.0, 0.0, 2),
+        (800.0, 0.0, 3),
+        (1000.0, -5.0, 4),
+        (1300.0, 0.0, 5),
+        (1351.0, 0.0, th.BEYOND_CLASS_5),
+        (500.0, 10.0, 4),  # limits halve at 10 °C: 405 < 500 <= 540 → class 4
+        (100.0, 22.0, None),
+    ],
+)
 def test_humidity_class_of_an_excess(excess, outdoor, expected):
     """Classes run from the previous limit (exclusive) to their own (inclusive) [M]."""
     assert th.humidity_class(excess, outdoor) == expected
@@ -167,8 +181,12 @@ def test_chosen_moisture_rates_are_marked_as_our_choice():
     90 of 60-120, cooking 1000 of 600-1500; building-science text quoting BS 5250 [R,
     secondary]) carry the "choice" mark and say so; the bath and shower figures are the
     source's own."""
-    for key in ("moisture_person_asleep_g_per_h", "moisture_person_sedentary_g_per_h",
-                "moisture_person_active_g_per_h", "moisture_cooking_g_per_h"):
+    for key in (
+        "moisture_person_asleep_g_per_h",
+        "moisture_person_sedentary_g_per_h",
+        "moisture_person_active_g_per_h",
+        "moisture_cooking_g_per_h",
+    ):
         t = th.get(key)
         assert t.mark == "choice", key
         assert t.note.startswith("Our choice"), key
@@ -187,9 +205,11 @@ def test_client_citation_avoids_trade_shorthand():
     mould = words.client_citation(th.get("surface_rh_mould_limit_pct"), words.SI)
     assert "from memory" not in mould
     assert words.client_citation(th.get("dew_point_margin_k"), words.IP).startswith(
-        "Dew-point margin 5.4 °F: ISO 8502-4")  # 3 K × 1.8 = 5.4 °F
+        "Dew-point margin 5.4 °F: ISO 8502-4"
+    )  # 3 K × 1.8 = 5.4 °F
     assert words.legend([th.get("frsi_dwelling")]) == [
-        "* value recalled from the source, not yet checked against the original text"]
+        "* value recalled from the source, not yet checked against the original text"
+    ]
 
 
 def test_category_1_water_degrades_within_two_days():
@@ -231,9 +251,18 @@ def test_element_policy():
     policy = th.ELEMENT_POLICY
     assert set(policy) == set(th.SURFACE_ELEMENTS)
     assert {e for e, p in policy.items() if p.temperature_factor} == {
-        "external_wall", "ceiling", "floor", "other"}
+        "external_wall",
+        "ceiling",
+        "floor",
+        "other",
+    }
     assert {e for e, p in policy.items() if p.sets_room_target} == {
-        "external_wall", "ceiling", "floor", "other", "internal_wall"}
+        "external_wall",
+        "ceiling",
+        "floor",
+        "other",
+        "internal_wall",
+    }
     assert {e for e, p in policy.items() if not p.mould_judged} == {"glazing", "pipe"}
     assert th.check_element("External wall").element == "external_wall"
     with pytest.raises(InputError) as caught:

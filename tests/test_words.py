@@ -18,8 +18,15 @@ from survey import advise, assess, units, words
 from survey import thresholds as th
 from survey.advise import ActionKind, Caution, DehumidifyWhy
 from survey.advise import cautions as caution_rules
-from survey.assess import (Accuracy, Activity, MaterialReading, Observations, OutdoorInput,
-                           RoomInput, SurfaceInput)
+from survey.assess import (
+    Accuracy,
+    Activity,
+    MaterialReading,
+    Observations,
+    OutdoorInput,
+    RoomInput,
+    SurfaceInput,
+)
 from survey.words.display import SI_TEXT
 
 P = 101_325.0
@@ -60,14 +67,27 @@ def caution_texts(room, outdoor=None, year=None, display=words.SI) -> dict[str, 
 
 
 def winter_bedroom(occupants=2, volume=30.0):
-    return RoomInput("Bedroom", "bedroom", 18.0, 72.0,
-                     (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
-                     volume_m3=volume, occupants=occupants)
+    return RoomInput(
+        "Bedroom",
+        "bedroom",
+        18.0,
+        72.0,
+        (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
+        volume_m3=volume,
+        occupants=occupants,
+    )
 
 
 def summer_basement(occupants=0):
-    return RoomInput("Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0, occupants=occupants)
+    return RoomInput(
+        "Basement",
+        "basement",
+        22.0,
+        75.0,
+        (SurfaceInput("slab", 17.0),),
+        volume_m3=60.0,
+        occupants=occupants,
+    )
 
 
 def plain(**observations):
@@ -76,11 +96,21 @@ def plain(**observations):
 
 # --- the display ------------------------------------------------------------------------------
 
-_VALUES = {"temperature": 11.04, "temperature_difference": -1.88,
-           "humidity_ratio": 0.0041217, "pressure": 101_325.0, "vapour_pressure": 819.2,
-           "absolute_humidity": 8.625, "enthalpy": 45_123.0, "specific_volume": 0.84321,
-           "density": 1.20412, "length": 123.4, "airflow": 32.2, "water_rate": 7.04,
-           "volume": 30.0}
+_VALUES = {
+    "temperature": 11.04,
+    "temperature_difference": -1.88,
+    "humidity_ratio": 0.0041217,
+    "pressure": 101_325.0,
+    "vapour_pressure": 819.2,
+    "absolute_humidity": 8.625,
+    "enthalpy": 45_123.0,
+    "specific_volume": 0.84321,
+    "density": 1.20412,
+    "length": 123.4,
+    "airflow": 32.2,
+    "water_rate": 7.04,
+    "volume": 30.0,
+}
 
 
 @pytest.mark.parametrize("quantity", sorted(set(SI_TEXT) - {"area"}))
@@ -93,14 +123,16 @@ def test_si_text_is_units_format_value(quantity):
     value = _VALUES[quantity]
     assert words.SI(quantity, value) == units.format_value(quantity, value, "si")
     assert words.SI(quantity, value, 0) == units.format_value(quantity, value, "si", 0)
-    assert words.SI(quantity, value, unit=False) == units.format_value(quantity, value, "si",
-                                                                      unit=False)
+    assert words.SI(quantity, value, unit=False) == units.format_value(
+        quantity, value, "si", unit=False
+    )
 
 
 def test_si_text_has_no_negative_zero():
     """A value that rounds to zero is written 0.0, never -0.0, as units.format_value does."""
-    assert words.SI("temperature", -0.04) == units.format_value("temperature", -0.04, "si") \
-        == "0.0 °C"
+    assert (
+        words.SI("temperature", -0.04) == units.format_value("temperature", -0.04, "si") == "0.0 °C"
+    )
 
 
 def test_display_refuses_an_unknown_unit_system():
@@ -114,14 +146,16 @@ def test_area_is_in_square_feet_in_ip():
 
     Mould areas: m² in SI, sq ft in IP (US practice): 0.93 m² = 10.0 sq ft and 9.3 m² =
     100.1 sq ft, since 1 ft = 0.3048 m exactly (hand arithmetic)."""
-    assert 0.93 / FT ** 2 == pytest.approx(10.01, abs=0.005)
+    assert pytest.approx(10.01, abs=0.005) == 0.93 / FT**2
     assert words.SI.area(0.93) == "0.93 m²"
     assert words.IP.area(0.93) == "10 sq ft"
     assert words.IP.area(9.3) == "100 sq ft"
 
 
-@pytest.mark.parametrize("value, ip, shown", [(14.25, False, 14.3), (14.21, False, 14.3),
-                                              (14.3, False, 14.3), (-0.04, False, 0.0)])
+@pytest.mark.parametrize(
+    ("value", "ip", "shown"),
+    [(14.25, False, 14.3), (14.21, False, 14.3), (14.3, False, 14.3), (-0.04, False, 0.0)],
+)
 def test_minimum_temperatures_round_up(value, ip, shown):
     """A shown minimum is never below the true one (worked by hand)."""
     assert words.round_up_temperature_c(value, ip) == pytest.approx(shown)
@@ -136,10 +170,11 @@ def test_minimum_temperature_rounds_up_in_fahrenheit():
 
 # --- ventilation and dehumidification ---------------------------------------------------------
 
+
 def up(value: float, places: int = 0) -> float:
     """``value`` rounded up at ``places`` decimals: a least figure is never shown below the
     one worked out."""
-    return math.ceil(value * 10 ** places - 1e-9) / 10 ** places
+    return math.ceil(value * 10**places - 1e-9) / 10**places
 
 
 def test_ventilate_text_gives_the_airflow_in_m3_per_h_and_air_changes():
@@ -151,8 +186,10 @@ def test_ventilate_text_gives_the_airflow_in_m3_per_h_and_air_changes():
     vent = action(advice, ActionKind.VENTILATE)
     text = words.action_reason(vent, finding, advice, words.SI)
     n = vent.numbers
-    assert (f"At least {up(n.airflow_m3_per_h):.0f} m³/h of outdoor air "
-            f"({n.air_changes_per_h:.1f} air changes an hour in this 30.0 m³ room)") in text
+    assert (
+        f"At least {up(n.airflow_m3_per_h):.0f} m³/h of outdoor air "
+        f"({n.air_changes_per_h:.1f} air changes an hour in this 30.0 m³ room)"
+    ) in text
 
 
 def test_ip_ventilate_text_gives_the_airflow_in_cfm():
@@ -163,7 +200,7 @@ def test_ip_ventilate_text_gives_the_airflow_in_cfm():
     finding, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
     vent = action(advice, ActionKind.VENTILATE)
     text = words.action_reason(vent, finding, advice, words.IP)
-    cfm = vent.numbers.airflow_m3_per_h / 60.0 / FT ** 3
+    cfm = vent.numbers.airflow_m3_per_h / 60.0 / FT**3
     assert f"At least {up(cfm):.0f} cfm of outdoor air" in text
     assert "m³/h" not in text
 
@@ -177,8 +214,10 @@ def test_ip_text_gives_moisture_in_grains_and_heat_in_btu():
     vent = action(advice, ActionKind.VENTILATE).numbers
     text = every_reason(finding, advice, words.IP)
     g = vent.moisture_generation_g_per_h
-    assert (f"carries away {g * GRAINS_PER_LB / G_PER_LB:.0f} gr/h ({g / G_PER_LB:.2f} lb/h) "
-            f"of moisture") in text
+    assert (
+        f"carries away {g * GRAINS_PER_LB / G_PER_LB:.0f} gr/h ({g / G_PER_LB:.2f} lb/h) "
+        f"of moisture"
+    ) in text
     assert f"takes about {vent.heat_to_warm_air_w * BTU_H_PER_W:.0f} Btu/h of heating" in text
     assert not re.search(r"\d g/h", text) and not re.search(r"\d W\b", text)
 
@@ -197,8 +236,10 @@ def test_dehumidifier_size_shows_us_pints_beside_litres():
     litres, pints = map(float, shown[0])
     assert litres == up(dehum.numbers.removal_l_per_day, 1)
     assert pints == up(dehum.numbers.removal_l_per_day / US_PINT_L, 1)
-    assert (f"{litres:.1f} L/day ({pints:.1f} US pints/day) in all, the least a dehumidifier "
-            f"should remove") in text
+    assert (
+        f"{litres:.1f} L/day ({pints:.1f} US pints/day) in all, the least a dehumidifier "
+        f"should remove"
+    ) in text
 
 
 def test_ip_dehumidifier_size_is_in_pints_first():
@@ -219,8 +260,10 @@ def test_rating_points_are_named_in_si():
     SI text names both rating points at 60 % RH: 26.7 °C (AHAM DH-1) and 18.3 °C (the
     current US test), 80 °F and 65 °F by (F − 32) × 5/9 [R, secondary]."""
     text = reason_of(summer_basement(), OutdoorInput(28.0, 75.0), ActionKind.DEHUMIDIFY)
-    assert ("Label capacities are measured at a rating point: 26.7 °C and 60 % RH for older "
-            "ratings (AHAM DH-1), 18.3 °C and 60 % RH for the current US test.") in text
+    assert (
+        "Label capacities are measured at a rating point: 26.7 °C and 60 % RH for older "
+        "ratings (AHAM DH-1), 18.3 °C and 60 % RH for the current US test."
+    ) in text
 
 
 def test_ip_text_names_the_rating_points_in_whole_fahrenheit():
@@ -228,26 +271,38 @@ def test_ip_text_names_the_rating_points_in_whole_fahrenheit():
 
     The rating points are 80 °F (AHAM DH-1) and 65 °F (current US test) [R, secondary]:
     IP text shows them so, not 80.1 / 64.9 from the rounded Celsius values."""
-    text = reason_of(summer_basement(), OutdoorInput(28.0, 75.0), ActionKind.DEHUMIDIFY,
-                     words.IP)
-    assert ("Label capacities are measured at a rating point: 80 °F and 60 % RH for older "
-            "ratings (AHAM DH-1), 65 °F and 60 % RH for the current US test.") in text
+    text = reason_of(summer_basement(), OutdoorInput(28.0, 75.0), ActionKind.DEHUMIDIFY, words.IP)
+    assert (
+        "Label capacities are measured at a rating point: 80 °F and 60 % RH for older "
+        "ratings (AHAM DH-1), 65 °F and 60 % RH for the current US test."
+    ) in text
     assert "80.1" not in text and "64.9" not in text
 
 
-@pytest.mark.parametrize(("room", "outdoor", "desiccant"), [
-    (RoomInput("Cellar", "basement", 8.0, 90.0, volume_m3=40.0, occupants=0),
-     OutdoorInput(9.0, 95.0), True),
-    (summer_basement(), OutdoorInput(28.0, 75.0), False),
-])
+@pytest.mark.parametrize(
+    ("room", "outdoor", "desiccant"),
+    [
+        (
+            RoomInput("Cellar", "basement", 8.0, 90.0, volume_m3=40.0, occupants=0),
+            OutdoorInput(9.0, 95.0),
+            True,
+        ),
+        (summer_basement(), OutdoorInput(28.0, 75.0), False),
+    ],
+)
 def test_desiccant_sentence_only_for_a_cool_room(room, outdoor, desiccant):
     """Only a cool room's dehumidify text advises a desiccant unit.
 
     Below 10 °C (common practice, no source) the text ends by advising a desiccant unit;
     a warmer room's text does not mention one."""
     text = reason_of(room, outdoor, ActionKind.DEHUMIDIFY)
-    assert text.endswith("Below 10.0 °C a refrigerant unit loses most of its capacity and can "
-                         "ice up: use a desiccant dehumidifier.") is desiccant
+    assert (
+        text.endswith(
+            "Below 10.0 °C a refrigerant unit loses most of its capacity and can "
+            "ice up: use a desiccant dehumidifier."
+        )
+        is desiccant
+    )
     assert ("desiccant" in text) is desiccant
 
 
@@ -257,11 +312,12 @@ def test_outdoor_air_not_measured_is_said():
     Without an outdoor reading the dehumidify text says so, and that airing helps if
     outdoor air holds less water than the room air now."""
     finding, advice = advice_for(winter_bedroom(), None)
-    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice,
-                               words.SI)
+    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice, words.SI)
     w = finding.air.humidity_ratio_g_per_kg
-    assert (f"The outdoor air was not measured: if it holds less water than the {w:.2f} g/kg "
-            f"of the room air now, airing the room helps too.") in text
+    assert (
+        f"The outdoor air was not measured: if it holds less water than the {w:.2f} g/kg "
+        f"of the room air now, airing the room helps too."
+    ) in text
 
 
 _WINDOWS_CLOSED = "Keep windows and doors to outside closed while dehumidifying."
@@ -272,10 +328,12 @@ def coolprop_rh_for_w(temp_c: float, w: float) -> float:
     return 100.0 * HAPropsSI("R", "T", temp_c + 273.15, "P", P, "W", w)
 
 
-@pytest.mark.parametrize(("outdoor_c", "offset_g_per_kg"), [(18.0, -1.15), (18.0, -0.85),
-                                                            (22.0, +0.5)])
-def test_windows_are_said_to_stay_closed_only_when_outdoor_air_is_wetter(outdoor_c,
-                                                                         offset_g_per_kg):
+@pytest.mark.parametrize(
+    ("outdoor_c", "offset_g_per_kg"), [(18.0, -1.15), (18.0, -0.85), (22.0, +0.5)]
+)
+def test_windows_are_said_to_stay_closed_only_when_outdoor_air_is_wetter(
+    outdoor_c, offset_g_per_kg
+):
     """The text keeps windows closed only when outdoor air is wetter.
 
     With no wall measured, the sentence keeping windows closed appears exactly when the
@@ -283,8 +341,7 @@ def test_windows_are_said_to_stay_closed_only_when_outdoor_air_is_wetter(outdoor
     1 g/kg margin, common practice); no other sentence says 'closed'."""
     room = RoomInput("Living", "living", 20.0, 75.0, volume_m3=40.0, occupants=2)
     w_o = coolprop("W", 20.0, 75.0) + offset_g_per_kg / 1000.0
-    finding, advice = advice_for(room, OutdoorInput(outdoor_c, coolprop_rh_for_w(outdoor_c,
-                                                                                  w_o)))
+    finding, advice = advice_for(room, OutdoorInput(outdoor_c, coolprop_rh_for_w(outdoor_c, w_o)))
     wetter = action(advice, ActionKind.DEHUMIDIFY).numbers.why is DehumidifyWhy.OUTDOOR_WETTER
     text = every_reason(finding, advice)
     assert (_WINDOWS_CLOSED in text) is wetter
@@ -296,14 +353,16 @@ def test_outdoor_dew_point_above_the_wall_is_said_to_keep_windows_closed():
 
     Room 15 °C / 75 %, outdoor 15 °C / 60 % (dew point 7.3 °C, CoolProp), wall 5 °C: the
     text names both temperatures and keeps windows closed while dehumidifying."""
-    room = RoomInput("R", "bedroom", 15.0, 75.0, (SurfaceInput("wall", 5.0),), volume_m3=30.0,
-                     occupants=1)
+    room = RoomInput(
+        "R", "bedroom", 15.0, 75.0, (SurfaceInput("wall", 5.0),), volume_m3=30.0, occupants=1
+    )
     finding, advice = advice_for(room, OutdoorInput(15.0, 60.0))
-    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice,
-                               words.SI)
+    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice, words.SI)
     dew = coolprop("D", 15.0, 60.0) - 273.15
-    assert (f"Outdoor air is drier than the room air, but its dew point ({dew:.1f} °C) is "
-            f"above the coldest wall, ceiling or floor (wall, 5.0 °C)") in text
+    assert (
+        f"Outdoor air is drier than the room air, but its dew point ({dew:.1f} °C) is "
+        f"above the coldest wall, ceiling or floor (wall, 5.0 °C)"
+    ) in text
     assert "Keep windows and doors to outside closed and dehumidify the room below it." in text
 
 
@@ -313,9 +372,19 @@ def test_partial_ventilation_names_a_dehumidifier_only_when_one_is_advised():
     A bedroom whose 5 °C wall no practical RH can keep under the mould limit (80 %
     surface RH below 38 % room RH, CoolProp, under the 40 % floor, common practice) gets no
     dehumidifier: the ventilate text must not hand the rest to one."""
-    room = RoomInput("Bedroom", "bedroom", 16.0, 75.0,
-                     (SurfaceInput("Surface 1", 9.5), SurfaceInput("Surface 2", 12.0),
-                      SurfaceInput("Surface 3", 5.0)), volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        16.0,
+        75.0,
+        (
+            SurfaceInput("Surface 1", 9.5),
+            SurfaceInput("Surface 2", 12.0),
+            SurfaceInput("Surface 3", 5.0),
+        ),
+        volume_m3=30.0,
+        occupants=2,
+    )
     finding, advice = advice_for(room, OutdoorInput(2.0, 90.0))
     assert ActionKind.DEHUMIDIFY not in [a.kind for a in advice.actions]
     text = words.action_reason(action(advice, ActionKind.VENTILATE), finding, advice, words.SI)
@@ -330,11 +399,12 @@ def test_about_as_wet_outdoor_air_is_said():
     room = RoomInput("Living", "living", 20.0, 75.0, volume_m3=40.0, occupants=2)
     w_o = coolprop("W", 20.0, 75.0) - 0.85 / 1000.0
     finding, advice = advice_for(room, OutdoorInput(18.0, coolprop_rh_for_w(18.0, w_o)))
-    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice,
-                               words.SI)
-    assert (f"Outdoor air is about as wet as the room air: "
-            f"{finding.outdoor.humidity_ratio_g_per_kg:.2f} g/kg of water against "
-            f"{finding.air.humidity_ratio_g_per_kg:.2f} g/kg in the room") in text
+    text = words.action_reason(action(advice, ActionKind.DEHUMIDIFY), finding, advice, words.SI)
+    assert (
+        f"Outdoor air is about as wet as the room air: "
+        f"{finding.outdoor.humidity_ratio_g_per_kg:.2f} g/kg of water against "
+        f"{finding.air.humidity_ratio_g_per_kg:.2f} g/kg in the room"
+    ) in text
 
 
 def test_unknown_load_asks_only_for_the_occupants():
@@ -343,23 +413,28 @@ def test_unknown_load_asks_only_for_the_occupants():
     A humid-summer room with the volume given but no occupants and outdoor air wetter
     (CoolProp): the text asks for the occupants and says why, gives no size, and does not ask
     for the room volume."""
-    room = RoomInput("Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0)
+    room = RoomInput(
+        "Living room", "living", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
+    )
     finding, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     dehum = action(advice, ActionKind.DEHUMIDIFY)
     text = words.action_reason(dehum, finding, advice, words.SI)
-    assert ("The moisture load to hold it there is not known (give the number of occupants: "
-            "the load cannot be worked out from the measured excess while outdoor air holds "
-            "as much water as the room air or more), so no dehumidifier size can be given")\
-        in text
+    assert (
+        "The moisture load to hold it there is not known (give the number of occupants: "
+        "the load cannot be worked out from the measured excess while outdoor air holds "
+        "as much water as the room air or more), so no dehumidifier size can be given"
+    ) in text
     assert "room volume" not in text and " in all" not in text
     assert words.action_numbers(dehum, words.SI) == ""
 
 
-@pytest.mark.parametrize(("volume", "asked"), [
-    (None, "give the number of occupants, or the outdoor air and the room volume"),
-    (30.0, "give the number of occupants, or the outdoor air)"),
-])
+@pytest.mark.parametrize(
+    ("volume", "asked"),
+    [
+        (None, "give the number of occupants, or the outdoor air and the room volume"),
+        (30.0, "give the number of occupants, or the outdoor air)"),
+    ],
+)
 def test_missing_inputs_are_asked_for_only_when_missing(volume, asked):
     """The text asks only for the inputs that were not given.
 
@@ -374,8 +449,9 @@ def test_closed_up_basement_says_occupants_taken_as_0_and_the_leak_rate():
 
     A closed-up basement with no occupant count: the text says 0 occupants were assumed
     and that outdoor air leaks in at the assumed 0.5 air changes an hour (common practice)."""
-    room = RoomInput("Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),),
-                     volume_m3=60.0)
+    room = RoomInput(
+        "Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
+    )
     text = reason_of(room, OutdoorInput(28.0, 75.0), ActionKind.DEHUMIDIFY)
     assert "occupants not given, taken as 0 for a basement that is closed up: 0 g/h" in text
     assert "outdoor air leaking in at about 0.5 air changes an hour brings" in text
@@ -390,13 +466,16 @@ def test_occupants_explaining_the_excess_say_under_ventilated():
     vent = action(advice, ActionKind.VENTILATE)
     text = words.action_reason(vent, finding, advice, words.SI)
     share = vent.numbers.occupants_share_of_load
-    assert (f"the occupants' own moisture (80 g/h) accounts for {share * 100:.0f} % of the "
-            f"{advice.moisture.back_calculated_g_per_h:.0f} g/h the measured excess implies at "
-            f"the assumed air change rate: the room is under-ventilated for the people in it "
-            f"rather than hiding a source.") in text
+    assert (
+        f"the occupants' own moisture (80 g/h) accounts for {share * 100:.0f} % of the "
+        f"{advice.moisture.back_calculated_g_per_h:.0f} g/h the measured excess implies at "
+        f"the assumed air change rate: the room is under-ventilated for the people in it "
+        f"rather than hiding a source."
+    ) in text
 
 
 # --- targets ---------------------------------------------------------------------------------
+
 
 def test_target_basis_names_the_coldest_wall():
     """The target's basis names the coldest wall and the mould limit.
@@ -406,7 +485,8 @@ def test_target_basis_names_the_coldest_wall():
     _, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
     assert words.target_basis(advice.target, words.SI) == (
         "50 % RH: above that, the coldest wall, ceiling or floor (north wall, 11.0 °C) goes "
-        "over 80 % surface RH, the mould limit.")
+        "over 80 % surface RH, the mould limit."
+    )
 
 
 def test_target_basis_says_frost_point_below_0_c():
@@ -419,11 +499,12 @@ def test_target_basis_says_frost_point_below_0_c():
     _, advice = advice_for(room, None)
     assert advice.target.frost_point is True
     assert words.target_basis(advice.target, words.SI).endswith(
-        "the coldest wall, ceiling or floor (wall, -3.0 °C) comes within 3.0 K of the frost "
-        "point.")
+        "the coldest wall, ceiling or floor (wall, -3.0 °C) comes within 3.0 K of the frost point."
+    )
 
 
 # --- glazing, frames, pipes --------------------------------------------------------------------
+
 
 def wmo_frost_point_c(temp_c: float, rh_pct: float) -> float:
     """WMO Guide No. 8 Annex 4.B (RH over water, e_w = 6.112 exp(17.62 t/(243.12 + t));
@@ -445,12 +526,21 @@ def porch(surface: SurfaceInput):
     return RoomInput("Porch", "hallway", 2.0, 80.0, (surface,))
 
 
-@pytest.mark.parametrize(("surface", "kind", "opening"), [
-    (SurfaceInput("pane", -6.0, "glazing"), ActionKind.REDUCE_GLAZING_CONDENSATION,
-     "pane (glass) is at -6.0 °C, against a frost point of -1.0 °C: frost forms on it."),
-    (SurfaceInput("cold main", -5.0, "pipe"), ActionKind.INSULATE_PIPE,
-     "cold main is at -5.0 °C, against a frost point of -1.0 °C: frost forms on it,"),
-])
+@pytest.mark.parametrize(
+    ("surface", "kind", "opening"),
+    [
+        (
+            SurfaceInput("pane", -6.0, "glazing"),
+            ActionKind.REDUCE_GLAZING_CONDENSATION,
+            "pane (glass) is at -6.0 °C, against a frost point of -1.0 °C: frost forms on it.",
+        ),
+        (
+            SurfaceInput("cold main", -5.0, "pipe"),
+            ActionKind.INSULATE_PIPE,
+            "cold main is at -5.0 °C, against a frost point of -1.0 °C: frost forms on it,",
+        ),
+    ],
+)
 def test_frost_on_panes_and_pipes_below_0_c_is_called_frost(surface, kind, opening):
     """Panes and pipes below 0 °C under a frost point are said to gather frost.
 
@@ -466,10 +556,13 @@ def test_frost_on_panes_and_pipes_below_0_c_is_called_frost(surface, kind, openi
     assert "dew point" not in text and "water forms" not in text
 
 
-@pytest.mark.parametrize(("surface", "kind"), [
-    (SurfaceInput("pane", -6.0, "glazing"), ActionKind.REDUCE_GLAZING_CONDENSATION),
-    (SurfaceInput("cold main", -5.0, "pipe"), ActionKind.INSULATE_PIPE),
-])
+@pytest.mark.parametrize(
+    ("surface", "kind"),
+    [
+        (SurfaceInput("pane", -6.0, "glazing"), ActionKind.REDUCE_GLAZING_CONDENSATION),
+        (SurfaceInput("cold main", -5.0, "pipe"), ActionKind.INSULATE_PIPE),
+    ],
+)
 def test_surface_below_0_c_in_air_with_a_dew_point_names_the_dew_point(surface, kind):
     """A surface below 0 °C in air with a dew point above 0 °C names the dew point.
 
@@ -493,21 +586,35 @@ def test_water_on_a_cold_pipe_above_0_c_and_closed_cell_insulation():
 
     A pipe at 9 °C under the 12.9 °C dew point of 18 °C / 72 % air (CoolProp): water forms
     on it, and it is to be lagged with closed-cell insulation (common practice)."""
-    room = RoomInput("Bedroom", "bedroom", 18.0, 72.0, (SurfaceInput("cold main", 9.0, "pipe"),),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        18.0,
+        72.0,
+        (SurfaceInput("cold main", 9.0, "pipe"),),
+        volume_m3=30.0,
+        occupants=2,
+    )
     dew = coolprop("D", 18.0, 72.0) - 273.15
     text = reason_of(room, OutdoorInput(3.0, 88.0), ActionKind.INSULATE_PIPE)
-    assert text.startswith(f"cold main is at 9.0 °C, against a dew point of {dew:.1f} °C: water "
-                           f"forms on it")
+    assert text.startswith(
+        f"cold main is at 9.0 °C, against a dew point of {dew:.1f} °C: water forms on it"
+    )
     assert "Lag it with closed-cell pipe insulation" in text
     assert "frost" not in text
 
 
 def bedroom_with_bay_window():
     walls = winter_bedroom()
-    return RoomInput(walls.name, walls.use, walls.air_temp_c, walls.rh_pct,
-                     walls.surfaces + (SurfaceInput("bay window", 4.0, "glazing"),),
-                     volume_m3=30.0, occupants=2)
+    return RoomInput(
+        walls.name,
+        walls.use,
+        walls.air_temp_c,
+        walls.rh_pct,
+        (*walls.surfaces, SurfaceInput("bay window", 4.0, "glazing")),
+        volume_m3=30.0,
+        occupants=2,
+    )
 
 
 def test_glazing_advice_covers_single_and_double_glazing():
@@ -515,13 +622,18 @@ def test_glazing_advice_covers_single_and_double_glazing():
 
     The glazing type is not known: the advice words both cases (common practice), and
     that a cold single pane is no reason to hold the room drier."""
-    text = reason_of(bedroom_with_bay_window(), OutdoorInput(3.0, 88.0),
-                     ActionKind.REDUCE_GLAZING_CONDENSATION)
-    assert ("On single glazing some condensation is expected in cold weather: it is no reason "
-            "to hold the room drier than is practical; consider secondary or double glazing, "
-            "which keeps the inner pane warmer.") in text
-    assert ("On double glazing a pane this cold suggests a failed or poor unit (misting "
-            "between the panes means a failed seal): have it checked or replaced.") in text
+    text = reason_of(
+        bedroom_with_bay_window(), OutdoorInput(3.0, 88.0), ActionKind.REDUCE_GLAZING_CONDENSATION
+    )
+    assert (
+        "On single glazing some condensation is expected in cold weather: it is no reason "
+        "to hold the room drier than is practical; consider secondary or double glazing, "
+        "which keeps the inner pane warmer."
+    ) in text
+    assert (
+        "On double glazing a pane this cold suggests a failed or poor unit (misting "
+        "between the panes means a failed seal): have it checked or replaced."
+    ) in text
     assert "Wipe the glass and sill dry each morning, keep trickle vents open" in text
 
 
@@ -534,12 +646,14 @@ def test_glazing_gets_a_window_remedy_not_a_wall_remedy():
     glazing = action(advice, ActionKind.REDUCE_GLAZING_CONDENSATION)
     text = words.action_reason(glazing, finding, advice, words.SI)
     dew = coolprop("D", 18.0, 72.0) - 273.15
-    assert text.startswith(f"bay window (glass) is at 4.0 °C, against a dew point of "
-                           f"{dew:.1f} °C: water forms on it.")
+    assert text.startswith(
+        f"bay window (glass) is at 4.0 °C, against a dew point of {dew:.1f} °C: water forms on it."
+    )
     assert "furniture" not in text and "insulation" not in text
 
 
 # --- titles ----------------------------------------------------------------------------------
+
 
 def test_every_action_kind_has_a_title():
     """Each action kind has its own title."""
@@ -549,15 +663,28 @@ def test_every_action_kind_has_a_title():
 
 def test_two_raised_surfaces_have_two_titles():
     """Each raise-the-surface title names its surface, so two never read alike."""
-    room = RoomInput("Bedroom", "bedroom", 16.0, 75.0,
-                     (SurfaceInput("north wall", 9.5, "external_wall"),
-                      SurfaceInput("corner", 5.0, "external_wall")),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        16.0,
+        75.0,
+        (
+            SurfaceInput("north wall", 9.5, "external_wall"),
+            SurfaceInput("corner", 5.0, "external_wall"),
+        ),
+        volume_m3=30.0,
+        occupants=2,
+    )
     _, advice = advice_for(room, OutdoorInput(2.0, 90.0))
-    titles = [words.action_title(a) for a in advice.actions
-              if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
-    assert titles == ["Raise the surface temperature: corner",
-                      "Raise the surface temperature: north wall"]
+    titles = [
+        words.action_title(a)
+        for a in advice.actions
+        if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE
+    ]
+    assert titles == [
+        "Raise the surface temperature: corner",
+        "Raise the surface temperature: north wall",
+    ]
 
 
 def test_window_and_pipe_titles_name_their_surface():
@@ -565,8 +692,15 @@ def test_window_and_pipe_titles_name_their_surface():
     _, advice = advice_for(bedroom_with_bay_window(), OutdoorInput(3.0, 88.0))
     glazing = action(advice, ActionKind.REDUCE_GLAZING_CONDENSATION)
     assert words.action_title(glazing) == "Deal with condensation on the window: bay window"
-    room = RoomInput("Bedroom", "bedroom", 18.0, 72.0, (SurfaceInput("cold main", 9.0, "pipe"),),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        18.0,
+        72.0,
+        (SurfaceInput("cold main", 9.0, "pipe"),),
+        volume_m3=30.0,
+        occupants=2,
+    )
     _, advice = advice_for(room, OutdoorInput(3.0, 88.0))
     pipe = action(advice, ActionKind.INSULATE_PIPE)
     assert words.action_title(pipe) == "Insulate the cold pipe: cold main"
@@ -575,16 +709,20 @@ def test_window_and_pipe_titles_name_their_surface():
 
 # --- walls, ceilings, floors -------------------------------------------------------------------
 
+
 def test_internal_wall_gets_words_for_a_partition():
     """An internal wall's remedy is worded for a partition, not insulation.
 
     An internal wall too cold for the 40 % floor (common practice) is raised with words
     for a partition (unheated space behind, leak), not "insulation" of the envelope."""
-    room = RoomInput("Bedroom", "bedroom", 20.0, 65.0,
-                     (SurfaceInput("party wall", 6.0, "internal_wall"),))
+    room = RoomInput(
+        "Bedroom", "bedroom", 20.0, 65.0, (SurfaceInput("party wall", 6.0, "internal_wall"),)
+    )
     text = reason_of(room, OutdoorInput(0.0, 80.0), ActionKind.RAISE_SURFACE_TEMPERATURE)
-    assert ("An internal wall this cold usually backs onto an unheated space or a chimney, or "
-            "hides a leak or a cold bridge: find out which before treating it.") in text
+    assert (
+        "An internal wall this cold usually backs onto an unheated space or a chimney, or "
+        "hides a leak or a cold bridge: find out which before treating it."
+    ) in text
     assert "insulation" not in text
 
 
@@ -594,11 +732,14 @@ def test_ground_contact_floor_gets_no_insulation_remedy():
     A ground-contact slab too cold for the 40 % floor (common practice) is told to be kept
     heated and dry, with the ground named as what sets its temperature; no insulation or
     thermal-bridge investigation is given."""
-    room = RoomInput("Basement", "basement", 20.0, 65.0, (SurfaceInput("slab", 6.0, "floor"),),
-                     volume_m3=40.0)
+    room = RoomInput(
+        "Basement", "basement", 20.0, 65.0, (SurfaceInput("slab", 6.0, "floor"),), volume_m3=40.0
+    )
     text = reason_of(room, OutdoorInput(2.0, 80.0), ActionKind.RAISE_SURFACE_TEMPERATURE)
-    assert ("This surface is in contact with the ground, which sets its temperature: its "
-            "temperature factor is not judged against outdoor air.") in text
+    assert (
+        "This surface is in contact with the ground, which sets its temperature: its "
+        "temperature factor is not judged against outdoor air."
+    ) in text
     assert "insulation" not in text and "investigated" not in text
 
 
@@ -612,18 +753,22 @@ def test_every_room_use_reads_as_words():
     assert words.USE_PHRASE["other"] is None
 
 
-@pytest.mark.parametrize(("use", "limit_words"), [
-    ("other", "under the general 0.70 limit,"),
-    ("office", "under the 0.75 limit for an office,"),
-])
+@pytest.mark.parametrize(
+    ("use", "limit_words"),
+    [
+        ("other", "under the general 0.70 limit,"),
+        ("office", "under the 0.75 limit for an office,"),
+    ],
+)
 def test_factor_limit_is_named_by_room_use(use, limit_words):
     """The temperature-factor limit is named for the room use, or as the general one.
 
     The factor limit is named for the use ('the 0.75 limit for an office', BRE IP1/06
     [M]); a room whose use is not said gets neutral words ('the general 0.70 limit', IEA
     Annex 14 [M]), never 'a other' or 'a room of this kind'."""
-    room = RoomInput("Study", use, 18.0, 72.0, (SurfaceInput("wall", 11.0),),
-                     volume_m3=30.0, occupants=2)
+    room = RoomInput(
+        "Study", use, 18.0, 72.0, (SurfaceInput("wall", 11.0),), volume_m3=30.0, occupants=2
+    )
     finding, advice = advice_for(room, OutdoorInput(3.0, 88.0))
     text = every_reason(finding, advice)
     assert limit_words in text
@@ -635,8 +780,9 @@ def test_ip_raise_surface_text_is_in_fahrenheit():
 
     IP text writes the wall and the temperature it must reach in °F, the minimum rounded
     up: 11 °C = 51.8 °F and 3 + 0.75 × 15 = 14.25 °C = 57.65 °F → 57.7 °F (× 9/5 + 32)."""
-    text = reason_of(winter_bedroom(), OutdoorInput(3.0, 88.0),
-                     ActionKind.RAISE_SURFACE_TEMPERATURE, words.IP)
+    text = reason_of(
+        winter_bedroom(), OutdoorInput(3.0, 88.0), ActionKind.RAISE_SURFACE_TEMPERATURE, words.IP
+    )
     assert text.startswith("north wall is too cold at 51.8 °F:")
     assert "Raise it to at least 57.7 °F" in text
     assert "°C" not in text
@@ -644,11 +790,18 @@ def test_ip_raise_surface_text_is_in_fahrenheit():
 
 # --- sources, drying, humidity class -----------------------------------------------------------
 
+
 def wet_skirting_hall():
-    return RoomInput("Hall", "other", 19.0, 70.0, (SurfaceInput("wall", 15.0),),
-                     volume_m3=20.0, occupants=0,
-                     materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0,
-                                                True),))
+    return RoomInput(
+        "Hall",
+        "other",
+        19.0,
+        70.0,
+        (SurfaceInput("wall", 15.0),),
+        volume_m3=20.0,
+        occupants=0,
+        materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
+    )
 
 
 def test_find_source_names_the_wet_reading_and_the_rot_risk():
@@ -658,31 +811,51 @@ def test_find_source_names_the_wet_reading_and_the_rot_risk():
     12.1, common practice) and asks for a rot check above 20 % MC (Wood Handbook ch. 14 [R,
     secondary])."""
     text = reason_of(wet_skirting_hall(), OutdoorInput(4.0, 85.0), ActionKind.FIND_SOURCE)
-    assert text.startswith("Find and deal with the source of moisture before drying or "
-                           "decorating: material readings above the dry standard (skirting "
-                           "28 against 11 (dry once at or below 12.1)); once the source is "
-                           "dealt with, dry them until the readings reach the dry standard;")
-    assert ("timber at or above the 20 % moisture content at which decay fungi grow "
-            "(skirting 28 %): have it checked for rot") in text
+    assert text.startswith(
+        "Find and deal with the source of moisture before drying or "
+        "decorating: material readings above the dry standard (skirting "
+        "28 against 11 (dry once at or below 12.1)); once the source is "
+        "dealt with, dry them until the readings reach the dry standard;"
+    )
+    assert (
+        "timber at or above the 20 % moisture content at which decay fungi grow "
+        "(skirting 28 %): have it checked for rot"
+    ) in text
 
 
 def test_condensation_seen_but_not_explained_is_said():
     """Condensation seen on clear surfaces is said, with where else it may come from."""
-    room = RoomInput("Bedroom", "bedroom", 21.0, 45.0, (SurfaceInput("wall", 19.0),),
-                     observations=Observations(condensation_seen=True))
+    room = RoomInput(
+        "Bedroom",
+        "bedroom",
+        21.0,
+        45.0,
+        (SurfaceInput("wall", 19.0),),
+        observations=Observations(condensation_seen=True),
+    )
     assert reason_of(room, None, ActionKind.FIND_SOURCE) == (
         "Find and deal with the source of moisture before drying or decorating: condensation "
         "was seen, but the measured surfaces are clear of the dew point: it may come from "
-        "moments of higher humidity (cooking, drying laundry) or from water getting in.")
+        "moments of higher humidity (cooking, drying laundry) or from water getting in."
+    )
 
 
 def drying_room():
-    materials = (MaterialReading("party wall", "plasterboard", 46.0, "relative", 22.0),
-                 MaterialReading("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True))
-    return RoomInput("Family room", "basement", 20.0, 55.0,
-                     (SurfaceInput("screed", 17.0, "floor"),), volume_m3=50.0, occupants=0,
-                     materials=materials,
-                     observations=Observations(water_category=1, drying_in_progress=True))
+    materials = (
+        MaterialReading("party wall", "plasterboard", 46.0, "relative", 22.0),
+        MaterialReading("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
+    )
+    return RoomInput(
+        "Family room",
+        "basement",
+        20.0,
+        55.0,
+        (SurfaceInput("screed", 17.0, "floor"),),
+        volume_m3=50.0,
+        occupants=0,
+        materials=materials,
+        observations=Observations(water_category=1, drying_in_progress=True),
+    )
 
 
 def test_drying_under_way_says_keep_drying():
@@ -691,11 +864,13 @@ def test_drying_under_way_says_keep_drying():
     While drying runs the text says to continue to the dry standard, with each reading's
     goal (10 % allowance, common practice: 22 → 24.2, 11.5 → 12.65, shown to 3 figures)."""
     text = reason_of(drying_room(), OutdoorInput(4.0, 85.0), ActionKind.KEEP_DRYING)
-    assert text.startswith("Continue drying until readings reach the dry standard: these "
-                           "readings are still above the dry standard (the same material in "
-                           "an unaffected area, allowing 10 %): party wall 46 against 22 (dry "
-                           "once at or below 24.2), skirting 16 against 11.5 (dry once at or "
-                           "below 12.7)")
+    assert text.startswith(
+        "Continue drying until readings reach the dry standard: these "
+        "readings are still above the dry standard (the same material in "
+        "an unaffected area, allowing 10 %): party wall 46 against 22 (dry "
+        "once at or below 24.2), skirting 16 against 11.5 (dry once at or "
+        "below 12.7)"
+    )
 
 
 def test_use_not_given_never_says_a_room_of_this_kind():
@@ -715,8 +890,10 @@ def test_uncertain_humidity_class_says_it_may_be_high():
     room = RoomInput("Bedroom", "bedroom", 20.0, 54.5, volume_m3=30.0, occupants=None)
     text = reason_of(room, OutdoorInput(0.0, 80.0), ActionKind.REPEAT_READINGS)
     assert text.startswith("The humidity class may be high:")
-    assert ("class 3 or 4 of EN ISO 13788 at this instrument accuracy, and class 4 or above "
-            "would be more than a bedroom should produce") in text
+    assert (
+        "class 3 or 4 of EN ISO 13788 at this instrument accuracy, and class 4 or above "
+        "would be more than a bedroom should produce"
+    ) in text
 
 
 def test_bathroom_peak_defers_the_extract_rate_to_the_local_code():
@@ -725,12 +902,15 @@ def test_bathroom_peak_defers_the_extract_rate_to_the_local_code():
     A bathroom peak gets an extract fan sized to the local code's minimum (Approved
     Document F and ASHRAE 62.2, from memory), run on by a timer or humidistat, and a
     re-reading 30-60 min after use (common practice)."""
-    room = RoomInput("Bathroom", "bathroom", 20.0, 90.0, (SurfaceInput("wall", 16.0),),
-                     volume_m3=10.0)
+    room = RoomInput(
+        "Bathroom", "bathroom", 20.0, 90.0, (SurfaceInput("wall", 16.0),), volume_m3=10.0
+    )
     text = reason_of(room, OutdoorInput(0.0, 80.0), ActionKind.REPEAT_READINGS)
-    assert ("sized to the local code's minimum extract rate (UK Approved Document F and ASHRAE "
-            "62.2 set minimum extract rates; from memory, check local code), with an overrun "
-            "timer or a humidistat") in text
+    assert (
+        "sized to the local code's minimum extract rate (UK Approved Document F and ASHRAE "
+        "62.2 set minimum extract rates; from memory, check local code), with an overrun "
+        "timer or a humidistat"
+    ) in text
     assert "Take a re-reading 30-60 min after use" in text
 
 
@@ -745,28 +925,36 @@ def test_loft_text_cuts_moisture_from_below():
     finding, advice = advice_for(room, OutdoorInput(2.0, 90.0))
     act = action(advice, ActionKind.DRY_VENTILATED_SPACE)
     text = words.action_reason(act, finding, advice, words.SI)
-    assert text.startswith("The loft is at 92 % RH. A ventilated loft follows outdoor air: dry "
-                           "it by cutting the moisture coming up from the rooms below:")
-    for phrase in ("seal gaps around the hatch",
-                   "no extract fan, tumble-drier or soil vent discharges into the loft",
-                   "Check the eaves and ridge ventilation",
-                   "A dehumidifier helps only if the space is sealed",
-                   "Measure the timber with a pin moisture meter"):
+    assert text.startswith(
+        "The loft is at 92 % RH. A ventilated loft follows outdoor air: dry "
+        "it by cutting the moisture coming up from the rooms below:"
+    )
+    for phrase in (
+        "seal gaps around the hatch",
+        "no extract fan, tumble-drier or soil vent discharges into the loft",
+        "Check the eaves and ridge ventilation",
+        "A dehumidifier helps only if the space is sealed",
+        "Measure the timber with a pin moisture meter",
+    ):
         assert phrase in text
     (rafter,) = act.numbers.timber_surfaces
-    assert (f"Rafter at 2.5 °C and {rafter.surface_rh_pct:.0f} % surface RH would settle at "
-            f"about {rafter.emc_pct:.1f} % "
-            f"moisture content (Wood Handbook eqn 4-5 at the surface): in the decay range "
-            f"(above about 20 %); below 10.0 °C decay is slower, not stopped") in text
+    assert (
+        f"Rafter at 2.5 °C and {rafter.surface_rh_pct:.0f} % surface RH would settle at "
+        f"about {rafter.emc_pct:.1f} % "
+        f"moisture content (Wood Handbook eqn 4-5 at the surface): in the decay range "
+        f"(above about 20 %); below 10.0 °C decay is slower, not stopped"
+    ) in text
 
 
 def test_crawlspace_text_gives_a_ground_vapour_barrier():
     """Crawl space: a ground vapour barrier and open air bricks (common practice)."""
     room = RoomInput("Crawl", "crawlspace", 12.0, 88.0, (SurfaceInput("joist", 11.0, "floor"),))
     text = reason_of(room, OutdoorInput(10.0, 85.0), ActionKind.DRY_VENTILATED_SPACE)
-    assert text.startswith("The crawl space is at 88 % RH. A ventilated crawl space follows "
-                           "outdoor air: dry it by cutting the moisture coming in: lay a ground "
-                           "vapour barrier")
+    assert text.startswith(
+        "The crawl space is at 88 % RH. A ventilated crawl space follows "
+        "outdoor air: dry it by cutting the moisture coming in: lay a ground "
+        "vapour barrier"
+    )
     assert "check the air bricks or vents are open and clear" in text
 
 
@@ -778,26 +966,36 @@ def test_too_cold_for_mould_state_words():
     room = RoomInput("Loft", "loft", 4.0, 90.0, (SurfaceInput("rafter", 2.0, "ceiling"),))
     finding = assess.assess_room(room, OutdoorInput(1.0, 90.0), P)
     assert words.mould_text(finding.surfaces[0]) == (
-        "too cold for mould growth now; watch for melt-water and mould when it warms")
+        "too cold for mould growth now; watch for melt-water and mould when it warms"
+    )
 
 
 # --- cautions ----------------------------------------------------------------------------------
+
 
 def test_closing_caution_defers_to_local_codes_and_licensed_professionals():
     """The closing caution defers to local codes and licensed professionals, SI and IP."""
     for display in (words.SI, words.IP):
         text = words.caution_text(advise.CLOSING, display)
         assert text == words.CLOSING_TEXT
-    assert ("Follow local building codes and regulations, and the advice of licensed "
-            "professionals (electricians, gas engineers, mould, asbestos and structural "
-            "specialists), before acting on them.") in words.CLOSING_TEXT
+    assert (
+        "Follow local building codes and regulations, and the advice of licensed "
+        "professionals (electricians, gas engineers, mould, asbestos and structural "
+        "specialists), before acting on them."
+    ) in words.CLOSING_TEXT
 
 
 def test_site_cautions_read_once_each():
     """The site's cautions read as different sentences: none is said twice."""
-    site = assess.assess_site([winter_bedroom(), RoomInput("Loft", "loft", 5.0, 80.0),
-                               RoomInput("Loft 2", "loft", 5.0, 80.0)],
-                              OutdoorInput(3.0, 88.0), P)
+    site = assess.assess_site(
+        [
+            winter_bedroom(),
+            RoomInput("Loft", "loft", 5.0, 80.0),
+            RoomInput("Loft 2", "loft", 5.0, 80.0),
+        ],
+        OutdoorInput(3.0, 88.0),
+        P,
+    )
     texts = [words.caution_text(c, words.SI) for c in advise.advise_site(site).cautions]
     assert len(texts) == len(set(texts))
     assert texts[-1] == words.CLOSING_TEXT
@@ -835,11 +1033,12 @@ def test_visible_mould_caution_by_area(area, word):
 def test_visible_mould_area_in_square_feet_in_ip():
     """IP text reads a mould area in sq ft: 3 m² = 32.3 sq ft (1 ft = 0.3048 m)."""
     text = caution_texts(plain(visible_mould_area_m2=3.0), display=words.IP)["visible_mould"]
-    assert text.startswith(f"Visible mould, about {3.0 / FT ** 2:.3g} sq ft: a medium area.")
+    assert text.startswith(f"Visible mould, about {3.0 / FT**2:.3g} sq ft: a medium area.")
 
 
-@pytest.mark.parametrize(("display", "unit", "per_m2"), [(words.SI, "m²", 1.0),
-                                                         (words.IP, "sq ft", 1.0 / FT ** 2)])
+@pytest.mark.parametrize(
+    ("display", "unit", "per_m2"), [(words.SI, "m²", 1.0), (words.IP, "sq ft", 1.0 / FT**2)]
+)
 def test_large_mould_area_is_written_in_plain_digits(display, unit, per_m2):
     """A large mould area is written in plain digits, not exponent notation.
 
@@ -857,8 +1056,10 @@ def test_visible_mould_without_an_area_is_treated_as_medium():
     Mould seen but not measured: measure it (bands 0.93 m² and 9.3 m², US EPA, from
     memory), and until then treat it as a medium area with an FFP2 / N95 respirator."""
     text = caution_texts(plain(visible_mould=True))["visible_mould"]
-    assert text.startswith("Visible mould, area not measured: measure it (up to about 0.93 m² "
-                           "is a small area, over about 9.3 m² a large one")
+    assert text.startswith(
+        "Visible mould, area not measured: measure it (up to about 0.93 m² "
+        "is a small area, over about 9.3 m² a large one"
+    )
     assert "Until it is measured, treat it as a medium area: have it removed" in text
     assert "at least an FFP2 / N95 respirator" in text
 
@@ -882,19 +1083,28 @@ def test_category_1_water_caution():
     assert "it degrades to category 2 (commonly within about 48 hours" in text
 
 
-@pytest.mark.parametrize(("use", "opening"), [
-    ("basement", ("Basement: if the basement is unheated, poorly ventilated or flooded, "
-                  "treat it as a confined space.")),
-    ("crawlspace", "Crawl space: a confined or hard-to-reach space."),
-    ("loft", "Loft: a confined or hard-to-reach space."),
-])
+@pytest.mark.parametrize(
+    ("use", "opening"),
+    [
+        (
+            "basement",
+            (
+                "Basement: if the basement is unheated, poorly ventilated or flooded, "
+                "treat it as a confined space."
+            ),
+        ),
+        ("crawlspace", "Crawl space: a confined or hard-to-reach space."),
+        ("loft", "Loft: a confined or hard-to-reach space."),
+    ],
+)
 def test_confined_space_caution_conditional_only_for_basements(use, opening):
     """The confined-space words are conditional only for basements.
 
     Crawl spaces and lofts: always confined; a basement only if unheated, poorly
     ventilated or flooded (common practice, no source). Never go in alone."""
     text = caution_texts(RoomInput("Space", use, 15.0, 70.0, ()), OutdoorInput(5.0, 80.0))[
-        "confined_space"]
+        "confined_space"
+    ]
     assert text.startswith(opening)
     assert "Do not go in alone" in text
 
@@ -905,8 +1115,10 @@ def test_combustion_heater_caution_gives_water_and_carbon_monoxide():
     The unflued-heater caution gives about 1.6 kg of water per kg of propane
     (4 × 18.015 / 44.097 = 1.63, stoichiometry [C]) and carbon monoxide."""
     text = caution_texts(winter_bedroom(), OutdoorInput(3.0, 88.0))["combustion_heaters"]
-    assert ("burning 1 kg of propane releases about 1.6 kg of water vapour into the room, and "
-            "they give off carbon monoxide") in text
+    assert (
+        "burning 1 kg of propane releases about 1.6 kg of water vapour into the room, and "
+        "they give off carbon monoxide"
+    ) in text
 
 
 def test_asbestos_and_lead_by_building_age():
@@ -917,15 +1129,19 @@ def test_asbestos_and_lead_by_building_age():
     only."""
     room, out = winter_bedroom(), OutdoorInput(3.0, 88.0)
     unknown = caution_texts(room, out)["asbestos_lead"]
-    assert unknown.startswith("Old materials: in a building of unknown age, have suspect "
-                              "materials checked for asbestos (used in buildings up to about "
-                              "2000) and lead paint (common before 1978 in the US; the year "
-                              "differs by country, from the 1920s to the 1990s) before "
-                              "drilling")
+    assert unknown.startswith(
+        "Old materials: in a building of unknown age, have suspect "
+        "materials checked for asbestos (used in buildings up to about "
+        "2000) and lead paint (common before 1978 in the US; the year "
+        "differs by country, from the 1920s to the 1990s) before "
+        "drilling"
+    )
     nineties = caution_texts(room, out, year=1990)["asbestos_lead"]
-    assert nineties.startswith("Old materials: in a building built in 1990, have suspect "
-                               "materials checked for asbestos (used in buildings up to about "
-                               "2000) before drilling")
+    assert nineties.startswith(
+        "Old materials: in a building built in 1990, have suspect "
+        "materials checked for asbestos (used in buildings up to about "
+        "2000) before drilling"
+    )
     assert "lead paint" not in nineties
 
 
@@ -935,9 +1151,11 @@ def test_moisture_basis_lists_each_source_in_si():
     The moisture basis gives the room's use, 150 + 26 = 176 g/h, with occupants and
     activities: 3 sitting at 50 g/h and a 15-minute shower at 2500 g/h over 24 h = 26 g/h
     (BS 5250 figures via a building-science text [R])."""
-    room = RoomInput("Bath", "bathroom", 21.0, 70.0, occupants=3,
-                     activities=(Activity("shower", 0.25),))
+    room = RoomInput(
+        "Bath", "bathroom", 21.0, 70.0, occupants=3, activities=(Activity("shower", 0.25),)
+    )
     estimate = advise.moisture_generation(assess.assess_room(room))
     assert words.moisture_basis(estimate, "bathroom", words.SI) == (
         f"176 g/h from the room's use (3 people sitting at 50 g/h each: 150 g/h; activities "
-        f"averaged over the day: {2500 * 0.25 / 24:.0f} g/h)")
+        f"averaged over the day: {2500 * 0.25 / 24:.0f} g/h)"
+    )

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 from collections.abc import Iterator
 from enum import Enum
-from typing import Any, ClassVar, Generic, TypeVar, Union
+from typing import Any, ClassVar, Generic, TypeVar
 
 import msgspec
 
@@ -34,8 +34,16 @@ class ActionKind(Enum):
 
 #: Fields whose ``None`` is encoded (a number that could not be worked out); every other
 #: optional field is left out of the JSON when it is ``None`` (it does not apply).
-_KEEP_NONE = frozenset({"moisture_generation_g_per_h", "load_l_per_day", "removal_l_per_day",
-                        "removal_us_pints_per_day", "humidity_class", "vapour_pressure_excess_pa"})
+_KEEP_NONE = frozenset(
+    {
+        "moisture_generation_g_per_h",
+        "load_l_per_day",
+        "removal_l_per_day",
+        "removal_us_pints_per_day",
+        "humidity_class",
+        "vapour_pressure_excess_pa",
+    }
+)
 #: A numbers record lists in ``__words__`` the fields only the words read (the decision is
 #: carried by the kind and the numbers already); they are not encoded. Records are msgspec
 #: Structs: typed, frozen, and made at import in microseconds.
@@ -89,7 +97,9 @@ class DehumidifyWhy(Enum):
 
 
 class VentilateNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('outdoor_mode', 'room_volume_m3', 'saturates', 'practical_max_ach', 'use'))
+    __words__: ClassVar[frozenset[str]] = frozenset(
+        ("outdoor_mode", "room_volume_m3", "saturates", "practical_max_ach", "use")
+    )
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
     room_humidity_ratio_g_per_kg: float
@@ -118,7 +128,20 @@ class VentilateNumbers(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class DehumidifyNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('why', 'outdoor_gain_g_per_h', 'outdoor_air_how', 'generation_g_per_h', 'water_removed_l', 'hours_since_previous', 'rated_capacity_l_per_day', 'ventilation_air_changes_needed_per_h', 'practical_max_ach', 'water_loss_class_assumed'))
+    __words__: ClassVar[frozenset[str]] = frozenset(
+        (
+            "why",
+            "outdoor_gain_g_per_h",
+            "outdoor_air_how",
+            "generation_g_per_h",
+            "water_removed_l",
+            "hours_since_previous",
+            "rated_capacity_l_per_day",
+            "ventilation_air_changes_needed_per_h",
+            "practical_max_ach",
+            "water_loss_class_assumed",
+        )
+    )
     target_rh_pct: float
     target_humidity_ratio_g_per_kg: float
     room_temp_c: float
@@ -154,7 +177,16 @@ class DehumidifyNumbers(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class RaiseSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('design_rh_pct', 'too_cold', 'factor_under', 'ground_contact', 'temperature_factor_uncertainty', 'use'))
+    __words__: ClassVar[frozenset[str]] = frozenset(
+        (
+            "design_rh_pct",
+            "too_cold",
+            "factor_under",
+            "ground_contact",
+            "temperature_factor_uncertainty",
+            "use",
+        )
+    )
     surface: str
     element: str
     surface_temp_c: float
@@ -188,7 +220,9 @@ class Forming(Enum):
 class ColdSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     """A pane, frame or pipe at or near its condensation point."""
 
-    __words__: ClassVar[frozenset[str]] = frozenset(('target_rh_pct', 'forming', 'mouldy', 'drying'))
+    __words__: ClassVar[frozenset[str]] = frozenset(
+        ("target_rh_pct", "forming", "mouldy", "drying")
+    )
     surface: str
     element: str
     surface_temp_c: float
@@ -237,7 +271,19 @@ class SourceReason(Enum):
 
 
 class FindSourceNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('reasons', 'first', 'wet', 'damp_timber', 'decaying', 'decay_slowed', 'water_category', 'use', 'humidity_class_possible'))
+    __words__: ClassVar[frozenset[str]] = frozenset(
+        (
+            "reasons",
+            "first",
+            "wet",
+            "damp_timber",
+            "decaying",
+            "decay_slowed",
+            "water_category",
+            "use",
+            "humidity_class_possible",
+        )
+    )
     reasons: tuple[SourceReason, ...]
     first: bool  #: liquid water suspected: before any drying
     wet: tuple[MaterialPoint, ...] = ()
@@ -253,7 +299,7 @@ class FindSourceNumbers(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class KeepDryingNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('damp_timber', 'decaying', 'decay_slowed'))
+    __words__: ClassVar[frozenset[str]] = frozenset(("damp_timber", "decaying", "decay_slowed"))
     materials_above_dry_standard: int
     materials: tuple[MaterialPoint, ...]
     damp_timber: tuple[TimberPoint, ...] = ()
@@ -262,7 +308,7 @@ class KeepDryingNumbers(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class RepeatReadingsNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('wet_room_peak', 'use'))
+    __words__: ClassVar[frozenset[str]] = frozenset(("wet_room_peak", "use"))
     vapour_pressure_excess_pa: float | None
     humidity_class: int | None
     wet_room_peak: bool
@@ -283,7 +329,7 @@ class TimberSurface(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class VentilatedSpaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(('loft',))
+    __words__: ClassVar[frozenset[str]] = frozenset(("loft",))
     room_rh_pct: float
     dehumidify_only_if_sealed: bool
     loft: bool
@@ -311,13 +357,31 @@ class RemoveContaminatedNumbers(msgspec.Struct, frozen=True, kw_only=True):
     stop_air_movers: bool = False
 
 
-ActionNumbers = Union[RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers,
-                      RaiseSurfaceNumbers, ColdSurfaceNumbers, FindSourceNumbers,
-                      KeepDryingNumbers, RepeatReadingsNumbers, VentilatedSpaceNumbers]
+ActionNumbers = (
+    RemoveContaminatedNumbers
+    | VentilateNumbers
+    | DehumidifyNumbers
+    | RaiseSurfaceNumbers
+    | ColdSurfaceNumbers
+    | FindSourceNumbers
+    | KeepDryingNumbers
+    | RepeatReadingsNumbers
+    | VentilatedSpaceNumbers
+)
 #: The numbers record of one action kind.
-N = TypeVar("N", RemoveContaminatedNumbers, VentilateNumbers, DehumidifyNumbers,
-            RaiseSurfaceNumbers, ColdSurfaceNumbers, FindSourceNumbers, KeepDryingNumbers,
-            RepeatReadingsNumbers, VentilatedSpaceNumbers, ActionNumbers)
+N = TypeVar(
+    "N",
+    RemoveContaminatedNumbers,
+    VentilateNumbers,
+    DehumidifyNumbers,
+    RaiseSurfaceNumbers,
+    ColdSurfaceNumbers,
+    FindSourceNumbers,
+    KeepDryingNumbers,
+    RepeatReadingsNumbers,
+    VentilatedSpaceNumbers,
+    ActionNumbers,
+)
 
 
 class Action(msgspec.Struct, Generic[N], frozen=True):
@@ -334,8 +398,11 @@ class Action(msgspec.Struct, Generic[N], frozen=True):
 
     def as_dict(self) -> dict[str, Any]:
         """JSON-ready without words: ``kind``, the numbers, ``threshold_keys``."""
-        return {"kind": self.kind.value, **self.numbers_dict(),
-                "threshold_keys": list(self.threshold_keys)}
+        return {
+            "kind": self.kind.value,
+            **self.numbers_dict(),
+            "threshold_keys": list(self.threshold_keys),
+        }
 
     def numbers_dict(self) -> dict[str, Any]:
         """The numbers as JSON-ready values (SI unit in each key)."""

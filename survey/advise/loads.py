@@ -6,7 +6,8 @@ Formulas
 * Ventilation (steady-state moisture balance, ASHRAE Handbook Fundamentals): the dry-air flow
   that carries a moisture generation G away is ṁ_da = G / (W_t − W_o); the volume flow is
   ṁ_da · v_i, v_i the specific volume of the room air the fan moves; air changes per hour =
-  volume flow / room volume (room volumes of room air, so ṁ_da = n·V / v_i). Warming it costs ṁ_da (1.006 + 1.86 W_o)(t_i − t_o) kJ
+  volume flow / room volume (room volumes of room air, so ṁ_da = n·V / v_i). Warming it
+  costs ṁ_da (1.006 + 1.86 W_o)(t_i − t_o) kJ
   (ASHRAE ch. 1 eqn 30, enthalpy of moist air). At a given flow the room settles at
   W = W_o + G / ṁ_da.
 * Back-calculated generation: G = ṁ_da (W_i − W_o) with ṁ_da = n·V / v_i at an assumed air
@@ -81,21 +82,26 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         keys.append("moisture_laundry_load_kg")
     typical = typical_amount = None
     if activities is None and th.room_use(finding.use).wet_room:
-        typical, typical_amount, typical_g_per_h, typical_keys = _typical_wet_room_load(
-            finding.use)
+        typical, typical_amount, typical_g_per_h, typical_keys = _typical_wet_room_load(finding.use)
         activities = typical_g_per_h
         keys += typical_keys
     out = finding.outdoor
     air = finding.air
     ach = None
-    if out is not None and room.volume_m3 is not None \
-            and air.humidity_ratio_kg_per_kg > out.humidity_ratio_kg_per_kg:
+    if (
+        out is not None
+        and room.volume_m3 is not None
+        and air.humidity_ratio_kg_per_kg > out.humidity_ratio_kg_per_kg
+    ):
         ach = th.value("assumed_air_change_rate_per_h")
         dry_air = ach * room.volume_m3 / air.specific_volume_m3_per_kg
         back = 1000.0 * dry_air * (air.humidity_ratio_kg_per_kg - out.humidity_ratio_kg_per_kg)
         keys.append("assumed_air_change_rate_per_h")
-    people = None if occupants is None and activities is None else \
-        (occupants or 0.0) + (activities or 0.0)
+    people = (
+        None
+        if occupants is None and activities is None
+        else (occupants or 0.0) + (activities or 0.0)
+    )
     candidates = [g for g in (people, back) if g is not None]
     used = max(candidates) if candidates else None
     missing: tuple[str, ...] = ()
@@ -103,12 +109,21 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
     if used is None:
         missing, outdoor_as_wet = _missing_for_load(finding)
     return MoistureEstimate(
-        occupants_g_per_h=occupants, activities_g_per_h=activities,
-        back_calculated_g_per_h=back, used_g_per_h=used, threshold_keys=tuple(keys),
-        occupants=room.occupants, occupant_rate_key=rate_key,
-        occupants_assumed_zero=assumed_zero, assumed_air_change_rate_per_h=ach,
-        missing=missing, outdoor_as_wet=outdoor_as_wet, typical_use_assumed=typical,
-        typical_use_amount=typical_amount, laundry_g_per_h=laundry)
+        occupants_g_per_h=occupants,
+        activities_g_per_h=activities,
+        back_calculated_g_per_h=back,
+        used_g_per_h=used,
+        threshold_keys=tuple(keys),
+        occupants=room.occupants,
+        occupant_rate_key=rate_key,
+        occupants_assumed_zero=assumed_zero,
+        assumed_air_change_rate_per_h=ach,
+        missing=missing,
+        outdoor_as_wet=outdoor_as_wet,
+        typical_use_assumed=typical,
+        typical_use_amount=typical_amount,
+        laundry_g_per_h=laundry,
+    )
 
 
 def _typical_wet_room_load(use: str) -> tuple[str, float, float, list[str]]:
@@ -118,15 +133,27 @@ def _typical_wet_room_load(use: str) -> tuple[str, float, float, list[str]]:
     if use == "bathroom":
         n = th.value("typical_showers_per_day")
         g_per_h = n * th.value("moisture_shower_g_per_h") * th.value("shower_minutes") / 60.0
-        return "shower", n, g_per_h / 24.0, ["typical_showers_per_day",
-                                              "moisture_shower_g_per_h", "shower_minutes"]
+        return (
+            "shower",
+            n,
+            g_per_h / 24.0,
+            ["typical_showers_per_day", "moisture_shower_g_per_h", "shower_minutes"],
+        )
     if use == "kitchen":
         hours = th.value("typical_cooking_hours_per_day")
-        return "cooking", hours, hours * th.value("moisture_cooking_g_per_h") / 24.0, [
-            "typical_cooking_hours_per_day", "moisture_cooking_g_per_h"]
+        return (
+            "cooking",
+            hours,
+            hours * th.value("moisture_cooking_g_per_h") / 24.0,
+            ["typical_cooking_hours_per_day", "moisture_cooking_g_per_h"],
+        )
     loads = th.value("typical_laundry_loads_per_day")
-    return "laundry", loads, loads * th.value("moisture_laundry_load_kg") * 1000.0 / 24.0, [
-        "typical_laundry_loads_per_day", "moisture_laundry_load_kg"]
+    return (
+        "laundry",
+        loads,
+        loads * th.value("moisture_laundry_load_kg") * 1000.0 / 24.0,
+        ["typical_laundry_loads_per_day", "moisture_laundry_load_kg"],
+    )
 
 
 _L_PER_S_TO_M3_PER_H = 3.6  # 1 L/s = 3.6 m³/h
@@ -138,18 +165,37 @@ def extract_minimum(use: str, volume_m3: float | None) -> tuple[float, tuple[str
     codes rule), with the keys used; None for a room with no extract minimum."""
     if use not in ("bathroom", "kitchen", "utility"):
         return None
-    candidates = [(th.value(f"extract_{use}_continuous_l_per_s") * _L_PER_S_TO_M3_PER_H,
-                   f"extract_{use}_continuous_l_per_s")]
+    candidates = [
+        (
+            th.value(f"extract_{use}_continuous_l_per_s") * _L_PER_S_TO_M3_PER_H,
+            f"extract_{use}_continuous_l_per_s",
+        )
+    ]
     if use == "bathroom":
-        candidates.append((th.value("extract_bathroom_continuous_cfm") * M3_PER_H_PER_CFM,
-                           "extract_bathroom_continuous_cfm"))
+        candidates.append(
+            (
+                th.value("extract_bathroom_continuous_cfm") * M3_PER_H_PER_CFM,
+                "extract_bathroom_continuous_cfm",
+            )
+        )
     elif use == "kitchen" and volume_m3 is not None:
-        candidates.append((th.value("extract_kitchen_continuous_ach") * volume_m3,
-                           "extract_kitchen_continuous_ach"))
+        candidates.append(
+            (
+                th.value("extract_kitchen_continuous_ach") * volume_m3,
+                "extract_kitchen_continuous_ach",
+            )
+        )
     keys = tuple(key for _, key in candidates)
-    intermittent = (f"extract_{use}_intermittent_l_per_s",
-                    *(("extract_bathroom_intermittent_cfm",) if use == "bathroom" else
-                      ("extract_kitchen_intermittent_cfm",) if use == "kitchen" else ()))
+    intermittent = (
+        f"extract_{use}_intermittent_l_per_s",
+        *(
+            ("extract_bathroom_intermittent_cfm",)
+            if use == "bathroom"
+            else ("extract_kitchen_intermittent_cfm",)
+            if use == "kitchen"
+            else ()
+        ),
+    )
     return max(value for value, _ in candidates), keys + intermittent
 
 
@@ -193,15 +239,21 @@ def occupants_share(moisture: MoistureEstimate) -> float | None:
     return people / back
 
 
-def ventilation_airflow(generation_kg_per_h: float, target_w_kg_per_kg: float,
-                        outdoor_w_kg_per_kg: float, supply_volume_m3_per_kg: float
-                        ) -> tuple[float, float]:
+def ventilation_airflow(
+    generation_kg_per_h: float,
+    target_w_kg_per_kg: float,
+    outdoor_w_kg_per_kg: float,
+    supply_volume_m3_per_kg: float,
+) -> tuple[float, float]:
     """(dry-air flow kg/h, volume flow m³/h) that holds ``target_w`` against the generation:
     ṁ_da = G / (W_t − W_o), volume flow = ṁ_da · v of the supply air."""
     difference = target_w_kg_per_kg - outdoor_w_kg_per_kg
     if difference <= 0.0:
-        raise InputError("outdoor humidity ratio", f"{outdoor_w_kg_per_kg * 1000:.2f} g/kg",
-                         "must be below the target humidity ratio for ventilation to dry")
+        raise InputError(
+            "outdoor humidity ratio",
+            f"{outdoor_w_kg_per_kg * 1000:.2f} g/kg",
+            "must be below the target humidity ratio for ventilation to dry",
+        )
     dry_air = generation_kg_per_h / difference
     return dry_air, dry_air * supply_volume_m3_per_kg
 
@@ -213,22 +265,33 @@ def rh_at(air: AirState, humidity_ratio_kg_per_kg: float) -> tuple[float, bool]:
     saturated = psychro.state_from_rh(air.dry_bulb_c, 100.0, air.pressure_pa)
     if humidity_ratio_kg_per_kg >= saturated.humidity_ratio_kg_per_kg:
         return 100.0, True
-    state = psychro.state_from_humidity_ratio(air.dry_bulb_c, humidity_ratio_kg_per_kg,
-                                              air.pressure_pa)
+    state = psychro.state_from_humidity_ratio(
+        air.dry_bulb_c, humidity_ratio_kg_per_kg, air.pressure_pa
+    )
     return state.rh_pct, False
 
 
-def heat_to_warm_w(dry_air_kg_per_h: float, outdoor_w: float, room_c: float,
-                   outdoor_c: float) -> float:
+def heat_to_warm_w(
+    dry_air_kg_per_h: float, outdoor_w: float, room_c: float, outdoor_c: float
+) -> float:
     """Heating that warms the ventilation air from outdoors to the room, W (eqn 30)."""
-    return (dry_air_kg_per_h / 3600.0 * (CP_DRY_AIR_KJ_PER_KG_K + CP_VAPOUR_KJ_PER_KG_K
-                                         * outdoor_w) * (room_c - outdoor_c) * 1000.0)
+    return (
+        dry_air_kg_per_h
+        / 3600.0
+        * (CP_DRY_AIR_KJ_PER_KG_K + CP_VAPOUR_KJ_PER_KG_K * outdoor_w)
+        * (room_c - outdoor_c)
+        * 1000.0
+    )
 
 
 def pull_down_l(volume_m3: float, air: AirState, target_w: float) -> float:
     """Water in litres taken out once to bring the room air itself down to ``target_w``."""
-    return (volume_m3 / air.specific_volume_m3_per_kg
-            * (air.humidity_ratio_kg_per_kg - target_w) * WATER_L_PER_KG)
+    return (
+        volume_m3
+        / air.specific_volume_m3_per_kg
+        * (air.humidity_ratio_kg_per_kg - target_w)
+        * WATER_L_PER_KG
+    )
 
 
 def timber_emc(temp_c: float, rh_pct: float) -> float | None:

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import argparse
 import math
-from typing import Callable
+from collections.abc import Callable
 
 from survey import assess, domain, psychro, units
 from survey import thresholds as th
@@ -36,8 +36,12 @@ class _SurfaceOption(argparse.Action):
         setattr(namespace, self.dest, found)
 
 
-def _option(option: str, text: str, parse: Callable[[str], float],
-            check: Callable[[float, str], None] | None = None) -> float:
+def _option(
+    option: str,
+    text: str,
+    parse: Callable[[str], float],
+    check: Callable[[float, str], None] | None = None,
+) -> float:
     """Parse and range-check one option; any error names the option and the text as typed."""
     try:
         value = parse(text)
@@ -60,8 +64,10 @@ def _is_bare_number(text: str) -> bool:
 def _plausibility(option: str, text: str, value_c: float, system: str) -> str | None:
     """A warning line when a bare SI air temperature is more likely meant in °F."""
     if system == "si" and value_c > PLAUSIBLE_SI_AIR_TEMP_MAX_C and _is_bare_number(text):
-        return (f"{option} {text}: read as {value_c:g} °C; for °F use --units ip or "
-                f"{str(text).strip()}F")
+        return (
+            f"{option} {text}: read as {value_c:g} °C; for °F use --units ip or "
+            f"{str(text).strip()}F"
+        )
     return None
 
 
@@ -69,13 +75,15 @@ def _parse_volume(text: str, system: units.UnitSystem) -> float:
     """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``; pint only for a suffix."""
     volume = units.parse_volume(text, "--room-volume", system)
     if not VOLUME_MIN_M3 <= volume <= VOLUME_MAX_M3:
-        raise InputError("--room-volume", text,
-                         f"room volume must be between {VOLUME_MIN_M3:g} and "
-                         f"{VOLUME_MAX_M3:g} m³")
+        raise InputError(
+            "--room-volume",
+            text,
+            f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³",
+        )
     return volume
 
 
-_FT2_PER_M2 = 1.0 / 0.3048 ** 2  # 1 ft = 0.3048 m exactly
+_FT2_PER_M2 = 1.0 / 0.3048**2  # 1 ft = 0.3048 m exactly
 
 
 def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
@@ -84,14 +92,21 @@ def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
     raw = str(text).strip()
     lowered = raw.lower()
     factor = 1.0 if system == "si" else 1.0 / _FT2_PER_M2
-    for suffix, to_m2 in (("sq ft", 1.0 / _FT2_PER_M2), ("ft2", 1.0 / _FT2_PER_M2),
-                          ("ft²", 1.0 / _FT2_PER_M2), ("m2", 1.0), ("m²", 1.0)):
+    for suffix, to_m2 in (
+        ("sq ft", 1.0 / _FT2_PER_M2),
+        ("ft2", 1.0 / _FT2_PER_M2),
+        ("ft²", 1.0 / _FT2_PER_M2),
+        ("m2", 1.0),
+        ("m²", 1.0),
+    ):
         if lowered.endswith(suffix):
             raw, factor = raw[: -len(suffix)].strip(), to_m2
             break
     unit = "m²" if system == "si" else "ft²"
-    allowed = (f"an area above 0 and up to {domain.MOULD_AREA_MAX_M2:g} m², e.g. 0.5 "
-               f"(a bare number is {unit}; m2 or ft2 may follow it)")
+    allowed = (
+        f"an area above 0 and up to {domain.MOULD_AREA_MAX_M2:g} m², e.g. 0.5 "
+        f"(a bare number is {unit}; m2 or ft2 may follow it)"
+    )
     try:
         area = units.parse_number(raw, "--mould-area") * factor
     except InputError:
@@ -112,8 +127,14 @@ def _parse_occupants(text: str) -> int:
     return int(number)
 
 
-def _accuracy_option(option: str, text: str | None, parse: Callable[[str], float],
-                     default_key: str, top: float, unit: str) -> tuple[float, bool]:
+def _accuracy_option(
+    option: str,
+    text: str | None,
+    parse: Callable[[str], float],
+    default_key: str,
+    top: float,
+    unit: str,
+) -> tuple[float, bool]:
     if text is None:
         return th.value(default_key), False
     value = _option(option, text, parse)
@@ -122,15 +143,18 @@ def _accuracy_option(option: str, text: str | None, parse: Callable[[str], float
     return value, True
 
 
-def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem
-              ) -> list[assess.SurfaceInput]:
+def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem) -> list[assess.SurfaceInput]:
     """The surfaces typed, in order, each with its element and a label."""
     counts: dict[str, int] = {}
     found = []
 
     def temperature(option: str, text: str) -> float:
-        return _option(option, text, lambda t: units.parse_temperature(t, option, system),
-                       psychro.check_surface_temp)
+        return _option(
+            option,
+            text,
+            lambda t: units.parse_temperature(t, option, system),
+            psychro.check_surface_temp,
+        )
 
     for option, text in specs:
         element, prefix = _SURFACE_OPTIONS[option]
@@ -138,9 +162,13 @@ def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem
         if element is None:
             parts = str(text).split(":", 2)
             if len(parts) < 2 or not parts[1].strip():
-                raise InputError(option, text, "expected ELEMENT:TEMPERATURE or "
-                                               "ELEMENT:TEMPERATURE:LABEL, e.g. "
-                                               "external_wall:11.2:NE corner")
+                raise InputError(
+                    option,
+                    text,
+                    "expected ELEMENT:TEMPERATURE or "
+                    "ELEMENT:TEMPERATURE:LABEL, e.g. "
+                    "external_wall:11.2:NE corner",
+                )
             try:
                 policy = th.check_element(parts[0].strip(), option)
             except InputError as exc:

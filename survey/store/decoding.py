@@ -94,13 +94,18 @@ def check_bytes(data: bytes, path: object) -> bytes:
             raise SurveyFileError(path, "", f"not a survey file: this is {what}")
     if b"\x00" in data[:65536]:
         zeros = data.count(b"\x00") == len(data)
-        raise SurveyFileError(path, "", "the file is all zero bytes (damaged by a crash or "
-                              "disk fault)" if zeros else
-                              "the file contains NUL bytes: it is binary or damaged")
+        raise SurveyFileError(
+            path,
+            "",
+            "the file is all zero bytes (damaged by a crash or disk fault)"
+            if zeros
+            else "the file contains NUL bytes: it is binary or damaged",
+        )
     return data
 
 
 # --- broken JSON -------------------------------------------------------------------------
+
 
 def _line_column(data: bytes, offset: int) -> str:
     offset = max(0, min(offset, len(data)))
@@ -119,12 +124,17 @@ def _decode_error(path: object, exc: Exception, data: bytes) -> SurveyFileError:
     if "truncated" in message or "escape" in message or "surrogate" in message:
         lone = _LONE_SURROGATE.search(data)
         if lone is not None:
-            return SurveyFileError(path, _line_column(data, lone.start()),
-                                   "not valid JSON: a \\u escape names half of a UTF-16 "
-                                   "surrogate pair")
+            return SurveyFileError(
+                path,
+                _line_column(data, lone.start()),
+                "not valid JSON: a \\u escape names half of a UTF-16 surrogate pair",
+            )
     if "truncated" in message:
-        return SurveyFileError(path, _line_column(data, len(data)),
-                               "the file ends too early: it has been cut off (truncated)")
+        return SurveyFileError(
+            path,
+            _line_column(data, len(data)),
+            "the file ends too early: it has been cut off (truncated)",
+        )
     m = re.search(r"\(byte (\d+)\)", message)
     where = _line_column(data, int(m.group(1))) if m else ""
     if m:
@@ -132,53 +142,66 @@ def _decode_error(path: object, exc: Exception, data: bytes) -> SurveyFileError:
             data[: int(m.group(1)) + 4].decode("utf-8")
         except UnicodeDecodeError as bad:
             if bad.start <= int(m.group(1)):
-                return SurveyFileError(path, _line_column(data, bad.start),
-                                       "the file is not UTF-8 text; save it as UTF-8")
+                return SurveyFileError(
+                    path,
+                    _line_column(data, bad.start),
+                    "the file is not UTF-8 text; save it as UTF-8",
+                )
     if "UTF-8" in message:
         try:
             data.decode("utf-8")
         except UnicodeDecodeError as bad:
-            return SurveyFileError(path, _line_column(data, bad.start),
-                                   "the file is not UTF-8 text; save it as UTF-8")
+            return SurveyFileError(
+                path, _line_column(data, bad.start), "the file is not UTF-8 text; save it as UTF-8"
+            )
     detail = message.replace("JSON is malformed: ", "")
     detail = re.sub(r"\s*\(byte \d+\)", "", detail)
     if detail == "trailing characters":
-        return SurveyFileError(path, where,
-                               "there is more text after the end of the survey's JSON object")
+        return SurveyFileError(
+            path, where, "there is more text after the end of the survey's JSON object"
+        )
     return SurveyFileError(path, where, f"not valid JSON ({shorten(detail, 120)})")
 
 
 # --- the version -------------------------------------------------------------------------
+
 
 def schema_version(data: bytes, path: object) -> int:
     """The ``schema_version`` of a document, after refusing a newer or unknown one."""
     try:
         head = _decoder(_Head).decode(data)
     except msgspec.ValidationError:
-        raise SurveyFileError(path, "", "not a survey file: the top level is not a JSON "
-                                        "object") from None
+        raise SurveyFileError(
+            path, "", "not a survey file: the top level is not a JSON object"
+        ) from None
     except (msgspec.DecodeError, RecursionError) as exc:
         raise _decode_error(path, exc, data) from None
     version = head.schema_version
     if version is msgspec.UNSET:
-        raise SurveyFileError(path, "", "this is not a condition-survey file (it has no "
-                                        "schema_version)")
+        raise SurveyFileError(
+            path, "", "this is not a condition-survey file (it has no schema_version)"
+        )
     if data.count(b'"schema_version"') > 1:
         versions = _top_level_values(data, "schema_version")
         if len(versions) > 1:
             shown = " and ".join(_show(v) for v in versions[:4])
             raise SurveyFileError(
-                path, "schema_version",
+                path,
+                "schema_version",
                 f"given {len(versions)} times ({shown}); a survey file states its version "
-                f"once: keep the one line \"schema_version\": {SCHEMA_VERSION}")
+                f'once: keep the one line "schema_version": {SCHEMA_VERSION}',
+            )
     if type(version) is not int:
-        raise SurveyFileError(path, "schema_version",
-                              f"expected a whole number, found {_show(version)}")
+        raise SurveyFileError(
+            path, "schema_version", f"expected a whole number, found {_show(version)}"
+        )
     if version > SCHEMA_VERSION:
         raise SurveyFileError(
-            path, "schema_version",
+            path,
+            "schema_version",
             f"the file is schema version {version}, written by a newer condition-survey; this "
-            f"one reads versions up to {SCHEMA_VERSION}. Update condition-survey to open it")
+            f"one reads versions up to {SCHEMA_VERSION}. Update condition-survey to open it",
+        )
     if version < min(migrations.MIGRATIONS, default=SCHEMA_VERSION):
         raise SurveyFileError(path, "schema_version", f"unknown schema version {version}")
     return version
@@ -202,6 +225,7 @@ def _top_level_values(data: bytes, key: str) -> list[Any]:
 
 
 # --- keys given twice --------------------------------------------------------------------
+
 
 class _Duplicate(Exception):
     """Raised by the fast check at the first object holding a key twice."""
@@ -318,10 +342,12 @@ def duplicate_key(data: bytes, *, decoded_as_survey: bool = True) -> tuple[str, 
     return where_of(found.tokens[::-1]), (
         f"the key {quote(found.key, 40)} is given {times} in one object ({listed}); a JSON "
         "reader keeps only one of them silently, so the file has been damaged or badly "
-        "edited: keep the line that is right and delete the other")
+        "edited: keep the line that is right and delete the other"
+    )
 
 
 # --- in and out --------------------------------------------------------------------------
+
 
 def _upgraded(data: bytes, version: int, path: object) -> Survey:
     doc = migrations.migrate(msgspec.json.decode(data), version, path)
@@ -383,8 +409,11 @@ def dumps_survey(survey: Survey, path: object = "<survey>") -> bytes:
     try:
         raw = _ENCODER.encode(survey)
     except (TypeError, ValueError, OverflowError, UnicodeError) as exc:
-        raise SurveyFileError(path, "", f"not saved: the survey holds a value that cannot be "
-                                        f"written ({shorten(exc, 120)})") from None
+        raise SurveyFileError(
+            path,
+            "",
+            f"not saved: the survey holds a value that cannot be written ({shorten(exc, 120)})",
+        ) from None
     try:
         checked = _decoder(Survey).decode(raw)
     except msgspec.ValidationError as exc:

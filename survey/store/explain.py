@@ -39,21 +39,37 @@ _SUGGEST_MAX_CHARS = 64
 _AT = re.compile(r"^(?P<message>.*?)(?: - at `\$(?P<path>[^`]*)`)?$", re.S)
 _TOKEN = re.compile(r"\.([^.\[\]]+)|\[(\d+)\]")
 _TYPE_WORDS = {
-    "float": "a number", "int": "a whole number", "str": "text", "bool": "true or false",
-    "array": "a list", "object": "an object ({...})", "null": "null", "datetime": "a date and time",
-    "date": "a date", "bytes": "bytes",
+    "float": "a number",
+    "int": "a whole number",
+    "str": "text",
+    "bool": "true or false",
+    "array": "a list",
+    "object": "an object ({...})",
+    "null": "null",
+    "datetime": "a date and time",
+    "date": "a date",
+    "bytes": "bytes",
 }
 _UNIT_SUFFIXES = (
-    ("_l_per_day", " L/day"), ("_m3", " m³"), ("_m2", " m²"), ("_pct", " %"), ("_pa", " Pa"),
-    ("_c", " °C"), ("_k", " K"), ("_m", " m"), ("_l", " L"),
+    ("_l_per_day", " L/day"),
+    ("_m3", " m³"),
+    ("_m2", " m²"),
+    ("_pct", " %"),
+    ("_pa", " Pa"),
+    ("_c", " °C"),
+    ("_k", " K"),
+    ("_m", " m"),
+    ("_l", " L"),
 )
 _DATETIME_FORM = "2025-01-14T09:30:00 (ISO 8601; an offset such as +01:00 may follow)"
 
 
 def tokens_of(where: str) -> list[str | int]:
     """``visits[0].rooms[1].air`` as ``["visits", 0, "rooms", 1, "air"]``."""
-    return [name if name else int(index)
-            for name, index in _TOKEN.findall("." + where if where and where[0] != "[" else where)]
+    return [
+        name if name else int(index)
+        for name, index in _TOKEN.findall("." + where if where and where[0] != "[" else where)
+    ]
 
 
 def where_of(tokens: list[str | int]) -> str:
@@ -169,10 +185,20 @@ def _number(value: float) -> str:
 
 
 def _range_text(info: Any, unit: str) -> str:
-    low = (f"above {_number(info.gt)}" if info.gt is not None
-           else f"at least {_number(info.ge)}" if info.ge is not None else "")
-    high = (f"below {_number(info.lt)}" if info.lt is not None
-            else f"at most {_number(info.le)}" if info.le is not None else "")
+    low = (
+        f"above {_number(info.gt)}"
+        if info.gt is not None
+        else f"at least {_number(info.ge)}"
+        if info.ge is not None
+        else ""
+    )
+    high = (
+        f"below {_number(info.lt)}"
+        if info.lt is not None
+        else f"at most {_number(info.le)}"
+        if info.le is not None
+        else ""
+    )
     if info.ge is not None and info.le is not None:
         return f"between {_number(info.ge)} and {_number(info.le)}{unit}"
     return " and ".join(part for part in (low, high) if part) + unit
@@ -210,20 +236,22 @@ def _overlong_array_like(doc: Any, info: Any, tokens: list[str | int]) -> Any:
         if isinstance(doc, dict):
             for fld in info.fields:
                 if fld.encode_name in doc:
-                    found = _overlong_array_like(doc[fld.encode_name], fld.type,
-                                                 tokens + [fld.encode_name])
+                    found = _overlong_array_like(
+                        doc[fld.encode_name], fld.type, [*tokens, fld.encode_name]
+                    )
                     if found is not None:
                         return found
     elif isinstance(info, mi.ListType) and isinstance(doc, list):
         for i, item in enumerate(doc):
-            found = _overlong_array_like(item, info.item_type, tokens + [i])
+            found = _overlong_array_like(item, info.item_type, [*tokens, i])
             if found is not None:
                 return found
     return None
 
 
-def explain_validation_error(exc: msgspec.ValidationError, root: type,
-                             data: bytes | Any) -> tuple[str, str]:
+def explain_validation_error(
+    exc: msgspec.ValidationError, root: type, data: bytes | Any
+) -> tuple[str, str]:
     """``(where, problem)`` in plain words for a msgspec error decoding ``data`` as ``root``."""
     match = _AT.match(str(exc))
     message = match.group("message") if match else str(exc)
@@ -237,12 +265,17 @@ def explain_validation_error(exc: msgspec.ValidationError, root: type,
         allowed = _field_names(info)
         prefixed = [a for a in allowed if a.startswith(name + "_")]
         close = prefixed[0] if prefixed else _close_match(name, allowed)
-        hint = (f"; did you mean '{close}'?" if close
-                else f"; allowed here: {', '.join(allowed)}" if allowed else "")
-        return where_of(tokens + [name]), f"unknown field {quote(name, KEY_MAX_CHARS)}{hint}"
+        hint = (
+            f"; did you mean '{close}'?"
+            if close
+            else f"; allowed here: {', '.join(allowed)}"
+            if allowed
+            else ""
+        )
+        return where_of([*tokens, name]), f"unknown field {quote(name, KEY_MAX_CHARS)}{hint}"
     m = re.fullmatch(r"Object missing required field `(.*)`", message)
     if m:
-        return where_of(tokens + [m.group(1)]), f"the required field '{m.group(1)}' is missing"
+        return where_of([*tokens, m.group(1)]), f"the required field '{m.group(1)}' is missing"
     where = where_of(tokens)
     value = value_at(data, where)
     shown = show(value) if value is not MISSING else "the value"
@@ -273,8 +306,10 @@ def explain_validation_error(exc: msgspec.ValidationError, root: type,
         return where, f"text too long ({length} characters; at most {m.group(2)})"
     if message.startswith("Expected `str` matching regex"):
         if tokens and tokens[-1] in ("id", "room", "instrument"):
-            return where, (f"{shown} is not a valid id: use letters, digits, '-', '_' or '.', "
-                           "starting with a letter or digit, up to 40 characters")
+            return where, (
+                f"{shown} is not a valid id: use letters, digits, '-', '_' or '.', "
+                "starting with a letter or digit, up to 40 characters"
+            )
         if tokens and tokens[-1] == "source_sha256":
             return where, f"{shown} is not a SHA-256 digest (64 lowercase hex digits)"
         if len(tokens) >= 2 and tokens[-2] == "photos" and isinstance(value, str):
@@ -295,14 +330,14 @@ def explain_validation_error(exc: msgspec.ValidationError, root: type,
         if found is not None:
             where, info, count = found
             names = ", ".join(fld.name for fld in info.fields)
-            return where, (f"expected a list of {len(info.fields)} items [{names}], "
-                           f"found {count}")
+            return where, (f"expected a list of {len(info.fields)} items [{names}], found {count}")
     if not message:
         return where, "invalid value"
     return where, shorten(message[0].lower() + message[1:], 200)
 
 
 # --- records built in memory -------------------------------------------------------------
+
 
 def check_record(record: msgspec.Struct, field_name: str = "") -> None:
     """Check a record's types and ranges (which constructing a Struct does not do).

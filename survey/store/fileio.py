@@ -23,13 +23,12 @@ Writing (:func:`write_file_atomically`)
 
 from __future__ import annotations
 
-from collections.abc import Iterable
-
+import contextlib
 import errno
 import os
 import stat
+from collections.abc import Callable, Iterable
 from pathlib import Path
-from typing import Callable
 
 import msgspec
 
@@ -56,7 +55,6 @@ if hasattr(errno, "EDQUOT"):
     _ERRNO_WORDS[errno.EDQUOT] = "the disk quota is exceeded"
 
 
-
 def os_problem(exc: OSError) -> str:
     """An operating-system error in plain words (short, and safe to print)."""
     words = _ERRNO_WORDS.get(exc.errno or 0)
@@ -68,8 +66,10 @@ def os_problem(exc: OSError) -> str:
 def _read_problem(exc: OSError) -> str:
     """Why a file could not be read; a refused permission is about reading, not writing."""
     if exc.errno in (errno.EACCES, errno.EPERM):
-        return ("no permission to read the file (ask its owner, or check the permissions of "
-                "the file and its folders)")
+        return (
+            "no permission to read the file (ask its owner, or check the permissions of "
+            "the file and its folders)"
+        )
     return f"cannot read the file: {os_problem(exc)}"
 
 
@@ -102,8 +102,13 @@ class NotARegularFile(OSError):
         self.kind = kind
 
 
-_READ_FLAGS = (os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_NOCTTY", 0)
-               | getattr(os, "O_CLOEXEC", 0) | getattr(os, "O_BINARY", 0))
+_READ_FLAGS = (
+    os.O_RDONLY
+    | getattr(os, "O_NONBLOCK", 0)
+    | getattr(os, "O_NOCTTY", 0)
+    | getattr(os, "O_CLOEXEC", 0)
+    | getattr(os, "O_BINARY", 0)
+)
 
 
 def open_regular(path: str | os.PathLike[str]) -> tuple[int, os.stat_result]:
@@ -166,8 +171,11 @@ def read_stamped(path: Path, what: str = "survey file") -> tuple[bytes, FileStam
         raise SurveyFileError(path, "", _read_problem(exc)) from None
     try:
         if st.st_size > limit:
-            raise SurveyFileError(path, "", f"the file is too large ({_size(st.st_size)}; a "
-                                            f"{what} is at most {_size(limit)})")
+            raise SurveyFileError(
+                path,
+                "",
+                f"the file is too large ({_size(st.st_size)}; a {what} is at most {_size(limit)})",
+            )
         data = read_at_most(fd, limit, st.st_size)
     except OSError as exc:
         raise SurveyFileError(path, "", _read_problem(exc)) from None
@@ -187,6 +195,7 @@ def read_input_file(path: str | os.PathLike[str], what: str = "survey file") -> 
 
 # --- stamps and temporary files ----------------------------------------------------------
 
+
 class FileStamp(msgspec.Struct, frozen=True):
     """Identity of one version of a file on disk, to notice changes by others."""
 
@@ -195,7 +204,7 @@ class FileStamp(msgspec.Struct, frozen=True):
     mtime_ns: int
 
     @classmethod
-    def of(cls, st: os.stat_result) -> "FileStamp":
+    def of(cls, st: os.stat_result) -> FileStamp:
         return cls(st.st_ino, st.st_size, st.st_mtime_ns)
 
 
@@ -258,10 +267,8 @@ def fsync_dir(folder: Path) -> None:
 
 
 def remove_quietly(path: Path) -> None:
-    try:
+    with contextlib.suppress(OSError):
         os.unlink(path)
-    except OSError:
-        pass
 
 
 def resolve(path: str | os.PathLike[str]) -> Path:
@@ -275,8 +282,9 @@ def named(path: str | os.PathLike[str]) -> Path:
     its nature) is refused, so that no ``.bak`` or ``.lock`` is made beside the folder."""
     path = Path(path)
     if not path.name:
-        raise SurveyFileError(path, "", "this is a folder, not a file; give the path of a "
-                                        "survey file")
+        raise SurveyFileError(
+            path, "", "this is a folder, not a file; give the path of a survey file"
+        )
     return path
 
 
@@ -287,6 +295,7 @@ def shown_name(path: Path) -> str:
 
 # --- replacing a file --------------------------------------------------------------------
 
+
 def _on_read_only_file_system(folder: Path) -> bool:
     try:
         return bool(os.statvfs(folder).f_flag & getattr(os, "ST_RDONLY", 1))
@@ -294,9 +303,12 @@ def _on_read_only_file_system(folder: Path) -> bool:
         return False
 
 
-def target_state(target: Path, shown: Path, verb: str,
-                 advice: str = "save under another name, or make it writable first"
-                 ) -> os.stat_result | None:
+def target_state(
+    target: Path,
+    shown: Path,
+    verb: str,
+    advice: str = "save under another name, or make it writable first",
+) -> os.stat_result | None:
     """The stat of the file about to be replaced (``None`` if there is none), after
     refusing a folder, anything else that is not a regular file, and a file that is
     read-only for this user."""
@@ -312,19 +324,24 @@ def target_state(target: Path, shown: Path, verb: str,
     if kind == "a folder":
         raise SurveyFileError(shown, "", f"{verb}: the name is a folder")
     if kind is not None:
-        raise SurveyFileError(shown, "", f"{verb}: the name is {kind}, not a file; give "
-                                         "the name of a file")
+        raise SurveyFileError(
+            shown, "", f"{verb}: the name is {kind}, not a file; give the name of a file"
+        )
     mode = stat.S_IMODE(current.st_mode)
     # os.access answers for the real user; root passes it whatever the mode, so the mode
     # bits are checked too: a file nobody may write was made read-only on purpose.
     if not os.access(target, os.W_OK) or not mode & 0o222:
         if _on_read_only_file_system(target.parent):
-            raise SurveyFileError(shown, "", f"{verb}: {_ERRNO_WORDS[errno.EROFS]}; the "
-                                             "file on disk is unchanged")
+            raise SurveyFileError(
+                shown, "", f"{verb}: {_ERRNO_WORDS[errno.EROFS]}; the file on disk is unchanged"
+            )
         raise SurveyFileError(
-            shown, "", f"{verb}: the file is read-only (mode {mode:04o}), perhaps kept that "
-                       f"way on purpose, and is left as it is; {advice} "
-                       f"(chmod u+w {shown_name(shown)})")
+            shown,
+            "",
+            f"{verb}: the file is read-only (mode {mode:04o}), perhaps kept that "
+            f"way on purpose, and is left as it is; {advice} "
+            f"(chmod u+w {shown_name(shown)})",
+        )
     return current
 
 
@@ -332,9 +349,14 @@ def untouched(current: os.stat_result | None) -> str:
     return "the file on disk is unchanged" if current is not None else "no file was created"
 
 
-def replace_atomically(target: Path, shown: Path, data: Data,
-                       current: os.stat_result | None, verb: str,
-                       before_replace: Callable[[], object] | None = None) -> FileStamp:
+def replace_atomically(
+    target: Path,
+    shown: Path,
+    data: Data,
+    current: os.stat_result | None,
+    verb: str,
+    before_replace: Callable[[], object] | None = None,
+) -> FileStamp:
     """Write ``data`` to a new temporary file beside ``target`` (exclusive create, unique
     name), fsync it, run ``before_replace``, ``os.replace`` it over ``target`` and fsync the
     folder. The permissions of the file replaced are kept. On failure the temporary file is
@@ -351,8 +373,9 @@ def replace_atomically(target: Path, shown: Path, data: Data,
         raise
     except OSError as exc:
         remove_quietly(tmp)
-        raise SurveyFileError(shown, "", f"{verb}: {os_problem(exc)}; "
-                                         f"{untouched(current)}") from None
+        raise SurveyFileError(
+            shown, "", f"{verb}: {os_problem(exc)}; {untouched(current)}"
+        ) from None
     except BaseException:
         remove_quietly(tmp)
         raise

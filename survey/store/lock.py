@@ -73,8 +73,10 @@ class LockInfo(msgspec.Struct, kw_only=True, frozen=True):
         """Who holds the lock, in words (what the lock file says is shortened and made
         visible: it comes from a shared folder)."""
         when = shorten(self.started_at.replace("T", " ")[:16], 16)
-        return (f"{shorten(self.user, 40)} on {shorten(self.host, 60)} (process {self.pid}, "
-                f"since {when})")
+        return (
+            f"{shorten(self.user, 40)} on {shorten(self.host, 60)} (process {self.pid}, "
+            f"since {when})"
+        )
 
 
 class SurveyLocked(SurveyFileError):
@@ -126,10 +128,15 @@ def pid_alive(pid: int) -> bool:
 def _this_lock() -> LockInfo:
     from survey import __version__
 
-    return LockInfo(pid=os.getpid(), host=hostname(), user=_user(),
-                    started_at=dt.datetime.now().replace(microsecond=0).isoformat(),
-                    program=f"condition-survey {__version__}", boot_id=boot_id(),
-                    token=os.urandom(8).hex())
+    return LockInfo(
+        pid=os.getpid(),
+        host=hostname(),
+        user=_user(),
+        started_at=dt.datetime.now().replace(microsecond=0).isoformat(),
+        program=f"condition-survey {__version__}",
+        boot_id=boot_id(),
+        token=os.urandom(8).hex(),
+    )
 
 
 def _read_lock_bytes(lock: Path) -> bytes | None:
@@ -181,19 +188,27 @@ def describe_lock(holder: LockInfo, lock_name: str) -> str:
     """What a lock means for someone who wants to edit the survey, and what they can do."""
     lock_name = shorten(lock_name, 80)
     if holder.pid <= 0:
-        return (f"a damaged lock file {lock_name} remains (a session ended while writing "
-                "it); opening the survey for editing replaces it")
+        return (
+            f"a damaged lock file {lock_name} remains (a session ended while writing "
+            "it); opening the survey for editing replaces it"
+        )
     if lock_is_stale(holder):
-        return (f"a stale lock from {holder.describe()} remains ({lock_name}): that session "
-                "ended without closing and its process is gone; opening the survey for "
-                "editing takes the lock over")
+        return (
+            f"a stale lock from {holder.describe()} remains ({lock_name}): that session "
+            "ended without closing and its process is gone; opening the survey for "
+            "editing takes the lock over"
+        )
     if holder.host and holder.host != hostname():
-        return (f"open for editing by {holder.describe()}, another computer, which cannot "
-                f"be checked from here. Close the survey there; if that session has ended "
-                f"(the computer crashed or was switched off while editing), delete "
-                f"{lock_name} and try again. Reading the survey works meanwhile")
-    return (f"open for editing by {holder.describe()}. Close the survey there, or wait for "
-            "that program to finish, and try again. Reading the survey works meanwhile")
+        return (
+            f"open for editing by {holder.describe()}, another computer, which cannot "
+            f"be checked from here. Close the survey there; if that session has ended "
+            f"(the computer crashed or was switched off while editing), delete "
+            f"{lock_name} and try again. Reading the survey works meanwhile"
+        )
+    return (
+        f"open for editing by {holder.describe()}. Close the survey there, or wait for "
+        "that program to finish, and try again. Reading the survey works meanwhile"
+    )
 
 
 def _create_lock(lock: Path, info: LockInfo) -> bool:
@@ -239,7 +254,7 @@ class TakeoverGuard:
         self.path = lock.with_name(f".{lock.name}.takeover")
         self.fd: int | None = None
 
-    def __enter__(self) -> "TakeoverGuard":
+    def __enter__(self) -> TakeoverGuard:
         deadline = time.monotonic() + _GUARD_WAIT_S
         while True:
             if self._try():
@@ -327,8 +342,9 @@ def _take_over(lock: Path, stale_raw: bytes, ours: LockInfo) -> bool:
     return True
 
 
-def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
-                 force: bool = False) -> tuple[LockInfo, LockInfo | None]:
+def acquire_lock(
+    path: str | os.PathLike[str], *, take_over_stale: bool = True, force: bool = False
+) -> tuple[LockInfo, LockInfo | None]:
     """Take the editing lock of the survey at ``path``.
 
     Returns ``(ours, previous)`` where ``previous`` is the stale (or, with ``force``, live)
@@ -344,9 +360,13 @@ def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
             if _create_lock(lock, ours):
                 return ours, None
         except OSError as exc:
-            raise SurveyFileError(shown, "", f"cannot open for editing: the lock file "
-                                             f"{shown_name(lock)} cannot be written: "
-                                             f"{os_problem(exc)}") from None
+            raise SurveyFileError(
+                shown,
+                "",
+                f"cannot open for editing: the lock file "
+                f"{shown_name(lock)} cannot be written: "
+                f"{os_problem(exc)}",
+            ) from None
         raw = _read_lock_bytes(lock)
         if raw is None:
             continue  # released meanwhile
@@ -358,11 +378,16 @@ def acquire_lock(path: str | os.PathLike[str], *, take_over_stale: bool = True,
             if _take_over(lock, raw, ours):
                 return ours, holder
         except OSError as exc:
-            raise SurveyFileError(shown, "", f"cannot open for editing: the lock file "
-                                             f"{shown_name(lock)} cannot be taken over: "
-                                             f"{os_problem(exc)}") from None
-    raise SurveyLocked(shown, None, f"cannot take the lock {shown_name(lock)}: other "
-                                    "programs keep taking it")
+            raise SurveyFileError(
+                shown,
+                "",
+                f"cannot open for editing: the lock file "
+                f"{shown_name(lock)} cannot be taken over: "
+                f"{os_problem(exc)}",
+            ) from None
+    raise SurveyLocked(
+        shown, None, f"cannot take the lock {shown_name(lock)}: other programs keep taking it"
+    )
 
 
 def release_lock(path: str | os.PathLike[str], ours: LockInfo) -> None:
@@ -371,5 +396,3 @@ def release_lock(path: str | os.PathLike[str], ours: LockInfo) -> None:
     raw = _read_lock_bytes(lock)
     if raw is not None and _parse_lock(raw).token == ours.token:
         remove_quietly(lock)
-
-

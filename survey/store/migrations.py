@@ -12,7 +12,8 @@ with ``@migration(old_version)``, and add a fixture of the old layout under ``te
 
 from __future__ import annotations
 
-from typing import Any, Callable, Iterable, cast
+from collections.abc import Callable, Iterable
+from typing import Any, cast
 
 from survey.errors import SurveyFileError
 from survey.model import SCHEMA_VERSION
@@ -25,9 +26,11 @@ MIGRATIONS: dict[int, Migration] = {}
 
 def migration(from_version: int) -> Callable[[Migration], Migration]:
     """Register a function that upgrades a document from ``from_version`` to the next."""
+
     def register(fn: Migration) -> Migration:
         MIGRATIONS[from_version] = fn
         return fn
+
     return register
 
 
@@ -36,22 +39,27 @@ def migrate(doc: Any, version: int, path: object = "<survey>") -> dict[str, Any]
     while version < SCHEMA_VERSION:
         step = MIGRATIONS.get(version)
         if step is None:
-            raise SurveyFileError(path, "schema_version",
-                                  f"cannot upgrade from schema version {version}")
+            raise SurveyFileError(
+                path, "schema_version", f"cannot upgrade from schema version {version}"
+            )
         try:
             doc = step(doc)
         except (KeyError, TypeError, AttributeError, ValueError, IndexError) as exc:
             detail = shorten(f"missing {exc}" if isinstance(exc, KeyError) else str(exc), 120)
             raise SurveyFileError(
-                path, "", f"cannot upgrade from schema version {version}: the file does not "
-                          f"have that version's layout ({detail})") from None
+                path,
+                "",
+                f"cannot upgrade from schema version {version}: the file does not "
+                f"have that version's layout ({detail})",
+            ) from None
         version += 1
         doc["schema_version"] = version
     return cast(dict[str, Any], doc)
 
 
-def _copy_keys(source: dict[str, Any], target: dict[str, Any], names: Iterable[str]
-               ) -> dict[str, Any]:
+def _copy_keys(
+    source: dict[str, Any], target: dict[str, Any], names: Iterable[str]
+) -> dict[str, Any]:
     for name in names:
         if name in source:
             target[name] = source[name]
@@ -73,16 +81,20 @@ def _upgrade_0_to_1(doc: dict[str, Any]) -> dict[str, Any]:
     if not isinstance(doc, dict):
         raise TypeError("the top level is not an object")
     units = {"metric": "si", "imperial": "ip"}
-    site = _copy_keys(doc, {}, ("reference", "address", "client", "inspector", "purpose",
-                                "altitude_m", "notes"))
+    site = _copy_keys(
+        doc, {}, ("reference", "address", "client", "inspector", "purpose", "altitude_m", "notes")
+    )
     if "units" in doc:
         site["unit_system"] = units.get(doc["units"], doc["units"])
     instruments = []
     for old in doc.get("instruments", []):
         new = _copy_keys(old, {}, ("id", "kind", "name", "serial"))
         accuracy = old.get("accuracy") or {}
-        for old_key, new_key in (("temp_k", "air_temp_accuracy_k"), ("rh_pct", "rh_accuracy_pct"),
-                                 ("surface_k", "surface_temp_accuracy_k")):
+        for old_key, new_key in (
+            ("temp_k", "air_temp_accuracy_k"),
+            ("rh_pct", "rh_accuracy_pct"),
+            ("surface_k", "surface_temp_accuracy_k"),
+        ):
             if old_key in accuracy:
                 new[new_key] = accuracy[old_key]
         instruments.append(new)
@@ -111,13 +123,26 @@ def _upgrade_0_to_1(doc: dict[str, Any]) -> dict[str, Any]:
                 room["air"] = air(reading)
             room["surfaces"] = [
                 {"location": s["label"], "element": s["element"], "surface_temp_c": s["temp_c"]}
-                for s in reading.get("surfaces", [])]
+                for s in reading.get("surfaces", [])
+            ]
             room["materials"] = [
-                {"location": m["label"], "material": m["material"], "value": m["value"],
-                 "scale": {"wme": "wme_pct"}.get(m["scale"], m["scale"])}
-                for m in reading.get("moisture", [])]
+                {
+                    "location": m["label"],
+                    "material": m["material"],
+                    "value": m["value"],
+                    "scale": {"wme": "wme_pct"}.get(m["scale"], m["scale"]),
+                }
+                for m in reading.get("moisture", [])
+            ]
             _copy_keys(reading, room, ("notes",))
             new["rooms"].append(room)
         visits.append(new)
-    return {"schema_version": 0, "site": site, "instruments": instruments, "rooms": rooms,
-            "visits": visits, "logs": [], "created_at": doc.get("created_at")}
+    return {
+        "schema_version": 0,
+        "site": site,
+        "instruments": instruments,
+        "rooms": rooms,
+        "visits": visits,
+        "logs": [],
+        "created_at": doc.get("created_at"),
+    }

@@ -19,8 +19,14 @@ _WRAPPED = re.compile(r"(?<!\n)\n(?!\n)")
 
 def _plain(node: Any) -> Any:
     if isinstance(node, dict):
-        return {key: (_WRAPPED.sub(" ", value) if key == "description" and isinstance(value, str)
-                      else _plain(value)) for key, value in node.items()}
+        return {
+            key: (
+                _WRAPPED.sub(" ", value)
+                if key == "description" and isinstance(value, str)
+                else _plain(value)
+            )
+            for key, value in node.items()
+        }
     if isinstance(node, list):
         return [_plain(item) for item in node]
     return node
@@ -33,6 +39,6 @@ def survey_schema() -> dict[str, Any]:
         "$schema": "https://json-schema.org/draft/2020-12/schema",
         "title": "condition-survey survey file",
         "description": f"One site survey, schema version {SCHEMA_VERSION}. Numbers are SI with "
-                       "the unit in the field name; derived values are not stored.",
+        "the unit in the field name; derived values are not stored.",
         **schema,
     }

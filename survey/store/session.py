@@ -42,8 +42,14 @@ class EditSession:
             session.save()
     """
 
-    def __init__(self, path: Path, survey: Survey, lock: LockInfo,
-                 took_over: LockInfo | None, stamp: FileStamp | None) -> None:
+    def __init__(
+        self,
+        path: Path,
+        survey: Survey,
+        lock: LockInfo,
+        took_over: LockInfo | None,
+        stamp: FileStamp | None,
+    ) -> None:
         self.path = path
         self.survey = survey
         self.lock = lock
@@ -66,15 +72,20 @@ class EditSession:
             self.closed = True
             release_lock(self.path, self.lock)
 
-    def __enter__(self) -> "EditSession":
+    def __enter__(self) -> EditSession:
         return self
 
     def __exit__(self, *exc_info: object) -> None:
         self.close()
 
 
-def open_for_editing(path: str | os.PathLike[str], *, create: Survey | None = None,
-                     take_over_stale: bool = True, force: bool = False) -> EditSession:
+def open_for_editing(
+    path: str | os.PathLike[str],
+    *,
+    create: Survey | None = None,
+    take_over_stale: bool = True,
+    force: bool = False,
+) -> EditSession:
     """Lock and load the survey at ``path`` for editing.
 
     With ``create``, the file must not exist yet and is created from that survey. A stale
@@ -95,8 +106,12 @@ def open_for_editing(path: str | os.PathLike[str], *, create: Survey | None = No
             # save refuse rather than overwrite a version nobody has seen.
             stamp = file_stamp(resolve(path))
             survey = load_survey(path)
-            target_state(resolve(path), path, "cannot open for editing",
-                         "edit a copy of it, or make it writable first")
+            target_state(
+                resolve(path),
+                path,
+                "cannot open for editing",
+                "edit a copy of it, or make it writable first",
+            )
     except BaseException:
         release_lock(path, ours)
         raise
@@ -111,7 +126,8 @@ def remove_stale_temp_files(path: str | os.PathLike[str]) -> list[Path]:
     """
     target = resolve(path)
     pattern = re.compile(
-        rf"^\.{re.escape(target.name)}(?:\.bak|\.lock|\.lock\.claim)?\.(\d+)-[0-9a-f]{{8}}\.tmp$")
+        rf"^\.{re.escape(target.name)}(?:\.bak|\.lock|\.lock\.claim)?\.(\d+)-[0-9a-f]{{8}}\.tmp$"
+    )
     removed = []
     guard = TakeoverGuard(lock_path(path))
     if guard.path.exists() and guard.clear_abandoned():

@@ -80,10 +80,14 @@ def _backup_hint(path: Path) -> str:
     try:
         loads_survey(read_stamped(bak)[0], bak)
     except SurveyFileError as exc:
-        return (f". The backup {shown_name(bak)} (saved {saved}) is damaged too: "
-                f"{shorten(exc.problem, 160)}")
-    return (f". The previous version is in {shown_name(bak)} (saved {saved}) and loads "
-            f"cleanly: copy it over {shown_name(path)} to recover")
+        return (
+            f". The backup {shown_name(bak)} (saved {saved}) is damaged too: "
+            f"{shorten(exc.problem, 160)}"
+        )
+    return (
+        f". The previous version is in {shown_name(bak)} (saved {saved}) and loads "
+        f"cleanly: copy it over {shown_name(path)} to recover"
+    )
 
 
 def load_survey(path: str | os.PathLike[str]) -> Survey:
@@ -114,6 +118,7 @@ def read_schema_version(path: str | os.PathLike[str]) -> int:
 
 
 # --- saving ------------------------------------------------------------------------------
+
 
 def _copy_synced(source: Path, copy: Path) -> bool:
     """Copy ``source`` (a survey that loaded, so of bounded size) to a new file ``copy``,
@@ -194,9 +199,15 @@ def _load_problem(target: Path) -> str | None:
     return None
 
 
-def save_survey(survey: Survey, path: str | os.PathLike[str], *, backup: bool = True,
-                exclusive: bool = False, expected: FileStamp | None = None,
-                replace_damaged: bool = False) -> FileStamp:
+def save_survey(
+    survey: Survey,
+    path: str | os.PathLike[str],
+    *,
+    backup: bool = True,
+    exclusive: bool = False,
+    expected: FileStamp | None = None,
+    replace_damaged: bool = False,
+) -> FileStamp:
     """Save ``survey`` to ``path`` atomically; return the stamp of the file written.
 
     ``backup`` keeps the previous version as ``NAME.json.bak``. ``exclusive`` refuses to
@@ -220,25 +231,35 @@ def save_survey(survey: Survey, path: str | os.PathLike[str], *, backup: bool = 
         stamp_now = FileStamp.of(current)
         if expected is not None and stamp_now != expected:
             raise SurveyFileError(
-                shown, "", "not saved: the file was changed on disk by another program since "
-                           "it was opened; save under another name and compare the two")
+                shown,
+                "",
+                "not saved: the file was changed on disk by another program since "
+                "it was opened; save under another name and compare the two",
+            )
         if expected is None and _KNOWN_GOOD.get(os.fspath(target)) != stamp_now:
             problem = _load_problem(target)
             if problem is not None:
                 if not replace_damaged:
                     raise SurveyFileError(
-                        shown, "", f"not saved: the file there does not load as a survey "
-                                   f"({problem}). It is left as it is, and so is its backup; "
-                                   "save under another name, or move the file away first")
+                        shown,
+                        "",
+                        f"not saved: the file there does not load as a survey "
+                        f"({problem}). It is left as it is, and so is its backup; "
+                        "save under another name, or move the file away first",
+                    )
                 damaged = True
     elif expected is not None:
-        raise SurveyFileError(shown, "", "not saved: the file was deleted or moved since it "
-                                         "was opened; save under another name")
+        raise SurveyFileError(
+            shown,
+            "",
+            "not saved: the file was deleted or moved since it was opened; save under another name",
+        )
     if exclusive:
         stamp = _save_exclusive(target, shown, data)
     elif damaged:
-        stamp = replace_atomically(target, shown, data, current, "not saved",
-                                   lambda: _keep_damaged(target))
+        stamp = replace_atomically(
+            target, shown, data, current, "not saved", lambda: _keep_damaged(target)
+        )
     else:
         keep = (lambda: _keep_backup(target)) if backup and current is not None else None
         stamp = replace_atomically(target, shown, data, current, "not saved", keep)
@@ -268,8 +289,9 @@ def _save_exclusive(target: Path, shown: Path, data: bytes) -> FileStamp:
         raise
     except OSError as exc:
         remove_quietly(tmp)
-        raise SurveyFileError(shown, "", f"not saved: {os_problem(exc)}; no file was "
-                                         "created") from None
+        raise SurveyFileError(
+            shown, "", f"not saved: {os_problem(exc)}; no file was created"
+        ) from None
     except BaseException:
         remove_quietly(tmp)
         raise

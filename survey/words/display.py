@@ -32,7 +32,7 @@ SI_TEXT = {
 
 _G_PER_LB = 453.59237  # 1 lb = 0.45359237 kg exactly
 _BTU_H_PER_W = 3.412142  # 1 W = 3.412142 Btu/h (International Table Btu)
-_FT2_PER_M2 = 1.0 / 0.3048 ** 2  # 1 ft = 0.3048 m exactly
+_FT2_PER_M2 = 1.0 / 0.3048**2  # 1 ft = 0.3048 m exactly
 
 
 def _si(quantity: str, value_si: float, decimals: int | None = None, unit: bool = True) -> str:
@@ -59,8 +59,9 @@ class Display:
     def ip(self) -> bool:
         return self.system == "ip"
 
-    def __call__(self, quantity: str, value_si: float | None, decimals: int | None = None,
-                 unit: bool = True) -> str:
+    def __call__(
+        self, quantity: str, value_si: float | None, decimals: int | None = None, unit: bool = True
+    ) -> str:
         """``value_si`` (in the core's SI unit) as text in this system: ``'11.0 °C'``."""
         if value_si is None:
             return "–"
@@ -94,8 +95,7 @@ class Display:
         if g_per_h is None:
             return "–"
         if self.ip:
-            return (f"{g_per_h * 7000.0 / _G_PER_LB:.0f} gr/h "
-                    f"({g_per_h / _G_PER_LB:.2f} lb/h)")
+            return f"{g_per_h * 7000.0 / _G_PER_LB:.0f} gr/h ({g_per_h / _G_PER_LB:.2f} lb/h)"
         return f"{g_per_h:.0f} g/h"
 
     def heat(self, watts: float | None) -> str:
@@ -120,7 +120,7 @@ class Display:
             return "–"
         text = self.at_least("water_rate", litres_per_day)
         if not self.ip:
-            pints = litres_per_day / th.value('us_pint_l')
+            pints = litres_per_day / th.value("us_pint_l")
             return f"{text} ({math.ceil(pints * 10 - 1e-9) / 10:.1f} US pints/day)"
         return f"{text} ({math.ceil(litres_per_day * 10 - 1e-9) / 10:.1f} L/day)"
 
@@ -147,10 +147,10 @@ class Display:
 
             shown = units.to_display(quantity, value_si, "ip")
             places = units._DECIMALS[(quantity, "ip")]
-            up = math.ceil(shown * 10 ** places - 1e-9) / 10 ** places
+            up = math.ceil(shown * 10**places - 1e-9) / 10**places
             return self(quantity, units.from_display(quantity, up, "ip") + 1e-12)
         places, factor, _ = SI_TEXT[quantity]
-        up = math.ceil(value_si * factor * 10 ** places - 1e-9) / 10 ** places
+        up = math.ceil(value_si * factor * 10**places - 1e-9) / 10**places
         return self(quantity, up / factor + 1e-12)
 
     def minimum_temperature(self, value_c: float | None) -> str:
@@ -187,7 +187,7 @@ def round_down_rh(limit_pct: float) -> int:
     """A highest-safe RH as shown: whole percent, rounded down (the safe side)."""
     import math
 
-    return int(math.floor(limit_pct + 1e-9))
+    return math.floor(limit_pct + 1e-9)
 
 
 SI = Display("si")

@@ -29,8 +29,12 @@ def limit_value_text(t: th.Threshold, d: Display) -> str:
 
 def client_citation(t: th.Threshold, d: Display) -> str:
     """Title, value and source for a client, with a short mark (see :func:`legend`)."""
-    source = t.source.replace(" (from memory)", "").replace("; from memory", "") \
-        .replace(", from memory", "").replace("from memory", "recalled")
+    source = (
+        t.source.replace(" (from memory)", "")
+        .replace("; from memory", "")
+        .replace(", from memory", "")
+        .replace("from memory", "recalled")
+    )
     return f"{t.title} {limit_value_text(t, d)}{MARK_SIGN[t.mark]}: {source}"
 
 

@@ -13,15 +13,32 @@ from typing import Any
 
 from survey import psychro
 from survey import thresholds as th
-from survey.assess import (CondensationState, DryStandardState, FactorState, MouldState,
-                           RoomFinding, SurfaceFinding, TimberState)
+from survey.assess import (
+    CondensationState,
+    DryStandardState,
+    FactorState,
+    MouldState,
+    RoomFinding,
+    SurfaceFinding,
+    TimberState,
+)
 from survey.words.display import Display, round_down_rh
 
 #: A room use as a noun phrase ("a bedroom"); None for a use not said.
-USE_PHRASE = {"bedroom": "a bedroom", "bathroom": "a bathroom", "kitchen": "a kitchen",
-              "living": "a living room", "basement": "a basement", "crawlspace": "a crawl space",
-              "loft": "a loft", "office": "an office", "storage": "a store room",
-              "hallway": "a hallway", "utility": "a utility room", "other": None}
+USE_PHRASE = {
+    "bedroom": "a bedroom",
+    "bathroom": "a bathroom",
+    "kitchen": "a kitchen",
+    "living": "a living room",
+    "basement": "a basement",
+    "crawlspace": "a crawl space",
+    "loft": "a loft",
+    "office": "an office",
+    "storage": "a store room",
+    "hallway": "a hallway",
+    "utility": "a utility room",
+    "other": None,
+}
 
 #: The short phrase for a state the instruments cannot settle.
 CANNOT_TELL = "unclear at this accuracy"
@@ -29,7 +46,8 @@ CANNOT_TELL = "unclear at this accuracy"
 CANNOT_TELL_EXPLAINED = (
     f"\"{CANNOT_TELL.capitalize()}\": the reading's range (± the instruments' accuracy) "
     "reaches across a limit, so either state could be true. A more accurate instrument, or "
-    "readings repeated over several days, would settle it.")
+    "readings repeated over several days, would settle it."
+)
 
 CONDENSATION_WORDS = {
     CondensationState.CLEAR: "clear of the dew point",
@@ -50,7 +68,7 @@ MOULD_WORDS = {
     MouldState.CANNOT_TELL: CANNOT_TELL,
     MouldState.NOT_JUDGED: "not judged for mould (glass or pipe)",
     MouldState.TOO_COLD: "too cold for mould growth now; watch for melt-water and mould when "
-                         "it warms",
+    "it warms",
     MouldState.TOO_HOT: "too hot for the mould criterion (above 40 °C)",
 }
 FACTOR_WORDS = {
@@ -61,9 +79,8 @@ FACTOR_WORDS = {
     FactorState.NOT_APPLICABLE: "no limit for this room use",
     FactorState.NOT_FOR_ELEMENT: "not used for this kind of surface",
     FactorState.GROUND_CONTACT: "ground-contact element: temperature factor not judged "
-                                "against outdoor air",
-    FactorState.DRYING_WET: "not judged while wet materials dry (evaporation cools the "
-                            "surface)",
+    "against outdoor air",
+    FactorState.DRYING_WET: "not judged while wet materials dry (evaporation cools the surface)",
 }
 DRY_STANDARD_WORDS = {
     DryStandardState.AT: "at the dry standard",
@@ -77,8 +94,9 @@ TIMBER_WORDS = {
 }
 
 #: The kind of surface, as a table shows it.
-ELEMENT_WORDS = {e: ("unspecified" if e == "other" else p.words)
-                 for e, p in th.ELEMENT_POLICY.items()}
+ELEMENT_WORDS = {
+    e: ("unspecified" if e == "other" else p.words) for e, p in th.ELEMENT_POLICY.items()
+}
 
 
 def _below_freezing(surface: SurfaceFinding) -> bool:
@@ -101,8 +119,9 @@ def condensation_text(surface: SurfaceFinding) -> str:
     """'clear of the dew point', 'frost forming now', 'unclear at this accuracy: …': the
     point named as the air's (a frost point below 0 °C), what forms as the surface's."""
     words = dict(FROST_WORDS if _frost_point(surface) else CONDENSATION_WORDS)
-    words[CondensationState.CONDENSING] = ("frost forming now" if _below_freezing(surface)
-                                           else "condensing now")
+    words[CondensationState.CONDENSING] = (
+        "frost forming now" if _below_freezing(surface) else "condensing now"
+    )
     return _with_span(words, surface.condensation, surface.condensation_possible)
 
 
@@ -111,8 +130,9 @@ def mould_text(surface: SurfaceFinding) -> str:
 
 
 def factor_text(surface: SurfaceFinding, finding: RoomFinding, d: Display) -> str:
-    text = _with_span(FACTOR_WORDS, surface.temperature_factor_state,
-                      surface.temperature_factor_possible)
+    text = _with_span(
+        FACTOR_WORDS, surface.temperature_factor_state, surface.temperature_factor_possible
+    )
     reason = factor_not_judged_reason(finding, d)
     if surface.temperature_factor_state is FactorState.NOT_JUDGED and reason:
         text += ": " + reason
@@ -129,8 +149,10 @@ def factor_not_judged_reason(finding: RoomFinding, d: Display) -> str | None:
         return "no outdoor reading"
     difference = finding.air.dry_bulb_c - finding.outdoor.dry_bulb_c
     if difference < least:
-        return (f"the inside-outside difference is {d.difference(difference)}, under the "
-                f"{d.difference(least, 0)} needed")
+        return (
+            f"the inside-outside difference is {d.difference(difference)}, under the "
+            f"{d.difference(least, 0)} needed"
+        )
     return None
 
 
@@ -139,8 +161,7 @@ def surface_rh_text(surface: SurfaceFinding) -> str:
     rh = surface.surface_rh_pct
     low, high = surface.surface_rh_low_pct, surface.surface_rh_high_pct
     if rh >= 100.0:
-        return "100 % or more (" + ("frost" if _below_freezing(surface) else "water") + \
-            " forming)"
+        return "100 % or more (" + ("frost" if _below_freezing(surface) else "water") + " forming)"
     if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
         return f"{rh:.0f} %"
     if high >= 100.0:
@@ -160,14 +181,20 @@ def short_verdict(surface: SurfaceFinding, d: Display) -> str:
     elif condensation is CondensationState.NEAR:
         parts.append(f"within {margin} of the {point}")
     elif condensation is CondensationState.CANNOT_TELL:
-        parts.append(f"{what} may be forming" if CondensationState.CONDENSING in possible
-                     else f"may be within {margin} of the {point}")
+        parts.append(
+            f"{what} may be forming"
+            if CondensationState.CONDENSING in possible
+            else f"may be within {margin} of the {point}"
+        )
     else:
         parts.append(f"clear of the {point}")
     mould, mould_possible = surface.mould, surface.mould_possible
     if mould is MouldState.CANNOT_TELL:
-        parts.append("may be above the mould limit" if MouldState.ABOVE in mould_possible
-                     else "may be approaching the mould limit")
+        parts.append(
+            "may be above the mould limit"
+            if MouldState.ABOVE in mould_possible
+            else "may be approaching the mould limit"
+        )
     elif mould is not MouldState.NOT_JUDGED:
         parts.append(MOULD_WORDS[mould])
     state = surface.temperature_factor_state
@@ -176,8 +203,10 @@ def short_verdict(surface: SurfaceFinding, d: Display) -> str:
     elif state is FactorState.CANNOT_TELL:
         factor, limit = surface.temperature_factor, surface.temperature_factor_limit
         if factor is not None and limit is not None and factor >= limit:
-            parts.append(f"temperature factor {factor:.2f}, meets the {limit:.2f} limit "
-                         f"(only the edge of its accuracy band reaches below: no action needed)")
+            parts.append(
+                f"temperature factor {factor:.2f}, meets the {limit:.2f} limit "
+                f"(only the edge of its accuracy band reaches below: no action needed)"
+            )
         else:
             parts.append("temperature factor may be under the limit")
     return "; ".join(parts)
@@ -185,11 +214,17 @@ def short_verdict(surface: SurfaceFinding, d: Display) -> str:
 
 def worst_first(surfaces: Iterable[SurfaceFinding]) -> list[SurfaceFinding]:
     """Surfaces ordered worst first: condensation, then mould, then the coldest."""
-    severity = {CondensationState.CONDENSING: 3, CondensationState.CANNOT_TELL: 2,
-                CondensationState.NEAR: 1, CondensationState.CLEAR: 0}
+    severity = {
+        CondensationState.CONDENSING: 3,
+        CondensationState.CANNOT_TELL: 2,
+        CondensationState.NEAR: 1,
+        CondensationState.CLEAR: 0,
+    }
     mould = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
-    return sorted(surfaces, key=lambda s: (-severity[s.condensation] - mould.get(s.mould, 0),
-                                           s.surface_temp_c))
+    return sorted(
+        surfaces,
+        key=lambda s: (-severity[s.condensation] - mould.get(s.mould, 0), s.surface_temp_c),
+    )
 
 
 def rh_limit_text(finding: RoomFinding) -> str | None:
@@ -200,8 +235,10 @@ def rh_limit_text(finding: RoomFinding) -> str | None:
     if top >= 100.0:
         return "any room RH (it stays below the limits even at 100 %)"
     shown = round_down_rh(top)
-    low, high = (round_down_rh(finding.max_room_rh_low_pct or top),
-                 round_down_rh(finding.max_room_rh_high_pct or top))
+    low, high = (
+        round_down_rh(finding.max_room_rh_low_pct or top),
+        round_down_rh(finding.max_room_rh_high_pct or top),
+    )
     if low == high == shown:
         return f"{shown} %"
     return f"{shown} % ({low} to {high} % at this accuracy)"
@@ -244,8 +281,7 @@ def humidity_class_range_text(possible: Iterable[int]) -> str:
     if len(plain) == 1:
         text = f"class {plain[0]}"
     elif len(plain) == 2:
-        text = (f"class {plain[0]}, {plain[1]}" if above
-                else f"class {plain[0]} or {plain[1]}")
+        text = f"class {plain[0]}, {plain[1]}" if above else f"class {plain[0]} or {plain[1]}"
     else:
         text = f"class {plain[0]} to {plain[-1]}"
     return f"{text} or {ABOVE_CLASS_5_TEXT}" if above else text
@@ -254,11 +290,15 @@ def humidity_class_range_text(possible: Iterable[int]) -> str:
 def timber_emc_text(finding: RoomFinding, d: Display) -> str:
     """What moisture content timber settles at in the room air, or why it is not said."""
     if finding.timber_emc_pct is None:
-        return (f"Timber moisture in this air is not estimated: the Wood Handbook equation "
-                f"(eqn 4-5) is used only from "
-                f"{d.temperature(th.value('timber_emc_equation_min_c'), 0)} to "
-                f"{d.temperature(th.value('timber_emc_equation_max_c'), 0)} and up to "
-                f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH; measure the timber "
-                f"with a pin meter instead.")
-    return (f"Timber in this air settles at about {finding.timber_emc_pct:.1f} % moisture "
-            f"content (Wood Handbook eqn 4-5).")
+        return (
+            f"Timber moisture in this air is not estimated: the Wood Handbook equation "
+            f"(eqn 4-5) is used only from "
+            f"{d.temperature(th.value('timber_emc_equation_min_c'), 0)} to "
+            f"{d.temperature(th.value('timber_emc_equation_max_c'), 0)} and up to "
+            f"{th.value('timber_emc_equation_max_rh_pct'):g} % RH; measure the timber "
+            f"with a pin meter instead."
+        )
+    return (
+        f"Timber in this air settles at about {finding.timber_emc_pct:.1f} % moisture "
+        f"content (Wood Handbook eqn 4-5)."
+    )
