@@ -30,7 +30,7 @@ def cautions_for(
         out.append(Caution("visible_mould", _MOULD_AREA_KEYS, area_m2=area))
     elif any(surface.mould is MouldState.ABOVE for surface in finding.surfaces):
         out.append(Caution("mould_if_visible", _MOULD_AREA_KEYS))
-    from survey.advise.rules import effective_water_category
+    from survey.advise.sources import effective_water_category
 
     category, _ = effective_water_category(obs)
     if category == 3:
