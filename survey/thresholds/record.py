@@ -1,0 +1,40 @@
+"""A limit as a record: its value and unit, where it comes from, how sure we are of it."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Literal
+
+Mark = Literal["R", "M", "C", "common practice", "choice"]
+
+MARK_TEXT: dict[str, str] = {
+    "R": "read in the source",
+    "M": "from memory, not verified against the original",
+    "C": "computed from the named formula",
+    "common practice": "common practice, no single source",
+    "choice": "our choice of a value inside the range the source gives",
+}
+
+#: The marks in words for a client's report: the same facts, in plain terms.
+
+
+@dataclass(frozen=True, slots=True)
+class Threshold:
+    """One limit: its value and unit, where it comes from, and how sure we are of it."""
+
+    key: str
+    title: str  #: a short name for people, e.g. "Mould limit, surface RH"
+    value: float
+    unit: str
+    source: str
+    note: str
+    mark: Mark
+
+    @property
+    def value_text(self) -> str:
+        """The value with its unit, e.g. ``'80 %'``."""
+        return f"{self.value:g} {self.unit}" if self.unit else f"{self.value:g}"
+
+    def citation(self) -> str:
+        """One line for a report's method section: value, source, mark and note."""
+        return f"{self.value_text}: {self.source}; {MARK_TEXT[self.mark]}. {self.note}"
