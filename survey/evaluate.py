@@ -158,7 +158,7 @@ def room_input(
     room = survey.room(room_visit.room)
     standards = _dry_standards(visit, survey, room_visit)
     materials = tuple(
-        assess.MaterialReading(
+        assess.MaterialInput(
             label=reading.location,
             material=reading.material,
             value=reading.value,

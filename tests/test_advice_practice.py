@@ -16,7 +16,7 @@ from survey.advise import ActionKind, DehumidifyWhy
 from survey.assess import (
     Accuracy,
     DryingEquipment,
-    MaterialReading,
+    MaterialInput,
     Observations,
     OutdoorInput,
     RoomInput,
@@ -105,9 +105,9 @@ def test_air_movers_are_stopped_and_porous_readings_named():
         80.0,
         volume_m3=40.0,
         materials=(
-            MaterialReading("wall low", "gypsum plasterboard", 40.0, "wme_pct", 20.0),
-            MaterialReading("floor", "carpet and underlay", 30.0, "wme_pct", 15.0),
-            MaterialReading("skirting", "pine skirting", 25.0, "mc_pct", 12.0, True),
+            MaterialInput("wall low", "gypsum plasterboard", 40.0, "wme_pct", 20.0),
+            MaterialInput("floor", "carpet and underlay", 30.0, "wme_pct", 15.0),
+            MaterialInput("skirting", "pine skirting", 25.0, "mc_pct", 12.0, True),
         ),
         observations=Observations(
             water_category=3,
@@ -370,7 +370,7 @@ def test_wet_surface_below_the_dew_point_in_a_drying_room_still_gets_its_action(
         70.0,
         (SurfaceInput("wet wall", 12.0),),
         volume_m3=30.0,
-        materials=(MaterialReading("wall", "plaster", 40.0, "wme_pct", 15.0),),
+        materials=(MaterialInput("wall", "plaster", 40.0, "wme_pct", 15.0),),
         observations=Observations(drying_in_progress=True, drying=DryingEquipment(dehumidifiers=1)),
     )
     from survey import advise

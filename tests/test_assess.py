@@ -13,7 +13,7 @@ from survey.assess import (
     Accuracy,
     CondensationState,
     FactorState,
-    MaterialReading,
+    MaterialInput,
     MouldState,
     OutdoorInput,
     RoomInput,
@@ -291,10 +291,10 @@ def test_materials_against_dry_standard_and_timber_limits():
     16 % MC is in the mould range (common practice), from 20 % in the decay range (Wood
     Handbook ch. 14 [R, secondary]); wetter than the room's EMC explains is flagged."""
     materials = (
-        MaterialReading("skirting", "softwood", 24.0, "mc_pct", 12.0, timber=True),
-        MaterialReading("joist", "softwood", 17.0, "mc_pct", None, timber=True),
-        MaterialReading("plaster", "gypsum", 105.0, "relative", 100.0),
-        MaterialReading("screed", "sand-cement", 150.0, "relative", 100.0),
+        MaterialInput("skirting", "softwood", 24.0, "mc_pct", 12.0, timber=True),
+        MaterialInput("joist", "softwood", 17.0, "mc_pct", None, timber=True),
+        MaterialInput("plaster", "gypsum", 105.0, "relative", 100.0),
+        MaterialInput("screed", "sand-cement", 150.0, "relative", 100.0),
     )
     room = RoomInput("R", "living", 20.0, 50.0, materials=materials)
     found = {m.label: m for m in assess.assess_room(room).materials}
@@ -396,14 +396,12 @@ def test_bad_material_reading_is_refused():
                 "living",
                 20.0,
                 50.0,
-                materials=(MaterialReading("plaster", "gypsum", 10.0, "ohms"),),
+                materials=(MaterialInput("plaster", "gypsum", 10.0, "ohms"),),
             )
         )
     with pytest.raises(InputError, match="material joist reading"):
         assess.assess_room(
-            RoomInput(
-                "R", "living", 20.0, 50.0, materials=(MaterialReading("joist", "pine", -1.0),)
-            )
+            RoomInput("R", "living", 20.0, 50.0, materials=(MaterialInput("joist", "pine", -1.0),))
         )
 
 
@@ -577,6 +575,6 @@ def test_room_bounds_come_from_the_domain():
         domain.RH_ACCURACY_MAX_PCT,
         domain.SURFACE_TEMP_ACCURACY_MAX_K,
     )
-    wet = MaterialReading("sole plate", "softwood", 240.0, "mc_pct", 12.0, timber=True)
+    wet = MaterialInput("sole plate", "softwood", 240.0, "mc_pct", 12.0, timber=True)
     found = assess.assess_room(RoomInput("R", "living", 20.0, 50.0, materials=(wet,)))
     assert found.materials[0].timber_state is TimberState.DECAY_RANGE

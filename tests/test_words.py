@@ -21,7 +21,7 @@ from survey.advise import cautions as caution_rules
 from survey.assess import (
     Accuracy,
     Activity,
-    MaterialReading,
+    MaterialInput,
     Observations,
     OutdoorInput,
     RoomInput,
@@ -800,7 +800,7 @@ def wet_skirting_hall():
         (SurfaceInput("wall", 15.0),),
         volume_m3=20.0,
         occupants=0,
-        materials=(MaterialReading("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
+        materials=(MaterialInput("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
     )
 
 
@@ -842,8 +842,8 @@ def test_condensation_seen_but_not_explained_is_said():
 
 def drying_room():
     materials = (
-        MaterialReading("party wall", "plasterboard", 46.0, "relative", 22.0),
-        MaterialReading("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
+        MaterialInput("party wall", "plasterboard", 46.0, "relative", 22.0),
+        MaterialInput("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
     )
     return RoomInput(
         "Family room",
