@@ -131,16 +131,16 @@ def _accuracy(
 
 
 def _dry_standards(
-    visit: model.Visit, survey: model.Survey, room_visit: model.RoomVisit
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    rooms: dict[str, model.Room],
+    references: list[model.RoomVisit] | None = None,
 ) -> dict[tuple[str, str], float]:
     """Dry-standard readings by (material, scale): this room's first, then reference rooms'."""
+    if references is None:
+        references = _reference_visits(visit, rooms)
     standards: dict[tuple[str, str], float] = {}
-    reference_rooms = [
-        rv
-        for rv in visit.rooms
-        if rv is not room_visit and (room := survey.room(rv.room)) is not None and room.is_reference
-    ]
-    for source in (room_visit, *reference_rooms):
+    for source in (room_visit, *(rv for rv in references if rv is not room_visit)):
         for reading in source.materials:
             if reading.dry_standard:
                 standards.setdefault(
@@ -149,14 +149,28 @@ def _dry_standards(
     return standards
 
 
+def _reference_visits(visit: model.Visit, rooms: dict[str, model.Room]) -> list[model.RoomVisit]:
+    """The visit's readings in reference rooms (unaffected rooms, the dry standard)."""
+    return [rv for rv in visit.rooms if (r := rooms.get(rv.room)) is not None and r.is_reference]
+
+
 def room_input(
-    survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit, entered: dict[str, bool]
+    survey: model.Survey,
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    entered: dict[str, bool],
+    rooms: dict[str, model.Room] | None = None,
+    references: list[model.RoomVisit] | None = None,
 ) -> assess.RoomInput | None:
-    """The assessment's input for one room on one visit; None when no air was measured."""
+    """The assessment's input for one room on one visit; None when no air was measured.
+    ``rooms`` (the survey's rooms by id) and ``references`` (the visit's reference-room
+    readings) may be given when many rooms of one visit are judged, so each is found once."""
     if room_visit.air is None:
         return None
-    room = survey.room(room_visit.room)
-    standards = _dry_standards(visit, survey, room_visit)
+    if rooms is None:
+        rooms = {r.id: r for r in survey.rooms}
+    room = rooms.get(room_visit.room)
+    standards = _dry_standards(visit, room_visit, rooms, references)
     materials = tuple(
         assess.MaterialInput(
             label=reading.location,
@@ -247,8 +261,10 @@ def assess_visit(
     entered: dict[str, bool] = {}
     rooms: list[assess.RoomInput] = []
     room_ids: list[str] = []
+    rooms_by_id = {r.id: r for r in survey.rooms}
+    references = _reference_visits(visit, rooms_by_id)
     for room_visit in visit.rooms:
-        judged = room_input(survey, visit, room_visit, entered)
+        judged = room_input(survey, visit, room_visit, entered, rooms_by_id, references)
         if judged is not None:
             rooms.append(judged)
             room_ids.append(room_visit.room)
