@@ -1,0 +1,326 @@
+"""The site report assembled: title block, summary, scope, each visit's conditions and rooms,
+drying progress, safety, method and glossary — as :mod:`survey.report.markdown` blocks.
+
+Stored visits are judged by :func:`survey.evaluate.assess_visit`; every sentence comes from
+:mod:`survey.words` (the report's own from :mod:`survey.words.report`). Nothing here
+computes physics or builds a sentence; it chooses what to show and in which order.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+from dataclasses import dataclass
+from pathlib import Path
+
+from survey import model, words
+from survey import thresholds as th
+from survey.assess import CondensationState, FactorState, MouldState
+from survey.errors import InputError
+from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
+from survey.report.rooms import Context, drying_section, photo_blocks, room_name, room_section
+from survey.words import report as rw
+
+#: How far back an outdoor logger's samples count as "the days before" a visit.
+DAYS_BEFORE = dt.timedelta(hours=72)
+#: At most this many findings and actions in the summary.
+SUMMARY_MAX = 6
+
+
+@dataclass(frozen=True, slots=True)
+class ReportOptions:
+    """What to report and how.
+
+    ``visit`` is a visit number (1 is the first), ``"last"`` (the default) or ``"all"``;
+    ``units`` is ``"si"``, ``"ip"`` or ``None`` for the survey's own; ``generated_at`` is
+    printed as given (the command passes the time now; tests fix it); photos are looked for
+    in ``survey_dir`` and linked relative to ``report_dir``."""
+
+    visit: int | str = "last"
+    units: str | None = None
+    generated_at: str = ""
+    source_name: str = "survey.json"
+    survey_dir: Path = Path(".")
+    report_dir: Path = Path(".")
+
+
+def selected_visits(survey: model.Survey, visit: int | str) -> list[int]:
+    """The visit indexes a report covers; ``InputError`` for a number that is not a visit."""
+    count = len(survey.visits)
+    if visit == "all":
+        return list(range(count))
+    if visit == "last":
+        return [count - 1] if count else []
+    if isinstance(visit, bool) or not isinstance(visit, int) or not 1 <= visit <= count:
+        allowed = (f"a visit number from 1 to {count}, or all" if count
+                   else "the survey has no visits yet")
+        raise InputError("visit", visit, allowed)
+    return [visit - 1]
+
+
+def build(survey: model.Survey, options: ReportOptions = ReportOptions()) -> Document:
+    """The report of ``survey`` as a :class:`~survey.report.markdown.Document`."""
+    d = words.Display(options.units or survey.site.unit_system)
+    shown = selected_visits(survey, options.visit)
+    ctx = Context(survey, d, options.survey_dir, options.report_dir, len(survey.visits))
+    doc = Document(rw.title(survey.site.reference))
+    doc.add(Heading(1, doc.title),
+            Para(rw.generated_line(options.generated_at, options.source_name)))
+    _title_block(doc, ctx, shown)
+    _summary(doc, ctx, shown)
+    _scope(doc, ctx, shown)
+    for index in shown:
+        _visit(doc, ctx, index)
+    if len(survey.visits) > 1:
+        drying_section(doc, ctx)
+    _safety(doc, ctx, shown)
+    _method(doc, ctx, shown)
+    doc.add(Heading(2, rw.HEADINGS["glossary"]), Items(rw.GLOSSARY))
+    return doc
+
+
+def _title_block(doc: Document, ctx: Context, shown: list[int]) -> None:
+    site = ctx.survey.site
+    labels = rw.TITLE_LABELS
+    inspectors = [site.inspector] + [ctx.survey.visits[i].inspector for i in shown]
+    items = [
+        (labels["reference"], site.reference), (labels["address"], site.address),
+        (labels["client"], site.client),
+        (labels["purpose"], rw.PURPOSE_WORDS[site.purpose]),
+        (labels["visits"], rw.visits_text([v.started_at for v in ctx.survey.visits],
+                                          [i + 1 for i in shown])),
+        (labels["inspector"], rw.names_list(dict.fromkeys(n for n in inspectors if n.strip()))),
+        (labels["construction"], site.construction),
+        (labels["year_built"], "" if site.year_built is None else str(site.year_built)),
+        (labels["units"], rw.units_text(ctx.d)),
+    ]
+    doc.add(Items(tuple((f"{label}:", value) for label, value in items if value.strip()),
+                  name="title_block"))
+
+
+# --- summary ---------------------------------------------------------------------------------
+
+_CONDENSATION_RANK = {CondensationState.CONDENSING: 3, CondensationState.CANNOT_TELL: 2,
+                      CondensationState.NEAR: 1}
+_MOULD_RANK = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
+
+
+def _concern(surface) -> int:
+    """How much a surface matters for the summary (0: not at all)."""
+    rank = _CONDENSATION_RANK.get(surface.condensation, 0) + _MOULD_RANK.get(surface.mould, 0)
+    if surface.temperature_factor_state is FactorState.UNDER:
+        rank += 1
+    return rank
+
+
+def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
+    doc.add(Heading(2, rw.HEADINGS["summary"]))
+    if not shown:
+        doc.add(Para(rw.NO_VISITS))
+        return
+    va = ctx.assessment(shown[-1])
+    d = ctx.d
+    findings: list[str] = []
+    worst = []
+    for f in va.findings.rooms:
+        worst += [(-_concern(s), s.surface_temp_c, f.name, s) for s in f.surfaces if _concern(s)]
+    worst.sort(key=lambda item: item[:2])
+    findings += [rw.surface_summary(name, s, words.short_verdict(s, d), d)
+                 for _, _, name, s in worst[:SUMMARY_MAX]]
+    for f in va.findings.rooms:
+        obs = f.room.observations
+        if obs.mould_seen:
+            findings.append(rw.mould_seen_summary(f.name, obs.visible_mould_area_m2, d))
+        wet = sum(m.dry_standard_state.value == "above_dry_standard" for m in f.materials)
+        if wet:
+            findings.append(rw.wet_materials_summary(f.name, wet))
+        limit = words.rh_limit_text(f)
+        if (limit is not None and f.max_room_rh_pct is not None
+                and f.air.rh_pct > f.max_room_rh_pct):
+            findings.append(rw.rh_summary(f.name, f, limit))
+    doc.add(Heading(3, rw.SUMMARY_FINDINGS))
+    doc.add(Items(tuple(("", text) for text in findings), name="summary_findings")
+            if findings else Para(rw.SUMMARY_NO_FINDINGS))
+    firsts = [(f.name, advice.actions[0])
+              for f, advice in zip(va.findings.rooms, va.advice.rooms) if advice.actions]
+    doc.add(Heading(3, rw.SUMMARY_ACTIONS))
+    if not firsts:
+        doc.add(Para(rw.SUMMARY_NO_ACTIONS))
+        return
+    items = tuple(("", rw.action_summary(name, words.action_title(a),
+                                         words.action_numbers(a, d)))
+                  for name, a in firsts[:SUMMARY_MAX])
+    doc.add(Items(items, numbered=True, name="summary_actions",
+                  values=tuple(a for _, a in firsts[:SUMMARY_MAX])), Para(rw.SUMMARY_MORE))
+
+
+# --- scope and instruments -------------------------------------------------------------------
+
+def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
+    survey = ctx.survey
+    doc.add(Heading(2, rw.HEADINGS["scope"]))
+    for index in shown:
+        visit = survey.visits[index]
+        va = ctx.assessment(index)
+        measured = [room_name(survey, r) for r in va.room_ids]
+        visited = {rv.room for rv in visit.rooms}
+        unmeasured = [room_name(survey, rv.room) for rv in visit.rooms
+                      if rv.room not in va.room_ids]
+        lines = [rw.rooms_entered_text(measured)]
+        if unmeasured:
+            lines.append(rw.rooms_not_measured_text(unmeasured))
+        lines.append(rw.rooms_not_entered_text(
+            [r.name for r in survey.rooms if r.id not in visited]))
+        lead = (rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at)
+                + ":") if len(shown) > 1 else ""
+        doc.add(Para(" ".join(lines), strong=lead))
+    doc.add(Para(rw.NOT_COVERED), Para(rw.SPOT_READINGS))
+    if survey.site.notes.strip():
+        doc.add(Para(survey.site.notes, strong=rw.NOTES_LABELS["site"] + ":", note=True))
+    doc.add(Heading(3, rw.HEADINGS["instruments"]))
+    if not survey.instruments:
+        doc.add(Para(rw.NO_INSTRUMENTS))
+        return
+    rows = tuple((
+        Cell(i.name), Cell(rw.INSTRUMENT_KIND_WORDS[i.kind]), Cell(i.serial),
+        Cell(rw.instrument_accuracy_text(i.air_temp_accuracy_k, i.rh_accuracy_pct,
+                                         i.surface_temp_accuracy_k, i.moisture_accuracy, ctx.d)),
+        Cell(rw.calibration_text(i.calibrated_on)),
+    ) for i in survey.instruments)
+    doc.add(Table(rw.INSTRUMENT_HEADER, rows, name="instruments"))
+
+
+# --- a visit ---------------------------------------------------------------------------------
+
+def _pressure_basis(survey: model.Survey, visit: model.Visit) -> str:
+    if visit.pressure_pa is not None:
+        return "visit"
+    if survey.site.pressure_pa is not None:
+        return "site"
+    return "altitude" if survey.site.altitude_m is not None else "sea_level"
+
+
+def _logger_before(ctx: Context, visit: model.Visit) -> list[str]:
+    lines = []
+    for log in ctx.survey.logs:
+        if log.room is not None:
+            continue
+        try:
+            samples = [s for s in log.samples
+                       if visit.started_at - DAYS_BEFORE <= s.at <= visit.started_at]
+        except TypeError:  # naive and aware times mixed
+            continue
+        if samples:
+            temps = [s.dry_bulb_c for s in samples]
+            rhs = [s.rh_pct for s in samples]
+            lines.append(rw.logger_before_text(log.source, len(samples), samples[0].at,
+                                               samples[-1].at, min(temps), max(temps),
+                                               min(rhs), max(rhs), ctx.d))
+    return lines
+
+
+def _air_row(name: str, state, d: words.Display) -> tuple[Cell, ...]:
+    point = state.condensation_point_c
+    return (Cell(name), Cell(d.temperature(state.dry_bulb_c), state.dry_bulb_c, "dry_bulb_c"),
+            Cell(rw.rh_text(state.rh_pct), state.rh_pct, "rh_pct"),
+            Cell(d.temperature(point), point, "condensation_point_c"),
+            Cell(d("humidity_ratio", state.humidity_ratio_kg_per_kg),
+                 state.humidity_ratio_kg_per_kg, "humidity_ratio_kg_per_kg"),
+            Cell(d("vapour_pressure", state.vapour_pressure_pa), state.vapour_pressure_pa,
+                 "vapour_pressure_pa"))
+
+
+def _visit(doc: Document, ctx: Context, index: int) -> None:
+    survey, d = ctx.survey, ctx.d
+    visit = survey.visits[index]
+    va = ctx.assessment(index)
+    doc.add(Heading(2, rw.visit_heading(index + 1, len(survey.visits), visit.label,
+                                        visit.started_at)))
+    doc.add(Heading(3, rw.HEADINGS["conditions"]))
+    lines = [rw.weather_text(visit.weather),
+             rw.pressure_text(va.findings.pressure_pa, _pressure_basis(survey, visit), d)]
+    doc.add(Para(" ".join(lines)))
+    for line in _logger_before(ctx, visit):
+        doc.add(Para(line))
+    rows = []
+    if va.findings.outdoor is not None:
+        rows.append(_air_row(rw.OUTDOORS, va.findings.outdoor, d))
+    else:
+        doc.add(Para(rw.outdoor_missing_text()))
+    for position, room_id in enumerate(va.room_ids):
+        if survey.room(room_id).is_reference:
+            f = va.findings.rooms[position]
+            rows.append(_air_row(rw.reference_room_name(f.name), f.air, d))
+    if rows:
+        doc.add(Table(rw.CONDITIONS_HEADER, tuple(rows), frozenset(range(1, 6)),
+                      name="conditions", visit=index + 1))
+    if visit.inspector.strip() and visit.inspector != survey.site.inspector:
+        doc.add(Para(visit.inspector, strong=rw.TITLE_LABELS["inspector"] + ":"))
+    if visit.notes.strip():
+        doc.add(Para(visit.notes, strong=rw.NOTES_LABELS["visit"] + ":", note=True))
+    if visit.photos:
+        doc.add(*photo_blocks(ctx, rw.visit_heading(index + 1, len(survey.visits), visit.label,
+                                                    visit.started_at), list(visit.photos)))
+    for position in range(len(va.room_ids)):
+        room_section(doc, ctx, va, position, 3)
+
+
+# --- safety, method --------------------------------------------------------------------------
+
+def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
+    d = ctx.d
+    several = len(shown) > 1
+    where: dict[object, list[str]] = {}
+    for index in shown:
+        va = ctx.assessment(index)
+        for advice in va.advice.rooms:
+            for caution in advice.cautions:
+                if caution.key == "closing":
+                    continue
+                place = f"{advice.room} (visit {index + 1})" if several else advice.room
+                where.setdefault(caution, [])
+                if place not in where[caution]:
+                    where[caution].append(place)
+    doc.add(Heading(2, rw.HEADINGS["safety"]))
+    if where:
+        doc.add(Para(rw.SAFETY_INTRO),
+                Items(tuple(("", rw.applies_to(words.caution_text(c, d), rooms))
+                            for c, rooms in where.items()),
+                      name="cautions", values=tuple(where)))
+    else:
+        doc.add(Para(rw.SAFETY_NONE))
+    doc.add(Para("", strong=rw.GENERAL_LEAD + ":"),
+            Items(tuple(("", text) for text in rw.GENERAL_CAUTIONS), name="general_cautions"),
+            Para(words.CLOSING_TEXT), Para(rw.DEFERRAL))
+
+
+def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
+    d = ctx.d
+    doc.add(Heading(2, rw.HEADINGS["method"]), Items(rw.METHOD_ITEMS))
+    keys: set[str] = set()
+    entered: dict[str, bool] = {}
+    worst = {"air_temp_k": 0.0, "rh_pct": 0.0, "surface_temp_k": 0.0}
+    for index in shown:
+        va = ctx.assessment(index)
+        keys.update(va.findings.threshold_keys)
+        for f, advice in zip(va.findings.rooms, va.advice.rooms):
+            keys.update(f.threshold_keys)
+            keys.update(advice.threshold_keys)
+            for s in f.surfaces:
+                keys.update(s.threshold_keys)
+            for m in f.materials:
+                keys.update(m.threshold_keys)
+            for name in worst:
+                worst[name] = max(worst[name], getattr(f.accuracy, name))
+        for key, value in va.accuracy_entered.items():
+            entered[key] = entered.get(key, True) and value
+    if shown:
+        doc.add(Para(rw.accuracy_method_text(entered, worst["air_temp_k"], worst["rh_pct"],
+                                             worst["surface_temp_k"], d)))
+    limits = th.cited(keys)
+    if limits:
+        doc.add(Heading(3, rw.HEADINGS["limits"]), Para(rw.LIMITS_INTRO),
+                Items(tuple(("", words.client_citation(t, d)) for t in limits),
+                      name="limits", values=tuple(limits)))
+        legend = words.legend(limits)
+        if legend:
+            doc.add(Items(tuple(("", line) for line in legend), name="legend"))

@@ -1,0 +1,280 @@
+"""The report's room sections and the drying-progress tables, laid out from a judged visit.
+
+Numbers come from the typed findings of :func:`survey.evaluate.assess_visit` and are written
+by :mod:`survey.words`; every table cell that shows a number keeps the SI value it shows and
+the name of the finding's field it came from (:class:`~survey.report.markdown.Cell`).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from pathlib import Path
+from urllib.parse import quote
+
+from survey import evaluate, model, words
+from survey.assess import RoomFinding
+from survey.advise import RoomAdvice
+from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
+from survey.words import report as rw
+
+_RIGHT_READING = frozenset({1})
+
+
+@dataclass
+class Context:
+    """What every section needs: the survey, the units, where photos and the report are."""
+
+    survey: model.Survey
+    d: words.Display
+    survey_dir: Path
+    report_dir: Path
+    visit_count: int
+    assessments: dict[int, evaluate.VisitAssessment] = field(default_factory=dict)
+
+    def assessment(self, index: int) -> evaluate.VisitAssessment:
+        if index not in self.assessments:
+            self.assessments[index] = evaluate.assess_visit(self.survey, index)
+        return self.assessments[index]
+
+
+def room_name(survey: model.Survey, room_id: str) -> str:
+    try:
+        return survey.room(room_id).name
+    except KeyError:
+        return room_id
+
+
+def _readings(ctx: Context, f: RoomFinding, room_id: str, visit: int) -> Table:
+    d = ctx.d
+    label = rw.READING_LABELS
+    point = f.air.condensation_point_c
+    rows = [
+        (label["air_temp"], Cell(d.temperature(f.air.dry_bulb_c), f.air.dry_bulb_c,
+                                 "air.dry_bulb_c")),
+        (label["rh"], Cell(rw.rh_text(f.air.rh_pct), f.air.rh_pct, "air.rh_pct")),
+        (label[rw.point_label(point)],
+         Cell(rw.with_band(d.temperature(point), d.difference(f.condensation_point_uncertainty_k)),
+              point, "air.condensation_point_c")),
+        (label["humidity_ratio"], Cell(d("humidity_ratio", f.air.humidity_ratio_kg_per_kg),
+                                       f.air.humidity_ratio_kg_per_kg,
+                                       "air.humidity_ratio_kg_per_kg")),
+    ]
+    if f.vapour_pressure_excess_pa is not None:
+        rows.append((label["excess"], Cell(
+            rw.with_band(d("vapour_pressure", f.vapour_pressure_excess_pa),
+                         d("vapour_pressure", f.vapour_pressure_excess_uncertainty_pa)),
+            f.vapour_pressure_excess_pa, "vapour_pressure_excess_pa")))
+    rows.append((label["class"], Cell(rw.class_text(f))))
+    limit = words.rh_limit_text(f)
+    if limit is not None and f.coldest is not None:
+        rows.append((label["max_rh"], Cell(
+            rw.max_rh_text(limit, f.coldest.label, d.temperature(f.coldest.surface_temp_c)),
+            f.max_room_rh_pct, "max_room_rh_pct")))
+    apart = f.coldest_glazing_or_pipe
+    if apart is not None and f.max_room_rh_pct_dry_glazing_or_pipe is not None:
+        rows.append((label["apart"], Cell(
+            rw.apart_text(apart.label, f.max_room_rh_pct_dry_glazing_or_pipe),
+            f.max_room_rh_pct_dry_glazing_or_pipe, "max_room_rh_pct_dry_glazing_or_pipe")))
+    rows.append((label["emc"], Cell(rw.emc_text(f.timber_emc_pct), f.timber_emc_pct,
+                                    "timber_emc_pct")))
+    a = f.accuracy
+    rows.append((label["accuracy"], Cell(rw.accuracy_used_text(
+        a.air_temp_k, a.rh_pct, a.surface_temp_k, d))))
+    return Table(rw.READINGS_HEADER, tuple((Cell(name), cell) for name, cell in rows),
+                 name="readings", room=room_id, visit=visit)
+
+
+def _surfaces(ctx: Context, f: RoomFinding, room_visit: model.RoomVisit, room_id: str,
+              visit: int) -> list:
+    d = ctx.d
+    if not f.surfaces:
+        return [Para(rw.NO_SURFACES)]
+    readings, judged = [], []
+    for s, reading in zip(f.surfaces, room_visit.surfaces):
+        readings.append((
+            Cell(s.label), Cell(words.ELEMENT_WORDS[s.element]), Cell(reading.material),
+            Cell(d.temperature(s.surface_temp_c), s.surface_temp_c, "surface_temp_c"),
+            Cell(words.surface_rh_text(s), s.surface_rh_pct, "surface_rh_pct"),
+            Cell(rw.margin_cell(s, d), s.margin_k, "margin_k"),
+            Cell(rw.factor_cell(s), s.temperature_factor, "temperature_factor"),
+        ))
+        judged.append((Cell(s.label), Cell(words.condensation_text(s)),
+                       Cell(words.mould_text(s)), Cell(words.factor_text(s, f, d))))
+    blocks: list = [
+        Table(rw.SURFACE_HEADER, tuple(readings), frozenset({3, 4, 5, 6}), name="surfaces",
+              room=room_id, visit=visit),
+        Table(rw.JUDGED_HEADER, tuple(judged), name="surfaces_judged", room=room_id,
+              visit=visit),
+    ]
+    if any("cannot_tell" in (s.condensation.value, s.mould.value,
+                             s.temperature_factor_state.value) for s in f.surfaces):
+        blocks.append(Para(words.CANNOT_TELL_EXPLAINED))
+    reason = words.factor_not_judged_reason(f, d)
+    if reason and any(s.temperature_factor_state.value == "not_judged" for s in f.surfaces):
+        blocks.append(Para(rw.factor_reason_text(reason)))
+    for reading in room_visit.surfaces:
+        if reading.notes.strip():
+            blocks.append(Para(reading.notes, strong=reading.location + ":", note=True))
+    return blocks
+
+
+def _materials(f: RoomFinding, room_id: str, visit: int) -> list:
+    if not f.materials:
+        return [Para(rw.NO_MATERIALS)]
+    rows = tuple((
+        Cell(m.label), Cell(m.material),
+        Cell(rw.reading_text(m.value, m.scale), m.value, "value"),
+        Cell(rw.dry_standard_text(m), m.dry_standard, "dry_standard"),
+        Cell(rw.against_text(m)),
+        Cell(rw.timber_text(m), m.emc_pct, "emc_pct"),
+    ) for m in f.materials)
+    return [Table(rw.MATERIAL_HEADER, rows, frozenset({2, 3}), name="materials", room=room_id,
+                  visit=visit),
+            Para(rw.DRY_STANDARD_BASIS)]
+
+
+def _seen(ctx: Context, room: model.Room | None, room_visit: model.RoomVisit) -> list:
+    obs = room_visit.observations
+    mould = obs.mould_visible or any(s.mould_visible for s in room_visit.surfaces)
+    condensation = obs.condensation_seen or any(s.condensation_seen
+                                                for s in room_visit.surfaces)
+    lines = rw.seen_lines(mould, obs.mould_area_m2, obs.staining, condensation, obs.odour,
+                          obs.water_category, room_visit.heating_on, room_visit.windows_open,
+                          ctx.d)
+    blocks: list = []
+    if lines:
+        blocks.append(Para(" ".join(lines)))
+    equipment = [("", rw.equipment_text(e.kind, e.label, e.running, e.capacity_l_per_day,
+                                        e.water_removed_l, ctx.d))
+                 for e in room_visit.equipment]
+    if equipment:
+        blocks.append(Items(tuple(equipment)))
+    for e in room_visit.equipment:
+        if e.notes.strip():
+            blocks.append(Para(e.notes, strong=(e.label or rw.EQUIPMENT_WORDS[e.kind]) + ":",
+                               note=True))
+    for key, text in (("room", room.notes if room is not None else ""),
+                      ("visit", room_visit.notes), ("seen", obs.notes)):
+        if text.strip():
+            blocks.append(Para(text, strong=rw.NOTES_LABELS[key] + ":", note=True))
+    return blocks or [Para(rw.NOTHING_SEEN)]
+
+
+def photo_blocks(ctx: Context, owner: str, names: list[str]) -> list:
+    """Each photo as an image linked by relative path, or a line saying it is missing."""
+    blocks: list = []
+    for name in names:
+        relative = name.replace("\\", "/")
+        path = ctx.survey_dir / relative
+        if not path.is_file():
+            blocks.append(Para(rw.photo_missing(name)))
+            continue
+        try:
+            link = Path(_relpath(path, ctx.report_dir)).as_posix()
+        except ValueError:  # another drive
+            link = path.resolve().as_posix()
+        blocks.append(Photo(rw.photo_caption(owner, name), quote(link, safe="/")))
+    return blocks
+
+
+def _relpath(path: Path, start: Path) -> str:
+    import os
+
+    return os.path.relpath(path.resolve(), start.resolve())
+
+
+def _actions(ctx: Context, f: RoomFinding, advice: RoomAdvice, room_id: str,
+             visit: int) -> list:
+    if not advice.actions:
+        return [Para(rw.NO_ACTIONS)]
+    items = tuple((words.action_title(a), words.action_reason(a, f, advice, ctx.d))
+                  for a in advice.actions)
+    return [Items(items, numbered=True, name="actions", room=room_id, visit=visit,
+                  values=advice.actions)]
+
+
+def room_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment, position: int,
+                 heading_level: int) -> None:
+    """One room of one visit: facts, readings, surfaces, materials, seen, photos, actions."""
+    f = va.findings.rooms[position]
+    advice = va.advice.rooms[position]
+    room_id = va.room_ids[position]
+    visit = va.visit_index + 1
+    room_visit = va.visit.room_visit(room_id)
+    try:
+        room: model.Room | None = ctx.survey.room(room_id)
+    except KeyError:
+        room = None
+    d = ctx.d
+    sub = heading_level + 1
+    doc.add(Heading(heading_level, rw.room_heading(f.name, bool(room and room.is_reference))))
+    if room is not None:
+        doc.add(Para(rw.room_facts(room.use, room.level, room.volume_estimate_m3(),
+                                   room.occupants, d)))
+    doc.add(Heading(sub, rw.HEADINGS["readings"]), _readings(ctx, f, room_id, visit))
+    doc.add(Heading(sub, rw.HEADINGS["surfaces"]),
+            *_surfaces(ctx, f, room_visit, room_id, visit))
+    if f.materials:
+        doc.add(Heading(sub, rw.HEADINGS["materials"]), *_materials(f, room_id, visit))
+    doc.add(Heading(sub, rw.HEADINGS["seen"]), *_seen(ctx, room, room_visit))
+    if room_visit.photos:
+        doc.add(Heading(sub, rw.HEADINGS["photos"]),
+                *photo_blocks(ctx, f.name, list(room_visit.photos)))
+    doc.add(Heading(sub, rw.HEADINGS["actions"]), *_actions(ctx, f, advice, room_id, visit))
+    cautions = [rw.CAUTION_NAMES[c.key] for c in advice.cautions if c.key != "closing"]
+    if cautions:
+        doc.add(Items((("", rw.room_cautions_text(cautions)),), name="room_cautions",
+                      room=room_id, visit=visit,
+                      values=tuple(c for c in advice.cautions if c.key != "closing")))
+
+
+# --- drying progress -------------------------------------------------------------------------
+
+def drying_section(doc: Document, ctx: Context) -> None:
+    """One table per room across every visit (only for a survey of several visits)."""
+    survey, d = ctx.survey, ctx.d
+    doc.add(Heading(2, rw.HEADINGS["drying"]), Para(rw.DRYING_INTRO))
+    for room in survey.rooms:
+        seen = [(i, v) for i, v in enumerate(survey.visits) if v.room_visit(room.id)]
+        if not seen:
+            continue
+        columns: dict[tuple[str, str, str], str] = {}
+        for _, visit in seen:
+            for m in visit.room_visit(room.id).materials:
+                if not m.dry_standard:
+                    key = (m.location, m.material, m.scale)
+                    columns.setdefault(key, rw.drying_column(m.location, m.material))
+        collected = any(e.water_removed_l is not None for _, v in seen
+                        for e in v.room_visit(room.id).equipment)
+        header = rw.DRYING_HEADER + tuple(columns.values()) + (
+            (rw.WATER_COLLECTED,) if collected else ())
+        rows = []
+        for index, visit in seen:
+            va = ctx.assessment(index)
+            room_visit = visit.room_visit(room.id)
+            finding = (va.findings.rooms[va.room_ids.index(room.id)]
+                       if room.id in va.room_ids else None)
+            cells = [Cell(str(index + 1)), Cell(rw.date_text(visit.started_at))]
+            if finding is None:
+                cells += [Cell(rw.NOT_MEASURED)] * 3
+            else:
+                air = finding.air
+                cells += [Cell(d.temperature(air.dry_bulb_c), air.dry_bulb_c, "air.dry_bulb_c"),
+                          Cell(rw.rh_text(air.rh_pct), air.rh_pct, "air.rh_pct"),
+                          Cell(d("humidity_ratio", air.humidity_ratio_kg_per_kg),
+                               air.humidity_ratio_kg_per_kg, "air.humidity_ratio_kg_per_kg")]
+            by_key = {(m.location, m.material, m.scale): m for m in room_visit.materials
+                      if not m.dry_standard}
+            for key in columns:
+                m = by_key.get(key)
+                cells.append(Cell("–") if m is None
+                             else Cell(rw.reading_text(m.value, m.scale), m.value, "value"))
+            if collected:
+                removed = [e.water_removed_l for e in room_visit.equipment
+                           if e.water_removed_l is not None]
+                cells.append(Cell(d.litres(sum(removed)), sum(removed), "water_removed_l")
+                             if removed else Cell("–"))
+            rows.append(tuple(cells))
+        right = frozenset(range(2, len(header)))
+        doc.add(Heading(3, room.name),
+                Table(header, tuple(rows), right, name="drying", room=room.id))
