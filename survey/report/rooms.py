@@ -118,9 +118,13 @@ def _surfaces(ctx: Context, f: RoomFinding, room_visit: model.RoomVisit, room_id
     return blocks
 
 
-def _materials(f: RoomFinding, room_id: str, visit: int) -> list:
+def _materials(f: RoomFinding, room_visit: model.RoomVisit, room_id: str, visit: int) -> list:
+    standards = [rw.dry_standard_reading(m.location, m.material, m.value, m.scale)
+                 for m in room_visit.materials if m.dry_standard]
+    notes = [Para(m.notes, strong=m.location + ":", note=True)
+             for m in room_visit.materials if m.notes.strip()]
     if not f.materials:
-        return [Para(rw.NO_MATERIALS)]
+        return [Para(rw.dry_standards_text(standards))] + notes if standards else notes
     rows = tuple((
         Cell(m.label), Cell(m.material),
         Cell(rw.reading_text(m.value, m.scale), m.value, "value"),
@@ -128,9 +132,11 @@ def _materials(f: RoomFinding, room_id: str, visit: int) -> list:
         Cell(rw.against_text(m)),
         Cell(rw.timber_text(m), m.emc_pct, "emc_pct"),
     ) for m in f.materials)
-    return [Table(rw.MATERIAL_HEADER, rows, frozenset({2, 3}), name="materials", room=room_id,
-                  visit=visit),
-            Para(rw.DRY_STANDARD_BASIS)]
+    blocks: list = [Table(rw.MATERIAL_HEADER, rows, frozenset({2, 3}), name="materials",
+                          room=room_id, visit=visit)]
+    if standards:
+        blocks.append(Para(rw.dry_standards_text(standards)))
+    return blocks + [Para(rw.DRY_STANDARD_BASIS)] + notes
 
 
 def _seen(ctx: Context, room: model.Room | None, room_visit: model.RoomVisit) -> list:
@@ -214,8 +220,9 @@ def room_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment, posi
     doc.add(Heading(sub, rw.HEADINGS["readings"]), _readings(ctx, f, room_id, visit))
     doc.add(Heading(sub, rw.HEADINGS["surfaces"]),
             *_surfaces(ctx, f, room_visit, room_id, visit))
-    if f.materials:
-        doc.add(Heading(sub, rw.HEADINGS["materials"]), *_materials(f, room_id, visit))
+    if room_visit.materials:
+        doc.add(Heading(sub, rw.HEADINGS["materials"]),
+                *_materials(f, room_visit, room_id, visit))
     doc.add(Heading(sub, rw.HEADINGS["seen"]), *_seen(ctx, room, room_visit))
     if room_visit.photos:
         doc.add(Heading(sub, rw.HEADINGS["photos"]),

@@ -357,6 +357,14 @@ def timber_text(m: MaterialFinding) -> str:
     return text
 
 
+def dry_standard_reading(location: str, material: str, value: float, scale: str) -> str:
+    return f"{location} ({material}) {reading_text(value, scale)}"
+
+
+def dry_standards_text(readings: Sequence[str]) -> str:
+    return "Dry-standard readings taken here: " + "; ".join(readings) + "."
+
+
 DRY_STANDARD_BASIS = ("The dry standard is a reading of the same material, on the same "
                       f"scale, in an unaffected part of the same room or of a reference room; "
                       f"a reading within {th.value('dry_standard_tolerance_fraction') * 100:.0f} "
