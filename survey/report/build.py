@@ -22,8 +22,8 @@ from survey.words import report as rw
 
 #: How far back an outdoor logger's samples count as "the days before" a visit.
 DAYS_BEFORE = dt.timedelta(hours=72)
-#: At most this many findings and actions in the summary.
-SUMMARY_MAX = 6
+#: At most this many surfaces of one room in the summary.
+SURFACES_IN_SUMMARY = 2
 
 
 @dataclass(frozen=True, slots=True)
@@ -74,7 +74,8 @@ def build(survey: model.Survey, options: ReportOptions = ReportOptions()) -> Doc
         drying_section(doc, ctx)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
-    doc.add(Heading(2, rw.HEADINGS["glossary"]), Items(rw.GLOSSARY))
+    doc.add(Heading(2, rw.HEADINGS["glossary"]),
+            Items(tuple((term + ":", text) for term, text in rw.GLOSSARY)))
     return doc
 
 
@@ -113,44 +114,55 @@ def _concern(surface) -> int:
 
 
 def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
+    """Per room, the worst findings in plain words; then each room's first actions with
+    their numbers."""
     doc.add(Heading(2, rw.HEADINGS["summary"]))
     if not shown:
         doc.add(Para(rw.NO_VISITS))
         return
     va = ctx.assessment(shown[-1])
     d = ctx.d
-    findings: list[str] = []
-    worst = []
+    found: list[tuple[str, str]] = []
     for f in va.findings.rooms:
-        worst += [(-_concern(s), s.surface_temp_c, f.name, s) for s in f.surfaces if _concern(s)]
-    worst.sort(key=lambda item: item[:2])
-    findings += [rw.surface_summary(name, s, words.short_verdict(s, d), d)
-                 for _, _, name, s in worst[:SUMMARY_MAX]]
-    for f in va.findings.rooms:
+        worst = sorted((s for s in f.surfaces if _concern(s)),
+                       key=lambda s: (-_concern(s), s.surface_temp_c))
+        lines = [rw.surface_summary(s, words.short_verdict(s, d), d)
+                 for s in worst[:SURFACES_IN_SUMMARY]]
+        if len(worst) > SURFACES_IN_SUMMARY:
+            lines.append(rw.more_surfaces_summary(len(worst) - SURFACES_IN_SUMMARY))
         obs = f.room.observations
         if obs.mould_seen:
-            findings.append(rw.mould_seen_summary(f.name, obs.visible_mould_area_m2, d))
+            lines.insert(0, rw.mould_seen_summary(obs.visible_mould_area_m2, d))
         wet = sum(m.dry_standard_state.value == "above_dry_standard" for m in f.materials)
         if wet:
-            findings.append(rw.wet_materials_summary(f.name, wet))
+            lines.append(rw.wet_materials_summary(wet))
         limit = words.rh_limit_text(f)
         if (limit is not None and f.max_room_rh_pct is not None
                 and f.air.rh_pct > f.max_room_rh_pct):
-            findings.append(rw.rh_summary(f.name, f, limit))
+            lines.append(rw.rh_summary(f, limit))
+        if lines:
+            found.append((rw.lead_in(f.name), " ".join(lines)))
     doc.add(Heading(3, rw.SUMMARY_FINDINGS))
-    doc.add(Items(tuple(("", text) for text in findings), name="summary_findings")
-            if findings else Para(rw.SUMMARY_NO_FINDINGS))
-    firsts = [(f.name, advice.actions[0])
-              for f, advice in zip(va.findings.rooms, va.advice.rooms) if advice.actions]
+    doc.add(Items(tuple(found), name="summary_findings") if found
+            else Para(rw.SUMMARY_NO_FINDINGS))
+    todo: list[tuple[str, str]] = []
+    said = []
+    for f, advice in zip(va.findings.rooms, va.advice.rooms):
+        if not advice.actions:
+            continue
+        first = [advice.actions[0]]
+        numbered = next((a for a in advice.actions if words.action_numbers(a, d)), None)
+        if numbered is not None and numbered is not first[0]:
+            first.append(numbered)
+        said += first
+        todo.append((rw.lead_in(f.name), rw.action_summary(
+            [(words.action_title(a), words.action_numbers(a, d)) for a in first])))
     doc.add(Heading(3, rw.SUMMARY_ACTIONS))
-    if not firsts:
+    if not todo:
         doc.add(Para(rw.SUMMARY_NO_ACTIONS))
         return
-    items = tuple(("", rw.action_summary(name, words.action_title(a),
-                                         words.action_numbers(a, d)))
-                  for name, a in firsts[:SUMMARY_MAX])
-    doc.add(Items(items, numbered=True, name="summary_actions",
-                  values=tuple(a for _, a in firsts[:SUMMARY_MAX])), Para(rw.SUMMARY_MORE))
+    doc.add(Items(tuple(todo), name="summary_actions", values=tuple(said)),
+            Para(rw.SUMMARY_MORE))
 
 
 # --- scope and instruments -------------------------------------------------------------------
@@ -295,7 +307,8 @@ def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
 
 def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
-    doc.add(Heading(2, rw.HEADINGS["method"]), Items(rw.METHOD_ITEMS))
+    doc.add(Heading(2, rw.HEADINGS["method"]),
+            Items(tuple((rw.lead_in(name), text) for name, text in rw.METHOD_ITEMS)))
     keys: set[str] = set()
     entered: dict[str, bool] = {}
     worst = {"air_temp_k": 0.0, "rh_pct": 0.0, "surface_temp_k": 0.0}

@@ -32,6 +32,7 @@ from __future__ import annotations
 
 import re
 from dataclasses import dataclass, field
+from functools import lru_cache
 from typing import Union
 
 from survey.safe_text import visible
@@ -42,8 +43,8 @@ _INLINE = re.compile(r"([\\`*_\[\]<>|&~$])")
 _LEADING = re.compile(r"^(#|[-+=](?=[\s+=-]|$)|\d{1,9}[.)](?=\s|$))")
 
 
-def escape(text: object) -> str:
-    """``text`` as Markdown inline text that shows exactly as written (one line)."""
+@lru_cache(maxsize=4096)
+def _escape_str(text: str) -> str:
     shown = visible(text).strip()
     shown = _INLINE.sub(r"\\\1", shown)
     match = _LEADING.match(shown)
@@ -51,6 +52,11 @@ def escape(text: object) -> str:
         mark = match.group(1)
         shown = (mark[:-1] + "\\" + mark[-1]) + shown[len(mark):]
     return shown
+
+
+def escape(text: object) -> str:
+    """``text`` as Markdown inline text that shows exactly as written (one line)."""
+    return _escape_str(text if text.__class__ is str else str(text))
 
 
 def escape_lines(text: object) -> list[str]:
@@ -101,6 +107,10 @@ class Para:
     text: str
     strong: str = ""
     note: bool = False  #: a person's multi-line note: its line breaks are kept
+    name: str = ""
+    room: str = ""
+    visit: int | None = None
+    values: tuple[object, ...] = ()  #: the typed records the paragraph says
 
 
 @dataclass(frozen=True, slots=True)

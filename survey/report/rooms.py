@@ -193,7 +193,7 @@ def _actions(ctx: Context, f: RoomFinding, advice: RoomAdvice, room_id: str,
              visit: int) -> list:
     if not advice.actions:
         return [Para(rw.NO_ACTIONS)]
-    items = tuple((words.action_title(a), words.action_reason(a, f, advice, ctx.d))
+    items = tuple((rw.lead_in(words.action_title(a)), words.action_reason(a, f, advice, ctx.d))
                   for a in advice.actions)
     return [Items(items, numbered=True, name="actions", room=room_id, visit=visit,
                   values=advice.actions)]
@@ -230,9 +230,9 @@ def room_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment, posi
     doc.add(Heading(sub, rw.HEADINGS["actions"]), *_actions(ctx, f, advice, room_id, visit))
     cautions = [rw.CAUTION_NAMES[c.key] for c in advice.cautions if c.key != "closing"]
     if cautions:
-        doc.add(Items((("", rw.room_cautions_text(cautions)),), name="room_cautions",
-                      room=room_id, visit=visit,
-                      values=tuple(c for c in advice.cautions if c.key != "closing")))
+        doc.add(Para(rw.room_cautions_text(cautions), name="room_cautions",
+                     room=room_id, visit=visit,
+                     values=tuple(c for c in advice.cautions if c.key != "closing")))
 
 
 # --- drying progress -------------------------------------------------------------------------
@@ -250,7 +250,7 @@ def drying_section(doc: Document, ctx: Context) -> None:
             for m in visit.room_visit(room.id).materials:
                 if not m.dry_standard:
                     key = (m.location, m.material, m.scale)
-                    columns.setdefault(key, rw.drying_column(m.location, m.material))
+                    columns.setdefault(key, rw.drying_column(m.location, m.material, m.scale))
         collected = any(e.water_removed_l is not None for _, v in seen
                         for e in v.room_visit(room.id).equipment)
         header = rw.DRYING_HEADER + tuple(columns.values()) + (
@@ -275,7 +275,7 @@ def drying_section(doc: Document, ctx: Context) -> None:
             for key in columns:
                 m = by_key.get(key)
                 cells.append(Cell("–") if m is None
-                             else Cell(rw.reading_text(m.value, m.scale), m.value, "value"))
+                             else Cell(rw.drying_cell(m.value), m.value, "value"))
             if collected:
                 removed = [e.water_removed_l for e in room_visit.equipment
                            if e.water_removed_l is not None]

@@ -169,29 +169,36 @@ SUMMARY_NO_ACTIONS = "Nothing needs doing from these readings."
 SUMMARY_MORE = "More in each room's section below."
 
 
-def surface_summary(room: str, surface: SurfaceFinding, verdict: str, d: Display) -> str:
-    return f"{room}, {surface.label} ({d.temperature(surface.surface_temp_c)}): {verdict}."
+def surface_summary(surface: SurfaceFinding, verdict: str, d: Display) -> str:
+    return f"{surface.label} ({d.temperature(surface.surface_temp_c)}): {verdict}."
 
 
-def mould_seen_summary(room: str, area_m2: float, d: Display) -> str:
+def more_surfaces_summary(count: int) -> str:
+    return f"{count} more surface{'s' if count != 1 else ''} of concern in the room's section."
+
+
+def mould_seen_summary(area_m2: float, d: Display) -> str:
     if area_m2 > 0.0:
-        return f"{room}: visible mould, about {d.area(area_m2)}."
-    return f"{room}: visible mould (area not measured)."
+        return f"Visible mould, about {d.area(area_m2)}."
+    return "Visible mould (area not measured)."
 
 
-def wet_materials_summary(room: str, count: int) -> str:
-    return (f"{room}: {count} material reading{'s' if count != 1 else ''} above the dry "
-            f"standard.")
+def wet_materials_summary(count: int) -> str:
+    return f"{count} material reading{'s' if count != 1 else ''} above the dry standard."
 
 
-def rh_summary(room: str, finding: RoomFinding, limit_text: str) -> str:
-    return (f"{room}: the room is at {finding.air.rh_pct:.0f} % RH; the highest it can be "
-            f"held at without mould or condensation risk on its coldest wall, ceiling or "
-            f"floor is {limit_text}.")
+def rh_summary(finding: RoomFinding, limit_text: str) -> str:
+    return (f"The room is at {finding.air.rh_pct:.0f} % RH; the highest it can be held at "
+            f"without mould or condensation risk on its coldest wall, ceiling or floor is "
+            f"{limit_text}.")
 
 
-def action_summary(room: str, title_text: str, numbers: str) -> str:
-    return f"{room}: {title_text}" + (f", {numbers}." if numbers else ".")
+def action_summary(parts: Sequence[tuple[str, str]]) -> str:
+    """The room's first actions, each with its headline number: 'Find the moisture source;
+    then Ventilate, about 21 m³/h (0.8 air changes an hour).'"""
+    said = [(title_text if i == 0 else title_text[:1].lower() + title_text[1:])
+            + (f", {numbers}" if numbers else "") for i, (title_text, numbers) in enumerate(parts)]
+    return sentence("; then ".join(said))
 
 
 # --- conditions ------------------------------------------------------------------------------
@@ -205,8 +212,19 @@ def reference_room_name(name: str) -> str:
     return f"{name} (reference room)"
 
 
+def sentence(text: str) -> str:
+    """``text`` ending with a full stop (unless it already ends a sentence)."""
+    text = text.strip()
+    return text if not text or text[-1] in ".!?" else text + "."
+
+
+def lead_in(title_text: str) -> str:
+    """A bold lead-in before a paragraph: an action's title, a term, a method's name."""
+    return sentence(title_text)
+
+
 def weather_text(weather: str) -> str:
-    return f"Weather: {weather}" if weather.strip() else "Weather: not recorded."
+    return sentence(f"Weather: {weather}") if weather.strip() else "Weather: not recorded."
 
 
 def pressure_text(pressure_pa: float, basis: str, d: Display) -> str:
@@ -436,6 +454,9 @@ def room_cautions_text(names: Sequence[str]) -> str:
     return ("Safety for this room (see Safety below): " + "; ".join(names) + ".")
 
 
+SAFETY_LEAD = "Safety"
+
+
 #: A short name for each caution, for the room's pointer to the Safety section.
 CAUTION_NAMES = {
     "visible_mould": "visible mould", "mould_if_visible": "mould if seen",
@@ -455,8 +476,15 @@ WATER_COLLECTED = "Water collected"
 NOT_MEASURED = "not measured"
 
 
-def drying_column(location: str, material: str) -> str:
-    return f"{location} ({material})"
+_SCALE_SHORT = {"mc_pct": "% MC", "wme_pct": "% WME", "relative": "relative scale"}
+
+
+def drying_column(location: str, material: str, scale: str) -> str:
+    return f"{location} ({material}, {_SCALE_SHORT[scale]})"
+
+
+def drying_cell(value: float) -> str:
+    return f"{value:g}"
 
 
 # --- safety ----------------------------------------------------------------------------------
