@@ -15,8 +15,8 @@ from __future__ import annotations
 import datetime as dt
 
 import psychrolib
-
 from common import Result, interleaved_best
+
 from survey import model, report
 
 ROOMS = 1_000
@@ -75,7 +75,7 @@ def run() -> list[Result]:
     def ours_html():
         return report.html_report(survey, options)
 
-    base = lambda: _baseline(survey)  # noqa: E731
+    base = lambda: _baseline(survey)
     md_s, base_s = interleaved_best(ours, base, repeat=2)
     html_s, base2_s = interleaved_best(ours_html, base, repeat=1)
     return [

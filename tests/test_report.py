@@ -15,7 +15,7 @@ from markdown_it import MarkdownIt
 
 from survey import evaluate, report, store, words
 from survey import thresholds as th
-from survey.report.markdown import Items, Para, Table
+from survey.report.markdown import Items, Table
 from survey.words import report as rw
 
 ROOT = Path(__file__).resolve().parents[1]

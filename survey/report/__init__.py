@@ -23,12 +23,12 @@ __all__ = ["Document", "ReportOptions", "build", "escape", "html_report", "markd
            "render", "selected_visits"]
 
 
-def markdown_report(survey: model.Survey, options: ReportOptions = ReportOptions()) -> str:
+def markdown_report(survey: model.Survey, options: ReportOptions | None = None) -> str:
     """The report of ``survey`` as Markdown text."""
     return render(build(survey, options))
 
 
-def html_report(survey: model.Survey, options: ReportOptions = ReportOptions()) -> str:
+def html_report(survey: model.Survey, options: ReportOptions | None = None) -> str:
     """The report of ``survey`` as one HTML page (rendered from the same Markdown)."""
     from survey.report.html import to_html
 

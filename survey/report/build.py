@@ -17,7 +17,7 @@ from survey import thresholds as th
 from survey.assess import CondensationState, FactorState, MouldState
 from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
-from survey.report.rooms import Context, drying_section, photo_blocks, room_name, room_section
+from survey.report.rooms import Context, drying_section, photo_blocks, room_section
 from survey.words import report as rw
 
 #: How far back an outdoor logger's samples count as "the days before" a visit.
@@ -57,8 +57,9 @@ def selected_visits(survey: model.Survey, visit: int | str) -> list[int]:
     return [visit - 1]
 
 
-def build(survey: model.Survey, options: ReportOptions = ReportOptions()) -> Document:
+def build(survey: model.Survey, options: ReportOptions | None = None) -> Document:
     """The report of ``survey`` as a :class:`~survey.report.markdown.Document`."""
+    options = options or ReportOptions()
     d = words.Display(options.units or survey.site.unit_system)
     shown = selected_visits(survey, options.visit)
     ctx = Context(survey, d, options.survey_dir, options.report_dir, len(survey.visits))
@@ -75,7 +76,7 @@ def build(survey: model.Survey, options: ReportOptions = ReportOptions()) -> Doc
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
     doc.add(Heading(2, rw.HEADINGS["glossary"]),
-            Items(tuple((term + ":", text) for term, text in rw.GLOSSARY)))
+            Items(tuple((term + ":", text) for term, text in rw.glossary(d))))
     return doc
 
 
@@ -100,16 +101,23 @@ def _title_block(doc: Document, ctx: Context, shown: list[int]) -> None:
 
 # --- summary ---------------------------------------------------------------------------------
 
-_CONDENSATION_RANK = {CondensationState.CONDENSING: 3, CondensationState.CANNOT_TELL: 2,
-                      CondensationState.NEAR: 1}
-_MOULD_RANK = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
-
-
 def _concern(surface) -> int:
-    """How much a surface matters for the summary (0: not at all)."""
-    rank = _CONDENSATION_RANK.get(surface.condensation, 0) + _MOULD_RANK.get(surface.mould, 0)
+    """How much a surface matters for the summary: water or frost forming (or possibly),
+    mould limit passed (or possibly), the temperature factor under its limit; 0 for a
+    surface only near a limit."""
+    rank = 0
+    condensation, mould = surface.condensation, surface.mould
+    if condensation is CondensationState.CONDENSING:
+        rank += 3
+    elif (condensation is CondensationState.CANNOT_TELL
+          and CondensationState.CONDENSING in surface.condensation_possible):
+        rank += 2
+    if mould is MouldState.ABOVE:
+        rank += 3
+    elif mould is MouldState.CANNOT_TELL and MouldState.ABOVE in surface.mould_possible:
+        rank += 2
     if surface.temperature_factor_state is FactorState.UNDER:
-        rank += 1
+        rank += 2
     return rank
 
 
@@ -122,6 +130,10 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
         return
     va = ctx.assessment(shown[-1])
     d = ctx.d
+    if len(ctx.survey.visits) > 1:
+        visit = ctx.survey.visits[shown[-1]]
+        doc.add(Para(rw.summary_as_of(rw.visit_heading(shown[-1] + 1, len(ctx.survey.visits),
+                                                       visit.label, visit.started_at))))
     found: list[tuple[str, str]] = []
     for f in va.findings.rooms:
         worst = sorted((s for s in f.surfaces if _concern(s)),
@@ -173,10 +185,10 @@ def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
     for index in shown:
         visit = survey.visits[index]
         va = ctx.assessment(index)
-        measured = [room_name(survey, r) for r in va.room_ids]
-        visited = {rv.room for rv in visit.rooms}
-        unmeasured = [room_name(survey, rv.room) for rv in visit.rooms
-                      if rv.room not in va.room_ids]
+        measured = [ctx.room_name(r) for r in va.room_ids]
+        visited = ctx.room_visits(index)
+        unmeasured = [ctx.room_name(rv.room) for rv in visit.rooms
+                      if ctx.position(index, rv.room) is None]
         lines = [rw.rooms_entered_text(measured)]
         if unmeasured:
             lines.append(rw.rooms_not_measured_text(unmeasured))
@@ -259,7 +271,8 @@ def _visit(doc: Document, ctx: Context, index: int) -> None:
     else:
         doc.add(Para(rw.outdoor_missing_text()))
     for position, room_id in enumerate(va.room_ids):
-        if survey.room(room_id).is_reference:
+        room = ctx.rooms.get(room_id)
+        if room is not None and room.is_reference:
             f = va.findings.rooms[position]
             rows.append(_air_row(rw.reference_room_name(f.name), f.air, d))
     if rows:
@@ -308,7 +321,7 @@ def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
 def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
     doc.add(Heading(2, rw.HEADINGS["method"]),
-            Items(tuple((rw.lead_in(name), text) for name, text in rw.METHOD_ITEMS)))
+            Items(tuple((rw.lead_in(name), text) for name, text in rw.method_items(d))))
     keys: set[str] = set()
     entered: dict[str, bool] = {}
     worst = {"air_temp_k": 0.0, "rh_pct": 0.0, "surface_temp_k": 0.0}

@@ -12,8 +12,8 @@ from pathlib import Path
 from urllib.parse import quote
 
 from survey import evaluate, model, words
-from survey.assess import RoomFinding
 from survey.advise import RoomAdvice
+from survey.assess import RoomFinding
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.words import report as rw
 
@@ -30,18 +30,33 @@ class Context:
     report_dir: Path
     visit_count: int
     assessments: dict[int, evaluate.VisitAssessment] = field(default_factory=dict)
+    rooms: dict[str, model.Room] = field(default_factory=dict)  #: by id
+    _room_visits: dict[int, dict[str, model.RoomVisit]] = field(default_factory=dict)
+    _positions: dict[int, dict[str, int]] = field(default_factory=dict)
+
+    def __post_init__(self) -> None:
+        self.rooms = {room.id: room for room in self.survey.rooms}
 
     def assessment(self, index: int) -> evaluate.VisitAssessment:
         if index not in self.assessments:
             self.assessments[index] = evaluate.assess_visit(self.survey, index)
         return self.assessments[index]
 
+    def room_visits(self, index: int) -> dict[str, model.RoomVisit]:
+        """The rooms seen on visit ``index``, by room id."""
+        if index not in self._room_visits:
+            self._room_visits[index] = {rv.room: rv for rv in self.survey.visits[index].rooms}
+        return self._room_visits[index]
 
-def room_name(survey: model.Survey, room_id: str) -> str:
-    try:
-        return survey.room(room_id).name
-    except KeyError:
-        return room_id
+    def position(self, index: int, room_id: str) -> int | None:
+        """Where the room's finding is in visit ``index``'s assessment (None: not judged)."""
+        if index not in self._positions:
+            self._positions[index] = {r: i for i, r in enumerate(self.assessment(index).room_ids)}
+        return self._positions[index].get(room_id)
+
+    def room_name(self, room_id: str) -> str:
+        room = self.rooms.get(room_id)
+        return room.name if room is not None else room_id
 
 
 def _readings(ctx: Context, f: RoomFinding, room_id: str, visit: int) -> Table:
@@ -61,9 +76,8 @@ def _readings(ctx: Context, f: RoomFinding, room_id: str, visit: int) -> Table:
     ]
     if f.vapour_pressure_excess_pa is not None:
         rows.append((label["excess"], Cell(
-            rw.with_band(d("vapour_pressure", f.vapour_pressure_excess_pa),
-                         d("vapour_pressure", f.vapour_pressure_excess_uncertainty_pa)),
-            f.vapour_pressure_excess_pa, "vapour_pressure_excess_pa")))
+            rw.excess_text(f.vapour_pressure_excess_pa, f.vapour_pressure_excess_uncertainty_pa,
+                           d), f.vapour_pressure_excess_pa, "vapour_pressure_excess_pa")))
     rows.append((label["class"], Cell(rw.class_text(f))))
     limit = words.rh_limit_text(f)
     if limit is not None and f.coldest is not None:
@@ -109,9 +123,6 @@ def _surfaces(ctx: Context, f: RoomFinding, room_visit: model.RoomVisit, room_id
     if any("cannot_tell" in (s.condensation.value, s.mould.value,
                              s.temperature_factor_state.value) for s in f.surfaces):
         blocks.append(Para(words.CANNOT_TELL_EXPLAINED))
-    reason = words.factor_not_judged_reason(f, d)
-    if reason and any(s.temperature_factor_state.value == "not_judged" for s in f.surfaces):
-        blocks.append(Para(rw.factor_reason_text(reason)))
     for reading in room_visit.surfaces:
         if reading.notes.strip():
             blocks.append(Para(reading.notes, strong=reading.location + ":", note=True))
@@ -206,11 +217,8 @@ def room_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment, posi
     advice = va.advice.rooms[position]
     room_id = va.room_ids[position]
     visit = va.visit_index + 1
-    room_visit = va.visit.room_visit(room_id)
-    try:
-        room: model.Room | None = ctx.survey.room(room_id)
-    except KeyError:
-        room = None
+    room_visit = ctx.room_visits(va.visit_index)[room_id]
+    room = ctx.rooms.get(room_id)
     d = ctx.d
     sub = heading_level + 1
     doc.add(Heading(heading_level, rw.room_heading(f.name, bool(room and room.is_reference))))
@@ -242,25 +250,25 @@ def drying_section(doc: Document, ctx: Context) -> None:
     survey, d = ctx.survey, ctx.d
     doc.add(Heading(2, rw.HEADINGS["drying"]), Para(rw.DRYING_INTRO))
     for room in survey.rooms:
-        seen = [(i, v) for i, v in enumerate(survey.visits) if v.room_visit(room.id)]
+        seen = [(i, v, ctx.room_visits(i)[room.id]) for i, v in enumerate(survey.visits)
+                if room.id in ctx.room_visits(i)]
         if not seen:
             continue
         columns: dict[tuple[str, str, str], str] = {}
-        for _, visit in seen:
-            for m in visit.room_visit(room.id).materials:
+        for _, _, room_visit in seen:
+            for m in room_visit.materials:
                 if not m.dry_standard:
                     key = (m.location, m.material, m.scale)
                     columns.setdefault(key, rw.drying_column(m.location, m.material, m.scale))
-        collected = any(e.water_removed_l is not None for _, v in seen
-                        for e in v.room_visit(room.id).equipment)
+        collected = any(e.water_removed_l is not None for _, _, rv in seen
+                        for e in rv.equipment)
         header = rw.DRYING_HEADER + tuple(columns.values()) + (
             (rw.WATER_COLLECTED,) if collected else ())
         rows = []
-        for index, visit in seen:
-            va = ctx.assessment(index)
-            room_visit = visit.room_visit(room.id)
-            finding = (va.findings.rooms[va.room_ids.index(room.id)]
-                       if room.id in va.room_ids else None)
+        for index, visit, room_visit in seen:
+            position = ctx.position(index, room.id)
+            finding = (None if position is None
+                       else ctx.assessment(index).findings.rooms[position])
             cells = [Cell(str(index + 1)), Cell(rw.date_text(visit.started_at))]
             if finding is None:
                 cells += [Cell(rw.NOT_MEASURED)] * 3

@@ -16,8 +16,13 @@ from survey import psychro
 from survey import thresholds as th
 from survey.assess import MaterialFinding, RoomFinding, SurfaceFinding
 from survey.words.display import Display, round_down_rh
-from survey.words.states import (DRY_STANDARD_WORDS, TIMBER_WORDS, USE_PHRASE,
-                                 humidity_class_range_text, humidity_class_text)
+from survey.words.states import (
+    DRY_STANDARD_WORDS,
+    TIMBER_WORDS,
+    USE_PHRASE,
+    humidity_class_range_text,
+    humidity_class_text,
+)
 
 HEADINGS = {
     "summary": "In short",
@@ -161,6 +166,11 @@ NO_VISITS = "No visit has been recorded in this survey yet, so there are no find
 
 # --- summary ---------------------------------------------------------------------------------
 
+def summary_as_of(heading: str) -> str:
+    """Which visit the summary describes, when the survey has several."""
+    return f"As found on the last visit this report covers ({heading})."
+
+
 SUMMARY_FINDINGS = "What was found"
 SUMMARY_ACTIONS = "What matters most"
 SUMMARY_NO_FINDINGS = ("No measured surface is condensing, near the dew point or at the "
@@ -258,7 +268,8 @@ def room_facts(use: str, level: int, volume_m3: float | None, occupants: int,
     phrase = USE_PHRASE.get(use) or "a room of unstated use"
     parts = [f"Used as {phrase}", f"level {level}"]
     parts.append("volume not given" if volume_m3 is None else f"volume {d('volume', volume_m3)}")
-    parts.append(f"{occupants} usual occupant{'s' if occupants != 1 else ''}")
+    parts.append("no usual occupants" if occupants == 0
+                 else f"{occupants} usual occupant{'s' if occupants != 1 else ''}")
     return "; ".join(parts) + "."
 
 
@@ -266,7 +277,7 @@ READINGS_HEADER = ("Reading", "Value")
 READING_LABELS = {
     "air_temp": "Air temperature", "rh": "Relative humidity",
     "dew_point": "Dew point", "frost_point": "Frost point",
-    "humidity_ratio": "Humidity ratio", "excess": "Vapour pressure above outdoors",
+    "humidity_ratio": "Humidity ratio", "excess": "Vapour pressure against outdoors",
     "class": "Humidity class (EN ISO 13788)", "max_rh": "Highest safe room RH",
     "apart": "Glazing, frames and pipes", "emc": "Timber in this air settles at",
     "accuracy": "Instrument accuracy used",
@@ -285,6 +296,13 @@ def point_label(point_c: float) -> str:
 
 def with_band(value: str, band: str) -> str:
     return f"{value} ± {band}"
+
+
+def excess_text(excess_pa: float, band_pa: float, d: Display) -> str:
+    """'840 Pa more than outdoors (± 60 Pa)', or 'less than' when the room air is drier."""
+    more = "more" if excess_pa >= 0.0 else "less"
+    return (f"{d('vapour_pressure', abs(excess_pa))} {more} than outdoors "
+            f"(± {d('vapour_pressure', band_pa)})")
 
 
 def class_text(finding: RoomFinding) -> str:
@@ -317,10 +335,6 @@ def emc_text(emc_pct: float) -> str:
 def accuracy_used_text(air_k: float, rh_pct: float, surface_k: float, d: Display) -> str:
     return (f"air ±{d.difference(air_k)}, RH ±{rh_pct:g} %, surface "
             f"±{d.difference(surface_k)}")
-
-
-def factor_reason_text(reason: str) -> str:
-    return f"Temperature factor: not judged on this visit — {reason}."
 
 
 SURFACE_HEADER = ("Surface", "Kind", "Material", "Temperature", "Surface RH",
@@ -514,34 +528,37 @@ def applies_to(text: str, rooms: Sequence[str]) -> str:
 
 # --- method ----------------------------------------------------------------------------------
 
-METHOD_ITEMS = (
-    ("Moist air", "Dew point, frost point, humidity ratio and vapour pressure are worked "
-     "out from each air temperature and relative humidity with psychrolib, which follows "
-     "ASHRAE Handbook Fundamentals (2017) ch. 1, at the air pressure stated for the visit."),
-    ("Humidity below 0 °C", "Hygrometers report relative humidity relative to liquid water "
-     "at every temperature (the meteorological convention), and so does this report. Below "
-     "0 °C the condensation point is the frost point, and a surface below 0 °C is judged "
-     "against ice, because frost is what forms there."),
-    ("Surface RH", "The relative humidity the room air has where it touches a surface: the "
-     "room air's vapour pressure divided by the saturation vapour pressure at the surface "
-     "temperature. 100 % or more means water (or frost) is forming."),
-    ("Temperature factor", "fRsi = (surface − outdoor) / (indoor − outdoor), from EN ISO "
-     "13788 and BRE IP1/06; judged only for walls, ceilings and floors of heated rooms, and "
-     "only when inside and outside differ by enough for one reading to mean something."),
-    ("Humidity class", "The room air's vapour pressure above outdoors, against the classes "
-     "of EN ISO 13788 Annex A; the classes are defined for monthly means, so one reading is "
-     "a guide."),
-    ("Timber", "The moisture content timber settles at in the room air, from the USDA FPL "
-     "Wood Handbook eqn 4-5."),
-    ("Uncertainty", "Each instrument's ± accuracy is read as a rectangular distribution "
-     "(standard uncertainty a/√3); the effects are combined to first order following the "
-     "GUM (JCGM 100:2008), and every ± and range shown is an expanded uncertainty with "
-     "coverage factor 2 (about 95 %). Where a limit lies inside that range the report says "
-     "the state is unclear at this accuracy rather than guess."),
-    ("Spot readings", "A reading is a snapshot of one moment, not a season: the limits of "
-     "mould growth and humidity classes are defined for averages over days or months. "
-     "Repeated readings or a data logger over a week or two say more."),
-)
+def method_items(d: Display) -> tuple[tuple[str, str], ...]:
+    """The method, item by item (name, text); temperatures in ``d``'s units."""
+    zero = d.temperature(0.0, 0)
+    return (
+        ("Moist air", "Dew point, frost point, humidity ratio and vapour pressure are worked "
+         "out from each air temperature and relative humidity with psychrolib, which follows "
+         "ASHRAE Handbook Fundamentals (2017) ch. 1, at the air pressure stated for the visit."),
+        (f"Humidity below {zero}", "Hygrometers report relative humidity relative to liquid water "
+         "at every temperature (the meteorological convention), and so does this report. Below "
+         f"{zero} the condensation point is the frost point, and a surface below {zero} is judged "
+         "against ice, because frost is what forms there."),
+        ("Surface RH", "The relative humidity the room air has where it touches a surface: the "
+         "room air's vapour pressure divided by the saturation vapour pressure at the surface "
+         "temperature. 100 % or more means water (or frost) is forming."),
+        ("Temperature factor", "fRsi = (surface − outdoor) / (indoor − outdoor), from EN ISO "
+         "13788 and BRE IP1/06; judged only for walls, ceilings and floors of heated rooms, and "
+         "only when inside and outside differ by enough for one reading to mean something."),
+        ("Humidity class", "The room air's vapour pressure above outdoors, against the classes "
+         "of EN ISO 13788 Annex A; the classes are defined for monthly means, so one reading is "
+         "a guide."),
+        ("Timber", "The moisture content timber settles at in the room air, from the USDA FPL "
+         "Wood Handbook eqn 4-5."),
+        ("Uncertainty", "Each instrument's ± accuracy is read as a rectangular distribution "
+         "(standard uncertainty a/√3); the effects are combined to first order following the "
+         "GUM (JCGM 100:2008), and every ± and range shown is an expanded uncertainty with "
+         "coverage factor 2 (about 95 %). Where a limit lies inside that range the report says "
+         "the state is unclear at this accuracy rather than guess."),
+        ("Spot readings", "A reading is a snapshot of one moment, not a season: the limits of "
+         "mould growth and humidity classes are defined for averages over days or months. "
+         "Repeated readings or a data logger over a week or two say more."),
+    )
 
 
 def accuracy_method_text(entered: dict[str, bool], air_k: float, rh_pct: float,
@@ -566,34 +583,37 @@ LIMITS_INTRO = "Every limit behind the findings, with its source:"
 
 # --- glossary --------------------------------------------------------------------------------
 
-GLOSSARY = (
-    ("Relative humidity (RH)", "how much water vapour the air holds, as a percentage of the "
-     "most it could hold at its temperature."),
-    ("Dew point", "the temperature at which the air's water vapour starts to condense into "
-     "water; below 0 °C the frost point, where frost forms."),
-    ("Surface RH", "the relative humidity of the air right at a surface; mould can grow when "
-     f"it stays above about {th.value('surface_rh_mould_limit_pct'):.0f} % for days."),
-    ("Margin to dew/frost point", "how far a surface is above the temperature at which water "
-     "or frost would form on it."),
-    ("Humidity ratio", "the mass of water vapour in each kilogram of dry air (g/kg, or grains "
-     "per pound); it does not change when air warms or cools, so it compares rooms and "
-     "visits fairly."),
-    ("Vapour pressure", "the part of the air pressure due to water vapour; more indoors than "
-     "outdoors means moisture is being added inside."),
-    ("Temperature factor (fRsi)", "how warm a surface stays compared with the inside and "
-     "outside air: 1 is as warm as the room, 0 as cold as outdoors."),
-    ("Humidity class", "a band of indoor moisture production, from dry storage (class 1) to "
-     "laundries and pools (class 5)."),
-    ("Dry standard", "a moisture reading of the same material in an unaffected area: the "
-     "goal a wet material is dried to."),
-    ("Moisture content (MC)", "the water in timber as a percentage of its dry weight; decay "
-     f"fungi need about {th.value('timber_decay_mc_pct'):.0f} % or more, mould grows from "
-     f"about {th.value('timber_mould_mc_pct'):.0f} %."),
-    ("Air changes an hour", "how many times an hour the room's volume of air is replaced by "
-     "outdoor air."),
-    ("Expanded uncertainty", "the range, about 95 % sure, within which the true value lies, "
-     "given the instruments' accuracy."),
-)
+def glossary(d: Display) -> tuple[tuple[str, str], ...]:
+    """The trade terms the report uses, with short plain meanings."""
+    zero = d.temperature(0.0, 0)
+    return (
+        ("Relative humidity (RH)", "how much water vapour the air holds, as a percentage of the "
+         "most it could hold at its temperature."),
+        ("Dew point", "the temperature at which the air's water vapour starts to condense into "
+         f"water; below {zero} the frost point, where frost forms."),
+        ("Surface RH", "the relative humidity of the air right at a surface; mould can grow when "
+         f"it stays above about {th.value('surface_rh_mould_limit_pct'):.0f} % for days."),
+        ("Margin to dew/frost point", "how far a surface is above the temperature at which water "
+         "or frost would form on it."),
+        ("Humidity ratio", "the mass of water vapour in each kilogram of dry air (g/kg, or grains "
+         "per pound); it does not change when air warms or cools, so it compares rooms and "
+         "visits fairly."),
+        ("Vapour pressure", "the part of the air pressure due to water vapour; more indoors than "
+         "outdoors means moisture is being added inside."),
+        ("Temperature factor (fRsi)", "how warm a surface stays compared with the inside and "
+         "outside air: 1 is as warm as the room, 0 as cold as outdoors."),
+        ("Humidity class", "a band of indoor moisture production, from dry storage (class 1) to "
+         "laundries and pools (class 5)."),
+        ("Dry standard", "a moisture reading of the same material in an unaffected area: the "
+         "goal a wet material is dried to."),
+        ("Moisture content (MC)", "the water in timber as a percentage of its dry weight; decay "
+         f"fungi need about {th.value('timber_decay_mc_pct'):.0f} % or more, mould grows from "
+         f"about {th.value('timber_mould_mc_pct'):.0f} %."),
+        ("Air changes an hour", "how many times an hour the room's volume of air is replaced by "
+         "outdoor air."),
+        ("Expanded uncertainty", "the range, about 95 % sure, within which the true value lies, "
+         "given the instruments' accuracy."),
+    )
 
 
 def names_list(names: Iterable[str]) -> str:
