@@ -14,6 +14,7 @@ from pathlib import Path
 
 from survey import model, words
 from survey import thresholds as th
+from survey.advise import Caution
 from survey.assess import CondensationState, FactorState, MouldState
 from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
@@ -294,7 +295,7 @@ def _visit(doc: Document, ctx: Context, index: int) -> None:
 def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
     several = len(shown) > 1
-    where: dict[object, list[str]] = {}
+    where: dict[Caution, list[str]] = {}
     for index in shown:
         va = ctx.assessment(index)
         for advice in va.advice.rooms:

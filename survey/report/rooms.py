@@ -76,8 +76,9 @@ def _readings(ctx: Context, f: RoomFinding, room_id: str, visit: int) -> Table:
     ]
     if f.vapour_pressure_excess_pa is not None:
         rows.append((label["excess"], Cell(
-            rw.excess_text(f.vapour_pressure_excess_pa, f.vapour_pressure_excess_uncertainty_pa,
-                           d), f.vapour_pressure_excess_pa, "vapour_pressure_excess_pa")))
+            rw.excess_text(f.vapour_pressure_excess_pa,
+                           f.vapour_pressure_excess_uncertainty_pa or 0.0, d),
+            f.vapour_pressure_excess_pa, "vapour_pressure_excess_pa")))
     rows.append((label["class"], Cell(rw.class_text(f))))
     limit = words.rh_limit_text(f)
     if limit is not None and f.coldest is not None:
@@ -255,6 +256,7 @@ def drying_section(doc: Document, ctx: Context) -> None:
         if not seen:
             continue
         columns: dict[tuple[str, str, str], str] = {}
+        key: tuple[str, str, str]
         for _, _, room_visit in seen:
             for m in room_visit.materials:
                 if not m.dry_standard:
@@ -278,12 +280,13 @@ def drying_section(doc: Document, ctx: Context) -> None:
                           Cell(rw.rh_text(air.rh_pct), air.rh_pct, "air.rh_pct"),
                           Cell(d("humidity_ratio", air.humidity_ratio_kg_per_kg),
                                air.humidity_ratio_kg_per_kg, "air.humidity_ratio_kg_per_kg")]
-            by_key = {(m.location, m.material, m.scale): m for m in room_visit.materials
-                      if not m.dry_standard}
+            by_key: dict[tuple[str, str, str], model.MaterialReading] = {
+                (m.location, m.material, m.scale): m for m in room_visit.materials
+                if not m.dry_standard}
             for key in columns:
-                m = by_key.get(key)
-                cells.append(Cell("–") if m is None
-                             else Cell(rw.drying_cell(m.value), m.value, "value"))
+                found = by_key.get(key)
+                cells.append(Cell("–") if found is None
+                             else Cell(rw.drying_cell(found.value), found.value, "value"))
             if collected:
                 removed = [e.water_removed_l for e in room_visit.equipment
                            if e.water_removed_l is not None]

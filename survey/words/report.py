@@ -439,7 +439,7 @@ def seen_lines(mould: bool, area_m2: float | None, staining: bool, condensation:
 
 def equipment_text(kind: str, label: str, running: bool, capacity_l_per_day: float | None,
                    water_removed_l: float | None, d: Display) -> str:
-    text = EQUIPMENT_WORDS[kind] + (f" ({label})" if label else "")
+    text = EQUIPMENT_WORDS[kind] + (f": {label}" if label else "")
     text += ", running" if running else ", not running"
     if capacity_l_per_day is not None:
         text += f", rated {d.water(capacity_l_per_day)}"
