@@ -246,3 +246,21 @@ def test_visit_out_of_range_is_an_input_error():
     with pytest.raises(InputError) as info:
         report.build(store.load_survey(FLAT), _options(FLAT, visit=2))
     assert info.value.field == "visit" and "1 to 1" in info.value.allowed
+
+
+def test_report_loads_neither_textual_nor_rich():
+    """The report is core: building an SI report and its HTML loads no textual, Rich or
+    pint (markdown-it-py is its one library)."""
+    import subprocess
+    import sys
+
+    code = ("import sys\nfrom survey import report, store\n"
+            f"s = store.load_survey({str(FLAT)!r})\n"
+            "report.html_report(s, report.ReportOptions(units='si'))\n"
+            "print('\\n'.join(sys.modules))")
+    result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
+                            timeout=60, cwd=ROOT)
+    assert result.returncode == 0, result.stderr
+    loaded = set(result.stdout.split())
+    assert "markdown_it" in loaded
+    assert not any(name.split(".")[0] in ("textual", "rich", "pint") for name in loaded)
