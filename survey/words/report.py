@@ -355,10 +355,6 @@ def margin_cell(surface: SurfaceFinding, d: Display) -> str:
             + d.difference(surface.margin_uncertainty_k))
 
 
-def surface_note(label: str, note: str) -> str:
-    return f"{label}: {note}"
-
-
 MATERIAL_HEADER = ("Location", "Material", "Reading", "Dry standard", "Against the dry standard",
                    "Timber")
 _SCALE_WORDS = {"mc_pct": "% MC", "wme_pct": "% WME", "relative": "(meter's relative scale)"}
@@ -401,7 +397,6 @@ DRY_STANDARD_BASIS = ("The dry standard is a reading of the same material, on th
                       f"scale, in an unaffected part of the same room or of a reference room; "
                       f"a reading within {th.value('dry_standard_tolerance_fraction') * 100:.0f} "
                       "% of it counts as dry.")
-NO_MATERIALS = "No moisture-meter readings in this room."
 
 # What was seen
 ODOUR_WORDS = {"none": "no odour", "musty": "a musty smell", "earthy": "an earthy smell",
@@ -467,8 +462,6 @@ NO_ACTIONS = "Nothing needs doing in this room from these readings."
 def room_cautions_text(names: Sequence[str]) -> str:
     return ("Safety for this room (see Safety below): " + "; ".join(names) + ".")
 
-
-SAFETY_LEAD = "Safety"
 
 
 #: A short name for each caution, for the room's pointer to the Safety section.
