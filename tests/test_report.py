@@ -264,3 +264,26 @@ def test_report_loads_neither_textual_nor_rich():
     loaded = set(result.stdout.split())
     assert "markdown_it" in loaded
     assert not any(name.split(".")[0] in ("textual", "rich", "pint") for name in loaded)
+
+
+def test_outdoor_logger_of_the_days_before_is_in_the_conditions():
+    """An outdoor logger's samples from the three days before a visit are summed up under
+    the visit's conditions (count, span, temperature and RH range); later samples are not."""
+    import datetime as dt
+
+    import msgspec
+
+    from survey import model
+
+    survey = store.load_survey(FLAT)
+    start = survey.visits[0].started_at
+    samples = [model.LogSample(at=start - dt.timedelta(hours=h), dry_bulb_c=t, rh_pct=rh)
+               for h, t, rh in ((48, -1.5, 93.0), (24, 0.5, 88.0), (1, 1.8, 86.0))]
+    samples.append(model.LogSample(at=start + dt.timedelta(hours=2), dry_bulb_c=9.0,
+                                   rh_pct=50.0))
+    log = model.LogSeries(room=None, source="garden.csv", samples=samples)
+    text = report.markdown_report(msgspec.structs.replace(survey, logs=[log]), _options(FLAT))
+    expected = rw.logger_before_text("garden.csv", 3, samples[0].at, samples[2].at, -1.5, 1.8,
+                                     86.0, 93.0, words.SI)
+    assert report.escape(expected) in text
+    assert "-1.5 °C to 1.8 °C, 86 to 93 % RH" in expected  # the logged extremes, as logged
