@@ -17,7 +17,7 @@ import datetime as dt
 import psychrolib
 from common import Result, interleaved_best
 
-from survey import model, report
+from survey import evaluate, model, report
 
 ROOMS = 1_000
 SURFACES_PER_ROOM = 10

@@ -12,7 +12,7 @@ import datetime as dt
 from dataclasses import dataclass
 from pathlib import Path
 
-from survey import model, words
+from survey import evaluate, model, words
 from survey import thresholds as th
 from survey.advise import Caution
 from survey.assess import CondensationState, FactorState, MouldState
@@ -58,12 +58,17 @@ def selected_visits(survey: model.Survey, visit: int | str) -> list[int]:
     return [visit - 1]
 
 
-def build(survey: model.Survey, options: ReportOptions | None = None) -> Document:
-    """The report of ``survey`` as a :class:`~survey.report.markdown.Document`."""
+def build(survey: model.Survey, options: ReportOptions | None = None,
+          assessments: dict[int, evaluate.VisitAssessment] | None = None) -> Document:
+    """The report of ``survey`` as a :class:`~survey.report.markdown.Document`.
+
+    ``assessments`` may hold visits already judged (by visit index), e.g. by a face that
+    shows them too; the others are judged here by :func:`survey.evaluate.assess_visit`."""
     options = options or ReportOptions()
     d = words.Display(options.units or survey.site.unit_system)
     shown = selected_visits(survey, options.visit)
-    ctx = Context(survey, d, options.survey_dir, options.report_dir, len(survey.visits))
+    ctx = Context(survey, d, options.survey_dir, options.report_dir, len(survey.visits),
+                  dict(assessments or {}))
     doc = Document(rw.title(survey.site.reference))
     doc.add(Heading(1, doc.title),
             Para(rw.generated_line(options.generated_at, options.source_name)))
