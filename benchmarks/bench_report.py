@@ -75,12 +75,28 @@ def run() -> list[Result]:
     def ours_html():
         return report.html_report(survey, options)
 
-    base = lambda: _baseline(survey)
+    judged = {0: evaluate.assess_visit(survey, 0)}
+
+    def layout_only():
+        return report.render(report.build(survey, options, judged))
+
+    def judge_only():
+        return evaluate.assess_visit(survey, 0)
+
+    def base():
+        return _baseline(survey)
+
     md_s, base_s = interleaved_best(ours, base, repeat=2)
     html_s, base2_s = interleaved_best(ours_html, base, repeat=1)
+    judge_s, base3_s = interleaved_best(judge_only, base, repeat=1)
+    layout_s, base4_s = interleaved_best(layout_only, base, repeat=3)
     return [
         Result("report 1000 rooms / 10000 surfaces as Markdown, vs psychrolib calls for the "
                "same states", md_s * 1000.0, "ms", md_s / base_s, 3.0),
         Result("report 1000 rooms / 10000 surfaces as HTML, vs psychrolib calls for the "
                "same states", html_s * 1000.0, "ms", html_s / base2_s, None),
+        Result("  of which: the visit judged (evaluate.assess_visit), vs the same calls",
+               judge_s * 1000.0, "ms", judge_s / base3_s, None),
+        Result("  of which: layout and words of the judged visit, vs the same calls",
+               layout_s * 1000.0, "ms", layout_s / base4_s, None),
     ]
