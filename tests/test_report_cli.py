@@ -108,11 +108,11 @@ def _csv(path: Path, tmp_path: Path) -> tuple[list[str], list[dict[str, str]]]:
     return list(reader.fieldnames or ()), rows
 
 
-def _column(header: list[str], start: str, exclude: str = "") -> str:
-    """The CSV column whose name starts with ``start`` (the unit follows in the name)."""
-    found = [name for name in header if name.startswith(start)
-             and not (exclude and name.startswith(exclude))]
-    assert len(found) == 1, (start, header)
+def _column(header: list[str], pattern: str) -> str:
+    """The one CSV column whose whole name matches ``pattern`` (names carry their unit, and
+    may be renamed: the pattern allows the spellings that mean the same quantity)."""
+    found = [name for name in header if re.fullmatch(pattern, name)]
+    assert len(found) == 1, (pattern, header)
     return found[0]
 
 
@@ -127,14 +127,16 @@ def test_export_and_report_agree_on_every_number(path, tmp_path):
     """Every air and surface number of the report (read from its typed cells) equals the CSV
     export's value for the same reading, to the CSV's precision."""
     header, rows = _csv(path, tmp_path)
-    col = {"kind": _column(header, "kind"), "visit": _column(header, "visit", "visit_"),
-           "room": _column(header, "room_id"), "location": _column(header, "location"),
-           "dry_bulb": _column(header, "dry_bulb"), "rh": _column(header, "rh_pct"),
-           "dew": _column(header, "dew_point"), "frost": _column(header, "frost_point"),
-           "ratio": _column(header, "humidity_ratio", "humidity_ratio_drop"),
-           "surface": _column(header, "surface_temp"),
-           "surface_rh": _column(header, "surface_rh"), "margin": _column(header, "margin")}
-    assert re.search(r"g_per_kg$", col["ratio"])  # SI: g/kg
+    col = {"kind": _column(header, r"kind|row_kind|reading_kind"),
+           "visit": _column(header, r"visit(_number)?"),
+           "room": _column(header, r"room(_id)?"), "location": _column(header, r"location"),
+           "dry_bulb": _column(header, r"(air_)?(dry_bulb|air_temp)_c"),
+           "rh": _column(header, r"(air_)?rh_pct"),
+           "dew": _column(header, r"dew_point_c"), "frost": _column(header, r"frost_point_c"),
+           "ratio": _column(header, r"humidity_ratio_g_per_kg"),
+           "surface": _column(header, r"surface_temp_c"),
+           "surface_rh": _column(header, r"surface_rh_pct"),
+           "margin": _column(header, r"(dew_point_|condensation_)?margin(_to_condensation)?_k")}
     survey = store.load_survey(path)
     doc = report.build(survey, report.ReportOptions(visit="all", generated_at="fixed"))
     compared = 0
