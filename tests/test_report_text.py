@@ -191,3 +191,5 @@ def test_note_lines_keep_their_breaks():
     """A multi-line note keeps its lines (hard breaks) and its paragraphs."""
     lines = escape_lines("one\n# two\n\n- three")
     assert lines == ["one\\", "\\# two", "", "\\- three"]
+    assert escape_lines("one\r\ntwo") == ["one\\", "two"]  # Windows line ends
+    assert escape_lines("a\rb") == ["a\\\\x0db"]  # a lone CR is a control character, shown

@@ -65,7 +65,8 @@ def escape_lines(text: object) -> list[str]:
     Returns Markdown lines: a line inside a paragraph ends with a backslash (a hard break),
     paragraphs are separated by an empty line."""
     paragraphs: list[list[str]] = [[]]
-    for line in visible(text, keep_newlines=True).replace("\r", "").split("\n"):
+    lines = str(text).replace("\r\n", "\n")
+    for line in visible(lines, keep_newlines=True).split("\n"):
         if not line.strip():
             if paragraphs[-1]:
                 paragraphs.append([])
