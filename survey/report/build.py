@@ -15,7 +15,7 @@ from pathlib import Path
 from survey import evaluate, model, words
 from survey import thresholds as th
 from survey.advise import Caution
-from survey.assess import CondensationState, FactorState, MouldState
+from survey.assess import CondensationState, DryStandardState, FactorState, MouldState
 from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
 from survey.report.rooms import Context, drying_section, photo_blocks, room_section
@@ -151,7 +151,7 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
         obs = f.room.observations
         if obs.mould_seen:
             lines.insert(0, rw.mould_seen_summary(obs.visible_mould_area_m2, d))
-        wet = sum(m.dry_standard_state.value == "above_dry_standard" for m in f.materials)
+        wet = sum(m.dry_standard_state is DryStandardState.ABOVE for m in f.materials)
         if wet:
             lines.append(rw.wet_materials_summary(wet))
         limit = words.rh_limit_text(f)

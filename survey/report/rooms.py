@@ -13,11 +13,13 @@ from urllib.parse import quote
 
 from survey import evaluate, model, words
 from survey.advise import RoomAdvice
-from survey.assess import RoomFinding
+from survey.assess import CondensationState, FactorState, MouldState, RoomFinding
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.words import report as rw
 
-_RIGHT_READING = frozenset({1})
+_UNCLEAR_C = CondensationState.CANNOT_TELL
+_UNCLEAR_M = MouldState.CANNOT_TELL
+_UNCLEAR_F = FactorState.CANNOT_TELL
 
 
 @dataclass
@@ -121,8 +123,8 @@ def _surfaces(ctx: Context, f: RoomFinding, room_visit: model.RoomVisit, room_id
         Table(rw.JUDGED_HEADER, tuple(judged), name="surfaces_judged", room=room_id,
               visit=visit),
     ]
-    if any("cannot_tell" in (s.condensation.value, s.mould.value,
-                             s.temperature_factor_state.value) for s in f.surfaces):
+    if any(s.condensation is _UNCLEAR_C or s.mould is _UNCLEAR_M
+           or s.temperature_factor_state is _UNCLEAR_F for s in f.surfaces):
         blocks.append(Para(words.CANNOT_TELL_EXPLAINED))
     for reading in room_visit.surfaces:
         if reading.notes.strip():

@@ -14,7 +14,7 @@ from typing import Iterable, Sequence
 
 from survey import psychro
 from survey import thresholds as th
-from survey.assess import MaterialFinding, RoomFinding, SurfaceFinding
+from survey.assess import FactorState, MaterialFinding, RoomFinding, SurfaceFinding
 from survey.words.display import Display, round_down_rh
 from survey.words.states import (
     DRY_STANDARD_WORDS,
@@ -345,7 +345,8 @@ NO_SURFACES = "No surface was measured in this room."
 
 def factor_cell(surface: SurfaceFinding) -> str:
     if surface.temperature_factor is None:
-        return "not used" if surface.temperature_factor_state.value == "not_for_element" else "–"
+        return ("not used" if surface.temperature_factor_state is FactorState.NOT_FOR_ELEMENT
+                else "–")
     return (f"{surface.temperature_factor:.2f} ± {surface.temperature_factor_uncertainty:.2f} "
             f"(limit {surface.temperature_factor_limit:.2f})")
 
@@ -443,8 +444,8 @@ def equipment_text(kind: str, label: str, running: bool, capacity_l_per_day: flo
     return text[:1].upper() + text[1:] + "."
 
 
-NOTES_LABELS = {"site": "About the site", "room": "About the room", "visit": "On this visit", "seen": "Seen",
-                "equipment": "Equipment note"}
+NOTES_LABELS = {"site": "About the site", "room": "About the room",
+                "visit": "On this visit", "seen": "Seen"}
 NOTHING_SEEN = "Nothing was recorded as seen."
 
 
