@@ -23,6 +23,7 @@ from survey.errors import InputError, SurveyFileError
 COMMAND_MODULES = (
     "survey.commands.check",
     "survey.commands.files",
+    "survey.commands.report",
 )
 
 EXIT_OK = 0
