@@ -22,27 +22,58 @@ from survey import evaluate, model, report
 ROOMS = 1_000
 SURFACES_PER_ROOM = 10
 PRESSURE_PA = 101_325.0
-_ELEMENTS = ("external_wall", "external_wall", "ceiling", "floor", "internal_wall",
-             "external_wall", "glazing", "window_frame", "ceiling", "pipe")
+_ELEMENTS = (
+    "external_wall",
+    "external_wall",
+    "ceiling",
+    "floor",
+    "internal_wall",
+    "external_wall",
+    "glazing",
+    "window_frame",
+    "ceiling",
+    "pipe",
+)
 
 
 def _survey() -> model.Survey:
     rooms, visits = [], []
     for n in range(ROOMS):
         air_c = 16.0 + (n % 9) * 0.7
-        rooms.append(model.Room(id=f"r{n}", name=f"Room {n} | north <side>", use="bedroom",
-                                volume_m3=30.0, occupants=2))
-        surfaces = [model.SurfaceReading(location=f"Surface {k} *corner*",
-                                         element=_ELEMENTS[k],
-                                         surface_temp_c=air_c - 1.0 - ((n + k) % 11) * 0.9,
-                                         material="painted plaster")
-                    for k in range(SURFACES_PER_ROOM)]
-        visits.append(model.RoomVisit(room=f"r{n}", air=model.AirReading(
-            dry_bulb_c=air_c, rh_pct=45.0 + (n % 13) * 3.1), surfaces=surfaces))
-    visit = model.Visit(started_at=dt.datetime(2025, 1, 15, 9, 0), label="Benchmark",
-                        outdoor=model.AirReading(dry_bulb_c=2.0, rh_pct=85.0), rooms=visits)
-    return model.Survey(site=model.Site(reference="Benchmark site", year_built=1990),
-                        rooms=rooms, visits=[visit])
+        rooms.append(
+            model.Room(
+                id=f"r{n}",
+                name=f"Room {n} | north <side>",
+                use="bedroom",
+                volume_m3=30.0,
+                occupants=2,
+            )
+        )
+        surfaces = [
+            model.SurfaceReading(
+                location=f"Surface {k} *corner*",
+                element=_ELEMENTS[k],
+                surface_temp_c=air_c - 1.0 - ((n + k) % 11) * 0.9,
+                material="painted plaster",
+            )
+            for k in range(SURFACES_PER_ROOM)
+        ]
+        visits.append(
+            model.RoomVisit(
+                room=f"r{n}",
+                air=model.AirReading(dry_bulb_c=air_c, rh_pct=45.0 + (n % 13) * 3.1),
+                surfaces=surfaces,
+            )
+        )
+    visit = model.Visit(
+        started_at=dt.datetime(2025, 1, 15, 9, 0),
+        label="Benchmark",
+        outdoor=model.AirReading(dry_bulb_c=2.0, rh_pct=85.0),
+        rooms=visits,
+    )
+    return model.Survey(
+        site=model.Site(reference="Benchmark site", year_built=1990), rooms=rooms, visits=[visit]
+    )
 
 
 def _baseline(survey: model.Survey) -> list[float]:
@@ -91,12 +122,33 @@ def run() -> list[Result]:
     judge_s, base3_s = interleaved_best(judge_only, base, repeat=1)
     layout_s, base4_s = interleaved_best(layout_only, base, repeat=3)
     return [
-        Result("report 1000 rooms / 10000 surfaces as Markdown, vs psychrolib calls for the "
-               "same states", md_s * 1000.0, "ms", md_s / base_s, 3.0),
-        Result("report 1000 rooms / 10000 surfaces as HTML, vs psychrolib calls for the "
-               "same states", html_s * 1000.0, "ms", html_s / base2_s, None),
-        Result("  of which: the visit judged (evaluate.assess_visit), vs the same calls",
-               judge_s * 1000.0, "ms", judge_s / base3_s, None),
-        Result("  of which: layout and words of the judged visit, vs the same calls",
-               layout_s * 1000.0, "ms", layout_s / base4_s, None),
+        Result(
+            "report 1000 rooms / 10000 surfaces as Markdown, vs psychrolib calls for the "
+            "same states",
+            md_s * 1000.0,
+            "ms",
+            md_s / base_s,
+            3.0,
+        ),
+        Result(
+            "report 1000 rooms / 10000 surfaces as HTML, vs psychrolib calls for the same states",
+            html_s * 1000.0,
+            "ms",
+            html_s / base2_s,
+            None,
+        ),
+        Result(
+            "  of which: the visit judged (evaluate.assess_visit), vs the same calls",
+            judge_s * 1000.0,
+            "ms",
+            judge_s / base3_s,
+            None,
+        ),
+        Result(
+            "  of which: layout and words of the judged visit, vs the same calls",
+            layout_s * 1000.0,
+            "ms",
+            layout_s / base4_s,
+            None,
+        ),
     ]

@@ -7,6 +7,7 @@ The golden file is rewritten only for a deliberate change of the report
 
 from __future__ import annotations
 
+import itertools
 import os
 from pathlib import Path
 
@@ -28,8 +29,13 @@ FIXED_TIME = "2025-01-16 08:00 UTC"  # a fixed generated-at line, so the bytes a
 
 
 def _options(path: Path, **more) -> report.ReportOptions:
-    return report.ReportOptions(generated_at=FIXED_TIME, source_name=path.name,
-                                survey_dir=path.parent, report_dir=path.parent, **more)
+    return report.ReportOptions(
+        generated_at=FIXED_TIME,
+        source_name=path.name,
+        survey_dir=path.parent,
+        report_dir=path.parent,
+        **more,
+    )
 
 
 def _parser() -> MarkdownIt:
@@ -63,6 +69,7 @@ def _tables(tokens) -> list[list[int]]:
 
 # --- structure ---------------------------------------------------------------------------
 
+
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.stem)
 @pytest.mark.parametrize("visit", ["last", "all"])
 def test_example_report_headings_in_order_and_tables_whole(path, visit):
@@ -77,18 +84,22 @@ def test_example_report_headings_in_order_and_tables_whole(path, visit):
     h = rw.HEADINGS
     visits = report.selected_visits(survey, visit)
     expected = [h["summary"], h["scope"]]
-    expected += [rw.visit_heading(i + 1, len(survey.visits), survey.visits[i].label,
-                                  survey.visits[i].started_at) for i in visits]
+    expected += [
+        rw.visit_heading(
+            i + 1, len(survey.visits), survey.visits[i].label, survey.visits[i].started_at
+        )
+        for i in visits
+    ]
     if len(survey.visits) > 1:
         expected.append(h["drying"])
     expected += [h["safety"], h["method"], h["glossary"]]
     assert top == expected
     levels = [level for level, _ in headings]
-    assert all(b - a <= 1 for a, b in zip(levels, levels[1:]))  # no level skipped
+    assert all(b - a <= 1 for a, b in itertools.pairwise(levels))  # no level skipped
     tables = _tables(tokens)
     blocks = [b for b in doc.blocks if isinstance(b, Table)]
     assert len(tables) == len(blocks) > 0
-    for rows, block in zip(tables, blocks):
+    for rows, block in zip(tables, blocks, strict=False):
         assert rows == [len(block.header)] * (len(block.rows) + 1)
 
 
@@ -96,8 +107,9 @@ def test_report_bytes_are_deterministic():
     """The same survey and options give the same bytes."""
     survey = store.load_survey(BASEMENT)
     first = report.markdown_report(survey, _options(BASEMENT, visit="all"))
-    assert first == report.markdown_report(store.load_survey(BASEMENT),
-                                           _options(BASEMENT, visit="all"))
+    assert first == report.markdown_report(
+        store.load_survey(BASEMENT), _options(BASEMENT, visit="all")
+    )
     assert FIXED_TIME in first
 
 
@@ -112,6 +124,7 @@ def test_golden_report():
 
 
 # --- numbers are the assessment's -----------------------------------------------------------
+
 
 def _field(record, key: str):
     for part in key.split("."):
@@ -134,15 +147,20 @@ def test_every_number_of_a_room_is_the_assessments():
     by_name = {b.name: b for b in blocks}
     readings = by_name["readings"]
     keyed = [cell for _, cell in readings.rows if cell.key]
-    assert {c.key for c in keyed} >= {"air.dry_bulb_c", "air.rh_pct",
-                                      "air.condensation_point_c",
-                                      "air.humidity_ratio_kg_per_kg", "max_room_rh_pct",
-                                      "vapour_pressure_excess_pa", "timber_emc_pct"}
+    assert {c.key for c in keyed} >= {
+        "air.dry_bulb_c",
+        "air.rh_pct",
+        "air.condensation_point_c",
+        "air.humidity_ratio_kg_per_kg",
+        "max_room_rh_pct",
+        "vapour_pressure_excess_pa",
+        "timber_emc_pct",
+    }
     for cell in keyed:
         assert cell.value == _field(finding, cell.key)
     surfaces = by_name["surfaces"]
     assert len(surfaces.rows) == len(finding.surfaces)
-    for row, surface in zip(surfaces.rows, finding.surfaces):
+    for row, surface in zip(surfaces.rows, finding.surfaces, strict=False):
         assert row[0].text == surface.label
         keys = {c.key for c in row if c.key}
         assert keys == {"surface_temp_c", "surface_rh_pct", "margin_k", "temperature_factor"}
@@ -152,7 +170,7 @@ def test_every_number_of_a_room_is_the_assessments():
         assert row[3].text == words.SI.temperature(surface.surface_temp_c)
     materials = by_name["materials"]
     assert len(materials.rows) == len(finding.materials)
-    for row, material in zip(materials.rows, finding.materials):
+    for row, material in zip(materials.rows, finding.materials, strict=False):
         for cell in row:
             if cell.key:
                 assert cell.value == getattr(material, cell.key)
@@ -160,6 +178,7 @@ def test_every_number_of_a_room_is_the_assessments():
 
 
 # --- cautions ------------------------------------------------------------------------------
+
 
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.stem)
 def test_a_caution_appears_exactly_when_its_finding_does(path):
@@ -172,13 +191,16 @@ def test_a_caution_appears_exactly_when_its_finding_does(path):
         doc = report.build(survey, _options(path, visit=index + 1))
         text = report.render(doc)
         raised = set()
-        for room_id, f, advice in zip(va.room_ids, va.findings.rooms, va.advice.rooms):
+        for room_id, f, advice in zip(
+            va.room_ids, va.findings.rooms, va.advice.rooms, strict=False
+        ):
             pointer = [b for b in _room_blocks(doc, room_id) if b.name == "room_cautions"]
             keys = {c.key for c in (pointer[0].values if pointer else ())}
             obs = f.room.observations
             assert ("visible_mould" in keys) == obs.mould_seen
             assert ("mould_if_visible" in keys) == (
-                not obs.mould_seen and any(s.mould.value == "above_limit" for s in f.surfaces))
+                not obs.mould_seen and any(s.mould.value == "above_limit" for s in f.surfaces)
+            )
             assert ("confined_space" in keys) == th.room_use(f.use).confined
             for category in (1, 2, 3):
                 assert (f"water_category_{category}" in keys) == (obs.water_category == category)
@@ -212,13 +234,26 @@ def _calm_survey():
     """One dry, warm room with a warm wall: nothing found, nothing to do."""
     import json
 
-    doc = {"schema_version": 1, "site": {"reference": "Calm", "year_built": 2010},
-           "rooms": [{"id": "r", "name": "Study", "use": "office", "volume_m3": 30.0}],
-           "visits": [{"started_at": "2025-03-01T10:00:00",
-                       "outdoor": {"dry_bulb_c": 8.0, "rh_pct": 70.0},
-                       "rooms": [{"room": "r", "air": {"dry_bulb_c": 21.0, "rh_pct": 40.0},
-                                  "surfaces": [{"location": "Wall", "element": "internal_wall",
-                                                "surface_temp_c": 20.0}]}]}]}
+    doc = {
+        "schema_version": 1,
+        "site": {"reference": "Calm", "year_built": 2010},
+        "rooms": [{"id": "r", "name": "Study", "use": "office", "volume_m3": 30.0}],
+        "visits": [
+            {
+                "started_at": "2025-03-01T10:00:00",
+                "outdoor": {"dry_bulb_c": 8.0, "rh_pct": 70.0},
+                "rooms": [
+                    {
+                        "room": "r",
+                        "air": {"dry_bulb_c": 21.0, "rh_pct": 40.0},
+                        "surfaces": [
+                            {"location": "Wall", "element": "internal_wall", "surface_temp_c": 20.0}
+                        ],
+                    }
+                ],
+            }
+        ],
+    }
     return store.loads_survey(json.dumps(doc).encode())
 
 
@@ -254,12 +289,15 @@ def test_report_loads_neither_textual_nor_rich():
     import subprocess
     import sys
 
-    code = ("import sys\nfrom survey import report, store\n"
-            f"s = store.load_survey({str(FLAT)!r})\n"
-            "report.html_report(s, report.ReportOptions(units='si'))\n"
-            "print('\\n'.join(sys.modules))")
-    result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
-                            timeout=60, cwd=ROOT)
+    code = (
+        "import sys\nfrom survey import report, store\n"
+        f"s = store.load_survey({str(FLAT)!r})\n"
+        "report.html_report(s, report.ReportOptions(units='si'))\n"
+        "print('\\n'.join(sys.modules))"
+    )
+    result = subprocess.run(
+        [sys.executable, "-c", code], capture_output=True, text=True, timeout=60, cwd=ROOT
+    )
     assert result.returncode == 0, result.stderr
     loaded = set(result.stdout.split())
     assert "markdown_it" in loaded
@@ -277,13 +315,15 @@ def test_outdoor_logger_of_the_days_before_is_in_the_conditions():
 
     survey = store.load_survey(FLAT)
     start = survey.visits[0].started_at
-    samples = [model.LogSample(at=start - dt.timedelta(hours=h), dry_bulb_c=t, rh_pct=rh)
-               for h, t, rh in ((48, -1.5, 93.0), (24, 0.5, 88.0), (1, 1.8, 86.0))]
-    samples.append(model.LogSample(at=start + dt.timedelta(hours=2), dry_bulb_c=9.0,
-                                   rh_pct=50.0))
+    samples = [
+        model.LogSample(at=start - dt.timedelta(hours=h), dry_bulb_c=t, rh_pct=rh)
+        for h, t, rh in ((48, -1.5, 93.0), (24, 0.5, 88.0), (1, 1.8, 86.0))
+    ]
+    samples.append(model.LogSample(at=start + dt.timedelta(hours=2), dry_bulb_c=9.0, rh_pct=50.0))
     log = model.LogSeries(room=None, source="garden.csv", samples=samples)
     text = report.markdown_report(msgspec.structs.replace(survey, logs=[log]), _options(FLAT))
-    expected = rw.logger_before_text("garden.csv", 3, samples[0].at, samples[2].at, -1.5, 1.8,
-                                     86.0, 93.0, words.SI)
+    expected = rw.logger_before_text(
+        "garden.csv", 3, samples[0].at, samples[2].at, -1.5, 1.8, 86.0, 93.0, words.SI
+    )
     assert report.escape(expected) in text
     assert "-1.5 °C to 1.8 °C, 86 to 93 % RH" in expected  # the logged extremes, as logged

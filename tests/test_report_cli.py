@@ -67,8 +67,9 @@ def test_report_never_written_over_the_survey(flat, capsys, target):
     assert {p.name: p.read_bytes() for p in flat.parent.iterdir()} == files
 
 
-@pytest.mark.parametrize("value, allowed", [("2", "1 to 1"), ("0", "1 to 1"),
-                                            ("first", "visit number")])
+@pytest.mark.parametrize(
+    ("value", "allowed"), [("2", "1 to 1"), ("0", "1 to 1"), ("first", "visit number")]
+)
 def test_bad_visit_is_refused(flat, capsys, value, allowed):
     """--visit names a visit of the survey or all; anything else: exit 2, one line."""
     assert main(["report", str(flat), "--visit", value]) == 2
@@ -100,6 +101,7 @@ def test_photos_linked_relative_to_the_report(flat, tmp_path):
 
 # --- the report and the CSV export agree ----------------------------------------------------
 
+
 def _csv(path: Path, tmp_path: Path) -> tuple[list[str], list[dict[str, str]]]:
     out = tmp_path / f"{path.stem}.csv"
     assert main(["export", str(path), "--csv", str(out), "--units", "si", "--no-logs"]) == 0
@@ -119,7 +121,7 @@ def _column(header: list[str], pattern: str) -> str:
 def _agree(csv_text: str, value: float, scale: float = 1.0) -> None:
     """The CSV number equals ``value × scale`` to the CSV's own precision."""
     places = len(csv_text.split(".")[1]) if "." in csv_text else 0
-    assert abs(float(csv_text) - value * scale) <= 0.5 * 10 ** -places + 1e-9, (csv_text, value)
+    assert abs(float(csv_text) - value * scale) <= 0.5 * 10**-places + 1e-9, (csv_text, value)
 
 
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.stem)
@@ -127,16 +129,20 @@ def test_export_and_report_agree_on_every_number(path, tmp_path):
     """Every air and surface number of the report (read from its typed cells) equals the CSV
     export's value for the same reading, to the CSV's precision."""
     header, rows = _csv(path, tmp_path)
-    col = {"kind": _column(header, r"kind|row_kind|reading_kind"),
-           "visit": _column(header, r"visit(_number)?"),
-           "room": _column(header, r"room(_id)?"), "location": _column(header, r"location"),
-           "dry_bulb": _column(header, r"(air_)?(dry_bulb|air_temp)_c"),
-           "rh": _column(header, r"(air_)?rh_pct"),
-           "dew": _column(header, r"dew_point_c"), "frost": _column(header, r"frost_point_c"),
-           "ratio": _column(header, r"humidity_ratio_g_per_kg"),
-           "surface": _column(header, r"surface_temp_c"),
-           "surface_rh": _column(header, r"surface_rh_pct"),
-           "margin": _column(header, r"(dew_point_|condensation_)?margin(_to_condensation)?_k")}
+    col = {
+        "kind": _column(header, r"kind|row_kind|reading_kind"),
+        "visit": _column(header, r"visit(_number)?"),
+        "room": _column(header, r"room(_id)?"),
+        "location": _column(header, r"location"),
+        "dry_bulb": _column(header, r"(air_)?(dry_bulb|air_temp)_c"),
+        "rh": _column(header, r"(air_)?rh_pct"),
+        "dew": _column(header, r"dew_point_c"),
+        "frost": _column(header, r"frost_point_c"),
+        "ratio": _column(header, r"humidity_ratio_g_per_kg"),
+        "surface": _column(header, r"surface_temp_c"),
+        "surface_rh": _column(header, r"surface_rh_pct"),
+        "margin": _column(header, r"(dew_point_|condensation_)?margin(_to_condensation)?_k"),
+    }
     survey = store.load_survey(path)
     doc = report.build(survey, report.ReportOptions(visit="all", generated_at="fixed"))
     compared = 0
@@ -144,22 +150,34 @@ def test_export_and_report_agree_on_every_number(path, tmp_path):
         va = evaluate.assess_visit(survey, index)
         number = str(index + 1)
         for room_id in va.room_ids:
-            tables = {b.name: b for b in doc.blocks if isinstance(b, Table)
-                      and b.room == room_id and b.visit == index + 1}
-            air = next(r for r in rows if r[col["kind"]] == "room_air"
-                       and r[col["visit"]] == number and r[col["room"]] == room_id)
+            tables = {
+                b.name: b
+                for b in doc.blocks
+                if isinstance(b, Table) and b.room == room_id and b.visit == index + 1
+            }
+            air = next(
+                r
+                for r in rows
+                if r[col["kind"]] == "room_air"
+                and r[col["visit"]] == number
+                and r[col["room"]] == room_id
+            )
             cells = {c.key: c.value for _, c in tables["readings"].rows if c.key}
             _agree(air[col["dry_bulb"]], cells["air.dry_bulb_c"])
             _agree(air[col["rh"]], cells["air.rh_pct"])
             _agree(air[col["ratio"]], cells["air.humidity_ratio_kg_per_kg"], 1000.0)
             point = cells["air.condensation_point_c"]
-            _agree(air[col["frost"]] or air[col["dew"]] if point < 0.01 else air[col["dew"]],
-                   point)
-            surfaces = [r for r in rows if r[col["kind"]] == "surface"
-                        and r[col["visit"]] == number and r[col["room"]] == room_id]
+            _agree(air[col["frost"]] or air[col["dew"]] if point < 0.01 else air[col["dew"]], point)
+            surfaces = [
+                r
+                for r in rows
+                if r[col["kind"]] == "surface"
+                and r[col["visit"]] == number
+                and r[col["room"]] == room_id
+            ]
             table = tables.get("surfaces")
             assert len(surfaces) == (len(table.rows) if table else 0)
-            for csv_row, cells_row in zip(surfaces, table.rows if table else ()):
+            for csv_row, cells_row in zip(surfaces, table.rows if table else (), strict=False):
                 assert csv_row[col["location"]] == cells_row[0].text
                 shown = {c.key: c.value for c in cells_row if c.key}
                 _agree(csv_row[col["surface"]], shown["surface_temp_c"])

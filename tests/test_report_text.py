@@ -20,12 +20,27 @@ BASEMENT = ROOT / "example_sites" / "basement-burst-pipe-drying.json"
 
 #: Markdown and HTML that must never take effect, each with a tag so each field is found.
 HOSTILE = [
-    "| pipe | in | cells |", "`code` and ``more``", "*star* **strong** _under_ __twice__",
-    "# a heading", "<script>alert(1)</script>", "[a link](https://example.invalid)",
-    "![an image](x.png)", "\\ back\\slash \\*", "&amp; &lt;b&gt; entity", "1. a list",
-    "- a bullet", "+ plus", "$x^2$ maths", "~~strike~~", "<b>bold</b> <img src=x>",
-    "--- rule", "=== underline", "> a quote", "<https://example.invalid>",
-    "ESC \x1b[31m red \x07 bell", "bidi \u202e reversed",
+    "| pipe | in | cells |",
+    "`code` and ``more``",
+    "*star* **strong** _under_ __twice__",
+    "# a heading",
+    "<script>alert(1)</script>",
+    "[a link](https://example.invalid)",
+    "![an image](x.png)",
+    "\\ back\\slash \\*",
+    "&amp; &lt;b&gt; entity",
+    "1. a list",
+    "- a bullet",
+    "+ plus",
+    "$x^2$ maths",
+    "~~strike~~",
+    "<b>bold</b> <img src=x>",
+    "--- rule",
+    "=== underline",
+    "> a quote",
+    "<https://example.invalid>",
+    "ESC \x1b[31m red \x07 bell",
+    "bidi \u202e reversed",
 ]
 #: Fields that may hold several lines (notes); every other field is one line.
 MULTILINE = "first line\n# second line\n\n- third | line <i>x</i>"
@@ -40,8 +55,9 @@ def _hostile_survey(tmp_path: Path, plain: bool = False):
     shown: list[str] = []
 
     def one(text: str = "") -> str:
-        value = ("plain words" if plain else HOSTILE[next(counter) % len(HOSTILE)]) \
-            + f" #{len(shown)}"
+        value = (
+            "plain words" if plain else HOSTILE[next(counter) % len(HOSTILE)]
+        ) + f" #{len(shown)}"
         shown.append(value)
         return value
 
@@ -73,8 +89,11 @@ def _hostile_survey(tmp_path: Path, plain: bool = False):
                 material["notes"] = notes()
             for equipment in room_visit.get("equipment", []):
                 equipment["label"], equipment["notes"] = one(), notes()
-            name = (f"photos/p{len(photo_names)}.jpg" if plain
-                    else f"photos/[x](y) <b>{len(photo_names)} *p*|q.jpg")
+            name = (
+                f"photos/p{len(photo_names)}.jpg"
+                if plain
+                else f"photos/[x](y) <b>{len(photo_names)} *p*|q.jpg"
+            )
             room_visit["photos"] = [name]
             photo_names.append(name)
     survey_path = tmp_path / "hostile.json"
@@ -105,18 +124,33 @@ def hostile(tmp_path_factory):
     tmp_path = tmp_path_factory.mktemp("hostile")
     path, shown, photos = _hostile_survey(tmp_path)
     survey = store.load_survey(path)
-    options = report.ReportOptions(visit="all", generated_at="fixed", source_name=path.name,
-                                   survey_dir=tmp_path, report_dir=tmp_path)
-    return survey, shown, photos, report.markdown_report(survey, options), \
-        report.html_report(survey, options)
+    options = report.ReportOptions(
+        visit="all",
+        generated_at="fixed",
+        source_name=path.name,
+        survey_dir=tmp_path,
+        report_dir=tmp_path,
+    )
+    return (
+        survey,
+        shown,
+        photos,
+        report.markdown_report(survey, options),
+        report.html_report(survey, options),
+    )
 
 
 @pytest.fixture(scope="module")
 def hostile_plain(tmp_path_factory):
     tmp_path = tmp_path_factory.mktemp("plain")
     path, _, _ = _hostile_survey(tmp_path, plain=True)
-    options = report.ReportOptions(visit="all", generated_at="fixed", source_name=path.name,
-                                   survey_dir=tmp_path, report_dir=tmp_path)
+    options = report.ReportOptions(
+        visit="all",
+        generated_at="fixed",
+        source_name=path.name,
+        survey_dir=tmp_path,
+        report_dir=tmp_path,
+    )
     return report.markdown_report(store.load_survey(path), options)
 
 
@@ -126,18 +160,32 @@ def test_hostile_text_leaves_the_structure_intact(hostile, hostile_plain):
     markdown = hostile[3]
     tokens = MarkdownIt("commonmark", {"html": False}).enable("table").parse(markdown)
     kinds = {t.type for t in tokens} | {c.type for t in tokens for c in t.children or ()}
-    assert not kinds & {"html_block", "html_inline", "link_open", "code_inline", "code_block",
-                        "fence", "blockquote_open", "hr", "s_open", "lheading"}
+    assert not kinds & {
+        "html_block",
+        "html_inline",
+        "link_open",
+        "code_inline",
+        "code_block",
+        "fence",
+        "blockquote_open",
+        "hr",
+        "s_open",
+        "lheading",
+    }
     images = [c for t in tokens for c in t.children or () if c.type == "image"]
     assert len(images) == 1  # the one photo that exists; the others are listed as missing
     assert images[0].attrs["src"].startswith("photos/")
-    plain_tokens = MarkdownIt("commonmark", {"html": False}).enable("table").parse(
-        hostile_plain)
+    plain_tokens = MarkdownIt("commonmark", {"html": False}).enable("table").parse(hostile_plain)
     assert [t.type for t in tokens] == [t.type for t in plain_tokens]
 
     def marks(stream):
-        return [c.type for t in stream for c in t.children or ()
-                if c.type in ("strong_open", "em_open", "image", "hardbreak")]
+        return [
+            c.type
+            for t in stream
+            for c in t.children or ()
+            if c.type in ("strong_open", "em_open", "image", "hardbreak")
+        ]
+
     assert marks(tokens) == marks(plain_tokens)
 
 
@@ -168,7 +216,7 @@ def test_hostile_text_never_becomes_a_tag_in_the_html(hostile):
     assert "\x1b" not in page and "\x07" not in page and "\u202e" not in page
 
 
-@pytest.mark.parametrize("text", HOSTILE + ["", "   ", "-3.2 °C", "12. not a list", "a\nb"])
+@pytest.mark.parametrize("text", [*HOSTILE, "", "   ", "-3.2 °C", "12. not a list", "a\nb"])
 def test_escape_gives_the_text_back(text):
     """One escaped string renders to exactly its visible text, inside a paragraph and inside
     a table cell."""

@@ -18,25 +18,40 @@ from survey.errors import InputError
 
 def register(subparsers: argparse._SubParsersAction) -> None:
     report = subparsers.add_parser(
-        "report", help="write the site report of a survey (Markdown, or HTML with --html)",
+        "report",
+        help="write the site report of a survey (Markdown, or HTML with --html)",
         description="Write the site report of a survey for the client: a summary, the scope, "
-                    "the conditions, each room's readings, findings and actions, drying "
-                    "progress over several visits, safety, the method and its sources. "
-                    "GitHub-flavoured Markdown by default; --html writes one self-contained "
-                    "page a browser prints to PDF.")
+        "the conditions, each room's readings, findings and actions, drying "
+        "progress over several visits, safety, the method and its sources. "
+        "GitHub-flavoured Markdown by default; --html writes one self-contained "
+        "page a browser prints to PDF.",
+    )
     report.add_argument("file", metavar="FILE", help="the survey file (.json)")
-    report.add_argument("-o", "--output", metavar="REPORT",
-                        help="the report file to write (default: beside the survey, "
-                             "NAME-report.md, or NAME-report.html with --html); an existing "
-                             "report is replaced")
-    report.add_argument("--units", choices=("si", "ip"), default=None,
-                        help="units of the report (default: the survey's unit system)")
-    report.add_argument("--visit", metavar="N|all", default="last",
-                        help="which visit to report: its number (1 is the first), or all "
-                             "(default: the last visit; drying progress always shows every "
-                             "visit)")
-    report.add_argument("--html", action="store_true",
-                        help="write one HTML page instead of Markdown")
+    report.add_argument(
+        "-o",
+        "--output",
+        metavar="REPORT",
+        help="the report file to write (default: beside the survey, "
+        "NAME-report.md, or NAME-report.html with --html); an existing "
+        "report is replaced",
+    )
+    report.add_argument(
+        "--units",
+        choices=("si", "ip"),
+        default=None,
+        help="units of the report (default: the survey's unit system)",
+    )
+    report.add_argument(
+        "--visit",
+        metavar="N|all",
+        default="last",
+        help="which visit to report: its number (1 is the first), or all "
+        "(default: the last visit; drying progress always shows every "
+        "visit)",
+    )
+    report.add_argument(
+        "--html", action="store_true", help="write one HTML page instead of Markdown"
+    )
     report.set_defaults(handler=run_report)
 
 
@@ -72,11 +87,18 @@ def check_output(survey_path: Path, out: Path, shown: str) -> None:
 
     for protected in (survey_path, store.backup_path(survey_path), store.lock_path(survey_path)):
         if _same_file(protected, out):
-            raise InputError("--output", shown, "that is the survey file (or its backup or "
-                                                "lock); choose another name for the report")
+            raise InputError(
+                "--output",
+                shown,
+                "that is the survey file (or its backup or "
+                "lock); choose another name for the report",
+            )
     if out.suffix.lower() == ".json":
-        raise InputError("--output", shown, "a report is Markdown (.md) or HTML (.html), "
-                                            "not .json; choose another name")
+        raise InputError(
+            "--output",
+            shown,
+            "a report is Markdown (.md) or HTML (.html), not .json; choose another name",
+        )
 
 
 def run_report(args: argparse.Namespace) -> int:
@@ -91,17 +113,26 @@ def run_report(args: argparse.Namespace) -> int:
     check_output(path, out, args.output or str(out))
     survey = store.load_survey(path)
     options = report.ReportOptions(
-        visit=visit, units=args.units,
-        generated_at=dt.datetime.now(dt.timezone.utc).strftime("%Y-%m-%d %H:%M UTC"),
-        source_name=path.name, survey_dir=path.parent, report_dir=out.parent)
+        visit=visit,
+        units=args.units,
+        generated_at=dt.datetime.now(dt.UTC).strftime("%Y-%m-%d %H:%M UTC"),
+        source_name=path.name,
+        survey_dir=path.parent,
+        report_dir=out.parent,
+    )
     try:
-        text = (report.html_report(survey, options) if args.html
-                else report.markdown_report(survey, options))
+        text = (
+            report.html_report(survey, options)
+            if args.html
+            else report.markdown_report(survey, options)
+        )
     except InputError as exc:
         if exc.field == "visit":
             raise exc.with_field("--visit") from None
         raise
     store.write_file_atomically(out, text.encode("utf-8"))
-    print(f"Wrote the report of {visible(path.name)} to {visible(out)}"
-          f" ({'HTML' if args.html else 'Markdown'}).")
+    print(
+        f"Wrote the report of {visible(path.name)} to {visible(out)}"
+        f" ({'HTML' if args.html else 'Markdown'})."
+    )
     return 0

@@ -19,8 +19,16 @@ from survey import model
 from survey.report.build import ReportOptions, build, selected_visits
 from survey.report.markdown import Document, escape, render
 
-__all__ = ["Document", "ReportOptions", "build", "escape", "html_report", "markdown_report",
-           "render", "selected_visits"]
+__all__ = [
+    "Document",
+    "ReportOptions",
+    "build",
+    "escape",
+    "html_report",
+    "markdown_report",
+    "render",
+    "selected_visits",
+]
 
 
 def markdown_report(survey: model.Survey, options: ReportOptions | None = None) -> str:

@@ -11,6 +11,7 @@ from __future__ import annotations
 import datetime as dt
 from dataclasses import dataclass
 from pathlib import Path
+from typing import Any
 
 from survey import evaluate, model, words
 from survey import thresholds as th
@@ -52,14 +53,18 @@ def selected_visits(survey: model.Survey, visit: int | str) -> list[int]:
     if visit == "last":
         return [count - 1] if count else []
     if isinstance(visit, bool) or not isinstance(visit, int) or not 1 <= visit <= count:
-        allowed = (f"a visit number from 1 to {count}, or all" if count
-                   else "the survey has no visits yet")
+        allowed = (
+            f"a visit number from 1 to {count}, or all" if count else "the survey has no visits yet"
+        )
         raise InputError("visit", visit, allowed)
     return [visit - 1]
 
 
-def build(survey: model.Survey, options: ReportOptions | None = None,
-          assessments: dict[int, evaluate.VisitAssessment] | None = None) -> Document:
+def build(
+    survey: model.Survey,
+    options: ReportOptions | None = None,
+    assessments: dict[int, evaluate.VisitAssessment] | None = None,
+) -> Document:
     """The report of ``survey`` as a :class:`~survey.report.markdown.Document`.
 
     ``assessments`` may hold visits already judged (by visit index), e.g. by a face that
@@ -67,11 +72,18 @@ def build(survey: model.Survey, options: ReportOptions | None = None,
     options = options or ReportOptions()
     d = words.Display(options.units or survey.site.unit_system)
     shown = selected_visits(survey, options.visit)
-    ctx = Context(survey, d, options.survey_dir, options.report_dir, len(survey.visits),
-                  dict(assessments or {}))
+    ctx = Context(
+        survey,
+        d,
+        options.survey_dir,
+        options.report_dir,
+        len(survey.visits),
+        dict(assessments or {}),
+    )
     doc = Document(rw.title(survey.site.reference))
-    doc.add(Heading(1, doc.title),
-            Para(rw.generated_line(options.generated_at, options.source_name)))
+    doc.add(
+        Heading(1, doc.title), Para(rw.generated_line(options.generated_at, options.source_name))
+    )
     _title_block(doc, ctx, shown)
     _summary(doc, ctx, shown)
     _scope(doc, ctx, shown)
@@ -81,8 +93,10 @@ def build(survey: model.Survey, options: ReportOptions | None = None,
         drying_section(doc, ctx)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
-    doc.add(Heading(2, rw.HEADINGS["glossary"]),
-            Items(tuple((term + ":", text) for term, text in rw.glossary(d))))
+    doc.add(
+        Heading(2, rw.HEADINGS["glossary"]),
+        Items(tuple((term + ":", text) for term, text in rw.glossary(d))),
+    )
     return doc
 
 
@@ -91,23 +105,31 @@ def _title_block(doc: Document, ctx: Context, shown: list[int]) -> None:
     labels = rw.TITLE_LABELS
     inspectors = [site.inspector] + [ctx.survey.visits[i].inspector for i in shown]
     items = [
-        (labels["reference"], site.reference), (labels["address"], site.address),
+        (labels["reference"], site.reference),
+        (labels["address"], site.address),
         (labels["client"], site.client),
         (labels["purpose"], rw.PURPOSE_WORDS[site.purpose]),
-        (labels["visits"], rw.visits_text([v.started_at for v in ctx.survey.visits],
-                                          [i + 1 for i in shown])),
+        (
+            labels["visits"],
+            rw.visits_text([v.started_at for v in ctx.survey.visits], [i + 1 for i in shown]),
+        ),
         (labels["inspector"], rw.names_list(dict.fromkeys(n for n in inspectors if n.strip()))),
         (labels["construction"], site.construction),
         (labels["year_built"], "" if site.year_built is None else str(site.year_built)),
         (labels["units"], rw.units_text(ctx.d)),
     ]
-    doc.add(Items(tuple((f"{label}:", value) for label, value in items if value.strip()),
-                  name="title_block"))
+    doc.add(
+        Items(
+            tuple((f"{label}:", value) for label, value in items if value.strip()),
+            name="title_block",
+        )
+    )
 
 
 # --- summary ---------------------------------------------------------------------------------
 
-def _concern(surface) -> int:
+
+def _concern(surface: Any) -> int:
     """How much a surface matters for the summary: water or frost forming (or possibly),
     mould limit passed (or possibly), the temperature factor under its limit; 0 for a
     surface only near a limit."""
@@ -115,8 +137,10 @@ def _concern(surface) -> int:
     condensation, mould = surface.condensation, surface.mould
     if condensation is CondensationState.CONDENSING:
         rank += 3
-    elif (condensation is CondensationState.CANNOT_TELL
-          and CondensationState.CONDENSING in surface.condensation_possible):
+    elif (
+        condensation is CondensationState.CANNOT_TELL
+        and CondensationState.CONDENSING in surface.condensation_possible
+    ):
         rank += 2
     if mould is MouldState.ABOVE:
         rank += 3
@@ -138,14 +162,23 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
     if len(ctx.survey.visits) > 1:
         visit = ctx.survey.visits[shown[-1]]
-        doc.add(Para(rw.summary_as_of(rw.visit_heading(shown[-1] + 1, len(ctx.survey.visits),
-                                                       visit.label, visit.started_at))))
+        doc.add(
+            Para(
+                rw.summary_as_of(
+                    rw.visit_heading(
+                        shown[-1] + 1, len(ctx.survey.visits), visit.label, visit.started_at
+                    )
+                )
+            )
+        )
     found: list[tuple[str, str]] = []
     for f in va.findings.rooms:
-        worst = sorted((s for s in f.surfaces if _concern(s)),
-                       key=lambda s: (-_concern(s), s.surface_temp_c))
-        lines = [rw.surface_summary(s, words.short_verdict(s, d), d)
-                 for s in worst[:SURFACES_IN_SUMMARY]]
+        worst = sorted(
+            (s for s in f.surfaces if _concern(s)), key=lambda s: (-_concern(s), s.surface_temp_c)
+        )
+        lines = [
+            rw.surface_summary(s, words.short_verdict(s, d), d) for s in worst[:SURFACES_IN_SUMMARY]
+        ]
         if len(worst) > SURFACES_IN_SUMMARY:
             lines.append(rw.more_surfaces_summary(len(worst) - SURFACES_IN_SUMMARY))
         obs = f.room.observations
@@ -155,17 +188,15 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
         if wet:
             lines.append(rw.wet_materials_summary(wet))
         limit = words.rh_limit_text(f)
-        if (limit is not None and f.max_room_rh_pct is not None
-                and f.air.rh_pct > f.max_room_rh_pct):
+        if limit is not None and f.max_room_rh_pct is not None and f.air.rh_pct > f.max_room_rh_pct:
             lines.append(rw.rh_summary(f, limit))
         if lines:
             found.append((rw.lead_in(f.name), " ".join(lines)))
     doc.add(Heading(3, rw.SUMMARY_FINDINGS))
-    doc.add(Items(tuple(found), name="summary_findings") if found
-            else Para(rw.SUMMARY_NO_FINDINGS))
+    doc.add(Items(tuple(found), name="summary_findings") if found else Para(rw.SUMMARY_NO_FINDINGS))
     todo: list[tuple[str, str]] = []
     said = []
-    for f, advice in zip(va.findings.rooms, va.advice.rooms):
+    for f, advice in zip(va.findings.rooms, va.advice.rooms, strict=False):
         if not advice.actions:
             continue
         first = [advice.actions[0]]
@@ -173,17 +204,23 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
         if numbered is not None and numbered is not first[0]:
             first.append(numbered)
         said += first
-        todo.append((rw.lead_in(f.name), rw.action_summary(
-            [(words.action_title(a), words.action_numbers(a, d)) for a in first])))
+        todo.append(
+            (
+                rw.lead_in(f.name),
+                rw.action_summary(
+                    [(words.action_title(a), words.action_numbers(a, d)) for a in first]
+                ),
+            )
+        )
     doc.add(Heading(3, rw.SUMMARY_ACTIONS))
     if not todo:
         doc.add(Para(rw.SUMMARY_NO_ACTIONS))
         return
-    doc.add(Items(tuple(todo), name="summary_actions", values=tuple(said)),
-            Para(rw.SUMMARY_MORE))
+    doc.add(Items(tuple(todo), name="summary_actions", values=tuple(said)), Para(rw.SUMMARY_MORE))
 
 
 # --- scope and instruments -------------------------------------------------------------------
+
 
 def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
     survey = ctx.survey
@@ -193,15 +230,20 @@ def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
         va = ctx.assessment(index)
         measured = [ctx.room_name(r) for r in va.room_ids]
         visited = ctx.room_visits(index)
-        unmeasured = [ctx.room_name(rv.room) for rv in visit.rooms
-                      if ctx.position(index, rv.room) is None]
+        unmeasured = [
+            ctx.room_name(rv.room) for rv in visit.rooms if ctx.position(index, rv.room) is None
+        ]
         lines = [rw.rooms_entered_text(measured)]
         if unmeasured:
             lines.append(rw.rooms_not_measured_text(unmeasured))
-        lines.append(rw.rooms_not_entered_text(
-            [r.name for r in survey.rooms if r.id not in visited]))
-        lead = (rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at)
-                + ":") if len(shown) > 1 else ""
+        lines.append(
+            rw.rooms_not_entered_text([r.name for r in survey.rooms if r.id not in visited])
+        )
+        lead = (
+            (rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at) + ":")
+            if len(shown) > 1
+            else ""
+        )
         doc.add(Para(" ".join(lines), strong=lead))
     doc.add(Para(rw.NOT_COVERED), Para(rw.SPOT_READINGS))
     if survey.site.notes.strip():
@@ -210,16 +252,29 @@ def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
     if not survey.instruments:
         doc.add(Para(rw.NO_INSTRUMENTS))
         return
-    rows = tuple((
-        Cell(i.name), Cell(rw.INSTRUMENT_KIND_WORDS[i.kind]), Cell(i.serial),
-        Cell(rw.instrument_accuracy_text(i.air_temp_accuracy_k, i.rh_accuracy_pct,
-                                         i.surface_temp_accuracy_k, i.moisture_accuracy, ctx.d)),
-        Cell(rw.calibration_text(i.calibrated_on)),
-    ) for i in survey.instruments)
+    rows = tuple(
+        (
+            Cell(i.name),
+            Cell(rw.INSTRUMENT_KIND_WORDS[i.kind]),
+            Cell(i.serial),
+            Cell(
+                rw.instrument_accuracy_text(
+                    i.air_temp_accuracy_k,
+                    i.rh_accuracy_pct,
+                    i.surface_temp_accuracy_k,
+                    i.moisture_accuracy,
+                    ctx.d,
+                )
+            ),
+            Cell(rw.calibration_text(i.calibrated_on)),
+        )
+        for i in survey.instruments
+    )
     doc.add(Table(rw.INSTRUMENT_HEADER, rows, name="instruments"))
 
 
 # --- a visit ---------------------------------------------------------------------------------
+
 
 def _pressure_basis(survey: model.Survey, visit: model.Visit) -> str:
     if visit.pressure_pa is not None:
@@ -235,39 +290,62 @@ def _logger_before(ctx: Context, visit: model.Visit) -> list[str]:
         if log.room is not None:
             continue
         try:
-            samples = [s for s in log.samples
-                       if visit.started_at - DAYS_BEFORE <= s.at <= visit.started_at]
+            samples = [
+                s for s in log.samples if visit.started_at - DAYS_BEFORE <= s.at <= visit.started_at
+            ]
         except TypeError:  # naive and aware times mixed
             continue
         if samples:
             temps = [s.dry_bulb_c for s in samples]
             rhs = [s.rh_pct for s in samples]
-            lines.append(rw.logger_before_text(log.source, len(samples), samples[0].at,
-                                               samples[-1].at, min(temps), max(temps),
-                                               min(rhs), max(rhs), ctx.d))
+            lines.append(
+                rw.logger_before_text(
+                    log.source,
+                    len(samples),
+                    samples[0].at,
+                    samples[-1].at,
+                    min(temps),
+                    max(temps),
+                    min(rhs),
+                    max(rhs),
+                    ctx.d,
+                )
+            )
     return lines
 
 
-def _air_row(name: str, state, d: words.Display) -> tuple[Cell, ...]:
+def _air_row(name: str, state: Any, d: words.Display) -> tuple[Cell, ...]:
     point = state.condensation_point_c
-    return (Cell(name), Cell(d.temperature(state.dry_bulb_c), state.dry_bulb_c, "dry_bulb_c"),
-            Cell(rw.rh_text(state.rh_pct), state.rh_pct, "rh_pct"),
-            Cell(d.temperature(point), point, "condensation_point_c"),
-            Cell(d("humidity_ratio", state.humidity_ratio_kg_per_kg),
-                 state.humidity_ratio_kg_per_kg, "humidity_ratio_kg_per_kg"),
-            Cell(d("vapour_pressure", state.vapour_pressure_pa), state.vapour_pressure_pa,
-                 "vapour_pressure_pa"))
+    return (
+        Cell(name),
+        Cell(d.temperature(state.dry_bulb_c), state.dry_bulb_c, "dry_bulb_c"),
+        Cell(rw.rh_text(state.rh_pct), state.rh_pct, "rh_pct"),
+        Cell(d.temperature(point), point, "condensation_point_c"),
+        Cell(
+            d("humidity_ratio", state.humidity_ratio_kg_per_kg),
+            state.humidity_ratio_kg_per_kg,
+            "humidity_ratio_kg_per_kg",
+        ),
+        Cell(
+            d("vapour_pressure", state.vapour_pressure_pa),
+            state.vapour_pressure_pa,
+            "vapour_pressure_pa",
+        ),
+    )
 
 
 def _visit(doc: Document, ctx: Context, index: int) -> None:
     survey, d = ctx.survey, ctx.d
     visit = survey.visits[index]
     va = ctx.assessment(index)
-    doc.add(Heading(2, rw.visit_heading(index + 1, len(survey.visits), visit.label,
-                                        visit.started_at)))
+    doc.add(
+        Heading(2, rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at))
+    )
     doc.add(Heading(3, rw.HEADINGS["conditions"]))
-    lines = [rw.weather_text(visit.weather),
-             rw.pressure_text(va.findings.pressure_pa, _pressure_basis(survey, visit), d)]
+    lines = [
+        rw.weather_text(visit.weather),
+        rw.pressure_text(va.findings.pressure_pa, _pressure_basis(survey, visit), d),
+    ]
     doc.add(Para(" ".join(lines)))
     for line in _logger_before(ctx, visit):
         doc.add(Para(line))
@@ -282,20 +360,33 @@ def _visit(doc: Document, ctx: Context, index: int) -> None:
             f = va.findings.rooms[position]
             rows.append(_air_row(rw.reference_room_name(f.name), f.air, d))
     if rows:
-        doc.add(Table(rw.CONDITIONS_HEADER, tuple(rows), frozenset(range(1, 6)),
-                      name="conditions", visit=index + 1))
+        doc.add(
+            Table(
+                rw.CONDITIONS_HEADER,
+                tuple(rows),
+                frozenset(range(1, 6)),
+                name="conditions",
+                visit=index + 1,
+            )
+        )
     if visit.inspector.strip() and visit.inspector != survey.site.inspector:
         doc.add(Para(visit.inspector, strong=rw.TITLE_LABELS["inspector"] + ":"))
     if visit.notes.strip():
         doc.add(Para(visit.notes, strong=rw.NOTES_LABELS["visit"] + ":", note=True))
     if visit.photos:
-        doc.add(*photo_blocks(ctx, rw.visit_heading(index + 1, len(survey.visits), visit.label,
-                                                    visit.started_at), list(visit.photos)))
+        doc.add(
+            *photo_blocks(
+                ctx,
+                rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at),
+                list(visit.photos),
+            )
+        )
     for position in range(len(va.room_ids)):
         room_section(doc, ctx, va, position, 3)
 
 
 # --- safety, method --------------------------------------------------------------------------
+
 
 def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
@@ -313,28 +404,40 @@ def _safety(doc: Document, ctx: Context, shown: list[int]) -> None:
                     where[caution].append(place)
     doc.add(Heading(2, rw.HEADINGS["safety"]))
     if where:
-        doc.add(Para(rw.SAFETY_INTRO),
-                Items(tuple(("", rw.applies_to(words.caution_text(c, d), rooms))
-                            for c, rooms in where.items()),
-                      name="cautions", values=tuple(where)))
+        doc.add(
+            Para(rw.SAFETY_INTRO),
+            Items(
+                tuple(
+                    ("", rw.applies_to(words.caution_text(c, d), rooms))
+                    for c, rooms in where.items()
+                ),
+                name="cautions",
+                values=tuple(where),
+            ),
+        )
     else:
         doc.add(Para(rw.SAFETY_NONE))
-    doc.add(Para("", strong=rw.GENERAL_LEAD + ":"),
-            Items(tuple(("", text) for text in rw.GENERAL_CAUTIONS), name="general_cautions"),
-            Para(words.CLOSING_TEXT), Para(rw.DEFERRAL))
+    doc.add(
+        Para("", strong=rw.GENERAL_LEAD + ":"),
+        Items(tuple(("", text) for text in rw.GENERAL_CAUTIONS), name="general_cautions"),
+        Para(words.CLOSING_TEXT),
+        Para(rw.DEFERRAL),
+    )
 
 
 def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
     d = ctx.d
-    doc.add(Heading(2, rw.HEADINGS["method"]),
-            Items(tuple((rw.lead_in(name), text) for name, text in rw.method_items(d))))
+    doc.add(
+        Heading(2, rw.HEADINGS["method"]),
+        Items(tuple((rw.lead_in(name), text) for name, text in rw.method_items(d))),
+    )
     keys: set[str] = set()
     entered: dict[str, bool] = {}
     worst = {"air_temp_k": 0.0, "rh_pct": 0.0, "surface_temp_k": 0.0}
     for index in shown:
         va = ctx.assessment(index)
         keys.update(va.findings.threshold_keys)
-        for f, advice in zip(va.findings.rooms, va.advice.rooms):
+        for f, advice in zip(va.findings.rooms, va.advice.rooms, strict=False):
             keys.update(f.threshold_keys)
             keys.update(advice.threshold_keys)
             for s in f.surfaces:
@@ -346,13 +449,24 @@ def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
         for key, value in va.accuracy_entered.items():
             entered[key] = entered.get(key, True) and value
     if shown:
-        doc.add(Para(rw.accuracy_method_text(entered, worst["air_temp_k"], worst["rh_pct"],
-                                             worst["surface_temp_k"], d)))
+        doc.add(
+            Para(
+                rw.accuracy_method_text(
+                    entered, worst["air_temp_k"], worst["rh_pct"], worst["surface_temp_k"], d
+                )
+            )
+        )
     limits = th.cited(keys)
     if limits:
-        doc.add(Heading(3, rw.HEADINGS["limits"]), Para(rw.LIMITS_INTRO),
-                Items(tuple(("", words.client_citation(t, d)) for t in limits),
-                      name="limits", values=tuple(limits)))
+        doc.add(
+            Heading(3, rw.HEADINGS["limits"]),
+            Para(rw.LIMITS_INTRO),
+            Items(
+                tuple(("", words.client_citation(t, d)) for t in limits),
+                name="limits",
+                values=tuple(limits),
+            ),
+        )
         legend = words.legend(limits)
         if legend:
             doc.add(Items(tuple(("", line) for line in legend), name="legend"))

@@ -10,6 +10,7 @@ path. A browser prints it to PDF.
 from __future__ import annotations
 
 import html
+from typing import Any
 
 #: Print-friendly styles: A4 margins, tables that break between rows, headings kept with
 #: what follows them, and links printed as plain text.
@@ -36,18 +37,21 @@ li { margin: 0.2em 0; }
 """.strip()
 
 
-def parser():
+def parser() -> Any:
     """The one Markdown parser of the report: CommonMark + tables, raw HTML off."""
     from markdown_it import MarkdownIt
 
-    return MarkdownIt("commonmark", {"html": False, "linkify": False,
-                                     "typographer": False}).enable("table")
+    return MarkdownIt("commonmark", {"html": False, "linkify": False, "typographer": False}).enable(
+        "table"
+    )
 
 
 def to_html(markdown_text: str, title: str) -> str:
     """A whole HTML document of the Markdown report, titled ``title``."""
     body = parser().render(markdown_text)
-    return ("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
-            "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n"
-            f"<title>{html.escape(title)}</title>\n<style>\n{_CSS}\n</style>\n</head>\n"
-            f"<body>\n{body}</body>\n</html>\n")
+    return (
+        '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n'
+        '<meta name="viewport" content="width=device-width, initial-scale=1">\n'
+        f"<title>{html.escape(title)}</title>\n<style>\n{_CSS}\n</style>\n</head>\n"
+        f"<body>\n{body}</body>\n</html>\n"
+    )

@@ -31,9 +31,9 @@ breaks, each line escaped on its own.
 from __future__ import annotations
 
 import re
+from collections.abc import Iterable
 from dataclasses import dataclass, field
 from functools import lru_cache
-from typing import Union
 
 from survey.safe_text import visible
 
@@ -50,7 +50,7 @@ def _escape_str(text: str) -> str:
     match = _LEADING.match(shown)
     if match:
         mark = match.group(1)
-        shown = (mark[:-1] + "\\" + mark[-1]) + shown[len(mark):]
+        shown = (mark[:-1] + "\\" + mark[-1]) + shown[len(mark) :]
     return shown
 
 
@@ -65,8 +65,8 @@ def escape_lines(text: object) -> list[str]:
     Returns Markdown lines: a line inside a paragraph ends with a backslash (a hard break),
     paragraphs are separated by an empty line."""
     paragraphs: list[list[str]] = [[]]
-    lines = str(text).replace("\r\n", "\n")
-    for line in visible(lines, keep_newlines=True).split("\n"):
+    raw = str(text).replace("\r\n", "\n")
+    for line in visible(raw, keep_newlines=True).split("\n"):
         if not line.strip():
             if paragraphs[-1]:
                 paragraphs.append([])
@@ -84,6 +84,7 @@ def escape_lines(text: object) -> list[str]:
 
 
 # --- blocks ----------------------------------------------------------------------------------
+
 
 @dataclass(frozen=True, slots=True)
 class Cell:
@@ -140,8 +141,10 @@ class Table:
     def __post_init__(self) -> None:
         for row in self.rows:
             if len(row) != len(self.header):
-                raise ValueError(f"table {self.name!r}: a row of {len(row)} cells under a "
-                                 f"header of {len(self.header)}")
+                raise ValueError(
+                    f"table {self.name!r}: a row of {len(row)} cells under a "
+                    f"header of {len(self.header)}"
+                )
 
 
 @dataclass(frozen=True, slots=True)
@@ -152,7 +155,7 @@ class Photo:
     link: str
 
 
-Block = Union[Heading, Para, Items, Table, Photo]
+Block = Heading | Para | Items | Table | Photo
 
 
 @dataclass(slots=True)
@@ -168,6 +171,7 @@ class Document:
 
 # --- Markdown --------------------------------------------------------------------------------
 
+
 def _strong(lead: str) -> str:
     return f"**{escape(lead)}**" if lead else ""
 
@@ -179,7 +183,7 @@ def _join(lead: str, text: str) -> str:
 
 
 def _table(table: Table) -> list[str]:
-    def line(cells) -> str:
+    def line(cells: Iterable[str]) -> str:
         return "| " + " | ".join(cells) + " |"
 
     head = [escape(h) or " " for h in table.header]
@@ -219,7 +223,6 @@ def render(doc: Document) -> str:
         elif isinstance(block, Table):
             lines = _table(block)
         else:
-            lines = [f"![{escape(block.caption)}]({block.link})", "",
-                     f"*{escape(block.caption)}*"]
+            lines = [f"![{escape(block.caption)}]({block.link})", "", f"*{escape(block.caption)}*"]
         parts.append("\n".join(lines))
     return "\n\n".join(parts) + "\n"

@@ -73,6 +73,22 @@ def _mould(area: float, d: Display) -> str:
     )
 
 
+#: A caution's short name, for a list of the cautions that apply to a room.
+CAUTION_NAMES = {
+    "visible_mould": "visible mould",
+    "mould_if_visible": "mould if seen",
+    "water_category_3": "category 3 water",
+    "water_category_2": "category 2 water",
+    "water_category_1": "category 1 water",
+    "electrics_near_water": "electrics near water",
+    "confined_space": "confined space",
+    "combustion_heaters": "combustion heaters",
+    "asbestos_lead": "old materials (asbestos, lead)",
+    "combustion_air": "combustion air of flued appliances",
+    "closing": "local codes and licensed professionals",
+}
+
+
 def caution_text(caution: Caution, d: Display) -> str:
     """The caution as a sentence or two."""
     key = caution.key
