@@ -278,7 +278,11 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice, 
     target = _pct(n.target_rh_pct)
     text = _dehumidify_why(n, finding, advice, d) + _grain_depression(n, finding)
     gains = []
-    if n.generation_g_per_h is not None:
+    if n.generation_g_per_h == 0.0:
+        gains.append(
+            f"the room itself adds no moisture ({moisture_basis(moisture, finding.use, d)})"
+        )
+    elif n.generation_g_per_h is not None:
         gains.append(
             f"the room gains {d.moisture_rate(n.generation_g_per_h)} (moisture load: "
             f"{moisture_basis(moisture, finding.use, d)})"
@@ -373,7 +377,12 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice, 
     if abs(air.dry_bulb_c - new) <= 2.0:
         text += (
             f"; this room is near the current rating point, so a current rating is close "
-            f"at {_pct(rating_rh)} RH, but less as the room dries toward {target}"
+            f"at {_pct(rating_rh)} RH"
+            + (
+                f", but less as the room dries toward {target}"
+                if n.target_rh_pct < rating_rh
+                else ""
+            )
         )
     elif air.dry_bulb_c < new:
         text += ", and less than even a current rating says, being cooler than its test point"

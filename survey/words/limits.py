@@ -24,6 +24,12 @@ def limit_value_text(t: th.Threshold, d: Display) -> str:
         return d("vapour_pressure", t.value)
     if t.unit == "m²":
         return d.area(t.value)
+    if t.unit == "g/kg":
+        return d("humidity_ratio", t.value / 1000.0)
+    if t.unit == "year":
+        return f"{t.value:.0f}"
+    if t.unit == "" and 0.0 < t.value < 1.0 and t.key.endswith("_fraction"):
+        return f"{t.value * 100:g} %"
     return t.value_text
 
 

@@ -148,6 +148,11 @@ def factor_not_judged_reason(finding: RoomFinding, d: Display) -> str | None:
     if finding.outdoor is None:
         return "no outdoor reading"
     difference = finding.air.dry_bulb_c - finding.outdoor.dry_bulb_c
+    if difference <= 0.0:
+        return (
+            f"outdoors is as warm as inside or warmer ({d.difference(-difference)} warmer); "
+            f"the factor needs the inside at least {d.difference(least, 0)} warmer"
+        )
     if difference < least:
         return (
             f"the inside-outside difference is {d.difference(difference)}, under the "
