@@ -175,9 +175,13 @@ PressurePa = Annotated[
 AltitudeM = Annotated[
     float, Meta(ge=ALTITUDE_MIN_M, le=ALTITUDE_MAX_M, description="Altitude above sea level, m.")
 ]
-AirTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.AIR_TEMP_ACCURACY_MAX_K)]
-SurfaceTempAccuracyK = Annotated[float, Meta(gt=0.0, le=domain.SURFACE_TEMP_ACCURACY_MAX_K)]
-RhAccuracyPct = Annotated[float, Meta(gt=0.0, le=domain.RH_ACCURACY_MAX_PCT)]
+AirTempAccuracyK = Annotated[
+    float, Meta(ge=domain.AIR_TEMP_ACCURACY_MIN_K, le=domain.AIR_TEMP_ACCURACY_MAX_K)
+]
+SurfaceTempAccuracyK = Annotated[
+    float, Meta(ge=domain.SURFACE_TEMP_ACCURACY_MIN_K, le=domain.SURFACE_TEMP_ACCURACY_MAX_K)
+]
+RhAccuracyPct = Annotated[float, Meta(ge=domain.RH_ACCURACY_MIN_PCT, le=domain.RH_ACCURACY_MAX_PCT)]
 Sha256 = Annotated[str, Meta(pattern=r"^[0-9a-f]{64}$")]
 
 _RECORD = {"kw_only": True, "forbid_unknown_fields": True, "omit_defaults": True}

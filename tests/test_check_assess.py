@@ -194,21 +194,24 @@ def test_humid_summer_dehumidify(check):
 
 
 def test_accuracies_entered_are_used_and_stated(check):
-    """Zero-accuracy instruments leave no band: the warm wall is plainly near the dew point."""
+    """Fine accuracies (0.01 K, 0.5 %RH; 0 is refused: no instrument reads exactly) leave a
+    band too narrow to matter: the warm wall is plainly near the dew point."""
+    status, _, err = check(*BEDROOM, "--rh-accuracy", "0")
+    assert status == 2 and "--rh-accuracy 0" in err
     status, out, _ = check(
         *BEDROOM,
         "--air-temp-accuracy",
-        "0",
+        "0.01",
         "--rh-accuracy",
-        "0",
+        "0.5",
         "--surface-temp-accuracy",
-        "0",
+        "0.01",
         "--json",
     )
     assert status == 0
     data = json.loads(out)
     warm = data["surfaces"][1]
-    assert warm["margin_uncertainty_k"] == 0.0
+    assert warm["margin_uncertainty_k"] < 0.2
     assert warm["condensation"] == "near_dew_point"
     assert data["accuracy"]["given"]["rh_pct"] is True
     _, out, _ = check(
@@ -264,7 +267,7 @@ def test_ip_units_for_volume_and_accuracy(check):
         (["--occupants", "two"], "--occupants two: expected a whole number"),
         (["--target-rh", "95"], "--target-rh 95: target RH must be between 25 and 80 %"),
         (["--use", "garage"], "argument --use: invalid choice: 'garage'"),
-        (["--rh-accuracy", "50"], "--rh-accuracy 50: accuracy must be between 0 and 20 %RH"),
+        (["--rh-accuracy", "50"], "--rh-accuracy 50: accuracy must be between 0.1 and 20 %RH"),
         (["--air-temp-accuracy", "abc"], "--air-temp-accuracy abc: expected a number"),
         (
             ["--surface-temp-accuracy", "-1"],

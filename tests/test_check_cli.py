@@ -254,3 +254,28 @@ def test_bad_input_in_a_real_process_has_no_traceback():
     assert result.stderr.strip() == (
         "survey: --rh 120: relative humidity must be above 0 and at most 100 %"
     )
+
+
+def test_a_converted_value_out_of_range_says_what_it_was_read_as(check):
+    """30 ft³ is 0.85 m³ (1 ft = 0.3048 m exactly) and 21 K is −252.15 °C: the refusal says
+    so, so a unit typo is plain."""
+    status, _, err = check("--air-temp", "20", "--rh", "50", "--room-volume", "30 ft3")
+    assert status == 2 and "(read as 0.85 m³)" in err
+    status, _, err = check("--air-temp", "21 K", "--rh", "50")
+    assert status == 2 and "(read as −252.15 °C)" in err
+
+
+def test_an_instrument_accuracy_of_zero_is_refused(check):
+    """No instrument reads exactly: an accuracy of 0 is refused as it is in survey files."""
+    for option in ("--air-temp-accuracy", "--rh-accuracy", "--surface-temp-accuracy"):
+        status, _, err = check("--air-temp", "20", "--rh", "50", option, "0")
+        assert status == 2 and f"{option} 0" in err
+
+
+def test_rh_accuracy_below_one_is_an_accuracy_not_a_fraction(check):
+    """A hygrometer rated ±0.8 %RH is read as 0.8 %RH, not as a fraction."""
+    import json
+
+    status, out, err = check("--air-temp", "20", "--rh", "50", "--rh-accuracy", "0.8", "--json")
+    assert status == 0, err
+    assert json.loads(out)["accuracy"]["rh_pct"] == 0.8

@@ -33,9 +33,13 @@ def _instrument(**fields) -> model.Instrument:
         (_room(floor_area_m2=0.5), "floor_area_m2", "between 1 and 20000 m²"),
         (_room(height_m=60.0), "height_m", "between 1 and 50 m"),
         (_room(occupants=900), "occupants", "between 0 and 500"),
-        (_instrument(air_temp_accuracy_k=8.0), "air_temp_accuracy_k", "at most 5 K"),
-        (_instrument(rh_accuracy_pct=25.0), "rh_accuracy_pct", "at most 20 %"),
-        (_instrument(surface_temp_accuracy_k=11.0), "surface_temp_accuracy_k", "at most 10 K"),
+        (_instrument(air_temp_accuracy_k=8.0), "air_temp_accuracy_k", "between 0.01 and 5 K"),
+        (_instrument(rh_accuracy_pct=25.0), "rh_accuracy_pct", "between 0.1 and 20 %"),
+        (
+            _instrument(surface_temp_accuracy_k=11.0),
+            "surface_temp_accuracy_k",
+            "between 0.01 and 10 K",
+        ),
         (
             model.Observations(mould_visible=True, mould_area_m2=2e5),
             "mould_area_m2",

@@ -98,11 +98,13 @@ def surveys(draw) -> model.Survey:
                 serial=_text,
                 calibrated_on=_maybe(st.dates(dt.date(1990, 1, 1))),
                 air_temp_accuracy_k=_maybe(
-                    _floats(0, domain.AIR_TEMP_ACCURACY_MAX_K, exclude_low=True)
+                    _floats(domain.AIR_TEMP_ACCURACY_MIN_K, domain.AIR_TEMP_ACCURACY_MAX_K)
                 ),
-                rh_accuracy_pct=_maybe(_floats(0, domain.RH_ACCURACY_MAX_PCT, exclude_low=True)),
+                rh_accuracy_pct=_maybe(
+                    _floats(domain.RH_ACCURACY_MIN_PCT, domain.RH_ACCURACY_MAX_PCT)
+                ),
                 surface_temp_accuracy_k=_maybe(
-                    _floats(0, domain.SURFACE_TEMP_ACCURACY_MAX_K, exclude_low=True)
+                    _floats(domain.SURFACE_TEMP_ACCURACY_MIN_K, domain.SURFACE_TEMP_ACCURACY_MAX_K)
                 ),
                 emissivity=_maybe(_floats(0, 1, exclude_low=True)),
                 notes=_text,

@@ -30,8 +30,10 @@ from survey.commands.check_parse import (
     _option,
     _parse_mould_area,
     _parse_occupants,
+    _parse_rh_accuracy,
     _parse_volume,
     _plausibility,
+    _read_option,
     _SurfaceOption,
     _surfaces,
 )
@@ -249,19 +251,13 @@ def gather(args: argparse.Namespace) -> QuickInput:
     """The options typed, parsed to SI and range-checked; an error names the option."""
     system = args.units
     warnings: list[str] = []
-    air_temp = _option(
-        "--air-temp",
-        args.air_temp,
-        lambda t: units.parse_temperature(t, "--air-temp", system),
-        psychro.check_dry_bulb,
+    air_temp = _read_option(
+        "--air-temp", args.air_temp, "temperature", system, psychro.check_dry_bulb
     )
     rh = _option("--rh", args.rh, lambda t: units.parse_rh(t, "--rh"), psychro.check_rh)
     if args.pressure is not None:
-        pressure = _option(
-            "--pressure",
-            args.pressure,
-            lambda t: units.parse_pressure(t, "--pressure", system),
-            psychro.check_pressure,
+        pressure = _read_option(
+            "--pressure", args.pressure, "pressure", system, psychro.check_pressure
         )
     elif args.altitude is not None:
         pressure = _option(
@@ -283,11 +279,8 @@ def gather(args: argparse.Namespace) -> QuickInput:
         )
     if args.outdoor_temp is not None:
         outdoor = assess.OutdoorInput(
-            _option(
-                "--outdoor-temp",
-                args.outdoor_temp,
-                lambda t: units.parse_temperature(t, "--outdoor-temp", system),
-                psychro.check_dry_bulb,
+            _read_option(
+                "--outdoor-temp", args.outdoor_temp, "temperature", system, psychro.check_dry_bulb
             ),
             _option(
                 "--outdoor-rh",
@@ -326,14 +319,16 @@ def gather(args: argparse.Namespace) -> QuickInput:
         args.air_temp_accuracy,
         lambda t: units.parse_temperature_difference(t, "--air-temp-accuracy", system),
         "accuracy_air_temp_k",
+        domain.AIR_TEMP_ACCURACY_MIN_K,
         domain.AIR_TEMP_ACCURACY_MAX_K,
         "K",
     )
     rh_acc, rh_given = _accuracy_option(
         "--rh-accuracy",
         args.rh_accuracy,
-        lambda t: units.parse_rh(t, "--rh-accuracy"),
+        _parse_rh_accuracy,
         "accuracy_rh_pct",
+        domain.RH_ACCURACY_MIN_PCT,
         domain.RH_ACCURACY_MAX_PCT,
         "%RH",
     )
@@ -342,6 +337,7 @@ def gather(args: argparse.Namespace) -> QuickInput:
         args.surface_temp_accuracy,
         lambda t: units.parse_temperature_difference(t, "--surface-temp-accuracy", system),
         "accuracy_surface_temp_k",
+        domain.SURFACE_TEMP_ACCURACY_MIN_K,
         domain.SURFACE_TEMP_ACCURACY_MAX_K,
         "K",
     )

@@ -71,16 +71,27 @@ def _plausibility(option: str, text: str, value_c: float, system: str) -> str | 
     return None
 
 
+def _read_option(
+    option: str,
+    text: str,
+    quantity: units.ReadQuantity,
+    system: units.UnitSystem,
+    check: Callable[[float, str], object] | None = None,
+) -> float:
+    """Read and range-check one option; an error names the option, the text as typed and,
+    where a unit was converted, what it was read as (``30 ft3`` read as 0.85 m³)."""
+    reading = units.read(quantity, text, option, system)
+    return reading.value if check is None else reading.checked(check)
+
+
 def _parse_volume(text: str, system: units.UnitSystem) -> float:
     """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``; pint only for a suffix."""
-    volume = units.parse_volume(text, "--room-volume", system)
-    if not VOLUME_MIN_M3 <= volume <= VOLUME_MAX_M3:
-        raise InputError(
-            "--room-volume",
-            text,
-            f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³",
+    reading = units.read("volume", text, "--room-volume", system)
+    if not VOLUME_MIN_M3 <= reading.value <= VOLUME_MAX_M3:
+        raise reading.error(
+            f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³"
         )
-    return volume
+    return reading.value
 
 
 _FT2_PER_M2 = 1.0 / 0.3048**2  # 1 ft = 0.3048 m exactly
@@ -127,19 +138,37 @@ def _parse_occupants(text: str) -> int:
     return int(number)
 
 
+def _parse_rh_accuracy(text: str) -> float:
+    """A hygrometer's ± accuracy in %RH: ``2``, ``2 %``, ``0.8 %RH``. Unlike an RH reading,
+    a value below 1 is an accuracy, not a fraction."""
+    raw = str(text).strip()
+    for suffix in ("%rh", "% rh", "%"):
+        if raw.lower().endswith(suffix):
+            raw = raw[: -len(suffix)].strip()
+            break
+    return units.parse_number(raw, "--rh-accuracy")
+
+
 def _accuracy_option(
     option: str,
     text: str | None,
     parse: Callable[[str], float],
     default_key: str,
+    least: float,
     top: float,
     unit: str,
 ) -> tuple[float, bool]:
+    """An instrument accuracy: above 0 (no instrument is exact; the file model holds the same
+    bound) and up to ``top``."""
     if text is None:
         return th.value(default_key), False
     value = _option(option, text, parse)
-    if not 0.0 <= value <= top:
-        raise InputError(option, text, f"accuracy must be between 0 and {top:g} {unit}")
+    if not least <= value <= top:
+        raise InputError(
+            option,
+            text,
+            f"accuracy must be between {least:g} and {top:g} {unit} (no instrument reads exactly)",
+        )
     return value, True
 
 
@@ -149,12 +178,7 @@ def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem) -> list[as
     found = []
 
     def temperature(option: str, text: str) -> float:
-        return _option(
-            option,
-            text,
-            lambda t: units.parse_temperature(t, option, system),
-            psychro.check_surface_temp,
-        )
+        return _read_option(option, text, "temperature", system, psychro.check_surface_temp)
 
     for option, text in specs:
         element, prefix = _SURFACE_OPTIONS[option]
