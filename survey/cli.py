@@ -15,7 +15,8 @@ import importlib
 import os
 import re
 import sys
-from typing import NoReturn, Sequence
+from collections.abc import Sequence
+from typing import NoReturn
 
 from survey.errors import InputError, SurveyFileError
 
@@ -34,7 +35,7 @@ EXIT_INPUT_ERROR = 2
 class _Parser(argparse.ArgumentParser):
     """An argument parser whose errors are one line on stderr and exit status 2."""
 
-    def error(self, message: str) -> NoReturn:  # noqa: D401 - argparse's API
+    def error(self, message: str) -> NoReturn:
         self.exit(EXIT_INPUT_ERROR, f"{self.prog}: {message} (see {self.prog} --help)\n")
 
 
@@ -46,9 +47,7 @@ def build_parser() -> argparse.ArgumentParser:
         description="Building condition survey: moist air, surface condensation and mould risk.",
     )
     parser.add_argument("--version", action="version", version=f"condition-survey {__version__}")
-    subparsers = parser.add_subparsers(
-        title="commands", metavar="COMMAND", parser_class=_Parser
-    )
+    subparsers = parser.add_subparsers(title="commands", metavar="COMMAND", parser_class=_Parser)
     for name in COMMAND_MODULES:
         importlib.import_module(name).register(subparsers)
     return parser
@@ -79,8 +78,11 @@ def join_negative_values(argv: Sequence[str], value_options: set[str]) -> list[s
     index = 0
     while index < len(tokens):
         token = tokens[index]
-        if (token in value_options and index + 1 < len(tokens)
-                and _NEGATIVE_VALUE.match(tokens[index + 1])):
+        if (
+            token in value_options
+            and index + 1 < len(tokens)
+            and _NEGATIVE_VALUE.match(tokens[index + 1])
+        ):
             joined.append(f"{token}={tokens[index + 1]}")
             index += 2
             continue
@@ -145,8 +147,11 @@ def main(argv: Sequence[str] | None = None) -> int:
         print(f"survey: {_safe(exc)}", file=sys.stderr)
         return EXIT_FILE_ERROR
     except KeyboardInterrupt:
-        print("survey: interrupted. Survey files are saved whole or not at all, so each is "
-              "as it was before or as last saved.", file=sys.stderr)
+        print(
+            "survey: interrupted. Survey files are saved whole or not at all, so each is "
+            "as it was before or as last saved.",
+            file=sys.stderr,
+        )
         return 130
     except BrokenPipeError:
         # The reader went away (`survey check --json | head`): stop quietly. Point stdout at
