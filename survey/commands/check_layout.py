@@ -159,6 +159,9 @@ def encode(result: QuickResult, d: words.Display) -> dict[str, Any]:
 
 # --- the table -------------------------------------------------------------------------------
 
+#: What the words say to give, in this face's option names.
+HINTS = {"use": "--use", "outdoor": "give --outdoor-temp and --outdoor-rh"}
+
 _SHOWN_LIMITS = {
     "dew_point_margin_k",
     "surface_rh_mould_limit_pct",
@@ -170,153 +173,6 @@ _SHOWN_LIMITS = {
     "room_rh_floor_pct",
     "coverage_factor",
 }
-
-
-def summary_lines(result: QuickResult, d: words.Display) -> list[str]:
-    """The short summary above the tables: a verdict per surface (worst first, at most
-    four), the highest safe room RH, and the first action."""
-    f, advice = result.finding, result.advice
-    rh_now = f"{result.room.rh_pct:.0f} %"
-    lines = []
-    surfaces = words.worst_first(f.surfaces)
-    for s in surfaces[:4]:
-        lines.append(
-            f"{visible(s.label)}, {d.temperature(s.surface_temp_c)}: {words.short_verdict(s, d)}."
-        )
-    if len(surfaces) > 4:
-        lines.append(f"… and {len(surfaces) - 4} more surfaces, in the tables below.")
-    limit = words.rh_limit_text(f)
-    if limit is not None:
-        lines.append(
-            f"Highest safe room RH: {limit}, set by {visible(f.coldest.label)}, the "
-            f"coldest wall, ceiling or floor; the room is at {rh_now}."
-        )
-    elif not f.surfaces:
-        lines.append(f"No surface measured; the room is at {rh_now} RH.")
-    else:
-        lines.append(
-            f"No wall, ceiling or floor measured, so no highest safe room RH; the "
-            f"room is at {rh_now} RH."
-        )
-    if advice.actions:
-        first = advice.actions[0]
-        numbers = words.action_numbers(first, d)
-        more = len(advice.actions) - 1
-        lines.append(
-            f"First: {visible(words.action_title(first))}"
-            + (f", {numbers}" if numbers else "")
-            + (f' (then {more} more under "What to do").' if more else ".")
-        )
-    elif any(
-        s.temperature_factor_state.value == "cannot_tell"
-        and s.temperature_factor is not None
-        and s.temperature_factor < s.temperature_factor_limit
-        for s in f.surfaces
-    ):
-        lines.append(
-            "No action is certain from these readings: the temperature factor is "
-            "just under its limit but within the instruments' accuracy; confirm it "
-            "on a colder day or with more accurate instruments."
-        )
-    else:
-        lines.append("Nothing to do from these readings.")
-    return lines
-
-
-def room_lines(result: QuickResult, d: words.Display) -> list[str]:
-    """The room's use, dew point, highest safe RH, humidity class and timber EMC."""
-    f = result.finding
-    use = result.use
-    limit = th.frsi_limit(use)
-    lines = []
-    if not result.use_given:
-        lines.append(
-            f"Use: not given (--use); the general temperature-factor limit "
-            f"{limit.value:.2f} applies (IEA Annex 14)."
-        )
-    elif limit is None:
-        lines.append(f"Use: {use}; no temperature-factor limit — {th.room_use(use).frsi_reason}.")
-    else:
-        lines.append(
-            f"Use: {use}; temperature-factor limit {limit.value:.2f} — "
-            f"{th.room_use(use).frsi_reason}."
-        )
-    reason = words.factor_not_judged_reason(f, d)
-    if reason and any(s.temperature_factor_state.value == "not_judged" for s in f.surfaces):
-        where = (
-            ""
-            if result.outdoor is None
-            else f" (inside {d.temperature(result.room.dry_bulb_c)}, outside "
-            f"{d.temperature(result.outdoor.dry_bulb_c)})"
-        )
-        hint = " (give --outdoor-temp and --outdoor-rh)" if result.outdoor is None else ""
-        lines.append(f"Temperature factor: cannot be judged today — {reason}{hint}{where}.")
-    point = d.temperature(f.air.condensation_point_c)
-    point_u = d.difference(f.condensation_point_uncertainty_k)
-    frost = result.room.frost_point_c is not None
-    if frost:
-        lines.append(
-            f"Condensation point (frost point) {point} ± {point_u}: surfaces below "
-            f"0 °C gather frost; the dew point over water is "
-            f"{d.temperature(result.room.dew_point_c)}."
-        )
-    else:
-        lines.append(f"Dew point {point} ± {point_u}.")
-    rh_text = words.rh_limit_text(f)
-    if rh_text is not None:
-        coldest = f"{visible(f.coldest.label)}, {d.temperature(f.coldest.surface_temp_c)}"
-        line = (
-            f"Highest room RH the coldest wall, ceiling or floor ({coldest}) can bear: {rh_text}."
-        )
-        if f.max_room_rh_pct < 100.0:
-            mould = th.value("surface_rh_mould_limit_pct")
-            margin = d.difference(th.value("dew_point_margin_k"))
-            line += (
-                f" Up to {words.round_down_rh(f.max_room_rh_pct_mould)} % it stays at or "
-                f"below {mould:.0f} % surface RH (mould limit), up to "
-                f"{words.round_down_rh(f.max_room_rh_pct_margin)} % at least {margin} "
-                f"above the {'frost' if frost else 'dew'} point."
-            )
-        lines.append(line + f" The room is at {result.room.rh_pct:.0f} % now.")
-    apart = f.coldest_glazing_or_pipe
-    if apart is not None:
-        dry = f.max_room_rh_pct_dry_glazing_or_pipe
-        stays = (
-            "stays clear of condensation at any room RH"
-            if dry >= 100.0
-            else f"stays clear of condensation while the room is below "
-            f"{words.round_down_rh(dry)} % RH"
-        )
-        lines.append(
-            f"Glazing, window frames and pipes are judged apart and do not set the "
-            f"room's RH: the coldest, {visible(apart.label)}, {stays}."
-        )
-    if result.outdoor is None:
-        lines.append("Humidity class: not judged (give --outdoor-temp and --outdoor-rh).")
-    elif f.humidity_class is None:
-        lines.append(
-            "Humidity class: not judged (outdoor air at or above "
-            f"{d.temperature(th.value('humidity_class_zero_at_c'))})."
-        )
-    else:
-        possible = f.humidity_class_possible
-        spread = (
-            ""
-            if len(possible) <= 1
-            else f"; {words.humidity_class_range_text(possible)} at this accuracy"
-        )
-        number = f.humidity_class
-        example = words.HUMIDITY_CLASS_EXAMPLES[number]
-        like = example if number == th.BEYOND_CLASS_5 else f"as in {example}"
-        lines.append(
-            f"Humidity class (EN ISO 13788): {words.humidity_class_text(number)}, {like} — the "
-            f"room air's vapour pressure is {d('vapour_pressure', f.vapour_pressure_excess_pa)} "
-            f"(± {d('vapour_pressure', f.vapour_pressure_excess_uncertainty_pa)}) above "
-            f"outdoors{spread}. Classes are defined for monthly means; a spot reading is a "
-            f"guide."
-        )
-    lines.append(words.timber_emc_text(f, d))
-    return lines
 
 
 def _air_rows(d: words.Display):
@@ -355,7 +211,7 @@ def render(result: QuickResult, d: words.Display) -> None:
     f, advice = result.finding, result.advice
     console = Console(highlight=False, emoji=False)
     heading("Summary")
-    for line in summary_lines(result, d):
+    for line in words.quick_summary_lines(result, d, HINTS):
         console.print(para(line, 2))
     console.print()
     states = {"Room": result.room}
@@ -369,32 +225,7 @@ def render(result: QuickResult, d: words.Display) -> None:
         table.add_row(label, *(show(state) for state in states.values()))
     console.print(table)
 
-    given = result.input.accuracy_given
-    acc = result.input.accuracy
-    note = (
-        "typical specifications, none entered"
-        if not given.any
-        else "as entered"
-        if given.all
-        else "typical specifications where none was entered"
-    )
-    thermometer = ""
-    if result.outdoor is not None:
-        thermometer = (
-            " For the temperature factor, one thermometer read the room and the "
-            "outdoor air (its errors taken as correlated)."
-            if acc.shared_thermometer
-            else " For the temperature factor, separate thermometers read the room "
-            "and the outdoor air."
-        )
-    console.print(
-        Text(
-            f"Instrument accuracy: air ±{d.difference(acc.air_temp_k)}, RH "
-            f"±{acc.rh_pct:g} %, surface ±{d.difference(acc.surface_temp_k)} "
-            f"({note}). Ranges and ± are expanded uncertainties (about 95 % "
-            f"coverage).{thermometer}"
-        )
-    )
+    console.print(Text(words.quick_accuracy_line(result, d)))
     if f.surfaces:
         readings = Table(title="Surfaces: readings", title_justify="left")
         for name, right in (
@@ -444,21 +275,12 @@ def render(result: QuickResult, d: words.Display) -> None:
             console.print(Text(words.CANNOT_TELL_EXPLAINED))
     console.print()
     heading("Room")
-    for line in room_lines(result, d):
+    for line in words.quick_room_lines(result, d, HINTS):
         console.print(para(line, 2))
     console.print()
     heading("What to do")
     if not advice.actions:
-        surfaces_note = (
-            "no measured surface calls for work" if f.surfaces else "no surface was measured"
-        )
-        console.print(
-            para(
-                "Nothing from these readings: the room is at or below its target "
-                f"of {advice.target_rh_pct:.0f} % RH and {surfaces_note}.",
-                2,
-            )
-        )
+        console.print(para(words.quick_nothing_to_do(result), 2))
     for number, action in enumerate(advice.actions, start=1):
         console.print(para(f"{number}. {words.action_title(action)}", 2, "bold"))
         console.print(para(words.action_reason(action, f, advice, d), 5))

@@ -17,6 +17,12 @@ from survey.words.actions import (
 from survey.words.cautions import CLOSING_TEXT, caution_text
 from survey.words.display import IP, SI, Display, round_down_rh, round_up_temperature_c
 from survey.words.limits import client_citation, legend, limit_value_text
+from survey.words.quick import (
+    quick_accuracy_line,
+    quick_nothing_to_do,
+    quick_room_lines,
+    quick_summary_lines,
+)
 from survey.words.states import (
     CANNOT_TELL,
     CANNOT_TELL_EXPLAINED,
@@ -61,6 +67,10 @@ __all__ = [
     "limit_value_text",
     "moisture_basis",
     "mould_text",
+    "quick_accuracy_line",
+    "quick_nothing_to_do",
+    "quick_room_lines",
+    "quick_summary_lines",
     "rh_limit_shown",
     "rh_limit_text",
     "round_down_rh",

@@ -89,13 +89,20 @@ CAUTION_NAMES = {
 }
 
 
+#: Whose rule the small / medium / large mould areas are.
+_AREA_BANDS = (
+    " (The area bands follow US EPA mould remediation guidance; local rules and health "
+    "guidance may set others.)"
+)
+
+
 def caution_text(caution: Caution, d: Display) -> str:
     """The caution as a sentence or two."""
     key = caution.key
     if key in _FIXED:
         return _FIXED[key]
     if key == "visible_mould":
-        return _mould(caution.area_m2 or 0.0, d)
+        return _mould(caution.area_m2 or 0.0, d) + _AREA_BANDS
     if key == "mould_if_visible":
         return (
             "A surface is above the mould limit: if mould is visible, measure its area, "
