@@ -107,6 +107,19 @@ def room_target(finding: RoomFinding, target_rh_pct: float | None) -> Target:
 # --- ventilation and dehumidification --------------------------------------------------------
 
 
+def _humidity_fields(
+    target: Target, wt: float, air: AirState, out: AirState, moisture: MoistureEstimate
+) -> dict[str, Any]:
+    """The humidity ratios and load every ventilate action states."""
+    return {
+        "target_rh_pct": target.rh_pct,
+        "target_humidity_ratio_g_per_kg": 1000.0 * wt,
+        "room_humidity_ratio_g_per_kg": air.humidity_ratio_g_per_kg,
+        "outdoor_humidity_ratio_g_per_kg": out.humidity_ratio_g_per_kg,
+        "moisture_generation_g_per_h": moisture.used_g_per_h,
+    }
+
+
 def _ventilate(
     finding: RoomFinding, target: Target, target_air: AirState, moisture: MoistureEstimate
 ) -> Action[Any]:
@@ -143,11 +156,7 @@ def _ventilate(
                 dry_air, wo, air.dry_bulb_c, out.dry_bulb_c
             )
     numbers = VentilateNumbers(
-        target_rh_pct=target.rh_pct,
-        target_humidity_ratio_g_per_kg=1000.0 * wt,
-        room_humidity_ratio_g_per_kg=air.humidity_ratio_g_per_kg,
-        outdoor_humidity_ratio_g_per_kg=out.humidity_ratio_g_per_kg,
-        moisture_generation_g_per_h=moisture.used_g_per_h,
+        **_humidity_fields(target, wt, air, out, moisture),
         target_reachable_by_ventilation=True,
         outdoor_mode=OutdoorMode.HOLDS_TARGET,
         room_volume_m3=room.volume_m3,
@@ -196,11 +205,7 @@ def _ventilate_partly(
             settles, saturates = loads.rh_at(air, wo + moisture.used_g_per_h / 1000.0 / dry_air)
             flows["rh_at_practical_ventilation_pct"] = settles
     numbers = VentilateNumbers(
-        target_rh_pct=target.rh_pct,
-        target_humidity_ratio_g_per_kg=1000.0 * wt,
-        room_humidity_ratio_g_per_kg=air.humidity_ratio_g_per_kg,
-        outdoor_humidity_ratio_g_per_kg=out.humidity_ratio_g_per_kg,
-        moisture_generation_g_per_h=moisture.used_g_per_h,
+        **_humidity_fields(target, wt, air, out, moisture),
         target_reachable_by_ventilation=False,
         outdoor_mode=(
             OutdoorMode.NO_DRIER_THAN_TARGET if wo >= wt else OutdoorMode.DRIER_NOT_ENOUGH
