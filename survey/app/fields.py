@@ -75,7 +75,7 @@ class Field(Vertical):
         with Horizontal(classes="field-row"):
             yield Label(self.label, classes="field-label", markup=False)
             yield Input(self.text, placeholder=self.placeholder, compact=True,
-                        id=f"{self.id}-input", disabled=self.read_only, select_on_focus=False)
+                        id=f"{self.id}-input", disabled=self.read_only)
             if self.previous:
                 yield Static(plain(self.previous), classes="field-previous")
         yield Static("", classes="field-message")

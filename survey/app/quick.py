@@ -11,6 +11,7 @@ from textual.screen import Screen
 from textual.widgets import Footer, Input, Label, Select, Static
 
 from survey import assess, quick, units, words
+from survey.app import walk
 from survey.app.fields import plain
 from survey.app.room import USES
 from survey.errors import InputError
@@ -36,7 +37,7 @@ class QuickScreen(Screen):
         yield Static(Text("Quick check — one room, no survey file, nothing saved",
                           style="bold"), classes="screen-title")
         with Horizontal(classes="split"):
-            with VerticalScroll(classes="form"):
+            with walk.Form():
                 for key, label, _parse, _need in FIELDS:
                     with Horizontal(classes="field-row"):
                         yield Label(label, classes="field-label")

@@ -75,12 +75,12 @@ class RoomScreen(walk.WalkScreen):
         before = self.previous()
         yield self.header()
         with Horizontal(classes="split"):
-            with VerticalScroll(classes="form", id="room-form"):
+            with walk.Form(id="room-form"):
                 yield Field("Name", room.name, walk.text_parser("Room name", need=True),
                             self._set_room("name", "Room name"), id="room-name", disabled=ro)
-                yield Label("Use", classes="field-label")
-                yield Select(USES, value=room.use, allow_blank=False, compact=True,
-                             id="room-use", disabled=ro)
+                yield walk.labelled("Use", Select(
+                    USES, value=room.use, allow_blank=False, compact=True, id="room-use",
+                    disabled=ro))
                 yield Field("Volume", walk.shown("volume", room.volume_m3, system),
                             walk.optional(walk.volume_or_dimensions("Room volume", system)),
                             self._set_room("volume_m3", "Room volume"), id="room-volume",
@@ -105,9 +105,9 @@ class RoomScreen(walk.WalkScreen):
                             id="seen-area", placeholder="m²", disabled=ro)
                 yield Checkbox("Condensation seen", seen.condensation_seen, compact=True,
                                id="seen-condensation_seen", disabled=ro)
-                yield Label("Water category", classes="field-label")
-                yield Select(WATER, value=seen.water_category or 0, allow_blank=False,
-                             compact=True, id="seen-water", disabled=ro)
+                yield walk.labelled("Water category", Select(
+                    WATER, value=seen.water_category or 0, allow_blank=False, compact=True,
+                    id="seen-water", disabled=ro))
                 yield Static(id="equipment", classes="hint")
                 yield Field("Notes", record.notes if record else "",
                             walk.text_parser("Notes"), self._set_record("notes", "Notes"),
@@ -125,6 +125,11 @@ class RoomScreen(walk.WalkScreen):
         materials = self.query_one(MaterialTable)
         materials.add_columns("location", "material", "reading", "last", "state")
         self.refresh_view()
+        record = self.record()
+        if self.read_only or (record is not None and record.air is not None):
+            surfaces.focus()
+        else:
+            self.query_one("#room-temp-input").focus()
 
     # --- showing --------------------------------------------------------------------------
 
@@ -145,7 +150,7 @@ class RoomScreen(walk.WalkScreen):
             f = findings[n] if n < len(findings) else None
             last = last_temp.get(s.location)
             table.add_row(
-                plain(s.location), Text(words.ELEMENT_WORDS.get(s.element, s.element)),
+                plain(walk.cut(s.location)), Text(words.ELEMENT_WORDS.get(s.element, s.element)),
                 Text(d.temperature(s.surface_temp_c)),
                 Text("" if last is None else d.temperature(last)),
                 Text("–" if f is None else words.surface_rh_text(f)),
@@ -155,7 +160,8 @@ class RoomScreen(walk.WalkScreen):
                 key=f"s{n}")
         for n, s in enumerate(judging.pending_surfaces(survey, self.editor.visit_index,
                                                        self.room_id)):
-            table.add_row(plain(s.location), Text(words.ELEMENT_WORDS.get(s.element, "")),
+            table.add_row(plain(walk.cut(s.location)),
+                          Text(words.ELEMENT_WORDS.get(s.element, "")),
                           Text("to read"), Text(d.temperature(s.surface_temp_c)), Text(""),
                           Text(""), Text("measured last visit"), key=f"p{n}")
         if table.row_count:
@@ -181,13 +187,13 @@ class RoomScreen(walk.WalkScreen):
                 state = "–" if f is None else DRY_STANDARD_WORDS[f.dry_standard_state] + (
                     "" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
             last = last_value.get((m.location, m.material))
-            table.add_row(plain(m.location), plain(m.material),
+            table.add_row(plain(walk.cut(m.location)), plain(walk.cut(m.material, 20)),
                           Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
                           Text("" if last is None else f"{last:g}"), Text(state), key=f"m{n}")
         for n, m in enumerate(judging.pending_materials(self.editor.survey,
                                                         self.editor.visit_index,
                                                         self.room_id)):
-            table.add_row(plain(m.location), plain(m.material), Text("to read"),
+            table.add_row(plain(walk.cut(m.location)), plain(walk.cut(m.material, 20)), Text("to read"),
                           Text(f"{m.value:g}"), Text("read last visit"), key=f"q{n}")
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))

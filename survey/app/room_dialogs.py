@@ -82,9 +82,9 @@ class SurfaceDialog(_ReadingDialog):
             yield Field("Location", r.location if r else "",
                         walk.text_parser("Location", need=True), self.keep("location"),
                         id="surface-location", placeholder="e.g. NE corner, 0.2 m up")
-            yield Label("Element", classes="field-label")
-            yield Select(ELEMENTS, value=r.element if r else "external_wall",
-                         allow_blank=False, compact=True, id="surface-element")
+            yield walk.labelled("Element", Select(
+                ELEMENTS, value=r.element if r else "external_wall", allow_blank=False,
+                compact=True, id="surface-element"))
             yield Field("Material", r.material if r else "", walk.text_parser("Material"),
                         self.keep("material"), id="surface-material")
             yield Checkbox("Condensation seen here", r.condensation_seen if r else False,
@@ -170,9 +170,9 @@ class MaterialDialog(_ReadingDialog):
             yield Field("Material", r.material if r else "",
                         walk.text_parser("Material", need=True), self.keep("material"),
                         id="material-material", placeholder="e.g. gypsum plaster")
-            yield Label("Scale", classes="field-label")
-            yield Select(SCALES, value=r.scale if r else "wme_pct", allow_blank=False,
-                         compact=True, id="material-scale")
+            yield walk.labelled("Scale", Select(
+                SCALES, value=r.scale if r else "wme_pct", allow_blank=False, compact=True,
+                id="material-scale"))
             yield Checkbox("Dry standard (an unaffected spot of the same material)",
                            r.dry_standard if r else False, compact=True, id="material-dry")
             yield Field("Reading", "" if r is None or r.value is None else f"{r.value:g}",

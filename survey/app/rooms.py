@@ -81,9 +81,7 @@ class RoomListScreen(walk.WalkScreen):
             self.app.open_room(room.id)
 
     def action_next_room(self) -> None:
-        room = self._current()
-        target = judging.next_room_needing(self.editor.survey, self.editor.visit_index,
-                                           None if room is None else room.id)
+        target = judging.next_room_needing(self.editor.survey, self.editor.visit_index, None)
         if target is None:
             self.app.show_status("Every room has its readings for this visit.")
         else:

@@ -30,18 +30,18 @@ class SiteScreen(walk.WalkScreen):
         site = self.editor.survey.site
         ro = self.read_only
         yield self.header()
-        with VerticalScroll(classes="form"):
+        with walk.Form():
             for name, label in (("reference", "Reference"), ("address", "Address"),
                                 ("client", "Client"), ("inspector", "Inspector")):
                 yield Field(label, getattr(site, name),
                             walk.text_parser(label, need=name == "reference"),
                             self._setter(name, label), id=f"site-{name}", disabled=ro)
-            yield Label("Purpose", classes="field-label")
-            yield Select(PURPOSES, value=site.purpose, allow_blank=False, compact=True,
-                         id="site-purpose", disabled=ro)
-            yield Label("Units shown", classes="field-label")
-            yield Select(UNIT_SYSTEMS, value=site.unit_system, allow_blank=False,
-                         compact=True, id="site-unit_system", disabled=ro)
+            yield walk.labelled("Purpose", Select(
+                PURPOSES, value=site.purpose, allow_blank=False, compact=True,
+                id="site-purpose", disabled=ro))
+            yield walk.labelled("Units shown", Select(
+                UNIT_SYSTEMS, value=site.unit_system, allow_blank=False, compact=True,
+                id="site-unit_system", disabled=ro))
             yield Label(Text("Instruments", style="bold"))
             yield InstrumentTable(id="instruments")
             yield Button("Continue to the visit ▸", id="to-visit", compact=True)

@@ -30,12 +30,12 @@ class VisitScreen(walk.WalkScreen):
         system = editor.unit_system
         yield self.header()
         with Horizontal(classes="split"):
-            with VerticalScroll(classes="form"):
+            with walk.Form():
                 choices = [(Text(f"{n + 1}: {v.started_at:%Y-%m-%d %H:%M} ")
                             + plain(v.label), n) for n, v in enumerate(editor.survey.visits)]
-                yield Label("Visit shown (F7 starts a new one)", classes="field-label")
-                yield Select(choices, value=editor.visit_index % len(editor.survey.visits),
-                             allow_blank=False, compact=True, id="visit-choice")
+                yield walk.labelled("Visit shown", Select(
+                    choices, value=editor.visit_index % len(editor.survey.visits),
+                    allow_blank=False, compact=True, id="visit-choice"))
                 yield Field("Started at", f"{visit.started_at:%Y-%m-%d %H:%M}",
                             walk.timestamp("Started at"), self._setter("started_at",
                                                                        "Started at"),

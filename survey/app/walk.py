@@ -9,14 +9,32 @@ from typing import Any, Callable
 import msgspec
 from rich.text import Text
 from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
-from textual.widgets import Footer, Static
+from textual.widgets import Footer, Label, Static
 
 from survey import model, units
 from survey.app.editing import Editor
 from survey.app.fields import plain
 from survey.app.status import StatusBar
 from survey.errors import InputError
+
+
+class Form(VerticalScroll, can_focus=False):
+    """A scrolling column of fields; focus goes to the fields, never to the column."""
+
+    DEFAULT_CLASSES = "form"
+
+
+def labelled(label: str, widget) -> Horizontal:
+    """A label and a widget (a Select, a Checkbox) on one line, like a Field."""
+    return Horizontal(Label(label, classes="field-label", markup=False), widget,
+                      classes="field-row")
+
+
+def cut(text: str, width: int = 28) -> str:
+    """A long label cut for a table cell (shown whole where it is edited)."""
+    return text if len(text) <= width else text[: width - 1] + "…"
 
 
 class WalkScreen(Screen):

@@ -1,0 +1,168 @@
+"""The app walked by keys alone: a new survey, the site, a visit with its outdoor reading,
+two rooms with three surfaces and a material reading each, a second visit from the first;
+then the saved file is loaded and its values and findings checked."""
+
+from __future__ import annotations
+
+import datetime as dt
+
+import CoolProp.CoolProp as CP
+import pytest
+
+from survey import evaluate, store
+from survey.app import make_app
+
+FIXED_NOW = dt.datetime(2026, 12, 1, 9, 30)
+SIZE = (120, 40)
+
+
+async def type_text(pilot, text: str) -> None:
+    for char in text:
+        await pilot.press(char if char != " " else "space")
+
+
+async def settle(pilot, app) -> None:
+    """Let screens switch and the save worker finish."""
+    await pilot.pause()
+    await app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+async def field(pilot, text: str) -> None:
+    """Type into the focused field (its old text is selected on focus) and press Enter."""
+    await type_text(pilot, text)
+    await pilot.press("enter")
+    await pilot.pause()
+
+
+async def add_surface(pilot, app, location: str, material: str, temp: str) -> None:
+    await pilot.press("a")
+    await settle(pilot, app)
+    await field(pilot, location)      # Location, Enter: to Element
+    await pilot.press("tab")          # keep "external wall"
+    await field(pilot, material)      # Material, Enter: to the check boxes
+    await pilot.press("tab", "tab")   # past "condensation seen" and "mould seen"
+    await field(pilot, temp)          # Temperature, Enter: saved
+    await settle(pilot, app)
+
+
+async def add_material(pilot, app, location: str, material: str, value: str) -> None:
+    await pilot.press("a")
+    await settle(pilot, app)
+    await field(pilot, location)
+    await field(pilot, material)
+    await pilot.press("tab", "tab")   # keep the scale, not a dry standard
+    await field(pilot, value)
+    await settle(pilot, app)
+
+
+async def add_room(pilot, app, name: str, surfaces, material) -> None:
+    await pilot.press("a")            # on the room list
+    await settle(pilot, app)
+    await field(pilot, name)          # the room opens, focus on the air temperature
+    await settle(pilot, app)
+    await field(pilot, "18")          # °C
+    await field(pilot, "70 %")        # focus moves on to the surfaces table
+    await settle(pilot, app)
+    for location, temp in surfaces:
+        await add_surface(pilot, app, location, "plaster", temp)
+    await pilot.press("tab")          # to the material table
+    await add_material(pilot, app, *material)
+
+
+async def test_complete_walk_by_keys(tmp_path):
+    """Every step by keys; the file on disk holds what was typed and judges as expected."""
+    path = tmp_path / "flat-3.json"
+    app = make_app(data_dir=tmp_path / "data", clock=lambda: FIXED_NOW)
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        await pilot.press("n")                        # start screen: new survey
+        await settle(pilot, app)
+        await field(pilot, str(path))
+        await field(pilot, "Test flat 3")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "SiteScreen"
+        await pilot.press("enter")                    # reference kept; to the address
+        await field(pilot, "3 Invented Row")
+        await field(pilot, "Example landlord")
+        await field(pilot, "Inspector T")
+        await pilot.press("tab", "tab")               # past purpose and units
+        await pilot.press("a")                        # instruments table: add
+        await settle(pilot, app)
+        for text in ("th1", "thermo_hygrometer", "Example meter", "0.3", "2", "", "2026-06-01"):
+            await field(pilot, text)
+        await settle(pilot, app)
+        await pilot.press("f3")                       # the visit
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "VisitScreen"
+        await pilot.press("tab")                      # past the visit choice
+        await field(pilot, "2026-12-01 09:30")
+        await field(pilot, "Day 1")
+        await pilot.press("tab")                      # inspector: the site's
+        await field(pilot, "overcast")
+        await field(pilot, "3")                       # outdoor °C
+        await field(pilot, "88")                      # outdoor RH %
+        await settle(pilot, app)
+        await pilot.press("f4")
+        await settle(pilot, app)
+        await add_room(pilot, app, "Bedroom [b]1[/b]",
+                       [("North wall corner", "8"), ("East wall", "17"), ("Ceiling", "16,5")],
+                       ("Skirting", "softwood", "18"))
+        await pilot.press("escape")                   # back to the room list
+        await settle(pilot, app)
+        await add_room(pilot, app, "Kitchen",
+                       [("Window reveal", "9.5"), ("West wall", "16"), ("Floor", "15")],
+                       ("Under sink", "chipboard", "22"))
+        await pilot.press("f5")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "FindingsScreen"
+        await pilot.press("f3", "f7")                 # a new visit from the first
+        await settle(pilot, app)
+        await pilot.press("y")
+        await settle(pilot, app)
+        await pilot.press("f4")
+        await settle(pilot, app)
+        await pilot.press("ctrl+n")                   # the next room that needs readings
+        await settle(pilot, app)
+        assert app.screen.room_id == "bedroom-b-1-b"
+        await field(pilot, "19")
+        await field(pilot, "60")
+        await settle(pilot, app)
+        await pilot.press("e")                        # the first point measured last time
+        await settle(pilot, app)
+        await field(pilot, "10")                      # its temperature: saved
+        await settle(pilot, app)
+        assert app.status_text.startswith("Saved")
+        await pilot.press("ctrl+q")
+
+    survey = store.load_survey(path)
+    site = survey.site
+    assert (site.reference, site.address, site.client, site.inspector) == (
+        "Test flat 3", "3 Invented Row", "Example landlord", "Inspector T")
+    assert survey.instruments[0].rh_accuracy_pct == 2.0
+    assert str(survey.instruments[0].calibrated_on) == "2026-06-01"
+    assert [r.name for r in survey.rooms] == ["Bedroom [b]1[/b]", "Kitchen"]
+    first, second = survey.visits
+    assert first.started_at == dt.datetime(2026, 12, 1, 9, 30)
+    assert (first.label, first.weather) == ("Day 1", "overcast")
+    assert (first.outdoor.dry_bulb_c, first.outdoor.rh_pct) == (3.0, 88.0)
+    bedroom, kitchen = first.rooms
+    assert (bedroom.air.dry_bulb_c, bedroom.air.rh_pct) == (18.0, 70.0)
+    assert [(s.location, s.surface_temp_c) for s in bedroom.surfaces] == [
+        ("North wall corner", 8.0), ("East wall", 17.0), ("Ceiling", 16.5)]
+    assert [(m.location, m.material, m.value) for m in bedroom.materials] == [
+        ("Skirting", "softwood", 18.0)]
+    assert len(kitchen.surfaces) == 3 and kitchen.materials[0].value == 22.0
+    assert second.started_at == FIXED_NOW
+    assert [(s.location, s.surface_temp_c) for s in second.rooms[0].surfaces] == [
+        ("North wall corner", 10.0)]
+    assert (second.rooms[0].air.dry_bulb_c, second.rooms[0].air.rh_pct) == (19.0, 60.0)
+
+    judged = evaluate.assess_visit(survey, 0)
+    room = judged.findings.rooms[0]
+    # Dew point of 18 °C, 70 % RH at 101 325 Pa by CoolProp (independent reference).
+    reference_c = CP.HAPropsSI("D", "T", 291.15, "R", 0.70, "P", 101325.0) - 273.15
+    assert room.air.condensation_point_c == pytest.approx(reference_c, abs=0.1)
+    # 8 °C is about 4.5 K below that dew point, far outside the instruments' band.
+    assert room.surfaces[0].condensation.value == "condensing"
+    assert judged.advice.rooms[0].actions  # something to do in a room that condenses
