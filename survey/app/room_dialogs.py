@@ -112,6 +112,8 @@ class SurfaceDialog(_ReadingDialog):
             self._show_preview(self.reading.surface_temp_c)
 
     def _temperature(self, value: float) -> str:
+        walk.checked(model.SurfaceReading(location="-", element="other", surface_temp_c=0.0),
+                     "Surface temperature", surface_temp_c=value)
         self.values["surface_temp_c"] = value
         if self.air_c is not None and value > self.air_c + 5.0:
             d = words.Display(self.system)
@@ -177,11 +179,17 @@ class MaterialDialog(_ReadingDialog):
                            r.dry_standard if r else False, compact=True, id="material-dry")
             yield Field("Reading", "" if r is None or r.value is None else f"{r.value:g}",
                         walk.required("Moisture reading", walk.number("Moisture reading")),
-                        self.keep("value"), id="material-value", previous=self.previous,
+                        self._value, id="material-value", previous=self.previous,
                         on_enter=self.finish)
             yield Static("", id="dialog-message", classes="field-message -error")
             yield Static(Text("Enter in Reading saves · Tab moves · Escape cancels",
                               style="dim"))
+
+    def _value(self, value: float) -> str:
+        walk.checked(model.MaterialReading(location="-", material="-", value=0.0,
+                                           scale="relative"), "Moisture reading", value=value)
+        self.values["value"] = value
+        return ""
 
     def on_mount(self) -> None:
         target = "#material-value-input" if self.reading and self.reading.location \

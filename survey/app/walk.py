@@ -177,13 +177,13 @@ def date(name: str) -> Callable[[str], dt.date]:
     return run
 
 
-def checked(record: msgspec.Struct, name: str, **changes: Any) -> msgspec.Struct:
-    """``record`` with ``changes``, checked by the model (InputError naming ``name``)."""
+def checked(record: msgspec.Struct, label: str, /, **changes: Any) -> msgspec.Struct:
+    """``record`` with ``changes``, checked by the model (InputError naming ``label``)."""
     new = msgspec.structs.replace(record, **changes)
     try:
         model.check_record(new)
     except InputError as exc:
-        raise InputError(name, exc.value, exc.allowed) from None
+        raise InputError(label, exc.value, exc.allowed) from None
     return new
 
 
