@@ -46,13 +46,26 @@ BAD_INPUTS = [
 ]
 
 
+#: Key names of the punctuation typed here (letters and digits are their own names).
+KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma", "[": "left_square_bracket",
+             "]": "right_square_bracket", ":": "colon", "/": "slash", "%": "percent_sign"}
+
+
+def send_keys(app, text: str) -> None:
+    """Send ``text`` as key events one after another, at typing speed (read in order)."""
+    for char in text:
+        app.post_message(events.Key(KEY_NAMES.get(char, char), char))
+
+
 async def type_into(pilot, app, field_id: str, text: str) -> None:
+    """Focus a field (its text is selected), type over it and press Enter."""
     app.screen.query_one(f"#{field_id}-input").focus()
     await pilot.pause()
-    await pilot.press("ctrl+a", "ctrl+k")  # clear what is there
-    for char in text:
-        await pilot.press(char if char != " " else "space")
-    await pilot.press("enter")
+    for key in ("end", "shift+home", "backspace"):  # the old text goes
+        app.post_message(events.Key(key, None))
+    await pilot.pause()  # bindings act as the key bubbles: let them finish first
+    send_keys(app, text)
+    app.post_message(events.Key("enter", None))
     await pilot.pause()
     await app.workers.wait_for_complete()
 

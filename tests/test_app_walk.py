@@ -37,35 +37,42 @@ async def settle(pilot, app) -> None:
     await pilot.pause()
 
 
-async def field(pilot, text: str) -> None:
-    """Type into the focused field (its old text is selected on focus) and press Enter."""
-    await type_text(pilot, text)
-    await pilot.press("enter")
+async def press(pilot, *keys: str) -> None:
+    """Press named keys one after another, then let the app catch up once."""
+    for key in keys:
+        pilot.app.post_message(events.Key(key, key if len(key) == 1 else None))
     await pilot.pause()
 
 
+async def field(pilot, text: str) -> None:
+    """Type into the focused field (its old text is selected on focus) and press Enter."""
+    for char in text:
+        pilot.app.post_message(events.Key(KEY_NAMES.get(char, char), char))
+    await press(pilot, "enter")
+
+
 async def add_surface(pilot, app, location: str, temp: str) -> None:
-    await pilot.press("a")
+    await press(pilot, "a")
     await settle(pilot, app)
     await field(pilot, location)      # Location, Enter: to Element
-    await pilot.press("tab", "tab")   # keep "external wall", no material
-    await pilot.press("tab", "tab")   # past "condensation seen" and "mould seen"
+    await press(pilot, "tab", "tab")   # keep "external wall", no material
+    await press(pilot, "tab", "tab")   # past "condensation seen" and "mould seen"
     await field(pilot, temp)          # Temperature, Enter: saved
     await settle(pilot, app)
 
 
 async def add_material(pilot, app, location: str, material: str, value: str) -> None:
-    await pilot.press("a")
+    await press(pilot, "a")
     await settle(pilot, app)
     await field(pilot, location)
     await field(pilot, material)
-    await pilot.press("tab", "tab")   # keep the scale, not a dry standard
+    await press(pilot, "tab", "tab")   # keep the scale, not a dry standard
     await field(pilot, value)
     await settle(pilot, app)
 
 
 async def add_room(pilot, app, name: str, surfaces, material) -> None:
-    await pilot.press("a")            # on the room list
+    await press(pilot, "a")            # on the room list
     await settle(pilot, app)
     await field(pilot, name)          # the room opens, focus on the air temperature
     await settle(pilot, app)
@@ -74,7 +81,7 @@ async def add_room(pilot, app, name: str, surfaces, material) -> None:
     await settle(pilot, app)
     for location, temp in surfaces:
         await add_surface(pilot, app, location, temp)
-    await pilot.press("tab")          # to the material table
+    await press(pilot, "tab")          # to the material table
     await add_material(pilot, app, *material)
 
 
@@ -85,66 +92,66 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     app = make_app(data_dir=tmp_path / "data", clock=lambda: FIXED_NOW)
     async with app.run_test(size=SIZE) as pilot:
         await settle(pilot, app)
-        await pilot.press("n")                        # start screen: new survey
+        await press(pilot, "n")                        # start screen: new survey
         await settle(pilot, app)
         await field(pilot, "f3")                     # the file: f3.json here
         await field(pilot, "Flat 3")
         await settle(pilot, app)
         assert type(app.screen).__name__ == "SiteScreen"
-        await pilot.press("enter")                    # reference kept; to the address
+        await press(pilot, "enter")                    # reference kept; to the address
         await field(pilot, "3 Row")
         await field(pilot, "Owner")
         await field(pilot, "Ann")
-        await pilot.press("tab", "tab")               # past purpose and units
-        await pilot.press("a")                        # instruments table: add
+        await press(pilot, "tab", "tab")               # past purpose and units
+        await press(pilot, "a")                        # instruments table: add
         await settle(pilot, app)
         await field(pilot, "th1")
-        await pilot.press("enter")                    # the kind offered: thermo_hygrometer
+        await press(pilot, "enter")                    # the kind offered: thermo_hygrometer
         for text in ("M1", "0.3", "2", "", "2026-06-01"):
             await field(pilot, text)
         await settle(pilot, app)
-        await pilot.press("f3")                       # the visit
+        await press(pilot, "f3")                       # the visit
         await settle(pilot, app)
         assert type(app.screen).__name__ == "VisitScreen"
-        await pilot.press("tab")                      # past the visit choice
+        await press(pilot, "tab")                      # past the visit choice
         await field(pilot, "2026-12-01 09:30")
         await field(pilot, "Day 1")
-        await pilot.press("tab")                      # inspector: the site's
+        await press(pilot, "tab")                      # inspector: the site's
         await field(pilot, "overcast")
         await field(pilot, "3")                       # outdoor °C
         await field(pilot, "88")                      # outdoor RH %
         await settle(pilot, app)
-        await pilot.press("f4")
+        await press(pilot, "f4")
         await settle(pilot, app)
         await add_room(pilot, app, "Bed [b]1",
                        [("N corner", "8"), ("E wall", "17"), ("Ceiling", "16,5")],
                        ("Sill", "softwood", "18"))
-        await pilot.press("escape")                   # back to the room list
+        await press(pilot, "escape")                   # back to the room list
         await settle(pilot, app)
         await add_room(pilot, app, "Kitchen",
                        [("Reveal", "9.5"), ("W wall", "16"), ("Floor", "15")],
                        ("Sink", "chipboard", "22"))
-        await pilot.press("f5")
+        await press(pilot, "f5")
         await settle(pilot, app)
         assert type(app.screen).__name__ == "FindingsScreen"
-        await pilot.press("f3", "f7")                 # a new visit from the first
+        await press(pilot, "f3", "f7")                 # a new visit from the first
         await settle(pilot, app)
-        await pilot.press("y")
+        await press(pilot, "y")
         await settle(pilot, app)
-        await pilot.press("f4")
+        await press(pilot, "f4")
         await settle(pilot, app)
-        await pilot.press("ctrl+n")                   # the next room that needs readings
+        await press(pilot, "ctrl+n")                   # the next room that needs readings
         await settle(pilot, app)
         assert app.screen.room_id == "bed-b-1"
         await field(pilot, "19")
         await field(pilot, "60")
         await settle(pilot, app)
-        await pilot.press("e")                        # the first point measured last time
+        await press(pilot, "e")                        # the first point measured last time
         await settle(pilot, app)
         await field(pilot, "10")                      # its temperature: saved
         await settle(pilot, app)
         assert app.status_text.startswith("Saved")
-        await pilot.press("ctrl+q")
+        await press(pilot, "ctrl+q")
 
     survey = store.load_survey(path)
     site = survey.site
