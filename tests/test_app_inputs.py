@@ -47,8 +47,9 @@ BAD_INPUTS = [
 
 
 #: Key names of the punctuation typed here (letters and digits are their own names).
-KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma", "[": "left_square_bracket",
-             "]": "right_square_bracket", ":": "colon", "/": "slash", "%": "percent_sign"}
+KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma",
+             "[": "left_square_bracket", "]": "right_square_bracket", ":": "colon",
+             "/": "slash", "%": "percent_sign"}
 
 
 def send_keys(app, text: str) -> None:
@@ -118,7 +119,7 @@ async def test_bad_inputs_show_a_message_and_change_nothing(tmp_path):
 
 
 async def test_a_bad_surface_temperature_is_not_saved(tmp_path):
-    """The surface dialog refuses −70 °C (below the −60 °C surface domain) and saves nothing."""
+    """The surface dialog refuses −70 °C (under the −60 °C surface domain); nothing saved."""
     path = tmp_path / "survey.json"
     shutil.copyfile(DEMO_SOURCE, path)
     before = path.read_bytes()

@@ -19,8 +19,9 @@ SIZE = (120, 40)
 
 
 #: Key names of the punctuation typed here (letters and digits are their own names).
-KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma", "[": "left_square_bracket",
-             "]": "right_square_bracket", ":": "colon", "/": "slash", "%": "percent_sign"}
+KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma",
+             "[": "left_square_bracket", "]": "right_square_bracket", ":": "colon",
+             "/": "slash", "%": "percent_sign"}
 
 
 def send_keys(app, text: str) -> None:

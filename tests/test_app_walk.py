@@ -18,8 +18,9 @@ SIZE = (100, 30)
 
 
 #: Key names of the punctuation typed here (letters and digits are their own names).
-KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma", "[": "left_square_bracket",
-             "]": "right_square_bracket", ":": "colon", "/": "slash", "%": "percent_sign"}
+KEY_NAMES = {" ": "space", "-": "minus", ".": "full_stop", ",": "comma",
+             "[": "left_square_bracket", "]": "right_square_bracket", ":": "colon",
+             "/": "slash", "%": "percent_sign"}
 
 
 async def type_text(pilot, text: str) -> None:

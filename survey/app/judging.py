@@ -73,15 +73,18 @@ def worst_rank(finding: assess.RoomFinding) -> int:
     return 0 if worst is None else surface_rank(worst)
 
 
-def worst_words(finding: assess.RoomFinding, d: words.Display) -> str:
-    """The worst surface's state in the words module's words: what forms, else mould."""
-    worst = worst_surface(finding)
-    if worst is None:
-        return "no surface measured"
-    parts = words.short_verdict(worst, d).split("; ")
-    if worst.condensation.value == "clear" and len(parts) > 1:
+def surface_words(surface: assess.SurfaceFinding, d: words.Display) -> str:
+    """A surface's state in a few of the words module's words: what forms, else mould."""
+    parts = words.short_verdict(surface, d).split("; ")
+    if surface.condensation.value == "clear" and len(parts) > 1:
         return parts[1]
     return parts[0]
+
+
+def worst_words(finding: assess.RoomFinding, d: words.Display) -> str:
+    """The worst surface's state (see :func:`surface_words`)."""
+    worst = worst_surface(finding)
+    return "no surface measured" if worst is None else surface_words(worst, d)
 
 
 #: A symbol per rank, so no state is shown by colour alone.

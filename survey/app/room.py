@@ -120,10 +120,10 @@ class RoomScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         surfaces = self.query_one(SurfaceTable)
-        surfaces.add_columns("location", "element", "temp.", "last", "surface RH",
-                             "margin ± U", "state")
+        surfaces.add_columns(" ", "location", "temp.", "surface RH", "state", "margin ± U",
+                             "element", "last visit")
         materials = self.query_one(MaterialTable)
-        materials.add_columns("location", "material", "reading", "last", "state")
+        materials.add_columns("location", "reading", "state", "material", "last visit")
         self.refresh_view()
         record = self.record()
         if self.read_only or (record is not None and record.air is not None):
@@ -150,20 +150,20 @@ class RoomScreen(walk.WalkScreen):
             f = findings[n] if n < len(findings) else None
             last = last_temp.get(s.location)
             table.add_row(
-                plain(walk.cut(s.location)), Text(words.ELEMENT_WORDS.get(s.element, s.element)),
-                Text(d.temperature(s.surface_temp_c)),
-                Text("" if last is None else d.temperature(last)),
+                Text("·" if f is None else judging.RANK_SYMBOLS[judging.surface_rank(f)]),
+                plain(walk.cut(s.location, 24)), Text(d.temperature(s.surface_temp_c)),
                 Text("–" if f is None else words.surface_rh_text(f)),
+                Text("no air reading" if f is None else judging.surface_words(f, d)),
                 Text("–" if f is None else f"{d.difference(f.margin_k)} ± "
                      f"{d.difference(f.margin_uncertainty_k)}"),
-                Text("no air reading" if f is None else words.short_verdict(f, d)),
-                key=f"s{n}")
-        for n, s in enumerate(judging.pending_surfaces(survey, self.editor.visit_index,
-                                                       self.room_id)):
-            table.add_row(plain(walk.cut(s.location)),
+                Text(words.ELEMENT_WORDS.get(s.element, s.element)),
+                Text("" if last is None else d.temperature(last)), key=f"s{n}")
+        pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
+        for n, s in enumerate(pending):
+            table.add_row(Text("·"), plain(walk.cut(s.location, 24)), Text("to read"),
+                          Text(""), Text("measured last visit"), Text(""),
                           Text(words.ELEMENT_WORDS.get(s.element, "")),
-                          Text("to read"), Text(d.temperature(s.surface_temp_c)), Text(""),
-                          Text(""), Text("measured last visit"), key=f"p{n}")
+                          Text(d.temperature(s.surface_temp_c)), key=f"p{n}")
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self._fill_materials(record, judged, last_value)
@@ -187,14 +187,16 @@ class RoomScreen(walk.WalkScreen):
                 state = "–" if f is None else DRY_STANDARD_WORDS[f.dry_standard_state] + (
                     "" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
             last = last_value.get((m.location, m.material))
-            table.add_row(plain(walk.cut(m.location)), plain(walk.cut(m.material, 20)),
-                          Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
-                          Text("" if last is None else f"{last:g}"), Text(state), key=f"m{n}")
-        for n, m in enumerate(judging.pending_materials(self.editor.survey,
-                                                        self.editor.visit_index,
-                                                        self.room_id)):
-            table.add_row(plain(walk.cut(m.location)), plain(walk.cut(m.material, 20)), Text("to read"),
-                          Text(f"{m.value:g}"), Text("read last visit"), key=f"q{n}")
+            table.add_row(plain(walk.cut(m.location, 24)),
+                          Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"), Text(state),
+                          plain(walk.cut(m.material, 20)),
+                          Text("" if last is None else f"{last:g}"), key=f"m{n}")
+        pending = judging.pending_materials(self.editor.survey, self.editor.visit_index,
+                                            self.room_id)
+        for n, m in enumerate(pending):
+            table.add_row(plain(walk.cut(m.location, 24)), Text("to read"),
+                          Text("read last visit"), plain(walk.cut(m.material, 20)),
+                          Text(f"{m.value:g}"), key=f"q{n}")
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
 
