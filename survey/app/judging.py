@@ -11,6 +11,8 @@ from __future__ import annotations
 import datetime as dt
 from dataclasses import dataclass
 
+import msgspec
+
 from survey import advise, assess, evaluate, model, words
 
 
@@ -37,6 +39,12 @@ def judge_room(survey: model.Survey, visit_index: int, room_id: str,
     record = candidate if candidate is not None else visit.room_visit(room_id)
     if record is None:
         return None
+    # evaluate looks up every room of the visit to find the reference rooms (their dry
+    # standards count here); give it only those and this room, so a room of a large survey
+    # is judged in the time of a small one. The judgement is the same.
+    references = {r.id for r in survey.rooms if r.is_reference}
+    visit = msgspec.structs.replace(visit, rooms=[
+        rv for rv in visit.rooms if rv.room in references and rv.room != room_id] + [record])
     entered: dict[str, bool] = {}
     room_input = evaluate.room_input(survey, visit, record, entered)
     if room_input is None:

@@ -68,17 +68,14 @@ class SurveyApp(App):
     # --- start-up --------------------------------------------------------------------------
 
     def on_mount(self) -> None:
-        from survey.app.start import StartScreen
-
-        self.push_screen(StartScreen())
         path, create, demo, fresh = self._start
+        opened = False
         if demo:
-            self.open_demo(fresh=fresh)
+            opened = self.open_demo(fresh=fresh)
         elif path is not None:
-            if create:
-                self.create_survey(path, create)
-            else:
-                self.open_survey(path)
+            opened = self.create_survey(path, create) if create else self.open_survey(path)
+        if not opened:
+            self.show_start()
 
     @property
     def display_units(self) -> words.Display:
@@ -88,7 +85,7 @@ class SurveyApp(App):
         folder = (self.data_dir or Path.cwd()) / "demo"
         return folder / DEMO_NAME
 
-    def open_demo(self, fresh: bool = False) -> None:
+    def open_demo(self, fresh: bool = False) -> bool:
         """Copy the bundled example site to the data folder (once, or afresh) and open it;
         the bundled file is never edited."""
         target = self.demo_path()
@@ -101,8 +98,8 @@ class SurveyApp(App):
                 shutil.copyfile(DEMO_SOURCE, target)
         except OSError as exc:
             self.show_status(f"The demo could not be copied to {target}: {exc}", "error")
-            return
-        self.open_survey(target)
+            return False
+        return self.open_survey(target)
 
     def open_survey(self, path: Path) -> bool:
         try:
@@ -149,6 +146,26 @@ class SurveyApp(App):
             self.editor = None
 
     # --- moving between screens -----------------------------------------------------------
+    # The stack is [default, start screen, walk screen, room screen]; started on a file, the
+    # start screen is left out (it is built when first asked for) so the survey shows sooner.
+
+    @property
+    def _walk_base(self) -> int:
+        """Screens under the walk's screens."""
+        from survey.app.start import StartScreen
+
+        return 2 if len(self.screen_stack) > 1 and isinstance(self.screen_stack[1],
+                                                               StartScreen) else 1
+
+    def show_start(self) -> None:
+        """The start screen: back under the walk, or built now."""
+        from survey.app.start import StartScreen
+
+        base = self._walk_base
+        while len(self.screen_stack) > base:
+            self.pop_screen()
+        if base == 1:
+            self.push_screen(StartScreen())
 
     def go(self, name: str) -> None:
         """Show one of the walk's screens (above the start screen)."""
@@ -161,9 +178,10 @@ class SurveyApp(App):
                    "rooms": rooms.RoomListScreen, "findings": findings.FindingsScreen}
         if name != "site":
             self.ensure_visit()
-        while len(self.screen_stack) > 3:
+        base = self._walk_base
+        while len(self.screen_stack) > base + 1:
             self.pop_screen()
-        if len(self.screen_stack) == 3:
+        if len(self.screen_stack) == base + 1:
             self.switch_screen(screens[name]())
         else:
             self.push_screen(screens[name]())
@@ -178,9 +196,10 @@ class SurveyApp(App):
         if editor is None:
             return
         self.ensure_visit()
-        while len(self.screen_stack) > 4:
+        base = self._walk_base
+        while len(self.screen_stack) > base + 2:
             self.pop_screen()
-        if len(self.screen_stack) == 4:
+        if len(self.screen_stack) == base + 2:
             self.switch_screen(RoomScreen(room_id))
         else:
             self.push_screen(RoomScreen(room_id))

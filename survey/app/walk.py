@@ -80,7 +80,7 @@ class WalkScreen(Screen):
         if self.PARENT:
             self.app.go(self.PARENT)
         else:
-            self.app.pop_screen()
+            self.app.show_start()
 
     def committed(self) -> None:
         self.app.committed()
