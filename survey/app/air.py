@@ -76,6 +76,10 @@ class AirPair(Vertical):
                         + ("the RH" if which == "temp" else "the temperature") + " is given")
             self.reading = reading
             self.save(reading)
+            other = self.query_one(f"#{self.key_name}-{'rh' if which == 'temp' else 'temp'}",
+                                   Field)
+            if not other.has_class("-invalid"):
+                other.show_message("")
             if which == "rh" and value >= RH_WARNING_PCT:
                 return (f"saved; {value:g} % is close to saturation: check that the sensor "
                         "is dry and has settled")

@@ -13,7 +13,7 @@ from rich.text import Text
 from textual import on
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
-from textual.widgets import Input, Label, Static
+from textual.widgets import Checkbox, Input, Label, Static
 
 from survey.errors import InputError
 from survey.safe_text import visible
@@ -139,3 +139,12 @@ class Field(Vertical):
         except InputError:
             value = None
         self.post_message(self.Preview(self, value))
+
+
+class Tick(Checkbox):
+    """A check box whose state is a symbol (✓ or blank), not a colour alone."""
+
+    @property
+    def _button(self):
+        self.BUTTON_INNER = "✓" if self.value else " "
+        return super()._button

@@ -13,7 +13,7 @@ from textual.widgets import Checkbox, Label, Select, Static
 from survey import model, words
 from survey.app import judging, walk
 from survey.app.air import AirPair
-from survey.app.fields import Field, plain
+from survey.app.fields import Field, Tick, plain
 from survey.app.panel import LivePanel, panel_text
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import MaterialTable, SurfaceTable
@@ -96,14 +96,14 @@ class RoomScreen(walk.WalkScreen):
                 yield Static(Text("Material readings", style="bold"))
                 yield MaterialTable(id="materials")
                 yield Static(Text("What was seen", style="bold"))
-                yield Checkbox("Mould seen", seen.mould_visible, compact=True,
+                yield Tick("Mould seen", seen.mould_visible, compact=True,
                                id="seen-mould_visible", disabled=ro)
                 yield Field("Mould area", "" if seen.mould_area_m2 is None
                             else f"{seen.mould_area_m2:g}",
                             walk.optional(walk.number("Mould area")),
                             self._set_seen("mould_area_m2", "Mould area"),
                             id="seen-area", placeholder="m²", disabled=ro)
-                yield Checkbox("Condensation seen", seen.condensation_seen, compact=True,
+                yield Tick("Condensation seen", seen.condensation_seen, compact=True,
                                id="seen-condensation_seen", disabled=ro)
                 yield walk.labelled("Water category", Select(
                     WATER, value=seen.water_category or 0, allow_blank=False, compact=True,

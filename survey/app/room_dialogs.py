@@ -15,7 +15,7 @@ from textual.widgets import Checkbox, Label, Select, Static
 
 from survey import model, words
 from survey.app import walk
-from survey.app.fields import Field, plain
+from survey.app.fields import Field, Tick, plain
 from survey.errors import InputError
 
 ELEMENTS = [(words.ELEMENT_WORDS.get(e, e.replace("_", " ")), e) for e in
@@ -87,9 +87,9 @@ class SurfaceDialog(_ReadingDialog):
                 compact=True, id="surface-element"))
             yield Field("Material", r.material if r else "", walk.text_parser("Material"),
                         self.keep("material"), id="surface-material")
-            yield Checkbox("Condensation seen here", r.condensation_seen if r else False,
+            yield Tick("Condensation seen here", r.condensation_seen if r else False,
                            compact=True, id="surface-condensation")
-            yield Checkbox("Mould seen here", r.mould_visible if r else False, compact=True,
+            yield Tick("Mould seen here", r.mould_visible if r else False, compact=True,
                            id="surface-mould")
             yield Field(f"Temperature {unit}", "" if r is None or r.surface_temp_c is None
                         else walk.shown("temperature", r.surface_temp_c, self.system),
@@ -107,9 +107,10 @@ class SurfaceDialog(_ReadingDialog):
             self.query_one("#surface-temp-input").focus()
         else:
             self.query_one("#surface-location-input").focus()
-        if self.reading is not None:
-            self.values["surface_temp_c"] = self.reading.surface_temp_c
-            self._show_preview(self.reading.surface_temp_c)
+        known = None if self.reading is None else self.reading.surface_temp_c
+        if known is not None:
+            self.values["surface_temp_c"] = known
+        self._show_preview(known)
 
     def _temperature(self, value: float) -> str:
         walk.checked(model.SurfaceReading(location="-", element="other", surface_temp_c=0.0),
@@ -175,7 +176,7 @@ class MaterialDialog(_ReadingDialog):
             yield walk.labelled("Scale", Select(
                 SCALES, value=r.scale if r else "wme_pct", allow_blank=False, compact=True,
                 id="material-scale"))
-            yield Checkbox("Dry standard (an unaffected spot of the same material)",
+            yield Tick("Dry standard (an unaffected spot of the same material)",
                            r.dry_standard if r else False, compact=True, id="material-dry")
             yield Field("Reading", "" if r is None or r.value is None else f"{r.value:g}",
                         walk.required("Moisture reading", walk.number("Moisture reading")),

@@ -52,6 +52,8 @@ class RoomListScreen(walk.WalkScreen):
             line = Text(f"Visit {visit_index % len(survey.visits) + 1} of {len(survey.visits)}"
                         f", started {visit.started_at:%Y-%m-%d %H:%M} ")
             line.append(plain(visit.label))
+            if not survey.rooms:
+                line.append("\nNo rooms yet: press a to add the first one.", style="bold")
             self.query_one("#rooms-visit", Static).update(line)
         for room in survey.rooms:
             missing = judging.readings_missing(survey, visit_index, room.id)

@@ -5,7 +5,7 @@ from __future__ import annotations
 from rich.text import Text
 from textual import on
 from textual.containers import VerticalScroll
-from textual.widgets import Button, DataTable, Label, Select
+from textual.widgets import Button, DataTable, Label, Select, Static
 
 from survey import model
 from survey.app import walk
@@ -43,6 +43,8 @@ class SiteScreen(walk.WalkScreen):
                 UNIT_SYSTEMS, value=site.unit_system, allow_blank=False, compact=True,
                 id="site-unit_system", disabled=ro))
             yield Label(Text("Instruments", style="bold"))
+            yield Static(Text("On the table: a adds an instrument, Enter edits, d deletes."),
+                         classes="hint")
             yield InstrumentTable(id="instruments")
             yield Button("Continue to the visit ▸", id="to-visit", compact=True)
         yield from self.footer_widgets()

@@ -107,9 +107,9 @@ class StartScreen(Screen):
                 self.app.create_survey(path, values[1].strip())
 
         self.app.push_screen(PromptDialog(
-            "New survey", [("File (created in the current folder unless a path is given)",
-                            ""), ("Site reference, e.g. job number and short address", "")],
-            check), done)
+            "New survey", [("File name, e.g. flat-7.json", ""),
+                           ("Site reference, e.g. job number and short address", "")],
+            check, note=f"The file is made in {Path.cwd()} unless you give a path."), done)
 
     def action_open(self) -> None:
         def check(values: list[str]) -> str:
