@@ -100,9 +100,10 @@ async def test_a_locked_survey_opens_read_only(tmp_path):
     shutil.copyfile(DEMO_SOURCE, path)
     before = path.read_bytes()
     holder = subprocess.Popen(
-        [sys.executable, "-c", "import sys, time; from survey import store; "
-         "s = store.open_for_editing(sys.argv[1]); print('ready', flush=True); "
-         "time.sleep(60)", str(path)], stdout=subprocess.PIPE, text=True)
+        [sys.executable, "-c", ("import sys, time; from survey import store; "
+                                "s = store.open_for_editing(sys.argv[1]); "
+                                "print('ready', flush=True); time.sleep(60)"), str(path)],
+        stdout=subprocess.PIPE, text=True)
     try:
         assert holder.stdout.readline().strip() == "ready"
         lock_before = store.lock_path(path).read_bytes()

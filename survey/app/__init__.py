@@ -17,7 +17,7 @@ if TYPE_CHECKING:
 
 
 def make_app(path: str | Path | None = None, *, create: str | None = None,
-             demo: bool = False, data_dir: Path | None = None, **options: Any) -> "SurveyApp":
+             demo: bool = False, data_dir: Path | None = None, **options: Any) -> SurveyApp:
     """The app: the start screen, or ``path`` opened (created with site reference
     ``create``), or the demo survey. ``data_dir`` holds the recent list and the demo copy
     (the user's data folder by default)."""

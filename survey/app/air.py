@@ -19,7 +19,7 @@ class AirPair(Vertical):
     """Temperature and RH of one reading; ``save(AirReading)`` is called once both parse."""
 
     class Preview(Message):
-        def __init__(self, pair: "AirPair", reading: model.AirReading | None) -> None:
+        def __init__(self, pair: AirPair, reading: model.AirReading | None) -> None:
             super().__init__()
             self.pair = pair
             self.reading = reading

@@ -47,7 +47,7 @@ class Editor:
     # --- opening ---------------------------------------------------------------------------
 
     @classmethod
-    def open(cls, path: str | os.PathLike[str]) -> "Editor":
+    def open(cls, path: str | os.PathLike[str]) -> Editor:
         """Open ``path`` for editing; a survey locked by someone else opens read-only.
 
         A file that fails to load raises :class:`SurveyFileError` and is left untouched."""
@@ -59,7 +59,7 @@ class Editor:
         return cls(path, session.survey, session)
 
     @classmethod
-    def create(cls, path: str | os.PathLike[str], reference: str) -> "Editor":
+    def create(cls, path: str | os.PathLike[str], reference: str) -> Editor:
         """Create a new survey file at ``path`` (it must not exist) and open it."""
         path = Path(path)
         session = store.open_for_editing(path, create=model.new_survey(reference))

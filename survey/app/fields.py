@@ -7,7 +7,8 @@ allowed) and nothing is saved: the survey keeps its last good value.
 
 from __future__ import annotations
 
-from typing import Any, Callable
+from collections.abc import Callable
+from typing import Any
 
 from rich.text import Text
 from textual import on
@@ -35,25 +36,25 @@ class Field(Vertical):
     DEFAULT_CLASSES = "field"
 
     class Committed(Message):
-        def __init__(self, field: "Field", value: Any) -> None:
+        def __init__(self, field: Field, value: Any) -> None:
             super().__init__()
             self.field = field
             self.value = value
 
         @property
-        def control(self) -> "Field":
+        def control(self) -> Field:
             return self.field
 
     class Preview(Message):
         """The text being typed parsed (``value`` None when it does not parse yet)."""
 
-        def __init__(self, field: "Field", value: Any) -> None:
+        def __init__(self, field: Field, value: Any) -> None:
             super().__init__()
             self.field = field
             self.value = value
 
         @property
-        def control(self) -> "Field":
+        def control(self) -> Field:
             return self.field
 
     def __init__(self, label: str, text: str, parse: Parse, commit: Commit, *,

@@ -22,7 +22,7 @@ def key_text(binding: Binding) -> str:
 
 
 def help_text() -> Text:
-    from survey.app import main, rooms, room, site, start, tables, visit, walk
+    from survey.app import main, room, rooms, start, tables, visit, walk
 
     sections = [("Everywhere", main.SurveyApp.BINDINGS),
                 ("Start screen", start.StartScreen.BINDINGS),

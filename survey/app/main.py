@@ -5,8 +5,8 @@ from __future__ import annotations
 
 import datetime as dt
 import shutil
+from collections.abc import Callable
 from pathlib import Path
-from typing import Callable
 
 from textual.app import App
 from textual.binding import Binding

@@ -42,9 +42,8 @@ class QuickScreen(Screen):
                     with Horizontal(classes="field-row"):
                         yield Label(label, classes="field-label")
                         yield Input(id=f"quick-{key}", compact=True)
-                yield Label("Use", classes="field-label")
-                yield Select(USES, value="other", allow_blank=False, compact=True,
-                             id="quick-use")
+                yield walk.labelled("Use", Select(USES, value="other", allow_blank=False,
+                                                  compact=True, id="quick-use"))
                 yield Static("", id="quick-message", classes="field-message -error")
             yield VerticalScroll(Static(id="quick-result"), classes="live-panel-scroll")
         yield Footer()

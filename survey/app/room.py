@@ -8,15 +8,16 @@ from rich.text import Text
 from textual import on
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
-from textual.widgets import Checkbox, Label, Select, Static
+from textual.widgets import Checkbox, Select, Static
 
 from survey import model, words
 from survey.app import judging, walk
 from survey.app.air import AirPair
 from survey.app.fields import Field, Tick, plain
-from survey.app.panel import LivePanel, panel_text
+from survey.app.panel import LivePanel
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import MaterialTable, SurfaceTable
+from survey.errors import InputError
 from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
 
 USES = [(u.replace("_", " "), u) for u in ("bedroom", "bathroom", "kitchen", "living",
@@ -242,8 +243,6 @@ class RoomScreen(walk.WalkScreen):
         for name in names:
             problem = model.photo_name_problem(name)
             if problem:
-                from survey.errors import InputError
-
                 raise InputError("Photos", name, problem)
         return names
 
@@ -279,7 +278,7 @@ class RoomScreen(walk.WalkScreen):
         if not self.read_only and event.value != current:
             try:
                 self._set_seen(name, name.replace("_", " "))(event.value)
-            except Exception as exc:  # the model refuses (e.g. an area with no mould)
+            except InputError as exc:  # the model refuses (e.g. an area with no mould)
                 self.app.show_status(f"Not saved — {exc}", "error")
                 event.checkbox.value = current
 

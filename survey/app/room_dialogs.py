@@ -3,7 +3,7 @@ previews the surface's judgement while its temperature is typed."""
 
 from __future__ import annotations
 
-from typing import Callable
+from collections.abc import Callable
 
 import msgspec
 from rich.text import Text
@@ -11,7 +11,7 @@ from textual import on
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.screen import ModalScreen
-from textual.widgets import Checkbox, Label, Select, Static
+from textual.widgets import Checkbox, Select, Static
 
 from survey import model, words
 from survey.app import walk

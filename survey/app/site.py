@@ -4,7 +4,6 @@ from __future__ import annotations
 
 from rich.text import Text
 from textual import on
-from textual.containers import VerticalScroll
 from textual.widgets import Button, DataTable, Label, Select, Static
 
 from survey import model

@@ -6,8 +6,8 @@ from __future__ import annotations
 from rich.text import Text
 from textual import on
 from textual.binding import Binding
-from textual.containers import Horizontal, VerticalScroll
-from textual.widgets import Button, Label, Select, Static
+from textual.containers import Horizontal
+from textual.widgets import Button, Select, Static
 
 from survey import model, psychro
 from survey.app import judging, walk

@@ -4,7 +4,8 @@ parsers that turn typed text into stored values through :mod:`survey.units`."""
 from __future__ import annotations
 
 import datetime as dt
-from typing import Any, Callable
+from collections.abc import Callable
+from typing import Any
 
 import msgspec
 from rich.text import Text
