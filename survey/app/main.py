@@ -12,7 +12,6 @@ from textual.app import App
 from textual.binding import Binding
 from textual.message import Message
 
-from survey import words
 from survey.app.editing import Editor, Recents, SaveOutcome
 from survey.errors import SurveyFileError
 
@@ -78,7 +77,10 @@ class SurveyApp(App):
             self.show_start()
 
     @property
-    def display_units(self) -> words.Display:
+    def display_units(self):
+        """The :class:`survey.words.Display` of the open survey's unit system."""
+        from survey import words
+
         return words.Display(self.editor.unit_system if self.editor else "si")
 
     def demo_path(self) -> Path:
@@ -169,22 +171,24 @@ class SurveyApp(App):
 
     def go(self, name: str) -> None:
         """Show one of the walk's screens (above the start screen)."""
-        from survey.app import findings, rooms, site, visit
+        import importlib
 
         if self.editor is None:
             self.show_status("Open or create a survey first (on the start screen).", "error")
             return
-        screens = {"site": site.SiteScreen, "visit": visit.VisitScreen,
-                   "rooms": rooms.RoomListScreen, "findings": findings.FindingsScreen}
+        module, name = {"site": ("site", "SiteScreen"), "visit": ("visit", "VisitScreen"),
+                        "rooms": ("rooms", "RoomListScreen"),
+                        "findings": ("findings", "FindingsScreen")}[name]
+        screen = getattr(importlib.import_module(f"survey.app.{module}"), name)
         if name != "site":
             self.ensure_visit()
         base = self._walk_base
         while len(self.screen_stack) > base + 1:
             self.pop_screen()
         if len(self.screen_stack) == base + 1:
-            self.switch_screen(screens[name]())
+            self.switch_screen(screen())
         else:
-            self.push_screen(screens[name]())
+            self.push_screen(screen())
 
     def action_go(self, name: str) -> None:
         self.go(name)

@@ -29,9 +29,10 @@ class RoomTable(RowTable):
         Binding("r", "screen.rename_room", "Rename", id="rooms_rename"),
         Binding("d,delete", "screen.delete_room", "Delete", id="rooms_delete"),
         Binding("u", "screen.undo", "Undo delete", id="rooms_undo"),
-        Binding("[", "screen.move(-1)", "Move up", id="rooms_up"),
-        Binding("]", "screen.move(1)", "Move down", id="rooms_down"),
-        Binding("f", "screen.reference", "Reference room", id="rooms_reference"),
+        # In the help screen and the hint line, not the footer (it has no room for them).
+        Binding("[", "screen.move(-1)", "Move up", id="rooms_up", show=False),
+        Binding("]", "screen.move(1)", "Move down", id="rooms_down", show=False),
+        Binding("f", "screen.reference", "Reference room", id="rooms_reference", show=False),
     ]
 
 

@@ -72,7 +72,9 @@ class WalkScreen(Screen):
         yield Footer()
 
     def on_screen_resume(self) -> None:
-        self.refresh_view()
+        if getattr(self, "_shown_once", False):
+            self.refresh_view()  # back from another screen: the survey may have changed
+        self._shown_once = True
 
     def refresh_view(self) -> None:
         """Redraw what depends on the survey (after a change on another screen)."""
