@@ -53,7 +53,7 @@ make_app(demo=True, data_dir=Path(sys.argv[1])).run(headless=True, auto_pilot=au
 """
 
 _LARGE = """
-import resource, sys
+import sys
 from pathlib import Path
 from survey.app import make_app
 
@@ -65,7 +65,16 @@ async def auto(pilot):
 make_app(Path(sys.argv[1]), data_dir=Path(sys.argv[2])).run(headless=True, auto_pilot=auto)
 """
 
-_PEAK = ("\nimport resource\nprint(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)\n")
+# Peak resident memory of this interpreter, kB. /proc's VmHWM belongs to the process image
+# (ru_maxrss keeps the parent's peak across fork and exec, so it would report ours).
+_PEAK = """
+import resource
+try:
+    with open("/proc/self/status") as status:
+        print(next(int(line.split()[1]) for line in status if line.startswith("VmHWM:")))
+except OSError:
+    print(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss)
+"""
 
 
 def _python(code: str, *args: str) -> tuple[float, str]:
