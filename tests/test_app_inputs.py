@@ -5,6 +5,7 @@ text, never as markup."""
 
 from __future__ import annotations
 
+import datetime as dt
 import shutil
 
 from textual import events
@@ -140,14 +141,18 @@ async def test_a_bad_surface_temperature_is_not_saved(tmp_path):
 
 
 async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
-    """RH 99 % is possible: saved, with a warning under the field."""
+    """RH 99 % is possible: saved, with a warning under the field; so is a reading taken
+    long after the visit began (the demo visit began on 2025-01-15 09:40; the app's clock
+    here is 2026-12-01 09:30)."""
     path = tmp_path / "survey.json"
     shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    app = make_app(path, data_dir=tmp_path / "data",
+                   clock=lambda: dt.datetime(2026, 12, 1, 9, 30))
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-rh", "99")
         assert "close to saturation" in message_of(app, "room-rh")
+        assert "h after this visit began" in message_of(app, "room-rh")
     assert store.load_survey(path).visits[0].rooms[0].air.rh_pct == 99.0
 
 

@@ -16,7 +16,8 @@ RH_WARNING_PCT = 98.0
 
 
 class AirPair(Vertical):
-    """Temperature and RH of one reading; ``save(AirReading)`` is called once both parse."""
+    """Temperature and RH of one reading; ``save(AirReading) -> warning`` is called once
+    both parse."""
 
     class Preview(Message):
         def __init__(self, pair: AirPair, reading: model.AirReading | None) -> None:
@@ -75,15 +76,15 @@ class AirPair(Vertical):
                 return ("kept here; the reading is saved once "
                         + ("the RH" if which == "temp" else "the temperature") + " is given")
             self.reading = reading
-            self.save(reading)
+            warnings = [w for w in (self.save(reading),) if w]
             other = self.query_one(f"#{self.key_name}-{'rh' if which == 'temp' else 'temp'}",
                                    Field)
             if not other.has_class("-invalid"):
                 other.show_message("")
             if which == "rh" and value >= RH_WARNING_PCT:
-                return (f"saved; {value:g} % is close to saturation: check that the sensor "
-                        "is dry and has settled")
-            return ""
+                warnings.append(f"{value:g} % is close to saturation: check that the sensor "
+                                "is dry and has settled")
+            return "saved; " + "; ".join(warnings) if warnings else ""
         return commit
 
     def on_field_preview(self, event: Field.Preview) -> None:

@@ -246,9 +246,11 @@ class RoomScreen(walk.WalkScreen):
                 raise InputError("Photos", name, problem)
         return names
 
-    def _set_air(self, reading: model.AirReading) -> None:
+    def _set_air(self, reading: model.AirReading) -> str:
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit)
         self._replace_record("air reading", air=reading)
         self._changed()
+        return warning
 
     @on(AirPair.Preview)
     def _preview_air(self, event: AirPair.Preview) -> None:

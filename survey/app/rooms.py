@@ -30,8 +30,8 @@ class RoomListScreen(walk.WalkScreen):
         yield Static(id="rooms-visit", classes="hint")
         yield RoomTable(id="rooms")
         yield Static(Text("✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing"
-                          "  ★ reference\nEnter opens a room · Ctrl+N the next room to read · [ ] move · "
-                          "f reference room · F1 all keys"), classes="hint")
+                          "  ★ reference\nEnter opens a room · Ctrl+N the next room to read"
+                          " · [ ] move · f reference room · F1 all keys"), classes="hint")
         yield from self.footer_widgets()
 
     def on_mount(self) -> None:

@@ -66,11 +66,13 @@ class VisitScreen(walk.WalkScreen):
             return ""
         return commit
 
-    def _set_outdoor(self, reading: model.AirReading) -> None:
+    def _set_outdoor(self, reading: model.AirReading) -> str:
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit)
         visits = self.editor.survey.visits
         visits[self.editor.visit_index] = walk.checked(self.visit, "outdoor", outdoor=reading)
         self.committed()
         self.show_state(reading)
+        return warning
 
     @on(AirPair.Preview)
     def _preview(self, event: AirPair.Preview) -> None:

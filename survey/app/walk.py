@@ -95,6 +95,25 @@ class WalkScreen(Screen):
         return False
 
 
+#: Hours after a visit began past which a new reading gets a warning (another day's visit?).
+LATE_READING_H = 4.0
+
+
+def stamped(reading, now: dt.datetime, visit: model.Visit):
+    """``reading`` taken now, and a warning when that is long after the visit began."""
+    now = now.replace(microsecond=0)
+    reading = msgspec.structs.replace(reading, taken_at=now)
+    try:
+        hours = (now - visit.started_at).total_seconds() / 3600.0
+    except TypeError:  # a visit time with a time zone: no comparison
+        return reading, ""
+    if hours <= LATE_READING_H:
+        return reading, ""
+    return reading, (f"taken {hours:,.0f} h after this visit began "
+                     f"({visit.started_at:%Y-%m-%d %H:%M}); if this is a later visit, "
+                     "F3 then F7 starts one")
+
+
 # --- parsers: text -> stored value (raise InputError) ----------------------------------------
 
 def optional(parse: Callable[[str], Any]) -> Callable[[str], Any]:
