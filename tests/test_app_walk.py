@@ -114,7 +114,6 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await press(pilot, "f3")                       # the visit
         await settle(pilot, app)
         assert type(app.screen).__name__ == "VisitScreen"
-        await press(pilot, "tab")                      # past the visit choice
         await field(pilot, "2026-12-01 09:30")
         await field(pilot, "Day 1")
         await press(pilot, "tab")                      # inspector: the site's

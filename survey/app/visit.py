@@ -53,6 +53,7 @@ class VisitScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         self.show_state(self.visit.outdoor)
+        self.query_one("#visit-started-input").focus()
 
     def _previous_outdoor(self) -> model.AirReading | None:
         index = self.editor.visit_index % len(self.editor.survey.visits)
