@@ -49,11 +49,11 @@ def run_open(args: argparse.Namespace) -> int:
     from survey import store
     from survey.app import make_app
 
+    path = Path(args.file)
+    store.load_survey(path)  # a file that fails to load: the store's message, exit 1
     refused = _need_terminal()
     if refused is not None:
         return refused
-    path = Path(args.file)
-    store.load_survey(path)  # a file that fails to load: the store's message, exit 1
     make_app(path).run()
     return 0
 
