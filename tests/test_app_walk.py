@@ -166,6 +166,8 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     assert (first.outdoor.dry_bulb_c, first.outdoor.rh_pct) == (3.0, 88.0)
     bedroom, kitchen = first.rooms
     assert (bedroom.air.dry_bulb_c, bedroom.air.rh_pct) == (18.0, 70.0)
+    assert bedroom.air.instrument == "th1"  # the site's thermo-hygrometer
+    assert bedroom.air.taken_at == FIXED_NOW
     assert [(s.location, s.surface_temp_c) for s in bedroom.surfaces] == [
         ("N corner", 8.0), ("E wall", 17.0), ("Ceiling", 16.5)]
     assert [(m.location, m.material, m.value) for m in bedroom.materials] == [
@@ -177,6 +179,7 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     assert (second.rooms[0].air.dry_bulb_c, second.rooms[0].air.rh_pct) == (19.0, 60.0)
 
     judged = evaluate.assess_visit(survey, 0)
+    assert judged.accuracy_entered["rh_pct"]  # its ±2 % RH, not the typical value
     room = judged.findings.rooms[0]
     # Dew point of 18 °C, 70 % RH at 101 325 Pa by CoolProp (independent reference).
     reference_c = CP.HAPropsSI("D", "T", 291.15, "R", 0.70, "P", 101325.0) - 273.15

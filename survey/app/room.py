@@ -247,7 +247,8 @@ class RoomScreen(walk.WalkScreen):
         return names
 
     def _set_air(self, reading: model.AirReading) -> str:
-        reading, warning = walk.stamped(reading, self.app.clock(), self.visit)
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit,
+                                         self.editor.survey)
         self._replace_record("air reading", air=reading)
         self._changed()
         return warning
@@ -347,6 +348,8 @@ class RoomScreen(walk.WalkScreen):
                 return
             surfaces = list(self.record(create=True).surfaces)
             if index is None:
+                result, _ = walk.stamped(result, self.app.clock(), self.visit,
+                                         self.editor.survey, "surface")
                 surfaces.append(result)
             else:
                 surfaces[index] = result
@@ -382,6 +385,8 @@ class RoomScreen(walk.WalkScreen):
                 return
             materials = list(self.record(create=True).materials)
             if index is None:
+                result, _ = walk.stamped(result, self.app.clock(), self.visit,
+                                         self.editor.survey, "material")
                 materials.append(result)
             else:
                 materials[index] = result

@@ -68,7 +68,8 @@ class VisitScreen(walk.WalkScreen):
         return commit
 
     def _set_outdoor(self, reading: model.AirReading) -> str:
-        reading, warning = walk.stamped(reading, self.app.clock(), self.visit)
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit,
+                                         self.editor.survey)
         visits = self.editor.survey.visits
         visits[self.editor.visit_index] = walk.checked(self.visit, "outdoor", outdoor=reading)
         self.committed()

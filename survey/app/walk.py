@@ -99,10 +99,33 @@ class WalkScreen(Screen):
 LATE_READING_H = 4.0
 
 
-def stamped(reading, now: dt.datetime, visit: model.Visit):
-    """``reading`` taken now, and a warning when that is long after the visit began."""
+#: The instrument kinds that take each kind of reading, in the order one is chosen.
+READING_INSTRUMENTS = {
+    "air": ("thermo_hygrometer", "combined_meter", "data_logger"),
+    "surface": ("surface_thermometer", "combined_meter"),
+    "material": ("moisture_meter", "combined_meter"),
+}
+
+
+def default_instrument(survey: model.Survey, reading_kind: str) -> str | None:
+    """The site's first instrument that takes this kind of reading (so its accuracy is
+    the one the judgement uses), else None (typical accuracies are used)."""
+    for kind in READING_INSTRUMENTS[reading_kind]:
+        for instrument in survey.instruments:
+            if instrument.kind == kind:
+                return instrument.id
+    return None
+
+
+def stamped(reading, now: dt.datetime, visit: model.Visit,
+            survey: model.Survey | None = None, reading_kind: str = "air"):
+    """``reading`` taken now (with the site's instrument for it when none is named), and a
+    warning when that is long after the visit began."""
     now = now.replace(microsecond=0)
     reading = msgspec.structs.replace(reading, taken_at=now)
+    if survey is not None and reading.instrument is None:
+        reading = msgspec.structs.replace(
+            reading, instrument=default_instrument(survey, reading_kind))
     try:
         hours = (now - visit.started_at).total_seconds() / 3600.0
     except TypeError:  # a visit time with a time zone: no comparison
