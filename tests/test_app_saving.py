@@ -181,3 +181,28 @@ async def test_the_demo_copies_the_example_and_never_edits_it(tmp_path):
     assert DEMO_SOURCE.read_bytes() == bundled
     assert store.load_survey(tmp_path / "data" / "demo" / "demo-flat-9.json").rooms[0].name \
         == "Attic"
+
+
+async def test_equipment_added_by_keys_is_saved_and_judged(tmp_path):
+    """A running dehumidifier added on the room screen is saved, and the room is then judged
+    as being dried (evaluate's rule: drying equipment running)."""
+    from survey import evaluate
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(app.editor.survey.rooms[0].id)
+        await settle(pilot, app)
+        app.screen.query_one("#equipment").focus()
+        await pilot.press("a")
+        await settle(pilot, app)
+        for text in ("", "Dehu 1", "", "20", "3"):  # kind and "running" as offered
+            send_keys(app, text)
+            await pilot.press("enter")
+        await settle(pilot, app)
+    room = store.load_survey(path).visits[0].rooms[0]
+    assert [(e.kind, e.label, e.running, e.capacity_l_per_day, e.water_removed_l)
+            for e in room.equipment] == [("refrigerant_dehumidifier", "Dehu 1", True, 20.0, 3.0)]
+    assert evaluate.drying_in_progress(room)

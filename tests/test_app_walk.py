@@ -104,6 +104,8 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await field(pilot, "Owner")
         await field(pilot, "Ann")
         await press(pilot, "tab", "tab")               # past purpose and units
+        await field(pilot, "35")                       # altitude, m
+        await press(pilot, "enter", "enter", "enter")  # construction, year, notes: none
         await press(pilot, "a")                        # instruments table: add
         await settle(pilot, app)
         await field(pilot, "th1")
@@ -157,6 +159,7 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     site = survey.site
     assert (site.reference, site.address, site.client, site.inspector) == (
         "Flat 3", "3 Row", "Owner", "Ann")
+    assert site.altitude_m == 35.0
     assert survey.instruments[0].rh_accuracy_pct == 2.0
     assert str(survey.instruments[0].calibrated_on) == "2026-06-01"
     assert [r.name for r in survey.rooms] == ["Bed [b]1", "Kitchen"]

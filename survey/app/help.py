@@ -32,6 +32,7 @@ def help_text() -> Text:
                 ("Room", room.RoomScreen.BINDINGS),
                 ("Surface table", tables.SurfaceTable.BINDINGS),
                 ("Material table", tables.MaterialTable.BINDINGS),
+                ("Equipment table", tables.EquipmentTable.BINDINGS),
                 ("Instruments (site)", tables.InstrumentTable.BINDINGS)]
     out = Text(WALK + "\n")
     for title, bindings in sections:

@@ -11,18 +11,20 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.widgets import Checkbox, Select, Static
 
 from survey import model, words
-from survey.app import judging, walk
+from survey.app import equipment, judging, walk
 from survey.app.air import AirPair
 from survey.app.fields import Field, Tick, plain
 from survey.app.panel import LivePanel
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
-from survey.app.tables import MaterialTable, SurfaceTable
+from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
 from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
 
 USES = [(u.replace("_", " "), u) for u in ("bedroom", "bathroom", "kitchen", "living",
                                             "basement", "crawlspace", "loft", "office",
                                             "storage", "hallway", "other")]
+ODOURS = [("not recorded", ""), ("none", "none"), ("musty", "musty"), ("earthy", "earthy"),
+          ("sewage", "sewage"), ("chemical", "chemical"), ("other", "other")]
 WATER = [("not recorded", 0), ("1: clean water", 1), ("2: significantly contaminated", 2),
          ("3: grossly contaminated (sewage, flood water)", 3)]
 
@@ -109,7 +111,11 @@ class RoomScreen(walk.WalkScreen):
                 yield walk.labelled("Water category", Select(
                     WATER, value=seen.water_category or 0, allow_blank=False, compact=True,
                     id="seen-water", disabled=ro))
-                yield Static(id="equipment", classes="hint")
+                yield walk.labelled("Odour", Select(
+                    ODOURS, value=seen.odour or "", allow_blank=False, compact=True,
+                    id="seen-odour", disabled=ro))
+                yield Static(Text("Equipment in the room", style="bold"))
+                yield EquipmentTable(id="equipment")
                 yield Field("Notes", record.notes if record else "",
                             walk.text_parser("Notes"), self._set_record("notes", "Notes"),
                             id="room-notes", disabled=ro)
@@ -125,6 +131,7 @@ class RoomScreen(walk.WalkScreen):
                              "element", "last visit")
         materials = self.query_one(MaterialTable)
         materials.add_columns("location", "reading", "state", "material", "last visit")
+        self.query_one(EquipmentTable).add_columns(*equipment.COLUMNS)
         self.refresh_view()
         record = self.record()
         if self.read_only or (record is not None and record.air is not None):
@@ -168,11 +175,13 @@ class RoomScreen(walk.WalkScreen):
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self._fill_materials(record, judged, last_value)
-        equipment = record.equipment if record else []
-        self.query_one("#equipment", Static).update(Text(
-            "Equipment on this visit: " + ", ".join(
-                e.kind.replace("_", " ") + ("" if e.running else " (off)")
-                for e in equipment)) if equipment else Text(""))
+        table = self.query_one(EquipmentTable)
+        row = table.cursor_row
+        table.clear()
+        for n, e in enumerate(record.equipment if record else ()):
+            table.add_row(*equipment.row(e), key=f"e{n}")
+        if table.row_count:
+            table.move_cursor(row=min(row, table.row_count - 1))
         self.query_one(".screen-title", Static).update(self.title_line())
 
     def _fill_materials(self, record, judged, last_value) -> None:
@@ -267,6 +276,11 @@ class RoomScreen(walk.WalkScreen):
             return
         if event.select.id == "room-use" and event.value != self.room.use:
             self._set_room("use", "Use")(event.value)
+        elif event.select.id == "seen-odour":
+            value = event.value or None
+            record = self.record()
+            if (record.observations.odour if record else None) != value:
+                self._set_seen("odour", "Odour")(value)
         elif event.select.id == "seen-water":
             value = event.value or None
             record = self.record()
@@ -396,8 +410,37 @@ class RoomScreen(walk.WalkScreen):
         title = "Add a material reading" if index is None else "Edit the material reading"
         self.app.push_screen(MaterialDialog(title, reading, previous), done)
 
+    def _edit_equipment(self, index: int | None) -> None:
+        if self.refuse_if_read_only():
+            return
+        record = self.record()
+        current = None if index is None else record.equipment[index]
+
+        def done(result: model.Equipment) -> None:
+            items = list(self.record(create=True).equipment)
+            if index is None:
+                items.append(result)
+            else:
+                items[index] = result
+            self._replace_record("equipment", equipment=items)
+            self._changed()
+
+        title = "Add equipment" if index is None else "Edit the equipment"
+        self.app.push_screen(*equipment.dialog(title, current, done))
+
+    def action_add_equipment(self) -> None:
+        self._edit_equipment(None)
+
+    def action_edit_equipment(self) -> None:
+        key = self._row(self.query_one(EquipmentTable))
+        self._edit_equipment(None if key is None else int(key[1:]))
+
+    def action_delete_equipment(self) -> None:
+        self._delete("equipment")
+
     def _delete(self, kind: str) -> None:
-        table = self.query_one(SurfaceTable if kind == "surfaces" else MaterialTable)
+        table = self.query_one({"surfaces": SurfaceTable, "materials": MaterialTable,
+                                "equipment": EquipmentTable}[kind])
         key = self._row(table)
         if key is None or key[0] in "pq" or self.refuse_if_read_only():
             return
@@ -407,7 +450,7 @@ class RoomScreen(walk.WalkScreen):
         self._replace_record(kind, **{kind: items})
         self.undo_stack.append((kind, index, removed))
         self._changed()
-        label = getattr(removed, "location", "")
+        label = getattr(removed, "location", "") or getattr(removed, "kind", "")
         self.app.show_status(f"Deleted {label} — u puts it back.")
 
     def action_delete_surface(self) -> None:

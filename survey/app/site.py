@@ -6,7 +6,7 @@ from rich.text import Text
 from textual import on
 from textual.widgets import Button, DataTable, Label, Select, Static
 
-from survey import model
+from survey import model, units
 from survey.app import walk
 from survey.app.dialogs import ConfirmDialog, PromptDialog
 from survey.app.fields import Field, plain
@@ -41,6 +41,20 @@ class SiteScreen(walk.WalkScreen):
             yield walk.labelled("Units shown", Select(
                 UNIT_SYSTEMS, value=site.unit_system, allow_blank=False, compact=True,
                 id="site-unit_system", disabled=ro))
+            system = site.unit_system
+            yield Field(f"Altitude {'ft' if system == 'ip' else 'm'}",
+                        walk.shown("length", site.altitude_m, system),
+                        walk.optional(lambda t: units.parse_length(t, "Altitude", system)),
+                        self._setter("altitude_m", "Altitude"), id="site-altitude",
+                        placeholder="for the air pressure; 350 m, 1150 ft", disabled=ro)
+            yield Field("Construction", site.construction, walk.text_parser("Construction"),
+                        self._setter("construction", "Construction"), id="site-construction",
+                        disabled=ro)
+            yield Field("Year built", "" if site.year_built is None else str(site.year_built),
+                        walk.optional(walk.whole("Year built")),
+                        self._setter("year_built", "Year built"), id="site-year", disabled=ro)
+            yield Field("Notes", site.notes, walk.text_parser("Notes"),
+                        self._setter("notes", "Notes"), id="site-notes", disabled=ro)
             yield Label(Text("Instruments", style="bold"))
             yield Static(Text("On the table: a adds an instrument, Enter edits, d deletes."),
                          classes="hint")
@@ -79,6 +93,8 @@ class SiteScreen(walk.WalkScreen):
             return
         self.editor.survey.site = walk.checked(site, name, **{name: event.value})
         self.committed()
+        if name == "unit_system":
+            self.app.go("site")  # the numbers shown change units
 
     @on(Button.Pressed, "#to-visit")
     def _continue(self) -> None:

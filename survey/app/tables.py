@@ -52,3 +52,12 @@ class MaterialTable(RowTable):
         Binding("d,delete", "screen.delete_material", "Delete", id="material_delete"),
         Binding("u", "screen.undo", "Undo delete", id="material_undo"),
     ]
+
+
+class EquipmentTable(RowTable):
+    BINDINGS = [
+        Binding("a", "screen.add_equipment", "Add", id="equipment_add"),
+        Binding("e,enter", "screen.edit_equipment", "Edit", id="equipment_edit"),
+        Binding("d,delete", "screen.delete_equipment", "Delete", id="equipment_delete"),
+        Binding("u", "screen.undo", "Undo delete", id="equipment_undo"),
+    ]

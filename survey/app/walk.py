@@ -239,5 +239,5 @@ def shown(quantity: str, value_si: float | None, system: str) -> str:
     if value_si is None:
         return ""
     if system == "si" or quantity in ("rh", "number"):
-        return f"{value_si:.10g}" if quantity != "temperature" else f"{round(value_si, 2):g}"
+        return f"{round(value_si, 2):g}"
     return f"{round(units.to_display(quantity, value_si, system), 2):g}"
