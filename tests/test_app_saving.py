@@ -206,3 +206,35 @@ async def test_equipment_added_by_keys_is_saved_and_judged(tmp_path):
     assert [(e.kind, e.label, e.running, e.capacity_l_per_day, e.water_removed_l)
             for e in room.equipment] == [("refrigerant_dehumidifier", "Dehu 1", True, 20.0, 3.0)]
     assert evaluate.drying_in_progress(room)
+
+
+async def test_a_locked_survey_without_visits_is_shown_not_started(tmp_path):
+    """Read-only, a survey with no visit gets none: F3 says so and shows the rooms."""
+    from survey import model
+
+    path = tmp_path / "empty.json"
+    survey = model.new_survey("Empty site")
+    survey.rooms.append(model.Room(id="hall", name="Hall"))
+    store.save_survey(survey, path)
+    before = path.read_bytes()
+    holder = subprocess.Popen(
+        [sys.executable, "-c", ("import sys, time; from survey import store; "
+                                "s = store.open_for_editing(sys.argv[1]); "
+                                "print('ready', flush=True); time.sleep(60)"), str(path)],
+        stdout=subprocess.PIPE, text=True)
+    try:
+        assert holder.stdout.readline().strip() == "ready"
+        app = make_app(path, data_dir=tmp_path / "data")
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            await pilot.press("f3")
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "RoomListScreen"
+            assert "no visit" in app.status_text
+            await pilot.press("enter")                  # open the room: refused, no crash
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "RoomListScreen"
+        assert path.read_bytes() == before
+    finally:
+        holder.kill()
+        holder.wait()

@@ -176,12 +176,16 @@ class SurveyApp(App):
         if self.editor is None:
             self.show_status("Open or create a survey first (on the start screen).", "error")
             return
-        module, name = {"site": ("site", "SiteScreen"), "visit": ("visit", "VisitScreen"),
-                        "rooms": ("rooms", "RoomListScreen"),
-                        "findings": ("findings", "FindingsScreen")}[name]
-        screen = getattr(importlib.import_module(f"survey.app.{module}"), name)
         if name != "site":
             self.ensure_visit()
+        if name == "visit" and not self.editor.survey.visits:  # read-only, none recorded
+            self.show_status("This survey has no visit, and it is open read-only.", "error")
+            name = "rooms"
+        module, class_name = {"site": ("site", "SiteScreen"),
+                              "visit": ("visit", "VisitScreen"),
+                              "rooms": ("rooms", "RoomListScreen"),
+                              "findings": ("findings", "FindingsScreen")}[name]
+        screen = getattr(importlib.import_module(f"survey.app.{module}"), class_name)
         base = self._walk_base
         while len(self.screen_stack) > base + 1:
             self.pop_screen()
@@ -200,6 +204,9 @@ class SurveyApp(App):
         if editor is None:
             return
         self.ensure_visit()
+        if not editor.survey.visits:
+            self.show_status("This survey has no visit, and it is open read-only.", "error")
+            return
         base = self._walk_base
         while len(self.screen_stack) > base + 2:
             self.pop_screen()
