@@ -152,7 +152,7 @@ async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-rh", "99")
         assert "close to saturation" in message_of(app, "room-rh")
-        assert "h after this visit began" in message_of(app, "room-rh")
+        assert "days after this visit began" in message_of(app, "room-rh")
     assert store.load_survey(path).visits[0].rooms[0].air.rh_pct == 99.0
 
 

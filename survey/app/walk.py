@@ -132,7 +132,8 @@ def stamped(reading, now: dt.datetime, visit: model.Visit,
         return reading, ""
     if hours <= LATE_READING_H:
         return reading, ""
-    return reading, (f"taken {hours:,.0f} h after this visit began "
+    when = f"{hours / 24:,.0f} days" if hours > 48 else f"{hours:.0f} h"
+    return reading, (f"taken {when} after this visit began "
                      f"({visit.started_at:%Y-%m-%d %H:%M}); if this is a later visit, "
                      "F3 then F7 starts one")
 
