@@ -238,3 +238,20 @@ async def test_a_locked_survey_without_visits_is_shown_not_started(tmp_path):
     finally:
         holder.kill()
         holder.wait()
+
+
+async def test_text_typed_then_quit_is_saved(tmp_path):
+    """A value typed but not yet committed with Enter is committed and saved on Ctrl+Q."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(app.editor.survey.rooms[0].id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-occupants-input").focus()
+        await pilot.pause()
+        send_keys(app, "4")
+        await pilot.pause()
+        await pilot.press("ctrl+q")
+    assert store.load_survey(path).rooms[0].occupants == 4

@@ -285,6 +285,10 @@ class SurveyApp(App):
             bar.show(text, kind)
 
     async def action_quit(self) -> None:
+        for screen in self.screen_stack:
+            commit = getattr(screen, "commit_pending", None)
+            if commit is not None:
+                commit()
         self.close_survey()
         self.exit()
 

@@ -76,6 +76,18 @@ class WalkScreen(Screen):
             self.refresh_view()  # back from another screen: the survey may have changed
         self._shown_once = True
 
+    def on_screen_suspend(self) -> None:
+        self.commit_pending()
+
+    def commit_pending(self) -> None:
+        """Commit text typed but not yet committed (leaving the screen, quitting): a good
+        value is saved, a bad one shows its message and is not."""
+        from survey.app.fields import Field
+
+        for field in self.query(Field):
+            if not field.read_only and field.input.value != field.committed_text:
+                field.try_commit()
+
     def refresh_view(self) -> None:
         """Redraw what depends on the survey (after a change on another screen)."""
 
