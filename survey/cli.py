@@ -25,6 +25,7 @@ COMMAND_MODULES = (
     "survey.commands.check",
     "survey.commands.files",
     "survey.commands.report",
+    "survey.commands.app",
 )
 
 EXIT_OK = 0
@@ -132,6 +133,10 @@ def _safe(exc: Exception) -> str:
 def main(argv: Sequence[str] | None = None) -> int:
     parser = build_parser()
     tokens = sys.argv[1:] if argv is None else list(argv)
+    if not tokens:  # `survey` alone opens the app's start screen
+        from survey.commands.app import run_start
+
+        return run_start()
     check_unknown_options(parser, tokens)
     args = parser.parse_args(join_negative_values(tokens, _value_options(parser)))
     handler = getattr(args, "handler", None)

@@ -170,7 +170,7 @@ def surface_rh_text(surface: SurfaceFinding) -> str:
     if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
         return f"{rh:.0f} %"
     if high >= 100.0:
-        return f"{rh:.0f} % ({low:.0f} % up to saturation)"
+        return f"{rh:.0f} % ({low:.0f} % or more)"
     return f"{rh:.0f} % ({low:.0f}–{high:.0f})"
 
 

@@ -1,0 +1,194 @@
+"""Non-UI helpers the screens need around the core's judgement of a stored visit.
+
+``judge_room`` judges one room of a visit the way :func:`survey.evaluate.assess_visit`
+judges the whole visit (the same room inputs, dry standards and pressure), so a room's live
+panel is quick in a room of many surfaces. The rest is bookkeeping of the walk: which rooms
+still need readings, the points measured on the previous visit, a new visit.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+from dataclasses import dataclass
+
+import msgspec
+
+from survey import advise, assess, evaluate, model, words
+
+
+@dataclass(frozen=True)
+class RoomJudgement:
+    finding: assess.RoomFinding
+    advice: advise.RoomAdvice
+    cautions: tuple[advise.Caution, ...]
+
+
+def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.RoomVisit | None:
+    if not survey.visits:
+        return None
+    return survey.visits[visit_index].room_visit(room_id)
+
+
+def judge_room(
+    survey: model.Survey, visit_index: int, room_id: str, candidate: model.RoomVisit | None = None
+) -> RoomJudgement | None:
+    """One room of a stored visit judged (``candidate`` in place of its stored record, for a
+    preview of a value being typed); None when the room has no air reading."""
+    if not survey.visits:
+        return None
+    visit = survey.visits[visit_index]
+    record = candidate if candidate is not None else visit.room_visit(room_id)
+    if record is None:
+        return None
+    # evaluate looks up every room of the visit to find the reference rooms (their dry
+    # standards count here); give it only those and this room, so a room of a large survey
+    # is judged in the time of a small one. The judgement is the same.
+    references = {r.id for r in survey.rooms if r.is_reference}
+    visit = msgspec.structs.replace(
+        visit,
+        rooms=[rv for rv in visit.rooms if rv.room in references and rv.room != room_id] + [record],
+    )
+    entered: dict[str, bool] = {}
+    room_input = evaluate.room_input(survey, visit, record, entered)
+    if room_input is None:
+        return None
+    outdoor = (
+        None
+        if visit.outdoor is None
+        else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
+    )
+    site = assess.assess_site(
+        [room_input],
+        outdoor,
+        model.pressure_pa_for(survey, visit),
+        year_built=survey.site.year_built,
+    )
+    advice = advise.advise_site(site)
+    return RoomJudgement(site.rooms[0], advice.rooms[0], advice.cautions)
+
+
+# --- how bad a room is, as a rank ------------------------------------------------------------
+
+
+def surface_rank(s: assess.SurfaceFinding) -> int:
+    """0 clear, 1 near a limit, 2 over the mould limit or not settled, 3 condensing."""
+    if s.condensation.rank is None:
+        condensation = 2
+    else:
+        condensation = s.condensation.rank + (1 if s.condensation.rank == 2 else 0)
+    mould = s.mould.rank if s.mould.rank is not None else 1 if s.mould.value == "cannot_tell" else 0
+    return max(condensation, mould)
+
+
+def worst_surface(finding: assess.RoomFinding) -> assess.SurfaceFinding | None:
+    """The surface of the highest rank (worst first among equals)."""
+    ordered = words.worst_first(finding.surfaces)
+    return max(ordered, key=surface_rank) if ordered else None
+
+
+def worst_rank(finding: assess.RoomFinding) -> int:
+    worst = worst_surface(finding)
+    return 0 if worst is None else surface_rank(worst)
+
+
+def surface_words(surface: assess.SurfaceFinding, d: words.Display) -> str:
+    """A surface's state in a few of the words module's words: what forms, else mould."""
+    parts = words.short_verdict(surface, d).split("; ")
+    if surface.condensation.value == "clear" and len(parts) > 1:
+        return parts[1]
+    return parts[0]
+
+
+def worst_words(finding: assess.RoomFinding, d: words.Display) -> str:
+    """The worst surface's state (see :func:`surface_words`)."""
+    worst = worst_surface(finding)
+    return "no surface measured" if worst is None else surface_words(worst, d)
+
+
+#: A symbol per rank, so no state is shown by colour alone.
+RANK_SYMBOLS = {0: "✓", 1: "~", 2: "!", 3: "‼"}
+
+
+# --- the walk ----------------------------------------------------------------------------
+
+
+def previous_room_visit(
+    survey: model.Survey, visit_index: int, room_id: str
+) -> model.RoomVisit | None:
+    """The same room on the visit before this one (by order in the file)."""
+    index = visit_index % len(survey.visits) if survey.visits else 0
+    for earlier in reversed(survey.visits[:index]):
+        found = earlier.room_visit(room_id)
+        if found is not None:
+            return found
+    return None
+
+
+def pending_surfaces(
+    survey: model.Survey, visit_index: int, room_id: str
+) -> list[model.SurfaceReading]:
+    """Surfaces measured on the previous visit whose location has no reading yet."""
+    before = previous_room_visit(survey, visit_index, room_id)
+    if before is None:
+        return []
+    now = room_visit(survey, visit_index, room_id)
+    done = {s.location for s in now.surfaces} if now is not None else set()
+    return [s for s in before.surfaces if s.location not in done]
+
+
+def pending_materials(
+    survey: model.Survey, visit_index: int, room_id: str
+) -> list[model.MaterialReading]:
+    """Material points of the previous visit not read yet on this one."""
+    before = previous_room_visit(survey, visit_index, room_id)
+    if before is None:
+        return []
+    now = room_visit(survey, visit_index, room_id)
+    done = {(m.location, m.material) for m in now.materials} if now is not None else set()
+    return [m for m in before.materials if (m.location, m.material) not in done]
+
+
+def readings_missing(survey: model.Survey, visit_index: int, room_id: str) -> int:
+    """How many readings this room still needs on this visit (air, and the points of the
+    previous visit); 0 when it is done."""
+    if not survey.visits:
+        return 1
+    record = room_visit(survey, visit_index, room_id)
+    missing = 1 if record is None or record.air is None else 0
+    return (
+        missing
+        + len(pending_surfaces(survey, visit_index, room_id))
+        + len(pending_materials(survey, visit_index, room_id))
+    )
+
+
+def next_room_needing(survey: model.Survey, visit_index: int, after: str | None) -> str | None:
+    """The next room after ``after`` (wrapping round) that still needs readings."""
+    ids = [r.id for r in survey.rooms]
+    if not ids:
+        return None
+    start = ids.index(after) + 1 if after in ids else 0
+    for room_id in ids[start:] + ids[:start]:
+        if room_id != after and readings_missing(survey, visit_index, room_id):
+            return room_id
+    return None
+
+
+def new_visit(now: dt.datetime | None = None) -> model.Visit:
+    """A new visit starting now. The rooms belong to the site and carry over; the surface
+    locations and material points of the previous visit are offered as points to read."""
+    return model.Visit(started_at=(now or dt.datetime.now()).replace(second=0, microsecond=0))
+
+
+def new_room_id(survey: model.Survey, name: str) -> str:
+    """A short unused id made from a room name: 'bed-1', 'room-3'."""
+    import re
+
+    stem = re.sub(r"[^a-z0-9]+", "-", name.lower()).strip("-")[:20] or "room"
+    taken = {r.id for r in survey.rooms}
+    if stem not in taken and stem[0].isalnum():
+        return stem
+    n = 2
+    while f"{stem}-{n}" in taken:
+        n += 1
+    return f"{stem}-{n}"

@@ -1,0 +1,320 @@
+"""The app object: opening surveys, moving between the walk's screens, saving in a worker,
+the status line."""
+
+from __future__ import annotations
+
+import datetime as dt
+import shutil
+from collections.abc import Callable
+from pathlib import Path
+
+from textual.app import App
+from textual.binding import Binding
+from textual.message import Message
+
+from survey.app.editing import Editor, Recents, SaveOutcome
+from survey.errors import SurveyFileError
+
+DEMO_SOURCE = Path(__file__).with_name("demo_site.json")
+DEMO_NAME = "demo-flat-9.json"
+#: Seconds between retries after a save failed.
+RETRY_S = 5.0
+
+
+class SaveDone(Message):
+    """A save in the worker finished (posted from the worker thread)."""
+
+    def __init__(self, outcome: SaveOutcome) -> None:
+        super().__init__()
+        self.outcome = outcome
+
+
+class SurveyApp(App):
+    """condition-survey's walk-through app."""
+
+    CSS_PATH = "survey.tcss"
+    TITLE = "condition-survey"
+    ENABLE_COMMAND_PALETTE = True
+    BINDINGS = [
+        Binding("f1", "help", "Help", id="help", priority=True),
+        Binding("f2", "go('site')", "Site", id="go_site", priority=True),
+        Binding("f3", "go('visit')", "Visit", id="go_visit", priority=True),
+        Binding("f4", "go('rooms')", "Rooms", id="go_rooms", priority=True),
+        Binding("f5", "go('findings')", "Findings", id="go_findings", priority=True),
+        Binding("f6", "quick_check", "Quick check", id="quick_check", priority=True),
+        Binding("ctrl+s", "save", "Save now", id="save", priority=True, show=False),
+        Binding("ctrl+q", "quit", "Quit", id="quit", priority=True),
+    ]
+
+    def __init__(
+        self,
+        *,
+        path: Path | None = None,
+        create: str | None = None,
+        demo: bool = False,
+        data_dir: Path | None = None,
+        clock: Callable[[], dt.datetime] | None = None,
+        fresh_demo: bool = False,
+        use_data_dir: bool = True,
+    ) -> None:
+        super().__init__()
+        from survey.app.palette import SurveyCommands
+
+        self.COMMANDS = App.COMMANDS | {SurveyCommands}
+        self.data_dir = (
+            data_dir
+            if data_dir is not None
+            else (Recents.default_folder() if use_data_dir else None)
+        )
+        self.recents = Recents(self.data_dir)
+        self.clock = clock or dt.datetime.now
+        self.editor: Editor | None = None
+        self.status_text = "No survey open."
+        self.status_kind = ""
+        self._start = (path, create, demo, fresh_demo)
+        self._retry_timer = None
+
+    # --- start-up --------------------------------------------------------------------------
+
+    def on_mount(self) -> None:
+        path, create, demo, fresh = self._start
+        opened = False
+        if demo:
+            opened = self.open_demo(fresh=fresh)
+        elif path is not None:
+            opened = self.create_survey(path, create) if create else self.open_survey(path)
+        if not opened:
+            self.show_start()
+
+    @property
+    def display_units(self):
+        """The :class:`survey.words.Display` of the open survey's unit system."""
+        from survey import words
+
+        return words.Display(self.editor.unit_system if self.editor else "si")
+
+    def demo_path(self) -> Path:
+        folder = (self.data_dir or Path.cwd()) / "demo"
+        return folder / DEMO_NAME
+
+    def open_demo(self, fresh: bool = False) -> bool:
+        """Copy the bundled example site to the data folder (once, or afresh) and open it;
+        the bundled file is never edited."""
+        target = self.demo_path()
+        try:
+            target.parent.mkdir(parents=True, exist_ok=True)
+            if fresh or not target.exists():
+                for stale in (target, Path(f"{target}.lock")):
+                    if fresh and stale.exists():
+                        stale.unlink()
+                shutil.copyfile(DEMO_SOURCE, target)
+        except OSError as exc:
+            self.show_status(f"The demo could not be copied to {target}: {exc}", "error")
+            return False
+        return self.open_survey(target)
+
+    def open_survey(self, path: Path) -> bool:
+        try:
+            editor = Editor.open(path)
+        except SurveyFileError as exc:
+            self.show_status(f"Not opened: {exc}", "error")
+            return False
+        self._begin(editor)
+        return True
+
+    def create_survey(self, path: Path, reference: str) -> bool:
+        try:
+            editor = Editor.create(path, reference)
+        except SurveyFileError as exc:
+            self.show_status(f"Not created: {exc}", "error")
+            return False
+        self._begin(editor, new=True)
+        return True
+
+    def _begin(self, editor: Editor, new: bool = False) -> None:
+        self.close_survey()
+        self.editor = editor
+        assert editor.path is not None
+        recent = self.recents.find(editor.path)
+        self.recents.remember(
+            editor.path, editor.survey.site.reference, recent.room if recent else ""
+        )
+        if editor.read_only:
+            self.show_status(editor.read_only_reason, "error")
+        elif editor.took_over is not None:
+            self.show_status(
+                f"Opened {editor.path.name}; an abandoned lock "
+                f"({editor.took_over.describe()}) was taken over."
+            )
+        else:
+            self.show_status(f"Opened {editor.path}. Every field is saved when committed.")
+        if new:
+            self.go("site")
+            return
+        self.go("rooms")
+        if recent and recent.room and any(r.id == recent.room for r in editor.survey.rooms):
+            self.open_room(recent.room)
+
+    def close_survey(self) -> None:
+        if self.editor is not None:
+            self.editor.close()
+            self.editor = None
+
+    # --- moving between screens -----------------------------------------------------------
+    # The stack is [default, start screen, walk screen, room screen]; started on a file, the
+    # start screen is left out (it is built when first asked for) so the survey shows sooner.
+
+    @property
+    def _walk_base(self) -> int:
+        """Screens under the walk's screens."""
+        from survey.app.start import StartScreen
+
+        return (
+            2 if len(self.screen_stack) > 1 and isinstance(self.screen_stack[1], StartScreen) else 1
+        )
+
+    def show_start(self) -> None:
+        """The start screen: back under the walk, or built now."""
+        from survey.app.start import StartScreen
+
+        base = self._walk_base
+        while len(self.screen_stack) > base:
+            self.pop_screen()
+        if base == 1:
+            self.push_screen(StartScreen())
+
+    def go(self, name: str) -> None:
+        """Show one of the walk's screens (above the start screen)."""
+        import importlib
+
+        if self.editor is None:
+            self.show_status("Open or create a survey first (on the start screen).", "error")
+            return
+        if name != "site":
+            self.ensure_visit()
+        if name == "visit" and not self.editor.survey.visits:  # read-only, none recorded
+            self.show_status("This survey has no visit, and it is open read-only.", "error")
+            name = "rooms"
+        module, class_name = {
+            "site": ("site", "SiteScreen"),
+            "visit": ("visit", "VisitScreen"),
+            "rooms": ("rooms", "RoomListScreen"),
+            "findings": ("findings", "FindingsScreen"),
+        }[name]
+        screen = getattr(importlib.import_module(f"survey.app.{module}"), class_name)
+        base = self._walk_base
+        while len(self.screen_stack) > base + 1:
+            self.pop_screen()
+        if len(self.screen_stack) == base + 1:
+            self.switch_screen(screen())
+        else:
+            self.push_screen(screen())
+
+    def action_go(self, name: str) -> None:
+        self.go(name)
+
+    def open_room(self, room_id: str) -> None:
+        from survey.app.room import RoomScreen
+
+        editor = self.editor
+        if editor is None:
+            return
+        self.ensure_visit()
+        if not editor.survey.visits:
+            self.show_status("This survey has no visit, and it is open read-only.", "error")
+            return
+        base = self._walk_base
+        while len(self.screen_stack) > base + 2:
+            self.pop_screen()
+        if len(self.screen_stack) == base + 2:
+            self.switch_screen(RoomScreen(room_id))
+        else:
+            self.push_screen(RoomScreen(room_id))
+        if editor.path is not None:
+            self.recents.remember(editor.path, editor.survey.site.reference, room_id)
+
+    def ensure_visit(self) -> None:
+        """A survey with no visit gets one starting now, so readings have a home."""
+        from survey.app import judging
+
+        editor = self.editor
+        if editor is not None and not editor.survey.visits and not editor.read_only:
+            editor.survey.visits.append(judging.new_visit(self.clock()))
+            editor.visit_index = 0
+            self.committed()
+
+    def action_help(self) -> None:
+        from survey.app.help import HelpScreen
+
+        if isinstance(self.screen, HelpScreen):
+            self.pop_screen()
+        else:
+            self.push_screen(HelpScreen())
+
+    def action_quick_check(self) -> None:
+        from survey.app.quick import QuickScreen
+
+        if not isinstance(self.screen, QuickScreen):
+            self.push_screen(QuickScreen())
+
+    # --- saving ---------------------------------------------------------------------------
+
+    def committed(self) -> None:
+        """A change was committed: save it at once, in a worker."""
+        if self.editor is None:
+            return
+        self.editor.changed()
+        self.request_save()
+
+    def request_save(self) -> None:
+        editor = self.editor
+        if editor is None or editor.session is None:
+            return
+        self.run_worker(
+            lambda: self.post_message(SaveDone(editor.save())),
+            thread=True,
+            group="save",
+            name="save",
+            exit_on_error=False,
+        )
+
+    def action_save(self) -> None:
+        if self.editor is not None and self.editor.read_only:
+            self.show_status(self.editor.read_only_reason, "error")
+            return
+        self.request_save()
+
+    def on_save_done(self, message: SaveDone) -> None:
+        outcome = message.outcome
+        if outcome.ok:
+            if self._retry_timer is not None:
+                self._retry_timer.stop()
+                self._retry_timer = None
+            self.show_status(f"Saved {outcome.at:%H:%M:%S}.", "saved")
+        else:
+            self.show_status(
+                f"NOT SAVED {outcome.at:%H:%M:%S}: {outcome.problem}. Your "
+                f"changes are kept and saving is retried every "
+                f"{RETRY_S:g} s (Ctrl+S to retry now).",
+                "error",
+            )
+            if self._retry_timer is None:
+                self._retry_timer = self.set_interval(RETRY_S, self.request_save)
+
+    def show_status(self, text: str, kind: str = "") -> None:
+        from survey.app.status import StatusBar
+
+        self.status_text, self.status_kind = text, kind
+        for bar in self.screen.query(StatusBar):
+            bar.show(text, kind)
+
+    async def action_quit(self) -> None:
+        for screen in self.screen_stack:
+            commit = getattr(screen, "commit_pending", None)
+            if commit is not None:
+                commit()
+        self.close_survey()
+        self.exit()
+
+    def on_unmount(self) -> None:
+        self.close_survey()

@@ -1,0 +1,162 @@
+"""The quick check as a screen: one room's readings that belong to no survey, judged by
+:func:`survey.quick.judge` as ``survey check`` does, shown as the words module words them."""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual import on
+from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
+from textual.screen import Screen
+from textual.widgets import Footer, Input, Label, Select, Static
+
+from survey import assess, quick, units, words
+from survey.app import walk
+from survey.app.fields import plain
+from survey.app.room import USES
+from survey.errors import InputError
+
+#: (id, label, parser, needed)
+FIELDS = [
+    ("air", "Air temp. °C", lambda t: units.parse_temperature(t, "air temperature"), True),
+    ("rh", "RH %", lambda t: units.parse_rh(t, "relative humidity"), True),
+    (
+        "surface",
+        "Surface temp. °C",
+        lambda t: units.parse_temperature(t, "surface temperature"),
+        False,
+    ),
+    (
+        "outdoor",
+        "Outdoor temp. °C",
+        lambda t: units.parse_temperature(t, "outdoor temperature"),
+        False,
+    ),
+    ("outdoor_rh", "Outdoor RH %", lambda t: units.parse_rh(t, "outdoor RH"), False),
+]
+
+
+class QuickScreen(Screen):
+    """Type readings; the result follows every keystroke. Nothing is saved."""
+
+    BINDINGS = [Binding("escape", "app.pop_screen", "Back", id="quick_back")]
+
+    def compose(self):
+        yield Static(
+            Text("Quick check — one room, no survey file, nothing saved", style="bold"),
+            classes="screen-title",
+        )
+        with Horizontal(classes="split"):
+            with walk.Form():
+                for key, label, _parse, _need in FIELDS:
+                    with Horizontal(classes="field-row"):
+                        yield Label(label, classes="field-label")
+                        yield Input(id=f"quick-{key}", compact=True)
+                yield walk.labelled(
+                    "Use",
+                    Select(USES, value="other", allow_blank=False, compact=True, id="quick-use"),
+                )
+                yield Static("", id="quick-message", classes="field-message -error")
+            yield VerticalScroll(Static(id="quick-result"), classes="live-panel-scroll")
+        yield Footer()
+
+    def on_mount(self) -> None:
+        self.query_one("#quick-air").focus()
+        self.update_result()
+
+    @on(Input.Submitted)
+    def _next(self, event: Input.Submitted) -> None:
+        self.focus_next()
+
+    @on(Input.Changed)
+    @on(Select.Changed)
+    def _changed(self, event) -> None:
+        self.update_result()
+
+    def gather(self) -> quick.QuickInput | None:
+        values: dict[str, float | None] = {}
+        message = self.query_one("#quick-message", Static)
+        for key, _label, parse, need in FIELDS:
+            text = self.query_one(f"#quick-{key}", Input).value
+            if not text.strip():
+                if need:
+                    message.update("")
+                    return None
+                values[key] = None
+                continue
+            try:
+                values[key] = parse(text)
+            except InputError as exc:
+                message.update(plain(str(exc)))
+                return None
+        message.update("")
+        use = self.query_one("#quick-use", Select).value
+        surfaces = (
+            ()
+            if values["surface"] is None
+            else (assess.SurfaceInput("surface", values["surface"], "external_wall"),)
+        )
+        outdoor = None
+        if values["outdoor"] is not None and values["outdoor_rh"] is not None:
+            outdoor = assess.OutdoorInput(values["outdoor"], values["outdoor_rh"])
+        return quick.QuickInput(
+            air_temp_c=values["air"],
+            rh_pct=values["rh"],
+            surfaces=surfaces,
+            outdoor=outdoor,
+            use=None if use == "other" else use,
+        )
+
+    def update_result(self) -> None:
+        target = self.query_one("#quick-result", Static)
+        given = self.gather()
+        if given is None:
+            target.update(
+                Text(
+                    "Type the air temperature and RH (a surface temperature and "
+                    "an outdoor reading add more)."
+                )
+            )
+            return
+        try:
+            result = quick.judge(given)
+        except InputError as exc:
+            target.update(plain(str(exc)))
+            return
+        target.update(result_text(result, words.SI))
+
+
+def result_text(result: quick.QuickResult, d: words.Display) -> Text:
+    f, advice, air = result.finding, result.advice, result.room
+    out = Text()
+    point = "Frost" if air.frost_point_c is not None else "Dew"
+    out.append(
+        f"{point} point {d.temperature(f.air.condensation_point_c)} ± "
+        f"{d.difference(f.condensation_point_uncertainty_k)}\n"
+    )
+    out.append(
+        f"Humidity ratio {d('humidity_ratio', air.humidity_ratio_kg_per_kg)}; "
+        f"vapour pressure {d('vapour_pressure', air.vapour_pressure_pa)}\n"
+    )
+    for s in f.surfaces:
+        out.append(
+            f"Surface {d.temperature(s.surface_temp_c)}: surface RH "
+            f"{words.surface_rh_text(s)}; {words.short_verdict(s, d)}\n"
+        )
+    limit = words.rh_limit_text(f)
+    if limit is not None:
+        out.append(f"Highest safe room RH: {limit}\n")
+    out.append("\nWhat to do\n", "bold")
+    if not advice.actions:
+        out.append("Nothing to do from these readings.\n")
+    for n, action in enumerate(advice.actions, 1):
+        out.append(f"{n}. ")
+        out.append(words.action_title(action), "bold")
+        numbers = words.action_numbers(action, d)
+        out.append(f" — {numbers}\n" if numbers else "\n")
+        out.append(words.action_reason(action, f, advice, d) + "\n", "dim")
+    if result.cautions:
+        out.append("\nCautions\n", "bold")
+        for caution in result.cautions:
+            out.append(f"• {words.caution_text(caution, d)}\n")
+    return out

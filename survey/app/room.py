@@ -1,0 +1,632 @@
+"""The room: use, volume, occupants, the air reading, the surfaces and material readings,
+what was seen, notes and photos, and the live panel with the room's actions."""
+
+from __future__ import annotations
+
+import msgspec
+from rich.text import Text
+from textual import on
+from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
+from textual.widgets import Checkbox, Select, Static
+
+from survey import model, words
+from survey.app import equipment, judging, walk
+from survey.app.air import AirPair
+from survey.app.fields import Field, Tick, plain
+from survey.app.panel import LivePanel
+from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
+from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
+from survey.errors import InputError
+from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
+
+USES = [
+    (u.replace("_", " "), u)
+    for u in (
+        "bedroom",
+        "bathroom",
+        "kitchen",
+        "living",
+        "basement",
+        "crawlspace",
+        "loft",
+        "office",
+        "storage",
+        "hallway",
+        "other",
+    )
+]
+ODOURS = [
+    ("not recorded", ""),
+    ("none", "none"),
+    ("musty", "musty"),
+    ("earthy", "earthy"),
+    ("sewage", "sewage"),
+    ("chemical", "chemical"),
+    ("other", "other"),
+]
+WATER = [
+    ("not recorded", 0),
+    ("1: clean water", 1),
+    ("2: significantly contaminated", 2),
+    ("3: grossly contaminated (sewage, flood water)", 3),
+]
+
+
+class RoomScreen(walk.WalkScreen):
+    TITLE_TEXT = "Room"
+    PARENT = "rooms"
+    BINDINGS = [Binding("ctrl+n", "next_room", "Next room to read", id="room_next")]
+
+    def __init__(self, room_id: str) -> None:
+        super().__init__()
+        self.room_id = room_id
+        self.undo_stack: list[tuple[str, int, msgspec.Struct]] = []
+
+    # --- records --------------------------------------------------------------------------
+
+    @property
+    def room(self) -> model.Room:
+        return self.editor.survey.room(self.room_id)
+
+    @property
+    def visit(self) -> model.Visit:
+        return self.editor.survey.visits[self.editor.visit_index]
+
+    def record(self, create: bool = False) -> model.RoomVisit | None:
+        found = self.visit.room_visit(self.room_id)
+        if found is None and create:
+            found = model.RoomVisit(room=self.room_id)
+            self.visit.rooms.append(found)
+        return found
+
+    def previous(self) -> model.RoomVisit | None:
+        return judging.previous_room_visit(
+            self.editor.survey, self.editor.visit_index, self.room_id
+        )
+
+    def title_line(self) -> Text:
+        line = Text("Room — ", style="bold")
+        line.append(plain(self.room.name))
+        line.append(
+            f"  ({self.editor.survey.rooms.index(self.room) + 1} of "
+            f"{len(self.editor.survey.rooms)})"
+        )
+        if self.read_only:
+            line.append("  [read-only]", style="bold")
+        return line
+
+    # --- layout ---------------------------------------------------------------------------
+
+    def compose(self):
+        room, ro, system = self.room, self.read_only, self.editor.unit_system
+        record = self.record()
+        seen = record.observations if record else model.Observations()
+        before = self.previous()
+        yield self.header()
+        with Horizontal(classes="split"):
+            with walk.Form(id="room-form"):
+                yield Field(
+                    "Name",
+                    room.name,
+                    walk.text_parser("Room name", need=True),
+                    self._set_room("name", "Room name"),
+                    id="room-name",
+                    disabled=ro,
+                )
+                yield walk.labelled(
+                    "Use",
+                    Select(
+                        USES,
+                        value=room.use,
+                        allow_blank=False,
+                        compact=True,
+                        id="room-use",
+                        disabled=ro,
+                    ),
+                )
+                yield Field(
+                    "Volume",
+                    walk.shown("volume", room.volume_m3, system),
+                    walk.optional(walk.volume_or_dimensions("Room volume", system)),
+                    self._set_room("volume_m3", "Room volume"),
+                    id="room-volume",
+                    placeholder="30 or 4.2 x 3.1 x 2.4",
+                    disabled=ro,
+                )
+                yield Field(
+                    "Occupants",
+                    str(room.occupants),
+                    walk.whole("Occupants"),
+                    self._set_room("occupants", "Occupants"),
+                    id="room-occupants",
+                    disabled=ro,
+                )
+                yield Static(Text("Air", style="bold"))
+                yield AirPair(
+                    "room",
+                    record.air if record else None,
+                    system,
+                    self._set_air,
+                    disabled=ro,
+                    previous=before.air if before else None,
+                )
+                yield Static(Text("Surfaces", style="bold"))
+                yield SurfaceTable(id="surfaces")
+                yield Static(Text("Material readings", style="bold"))
+                yield MaterialTable(id="materials")
+                yield Static(Text("What was seen", style="bold"))
+                yield Tick(
+                    "Mould seen",
+                    seen.mould_visible,
+                    compact=True,
+                    id="seen-mould_visible",
+                    disabled=ro,
+                )
+                yield Field(
+                    "Mould area",
+                    "" if seen.mould_area_m2 is None else f"{seen.mould_area_m2:g}",
+                    walk.optional(walk.number("Mould area")),
+                    self._set_seen("mould_area_m2", "Mould area"),
+                    id="seen-area",
+                    placeholder="m²",
+                    disabled=ro,
+                )
+                yield Tick(
+                    "Condensation seen",
+                    seen.condensation_seen,
+                    compact=True,
+                    id="seen-condensation_seen",
+                    disabled=ro,
+                )
+                yield walk.labelled(
+                    "Water category",
+                    Select(
+                        WATER,
+                        value=seen.water_category or 0,
+                        allow_blank=False,
+                        compact=True,
+                        id="seen-water",
+                        disabled=ro,
+                    ),
+                )
+                yield walk.labelled(
+                    "Odour",
+                    Select(
+                        ODOURS,
+                        value=seen.odour or "",
+                        allow_blank=False,
+                        compact=True,
+                        id="seen-odour",
+                        disabled=ro,
+                    ),
+                )
+                yield Static(Text("Equipment in the room", style="bold"))
+                yield EquipmentTable(id="equipment")
+                yield Field(
+                    "Notes",
+                    record.notes if record else "",
+                    walk.text_parser("Notes"),
+                    self._set_record("notes", "Notes"),
+                    id="room-notes",
+                    disabled=ro,
+                )
+                yield Field(
+                    "Photos",
+                    ", ".join(record.photos) if record else "",
+                    self._photos,
+                    self._set_record("photos", "Photos"),
+                    id="room-photos",
+                    placeholder="bed1-corner.jpg, …",
+                    disabled=ro,
+                )
+            yield VerticalScroll(LivePanel(id="live"), id="live-scroll")
+        yield from self.footer_widgets()
+
+    def on_mount(self) -> None:
+        surfaces = self.query_one(SurfaceTable)
+        surfaces.add_columns(
+            " ", "location", "temp.", "surface RH", "state", "margin ± U", "element", "last visit"
+        )
+        materials = self.query_one(MaterialTable)
+        materials.add_columns("location", "reading", "state", "material", "last visit")
+        self.query_one(EquipmentTable).add_columns(*equipment.COLUMNS)
+        self.refresh_view()
+        record = self.record()
+        if self.read_only or (record is not None and record.air is not None):
+            surfaces.focus()
+        else:
+            self.query_one("#room-temp-input").focus()
+
+    # --- showing --------------------------------------------------------------------------
+
+    def refresh_view(self) -> None:
+        survey, d = self.editor.survey, self.app.display_units
+        judged = judging.judge_room(survey, self.editor.visit_index, self.room_id)
+        self.query_one(LivePanel).show(judged, d)
+        record = self.record()
+        before = self.previous()
+        last_temp = {s.location: s.surface_temp_c for s in (before.surfaces if before else ())}
+        last_value = {
+            (m.location, m.material): m.value for m in (before.materials if before else ())
+        }
+        table = self.query_one(SurfaceTable)
+        row = table.cursor_row
+        table.clear()
+        findings = judged.finding.surfaces if judged else ()
+        for n, s in enumerate(record.surfaces if record else ()):
+            f = findings[n] if n < len(findings) else None
+            last = last_temp.get(s.location)
+            table.add_row(
+                Text("·" if f is None else judging.RANK_SYMBOLS[judging.surface_rank(f)]),
+                plain(walk.cut(s.location, 24)),
+                Text(d.temperature(s.surface_temp_c)),
+                Text("–" if f is None else words.surface_rh_text(f)),
+                Text("no air reading" if f is None else judging.surface_words(f, d)),
+                Text(
+                    "–"
+                    if f is None
+                    else f"{d.difference(f.margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
+                ),
+                Text(words.ELEMENT_WORDS.get(s.element, s.element)),
+                Text("" if last is None else d.temperature(last)),
+                key=f"s{n}",
+            )
+        pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
+        for n, s in enumerate(pending):
+            table.add_row(
+                Text("·"),
+                plain(walk.cut(s.location, 24)),
+                Text("to read"),
+                Text(""),
+                Text("measured last visit"),
+                Text(""),
+                Text(words.ELEMENT_WORDS.get(s.element, "")),
+                Text(d.temperature(s.surface_temp_c)),
+                key=f"p{n}",
+            )
+        if table.row_count:
+            table.move_cursor(row=min(row, table.row_count - 1))
+        self._fill_materials(record, judged, last_value)
+        table = self.query_one(EquipmentTable)
+        row = table.cursor_row
+        table.clear()
+        for n, e in enumerate(record.equipment if record else ()):
+            table.add_row(*equipment.row(e), key=f"e{n}")
+        if table.row_count:
+            table.move_cursor(row=min(row, table.row_count - 1))
+        self.query_one(".screen-title", Static).update(self.title_line())
+
+    def _fill_materials(self, record, judged, last_value) -> None:
+        table = self.query_one(MaterialTable)
+        row = table.cursor_row
+        table.clear()
+        states = iter(judged.finding.materials if judged else ())
+        for n, m in enumerate(record.materials if record else ()):
+            if m.dry_standard:
+                state = "dry standard"
+            else:
+                f = next(states, None)
+                state = (
+                    "–"
+                    if f is None
+                    else DRY_STANDARD_WORDS[f.dry_standard_state]
+                    + ("" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
+                )
+            last = last_value.get((m.location, m.material))
+            table.add_row(
+                plain(walk.cut(m.location, 24)),
+                Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
+                Text(state),
+                plain(walk.cut(m.material, 20)),
+                Text("" if last is None else f"{last:g}"),
+                key=f"m{n}",
+            )
+        pending = judging.pending_materials(
+            self.editor.survey, self.editor.visit_index, self.room_id
+        )
+        for n, m in enumerate(pending):
+            table.add_row(
+                plain(walk.cut(m.location, 24)),
+                Text("to read"),
+                Text("read last visit"),
+                plain(walk.cut(m.material, 20)),
+                Text(f"{m.value:g}"),
+                key=f"q{n}",
+            )
+        if table.row_count:
+            table.move_cursor(row=min(row, table.row_count - 1))
+
+    # --- committing -----------------------------------------------------------------------
+
+    def _changed(self) -> None:
+        self.committed()
+        self.refresh_view()
+
+    def _set_room(self, name: str, label: str):
+        def commit(value) -> str:
+            rooms = self.editor.survey.rooms
+            index = rooms.index(self.room)
+            rooms[index] = walk.checked(rooms[index], label, **{name: value})
+            self._changed()
+            return ""
+
+        return commit
+
+    def _replace_record(self, label: str, **changes) -> None:
+        record = self.record(create=True)
+        new = walk.checked(record, label, **changes)
+        rooms = self.visit.rooms
+        rooms[rooms.index(record)] = new
+
+    def _set_record(self, name: str, label: str):
+        def commit(value) -> str:
+            self._replace_record(label, **{name: value})
+            self._changed()
+            return ""
+
+        return commit
+
+    def _set_seen(self, name: str, label: str):
+        def commit(value) -> str:
+            record = self.record(create=True)
+            seen = msgspec.structs.replace(record.observations, **{name: value})
+            self._replace_record(label, observations=seen)
+            self._changed()
+            return ""
+
+        return commit
+
+    def _photos(self, text: str) -> list[str]:
+        names = [p.strip() for p in walk.text_parser("Photos")(text).split(",") if p.strip()]
+        for name in names:
+            problem = model.photo_name_problem(name)
+            if problem:
+                raise InputError("Photos", name, problem)
+        return names
+
+    def _set_air(self, reading: model.AirReading) -> str:
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit, self.editor.survey)
+        self._replace_record("air reading", air=reading)
+        self._changed()
+        return warning
+
+    @on(AirPair.Preview)
+    def _preview_air(self, event: AirPair.Preview) -> None:
+        record = self.record() or model.RoomVisit(room=self.room_id)
+        candidate = msgspec.structs.replace(record, air=event.reading)
+        judged = judging.judge_room(
+            self.editor.survey, self.editor.visit_index, self.room_id, candidate
+        )
+        self.query_one(LivePanel).show(judged, self.app.display_units)
+
+    @on(Select.Changed)
+    def _select(self, event: Select.Changed) -> None:
+        if self.read_only:
+            return
+        if event.select.id == "room-use" and event.value != self.room.use:
+            self._set_room("use", "Use")(event.value)
+        elif event.select.id == "seen-odour":
+            value = event.value or None
+            record = self.record()
+            if (record.observations.odour if record else None) != value:
+                self._set_seen("odour", "Odour")(value)
+        elif event.select.id == "seen-water":
+            value = event.value or None
+            record = self.record()
+            if (record.observations.water_category if record else None) != value:
+                self._set_seen("water_category", "Water category")(value)
+
+    @on(Checkbox.Changed)
+    def _check(self, event: Checkbox.Changed) -> None:
+        name = (event.checkbox.id or "").removeprefix("seen-")
+        record = self.record()
+        current = getattr(record.observations, name) if record else False
+        if not self.read_only and event.value != current:
+            try:
+                self._set_seen(name, name.replace("_", " "))(event.value)
+            except InputError as exc:  # the model refuses (e.g. an area with no mould)
+                self.app.show_status(f"Not saved — {exc}", "error")
+                event.checkbox.value = current
+
+    # --- surfaces and materials -----------------------------------------------------------
+
+    def _row(self, table) -> str | None:
+        if not table.row_count:
+            return None
+        return table.coordinate_to_cell_key((table.cursor_row, 0)).row_key.value
+
+    def _surface_preview(self, index: int | None):
+        def preview(candidate: model.SurfaceReading) -> Text:
+            record = self.record() or model.RoomVisit(room=self.room_id)
+            surfaces = list(record.surfaces)
+            if index is None:
+                surfaces.append(candidate)
+                at = len(surfaces) - 1
+            else:
+                surfaces[index] = candidate
+                at = index
+            judged = judging.judge_room(
+                self.editor.survey,
+                self.editor.visit_index,
+                self.room_id,
+                msgspec.structs.replace(record, surfaces=surfaces),
+            )
+            if judged is None:
+                return Text("Give the room's air reading first to judge this surface.")
+            d = self.app.display_units
+            f = judged.finding.surfaces[at]
+            text = Text(
+                f"Surface RH {words.surface_rh_text(f)}; margin "
+                f"{d.difference(f.margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
+                f"\n{words.short_verdict(f, d)}"
+            )
+            limit = words.rh_limit_text(judged.finding)
+            if limit is not None:
+                text.append(f"\nHighest safe room RH: {limit}")
+            return text
+
+        return preview
+
+    def action_add_surface(self) -> None:
+        self._edit_surface(None, None)
+
+    def action_edit_surface(self) -> None:
+        key = self._row(self.query_one(SurfaceTable))
+        if key is None:
+            return self.action_add_surface()
+        index = int(key[1:])
+        if key.startswith("p"):
+            point = judging.pending_surfaces(
+                self.editor.survey, self.editor.visit_index, self.room_id
+            )[index]
+            template = msgspec.structs.replace(
+                point,
+                surface_temp_c=None,
+                taken_at=None,
+                notes="",
+                condensation_seen=False,
+                mould_visible=False,
+            )
+            d = self.app.display_units
+            self._edit_surface(None, template, f"last {d.temperature(point.surface_temp_c)}")
+        else:
+            self._edit_surface(index, self.record().surfaces[index])
+
+    def _edit_surface(self, index, reading, previous: str = "") -> None:
+        if self.refuse_if_read_only():
+            return
+        record = self.record()
+        air = record.air.dry_bulb_c if record and record.air else None
+
+        def done(result) -> None:
+            if result is None:
+                return
+            surfaces = list(self.record(create=True).surfaces)
+            if index is None:
+                result, _ = walk.stamped(
+                    result, self.app.clock(), self.visit, self.editor.survey, "surface"
+                )
+                surfaces.append(result)
+            else:
+                surfaces[index] = result
+            self._replace_record("surface", surfaces=surfaces)
+            self._changed()
+
+        title = "Add a surface" if index is None else "Edit the surface"
+        self.app.push_screen(
+            SurfaceDialog(
+                title, self.editor.unit_system, reading, self._surface_preview(index), previous, air
+            ),
+            done,
+        )
+
+    def action_add_material(self) -> None:
+        self._edit_material(None, None)
+
+    def action_edit_material(self) -> None:
+        key = self._row(self.query_one(MaterialTable))
+        if key is None:
+            return self.action_add_material()
+        index = int(key[1:])
+        if key.startswith("q"):
+            point = judging.pending_materials(
+                self.editor.survey, self.editor.visit_index, self.room_id
+            )[index]
+            template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
+            self._edit_material(None, template, f"last {point.value:g}")
+        else:
+            self._edit_material(index, self.record().materials[index])
+
+    def _edit_material(self, index, reading, previous: str = "") -> None:
+        if self.refuse_if_read_only():
+            return
+
+        def done(result) -> None:
+            if result is None:
+                return
+            materials = list(self.record(create=True).materials)
+            if index is None:
+                result, _ = walk.stamped(
+                    result, self.app.clock(), self.visit, self.editor.survey, "material"
+                )
+                materials.append(result)
+            else:
+                materials[index] = result
+            self._replace_record("material reading", materials=materials)
+            self._changed()
+
+        title = "Add a material reading" if index is None else "Edit the material reading"
+        self.app.push_screen(MaterialDialog(title, reading, previous), done)
+
+    def _edit_equipment(self, index: int | None) -> None:
+        if self.refuse_if_read_only():
+            return
+        record = self.record()
+        current = None if index is None else record.equipment[index]
+
+        def done(result: model.Equipment) -> None:
+            items = list(self.record(create=True).equipment)
+            if index is None:
+                items.append(result)
+            else:
+                items[index] = result
+            self._replace_record("equipment", equipment=items)
+            self._changed()
+
+        title = "Add equipment" if index is None else "Edit the equipment"
+        self.app.push_screen(*equipment.dialog(title, current, done))
+
+    def action_add_equipment(self) -> None:
+        self._edit_equipment(None)
+
+    def action_edit_equipment(self) -> None:
+        key = self._row(self.query_one(EquipmentTable))
+        self._edit_equipment(None if key is None else int(key[1:]))
+
+    def action_delete_equipment(self) -> None:
+        self._delete("equipment")
+
+    def _delete(self, kind: str) -> None:
+        table = self.query_one(
+            {"surfaces": SurfaceTable, "materials": MaterialTable, "equipment": EquipmentTable}[
+                kind
+            ]
+        )
+        key = self._row(table)
+        if key is None or key[0] in "pq" or self.refuse_if_read_only():
+            return
+        index = int(key[1:])
+        items = list(getattr(self.record(), kind))
+        removed = items.pop(index)
+        self._replace_record(kind, **{kind: items})
+        self.undo_stack.append((kind, index, removed))
+        self._changed()
+        label = getattr(removed, "location", "") or getattr(removed, "kind", "")
+        self.app.show_status(f"Deleted {label} — u puts it back.")
+
+    def action_delete_surface(self) -> None:
+        self._delete("surfaces")
+
+    def action_delete_material(self) -> None:
+        self._delete("materials")
+
+    def action_undo(self) -> None:
+        if not self.undo_stack or self.refuse_if_read_only():
+            self.app.show_status("Nothing to undo.")
+            return
+        kind, index, removed = self.undo_stack.pop()
+        items = list(getattr(self.record(create=True), kind))
+        items.insert(min(index, len(items)), removed)
+        self._replace_record(kind, **{kind: items})
+        self._changed()
+        self.app.show_status(f"Put back {getattr(removed, 'location', '')}.")
+
+    def action_next_room(self) -> None:
+        target = judging.next_room_needing(
+            self.editor.survey, self.editor.visit_index, self.room_id
+        )
+        if target is None:
+            self.app.show_status("Every room has its readings for this visit (F5: findings).")
+        else:
+            self.app.open_room(target)

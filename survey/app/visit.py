@@ -1,0 +1,172 @@
+"""The visit: when, the weather, the outdoor reading with its state shown live; a new visit
+to the same site."""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual import on
+from textual.binding import Binding
+from textual.containers import Horizontal
+from textual.widgets import Button, Select, Static
+
+from survey import model, psychro
+from survey.app import judging, walk
+from survey.app.air import AirPair
+from survey.app.dialogs import ConfirmDialog
+from survey.app.fields import Field, plain
+
+
+class VisitScreen(walk.WalkScreen):
+    TITLE_TEXT = "Visit"
+    PARENT = "site"
+    BINDINGS = [Binding("f7", "new_visit", "New visit", id="new_visit")]
+
+    @property
+    def visit(self) -> model.Visit:
+        return self.editor.survey.visits[self.editor.visit_index]
+
+    def compose(self):
+        editor, visit, ro = self.editor, self.visit, self.read_only
+        system = editor.unit_system
+        yield self.header()
+        with Horizontal(classes="split"):
+            with walk.Form():
+                choices = [
+                    (Text(f"{n + 1}: {v.started_at:%Y-%m-%d %H:%M} ") + plain(v.label), n)
+                    for n, v in enumerate(editor.survey.visits)
+                ]
+                yield walk.labelled(
+                    "Visit shown",
+                    Select(
+                        choices,
+                        value=editor.visit_index % len(editor.survey.visits),
+                        allow_blank=False,
+                        compact=True,
+                        id="visit-choice",
+                    ),
+                )
+                yield Field(
+                    "Started at",
+                    f"{visit.started_at:%Y-%m-%d %H:%M}",
+                    walk.timestamp("Started at"),
+                    self._setter("started_at", "Started at"),
+                    id="visit-started",
+                    disabled=ro,
+                )
+                for name, label in (
+                    ("label", "Label"),
+                    ("inspector", "Inspector"),
+                    ("weather", "Weather"),
+                ):
+                    yield Field(
+                        label,
+                        getattr(visit, name),
+                        walk.text_parser(label),
+                        self._setter(name, label),
+                        id=f"visit-{name}",
+                        disabled=ro,
+                    )
+                yield Static(Text("Outdoor reading", style="bold"))
+                yield AirPair(
+                    "outdoor",
+                    visit.outdoor,
+                    system,
+                    self._set_outdoor,
+                    disabled=ro,
+                    previous=self._previous_outdoor(),
+                )
+                yield Button("Continue to the rooms ▸", id="to-rooms", compact=True)
+            yield Static(id="outdoor-state", classes="live-panel")
+        yield from self.footer_widgets()
+
+    def on_mount(self) -> None:
+        self.show_state(self.visit.outdoor)
+        self.query_one("#visit-started-input").focus()
+
+    def _previous_outdoor(self) -> model.AirReading | None:
+        index = self.editor.visit_index % len(self.editor.survey.visits)
+        return self.editor.survey.visits[index - 1].outdoor if index > 0 else None
+
+    def _setter(self, name: str, label: str):
+        def commit(value):
+            visits = self.editor.survey.visits
+            visits[self.editor.visit_index] = walk.checked(self.visit, label, **{name: value})
+            self.committed()
+            return ""
+
+        return commit
+
+    def _set_outdoor(self, reading: model.AirReading) -> str:
+        reading, warning = walk.stamped(reading, self.app.clock(), self.visit, self.editor.survey)
+        visits = self.editor.survey.visits
+        visits[self.editor.visit_index] = walk.checked(self.visit, "outdoor", outdoor=reading)
+        self.committed()
+        self.show_state(reading)
+        return warning
+
+    @on(AirPair.Preview)
+    def _preview(self, event: AirPair.Preview) -> None:
+        self.show_state(event.reading)
+
+    def show_state(self, reading: model.AirReading | None) -> None:
+        panel = self.query_one("#outdoor-state", Static)
+        d = self.app.display_units
+        if reading is None:
+            panel.update(
+                Text(
+                    "Outdoor air: give its temperature and RH to see its dew "
+                    "point and moisture content."
+                )
+            )
+            return
+        pressure = model.pressure_pa_for(self.editor.survey, self.visit)
+        state = psychro.state_from_rh(reading.dry_bulb_c, reading.rh_pct, pressure)
+        lines = [
+            Text("Outdoor air", style="bold"),
+            Text(f"{d.temperature(state.dry_bulb_c)}, {state.rh_pct:.0f} % RH"),
+            Text(
+                f"{'Frost' if state.frost_point_c is not None else 'Dew'} point "
+                f"{d.temperature(state.condensation_point_c)}"
+            ),
+            Text(f"Humidity ratio {d('humidity_ratio', state.humidity_ratio_kg_per_kg)}"),
+            Text(f"Vapour pressure {d('vapour_pressure', state.vapour_pressure_pa)}"),
+            Text(f"Pressure used {d('pressure', pressure)}"),
+        ]
+        panel.update(Text("\n").join(lines))
+
+    @on(Select.Changed, "#visit-choice")
+    def _choose(self, event: Select.Changed) -> None:
+        if isinstance(event.value, int) and event.value != self.editor.visit_index % len(
+            self.editor.survey.visits
+        ):
+            self.editor.visit_index = event.value
+            self.app.go("visit")
+
+    @on(Button.Pressed, "#to-rooms")
+    def _continue(self) -> None:
+        self.app.go("rooms")
+
+    def action_new_visit(self) -> None:
+        if self.refuse_if_read_only():
+            return
+
+        def done(yes: bool) -> None:
+            if yes:
+                survey = self.editor.survey
+                survey.visits.append(judging.new_visit(self.app.clock()))
+                self.editor.visit_index = len(survey.visits) - 1
+                self.committed()
+                self.app.go("visit")
+                self.app.show_status(
+                    "New visit started: the rooms and the points measured "
+                    "last time are listed to read again."
+                )
+
+        self.app.push_screen(
+            ConfirmDialog(
+                "Start a new visit now? The rooms, surface locations and material points of the "
+                "last visit are offered again (without their values), with last time's values "
+                "shown beside them."
+            ),
+            done,
+        )

@@ -1,0 +1,193 @@
+"""Bad input typed into the app's fields: each shows a message under its field naming what
+was typed and what is allowed, the last good value stays, and the file on disk is unchanged.
+Also: a warning (not a refusal) for an implausible but possible value, and user text shown as
+text, never as markup."""
+
+from __future__ import annotations
+
+import datetime as dt
+import shutil
+
+from textual import events
+
+from survey import store
+from survey.app import make_app
+from survey.app.main import DEMO_SOURCE
+
+SIZE = (120, 40)
+
+#: (screen, field id, text typed, a word the message must contain)
+BAD_INPUTS = [
+    ("room", "room-temp", "abc", "abc"),  # letters
+    ("room", "room-temp", "", "needed"),  # empty
+    ("room", "room-temp", "1e309", "1e309"),  # overflows to infinity
+    ("room", "room-temp", "nan", "nan"),  # not a number
+    ("room", "room-temp", "99", "99"),  # above the 70 °C domain
+    ("room", "room-temp", "21 kg", "21 kg"),  # wrong unit
+    ("room", "room-temp", "-51", "-51"),  # below the −50 °C domain
+    ("room", "room-rh", "0.5", "fraction"),  # a fraction, not percent
+    ("room", "room-rh", "101", "101"),  # above 100 %
+    ("room", "room-rh", "65 K", "65 K"),  # wrong unit
+    ("room", "room-rh", "-5", "-5"),  # negative
+    ("room", "room-rh", "1e309", "1e309"),
+    ("room", "room-volume", "4.2 x 3.1", "4.2 x 3.1"),  # two dimensions of three
+    ("room", "room-volume", "4 x 3 x abc", "abc"),
+    ("room", "room-volume", "0.01", "0.01"),  # below the room-volume domain
+    ("room", "room-occupants", "2.5", "2.5"),  # not a whole number
+    ("room", "room-occupants", "-1", "-1"),
+    ("room", "room-occupants", "many", "many"),
+    ("room", "room-name", "", "empty"),
+    ("room", "room-photos", "/etc/passwd", "absolute"),  # outside the survey's folder
+    ("room", "room-photos", "../up.jpg", ".."),
+    ("room", "seen-area", "-1", "-1"),  # a negative mould area
+    ("visit", "visit-started", "yesterday", "yesterday"),
+    ("visit", "outdoor-temp", "inf", "inf"),
+    ("visit", "outdoor-rh", "nan", "nan"),
+    ("site", "site-reference", "", "empty"),
+]
+
+
+#: Key names of the punctuation typed here (letters and digits are their own names).
+KEY_NAMES = {
+    " ": "space",
+    "-": "minus",
+    ".": "full_stop",
+    ",": "comma",
+    "[": "left_square_bracket",
+    "]": "right_square_bracket",
+    ":": "colon",
+    "/": "slash",
+    "%": "percent_sign",
+}
+
+
+def send_keys(app, text: str) -> None:
+    """Send ``text`` as key events one after another, at typing speed (read in order)."""
+    for char in text:
+        app.post_message(events.Key(KEY_NAMES.get(char, char), char))
+
+
+async def type_into(pilot, app, field_id: str, text: str) -> None:
+    """Focus a field (its text is selected), type over it and press Enter."""
+    app.screen.query_one(f"#{field_id}-input").focus()
+    await pilot.pause()
+    for key in ("end", "shift+home", "backspace"):  # the old text goes
+        app.post_message(events.Key(key, None))
+    await pilot.pause()  # bindings act as the key bubbles: let them finish first
+    send_keys(app, text)
+    app.post_message(events.Key("enter", None))
+    await pilot.pause()
+    await app.workers.wait_for_complete()
+
+
+def message_of(app, field_id: str) -> str:
+    message = app.screen.query_one(f"#{field_id} .field-message")
+    return str(message.render()) if message.display else ""
+
+
+async def goto(pilot, app, screen: str) -> None:
+    if screen == "room":
+        app.open_room(app.editor.survey.rooms[0].id)
+    else:
+        app.go(screen)
+    await pilot.pause()
+    await pilot.pause()
+
+
+async def test_bad_inputs_show_a_message_and_change_nothing(tmp_path):
+    """At least 20 bad values, each refused with its message; the file stays byte for byte."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    before = path.read_bytes()
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await pilot.pause()
+        shown_screen = ""
+        for screen, field_id, text, word in BAD_INPUTS:
+            if screen != shown_screen:
+                await goto(pilot, app, screen)
+                shown_screen = screen
+            await type_into(pilot, app, field_id, text)
+            message = message_of(app, field_id)
+            assert message.startswith("Not saved"), (field_id, text, message)
+            assert word in message, (field_id, text, message)
+            assert path.read_bytes() == before, (field_id, text)
+        # Pasted text with a newline keeps its first line only, and that is refused too.
+        await goto(pilot, app, "room")
+        app.screen.query_one("#room-temp-input").focus()
+        await pilot.press("ctrl+a", "ctrl+k")
+        app.screen.query_one("#room-temp-input").post_message(events.Paste("abc\n21"))
+        await pilot.pause()
+        await pilot.press("enter")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        assert "abc" in message_of(app, "room-temp")
+        assert path.read_bytes() == before
+        assert app.editor.survey.visits[0].rooms[0].air.dry_bulb_c == 17.5  # last good
+    assert len(BAD_INPUTS) >= 20
+
+
+async def test_a_bad_surface_temperature_is_not_saved(tmp_path):
+    """The surface dialog refuses −70 °C (under the −60 °C surface domain); nothing saved."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    before = path.read_bytes()
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("e")
+        await pilot.pause()
+        await pilot.press("ctrl+a", "ctrl+k", "minus", "7", "0", "enter")
+        await pilot.pause()
+        assert type(app.screen).__name__ == "SurfaceDialog"
+        assert "-70" in message_of(app, "surface-temp")
+        await pilot.press("escape")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+    assert path.read_bytes() == before
+
+
+async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
+    """RH 99 % is possible: saved, with a warning under the field; so is a reading taken
+    long after the visit began (the demo visit began on 2025-01-15 09:40; the app's clock
+    here is 2026-12-01 09:30)."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2026, 12, 1, 9, 30))
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-rh", "99")
+        assert "close to saturation" in message_of(app, "room-rh")
+        assert "days after this visit began" in message_of(app, "room-rh")
+    assert store.load_survey(path).visits[0].rooms[0].air.rh_pct == 99.0
+
+
+async def test_room_names_are_text_not_markup(tmp_path):
+    """A room called '[b]Loft[/b]' or '[/bold]' is shown literally and breaks nothing."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-name", "[b]Loft[/b]")
+        await goto(pilot, app, "rooms")
+        table = app.screen.query_one("#rooms")
+        assert table.get_row_at(0)[1].plain == "[b]Loft[/b]"
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-name", "[/bold]")
+        assert "[/bold]" in str(app.screen.query_one(".screen-title").render())
+    assert store.load_survey(path).rooms[0].name == "[/bold]"
+
+
+async def test_control_characters_from_a_file_are_made_visible(tmp_path):
+    """A room name with a bell character from a file shows as '\\x07', never raw."""
+    path = tmp_path / "survey.json"
+    survey = store.load_survey(DEMO_SOURCE)
+    survey.rooms[0].name = "Bed\x07room"
+    store.save_survey(survey, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await pilot.pause()
+        cell = app.screen.query_one("#rooms").get_row_at(0)[1].plain
+        assert cell == "Bed\\x07room"

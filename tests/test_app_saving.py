@@ -1,0 +1,286 @@
+"""Saving from the app: a failure is shown and nothing is lost, then saving recovers; a
+survey locked by another process opens read-only with the holder named; a file that fails to
+load is left untouched; reopening returns to the room last edited."""
+
+from __future__ import annotations
+
+import os
+import shutil
+import subprocess
+import sys
+
+from textual import events
+
+from survey import store
+from survey.app import make_app
+from survey.app.main import DEMO_SOURCE
+
+SIZE = (120, 40)
+
+
+#: Key names of the punctuation typed here (letters and digits are their own names).
+KEY_NAMES = {
+    " ": "space",
+    "-": "minus",
+    ".": "full_stop",
+    ",": "comma",
+    "[": "left_square_bracket",
+    "]": "right_square_bracket",
+    ":": "colon",
+    "/": "slash",
+    "%": "percent_sign",
+}
+
+
+def send_keys(app, text: str) -> None:
+    """Send ``text`` as key events one after another, at typing speed (read in order)."""
+    for char in text:
+        app.post_message(events.Key(KEY_NAMES.get(char, char), char))
+
+
+async def settle(pilot, app) -> None:
+    await pilot.pause()
+    await app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+async def rename_first_room(pilot, app, name: str) -> None:
+    app.open_room(app.editor.survey.rooms[0].id)
+    await settle(pilot, app)
+    app.screen.query_one("#room-name-input").focus()
+    send_keys(app, name)
+    await pilot.press("enter")
+    await settle(pilot, app)
+
+
+async def test_a_failed_save_is_shown_kept_and_retried(tmp_path):
+    """A read-only file refuses the save (root included): the status line says NOT SAVED,
+    the change stays in the app, and once writable again Ctrl+S saves it."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    before = path.read_bytes()
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        os.chmod(path, 0o444)
+        await rename_first_room(pilot, app, "Attic")
+        assert app.status_text.startswith("NOT SAVED")
+        assert "read-only" in app.status_text
+        assert str(app.screen.query_one(".status-bar").render()).startswith("NOT SAVED")
+        assert path.read_bytes() == before
+        assert app.editor.survey.rooms[0].name == "Attic"  # kept in the app
+        os.chmod(path, 0o644)
+        await pilot.press("ctrl+s")
+        await settle(pilot, app)
+        assert app.status_text.startswith("Saved")
+    assert store.load_survey(path).rooms[0].name == "Attic"
+
+
+async def test_a_failed_save_in_a_read_only_folder(tmp_path):
+    """The same in a read-only folder (skipped as root, whom folder modes do not stop)."""
+    if os.geteuid() == 0:
+        import pytest
+
+        pytest.skip("root writes into read-only folders")
+    folder = tmp_path / "jobs"
+    folder.mkdir()
+    path = folder / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        os.chmod(folder, 0o555)
+        try:
+            await rename_first_room(pilot, app, "Attic")
+            assert app.status_text.startswith("NOT SAVED")
+        finally:
+            os.chmod(folder, 0o755)
+        await pilot.press("ctrl+s")
+        await settle(pilot, app)
+        assert app.status_text.startswith("Saved")
+    assert store.load_survey(path).rooms[0].name == "Attic"
+
+
+async def test_a_locked_survey_opens_read_only(tmp_path):
+    """Another live process holds the lock: the app opens the survey read-only, names the
+    holder, refuses edits and leaves the file and the lock as they were."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    before = path.read_bytes()
+    holder = subprocess.Popen(
+        [
+            sys.executable,
+            "-c",
+            (
+                "import sys, time; from survey import store; "
+                "s = store.open_for_editing(sys.argv[1]); "
+                "print('ready', flush=True); time.sleep(60)"
+            ),
+            str(path),
+        ],
+        stdout=subprocess.PIPE,
+        text=True,
+    )
+    try:
+        assert holder.stdout.readline().strip() == "ready"
+        lock_before = store.lock_path(path).read_bytes()
+        app = make_app(path, data_dir=tmp_path / "data")
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            assert app.editor.read_only
+            assert f"process {holder.pid}" in app.status_text
+            assert "[read-only]" in str(app.screen.query_one(".screen-title").render())
+            app.open_room(app.editor.survey.rooms[0].id)
+            await settle(pilot, app)
+            assert app.screen.query_one("#room-name-input").disabled
+            app.screen.query_one("#surfaces").focus()
+            await pilot.press("d")  # delete: refused
+            await settle(pilot, app)
+            assert "read-only" in app.status_text
+            assert len(app.editor.survey.visits[0].rooms[0].surfaces) == 6
+        assert path.read_bytes() == before
+        assert store.lock_path(path).read_bytes() == lock_before
+    finally:
+        holder.kill()
+        holder.wait()
+
+
+async def test_a_damaged_file_is_not_opened_and_left_untouched(tmp_path):
+    """A file that fails to load: the store's message on the start screen, file unchanged."""
+    path = tmp_path / "survey.json"
+    path.write_bytes(b'{"schema_version": 1, "site": {"reference": ')
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        assert app.editor is None
+        assert app.status_text.startswith("Not opened")
+        assert type(app.screen).__name__ == "StartScreen"
+    assert path.read_bytes() == b'{"schema_version": 1, "site": {"reference": '
+    assert not store.lock_path(path).exists()
+
+
+async def test_reopening_returns_to_the_room_last_edited(tmp_path):
+    """Quit in the second room; the next start opens that room, with the change saved."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    data = tmp_path / "data"
+    app = make_app(path, data_dir=data)
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(app.editor.survey.rooms[1].id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-occupants-input").focus()
+        await pilot.press("3", "enter")
+        await settle(pilot, app)
+        await pilot.press("ctrl+q")
+    assert not store.lock_path(path).exists()
+    again = make_app(path, data_dir=data)
+    async with again.run_test(size=SIZE) as pilot:
+        await settle(pilot, again)
+        assert type(again.screen).__name__ == "RoomScreen"
+        assert again.screen.room_id == again.editor.survey.rooms[1].id
+        assert again.editor.survey.rooms[1].occupants == 3
+
+
+async def test_the_demo_copies_the_example_and_never_edits_it(tmp_path):
+    """`survey demo` edits a copy in the data folder; the bundled file stays as it is, and
+    the bundled file is the example site of the repository."""
+    from pathlib import Path
+
+    bundled = DEMO_SOURCE.read_bytes()
+    example = Path(__file__).parents[1] / "example_sites" / "winter-flat-bedroom-mould.json"
+    assert bundled == example.read_bytes()
+    app = make_app(demo=True, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        await rename_first_room(pilot, app, "Attic")
+        assert app.editor.path.is_relative_to(tmp_path / "data")
+    assert DEMO_SOURCE.read_bytes() == bundled
+    assert (
+        store.load_survey(tmp_path / "data" / "demo" / "demo-flat-9.json").rooms[0].name == "Attic"
+    )
+
+
+async def test_equipment_added_by_keys_is_saved_and_judged(tmp_path):
+    """A running dehumidifier added on the room screen is saved, and the room is then judged
+    as being dried (evaluate's rule: drying equipment running)."""
+    from survey import evaluate
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(app.editor.survey.rooms[0].id)
+        await settle(pilot, app)
+        app.screen.query_one("#equipment").focus()
+        await pilot.press("a")
+        await settle(pilot, app)
+        for text in ("", "Dehu 1", "", "20", "3"):  # kind and "running" as offered
+            send_keys(app, text)
+            await pilot.press("enter")
+        await settle(pilot, app)
+    room = store.load_survey(path).visits[0].rooms[0]
+    assert [
+        (e.kind, e.label, e.running, e.capacity_l_per_day, e.water_removed_l)
+        for e in room.equipment
+    ] == [("refrigerant_dehumidifier", "Dehu 1", True, 20.0, 3.0)]
+    assert evaluate.drying_in_progress(room)
+
+
+async def test_a_locked_survey_without_visits_is_shown_not_started(tmp_path):
+    """Read-only, a survey with no visit gets none: F3 says so and shows the rooms."""
+    from survey import model
+
+    path = tmp_path / "empty.json"
+    survey = store.new_survey("Empty site")
+    survey.rooms.append(model.Room(id="hall", name="Hall"))
+    store.save_survey(survey, path)
+    before = path.read_bytes()
+    holder = subprocess.Popen(
+        [
+            sys.executable,
+            "-c",
+            (
+                "import sys, time; from survey import store; "
+                "s = store.open_for_editing(sys.argv[1]); "
+                "print('ready', flush=True); time.sleep(60)"
+            ),
+            str(path),
+        ],
+        stdout=subprocess.PIPE,
+        text=True,
+    )
+    try:
+        assert holder.stdout.readline().strip() == "ready"
+        app = make_app(path, data_dir=tmp_path / "data")
+        async with app.run_test(size=SIZE) as pilot:
+            await settle(pilot, app)
+            await pilot.press("f3")
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "RoomListScreen"
+            assert "no visit" in app.status_text
+            await pilot.press("enter")  # open the room: refused, no crash
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "RoomListScreen"
+        assert path.read_bytes() == before
+    finally:
+        holder.kill()
+        holder.wait()
+
+
+async def test_text_typed_then_quit_is_saved(tmp_path):
+    """A value typed but not yet committed with Enter is committed and saved on Ctrl+Q."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(app.editor.survey.rooms[0].id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-occupants-input").focus()
+        await pilot.pause()
+        send_keys(app, "4")
+        await pilot.pause()
+        await pilot.press("ctrl+q")
+    assert store.load_survey(path).rooms[0].occupants == 4
