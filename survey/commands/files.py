@@ -89,6 +89,11 @@ def register(subparsers: argparse._SubParsersAction) -> None:
         help="measured barometric pressure, e.g. 1002 (hPa, or inHg with "
         "--units ip) or 29.6 inHg; without it or --altitude, sea level",
     )
+    new.add_argument(
+        "--no-open",
+        action="store_true",
+        help="only create the file; without this, the app opens on it when run in a terminal",
+    )
     new.set_defaults(handler=run_new)
 
     validate = subparsers.add_parser(
@@ -245,6 +250,10 @@ def run_new(args: argparse.Namespace) -> int:
         )
     store.save_survey(survey, path, exclusive=True)
     print(f"Created {visible(path)} for site '{shorten(survey.site.reference)}'.")
+    if not args.no_open and sys.stdin.isatty() and sys.stdout.isatty():
+        from survey.app import make_app
+
+        make_app(path).run()
     return 0
 
 

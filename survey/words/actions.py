@@ -80,7 +80,11 @@ def action_numbers(action: Action[Any], d: Display) -> str:
     """The action's headline number, for a summary line ('' when it has none)."""
     n = action.numbers
     kind = action.kind
-    if kind is ActionKind.VENTILATE and n.airflow_m3_per_h is not None:
+    if (
+        kind is ActionKind.VENTILATE
+        and n.airflow_m3_per_h is not None
+        and n.airflow_m3_per_h >= 0.5
+    ):
         text = f"at least {d.at_least('airflow', n.airflow_m3_per_h)}"
         if n.air_changes_per_h is not None:
             text += f" ({n.air_changes_per_h:.1f} air changes an hour)"

@@ -60,6 +60,14 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice, d:
                 " The airflow cannot be sized without the moisture load: "
                 f"{moisture_missing(moisture)}."
             )
+        if n.airflow_m3_per_h < 0.5:
+            return text + (
+                " The room's own moisture load is nil ("
+                f"{moisture_basis(moisture, finding.use, d)}), so once it is down no steady "
+                "airflow is needed to hold it there: air it out (windows wide open for a few "
+                "minutes, several times a day) to bring it down, then keep the usual background "
+                "ventilation (trickle vents, extract fans)."
+            )
         text += f" At least {d.at_least('airflow', n.airflow_m3_per_h)} of outdoor air"
         if n.air_changes_per_h is not None:
             text += (
