@@ -155,7 +155,7 @@ def test_three_kelvin_margin_rule():
     assert state(dew + 2.95).condensation is CondensationState.NEAR
     assert state(dew + 0.05).condensation is CondensationState.NEAR
     assert state(dew - 0.05).condensation is CondensationState.CONDENSING
-    assert state(dew + 2.95).margin_k == pytest.approx(2.95, abs=0.02)
+    assert state(dew + 2.95).dew_point_margin_k == pytest.approx(2.95, abs=0.02)
 
 
 def _wmo_frost_point_c(air_c: float, rh_pct: float) -> float:
@@ -331,7 +331,7 @@ def test_a_limit_inside_the_band_cannot_be_told_apart():
     """18 °C / 72 % on a 15.5 °C surface is 2.6 K above the dew point; with ±0.5 K, ±3 % and
     ±1 K instruments the band (±1.5 K) spans the 3 K margin and the 80 % limit."""
     s = one_surface(18.0, 72.0, 15.5, "bedroom", OutdoorInput(3.0, 88.0), Accuracy()).surfaces[0]
-    assert s.margin_k == pytest.approx(2.62, abs=0.02)
+    assert s.dew_point_margin_k == pytest.approx(2.62, abs=0.02)
     assert s.margin_uncertainty_k > 0.62
     assert s.condensation is CondensationState.CANNOT_TELL
     assert s.condensation_possible == (CondensationState.CLEAR, CondensationState.NEAR)

@@ -78,7 +78,7 @@ def test_bands_match_monte_carlo(case):
     k = 2.0
     ln_half = math.log(s.surface_rh_high_pct / s.surface_rh_pct)
     checks = [
-        (margin, s.margin_k, s.margin_uncertainty_k),
+        (margin, s.dew_point_margin_k, s.margin_uncertainty_k),
         (ln_rh_s, math.log(s.surface_rh_pct), ln_half),
         (factor, s.temperature_factor, s.temperature_factor_uncertainty),
         (excess, finding.vapour_pressure_excess_pa, finding.vapour_pressure_excess_uncertainty_pa),
@@ -137,7 +137,7 @@ def test_monte_carlo_would_catch_a_wrong_band():
     finding = assess.assess_room(room, OutdoorInput(*case[3:5]), P, case[5])
     margin = _monte_carlo(*case)[0]
     s = finding.surfaces[0]
-    assert _inside(margin, s.margin_k, 0.8 * s.margin_uncertainty_k) < 0.94
+    assert _inside(margin, s.dew_point_margin_k, 0.8 * s.margin_uncertainty_k) < 0.94
 
 
 # --- properties --------------------------------------------------------------------------------
@@ -168,7 +168,7 @@ def test_a_colder_surface_is_never_safer(room, warm_c, drop, accuracy, outdoor_c
     )
     warm, cold = finding.surfaces
     assert cold.surface_rh_pct > warm.surface_rh_pct
-    assert cold.margin_k < warm.margin_k
+    assert cold.dew_point_margin_k < warm.dew_point_margin_k
     for attr in ("condensation_possible", "mould_possible"):
         w, c = getattr(warm, attr), getattr(cold, attr)
         if c[0] in _OUT_OF_RANGE or w[0] in _OUT_OF_RANGE:
@@ -198,6 +198,6 @@ def test_states_are_consistent_with_their_bands(room, ts, accuracy):
         else:
             assert possible == (state,)
     if s.condensation is assess.CondensationState.CONDENSING:
-        assert s.margin_k + s.margin_uncertainty_k <= 0.0
+        assert s.dew_point_margin_k + s.margin_uncertainty_k <= 0.0
     if s.mould is assess.MouldState.BELOW:
         assert s.surface_rh_high_pct < 70.0

@@ -163,7 +163,12 @@ def test_every_number_of_a_room_is_the_assessments():
     for row, surface in zip(surfaces.rows, finding.surfaces, strict=False):
         assert row[0].text == surface.label
         keys = {c.key for c in row if c.key}
-        assert keys == {"surface_temp_c", "surface_rh_pct", "margin_k", "temperature_factor"}
+        assert keys == {
+            "surface_temp_c",
+            "surface_rh_pct",
+            "dew_point_margin_k",
+            "temperature_factor",
+        }
         for cell in row:
             if cell.key:
                 assert cell.value == getattr(surface, cell.key)

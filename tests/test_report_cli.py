@@ -182,6 +182,6 @@ def test_export_and_report_agree_on_every_number(path, tmp_path):
                 shown = {c.key: c.value for c in cells_row if c.key}
                 _agree(csv_row[col["surface"]], shown["surface_temp_c"])
                 _agree(csv_row[col["surface_rh"]], shown["surface_rh_pct"])
-                _agree(csv_row[col["margin"]], shown["margin_k"])
+                _agree(csv_row[col["margin"]], shown["dew_point_margin_k"])
                 compared += 1
     assert compared > 0

@@ -266,7 +266,10 @@ class RoomScreen(walk.WalkScreen):
                 Text(
                     "–"
                     if f is None
-                    else f"{d.difference(f.margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
+                    else (
+                        f"{d.difference(f.dew_point_margin_k)} ± "
+                        f"{d.difference(f.margin_uncertainty_k)}"
+                    )
                 ),
                 Text(words.ELEMENT_WORDS.get(s.element, s.element)),
                 Text("" if last is None else d.temperature(last)),
@@ -458,7 +461,7 @@ class RoomScreen(walk.WalkScreen):
             f = judged.finding.surfaces[at]
             text = Text(
                 f"Surface RH {words.surface_rh_text(f)}; margin "
-                f"{d.difference(f.margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
+                f"{d.difference(f.dew_point_margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
                 f"\n{words.short_verdict(f, d)}"
             )
             limit = words.rh_limit_text(judged.finding)

@@ -327,7 +327,7 @@ class SurfaceFinding(NamedTuple):
     surface_rh_low_pct: float  #: lower end of the ±U band
     surface_rh_high_pct: float  #: upper end of the ±U band
     condensation_point_c: float
-    margin_k: float  #: surface temperature minus the condensation point
+    dew_point_margin_k: float  #: surface temperature minus the condensation point
     margin_uncertainty_k: float  #: expanded uncertainty U of the margin (k = 2)
     condensation: CondensationState
     condensation_possible: tuple[CondensationState, ...]

@@ -45,7 +45,7 @@ def _surface(s) -> dict[str, Any]:
         "surface_temp_c": s.surface_temp_c,
         "surface_rh_pct": s.surface_rh_pct,
         "surface_rh_range_pct": [s.surface_rh_low_pct, s.surface_rh_high_pct],
-        "dew_point_margin_k": s.margin_k,
+        "dew_point_margin_k": s.dew_point_margin_k,
         "margin_uncertainty_k": s.margin_uncertainty_k,
         "condensing": s.condensing,
         "frost": s.frost,
@@ -243,7 +243,7 @@ def render(result: QuickResult, d: words.Display) -> None:
         for s in f.surfaces:
             label = Text(visible(s.label))
             margin = (
-                d("temperature_difference", s.margin_k, unit=False)
+                d("temperature_difference", s.dew_point_margin_k, unit=False)
                 + " ± "
                 + d.difference(s.margin_uncertainty_k)
             )

@@ -165,7 +165,7 @@ def _surfaces(
                 Cell(reading.material),
                 Cell(d.temperature(s.surface_temp_c), s.surface_temp_c, "surface_temp_c"),
                 Cell(words.surface_rh_text(s), s.surface_rh_pct, "surface_rh_pct"),
-                Cell(rw.margin_cell(s, d), s.margin_k, "margin_k"),
+                Cell(rw.margin_cell(s, d), s.dew_point_margin_k, "dew_point_margin_k"),
                 Cell(rw.factor_cell(s), s.temperature_factor, "temperature_factor"),
             )
         )

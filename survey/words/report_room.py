@@ -136,7 +136,7 @@ def factor_cell(surface: SurfaceFinding) -> str:
 
 def margin_cell(surface: SurfaceFinding, d: Display) -> str:
     return (
-        d("temperature_difference", surface.margin_k, unit=False)
+        d("temperature_difference", surface.dew_point_margin_k, unit=False)
         + " ± "
         + d.difference(surface.margin_uncertainty_k)
     )
