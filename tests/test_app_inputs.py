@@ -8,6 +8,7 @@ from __future__ import annotations
 import datetime as dt
 import shutil
 
+import pytest
 from textual import events
 
 from survey import store
@@ -94,6 +95,7 @@ async def goto(pilot, app, screen: str) -> None:
     await pilot.pause()
 
 
+@pytest.mark.slow
 async def test_bad_inputs_show_a_message_and_change_nothing(tmp_path):
     """At least 20 bad values, each refused with its message; the file stays byte for byte."""
     path = tmp_path / "survey.json"

@@ -94,6 +94,7 @@ async def add_room(pilot, app, name: str, surfaces, material) -> None:
     await add_material(pilot, app, *material)
 
 
+@pytest.mark.slow
 async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     """Every step by keys; the file on disk holds what was typed and judges as expected."""
     monkeypatch.chdir(tmp_path)

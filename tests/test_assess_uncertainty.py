@@ -63,6 +63,7 @@ def _inside(values, centre, half_width):
 
 
 @pytest.mark.parametrize("case", CASES, ids=[f"{c[0]}C-{c[1]}pct-on-{c[2]}C" for c in CASES])
+@pytest.mark.slow
 def test_bands_match_monte_carlo(case):
     """Standard uncertainties agree with the Monte Carlo spread within 3 %, and ±U (k = 2)
     holds 94-99.5 % of the draws, for margin, surface RH, fRsi and vapour-pressure excess."""
@@ -91,6 +92,7 @@ def test_bands_match_monte_carlo(case):
 
 
 @pytest.mark.parametrize("case", CASES, ids=[f"{c[0]}C-on-{c[2]}C" for c in CASES])
+@pytest.mark.slow
 def test_shared_thermometer_factor_band_matches_monte_carlo(case):
     """One thermometer read indoors and out: its error is the same draw in both readings
     (fully correlated, GUM 5.2), and the fRsi band follows u² = (u_ts² + u_ti²)/Δ²."""
@@ -130,6 +132,7 @@ def test_condensation_point_band_matches_monte_carlo():
     )
 
 
+@pytest.mark.slow
 def test_monte_carlo_would_catch_a_wrong_band():
     """The check has teeth: a band a fifth too narrow fails the coverage test."""
     case = CASES[0]

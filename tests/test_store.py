@@ -256,6 +256,7 @@ def surveys(draw) -> model.Survey:
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(surveys())
+@pytest.mark.slow
 def test_any_valid_survey_saves_and_loads_equal(survey):
     """Round trip: any valid survey saved to a file loads back equal, and saving is stable."""
     with tempfile.TemporaryDirectory() as folder:

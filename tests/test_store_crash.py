@@ -66,6 +66,7 @@ def _read_all(fd: int) -> str:
 @pytest.mark.skipif(
     not hasattr(os, "fork") or not hasattr(signal, "SIGKILL"), reason="needs fork and SIGKILL"
 )
+@pytest.mark.slow
 def test_writer_killed_at_random_moments_leaves_old_or_new_version(tmp_path):
     """Over at least 200 saves and 40 SIGKILLs at random moments, the survey always loads and
     holds either the last version the writer reported or the one it was writing; the backup

@@ -294,6 +294,7 @@ def test_a_survey_with_logger_samples_loads():
 
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(surveys())
+@pytest.mark.slow
 def test_cutting_out_logger_samples_keeps_everything_else(survey):
     """The duplicate-key check's shortcut empties exactly the samples arrays of any valid
     survey file, whatever its texts hold, so it never hides a key nor invents one."""

@@ -239,6 +239,7 @@ def _racer(path, seed, barrier, results, release):
 
 
 @pytest.mark.skipif(not hasattr(os, "fork"), reason="needs fork")
+@pytest.mark.slow
 def test_stale_lock_taken_over_by_several_processes_at_once_has_one_winner(survey_path):
     """Six processes find the same stale lock at once, with random pauses around every file
     operation and the staleness check: exactly one gets the lock, every other is told that
