@@ -1,0 +1,239 @@
+"""The room screen's tables worked by keys: surfaces, materials and equipment added, edited,
+deleted and undone (a mixin of :class:`~survey.app.room.RoomScreen`)."""
+
+from __future__ import annotations
+
+import msgspec
+from rich.text import Text
+
+from survey import model, words
+from survey.app import equipment, judging, walk
+from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
+from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
+
+USES = [
+    (u.replace("_", " "), u)
+    for u in (
+        "bedroom",
+        "bathroom",
+        "kitchen",
+        "living",
+        "basement",
+        "crawlspace",
+        "loft",
+        "office",
+        "storage",
+        "hallway",
+        "other",
+    )
+]
+ODOURS = [
+    ("not recorded", ""),
+    ("none", "none"),
+    ("musty", "musty"),
+    ("earthy", "earthy"),
+    ("sewage", "sewage"),
+    ("chemical", "chemical"),
+    ("other", "other"),
+]
+WATER = [
+    ("not recorded", 0),
+    ("1: clean water", 1),
+    ("2: significantly contaminated", 2),
+    ("3: grossly contaminated (sewage, flood water)", 3),
+]
+
+
+class RoomTables:
+    """Adding, editing and deleting the room's surface, material and equipment rows."""
+
+    def _row(self, table) -> str | None:
+        if not table.row_count:
+            return None
+        return table.coordinate_to_cell_key((table.cursor_row, 0)).row_key.value
+
+    def _surface_preview(self, index: int | None):
+        def preview(candidate: model.SurfaceReading) -> Text:
+            record = self.record() or model.RoomVisit(room=self.room_id)
+            surfaces = list(record.surfaces)
+            if index is None:
+                surfaces.append(candidate)
+                at = len(surfaces) - 1
+            else:
+                surfaces[index] = candidate
+                at = index
+            judged = judging.judge_room(
+                self.editor.survey,
+                self.editor.visit_index,
+                self.room_id,
+                msgspec.structs.replace(record, surfaces=surfaces),
+            )
+            if judged is None:
+                return Text("Give the room's air reading first to judge this surface.")
+            d = self.app.display_units
+            f = judged.finding.surfaces[at]
+            text = Text(
+                f"Surface RH {words.surface_rh_text(f)}; margin "
+                f"{d.difference(f.dew_point_margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
+                f"\n{words.short_verdict(f, d)}"
+            )
+            limit = words.rh_limit_text(judged.finding)
+            if limit is not None:
+                text.append(f"\nHighest safe room RH: {limit}")
+            return text
+
+        return preview
+
+    def action_add_surface(self) -> None:
+        self._edit_surface(None, None)
+
+    def action_edit_surface(self) -> None:
+        key = self._row(self.query_one(SurfaceTable))
+        if key is None:
+            return self.action_add_surface()
+        index = int(key[1:])
+        if key.startswith("p"):
+            point = judging.pending_surfaces(
+                self.editor.survey, self.editor.visit_index, self.room_id
+            )[index]
+            template = msgspec.structs.replace(
+                point,
+                surface_temp_c=None,
+                taken_at=None,
+                notes="",
+                condensation_seen=False,
+                mould_visible=False,
+            )
+            d = self.app.display_units
+            self._edit_surface(None, template, f"last {d.temperature(point.surface_temp_c)}")
+        else:
+            self._edit_surface(index, self.record().surfaces[index])
+
+    def _edit_surface(self, index, reading, previous: str = "") -> None:
+        if self.refuse_if_read_only():
+            return
+        record = self.record()
+        air = record.air.dry_bulb_c if record and record.air else None
+
+        def done(result) -> None:
+            if result is None:
+                return
+            surfaces = list(self.record(create=True).surfaces)
+            if index is None:
+                result, _ = walk.stamped(
+                    result, self.app.clock(), self.visit, self.editor.survey, "surface"
+                )
+                surfaces.append(result)
+            else:
+                surfaces[index] = result
+            self._replace_record("surface", surfaces=surfaces)
+            self._changed()
+
+        title = "Add a surface" if index is None else "Edit the surface"
+        self.app.push_screen(
+            SurfaceDialog(
+                title, self.editor.unit_system, reading, self._surface_preview(index), previous, air
+            ),
+            done,
+        )
+
+    def action_add_material(self) -> None:
+        self._edit_material(None, None)
+
+    def action_edit_material(self) -> None:
+        key = self._row(self.query_one(MaterialTable))
+        if key is None:
+            return self.action_add_material()
+        index = int(key[1:])
+        if key.startswith("q"):
+            point = judging.pending_materials(
+                self.editor.survey, self.editor.visit_index, self.room_id
+            )[index]
+            template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
+            self._edit_material(None, template, f"last {point.value:g}")
+        else:
+            self._edit_material(index, self.record().materials[index])
+
+    def _edit_material(self, index, reading, previous: str = "") -> None:
+        if self.refuse_if_read_only():
+            return
+
+        def done(result) -> None:
+            if result is None:
+                return
+            materials = list(self.record(create=True).materials)
+            if index is None:
+                result, _ = walk.stamped(
+                    result, self.app.clock(), self.visit, self.editor.survey, "material"
+                )
+                materials.append(result)
+            else:
+                materials[index] = result
+            self._replace_record("material reading", materials=materials)
+            self._changed()
+
+        title = "Add a material reading" if index is None else "Edit the material reading"
+        self.app.push_screen(MaterialDialog(title, reading, previous), done)
+
+    def _edit_equipment(self, index: int | None) -> None:
+        if self.refuse_if_read_only():
+            return
+        record = self.record()
+        current = None if index is None else record.equipment[index]
+
+        def done(result: model.Equipment) -> None:
+            items = list(self.record(create=True).equipment)
+            if index is None:
+                items.append(result)
+            else:
+                items[index] = result
+            self._replace_record("equipment", equipment=items)
+            self._changed()
+
+        title = "Add equipment" if index is None else "Edit the equipment"
+        self.app.push_screen(*equipment.dialog(title, current, done))
+
+    def action_add_equipment(self) -> None:
+        self._edit_equipment(None)
+
+    def action_edit_equipment(self) -> None:
+        key = self._row(self.query_one(EquipmentTable))
+        self._edit_equipment(None if key is None else int(key[1:]))
+
+    def action_delete_equipment(self) -> None:
+        self._delete("equipment")
+
+    def _delete(self, kind: str) -> None:
+        table = self.query_one(
+            {"surfaces": SurfaceTable, "materials": MaterialTable, "equipment": EquipmentTable}[
+                kind
+            ]
+        )
+        key = self._row(table)
+        if key is None or key[0] in "pq" or self.refuse_if_read_only():
+            return
+        index = int(key[1:])
+        items = list(getattr(self.record(), kind))
+        removed = items.pop(index)
+        self._replace_record(kind, **{kind: items})
+        self.undo_stack.append((kind, index, removed))
+        self._changed()
+        label = getattr(removed, "location", "") or getattr(removed, "kind", "")
+        self.app.show_status(f"Deleted {label} — u puts it back.")
+
+    def action_delete_surface(self) -> None:
+        self._delete("surfaces")
+
+    def action_delete_material(self) -> None:
+        self._delete("materials")
+
+    def action_undo(self) -> None:
+        if not self.undo_stack or self.refuse_if_read_only():
+            self.app.show_status("Nothing to undo.")
+            return
+        kind, index, removed = self.undo_stack.pop()
+        items = list(getattr(self.record(create=True), kind))
+        items.insert(min(index, len(items)), removed)
+        self._replace_record(kind, **{kind: items})
+        self._changed()
+        self.app.show_status(f"Put back {getattr(removed, 'location', '')}.")
