@@ -108,6 +108,8 @@ class SurveyApp(App):
                     if fresh and stale.exists():
                         stale.unlink()
                 shutil.copyfile(DEMO_SOURCE, target)
+                # a fresh copy starts at the room list, not at the room last edited
+                self.recents.remember(target, "", "")
         except OSError as exc:
             self.show_status(f"The demo could not be copied to {target}: {exc}", "error")
             return False
