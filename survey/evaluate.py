@@ -230,13 +230,13 @@ def _activities(room: model.Room | None) -> tuple[assess.Activity, ...]:
     if room is None:
         return ()
     found = []
-    if room.showers_per_day:
+    if room.showers_per_day is not None:
         found.append(
             assess.Activity("shower", room.showers_per_day * th.value("shower_minutes") / 60.0)
         )
-    if room.baths_per_day:
+    if room.baths_per_day is not None:
         found.append(assess.Activity("bath", room.baths_per_day * th.value("bath_minutes") / 60.0))
-    if room.cooking_hours_per_day:
+    if room.cooking_hours_per_day is not None:
         found.append(assess.Activity("cooking", room.cooking_hours_per_day))
     return tuple(found)
 

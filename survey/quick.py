@@ -99,15 +99,15 @@ def judge(given: QuickInput) -> QuickResult:
         )
     )
     activities = []
-    if given.showers_per_day:
+    if given.showers_per_day is not None:
         activities.append(
             assess.Activity("shower", given.showers_per_day * th.value("shower_minutes") / 60.0)
         )
-    if given.baths_per_day:
+    if given.baths_per_day is not None:
         activities.append(
             assess.Activity("bath", given.baths_per_day * th.value("bath_minutes") / 60.0)
         )
-    if given.cooking_hours_per_day:
+    if given.cooking_hours_per_day is not None:
         activities.append(assess.Activity("cooking", given.cooking_hours_per_day))
     observations = assess.Observations(
         visible_mould_area_m2=given.mould_area_m2,

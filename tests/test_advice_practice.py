@@ -140,14 +140,15 @@ def test_class_of_water_loss_from_area_and_materials(wet_pct, dense, expected):
 def test_drying_load_includes_the_wet_materials():
     """A 40 m³ room drying a class 2 loss: 40 m³ = 1412.6 ft³; the drying chart's 50 ft³
     per pint/day (from memory) gives 28.25 pints/day × 0.473176 L = 13.37 L/day from the
-    materials (hand arithmetic), added to the air's load, so the removal is not 0."""
+    materials (hand arithmetic); the removal is the larger of that and the air's own load
+    (the measured excess already is the water leaving the materials), never 0."""
     result = basement(drying=True, wet_area_pct=20.0)
     n = action(result, ActionKind.DEHUMIDIFY).numbers
     assert n.materials_load_l_per_day == pytest.approx(
         40.0 * FT3_PER_M3 / 50.0 * US_PINT_L, rel=1e-6
     )
     assert n.materials_load_l_per_day == pytest.approx(13.37, abs=0.01)
-    assert n.removal_l_per_day > n.materials_load_l_per_day
+    assert n.removal_l_per_day >= n.materials_load_l_per_day > 0.0
 
 
 # --- 2. combustion air ----------------------------------------------------------------------
@@ -300,9 +301,21 @@ def bathroom(**more):
 def test_bathroom_without_use_gets_typical_showers_said_as_assumption():
     """No showers entered: 2 a day (our choice) × 2500 g/h (shower rate, BS 5250 via a
     building-science text) × 10 min (our choice) over 24 h = 34.72 g/h (hand arithmetic)."""
-    moisture = bathroom().advice.moisture
+    moisture = bathroom(occupants=None).advice.moisture
     assert moisture.typical_use_assumed == "shower"
     assert moisture.activities_g_per_h == pytest.approx(2 * 2500 * 10 / 60 / 24, rel=1e-9)
+
+
+def test_an_unoccupied_bathroom_gets_no_typical_showers():
+    """A bathroom said to have no occupants (a closed-up let) is not given showers."""
+    moisture = bathroom(occupants=0).advice.moisture
+    assert moisture.typical_use_assumed is None
+
+
+def test_zero_showers_entered_is_not_the_typical_use():
+    """Showers entered as 0 a day are 0, not "none entered"."""
+    moisture = bathroom(occupants=None, showers_per_day=0.0).advice.moisture
+    assert moisture.typical_use_assumed is None and moisture.activities_g_per_h == 0.0
 
 
 def test_showers_entered_are_used():

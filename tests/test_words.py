@@ -180,14 +180,14 @@ def up(value: float, places: int = 0) -> float:
 def test_ventilate_text_gives_the_airflow_in_m3_per_h_and_air_changes():
     """The SI ventilate text gives the airflow in m³/h and air changes an hour.
 
-    The SI ventilate text gives the least airflow in m³/h, rounded up, and the air changes
+    The SI ventilate text gives the airflow in m³/h, rounded up (the safe side), and the air changes
     an hour of the 30 m³ room, as the action's numbers say."""
     finding, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
     vent = action(advice, ActionKind.VENTILATE)
     text = words.action_reason(vent, finding, advice, words.SI)
     n = vent.numbers
     assert (
-        f"At least {up(n.airflow_m3_per_h):.0f} m³/h of outdoor air "
+        f"About {up(n.airflow_m3_per_h):.0f} m³/h of outdoor air "
         f"({n.air_changes_per_h:.1f} air changes an hour in this 30.0 m³ room)"
     ) in text
 
@@ -195,13 +195,13 @@ def test_ventilate_text_gives_the_airflow_in_m3_per_h_and_air_changes():
 def test_ip_ventilate_text_gives_the_airflow_in_cfm():
     """The IP ventilate text gives the airflow in cfm.
 
-    IP text gives the least airflow in ft³/min, rounded up: m³/h / 60 / 0.3048³ (1 ft =
+    IP text gives the airflow in ft³/min, rounded up: m³/h / 60 / 0.3048³ (1 ft =
     0.3048 m)."""
     finding, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
     vent = action(advice, ActionKind.VENTILATE)
     text = words.action_reason(vent, finding, advice, words.IP)
     cfm = vent.numbers.airflow_m3_per_h / 60.0 / FT**3
-    assert f"At least {up(cfm):.0f} cfm of outdoor air" in text
+    assert f"About {up(cfm):.0f} cfm of outdoor air" in text
     assert "m³/h" not in text
 
 

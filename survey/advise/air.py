@@ -294,7 +294,12 @@ def _dehumidify(
     else:
         load = (
             max(0.0, generation + (outdoor_g_per_h or 0.0)) * 24.0 / 1000.0 * loads.WATER_L_PER_KG
-        ) + (0.0 if materials is None else materials[0])
+        )
+        # In a room being dried the measured excess already is the water leaving the
+        # materials; the drying chart's figure is the capacity a class of loss calls for.
+        # The larger of the two is the least to remove, never their sum.
+        if materials is not None:
+            load = max(load, materials[0])
     pint = th.value("us_pint_l")
     numbers = DehumidifyNumbers(
         target_rh_pct=target.rh_pct,
@@ -501,12 +506,19 @@ def _ventilated_space(finding: RoomFinding) -> Action[Any]:
     out, air = finding.outdoor, finding.air
     if out is not None:
         wetter = out.humidity_ratio_kg_per_kg > air.humidity_ratio_kg_per_kg
-        coldest = min((s.surface_temp_c for s in finding.surfaces), default=None)
+        # the structure's surfaces, not glass or pipes (judged apart)
+        coldest = min(
+            (s.surface_temp_c for s in finding.surfaces if s.policy.sets_room_target),
+            default=None,
+        )
         above = coldest is not None and out.condensation_point_c > coldest
+        drier = out.humidity_ratio_kg_per_kg < air.humidity_ratio_kg_per_kg
         weather = {
             "outdoor_wetter_than_space": wetter,
             "outdoor_dew_point_above_coldest_surface": above if coldest is not None else None,
-            "keep_vents_closed": wetter or above,
+            # Outdoor air clearly drier than the space still dries it, even where a cold
+            # surface sits below its dew point: the vents stay open then.
+            "keep_vents_closed": wetter or (above and not drier),
             "outdoor_dew_point_c": out.condensation_point_c,
             "coldest_surface_temp_c": coldest,
         }
@@ -514,6 +526,7 @@ def _ventilated_space(finding: RoomFinding) -> Action[Any]:
         room_rh_pct=finding.air.rh_pct,
         dehumidify_only_if_sealed=True,
         loft=finding.use == "loft",
+        room_temp_c=finding.air.dry_bulb_c,
         timber_surfaces=tuple(timber) or None,
         **weather,
     )

@@ -329,7 +329,7 @@ class TimberSurface(msgspec.Struct, frozen=True, kw_only=True):
 
 
 class VentilatedSpaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
-    __words__: ClassVar[frozenset[str]] = frozenset(("loft",))
+    __words__: ClassVar[frozenset[str]] = frozenset(("loft", "room_temp_c"))
     room_rh_pct: float
     dehumidify_only_if_sealed: bool
     loft: bool
@@ -342,6 +342,7 @@ class VentilatedSpaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     keep_vents_closed: bool = False
     outdoor_dew_point_c: float | None = None
     coldest_surface_temp_c: float | None = None
+    room_temp_c: float | None = None
 
 
 class RemoveContaminatedNumbers(msgspec.Struct, frozen=True, kw_only=True):

@@ -81,7 +81,7 @@ def moisture_generation(finding: RoomFinding) -> MoistureEstimate:
         activities = (activities or 0.0) + laundry
         keys.append("moisture_laundry_load_kg")
     typical = typical_amount = None
-    if activities is None and th.room_use(finding.use).wet_room:
+    if activities is None and th.room_use(finding.use).wet_room and room.occupants != 0:
         typical, typical_amount, typical_g_per_h, typical_keys = _typical_wet_room_load(finding.use)
         activities = typical_g_per_h
         keys += typical_keys

@@ -68,10 +68,11 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice, d:
                 "minutes, several times a day) to bring it down, then keep the usual background "
                 "ventilation (trickle vents, extract fans)."
             )
-        text += f" At least {d.at_least('airflow', n.airflow_m3_per_h)} of outdoor air"
-        if n.air_changes_per_h is not None:
+        balance = n.sized_airflow_m3_per_h or n.airflow_m3_per_h
+        text += f" About {d.at_least('airflow', balance)} of outdoor air"
+        if n.room_volume_m3:
             text += (
-                f" ({n.air_changes_per_h:.1f} air changes an hour in this "
+                f" ({balance / n.room_volume_m3:.1f} air changes an hour in this "
                 f"{d('volume', n.room_volume_m3)} room)"
             )
         text += (
@@ -79,6 +80,14 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice, d:
             f"and holds the room at {target}. Moisture load: "
             f"{moisture_basis(moisture, finding.use, d)}."
         )
+        if moisture.back_calculated_g_per_h is not None and (
+            moisture.used_g_per_h == moisture.back_calculated_g_per_h
+        ):
+            text += (
+                f" That load is worked out from the room's measured excess at an assumed "
+                f"{moisture.assumed_air_change_rate_per_h:g} air changes an hour: if the room "
+                f"gets more air than that now, it needs proportionally more."
+            )
         text += _code_minimum(n, d)
         if n.heat_to_warm_air_w is not None:
             text += (
@@ -319,9 +328,9 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice, 
             else ""
         )
         text += (
-            f" The wet materials give off about {d.water(n.materials_load_l_per_day)}: "
-            f"the drying chart's figure for a class {n.water_loss_class} water loss in "
-            f"this room's volume{assumed}."
+            f" For a class {n.water_loss_class} water loss in this room's volume the drying "
+            f"chart calls for about {d.water(n.materials_load_l_per_day)} of dehumidifier "
+            f"capacity{assumed}."
         )
     if n.logged_removal_l_per_day is not None:
         text += (
@@ -349,12 +358,15 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice, 
             )
         text += "."
     elif n.load_l_per_day is not None and n.load_l_per_day > 0.0:
-        if n.materials_load_l_per_day is not None:
-            gains.append(f"the wet materials {d.water(n.materials_load_l_per_day)}")
+        total = (
+            f"{d.water_at_least(n.load_l_per_day)}, the larger of that and the drying chart's "
+            f"figure"
+            if n.materials_load_l_per_day is not None
+            else f"{d.water_at_least(n.load_l_per_day)} in all"
+        )
         text += (
             " To hold it there: " + "; ".join(gains) + f"; "
-            f"{d.water_at_least(n.load_l_per_day)} in all, the least a "
-            f"dehumidifier should remove at this room's conditions."
+            f"{total}, the least a dehumidifier should remove at this room's conditions."
             + (
                 ""
                 if n.materials_load_l_per_day is not None
@@ -444,21 +456,36 @@ def _ventilated_space(n: VentilatedSpaceNumbers, d: Display) -> str:
         )
     if n.keep_vents_closed:
         why = []
+        point = (
+            "frost point"
+            if n.outdoor_dew_point_c is not None and n.outdoor_dew_point_c <= 0.01
+            else "dew point"
+        )
         if n.outdoor_wetter_than_space:
             why.append("outdoor air holds more water than the space")
         if n.outdoor_dew_point_above_coldest_surface:
             why.append(
-                f"its dew point ({d.temperature(n.outdoor_dew_point_c)}) is above the "
+                f"outdoor air's {point} ({d.temperature(n.outdoor_dew_point_c)}) is above the "
                 f"space's coldest measured surface ({d.temperature(n.coldest_surface_temp_c)})"
             )
+        sealed = (
+            "vents closed for good and the ceiling below sealed"
+            if n.loft
+            else "vents closed for good, a ground vapour barrier"
+        )
+        dry_with = (
+            "a desiccant dehumidifier (a refrigerant one ices up in air this cold)"
+            if n.room_temp_c is not None
+            and n.room_temp_c < th.value("refrigerant_dehumidifier_min_c")
+            else "a dehumidifier"
+        )
         text += (
             " Today " + " and ".join(why) + ": air let in through the vents would add "
             "water and condense on cold surfaces, so do not open more vents now. Either "
-            "keep the vents closed while outdoor air is this humid and dry the closed "
-            "space with a dehumidifier, or have it sealed and conditioned (vents closed "
-            "for good, a ground vapour barrier, and dehumidified or conditioned air), "
-            "designed by someone who can check the combustion air of any appliance in "
-            "or above the space."
+            f"keep the vents closed while outdoor air is this humid and dry the closed "
+            f"space with {dry_with}, or have it sealed and conditioned ({sealed}, and "
+            "dehumidified or conditioned air), designed by someone who can check the "
+            "combustion air of any appliance in or above the space."
         )
     text += (
         " A dehumidifier helps only if the space is sealed (closed off from outdoor air): "

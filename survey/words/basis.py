@@ -100,7 +100,7 @@ def moisture_basis(moisture: MoistureEstimate, use: str, d: Display) -> str:
         n = moisture.occupants
         people.append(
             f"{n} {'person' if n == 1 else 'people'} {kind} at "
-            f"{d.moisture_rate(rate)} each: "
+            f"{d.moisture_rate(rate)}{' each' if n != 1 else ''}: "
             f"{d.moisture_rate(moisture.occupants_g_per_h)}"
         )
     if moisture.typical_use_assumed is not None:

@@ -105,8 +105,8 @@ def caution_text(caution: Caution, d: Display) -> str:
         return _mould(caution.area_m2 or 0.0, d) + _AREA_BANDS
     if key == "mould_if_visible":
         return (
-            "A surface is above the mould limit: if mould is visible, measure its area, "
-            "and until then " + _MEDIUM + " " + _LARGE_NEEDS
+            "A surface is above the mould limit: if mould is visible, measure its area; until "
+            "it is measured, treat it as a medium area and " + _MEDIUM + " " + _LARGE_NEEDS
         )
     if key == "water_category_1":
         hours = th.value("water_category_1_degrades_h")
