@@ -11,6 +11,7 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.widgets import Checkbox, Select, Static
 
 from survey import model, words
+from survey import thresholds as th
 from survey.app import equipment, judging, walk
 from survey.app.air import AirPair
 from survey.app.fields import Field, Tick, plain
@@ -20,22 +21,7 @@ from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
 from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
 
-USES = [
-    (u.replace("_", " "), u)
-    for u in (
-        "bedroom",
-        "bathroom",
-        "kitchen",
-        "living",
-        "basement",
-        "crawlspace",
-        "loft",
-        "office",
-        "storage",
-        "hallway",
-        "other",
-    )
-]
+USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
 ODOURS = [
     ("not recorded", ""),
     ("none", "none"),

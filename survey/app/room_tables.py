@@ -11,38 +11,6 @@ from survey.app import equipment, judging, walk
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 
-USES = [
-    (u.replace("_", " "), u)
-    for u in (
-        "bedroom",
-        "bathroom",
-        "kitchen",
-        "living",
-        "basement",
-        "crawlspace",
-        "loft",
-        "office",
-        "storage",
-        "hallway",
-        "other",
-    )
-]
-ODOURS = [
-    ("not recorded", ""),
-    ("none", "none"),
-    ("musty", "musty"),
-    ("earthy", "earthy"),
-    ("sewage", "sewage"),
-    ("chemical", "chemical"),
-    ("other", "other"),
-]
-WATER = [
-    ("not recorded", 0),
-    ("1: clean water", 1),
-    ("2: significantly contaminated", 2),
-    ("3: grossly contaminated (sewage, flood water)", 3),
-]
-
 
 class RoomTables:
     """Adding, editing and deleting the room's surface, material and equipment rows."""
