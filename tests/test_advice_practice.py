@@ -470,3 +470,22 @@ def test_lead_paint_year_is_given_as_a_range_of_countries():
 
     text = words.caution_text(Caution("asbestos_lead", risks=("lead_paint",)), words.SI)
     assert "1978 in the US" in text and "differs by country" in text
+
+
+def test_factor_under_at_the_reading_on_a_mouldy_surface_gets_its_action():
+    """17.5 °C / 72 % with a 12.6 °C corner, outdoor 2 °C: fRsi = (12.6 − 2)/(17.5 − 2) = 0.68
+    (hand arithmetic), under the 0.75 limit (BRE IP1/06, from memory) but within its ±0.08
+    band, on a surface whose band reaches 80 % surface RH: the warmer-surface action is given,
+    marked to be confirmed."""
+    result = judge(
+        air_temp_c=17.5,
+        rh_pct=72.0,
+        surfaces=(assess.SurfaceInput("corner", 12.6, "external_wall"),),
+        outdoor=assess.OutdoorInput(2.0, 85.0),
+        use="bedroom",
+        volume_m3=30.0,
+        occupants=2,
+    )
+    raised = action(result, ActionKind.RAISE_SURFACE_TEMPERATURE).numbers
+    assert raised.temperature_factor == pytest.approx((12.6 - 2.0) / (17.5 - 2.0))
+    assert raised.factor_unclear is True and raised.factor_under is True

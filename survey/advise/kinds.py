@@ -200,6 +200,9 @@ class RaiseSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     #: no practical room RH keeps this surface under the mould limit: a dehumidifier
     #: cannot cure it, the surface must be warmer
     dehumidifier_cannot_cure: bool = False
+    #: the factor is under its limit at the reading but within the instruments' accuracy
+    #: of it, on a surface at or past the mould limit: to be confirmed
+    factor_unclear: bool = False
     #: a wet surface of a room being dried, below the dew point now
     drying_wet: bool = False
     temperature_factor: float | None = None

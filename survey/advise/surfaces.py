@@ -41,7 +41,16 @@ def _raise_surface(
         return None  # evaporation cools a drying surface: dry it before judging it
     max_rh = psychro.max_room_rh_pct(air.dry_bulb_c, surface.surface_temp_c, mould_limit)
     too_cold = max_rh < floor
-    factor_under = surface.temperature_factor_state is FactorState.UNDER
+    # Under the limit at the reading, though inside the instruments' accuracy of it, on a
+    # surface whose band reaches the mould limit: treated as under (to be confirmed).
+    factor_unclear = (
+        surface.temperature_factor_state is FactorState.CANNOT_TELL
+        and surface.temperature_factor is not None
+        and surface.temperature_factor_limit is not None
+        and surface.temperature_factor < surface.temperature_factor_limit
+        and MouldState.ABOVE in surface.mould_possible
+    )
+    factor_under = surface.temperature_factor_state is FactorState.UNDER or factor_unclear
     if not (too_cold or factor_under or drying_wet):
         return None
     keys = ["surface_rh_mould_limit_pct", "dew_point_margin_k", "room_rh_floor_pct"]
@@ -76,6 +85,7 @@ def _raise_surface(
         design_rh_pct=design_rh,
         too_cold=too_cold,
         factor_under=factor_under,
+        factor_unclear=factor_unclear,
         ground_contact=surface.temperature_factor_state is FactorState.GROUND_CONTACT,
         dehumidifier_cannot_cure=too_cold,
         drying_wet=drying_wet,

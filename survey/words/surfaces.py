@@ -50,7 +50,13 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
         reasons.append(
             f"its temperature factor is {n.temperature_factor:.2f} "
             f"(±{n.temperature_factor_uncertainty:.2f}), under "
-            f"{_limit_phrase(n.use, n.temperature_factor_limit or 0.0)}, which today "
+            f"{_limit_phrase(n.use, n.temperature_factor_limit or 0.0)}"
+            + (
+                " at the reading, though within the instruments' accuracy of it"
+                if n.factor_unclear
+                else ""
+            )
+            + ", which today "
             f"means "
             f"a surface of at least "
             f"{d.minimum_temperature(n.surface_temp_for_factor_limit_c)} (the factor "
