@@ -9,6 +9,17 @@ from __future__ import annotations
 import math
 
 import pytest
+from advice_cases import (
+    P,
+    action,
+    advice_for,
+    coolprop,
+    drying_room,
+    plain,
+    wet_skirting_hall,
+    winter_bedroom,
+    wmo_frost_point_c,
+)
 from CoolProp.HumidAirProp import HAPropsSI
 from hypothesis import given, settings
 from hypothesis import strategies as st
@@ -25,9 +36,7 @@ from survey.advise import (
     TimberPoint,
 )
 from survey.assess import (
-    Accuracy,
     Activity,
-    MaterialInput,
     Observations,
     OutdoorInput,
     RoomInput,
@@ -35,26 +44,11 @@ from survey.assess import (
 )
 from survey.errors import InputError
 
-P = 101_325.0
 US_PINT_L = 0.473176  # 1 US liquid pint [R]
-
-
-def coolprop(output: str, temp_c: float, rh_pct: float) -> float:
-    return HAPropsSI(output, "T", temp_c + 273.15, "P", P, "R", rh_pct / 100.0)
-
-
-def advice_for(room: RoomInput, outdoor: OutdoorInput | None, target=None, year=None):
-    finding = assess.assess_room(room, outdoor, P, Accuracy())
-    return finding, advise.advise_room(finding, target, year)
 
 
 def kinds(advice) -> list[ActionKind]:
     return [a.kind for a in advice.actions]
-
-
-def action(advice, kind: ActionKind):
-    (found,) = [a for a in advice.actions if a.kind is kind]
-    return found
 
 
 _CLOSED = {DehumidifyWhy.OUTDOOR_WETTER, DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE}
@@ -80,18 +74,6 @@ def test_ventilation_flow_formula_worked_case():
     assert flow == pytest.approx(19.75)
     with pytest.raises(InputError):
         advise.ventilation_airflow(0.1, 0.004, 0.005, 0.79)
-
-
-def winter_bedroom(occupants=2, volume=30.0):
-    return RoomInput(
-        "Bedroom",
-        "bedroom",
-        18.0,
-        72.0,
-        (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
-        volume_m3=volume,
-        occupants=occupants,
-    )
 
 
 def test_winter_case_ventilation_wins_with_coolprop_numbers():
@@ -497,19 +479,6 @@ def test_raise_surface_when_the_factor_is_under_its_limit():
     assert numbers.target_surface_temp_c >= numbers.surface_temp_for_factor_limit_c
 
 
-def wet_skirting_hall():
-    return RoomInput(
-        "Hall",
-        "other",
-        19.0,
-        70.0,
-        (SurfaceInput("wall", 15.0),),
-        volume_m3=20.0,
-        occupants=0,
-        materials=(MaterialInput("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
-    )
-
-
 def test_find_source_first_when_materials_are_wet():
     """Wet materials put 'find the source' first, with each reading's dry-standard goal.
 
@@ -576,10 +545,6 @@ def test_find_source_last_for_a_high_humidity_class():
 def cautions(room, outdoor=None, year=None) -> dict:
     """The room's cautions by key."""
     return {c.key: c for c in advice_for(room, outdoor, year=year)[1].cautions}
-
-
-def plain(**observations):
-    return RoomInput("R", "living", 20.0, 50.0, observations=Observations(**observations))
 
 
 @pytest.mark.parametrize("area", [0.5, 3.0, 12.0])
@@ -1083,14 +1048,6 @@ def test_cold_pipe_is_insulated():
     assert any(c.key == "asbestos_lead" for c in advice.cautions)  # old lagging
 
 
-def wmo_frost_point_c(temp_c: float, rh_pct: float) -> float:
-    """WMO Guide No. 8 Annex 4.B (RH over water, e_w = 6.112 exp(17.62 t/(243.12 + t));
-    frost where e_i = 6.112 exp(22.46 t/(272.62 + t)) equals it) [R, secondary]."""
-    pw = rh_pct / 100.0 * 6.112 * math.exp(17.62 * temp_c / (243.12 + temp_c))
-    x = math.log(pw / 6.112)
-    return 272.62 * x / (22.46 - x)
-
-
 def test_frost_on_glazing_is_called_frost():
     """A pane below the frost point gathers frost now.
 
@@ -1155,24 +1112,6 @@ def test_visible_mould_without_an_area():
     found = cautions(plain(visible_mould=True))
     assert found["visible_mould"].area_m2 == 0.0
     assert "asbestos_lead" in found
-
-
-def drying_room(drying: bool):
-    materials = (
-        MaterialInput("party wall", "plasterboard", 46.0, "relative", 22.0),
-        MaterialInput("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
-    )
-    return RoomInput(
-        "Family room",
-        "basement",
-        20.0,
-        55.0,
-        (SurfaceInput("screed", 17.0, "floor"),),
-        volume_m3=50.0,
-        occupants=0,
-        materials=materials,
-        observations=Observations(water_category=1, drying_in_progress=drying),
-    )
 
 
 def test_drying_under_way_says_keep_drying():

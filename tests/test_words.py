@@ -12,6 +12,17 @@ import math
 import re
 
 import pytest
+from advice_cases import (
+    P,
+    action,
+    advice_for,
+    coolprop,
+    drying_room,
+    plain,
+    wet_skirting_hall,
+    winter_bedroom,
+    wmo_frost_point_c,
+)
 from CoolProp.HumidAirProp import HAPropsSI
 
 from survey import advise, assess, units, words
@@ -19,9 +30,7 @@ from survey import thresholds as th
 from survey.advise import ActionKind, Caution, DehumidifyWhy
 from survey.advise import cautions as caution_rules
 from survey.assess import (
-    Accuracy,
     Activity,
-    MaterialInput,
     Observations,
     OutdoorInput,
     RoomInput,
@@ -29,26 +38,11 @@ from survey.assess import (
 )
 from survey.words.display import SI_TEXT
 
-P = 101_325.0
 US_PINT_L = 0.473176  # 1 US liquid pint [R]
 G_PER_LB = 453.59237  # 1 lb = 0.45359237 kg exactly [R]
 GRAINS_PER_LB = 7000.0  # 7000 grains = 1 lb [R]
 BTU_H_PER_W = 3600.0 / 1055.05585262  # 1 IT Btu = 1055.05585262 J (from memory): 3.412142 [C]
 FT = 0.3048  # 1 ft = 0.3048 m exactly [R]
-
-
-def coolprop(output: str, temp_c: float, rh_pct: float) -> float:
-    return HAPropsSI(output, "T", temp_c + 273.15, "P", P, "R", rh_pct / 100.0)
-
-
-def advice_for(room: RoomInput, outdoor: OutdoorInput | None, target=None, year=None):
-    finding = assess.assess_room(room, outdoor, P, Accuracy())
-    return finding, advise.advise_room(finding, target, year)
-
-
-def action(advice, kind: ActionKind):
-    (found,) = [a for a in advice.actions if a.kind is kind]
-    return found
 
 
 def reason_of(room, outdoor, kind: ActionKind, display=words.SI) -> str:
@@ -66,18 +60,6 @@ def caution_texts(room, outdoor=None, year=None, display=words.SI) -> dict[str, 
     return {c.key: words.caution_text(c, display) for c in advice.cautions}
 
 
-def winter_bedroom(occupants=2, volume=30.0):
-    return RoomInput(
-        "Bedroom",
-        "bedroom",
-        18.0,
-        72.0,
-        (SurfaceInput("north wall", 11.0), SurfaceInput("inner wall", 15.5)),
-        volume_m3=volume,
-        occupants=occupants,
-    )
-
-
 def summer_basement(occupants=0):
     return RoomInput(
         "Basement",
@@ -88,10 +70,6 @@ def summer_basement(occupants=0):
         volume_m3=60.0,
         occupants=occupants,
     )
-
-
-def plain(**observations):
-    return RoomInput("R", "living", 20.0, 50.0, observations=Observations(**observations))
 
 
 # --- the display ------------------------------------------------------------------------------
@@ -506,14 +484,6 @@ def test_target_basis_says_frost_point_below_0_c():
 # --- glazing, frames, pipes --------------------------------------------------------------------
 
 
-def wmo_frost_point_c(temp_c: float, rh_pct: float) -> float:
-    """WMO Guide No. 8 Annex 4.B (RH over water, e_w = 6.112 exp(17.62 t/(243.12 + t));
-    frost where e_i = 6.112 exp(22.46 t/(272.62 + t)) equals it) [R, secondary]."""
-    pw = rh_pct / 100.0 * 6.112 * math.exp(17.62 * temp_c / (243.12 + temp_c))
-    x = math.log(pw / 6.112)
-    return 272.62 * x / (22.46 - x)
-
-
 def wmo_rh_free_of_frost_pct(surface_c: float, air_c: float) -> float:
     """Room RH (over water) at which a surface at ``surface_c`` below 0 °C is at the frost
     point: 100 e_i(surface) / e_w(air), WMO Guide No. 8 formulas [R, secondary]."""
@@ -791,19 +761,6 @@ def test_ip_raise_surface_text_is_in_fahrenheit():
 # --- sources, drying, humidity class -----------------------------------------------------------
 
 
-def wet_skirting_hall():
-    return RoomInput(
-        "Hall",
-        "other",
-        19.0,
-        70.0,
-        (SurfaceInput("wall", 15.0),),
-        volume_m3=20.0,
-        occupants=0,
-        materials=(MaterialInput("skirting", "pine", 28.0, "mc_pct", 11.0, True),),
-    )
-
-
 def test_find_source_names_the_wet_reading_and_the_rot_risk():
     """The source text names the wet reading, its goal and the rot risk.
 
@@ -837,24 +794,6 @@ def test_condensation_seen_but_not_explained_is_said():
         "Find and deal with the source of moisture before drying or decorating: condensation "
         "was seen, but the measured surfaces are clear of the dew point: it may come from "
         "moments of higher humidity (cooking, drying laundry) or from water getting in."
-    )
-
-
-def drying_room():
-    materials = (
-        MaterialInput("party wall", "plasterboard", 46.0, "relative", 22.0),
-        MaterialInput("skirting", "softwood", 16.0, "mc_pct", 11.5, timber=True),
-    )
-    return RoomInput(
-        "Family room",
-        "basement",
-        20.0,
-        55.0,
-        (SurfaceInput("screed", 17.0, "floor"),),
-        volume_m3=50.0,
-        occupants=0,
-        materials=materials,
-        observations=Observations(water_category=1, drying_in_progress=True),
     )
 
 
