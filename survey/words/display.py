@@ -10,6 +10,7 @@ import math
 from dataclasses import dataclass
 
 from survey import thresholds as th
+from survey.advise.common import rh_limit_shown
 
 #: SI text per quantity: (decimals, factor from the core's SI unit, unit shown). The same
 #: as :func:`survey.units.format_value` in SI (a test holds them equal).
@@ -183,11 +184,9 @@ def round_up_temperature_c(value_c: float, ip: bool = False) -> float:
     return math.ceil(value_c * 10.0 - 1e-6) / 10.0
 
 
-def round_down_rh(limit_pct: float) -> int:
-    """A highest-safe RH as shown: whole percent, rounded down (the safe side)."""
-    import math
-
-    return math.floor(limit_pct + 1e-9)
+#: A highest-safe RH as shown: whole percent, rounded down (the safe side) — the advice's own
+#: rounding, so the words and the target the advice holds agree.
+round_down_rh = rh_limit_shown
 
 
 SI = Display("si")
