@@ -58,7 +58,7 @@ from survey.safe_text import count_cut, shorten
 
 #: The schema version this program writes. Older versions are upgraded on load by the
 #: migrations in :mod:`survey.store.migrations`; newer ones are refused.
-SCHEMA_VERSION = 1
+SCHEMA_VERSION = 2
 
 # --- choices -----------------------------------------------------------------------------
 
@@ -122,6 +122,10 @@ EquipmentKind = Literal[
     "air_scrubber",
     "other",
 ]
+#: The test conditions dehumidifier ratings are stated at, by inlet dry bulb and RH:
+#: ``"26.7c_60"`` (80 °F, 60 % RH), ``"18.3c_60"`` (65 °F, 60 % RH), ``"22.8c_60"``
+#: (73 °F, 60 % RH), ``"27c_60"`` and ``"30c_80"``. Their sources live with the thresholds.
+RatingCondition = Literal["26.7c_60", "18.3c_60", "22.8c_60", "27c_60", "30c_80"]
 
 # --- constrained scalars -----------------------------------------------------------------
 
@@ -209,6 +213,12 @@ class Site(Struct, **_RECORD):
     #: An open-flued boiler, water heater, stove or fire anywhere in the building: true,
     #: false, or not said (null). A room may say for itself.
     flued_appliance: bool | None = None
+    #: The design month the colder-month projection looks at: its mean outdoor temperature
+    #: and RH, and the indoor temperature held in it (``None``: the room's as measured).
+    #: With no design month the report projects to a stated default month of its own.
+    design_outdoor_temp_c: Annotated[float, Meta(ge=-60.0, le=40.0)] | None = None
+    design_outdoor_rh_pct: Annotated[float, Meta(ge=1.0, le=100.0)] | None = None
+    design_indoor_temp_c: Annotated[float, Meta(ge=0.0, le=40.0)] | None = None
     notes: Notes = ""
 
 
@@ -341,6 +351,19 @@ class Equipment(Struct, **_RECORD):
     water_removed_l: Annotated[float, Meta(ge=0.0, le=100_000.0)] | None = None
     #: Air leaving a dehumidifier, for the humidity-ratio drop across it.
     outlet: AirReading | None = None
+    #: Air entering it; ``None``: the room's air reading is taken as the inlet.
+    inlet: AirReading | None = None
+    #: Hours over which ``water_removed_l`` was collected; ``None``: since the previous
+    #: visit's reading of the same unit (or since the visit before, if none).
+    run_hours: Annotated[float, Meta(gt=0.0, le=10_000.0)] | None = None
+    #: Electrical power drawn while running (W), or energy used over ``run_hours`` (kWh).
+    power_w: Annotated[float, Meta(gt=0.0, le=100_000.0)] | None = None
+    energy_kwh: Annotated[float, Meta(gt=0.0, le=1_000_000.0)] | None = None
+    #: The rated energy factor, litres per kWh, at ``rating_condition``.
+    rated_energy_factor_l_per_kwh: Annotated[float, Meta(gt=0.0, le=20.0)] | None = None
+    #: The test condition the rating was stated at (a key of ``RatingCondition``);
+    #: ``None``: not known.
+    rating_condition: RatingCondition | None = None
     notes: Notes = ""
 
 
@@ -396,6 +419,10 @@ class LogSeries(Struct, **_RECORD):
     room: Id | None  #: ``Room.id``; ``None`` for an outdoor logger
     source: Name  #: the imported file's name
     samples: list[LogSample]
+    #: The location label of the surface the logger's probe sat on (a surface reading's
+    #: ``location`` in the same room): then the samples are surface temperature and surface
+    #: RH. ``None``: the logger measured the room's air (or the outdoor air).
+    surface: Name | None = None
     instrument: Id | None = None
     source_sha256: Sha256 | None = None  #: of the imported file, to spot a repeated import
     imported_at: dt.datetime | None = None

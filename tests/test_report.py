@@ -240,7 +240,7 @@ def _calm_survey():
     import json
 
     doc = {
-        "schema_version": 1,
+        "schema_version": 2,
         "site": {"reference": "Calm", "year_built": 2010},
         "rooms": [{"id": "r", "name": "Study", "use": "office", "volume_m3": 30.0}],
         "visits": [

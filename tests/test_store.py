@@ -758,7 +758,7 @@ def test_newer_version_does_not_offer_the_backup(tmp_path):
     path = tmp_path / "s.json"
     store.save_survey(store.new_survey("x"), path)
     store.save_survey(store.new_survey("x"), path)
-    path.write_bytes(_with(_set(["schema_version"], 2)))
+    path.write_bytes(_with(_set(["schema_version"], model.SCHEMA_VERSION + 1)))
     with pytest.raises(SurveyFileError) as err:
         store.load_survey(path)
     assert "newer" in err.value.problem and ".bak" not in err.value.problem
@@ -857,3 +857,35 @@ def test_schema_0_file_with_a_bad_value_names_the_place(tmp_path):
         store.load_survey(path)
     assert err.value.where == "visits[0].rooms[0].air.dry_bulb_c"
     assert "after upgrading from schema version 0" in err.value.problem
+
+
+@pytest.mark.parametrize("name", ["basement-burst-pipe-drying", "winter-flat-bedroom-mould"])
+def test_a_version_1_file_loads_unchanged_as_version_2(tmp_path, name):
+    """Version 2 only added optional fields: a version-1 file gives the same records."""
+    source = Path("example_sites") / f"{name}.json"
+    doc = json.loads(source.read_text())
+    doc["schema_version"] = 1
+    for visit in doc["visits"]:
+        for room in visit["rooms"]:
+            for unit in room.get("equipment", []):
+                for key in ("rated_energy_factor_l_per_kwh", "rating_condition", "run_hours"):
+                    unit.pop(key, None)
+                unit.pop("power_w", None)
+    path = tmp_path / "v1.json"
+    path.write_text(json.dumps(doc))
+    upgraded = store.load_survey(path)
+    assert upgraded.schema_version == 2
+    expected = store.load_survey(source)
+    for visit in expected.visits:
+        for room in visit.rooms:
+            room.equipment = [
+                msgspec.structs.replace(
+                    e,
+                    rated_energy_factor_l_per_kwh=None,
+                    rating_condition=None,
+                    run_hours=None,
+                    power_w=None,
+                )
+                for e in room.equipment
+            ]
+    assert upgraded == expected

@@ -146,3 +146,12 @@ def _upgrade_0_to_1(doc: dict[str, Any]) -> dict[str, Any]:
         "logs": [],
         "created_at": doc.get("created_at"),
     }
+
+
+@migration(1)
+def _upgrade_1_to_2(doc: dict[str, Any]) -> dict[str, Any]:
+    """Version 2 added optional fields only (the site's design month, a dehumidifier's
+    inlet, run time, power, energy and rating, a logger's surface); nothing to convert."""
+    if not isinstance(doc, dict):
+        raise TypeError("the document is not an object")
+    return doc
