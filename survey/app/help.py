@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from pathlib import Path
+
 from rich.text import Text
 from textual.binding import Binding
 from textual.containers import VerticalScroll
@@ -9,7 +11,8 @@ from textual.screen import Screen
 from textual.widgets import Footer, Static
 
 WALK = (
-    "Walk: site (F2) → visit (F3) → rooms (F4) → each room → findings (F5). Enter "
+    "Walk: site (F2) → visit (F3) → rooms (F4) → each room → findings (F5) → report "
+    "(F8). Enter "
     "commits a field and moves to the next, Tab / Shift+Tab move, Escape goes back. "
     "Every committed field is saved at once; the bottom line says when. A value that "
     "is not accepted shows a message under its field and is not saved. Ctrl+P opens "
@@ -23,10 +26,11 @@ def key_text(binding: Binding) -> str:
     return " / ".join(format_key(k) for k in binding.key.split(","))
 
 
-def help_text() -> Text:
-    from survey.app import main, room, rooms, start, tables, visit, walk
+def sections() -> list[tuple[str, list[Binding]]]:
+    """Each screen's (or widget's) title and its bindings, as the help screen lists them."""
+    from survey.app import main, report_view, room, rooms, start, tables, visit, walk
 
-    sections = [
+    return [
         ("Everywhere", main.SurveyApp.BINDINGS),
         ("Start screen", start.StartScreen.BINDINGS),
         ("Walk screens", walk.WalkScreen.BINDINGS),
@@ -37,13 +41,27 @@ def help_text() -> Text:
         ("Material table", tables.MaterialTable.BINDINGS),
         ("Equipment table", tables.EquipmentTable.BINDINGS),
         ("Instruments (site)", tables.InstrumentTable.BINDINGS),
+        ("Report", report_view.ReportScreen.BINDINGS),
     ]
+
+
+def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) -> Text:
+    """The keys of every screen (with the user's own keys from ``keymap``); ``folder`` is
+    where the keys file is read from."""
+    from survey.app.keymap import FILE
+
+    keymap = keymap or {}
+    where = str(folder / FILE) if folder is not None else f"{FILE} in the app's data folder"
     out = Text(WALK + "\n")
-    for title, bindings in sections:
+    for title, bindings in sections():
         out.append(f"\n{title}\n", "bold")
         for b in bindings:
-            out.append(f"  {key_text(b):<18} {b.description}  ({b.id})\n")
-    out.append("\nKeys can be remapped by binding id (shown in brackets).\n")
+            key = key_text(b) if b.id not in keymap else key_text(Binding(keymap[b.id], ""))
+            out.append(f"  {key:<18} {b.description}  ({b.id})\n")
+    out.append(
+        "\nKeys can be remapped by binding id (shown in brackets): write them in "
+        f'{where}, e.g. {{"go_report": "f9"}}, and start the app again.\n'
+    )
     return out
 
 
@@ -53,7 +71,7 @@ class HelpScreen(Screen):
     def compose(self):
         yield Static(Text("Keys", style="bold"), classes="screen-title")
         with VerticalScroll(id="help-scroll", can_focus=True):
-            yield Static(help_text())
+            yield Static(help_text(self.app.user_keys, self.app.data_dir))
         yield Footer()
 
     def on_mount(self) -> None:

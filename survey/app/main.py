@@ -42,6 +42,7 @@ class SurveyApp(App):
         Binding("f4", "go('rooms')", "Rooms", id="go_rooms", priority=True),
         Binding("f5", "go('findings')", "Findings", id="go_findings", priority=True),
         Binding("f6", "quick_check", "Quick check", id="quick_check", priority=True),
+        Binding("f8", "go('report')", "Report", id="go_report", priority=True),
         Binding("ctrl+s", "save", "Save now", id="save", priority=True, show=False),
         Binding("ctrl+q", "quit", "Quit", id="quit", priority=True),
     ]
@@ -73,10 +74,17 @@ class SurveyApp(App):
         self.status_kind = ""
         self._start = (path, create, demo, fresh_demo)
         self._retry_timer = None
+        #: The user's own keys (binding id to key) from the keys file in the data folder.
+        self.user_keys: dict[str, str] = {}
 
     # --- start-up --------------------------------------------------------------------------
 
     def on_mount(self) -> None:
+        from survey.app.keymap import load
+
+        self.user_keys, problems = load(self.data_dir)
+        if self.user_keys:
+            self.set_keymap(self.user_keys)
         path, create, demo, fresh = self._start
         opened = False
         if demo:
@@ -85,6 +93,8 @@ class SurveyApp(App):
             opened = self.create_survey(path, create) if create else self.open_survey(path)
         if not opened:
             self.show_start()
+        if problems:
+            self.show_status("Keys file: " + "; ".join(problems) + ".", "error")
 
     @property
     def display_units(self):
@@ -202,6 +212,7 @@ class SurveyApp(App):
             "visit": ("visit", "VisitScreen"),
             "rooms": ("rooms", "RoomListScreen"),
             "findings": ("findings", "FindingsScreen"),
+            "report": ("report_view", "ReportScreen"),
         }[name]
         screen = getattr(importlib.import_module(f"survey.app.{module}"), class_name)
         base = self._walk_base

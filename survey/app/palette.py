@@ -17,6 +17,7 @@ class SurveyCommands(Provider):
                 ("walk: visit", partial(app.go, "visit")),
                 ("walk: rooms", partial(app.go, "rooms")),
                 ("walk: site findings", partial(app.go, "findings")),
+                ("report: preview and write", partial(app.go, "report")),
                 ("file: save now", app.action_save),
             ]
         screen = self.screen
@@ -30,6 +31,12 @@ class SurveyCommands(Provider):
             method = getattr(screen, f"action_{name}", None)
             if method is not None:
                 found.append((title, method))
+        write = getattr(screen, "action_write", None)
+        if write is not None:
+            found += [
+                ("report: write the Markdown report", partial(write, "md")),
+                ("report: write the HTML report", partial(write, "html")),
+            ]
         return found
 
     async def discover(self):
