@@ -73,6 +73,7 @@ ReadQuantity = Literal[
     "pressure",
     "length",
     "volume",
+    "area",
     "number",
 ]
 
@@ -123,6 +124,9 @@ _VOLUME_ALIASES = {"m3": "m**3", "m^3": "m**3", "m³": "m**3", "cu m": "m**3",
                    "ft3": "ft**3", "ft^3": "ft**3", "ft³": "ft**3", "cu ft": "ft**3",
                    "cuft": "ft**3", "l": "L", "litre": "L", "liter": "L", "litres": "L",
                    "liters": "L"}
+_AREA_ALIASES = {"m2": "m**2", "m^2": "m**2", "m²": "m**2", "sq m": "m**2", "sqm": "m**2",
+                 "ft2": "ft**2", "ft^2": "ft**2", "ft²": "ft**2", "sq ft": "ft**2",
+                 "sqft": "ft**2", "cm2": "cm**2", "cm²": "cm**2"}
 # fmt: on
 _RH_UNITS = frozenset({"", "%", "percent", "pct", "% rh", "%rh", "rh"})
 _DEGREE_SIGNS = ("°", "º", "deg")
@@ -136,6 +140,7 @@ _ACCEPTED: dict[ReadQuantity, str] = {
     "29.92 inHg",
     "length": "a number in m (SI) or ft (IP), or with a unit: 350 m, 1150 ft",
     "volume": "a number in m³ (SI) or ft³ (IP), or with a unit: 30, 30 m3, 1060 ft3",
+    "area": "a number in m² (SI) or ft² (IP), or with a unit: 0.6, 0.6 m2, 6 sq ft",
     "number": "a number such as 3, 2.5 or 2,5",
 }
 _KIND_WORDS: dict[ReadQuantity, str] = {
@@ -145,6 +150,7 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
     "pressure": "pressure",
     "length": "length",
     "volume": "volume",
+    "area": "area",
     "number": "number",
 }
 # What a value is said to be "read as", in the unit the range limits are written in:
@@ -153,7 +159,7 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
 _READ_AS_UNIT: dict[ReadQuantity, tuple[str, float]] = {
     "temperature": ("°C", 1.0), "temperature_difference": ("K", 1.0),
     "relative_humidity": ("%", 1.0), "pressure": ("hPa", 0.01), "length": ("m", 1.0),
-    "volume": ("m³", 1.0), "number": ("", 1.0),
+    "volume": ("m³", 1.0), "area": ("m²", 1.0), "number": ("", 1.0),
 }
 # fmt: on
 
@@ -374,6 +380,12 @@ def _volume(number: float, unit: str, field: str, text: object, system: str) -> 
     return _convert(number, unit, "m**3", field, text, "volume", _VOLUME_ALIASES)
 
 
+def _area(number: float, unit: str, field: str, text: object, system: str) -> float:
+    if not unit:
+        return number if system == "si" else number * 0.3048**2
+    return _convert(number, unit, "m**2", field, text, "area", _AREA_ALIASES)
+
+
 def _plain(number: float, unit: str, field: str, text: object, system: str) -> float:
     if unit:
         raise InputError(field, text, f"expected {_ACCEPTED['number']} with no unit")
@@ -387,13 +399,14 @@ _READERS: dict[ReadQuantity, Callable[[float, str, str, object, str], float]] = 
     "pressure": _pressure,
     "length": _length,
     "volume": _volume,
+    "area": _area,
     "number": _plain,
 }
 
 
 def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = "si") -> Reading:
     """Read ``text`` as ``quantity`` (a bare number in ``system``'s unit): a :class:`Reading`
-    with the value in the core's SI unit (°C, K, %, Pa, m, m³) and what it was read as.
+    with the value in the core's SI unit (°C, K, %, Pa, m, m³, m²) and what it was read as.
 
     Raises InputError naming ``field``, the text and what is accepted; ranges are not
     checked here (see :meth:`Reading.checked`)."""
@@ -461,6 +474,7 @@ _DISPLAY = {
     "density": (("kg/m**3", "kg/m³"), ("lb/ft**3", "lb/ft³")),
     "length": (("m", "m"), ("ft", "ft")),
     "volume": (("m**3", "m³"), ("ft**3", "ft³")),
+    "area": (("m**2", "m²"), ("ft**2", "ft²")),
     "airflow": (("m**3/h", "m³/h"), ("ft**3/min", "cfm")),
     "water_rate": (("L/day", "L/day"), ("pint/day", "pt/day")),
 }
@@ -469,7 +483,7 @@ _CORE_UNIT = {
     "temperature": "degC", "temperature_difference": "kelvin", "humidity_ratio": "kg/kg",
     "pressure": "Pa", "vapour_pressure": "Pa", "absolute_humidity": "g/m**3",
     "enthalpy": "J/kg", "specific_volume": "m**3/kg", "density": "kg/m**3", "length": "m",
-    "volume": "m**3", "airflow": "m**3/h", "water_rate": "L/day",
+    "volume": "m**3", "area": "m**2", "airflow": "m**3/h", "water_rate": "L/day",
 }
 _DECIMALS = {
     ("temperature", "si"): 1, ("temperature", "ip"): 1,
@@ -483,6 +497,7 @@ _DECIMALS = {
     ("density", "si"): 3, ("density", "ip"): 4,
     ("length", "si"): 0, ("length", "ip"): 0,
     ("volume", "si"): 1, ("volume", "ip"): 0,
+    ("area", "si"): 1, ("area", "ip"): 0,
     ("airflow", "si"): 0, ("airflow", "ip"): 0,
     ("water_rate", "si"): 1, ("water_rate", "ip"): 1,
 }

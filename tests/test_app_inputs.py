@@ -44,6 +44,13 @@ BAD_INPUTS = [
     ("visit", "visit-started", "yesterday", "yesterday"),
     ("visit", "outdoor-temp", "inf", "inf"),
     ("visit", "outdoor-rh", "nan", "nan"),
+    ("visit", "visit-pressure", "12 kg", "12 kg"),  # wrong unit
+    ("visit", "visit-pressure", "5 hPa", "5 hPa"),  # below the pressure domain
+    ("visit", "visit-photos", "../x.jpg", ".."),
+    ("room", "room-level", "1.5", "1.5"),  # a storey is a whole number
+    ("room", "room-floor-area", "3 m3", "3 m3"),  # a volume, not an area
+    ("room", "room-height", "-2", "-2"),
+    ("room", "room-showers-per-day", "lots", "lots"),
     ("site", "site-reference", "", "empty"),
 ]
 
@@ -193,3 +200,35 @@ async def test_control_characters_from_a_file_are_made_visible(tmp_path):
         await pilot.pause()
         cell = app.screen.query_one("#rooms").get_row_at(0)[1].plain
         assert cell == "Bed\\x07room"
+
+
+async def test_the_room_and_visit_details_are_saved_in_si(tmp_path):
+    """Storey, floor area (typed in ft², stored in m²), height, showers a day, heating on,
+    the visit's pressure, notes and photos: each committed value is in the saved file."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-level", "3")
+        await type_into(pilot, app, "room-floor-area", "100 sq ft")
+        await type_into(pilot, app, "room-height", "2.4")
+        await type_into(pilot, app, "room-showers-per-day", "2")
+        await type_into(pilot, app, "seen-area", "6 ft2")
+        app.screen.query_one("#visit-heating").value = "no"
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        await goto(pilot, app, "visit")
+        await type_into(pilot, app, "visit-pressure", "29.5 inHg")
+        await type_into(pilot, app, "visit-notes", "Windy; [b]not[/b] bold")
+        await type_into(pilot, app, "visit-photos", "a.jpg, b.jpg")
+    saved = store.load_survey(path)
+    room, visit = saved.rooms[0], saved.visits[0]
+    assert room.level == 3
+    assert room.floor_area_m2 == pytest.approx(100 * 0.3048**2)  # exact foot
+    assert room.height_m == 2.4 and room.showers_per_day == 2.0
+    record = visit.room_visit(room.id)
+    assert record.heating_on is False
+    assert record.observations.mould_area_m2 == pytest.approx(6 * 0.3048**2)
+    assert visit.pressure_pa == pytest.approx(29.5 * 3386.389)  # NIST SP 811 inHg (32 °F)
+    assert visit.notes == "Windy; [b]not[/b] bold" and visit.photos == ["a.jpg", "b.jpg"]

@@ -390,6 +390,7 @@ def test_a_number_beyond_the_float_range_is_refused():
             "pressure",
             "length",
             "volume",
+            "area",
             "number",
         ]
     ),
@@ -422,6 +423,9 @@ def test_any_text_reads_as_a_finite_number_or_is_refused_in_one_short_line(text,
         ("temperature_difference", "10F", "si", "5.56 K"),  # 10 / 1.8
         ("pressure", "29.92 inHg", "si", "1013.21 hPa"),  # × 33.86389 hPa per inHg (NIST SP 811)
         ("length", "1150 ft", "si", "350.52 m"),  # × 0.3048 m per ft
+        ("area", "6 sq ft", "si", "0.557 m²"),  # 6 × 0.3048² = 0.5574 m² (exact foot)
+        ("area", "6", "ip", "0.557 m²"),  # a bare number is ft² in IP
+        ("area", "500 cm2", "si", "0.05 m²"),  # 1 cm² = 1e-4 m² (definition)
         ("temperature", "21", "si", ""),  # nothing converted: nothing to say
         ("temperature", "21 °C", "ip", ""),
         ("temperature", "-40", "ip", ""),  # −40 °F is −40 °C

@@ -12,7 +12,7 @@ from textual.widgets import Checkbox, Select, Static
 
 from survey import model, words
 from survey import thresholds as th
-from survey.app import equipment, judging, walk
+from survey.app import equipment, judging, room_details, walk
 from survey.app.air import AirPair
 from survey.app.fields import Field, Tick, plain
 from survey.app.panel import LivePanel
@@ -128,7 +128,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     id="room-occupants",
                     disabled=ro,
                 )
+                yield from room_details.room_fields(self, room, system, ro)
                 yield Static(Text("Air", style="bold"))
+                yield from room_details.visit_fields(record, ro)
                 yield AirPair(
                     "room",
                     record.air if record else None,
@@ -151,11 +153,11 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield Field(
                     "Mould area",
-                    "" if seen.mould_area_m2 is None else f"{seen.mould_area_m2:g}",
-                    walk.optional(walk.number("Mould area")),
+                    walk.shown("area", seen.mould_area_m2, system),
+                    walk.optional(walk.area("Mould area", system)),
                     self._set_seen("mould_area_m2", "Mould area"),
                     id="seen-area",
-                    placeholder="m²",
+                    placeholder="m²" if system == "si" else "ft²",
                     disabled=ro,
                 )
                 yield Tick(
@@ -200,7 +202,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 yield Field(
                     "Photos",
                     ", ".join(record.photos) if record else "",
-                    self._photos,
+                    walk.photo_names("Photos"),
                     self._set_record("photos", "Photos"),
                     id="room-photos",
                     placeholder="bed1-corner.jpg, …",
@@ -366,14 +368,6 @@ class RoomScreen(RoomTables, walk.WalkScreen):
 
         return commit
 
-    def _photos(self, text: str) -> list[str]:
-        names = [p.strip() for p in walk.text_parser("Photos")(text).split(",") if p.strip()]
-        for name in names:
-            problem = model.photo_name_problem(name)
-            if problem:
-                raise InputError("Photos", name, problem)
-        return names
-
     def _set_air(self, reading: model.AirReading) -> str:
         reading, warning = walk.stamped(reading, self.app.clock(), self.visit, self.editor.survey)
         self._replace_record("air reading", air=reading)
@@ -393,7 +387,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
     def _select(self, event: Select.Changed) -> None:
         if self.read_only:
             return
-        if event.select.id == "room-use" and event.value != self.room.use:
+        if event.select.id in room_details.FLAG_SELECTS:
+            room_details.flag_changed(self, event.select.id, event.value)
+        elif event.select.id == "room-use" and event.value != self.room.use:
             self._set_room("use", "Use")(event.value)
         elif event.select.id == "seen-odour":
             value = event.value or None

@@ -66,6 +66,32 @@ class VisitScreen(walk.WalkScreen):
                         id=f"visit-{name}",
                         disabled=ro,
                     )
+                yield Field(
+                    "Pressure",
+                    walk.shown("pressure", visit.pressure_pa, system),
+                    walk.optional(walk.pressure("Barometric pressure", system)),
+                    self._setter("pressure_pa", "Barometric pressure"),
+                    id="visit-pressure",
+                    placeholder="measured on site (else from the altitude)",
+                    disabled=ro,
+                )
+                yield Field(
+                    "Notes",
+                    visit.notes,
+                    walk.text_parser("Notes"),
+                    self._setter("notes", "Notes"),
+                    id="visit-notes",
+                    disabled=ro,
+                )
+                yield Field(
+                    "Photos",
+                    ", ".join(visit.photos),
+                    walk.photo_names("Photos"),
+                    self._setter("photos", "Photos"),
+                    id="visit-photos",
+                    placeholder="front-elevation.jpg, …",
+                    disabled=ro,
+                )
                 yield Static(Text("Outdoor reading", style="bold"))
                 yield AirPair(
                     "outdoor",
@@ -92,6 +118,8 @@ class VisitScreen(walk.WalkScreen):
             visits = self.editor.survey.visits
             visits[self.editor.visit_index] = walk.checked(self.visit, label, **{name: value})
             self.committed()
+            if name == "pressure_pa":
+                self.show_state(self.visit.outdoor)
             return ""
 
         return commit

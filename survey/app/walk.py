@@ -217,6 +217,49 @@ def whole(name: str) -> Callable[[str], int]:
     return run
 
 
+def pressure(name: str, system: str) -> Callable[[str], float]:
+    """A barometric pressure, range-checked as the psychrometrics need it."""
+    from survey import psychro
+
+    return lambda text: units.read("pressure", text, name, system).checked(psychro.check_pressure)
+
+
+def length(name: str, system: str) -> Callable[[str], float]:
+    return lambda text: units.parse_length(text, name, system)
+
+
+def area(name: str, system: str) -> Callable[[str], float]:
+    """An area in m² from ``0.6``, ``0.6 m2``, ``6 sq ft`` (a bare number in the survey's
+    unit)."""
+    return lambda text: units.read("area", text, name, system).value
+
+
+def photo_names(name: str) -> Callable[[str], list[str]]:
+    """File names separated by commas, each checked as a photo name the survey may hold."""
+
+    def run(text: str) -> list[str]:
+        names = [p.strip() for p in text_parser(name)(text).split(",") if p.strip()]
+        for photo in names:
+            problem = model.photo_name_problem(photo)
+            if problem:
+                raise InputError(name, photo, problem)
+        return names
+
+    return run
+
+
+#: A yes / no / not recorded choice, for a Select (``None``: not recorded).
+YES_NO = [("not recorded", ""), ("yes", "yes"), ("no", "no")]
+
+
+def yes_no_value(choice: object) -> bool | None:
+    return None if choice in ("", None) else choice == "yes"
+
+
+def yes_no_choice(value: bool | None) -> str:
+    return "" if value is None else ("yes" if value else "no")
+
+
 def volume_or_dimensions(name: str, system: str) -> Callable[[str], float]:
     """A volume (``30``, ``30 m3``) or dimensions multiplied out (``4.2 x 3.1 x 2.4``)."""
 
@@ -271,6 +314,6 @@ def shown(quantity: str, value_si: float | None, system: str) -> str:
     """A stored SI value as the text an input starts with, in the survey's units."""
     if value_si is None:
         return ""
-    if system == "si" or quantity in ("rh", "number"):
+    if quantity in ("rh", "number"):
         return f"{round(value_si, 2):g}"
     return f"{round(units.to_display(quantity, value_si, system), 2):g}"

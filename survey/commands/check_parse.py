@@ -94,32 +94,16 @@ def _parse_volume(text: str, system: units.UnitSystem) -> float:
     return reading.value
 
 
-_FT2_PER_M2 = 1.0 / 0.3048**2  # 1 ft = 0.3048 m exactly
-
-
 def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
     """A visible-mould area in m² (a bare number is m² in si, ft² in ip; "m2", "ft2",
     "sq ft" may follow it), above 0 and up to the survey file's limit."""
-    raw = str(text).strip()
-    lowered = raw.lower()
-    factor = 1.0 if system == "si" else 1.0 / _FT2_PER_M2
-    for suffix, to_m2 in (
-        ("sq ft", 1.0 / _FT2_PER_M2),
-        ("ft2", 1.0 / _FT2_PER_M2),
-        ("ft²", 1.0 / _FT2_PER_M2),
-        ("m2", 1.0),
-        ("m²", 1.0),
-    ):
-        if lowered.endswith(suffix):
-            raw, factor = raw[: -len(suffix)].strip(), to_m2
-            break
     unit = "m²" if system == "si" else "ft²"
     allowed = (
         f"an area above 0 and up to {domain.MOULD_AREA_MAX_M2:g} m², e.g. 0.5 "
         f"(a bare number is {unit}; m2 or ft2 may follow it)"
     )
     try:
-        area = units.parse_number(raw, "--mould-area") * factor
+        area = units.read("area", text, "--mould-area", system).value
     except InputError:
         raise InputError("--mould-area", text, allowed) from None
     if math.isnan(area) or not 0.0 < area <= domain.MOULD_AREA_MAX_M2:
