@@ -23,6 +23,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+import msgspec
+
 from survey import advise, assess, model
 from survey import thresholds as th
 
@@ -37,6 +39,15 @@ class VisitAssessment:
     advice: advise.SiteAdvice
     room_ids: tuple[str, ...]  #: the survey room id of each finding, in order
     accuracy_entered: dict[str, bool]  #: which accuracies came from the survey's instruments
+
+
+@dataclass(frozen=True)
+class RoomAssessment:
+    """One room of a visit judged, as :func:`assess_visit` judges it within the visit."""
+
+    finding: assess.RoomFinding
+    advice: advise.RoomAdvice
+    cautions: tuple[advise.Caution, ...]  #: the cautions of a visit of this room alone
 
 
 #: Equipment that, running in a room, means the room is being dried (the source dealt with).
@@ -286,3 +297,45 @@ def assess_visit(
             key: entered.get(key, False) for key in ("air_temp_k", "rh_pct", "surface_temp_k")
         },
     )
+
+
+def assess_room(
+    survey: model.Survey,
+    visit_index: int,
+    room_id: str,
+    candidate: model.RoomVisit | None = None,
+    target_rh_pct: float | None = None,
+) -> RoomAssessment | None:
+    """One room of a stored visit judged as :func:`assess_visit` judges it (``candidate``
+    in place of its stored record, e.g. for a preview of a value being typed); ``None``
+    when the room has no air reading on that visit.
+
+    Only this room and the reference rooms (whose dry standards count for it) are judged,
+    so a room of a large survey takes the time of a small one."""
+    if not survey.visits:
+        return None
+    visit = survey.visits[visit_index]
+    record = candidate if candidate is not None else visit.room_visit(room_id)
+    if record is None:
+        return None
+    references = {r.id for r in survey.rooms if r.is_reference}
+    visit = msgspec.structs.replace(
+        visit,
+        rooms=[rv for rv in visit.rooms if rv.room in references and rv.room != room_id] + [record],
+    )
+    rooms_by_id = {r.id: r for r in survey.rooms}
+    judged = room_input(
+        survey, visit, record, {}, rooms_by_id, _reference_visits(visit, rooms_by_id)
+    )
+    if judged is None:
+        return None
+    outdoor = (
+        None
+        if visit.outdoor is None
+        else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
+    )
+    site = assess.assess_site(
+        [judged], outdoor, model.pressure_pa_for(survey, visit), year_built=survey.site.year_built
+    )
+    advice = advise.advise_site(site, target_rh_pct)
+    return RoomAssessment(site.rooms[0], advice.rooms[0], advice.cautions)

@@ -129,6 +129,7 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await field(pilot, "Day 1")
         await press(pilot, "tab")  # inspector: the site's
         await field(pilot, "overcast")
+        await press(pilot, "enter", "enter", "enter")  # pressure, notes, photos: none
         await field(pilot, "3")  # outdoor °C
         await field(pilot, "88")  # outdoor RH %
         await settle(pilot, app)

@@ -297,3 +297,23 @@ def test_wet_drying_room_surfaces_are_not_judged_by_temperature_factor():
     }
     advice = judged.advice.rooms[0]
     assert "raise_surface_temperature" not in _kinds(advice)
+
+
+@pytest.mark.parametrize(
+    "name", ["winter-flat-bedroom-mould", "basement-burst-pipe-drying", "coastal-cottage-summer"]
+)
+def test_a_room_judged_alone_is_judged_as_within_its_visit(name):
+    """assess_room (the app's live panel) gives each room of each stored visit the same
+    finding and advice as assess_visit gives it among all the rooms of the visit."""
+    survey = store.load_survey(EXAMPLES / f"{name}.json")
+    for index in range(len(survey.visits)):
+        whole = evaluate.assess_visit(survey, index)
+        for finding, advice, room_id in zip(
+            whole.findings.rooms, whole.advice.rooms, whole.room_ids, strict=True
+        ):
+            alone = evaluate.assess_room(survey, index, room_id)
+            assert alone is not None
+            assert alone.finding == finding and alone.advice == advice
+        unread = {r.id for r in survey.rooms} - set(whole.room_ids)
+        for room_id in unread:
+            assert evaluate.assess_room(survey, index, room_id) is None

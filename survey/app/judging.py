@@ -1,70 +1,25 @@
 """Non-UI helpers the screens need around the core's judgement of a stored visit.
 
-``judge_room`` judges one room of a visit the way :func:`survey.evaluate.assess_visit`
-judges the whole visit (the same room inputs, dry standards and pressure), so a room's live
-panel is quick in a room of many surfaces. The rest is bookkeeping of the walk: which rooms
-still need readings, the points measured on the previous visit, a new visit.
+A room is judged by :func:`survey.evaluate.assess_room`, the way
+:func:`survey.evaluate.assess_visit` judges the whole visit. The rest is the rank and the
+symbol of a finding, and bookkeeping of the walk: which rooms still need readings, the
+points measured on the previous visit, a new visit.
 """
 
 from __future__ import annotations
 
 import datetime as dt
-from dataclasses import dataclass
 
-import msgspec
+from survey import assess, evaluate, model, words
 
-from survey import advise, assess, evaluate, model, words
-
-
-@dataclass(frozen=True)
-class RoomJudgement:
-    finding: assess.RoomFinding
-    advice: advise.RoomAdvice
-    cautions: tuple[advise.Caution, ...]
+#: One room of a visit judged (the core's :class:`survey.evaluate.RoomAssessment`).
+RoomJudgement = evaluate.RoomAssessment
 
 
 def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.RoomVisit | None:
     if not survey.visits:
         return None
     return survey.visits[visit_index].room_visit(room_id)
-
-
-def judge_room(
-    survey: model.Survey, visit_index: int, room_id: str, candidate: model.RoomVisit | None = None
-) -> RoomJudgement | None:
-    """One room of a stored visit judged (``candidate`` in place of its stored record, for a
-    preview of a value being typed); None when the room has no air reading."""
-    if not survey.visits:
-        return None
-    visit = survey.visits[visit_index]
-    record = candidate if candidate is not None else visit.room_visit(room_id)
-    if record is None:
-        return None
-    # evaluate looks up every room of the visit to find the reference rooms (their dry
-    # standards count here); give it only those and this room, so a room of a large survey
-    # is judged in the time of a small one. The judgement is the same.
-    references = {r.id for r in survey.rooms if r.is_reference}
-    visit = msgspec.structs.replace(
-        visit,
-        rooms=[rv for rv in visit.rooms if rv.room in references and rv.room != room_id] + [record],
-    )
-    entered: dict[str, bool] = {}
-    room_input = evaluate.room_input(survey, visit, record, entered)
-    if room_input is None:
-        return None
-    outdoor = (
-        None
-        if visit.outdoor is None
-        else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
-    )
-    site = assess.assess_site(
-        [room_input],
-        outdoor,
-        model.pressure_pa_for(survey, visit),
-        year_built=survey.site.year_built,
-    )
-    advice = advise.advise_site(site)
-    return RoomJudgement(site.rooms[0], advice.rooms[0], advice.cautions)
 
 
 # --- how bad a room is, as a rank ------------------------------------------------------------

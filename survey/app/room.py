@@ -10,7 +10,7 @@ from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.widgets import Checkbox, Select, Static
 
-from survey import model, words
+from survey import evaluate, model, words
 from survey import thresholds as th
 from survey.app import equipment, judging, room_details, walk
 from survey.app.air import AirPair
@@ -230,7 +230,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
 
     def refresh_view(self) -> None:
         survey, d = self.editor.survey, self.app.display_units
-        judged = judging.judge_room(survey, self.editor.visit_index, self.room_id)
+        judged = evaluate.assess_room(survey, self.editor.visit_index, self.room_id)
         self.query_one(LivePanel).show(judged, d)
         record = self.record()
         before = self.previous()
@@ -378,7 +378,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
     def _preview_air(self, event: AirPair.Preview) -> None:
         record = self.record() or model.RoomVisit(room=self.room_id)
         candidate = msgspec.structs.replace(record, air=event.reading)
-        judged = judging.judge_room(
+        judged = evaluate.assess_room(
             self.editor.survey, self.editor.visit_index, self.room_id, candidate
         )
         self.query_one(LivePanel).show(judged, self.app.display_units)

@@ -6,7 +6,7 @@ from __future__ import annotations
 import msgspec
 from rich.text import Text
 
-from survey import model, words
+from survey import evaluate, model, words
 from survey.app import equipment, judging, walk
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
@@ -30,7 +30,7 @@ class RoomTables:
             else:
                 surfaces[index] = candidate
                 at = index
-            judged = judging.judge_room(
+            judged = evaluate.assess_room(
                 self.editor.survey,
                 self.editor.visit_index,
                 self.room_id,

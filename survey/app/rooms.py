@@ -8,7 +8,7 @@ from rich.text import Text
 from textual.binding import Binding
 from textual.widgets import Static
 
-from survey import model, store
+from survey import evaluate, model, store
 from survey.app import judging, walk
 from survey.app.dialogs import ConfirmDialog, PromptDialog
 from survey.app.fields import plain
@@ -64,7 +64,7 @@ class RoomListScreen(walk.WalkScreen):
             self.query_one("#rooms-visit", Static).update(line)
         for room in survey.rooms:
             missing = judging.readings_missing(survey, visit_index, room.id)
-            judged = judging.judge_room(survey, visit_index, room.id) if survey.visits else None
+            judged = evaluate.assess_room(survey, visit_index, room.id) if survey.visits else None
             if judged is None:
                 symbol, worst = "·", "no air reading yet"
             else:
