@@ -25,7 +25,7 @@ from advice_cases import (
 )
 from CoolProp.HumidAirProp import HAPropsSI
 
-from survey import advise, assess, units, words
+from survey import advise, assess, psychro, units, words
 from survey import thresholds as th
 from survey.advise import ActionKind, Caution, DehumidifyWhy
 from survey.advise import cautions as caution_rules
@@ -1098,3 +1098,17 @@ def test_moisture_basis_lists_each_source_in_si():
         f"176 g/h from the room's use (3 people sitting at 50 g/h each: 150 g/h; activities "
         f"averaged over the day: {2500 * 0.25 / 24:.0f} g/h)"
     )
+
+
+def test_the_app_panels_name_frost_below_zero_and_follow_the_units():
+    """A state whose condensation point is below 0 °C is given its frost point; the same
+    state in IP is written in °F and grains per pound."""
+    from survey.words import screens
+
+    cold = psychro.state_from_rh(2.0, 60.0)  # dew point about −4.6 °C: frost point shown
+    si = screens.air_state_lines(cold, words.SI, pressure_pa=101_325.0)
+    assert si[1].startswith("Frost point ") and si[0] == "2.0 °C, 60 % RH"
+    assert si[-1] == "Pressure used 1013.2 hPa"
+    ip = screens.air_state_lines(psychro.state_from_rh(21.0, 50.0), words.IP, 0.5)
+    assert ip[0].startswith("69.8 °F") and ip[1].startswith("Dew point ")
+    assert ip[1].endswith("± 0.9 °F") and "gr/lb" in ip[2]

@@ -10,6 +10,7 @@ from textual.widgets import Static
 from survey import evaluate, words
 from survey.app import judging, walk
 from survey.app.fields import plain
+from survey.words import screens
 
 
 def findings_text(survey, visit_index: int, d: words.Display) -> Text:
@@ -33,11 +34,9 @@ def findings_text(survey, visit_index: int, d: words.Display) -> Text:
             out.append("   ")
             out.append(plain(s.label))
             out.append(f", {d.temperature(s.surface_temp_c)}: {words.short_verdict(s, d)}\n")
-        limit = words.rh_limit_text(finding)
+        limit = screens.safe_rh_against_room(finding)
         if limit is not None:
-            out.append(
-                f"   Highest safe room RH {limit}; the room is at {finding.air.rh_pct:.0f} %.\n"
-            )
+            out.append(f"   {limit}\n")
         for n, action in enumerate(advice.actions, 1):
             out.append(f"   {n}. ")
             out.append(plain(words.action_title(action), "bold"))
@@ -46,9 +45,9 @@ def findings_text(survey, visit_index: int, d: words.Display) -> Text:
     for room in unread:
         out.append("\n· ")
         out.append(plain(room.name, "bold"))
-        out.append(" — no air reading on this visit\n")
+        out.append(f" — {screens.NO_AIR_THIS_VISIT}\n")
     if judged.advice.cautions:
-        out.append("\nCautions\n", "bold")
+        out.append(f"\n{screens.HEADINGS['cautions']}\n", "bold")
         for caution in judged.advice.cautions:
             out.append("• ")
             out.append(plain(words.caution_text(caution, d)))

@@ -15,6 +15,7 @@ from survey.app import walk
 from survey.app.fields import plain
 from survey.app.room import USES
 from survey.errors import InputError
+from survey.words import screens
 
 #: (id, label, parser, needed)
 FIELDS = [
@@ -129,26 +130,16 @@ class QuickScreen(Screen):
 def result_text(result: quick.QuickResult, d: words.Display) -> Text:
     f, advice, air = result.finding, result.advice, result.room
     out = Text()
-    point = "Frost" if air.frost_point_c is not None else "Dew"
-    out.append(
-        f"{point} point {d.temperature(f.air.condensation_point_c)} ± "
-        f"{d.difference(f.condensation_point_uncertainty_k)}\n"
-    )
-    out.append(
-        f"Humidity ratio {d('humidity_ratio', air.humidity_ratio_kg_per_kg)}; "
-        f"vapour pressure {d('vapour_pressure', air.vapour_pressure_pa)}\n"
-    )
+    for line in screens.air_state_lines(air, d, f.condensation_point_uncertainty_k)[1:]:
+        out.append(line + "\n")
     for s in f.surfaces:
-        out.append(
-            f"Surface {d.temperature(s.surface_temp_c)}: surface RH "
-            f"{words.surface_rh_text(s)}; {words.short_verdict(s, d)}\n"
-        )
-    limit = words.rh_limit_text(f)
+        out.append(screens.quick_surface_line(s, d) + "\n")
+    limit = screens.safe_rh_line(f)
     if limit is not None:
-        out.append(f"Highest safe room RH: {limit}\n")
-    out.append("\nWhat to do\n", "bold")
+        out.append(limit + "\n")
+    out.append(f"\n{screens.HEADINGS['actions']}\n", "bold")
     if not advice.actions:
-        out.append("Nothing to do from these readings.\n")
+        out.append(screens.NOTHING_TO_DO + "\n")
     for n, action in enumerate(advice.actions, 1):
         out.append(f"{n}. ")
         out.append(words.action_title(action), "bold")
@@ -156,7 +147,7 @@ def result_text(result: quick.QuickResult, d: words.Display) -> Text:
         out.append(f" — {numbers}\n" if numbers else "\n")
         out.append(words.action_reason(action, f, advice, d) + "\n", "dim")
     if result.cautions:
-        out.append("\nCautions\n", "bold")
+        out.append(f"\n{screens.HEADINGS['cautions']}\n", "bold")
         for caution in result.cautions:
             out.append(f"• {words.caution_text(caution, d)}\n")
     return out

@@ -6,10 +6,11 @@ from __future__ import annotations
 import msgspec
 from rich.text import Text
 
-from survey import evaluate, model, words
+from survey import evaluate, model
 from survey.app import equipment, judging, walk
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
+from survey.words import screens
 
 
 class RoomTables:
@@ -37,17 +38,13 @@ class RoomTables:
                 msgspec.structs.replace(record, surfaces=surfaces),
             )
             if judged is None:
-                return Text("Give the room's air reading first to judge this surface.")
+                return Text(screens.NO_AIR_FOR_SURFACE)
             d = self.app.display_units
             f = judged.finding.surfaces[at]
-            text = Text(
-                f"Surface RH {words.surface_rh_text(f)}; margin "
-                f"{d.difference(f.dew_point_margin_k)} ± {d.difference(f.margin_uncertainty_k)}"
-                f"\n{words.short_verdict(f, d)}"
-            )
-            limit = words.rh_limit_text(judged.finding)
+            text = Text(screens.surface_line(f, d))
+            limit = screens.safe_rh_line(judged.finding)
             if limit is not None:
-                text.append(f"\nHighest safe room RH: {limit}")
+                text.append(f"\n{limit}")
             return text
 
         return preview

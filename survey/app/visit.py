@@ -14,6 +14,7 @@ from survey.app import judging, walk
 from survey.app.air import AirPair
 from survey.app.dialogs import ConfirmDialog
 from survey.app.fields import Field, plain
+from survey.words import screens
 
 
 class VisitScreen(walk.WalkScreen):
@@ -140,25 +141,12 @@ class VisitScreen(walk.WalkScreen):
         panel = self.query_one("#outdoor-state", Static)
         d = self.app.display_units
         if reading is None:
-            panel.update(
-                Text(
-                    "Outdoor air: give its temperature and RH to see its dew "
-                    "point and moisture content."
-                )
-            )
+            panel.update(Text(screens.NO_OUTDOOR_READING))
             return
         pressure = model.pressure_pa_for(self.editor.survey, self.visit)
         state = psychro.state_from_rh(reading.dry_bulb_c, reading.rh_pct, pressure)
-        lines = [
-            Text("Outdoor air", style="bold"),
-            Text(f"{d.temperature(state.dry_bulb_c)}, {state.rh_pct:.0f} % RH"),
-            Text(
-                f"{'Frost' if state.frost_point_c is not None else 'Dew'} point "
-                f"{d.temperature(state.condensation_point_c)}"
-            ),
-            Text(f"Humidity ratio {d('humidity_ratio', state.humidity_ratio_kg_per_kg)}"),
-            Text(f"Vapour pressure {d('vapour_pressure', state.vapour_pressure_pa)}"),
-            Text(f"Pressure used {d('pressure', pressure)}"),
+        lines = [Text(screens.HEADINGS["outdoor_air"], style="bold")] + [
+            Text(line) for line in screens.air_state_lines(state, d, pressure_pa=pressure)
         ]
         panel.update(Text("\n").join(lines))
 

@@ -1,0 +1,87 @@
+"""The short lines the app's live panels and lists show: a moist-air state, the highest safe
+room RH, a surface's state in a line, and what a panel says before there is anything to
+judge. The app lays these out; it writes no sentence of its own."""
+
+from __future__ import annotations
+
+from survey import assess, psychro
+from survey.words.display import Display
+from survey.words.states import rh_limit_text, short_verdict, surface_rh_text
+
+NO_OUTDOOR_READING = (
+    "Outdoor air: give its temperature and RH to see its dew point and moisture content."
+)
+NO_ROOM_READING = (
+    "Give the room's air temperature and RH to see its dew point, the highest safe RH and "
+    "what to do."
+)
+NO_AIR_FOR_SURFACE = "Give the room's air reading first to judge this surface."
+NO_AIR_THIS_VISIT = "no air reading on this visit"
+NO_SURFACE_MEASURED = "No surface measured yet."
+NO_LIMITING_SURFACE = "No wall, ceiling or floor measured: no highest safe room RH."
+NOTHING_TO_DO = "Nothing to do from these readings."
+HEADINGS = {
+    "room_air": "Room air",
+    "outdoor_air": "Outdoor air",
+    "actions": "What to do",
+    "cautions": "Cautions",
+}
+
+
+def condensation_point_line(
+    state: psychro.MoistAir, d: Display, uncertainty_k: float | None = None
+) -> str:
+    """``Dew point 8.6 °C ± 0.6 K`` (frost point below 0 °C)."""
+    name = "Frost" if state.frost_point_c is not None else "Dew"
+    line = f"{name} point {d.temperature(state.condensation_point_c)}"
+    return line if uncertainty_k is None else f"{line} ± {d.difference(uncertainty_k)}"
+
+
+def air_state_lines(
+    state: psychro.MoistAir,
+    d: Display,
+    uncertainty_k: float | None = None,
+    pressure_pa: float | None = None,
+) -> list[str]:
+    """A moist-air state in a few lines: temperature and RH, its dew or frost point (with
+    its uncertainty when given), humidity ratio, vapour pressure, and the pressure used."""
+    lines = [
+        f"{d.temperature(state.dry_bulb_c)}, {state.rh_pct:.0f} % RH",
+        condensation_point_line(state, d, uncertainty_k),
+        f"Humidity ratio {d('humidity_ratio', state.humidity_ratio_kg_per_kg)}",
+        f"Vapour pressure {d('vapour_pressure', state.vapour_pressure_pa)}",
+    ]
+    if pressure_pa is not None:
+        lines.append(f"Pressure used {d('pressure', pressure_pa)}")
+    return lines
+
+
+def safe_rh_line(finding: assess.RoomFinding) -> str | None:
+    """``Highest safe room RH: 62 % (57 to 67 % at this accuracy)``, or None."""
+    limit = rh_limit_text(finding)
+    return None if limit is None else f"Highest safe room RH: {limit}"
+
+
+def safe_rh_against_room(finding: assess.RoomFinding) -> str | None:
+    """The highest safe room RH beside the room's own, or None."""
+    limit = rh_limit_text(finding)
+    if limit is None:
+        return None
+    return f"Highest safe room RH {limit}; the room is at {finding.air.rh_pct:.0f} %."
+
+
+def surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
+    """``Surface RH 91 % (86–96); margin 0.4 K ± 0.7 K`` and its verdict on a second line."""
+    return (
+        f"Surface RH {surface_rh_text(surface)}; margin "
+        f"{d.difference(surface.dew_point_margin_k)} ± "
+        f"{d.difference(surface.margin_uncertainty_k)}\n{short_verdict(surface, d)}"
+    )
+
+
+def quick_surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
+    """``Surface 12.0 °C: surface RH 82 % (77–87); verdict``."""
+    return (
+        f"Surface {d.temperature(surface.surface_temp_c)}: surface RH "
+        f"{surface_rh_text(surface)}; {short_verdict(surface, d)}"
+    )
