@@ -578,3 +578,26 @@ def test_room_bounds_come_from_the_domain():
     wet = MaterialInput("sole plate", "softwood", 240.0, "mc_pct", 12.0, timber=True)
     found = assess.assess_room(RoomInput("R", "living", 20.0, 50.0, materials=(wet,)))
     assert found.materials[0].timber_state is TimberState.DECAY_RANGE
+
+
+def test_a_surface_warmer_than_the_air_neither_gets_a_factor_nor_sets_the_safe_rh():
+    """A wall beside a radiator at 30 °C in 20 °C air (heated): its temperature factor
+    would be (30 − 5)/(20 − 5) = 1.67, which says nothing of the fabric's heat loss, so it
+    is not judged; with a cold corner at 12 °C beside it, the corner sets the highest safe
+    RH: 80 % × p_ws(12 °C)/p_ws(20 °C) = 80 × 1402.7/2339.2 = 48.0 % (psychrolib's
+    saturation pressures, Hyland-Wexler); with the heated wall alone no surface sets it."""
+    outdoor = OutdoorInput(5.0, 80.0)
+    heated = SurfaceInput("Behind the radiator", 30.0, "external_wall")
+    corner = SurfaceInput("NE corner", 12.0, "external_wall")
+    both = assess.assess_room(RoomInput("R", "bedroom", 20.0, 50.0, (heated, corner)), outdoor, P)
+    warm, cold = both.surfaces
+    assert warm.temperature_factor is None
+    assert warm.temperature_factor_state is assess.FactorState.WARMER_THAN_AIR
+    assert cold.temperature_factor == pytest.approx((12.0 - 5.0) / (20.0 - 5.0))
+    assert both.coldest.label == "NE corner"
+    assert both.max_room_rh_pct == pytest.approx(48.0, abs=0.05)
+    alone = assess.assess_room(RoomInput("R", "bedroom", 20.0, 50.0, (heated,)), outdoor, P)
+    assert alone.coldest is None and alone.max_room_rh_pct is None
+    from survey.words.states import no_limit_reason
+
+    assert "warmer than the room air" in no_limit_reason(alone)

@@ -475,7 +475,8 @@ def test_surface_rh_over_100_and_degenerate_bands(check, monkeypatch):
     _, out, _ = check("--air-temp", "18", "--rh", "50", "--surface-temp", "25")
     flat = " ".join(out.split())
     assert "100 to 100" not in flat
-    assert "any room RH" in flat
+    # warmer than the air: heated or sunlit, so it neither sets a safe RH nor gets a factor
+    assert "warmer than the room air" in flat and "no highest safe room RH" in flat
 
 
 def test_frost_point_is_called_so(check, monkeypatch):

@@ -56,6 +56,9 @@ class FactorState(_State):
     NOT_FOR_ELEMENT = ("not_for_element", None)
     GROUND_CONTACT = ("ground_contact", None)
     DRYING_WET = ("drying_wet", None)
+    #: Warmer than the room air: heated, sunlit or beside a heat source, so its
+    #: temperature does not show the fabric's heat loss.
+    WARMER_THAN_AIR = ("warmer_than_air", None)
 
 
 class DryStandardState(_State):

@@ -152,6 +152,9 @@ def _assess_room(
         # Clear of condensation while the surface RH stays below 100 %: the same relation
         # as below with the limit at 100 %.
         rh_dry_other = min(100.0, air.rh_pct * 100.0 / other.surface_rh_pct)
+    # A surface warmer than the room air is heated, sunlit or beside a heat source: it
+    # cannot show how cold the fabric gets, so it does not set the highest safe room RH.
+    setting = tuple(s for s in setting if s.surface_temp_c <= air.dry_bulb_c)
     if setting:
         coldest = min(setting, key=_surface_temp)
         ts = coldest.surface_temp_c
@@ -256,7 +259,9 @@ def _not_judged_by_use(
     for s in surfaces:
         state = None
         if s.temperature_factor_state in _FACTOR_JUDGED:
-            if wet:
+            if s.surface_temp_c > room.air_temp_c:
+                state = FactorState.WARMER_THAN_AIR
+            elif wet:
                 state = FactorState.DRYING_WET
             elif use in GROUND_USES and s.element in _GROUND_ELEMENTS:
                 state = FactorState.GROUND_CONTACT

@@ -16,6 +16,7 @@ from survey.words.states import (
     factor_not_judged_reason,
     humidity_class_range_text,
     humidity_class_text,
+    no_limit_reason,
     rh_limit_text,
     short_verdict,
     timber_emc_text,
@@ -49,9 +50,10 @@ def quick_summary_lines(
     elif not f.surfaces:
         lines.append(f"No surface measured; the room is at {rh_now} RH.")
     else:
+        reason = no_limit_reason(f)
         lines.append(
-            f"No wall, ceiling or floor measured, so no highest safe room RH; the "
-            f"room is at {rh_now} RH."
+            f"{reason[0].upper()}{reason[1:]}, so no highest safe room RH; the room is at "
+            f"{rh_now} RH."
         )
     if advice.actions:
         first = advice.actions[0]

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 from survey import assess, psychro
 from survey.words.display import Display
-from survey.words.states import rh_limit_text, short_verdict, surface_rh_text
+from survey.words.states import no_limit_reason, rh_limit_text, short_verdict, surface_rh_text
 
 NO_OUTDOOR_READING = (
     "Outdoor air: give its temperature and RH to see its dew point and moisture content."
@@ -18,7 +18,6 @@ NO_ROOM_READING = (
 NO_AIR_FOR_SURFACE = "Give the room's air reading first to judge this surface."
 NO_AIR_THIS_VISIT = "no air reading on this visit"
 NO_SURFACE_MEASURED = "No surface measured yet."
-NO_LIMITING_SURFACE = "No wall, ceiling or floor measured: no highest safe room RH."
 NOTHING_TO_DO = "Nothing to do from these readings."
 HEADINGS = {
     "room_air": "Room air",
@@ -60,6 +59,14 @@ def safe_rh_line(finding: assess.RoomFinding) -> str | None:
     """``Highest safe room RH: 62 % (57 to 67 % at this accuracy)``, or None."""
     limit = rh_limit_text(finding)
     return None if limit is None else f"Highest safe room RH: {limit}"
+
+
+def no_safe_rh_line(finding: assess.RoomFinding) -> str:
+    """Why there is no highest safe room RH, as a panel line."""
+    if not finding.surfaces:
+        return NO_SURFACE_MEASURED
+    reason = no_limit_reason(finding)
+    return f"{reason[0].upper()}{reason[1:]}: no highest safe room RH."
 
 
 def safe_rh_against_room(finding: assess.RoomFinding) -> str | None:

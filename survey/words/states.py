@@ -81,6 +81,8 @@ FACTOR_WORDS = {
     FactorState.GROUND_CONTACT: "ground-contact element: temperature factor not judged "
     "against outdoor air",
     FactorState.DRYING_WET: "not judged while wet materials dry (evaporation cools the surface)",
+    FactorState.WARMER_THAN_AIR: "not judged: warmer than the room air (heated, sunlit or "
+    "beside a heat source)",
 }
 DRY_STANDARD_WORDS = {
     DryStandardState.AT: "at the dry standard",
@@ -232,13 +234,26 @@ def worst_first(surfaces: Iterable[SurfaceFinding]) -> list[SurfaceFinding]:
     )
 
 
+def no_limit_reason(finding: RoomFinding) -> str:
+    """Why a room has no highest safe RH (when :func:`rh_limit_text` gives None)."""
+    if not finding.surfaces:
+        return "no surface measured"
+    setting = [s for s in finding.surfaces if th.ELEMENT_POLICY[s.element].sets_room_target]
+    if setting and all(s.surface_temp_c > finding.air.dry_bulb_c for s in setting):
+        return (
+            "every wall, ceiling or floor measured was warmer than the room air (heated, "
+            "sunlit or beside a heat source) and cannot show how cold the fabric gets"
+        )
+    return "no wall, ceiling or floor measured"
+
+
 def rh_limit_text(finding: RoomFinding) -> str | None:
-    """'38 % (35 to 41 % at this accuracy)', or 'any room RH' for a surface that bears it."""
+    """'38 % (35 to 41 % at this accuracy)'; None when no surface sets it (see
+    :func:`no_limit_reason`). Only surfaces at or below the air temperature set it, so it is
+    always under 100 %."""
     top = finding.max_room_rh_pct
     if top is None:
         return None
-    if top >= 100.0:
-        return "any room RH (it stays below the limits even at 100 %)"
     shown = round_down_rh(top)
     low, high = (
         round_down_rh(finding.max_room_rh_low_pct or top),
