@@ -584,7 +584,7 @@ def test_a_surface_warmer_than_the_air_neither_gets_a_factor_nor_sets_the_safe_r
     """A wall beside a radiator at 30 °C in 20 °C air (heated): its temperature factor
     would be (30 − 5)/(20 − 5) = 1.67, which says nothing of the fabric's heat loss, so it
     is not judged; with a cold corner at 12 °C beside it, the corner sets the highest safe
-    RH: 80 % × p_ws(12 °C)/p_ws(20 °C) = 80 × 1402.7/2339.2 = 48.0 % (psychrolib's
+    RH: 80 % × p_ws(12 °C)/p_ws(20 °C) = 80 × 1402.6/2338.8 = 48.0 % (psychrolib
     saturation pressures, Hyland-Wexler); with the heated wall alone no surface sets it."""
     outdoor = OutdoorInput(5.0, 80.0)
     heated = SurfaceInput("Behind the radiator", 30.0, "external_wall")
