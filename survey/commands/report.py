@@ -5,7 +5,9 @@
     survey report flat9.json -o out/flat9.md --units ip --visit all
 
 The report is written whole or not at all (the store's atomic writer); the survey itself,
-its backup and its lock are never written over.
+its backup and its lock are never written over. A Markdown report links one psychrometric
+chart per visit shown, written beside it as ``REPORT-chart-N.svg`` (atomically too); an HTML
+report carries its charts inside the page.
 """
 
 from __future__ import annotations
@@ -119,20 +121,29 @@ def run_report(args: argparse.Namespace) -> int:
         source_name=path.name,
         survey_dir=path.parent,
         report_dir=out.parent,
+        chart_stem=out.stem,
     )
+    charts: tuple[report.ChartFile, ...] = ()
     try:
-        text = (
-            report.html_report(survey, options)
-            if args.html
-            else report.markdown_report(survey, options)
-        )
+        if args.html:  # the charts travel inside the page
+            text = report.html_report(survey, options)
+        else:
+            doc, charts = report.build_with_charts(survey, options)
+            text = report.render(doc)
     except InputError as exc:
         if exc.field == "visit":
             raise exc.with_field("--visit") from None
         raise
+    for chart in charts:
+        target = out.with_name(chart.name)
+        check_output(path, target, str(target))
+        store.write_file_atomically(target, chart.svg.encode("utf-8"))
     store.write_file_atomically(out, text.encode("utf-8"))
     print(
         f"Wrote the report of {visible(path.name)} to {visible(out)}"
         f" ({'HTML' if args.html else 'Markdown'})."
     )
+    if charts:
+        names = ", ".join(visible(c.name) for c in charts)
+        print(f"Charts beside it: {names}.")
     return 0

@@ -275,6 +275,32 @@ def _flow(
     return y + 18
 
 
+def psychro_alt(chart: PsychroChart, title: str) -> str:
+    """The report's alt text (and caption) for the chart: what it shows, in one line."""
+    rooms = len(chart.rooms)
+    what = f"{rooms} room{'s' if rooms != 1 else ''}" + (
+        " and the outdoor air" if chart.outdoor is not None else ""
+    )
+    return (
+        f"Psychrometric chart, {visible(title)}: {what} against the saturation curve and the "
+        f"{chart.line('mould_limit').rh_pct:g} % RH line"
+    )
+
+
+def psychro_description(chart: PsychroChart, title: str) -> str:
+    """The SVG's own description: the alt text, then where each point lies."""
+    d = words.Display(chart.system)
+    places = [
+        f"{visible(p.name)} {d.temperature(p.dry_bulb_c)} and {p.rh_pct:.0f} % RH, "
+        f"{d('humidity_ratio', p.humidity_ratio_kg_per_kg)}"
+        for p in chart.points
+    ]
+    return (
+        f"{psychro_alt(chart, title)}, humidity ratio against dry bulb at "
+        f"{d('pressure', chart.pressure_pa)}. " + "; ".join(places) + "."
+    )
+
+
 def psychro_svg(chart: PsychroChart, title: str) -> str:
     """The chart as an SVG document (text), titled ``title`` (user text allowed)."""
     d = words.Display(chart.system)
@@ -284,13 +310,7 @@ def psychro_svg(chart: PsychroChart, title: str) -> str:
     rows = len(chart.points)
     height = legend_top + 18 * 4 + 34 * rows
     pressure = d("pressure", chart.pressure_pa)
-    canvas = _Canvas(
-        width,
-        height,
-        title,
-        f"Humidity ratio against dry bulb at {pressure}: the saturation curve, the mould-limit "
-        f"line and {rows} measured air states.",
-    )
+    canvas = _Canvas(width, height, title, psychro_description(chart, title))
     canvas.text(canvas.root, frame.left, 22, title, 90, font_size="15", font_weight="bold")
     canvas.text(canvas.root, frame.left, 38, f"Psychrometric chart at {pressure}", fill=MUTED)
     xa, ya = chart.x_axis, chart.y_axis
