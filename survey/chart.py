@@ -38,6 +38,7 @@ from typing import TYPE_CHECKING, NamedTuple
 
 from survey import psychro, units
 from survey import thresholds as th
+from survey.assess import CondensationState, SurfaceFinding
 
 if TYPE_CHECKING:
     from survey.evaluate import VisitAssessment
@@ -92,7 +93,7 @@ class SurfacePoint:
     label: str
     surface_temp_c: float
     humidity_ratio_kg_per_kg: float  #: saturation at the surface temperature
-    condensing: bool  #: the assessment finds water or frost forming on it now
+    condensing: bool  #: the assessment finds water or frost forming on it (state condensing)
 
 
 @dataclass(frozen=True, slots=True)
@@ -107,8 +108,8 @@ class AirPoint:
     rh_pct: float
     dew_point_c: float  #: over liquid water
     condensation_point_c: float  #: dew point, or frost point below 0.01 °C
-    worst_words: str  #: the words module's verdict on the room's worst surface ("" outdoors)
-    condensing: bool  #: water or frost forms on one of the room's surfaces now
+    worst_words: str  #: the words module's verdict on :func:`worst_surface` ("" outdoors)
+    condensing: bool  #: the assessment finds water or frost forming on one of its surfaces
     coldest: SurfacePoint | None
 
 
@@ -299,6 +300,18 @@ def _air_point(
     )
 
 
+def worst_surface(surfaces: Sequence[SurfaceFinding]) -> SurfaceFinding | None:
+    """The surface a room's point speaks for: the coldest one on which water or frost is
+    forming, else the first of :func:`survey.words.worst_first`; None with no surface."""
+    from survey import words
+
+    wet = [s for s in surfaces if s.condensation is CondensationState.CONDENSING]
+    if wet:
+        return min(wet, key=lambda s: s.surface_temp_c)
+    ordered = words.worst_first(surfaces)
+    return ordered[0] if ordered else None
+
+
 def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroChart:
     """The psychrometric chart of a judged visit, in display units ``system``."""
     from survey import words
@@ -310,8 +323,7 @@ def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroCha
     rooms: list[AirPoint] = []
     temps: list[float] = []
     for number, f in enumerate(findings.rooms, start=1):
-        ordered = words.worst_first(f.surfaces)
-        worst = ordered[0] if ordered else None
+        worst = worst_surface(f.surfaces)
         in_range = [s for s in f.surfaces if _in_domain(s.surface_temp_c)]
         cold = min(in_range, key=lambda s: s.surface_temp_c) if in_range else None
         coldest = (
@@ -321,7 +333,7 @@ def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroCha
                 cold.label,
                 cold.surface_temp_c,
                 saturation_humidity_ratio(cold.surface_temp_c, p),
-                cold.condensing,
+                cold.condensation is CondensationState.CONDENSING,
             )
         )
         rooms.append(
@@ -336,7 +348,7 @@ def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroCha
                     if worst is None
                     else "; ".join(words.short_verdict(worst, d).split("; ")[:VERDICT_PARTS])
                 ),
-                condensing=any(s.condensing for s in f.surfaces),
+                condensing=any(s.condensation is CondensationState.CONDENSING for s in f.surfaces),
                 coldest=coldest,
             )
         )
