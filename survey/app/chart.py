@@ -32,6 +32,7 @@ COLOURS = {
     "room": "success",
     "condensing": "error",
     "outdoor": "accent",
+    "canvas": "surface",  # what textual-plotext's theme paints behind the plot
 }
 #: Markers: plotext's own names or one character each.
 MARKERS = {"curve": "braille", "room": "●", "outdoor": "■", "surface": "◆"}
@@ -153,7 +154,14 @@ class ChartScreen(walk.WalkScreen):
                 marker=MARKERS["outdoor" if point.outdoor else "room"],
                 color=self._colour(part),
             )
-            plt.text(point.mark, x + cell, y, color=self._colour(part), alignment="left")
+            plt.text(
+                point.mark,
+                x + cell,
+                y,
+                color=self._colour(part),
+                background=self._colour("canvas"),
+                alignment="left",
+            )
         plt.xlim(xa.low, xa.high)
         plt.ylim(ya.low, ya.high)
         plt.xticks(list(xa.ticks), [f"{t:g}" for t in xa.ticks])
