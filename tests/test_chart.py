@@ -464,3 +464,56 @@ async def test_chart_screen_opens_and_names_the_rooms(tmp_path, monkeypatch):
         await pilot.press("c")
         await pilot.pause()
         assert type(app.screen).__name__ == "RoomListScreen"
+
+
+# --- visits with little to chart ---------------------------------------------------------
+
+
+def _bare_visit_survey(outdoor: bool):
+    """The flat with its visit's air readings taken away (surfaces and outdoor kept or not)."""
+    survey = store.load_survey(FLAT)
+    visit = survey.visits[0]
+    rooms = [msgspec.structs.replace(rv, air=None) for rv in visit.rooms]
+    visit = msgspec.structs.replace(visit, rooms=rooms, outdoor=visit.outdoor if outdoor else None)
+    return msgspec.structs.replace(survey, visits=[visit])
+
+
+def test_visit_with_nothing_measured_gets_no_chart():
+    """No air reading indoors or out: the report links no chart and writes none."""
+    options = report.ReportOptions(chart_stem="r")
+    doc, charts = report.build_with_charts(_bare_visit_survey(False), options)
+    assert charts == () and ".svg" not in report.render(doc)
+
+
+def test_visit_with_only_the_outdoor_air_charts_it():
+    """Only the outdoor air read: the chart holds that one point, no room."""
+    va = evaluate.assess_visit(_bare_visit_survey(True))
+    c = chart.psychro_chart(va)
+    assert c.rooms == () and c.points == (c.outdoor,)
+    _check_svg(svg.psychro_svg(c, "Outdoor only"))
+
+
+def test_chart_pressure_is_the_assessments():
+    """The curves are drawn at the visit's pressure as the assessment uses it (the flat's
+    altitude gives less than sea-level pressure), so points and curves agree."""
+    va = evaluate.assess_visit(store.load_survey(FLAT))
+    c = chart.psychro_chart(va)
+    assert c.pressure_pa == va.findings.pressure_pa < psychro.STANDARD_PRESSURE_PA
+
+
+async def test_chart_screen_without_air_readings_says_so(tmp_path, monkeypatch):
+    """A visit with no air reading: the chart screen says there is nothing to chart."""
+    from textual.widgets import Static
+
+    from survey.app import make_app
+
+    monkeypatch.chdir(tmp_path)
+    path = tmp_path / "bare.json"
+    path.write_bytes(store.dumps_survey(_bare_visit_survey(False)))
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("c")
+        await pilot.pause()
+        note = app.screen.query_one("#chart-note", Static)
+        assert "nothing to chart" in str(note.render())
