@@ -67,7 +67,7 @@ class ChartScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         self.query_one(PointTable).add_columns(
-            " ", "air", "dry bulb", "RH", "humidity ratio", "dew point", "worst surface"
+            " ", "air", "dry bulb", "RH", "humidity ratio", "dew point", "coldest", "worst surface"
         )
         self.app.theme_changed_signal.subscribe(self, lambda _theme: self.refresh_view())
         self.refresh_view()
@@ -113,6 +113,7 @@ class ChartScreen(walk.WalkScreen):
                 Text(f"{point.rh_pct:.0f} %"),
                 Text(d("humidity_ratio", point.humidity_ratio_kg_per_kg)),
                 Text(d.temperature(point.dew_point_c)),
+                Text("" if point.coldest is None else d.temperature(point.coldest.surface_temp_c)),
                 Text(point.worst_words),
             )
 

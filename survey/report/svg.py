@@ -275,6 +275,15 @@ def _flow(
     return y + 18
 
 
+def _free_spot(placed: list[tuple[float, float]], x: float, y: float) -> tuple[float, float]:
+    """A place for a point's label at or above (x, y) that no earlier label takes (labels
+    of points close together step upwards); the place is then taken."""
+    while any(abs(x - px) < 11 and abs(y - py) < 11 for px, py in placed):
+        y -= 11
+    placed.append((x, y))
+    return x, y
+
+
 def psychro_alt(chart: PsychroChart, title: str) -> str:
     """The report's alt text (and caption) for the chart: what it shows, in one line."""
     rooms = len(chart.rooms)
@@ -337,6 +346,7 @@ def psychro_svg(chart: PsychroChart, title: str) -> str:
                 x, y = points[-1]
                 canvas.text(curves, x + 4, y + 4, f"{line.rh_pct:g} %", fill=MUTED, font_size="10")
     marks = canvas.group("points")
+    placed: list[tuple[float, float]] = []
     for point in chart.points:
         x, y = at(point.dry_bulb_c, point.humidity_ratio_kg_per_kg)
         if point.coldest is not None:
@@ -356,16 +366,16 @@ def psychro_svg(chart: PsychroChart, title: str) -> str:
                 stroke=colour,
                 stroke_width="1.5",
             )
-            canvas.text(
-                marks, sx - 6, sy - 6, point.mark, text_anchor="end", font_size="10", fill=colour
-            )
+            lx, ly = _free_spot(placed, sx - 6, sy - 6)
+            canvas.text(marks, lx, ly, point.mark, text_anchor="end", font_size="10", fill=colour)
         if point.outdoor:
             _marker(marks, "square", x, y, 4.5, fill=OUTDOOR, stroke="#ffffff", stroke_width="1")
             colour = OUTDOOR
         else:
             colour = CONDENSING if point.condensing else ROOM
             _marker(marks, "circle", x, y, 5.0, fill=colour, stroke="#ffffff", stroke_width="1")
-        canvas.text(marks, x + 7, y - 6, point.mark, font_weight="bold", fill=colour)
+        lx, ly = _free_spot(placed, x + 7, y - 6)
+        canvas.text(marks, lx, ly, point.mark, font_weight="bold", fill=colour)
     bottom = _psychro_legend(canvas, chart, d, frame.left, legend_top)
     canvas.size(width, bottom)
     return canvas.serialise()
