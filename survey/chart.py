@@ -187,7 +187,8 @@ def nice_ticks(low: float, high: float, count: int = 6) -> tuple[float, ...]:
 
 
 def _humidity_ratio_at(dry_bulb_c: float, rh_pct: float, pressure_pa: float) -> float:
-    return psychro.state_from_rh(dry_bulb_c, rh_pct, pressure_pa).humidity_ratio_kg_per_kg
+    """psychro's light state (no wet-bulb solve): the humidity ratio of state_from_rh."""
+    return psychro.vapour_state(dry_bulb_c, rh_pct, pressure_pa).humidity_ratio_kg_per_kg
 
 
 def saturation_over_ice_rh_pct(temp_c: float) -> float:
