@@ -434,10 +434,12 @@ async def test_chart_screen_opens_and_names_the_rooms(tmp_path, monkeypatch):
     """On the room list, c opens the chart screen at 80×24: the plot is drawn and the table
     names the outdoor air and every room literally (markup-like names too); the light
     theme redraws it; c goes back to the room list."""
-    from textual.widgets import DataTable
+    from textual.widgets import DataTable, Static
 
     from survey.app import make_app
     from survey.app.chart import ChartScreen, PsychroPlot
+    from survey.app.walk import cut
+    from survey.safe_text import visible
 
     monkeypatch.chdir(tmp_path)
     path = tmp_path / "flat.json"
@@ -453,7 +455,12 @@ async def test_chart_screen_opens_and_names_the_rooms(tmp_path, monkeypatch):
         table = app.screen.query_one(DataTable)
         names = [str(table.get_row_at(i)[1]) for i in range(table.row_count)]
         assert names[0] == "Outdoors"
-        assert names[1:] == [r.name.replace("\x1b", "\\x1b") for r in survey.rooms]
+        assert names[1:] == [visible(cut(r.name, 24)) for r in survey.rooms]
+        detail = app.screen.query_one("#chart-detail", Static)
+        await pilot.press("down")  # the first room: its whole name and worst surface below
+        await pilot.pause()
+        shown = str(detail.render())
+        assert shown.startswith(survey.rooms[0].name) and "worst: water forming" in shown
         plot = app.screen.query_one(PsychroPlot)
         assert plot.size.height >= 8 and plot.size.width >= 60
         rendered = str(plot.render())

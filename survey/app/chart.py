@@ -34,6 +34,8 @@ COLOURS = {
     "outdoor": "accent",
     "canvas": "surface",  # what textual-plotext's theme paints behind the plot
 }
+#: Room names longer than this are cut in the table (the line under it shows them whole).
+NAME_WIDTH = 24
 #: Markers: plotext's own names or one character each.
 MARKERS = {"curve": "braille", "room": "●", "outdoor": "■", "surface": "◆"}
 
@@ -57,17 +59,23 @@ class ChartScreen(walk.WalkScreen):
     TITLE_TEXT = "Chart"
     PARENT = "rooms"
     BINDINGS = [Binding("escape,c", "back", "Back to rooms", id="chart_close")]
+    DEFAULT_CSS = "ChartScreen #chart-detail { height: auto; max-height: 2; }"
+
+    def __init__(self) -> None:
+        super().__init__()
+        self._points: tuple[chart.AirPoint, ...] = ()
 
     def compose(self):
         yield self.header()
         yield Static(id="chart-note", classes="hint")
         yield PsychroPlot(id="chart-plot")
         yield PointTable(id="chart-points")
+        yield Static(id="chart-detail", classes="hint")
         yield from self.footer_widgets()
 
     def on_mount(self) -> None:
         self.query_one(PointTable).add_columns(
-            " ", "air", "dry bulb", "RH", "humidity ratio", "dew point", "coldest", "worst surface"
+            " ", "air", "dry bulb", "RH", "humidity ratio", "dew point", "coldest"
         )
         self.app.theme_changed_signal.subscribe(self, lambda _theme: self.refresh_view())
         self.refresh_view()
@@ -95,6 +103,8 @@ class ChartScreen(walk.WalkScreen):
         if data is None:
             note.update(Text("No air reading on this visit yet: nothing to chart."))
             plot.display = False
+            self._points = ()
+            self._show_detail(-1)
             return
         plot.display = True
         d = self.app.display_units
@@ -105,17 +115,38 @@ class ChartScreen(walk.WalkScreen):
             )
         )
         self._plot(plot, data)
+        self._points = data.points
         for point in data.points:
             table.add_row(
                 Text(point.mark, style="bold"),
-                plain(point.name),
+                plain(walk.cut(point.name, NAME_WIDTH)),
                 Text(d.temperature(point.dry_bulb_c)),
                 Text(f"{point.rh_pct:.0f} %"),
                 Text(d("humidity_ratio", point.humidity_ratio_kg_per_kg)),
                 Text(d.temperature(point.dew_point_c)),
                 Text("" if point.coldest is None else d.temperature(point.coldest.surface_temp_c)),
-                Text(point.worst_words),
             )
+        self._show_detail(table.cursor_row)
+
+    def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
+        self._show_detail(event.cursor_row)
+
+    def _show_detail(self, row: int) -> None:
+        """The highlighted point in full: its name, coldest surface and worst surface."""
+        detail = self.query_one("#chart-detail", Static)
+        if not 0 <= row < len(self._points):
+            detail.update("")
+            return
+        point = self._points[row]
+        d = self.app.display_units
+        line = plain(point.name, "bold")
+        if point.coldest is not None:
+            line.append(": coldest surface ")
+            line.append(plain(point.coldest.label))
+            line.append(f" {d.temperature(point.coldest.surface_temp_c)}")
+        if point.worst_words:
+            line.append(f"; worst: {point.worst_words}")
+        detail.update(line)
 
     def _colour(self, part: str) -> tuple[int, int, int]:
         variables = self.app.theme_variables
