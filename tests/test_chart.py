@@ -524,3 +524,37 @@ async def test_chart_screen_without_air_readings_says_so(tmp_path, monkeypatch):
         await pilot.pause()
         note = app.screen.query_one("#chart-note", Static)
         assert "nothing to chart" in str(note.render())
+
+
+async def test_series_plot_draws_a_time_series():
+    """The app's SeriesPlot shows a time-series chart: its title and each series' name
+    (control characters made visible), in the light theme too."""
+    from textual.app import App
+
+    from survey.app.chart import SeriesPlot
+
+    data = chart.time_series_chart(
+        "Drying\x1b[2J",
+        [
+            ("Screed [b]x", [(T0, 98.0), (T0 + dt.timedelta(days=1), 80.0)]),
+            ("Wall", [(T0, 92.0), (T0 + dt.timedelta(days=2), 60.0)]),
+        ],
+        unit="WME %",
+        guides=[("Dry standard", 44.0)],
+    )
+
+    class Host(App):
+        def compose(self):
+            yield SeriesPlot()
+
+    app = Host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        plot = app.query_one(SeriesPlot)
+        plot.show(data)
+        await pilot.pause()
+        shown = str(plot.render())
+        assert "Drying\\x1b[2J" in shown and "\x1b[2J" not in shown
+        assert "Screed [b]x" in shown and "Wall" in shown
+        app.theme = "textual-light"
+        await pilot.pause()
+        assert "Wall" in str(plot.render())

@@ -10,9 +10,14 @@ Room names are user text: the plot marks points only with their number ("1", "2"
 for outdoors), and the table shows the names as plain ``Text`` (never markup, control
 characters visible). Colours come from the app's theme variables, so the chart reads in
 the light and the dark themes alike, and each kind of point has its own marker too.
+
+:class:`SeriesPlot` is the same widget for a :class:`survey.chart.TimeSeriesChart`, for
+screens that show drying progress or the mould-growth index.
 """
 
 from __future__ import annotations
+
+import datetime as dt
 
 from rich.text import Text
 from textual.binding import Binding
@@ -23,6 +28,7 @@ from textual_plotext import PlotextPlot
 from survey import chart, evaluate
 from survey.app import walk
 from survey.app.fields import plain
+from survey.safe_text import visible
 
 #: The theme variable that colours each part of the chart.
 COLOURS = {
@@ -210,3 +216,70 @@ def _short_label(line: chart.ChartLine) -> str:
     if line.key == "frost":
         return "frost (ice)"
     return f"{line.rh_pct:g} % RH"
+
+
+class SeriesPlot(PlotextPlot):
+    """A small plot of a :class:`survey.chart.TimeSeriesChart` (drying progress, the
+    mould-growth index): each series a line in its own theme colour, the guides dashed.
+    Give it a height in the screen's CSS; call :meth:`show` with the chart."""
+
+    DEFAULT_CSS = "SeriesPlot { height: 12; }"
+    #: The theme variable of each series in turn, and of the guides.
+    SERIES_COLOURS = ("primary", "success", "accent", "secondary", "error")
+    GUIDE_COLOUR = "warning"
+
+    def __init__(self, **kwargs) -> None:
+        super().__init__(**kwargs)
+        self._chart: chart.TimeSeriesChart | None = None
+
+    def on_mount(self) -> None:
+        super().on_mount()
+        self.app.theme_changed_signal.subscribe(self, lambda _theme: self._draw())
+
+    def show(self, data: chart.TimeSeriesChart) -> None:
+        self._chart = data
+        self._draw()
+
+    def _colour(self, name: str) -> tuple[int, int, int]:
+        variables = self.app.theme_variables
+        return Color.parse(variables.get(name, variables["foreground"])).rgb
+
+    def _draw(self) -> None:
+        data = self._chart
+        if data is None:
+            return
+        plt = self.plt
+        plt.clear_figure()
+        span_h = max((data.end - data.start).total_seconds() / 3600.0, 1e-9)
+
+        def hours(at) -> float:
+            return (at - data.start).total_seconds() / 3600.0
+
+        for number, series in enumerate(data.series):
+            if not series.values:
+                continue
+            plt.plot(
+                [hours(at) for at in series.times],
+                list(series.values),
+                marker="braille",
+                color=self._colour(self.SERIES_COLOURS[number % len(self.SERIES_COLOURS)]),
+                label=visible(series.name),
+            )
+        for guide in data.guides:  # a dotted line of its own colour, named in the legend
+            plt.plot(
+                [0.0, span_h],
+                [guide.value, guide.value],
+                marker="dot",
+                color=self._colour(self.GUIDE_COLOUR),
+                label=visible(guide.name),
+            )
+        ticks = [span_h * i / 3 for i in range(4)] if span_h > 1e-6 else [0.0]
+        form = "%d %b" if span_h >= 72 else "%d %b %H:%M"
+        labels = [(data.start + dt.timedelta(hours=h)).strftime(form) for h in ticks]
+        plt.xticks(ticks, labels)
+        axis = data.y_axis
+        plt.ylim(axis.low, axis.high)
+        plt.yticks(list(axis.ticks), [f"{t:g}" for t in axis.ticks])
+        plt.ylabel(f"{axis.label}, {axis.unit}" if axis.unit else axis.label)
+        plt.title(visible(data.title))
+        self.refresh()
