@@ -558,3 +558,16 @@ async def test_series_plot_draws_a_time_series():
         app.theme = "textual-light"
         await pilot.pause()
         assert "Wall" in str(plot.render())
+
+
+def test_chart_of_a_report_name_with_spaces(basement, tmp_path):
+    """A report called "site (1) #2" links its chart percent-encoded (so the Markdown link
+    holds), writes the file under its plain name, and the HTML of that name still carries
+    the chart inline."""
+    out = tmp_path / "site (1) #2.md"
+    assert main(["report", str(basement), "-o", str(out)]) == 0
+    assert "](site%20%281%29%20%232-chart-3.svg)" in out.read_text(encoding="utf-8")
+    assert (tmp_path / "site (1) #2-chart-3.svg").is_file()
+    page = tmp_path / "site (1) #2.html"
+    assert main(["report", str(basement), "--html", "-o", str(page)]) == 0
+    assert page.read_text(encoding="utf-8").count('src="data:image/svg+xml;base64,') == 1
