@@ -57,12 +57,15 @@ async def test_the_report_is_written_as_the_command_writes_it(tmp_path, kind):
         out = tmp_path / f"winter-flat-bedroom-mould-report.{kind}"
         assert "Report written" in app.status_text and out.name in app.status_text
     survey = store.load_survey(path)
-    expected = (
-        report.markdown_report(survey, _options(path))
-        if kind == "md"
-        else report.html_report(survey, _options(path))
-    )
-    assert out.read_text(encoding="utf-8") == expected
+    options = _options(path, chart_stem=out.stem)
+    if kind == "md":
+        doc, charts = report.build_with_charts(survey, options)
+        assert out.read_text(encoding="utf-8") == report.render(doc)
+        assert charts and all(
+            (tmp_path / c.name).read_text(encoding="utf-8") == c.svg for c in charts
+        )
+    else:
+        assert out.read_text(encoding="utf-8") == report.html_report(survey, options)
 
 
 async def test_the_preview_shows_the_report_and_follows_the_options(tmp_path):

@@ -28,7 +28,7 @@ def key_text(binding: Binding) -> str:
 
 def sections() -> list[tuple[str, list[Binding]]]:
     """Each screen's (or widget's) title and its bindings, as the help screen lists them."""
-    from survey.app import main, report_view, room, rooms, start, tables, visit, walk
+    from survey.app import chart, main, report_view, room, rooms, start, tables, visit, walk
 
     return [
         ("Everywhere", main.SurveyApp.BINDINGS),
@@ -42,6 +42,7 @@ def sections() -> list[tuple[str, list[Binding]]]:
         ("Equipment table", tables.EquipmentTable.BINDINGS),
         ("Instruments (site)", tables.InstrumentTable.BINDINGS),
         ("Report", report_view.ReportScreen.BINDINGS),
+        ("Chart", chart.ChartScreen.BINDINGS),
     ]
 
 

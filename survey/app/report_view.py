@@ -124,15 +124,10 @@ class ReportScreen(walk.WalkScreen):
 
     @work(thread=True, group="report-write", exit_on_error=False)
     def _write(self, survey: model.Survey, options, out: Path, html: bool) -> None:
-        from survey import report, store
+        from survey import report
 
         try:
-            text = (
-                report.html_report(survey, options)
-                if html
-                else report.markdown_report(survey, options)
-            )
-            store.write_file_atomically(out, text.encode("utf-8"))
+            written = report.write_report(survey, options, out, html)
         except (InputError, SurveyFileError, OSError) as exc:
             problem = str(exc)
             self.app.call_from_thread(
@@ -140,4 +135,10 @@ class ReportScreen(walk.WalkScreen):
             )
             return
         at = dt.datetime.now().strftime("%H:%M:%S")
-        self.app.call_from_thread(self.app.show_status, f"Report written {at} to {out}.", "saved")
+        charts = len(written) - 1
+        beside = (
+            f", with {charts} chart file{'s' if charts > 1 else ''} beside it" if charts else ""
+        )
+        self.app.call_from_thread(
+            self.app.show_status, f"Report written {at} to {out}{beside}.", "saved"
+        )

@@ -19,7 +19,10 @@ from survey.errors import InputError
 class RoomListScreen(walk.WalkScreen):
     TITLE_TEXT = "Rooms"
     PARENT = "visit"
-    BINDINGS = [Binding("ctrl+n", "next_room", "Next room to read", id="next_room")]
+    BINDINGS = [
+        Binding("ctrl+n", "next_room", "Next room to read", id="next_room"),
+        Binding("c", "chart", "Chart", id="rooms_chart"),
+    ]
 
     def __init__(self) -> None:
         super().__init__()
@@ -33,7 +36,7 @@ class RoomListScreen(walk.WalkScreen):
             Text(
                 "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing"
                 "  ★ reference\nEnter opens a room · Ctrl+N the next room to read"
-                " · [ ] move · f reference room · F1 all keys"
+                " · [ ] move · f reference room · c chart · F1 all keys"
             ),
             classes="hint",
         )
@@ -90,6 +93,12 @@ class RoomListScreen(walk.WalkScreen):
         room = self._current()
         if room is not None:
             self.app.open_room(room.id)
+
+    def action_chart(self) -> None:
+        """The visit's psychrometric chart (its module and plotext load only now)."""
+        from survey.app.chart import ChartScreen
+
+        self.app.push_screen(ChartScreen())
 
     def action_next_room(self) -> None:
         target = judging.next_room_needing(self.editor.survey, self.editor.visit_index, None)

@@ -5,7 +5,9 @@
     survey report flat9.json -o out/flat9.md --units ip --visit all
 
 The report is written whole or not at all (the store's atomic writer); the survey itself,
-its backup and its lock are never written over.
+its backup and its lock are never written over. A Markdown report links one psychrometric
+chart per visit shown, written beside it as ``REPORT-chart-N.svg`` (atomically too); an HTML
+report carries its charts inside the page.
 """
 
 from __future__ import annotations
@@ -118,21 +120,20 @@ def run_report(args: argparse.Namespace) -> int:
         generated_at=dt.datetime.now(dt.UTC).strftime("%Y-%m-%d %H:%M UTC"),
         source_name=path.name,
         survey_dir=path.parent,
-        report_dir=out.parent,
     )
     try:
-        text = (
-            report.html_report(survey, options)
-            if args.html
-            else report.markdown_report(survey, options)
+        written = report.write_report(
+            survey, options, out, args.html, lambda target: check_output(path, target, str(target))
         )
     except InputError as exc:
         if exc.field == "visit":
             raise exc.with_field("--visit") from None
         raise
-    store.write_file_atomically(out, text.encode("utf-8"))
     print(
         f"Wrote the report of {visible(path.name)} to {visible(out)}"
         f" ({'HTML' if args.html else 'Markdown'})."
     )
+    if len(written) > 1:
+        names = ", ".join(visible(p.name) for p in written[:-1])
+        print(f"Charts beside it: {names}.")
     return 0

@@ -18,7 +18,7 @@ from survey import thresholds as th
 from survey.advise import Caution
 from survey.assess import CondensationState, DryStandardState, FactorState, MouldState
 from survey.errors import InputError
-from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
+from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.report.rooms import Context, drying_section, photo_blocks, room_section
 from survey.words import report as rw
 
@@ -43,6 +43,27 @@ class ReportOptions:
     source_name: str = "survey.json"
     survey_dir: Path = Path(".")
     report_dir: Path = Path(".")
+    #: The stem of the chart files beside the report ("" for no charts): ``flat-report``
+    #: links ``flat-report-chart-1.svg`` for visit 1 (see :func:`chart_name`).
+    chart_stem: str = ""
+
+
+#: The heading over a visit's psychrometric chart.
+CHART_HEADING = "Psychrometric chart"
+
+
+@dataclass(frozen=True, slots=True)
+class ChartFile:
+    """A chart the report links: its file name beside the report, its alt text, its SVG."""
+
+    name: str
+    alt: str
+    svg: str
+
+
+def chart_name(stem: str, visit_number: int) -> str:
+    """The file name of a visit's chart beside the report: ``STEM-chart-N.svg``."""
+    return f"{stem}-chart-{visit_number}.svg"
 
 
 def selected_visits(survey: model.Survey, visit: int | str) -> list[int]:
@@ -69,7 +90,18 @@ def build(
 
     ``assessments`` may hold visits already judged (by visit index), e.g. by a face that
     shows them too; the others are judged here by :func:`survey.evaluate.assess_visit`."""
+    return build_with_charts(survey, options, assessments)[0]
+
+
+def build_with_charts(
+    survey: model.Survey,
+    options: ReportOptions | None = None,
+    assessments: dict[int, evaluate.VisitAssessment] | None = None,
+) -> tuple[Document, tuple[ChartFile, ...]]:
+    """The report, and the chart files it links (none unless ``options.chart_stem``): one
+    psychrometric chart per visit shown, placed after that visit's conditions."""
     options = options or ReportOptions()
+    charts: list[ChartFile] = []
     d = words.Display(options.units or survey.site.unit_system)
     shown = selected_visits(survey, options.visit)
     ctx = Context(
@@ -88,7 +120,7 @@ def build(
     _summary(doc, ctx, shown)
     _scope(doc, ctx, shown)
     for index in shown:
-        _visit(doc, ctx, index)
+        _visit(doc, ctx, index, options.chart_stem, charts)
     if len(survey.visits) > 1:
         drying_section(doc, ctx)
     _safety(doc, ctx, shown)
@@ -97,7 +129,7 @@ def build(
         Heading(2, rw.HEADINGS["glossary"]),
         Items(tuple((term + ":", text) for term, text in rw.glossary(d))),
     )
-    return doc
+    return doc, tuple(charts)
 
 
 def _title_block(doc: Document, ctx: Context, shown: list[int]) -> None:
@@ -334,7 +366,33 @@ def _air_row(name: str, state: Any, d: words.Display) -> tuple[Cell, ...]:
     )
 
 
-def _visit(doc: Document, ctx: Context, index: int) -> None:
+def _chart(doc: Document, ctx: Context, index: int, stem: str, charts: list[ChartFile]) -> None:
+    """The visit's psychrometric chart: an SVG file beside the report, linked as an image."""
+    from urllib.parse import quote
+
+    from survey import chart
+    from survey.report import svg
+
+    survey = ctx.survey
+    visit = survey.visits[index]
+    va = ctx.assessment(index)
+    if not va.findings.rooms and va.findings.outdoor is None:
+        return
+    data = chart.psychro_chart(va, ctx.d.system)
+    title = rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at)
+    name = chart_name(stem, index + 1)
+    alt = svg.psychro_alt(data, title)
+    charts.append(ChartFile(name, alt, svg.psychro_svg(data, title)))
+    doc.add(Heading(3, CHART_HEADING), Photo(alt, quote(name)))
+
+
+def _visit(
+    doc: Document,
+    ctx: Context,
+    index: int,
+    chart_stem: str = "",
+    charts: list[ChartFile] | None = None,
+) -> None:
     survey, d = ctx.survey, ctx.d
     visit = survey.visits[index]
     va = ctx.assessment(index)
@@ -369,6 +427,8 @@ def _visit(doc: Document, ctx: Context, index: int) -> None:
                 visit=index + 1,
             )
         )
+    if chart_stem and charts is not None:
+        _chart(doc, ctx, index, chart_stem, charts)
     if visit.inspector.strip() and visit.inspector != survey.site.inspector:
         doc.add(Para(visit.inspector, strong=rw.TITLE_LABELS["inspector"] + ":"))
     if visit.notes.strip():

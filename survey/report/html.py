@@ -4,12 +4,14 @@ markdown-it-py (CommonMark with GitHub's tables) renders the same Markdown the `
 report holds, with raw HTML switched off (``html=False``), so any ``<tag>`` that reached the
 Markdown is shown as text, never passed through. The page carries its print stylesheet
 inline: no scripts, no fonts or styles fetched from anywhere; photos are linked by relative
-path. A browser prints it to PDF.
+path, charts carried inline as ``data:`` URIs. A browser prints it to PDF.
 """
 
 from __future__ import annotations
 
+import base64
 import html
+from collections.abc import Mapping
 from typing import Any
 
 #: Print-friendly styles: A4 margins, tables that break between rows, headings kept with
@@ -46,9 +48,26 @@ def parser() -> Any:
     )
 
 
-def to_html(markdown_text: str, title: str) -> str:
-    """A whole HTML document of the Markdown report, titled ``title``."""
-    body = parser().render(markdown_text)
+def _embed_images(md: Any, tokens: list[Any], images: Mapping[str, str]) -> None:
+    """Point every image whose link is a key of ``images`` (an SVG beside the report) at a
+    ``data:`` URI of that SVG, so the page needs no file beside it. An ``<img>`` never runs
+    what an SVG holds, and ours holds no script anyway."""
+    wanted = {md.normalizeLink(link): svg for link, svg in images.items()}
+    for token in tokens:
+        for child in token.children or ():
+            if child.type == "image" and child.attrGet("src") in wanted:
+                data = base64.b64encode(wanted[child.attrGet("src")].encode("utf-8"))
+                child.attrSet("src", "data:image/svg+xml;base64," + data.decode("ascii"))
+
+
+def to_html(markdown_text: str, title: str, images: Mapping[str, str] | None = None) -> str:
+    """A whole HTML document of the Markdown report, titled ``title``; ``images`` maps the
+    links of charts in the Markdown to their SVG text, which the page then carries inline."""
+    md = parser()
+    tokens = md.parse(markdown_text)
+    if images:
+        _embed_images(md, tokens, images)
+    body = md.renderer.render(tokens, md.options, {})
     return (
         '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n'
         '<meta name="viewport" content="width=device-width, initial-scale=1">\n'
