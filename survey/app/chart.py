@@ -81,7 +81,7 @@ class ChartScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         self.query_one(PointTable).add_columns(
-            " ", "air", "dry bulb", "RH", "humidity ratio", "dew point", "coldest"
+            " ", "air", "dry bulb", "RH", "humidity ratio", "dew/frost pt", "coldest"
         )
         self.app.theme_changed_signal.subscribe(self, lambda _theme: self.refresh_view())
         self.refresh_view()
@@ -129,7 +129,7 @@ class ChartScreen(walk.WalkScreen):
                 Text(d.temperature(point.dry_bulb_c)),
                 Text(f"{point.rh_pct:.0f} %"),
                 Text(d("humidity_ratio", point.humidity_ratio_kg_per_kg)),
-                Text(d.temperature(point.dew_point_c)),
+                Text(d.temperature(point.condensation_point_c)),
                 Text("" if point.coldest is None else d.temperature(point.coldest.surface_temp_c)),
             )
         self._show_detail(table.cursor_row)
