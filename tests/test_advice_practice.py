@@ -489,3 +489,65 @@ def test_factor_under_at_the_reading_on_a_mouldy_surface_gets_its_action():
     raised = action(result, ActionKind.RAISE_SURFACE_TEMPERATURE).numbers
     assert raised.temperature_factor == pytest.approx((12.6 - 2.0) / (17.5 - 2.0))
     assert raised.factor_unclear is True and raised.factor_under is True
+
+
+# --- a wet room in weather that ventilation cannot use --------------------------------------
+
+
+def _humid_day(use: str, **more) -> quick.QuickResult:
+    """A room at 20 °C, 75 % (10.96 g/kg by psychrolib) on a muggy day, 18 °C and 95 %
+    outdoors (12.27 g/kg): outdoor air is wetter, so general ventilation would add water."""
+    return judge(
+        air_temp_c=20.0,
+        rh_pct=75.0,
+        surfaces=(assess.SurfaceInput("wall", 14.0),),
+        outdoor=assess.OutdoorInput(18.0, 95.0),
+        use=use,
+        volume_m3=12.0,
+        **more,
+    )
+
+
+def test_a_wet_room_still_extracts_at_the_source_when_outdoor_air_is_wetter():
+    """A bathroom dehumidifies with the windows shut, and still runs its extract while it is
+    in use: the higher of 15 L/s = 54 m³/h (Approved Document F, from memory) and 50 cfm =
+    84.95 m³/h (ASHRAE 62.2, from memory; 1 cfm = 1.699 m³/h) while in use, or continuous
+    at the higher of 8 L/s = 28.8 m³/h and 20 cfm = 33.98 m³/h."""
+    result = _humid_day("bathroom")
+    assert kinds(result) == ["dehumidify", "extract_at_source"]
+    assert action(result, ActionKind.DEHUMIDIFY).numbers.why is DehumidifyWhy.OUTDOOR_WETTER
+    n = action(result, ActionKind.EXTRACT_AT_SOURCE).numbers
+    assert n.intermittent_m3_per_h == pytest.approx(50.0 * 0.3048**3 * 60.0, rel=1e-9)
+    assert n.intermittent_m3_per_h == pytest.approx(84.95, abs=0.01)
+    assert n.intermittent_ft3_per_min == pytest.approx(50.0, rel=1e-9)
+    assert n.code_minimum_m3_per_h == pytest.approx(33.98, abs=0.01)
+    assert n.outdoor_humidity_ratio_g_per_kg > n.room_humidity_ratio_g_per_kg
+    assert "combustion_air" in [c.key for c in result.cautions]  # a fan pulls air out
+    text = words.action_reason(
+        action(result, ActionKind.EXTRACT_AT_SOURCE), result.finding, result.advice, words.SI
+    )
+    assert "at least 85 m³/h during showers and baths" in text
+    assert "local code sets its own" in text
+
+
+def test_a_kitchen_extracts_at_the_source_and_a_bedroom_does_not():
+    """The kitchen's figure while cooking: the higher of 30 L/s = 108 m³/h (Approved
+    Document F, from memory) and 100 cfm = 169.9 m³/h (ASHRAE 62.2, from memory); a bedroom
+    has no extract minimum, so it only dehumidifies."""
+    kitchen = action(_humid_day("kitchen"), ActionKind.EXTRACT_AT_SOURCE).numbers
+    assert kitchen.intermittent_m3_per_h == pytest.approx(100.0 * 0.3048**3 * 60.0, rel=1e-9)
+    assert kinds(_humid_day("bedroom", occupants=2)) == ["dehumidify"]
+
+
+def test_a_wet_room_with_no_outdoor_reading_extracts_too():
+    """Without the outdoor air the dehumidifier leads and the extract follows."""
+    result = judge(
+        air_temp_c=20.0,
+        rh_pct=75.0,
+        surfaces=(assess.SurfaceInput("wall", 14.0),),
+        use="bathroom",
+        volume_m3=12.0,
+    )
+    assert kinds(result) == ["dehumidify", "extract_at_source"]
+    n = action(result, ActionKind.EXTRACT_AT_SOURCE).numbers
+    assert n.outdoor_humidity_ratio_g_per_kg is None

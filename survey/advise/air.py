@@ -30,6 +30,7 @@ from survey.advise.kinds import (
     ActionKind,
     DehumidifyNumbers,
     DehumidifyWhy,
+    ExtractNumbers,
     MoistureEstimate,
     OutdoorMode,
     Target,
@@ -339,10 +340,39 @@ def _materials_load(finding: RoomFinding) -> tuple[float, int, bool, tuple[str, 
     )
 
 
+def _extract_at_source(finding: RoomFinding, mode: OutdoorMode) -> Action[Any] | None:
+    """For a wet room whose outdoor air is no help to general ventilation now: extract while
+    the room is in use, when the air leaving is far wetter than outdoor air; None for a
+    room with no extract minimum."""
+    in_use = loads.extract_while_in_use(finding.use)
+    continuous = loads.extract_minimum(finding.use, finding.room.volume_m3)
+    if in_use is None or continuous is None:
+        return None
+    out = finding.outdoor
+    numbers = ExtractNumbers(
+        use=finding.use,
+        outdoor_mode=mode,
+        room_humidity_ratio_g_per_kg=finding.air.humidity_ratio_g_per_kg,
+        outdoor_humidity_ratio_g_per_kg=None if out is None else out.humidity_ratio_g_per_kg,
+        intermittent_m3_per_h=in_use[0],
+        intermittent_ft3_per_min=in_use[0] / loads.M3_PER_H_PER_CFM,
+        code_minimum_m3_per_h=continuous[0],
+    )
+    return Action(ActionKind.EXTRACT_AT_SOURCE, numbers, _keys(in_use[1], continuous[1]))
+
+
+def _with_extract(
+    finding: RoomFinding, actions: list[Action[Any]], mode: OutdoorMode
+) -> list[Action[Any]]:
+    extract = _extract_at_source(finding, mode)
+    return actions if extract is None else [*actions, extract]
+
+
 def _moisture_actions(
     finding: RoomFinding, target: Target, target_air: AirState, moisture: MoistureEstimate
 ) -> list[Action[Any]]:
-    """Ventilate, dehumidify, or both, for a room above its target (see the module notes)."""
+    """Ventilate, dehumidify, or both, for a room above its target (see the module notes).
+    Where outdoor air is no help now, a wet room still extracts at the source."""
     air, out = finding.air, finding.outdoor
     margin_key = "ventilation_outdoor_drier_margin_g_per_kg"
     margin = th.value(margin_key) / 1000.0
@@ -350,16 +380,20 @@ def _moisture_actions(
     w_room = air.humidity_ratio_kg_per_kg
     w_target = target_air.humidity_ratio_kg_per_kg
     if out is None:
-        return [
-            _dehumidify(
-                finding,
-                target,
-                target_air,
-                moisture,
-                DehumidifyWhy.OUTDOOR_NOT_MEASURED,
-                extra_keys=target.threshold_keys,
-            )
-        ]
+        return _with_extract(
+            finding,
+            [
+                _dehumidify(
+                    finding,
+                    target,
+                    target_air,
+                    moisture,
+                    DehumidifyWhy.OUTDOOR_NOT_MEASURED,
+                    extra_keys=target.threshold_keys,
+                )
+            ],
+            OutdoorMode.NOT_MEASURED,
+        )
     w_out = out.humidity_ratio_kg_per_kg
     coldest = finding.coldest
     if (
@@ -369,28 +403,37 @@ def _moisture_actions(
     ):
         # Airing can only bring the room's dew point down to outdoor air's, still above the
         # coldest surface: keep windows closed and dehumidify below it.
-        return [
-            _dehumidify(
-                finding,
-                target,
-                target_air,
-                moisture,
-                DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
-                extra_keys=(*target.threshold_keys, margin_key),
-            )
-        ]
+        return _with_extract(
+            finding,
+            [
+                _dehumidify(
+                    finding,
+                    target,
+                    target_air,
+                    moisture,
+                    DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
+                    extra_keys=(*target.threshold_keys, margin_key),
+                )
+            ],
+            OutdoorMode.HOLDS_TARGET,
+        )
     if w_out > w_room - margin:
-        why = DehumidifyWhy.OUTDOOR_WETTER if w_out >= w_room else DehumidifyWhy.OUTDOOR_ABOUT_SAME
-        return [
-            _dehumidify(
-                finding,
-                target,
-                target_air,
-                moisture,
-                why,
-                extra_keys=(*target.threshold_keys, margin_key),
-            )
-        ]
+        wetter = w_out >= w_room
+        why = DehumidifyWhy.OUTDOOR_WETTER if wetter else DehumidifyWhy.OUTDOOR_ABOUT_SAME
+        return _with_extract(
+            finding,
+            [
+                _dehumidify(
+                    finding,
+                    target,
+                    target_air,
+                    moisture,
+                    why,
+                    extra_keys=(*target.threshold_keys, margin_key),
+                )
+            ],
+            OutdoorMode.WETTER if wetter else OutdoorMode.ABOUT_SAME,
+        )
     if w_out <= w_target - margin:
         ventilate = _ventilate(finding, target, target_air, moisture)
         actions = [ventilate]

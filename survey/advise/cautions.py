@@ -120,7 +120,7 @@ def _closes_up(actions: tuple[Action[Any], ...]) -> bool:
 def _extracts(actions: tuple[Action[Any], ...]) -> bool:
     """Whether the advice adds extract ventilation (a fan pulling air out of the room)."""
     return any(
-        a.kind is ActionKind.VENTILATE
+        a.kind in (ActionKind.VENTILATE, ActionKind.EXTRACT_AT_SOURCE)
         or (a.kind is ActionKind.REPEAT_READINGS and a.numbers.wet_room_peak)
         for a in actions
     )

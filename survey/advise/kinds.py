@@ -27,6 +27,7 @@ class ActionKind(Enum):
     REPEAT_READINGS = "repeat_readings"
     DRY_VENTILATED_SPACE = "dry_ventilated_space"
     REMOVE_CONTAMINATED_MATERIALS = "remove_contaminated_materials"
+    EXTRACT_AT_SOURCE = "extract_at_source"
 
     def __str__(self) -> str:
         return self.value
@@ -174,6 +175,21 @@ class DehumidifyNumbers(msgspec.Struct, frozen=True, kw_only=True):
     water_loss_class_assumed: bool = False
     #: contaminated water: drying is only for what remains after removal
     after_removal: bool | None = None
+
+
+class ExtractNumbers(msgspec.Struct, frozen=True, kw_only=True):
+    """A wet room whose outdoor air is no help to general ventilation: extract the vapour
+    while it is made, when the air leaving holds far more water than outdoor air."""
+
+    __words__: ClassVar[frozenset[str]] = frozenset(("use", "outdoor_mode"))
+    use: str
+    outdoor_mode: OutdoorMode  #: WETTER, ABOUT_SAME, NOT_MEASURED or HOLDS_TARGET (dew point)
+    room_humidity_ratio_g_per_kg: float
+    outdoor_humidity_ratio_g_per_kg: float | None
+    #: the usual code minimum while in use (intermittent) and running continuously
+    intermittent_m3_per_h: float
+    intermittent_ft3_per_min: float
+    code_minimum_m3_per_h: float
 
 
 class RaiseSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
@@ -371,6 +387,7 @@ ActionNumbers = (
     | KeepDryingNumbers
     | RepeatReadingsNumbers
     | VentilatedSpaceNumbers
+    | ExtractNumbers
 )
 #: The numbers record of one action kind.
 N = TypeVar(
@@ -384,6 +401,7 @@ N = TypeVar(
     KeepDryingNumbers,
     RepeatReadingsNumbers,
     VentilatedSpaceNumbers,
+    ExtractNumbers,
     ActionNumbers,
 )
 

@@ -159,6 +159,25 @@ def _typical_wet_room_load(use: str) -> tuple[str, float, float, list[str]]:
 _L_PER_S_TO_M3_PER_H = 3.6  # 1 L/s = 3.6 m³/h
 
 
+def extract_while_in_use(use: str) -> tuple[float, tuple[str, ...]] | None:
+    """The usual code minimum extract while a wet room is in use (switched on with the
+    activity and run on after it), m³/h: the higher of England's Approved Document F and
+    ASHRAE 62.2 (both from memory; local codes rule), with the keys used; None for a room
+    with no extract minimum."""
+    if use not in ("bathroom", "kitchen", "utility"):
+        return None
+    candidates = [
+        (
+            th.value(f"extract_{use}_intermittent_l_per_s") * _L_PER_S_TO_M3_PER_H,
+            f"extract_{use}_intermittent_l_per_s",
+        )
+    ]
+    if use in ("bathroom", "kitchen"):
+        key = f"extract_{use}_intermittent_cfm"
+        candidates.append((th.value(key) * M3_PER_H_PER_CFM, key))
+    return max(value for value, _ in candidates), tuple(key for _, key in candidates)
+
+
 def extract_minimum(use: str, volume_m3: float | None) -> tuple[float, tuple[str, ...]] | None:
     """The usual code minimum continuous extract for a wet room, m³/h: the higher of the
     figures compared (England's Approved Document F, ASHRAE 62.2; both from memory, local

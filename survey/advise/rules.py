@@ -53,6 +53,10 @@ __all__ = [
 # --- the advice --------------------------------------------------------------------------------
 
 
+#: The actions on the room's air, which the cure of a cold surface may lead.
+_AIR_KINDS = frozenset((ActionKind.VENTILATE, ActionKind.DEHUMIDIFY, ActionKind.EXTRACT_AT_SOURCE))
+
+
 def advise_room(
     finding: RoomFinding, target_rh_pct: float | None = None, year_built: int | None = None
 ) -> RoomAdvice:
@@ -110,9 +114,7 @@ def advise_room(
         actions = [_after_removal(a) for a in actions]
 
     by_temperature = sorted(finding.surfaces, key=lambda s: s.surface_temp_c)
-    lead = len(actions) - sum(
-        1 for a in actions if a.kind in (ActionKind.VENTILATE, ActionKind.DEHUMIDIFY)
-    )
+    lead = len(actions) - sum(1 for a in actions if a.kind in _AIR_KINDS)
     for surface in by_temperature:
         if surface.policy.sets_room_target and not ventilated_space:
             action = _raise_surface(finding, surface, design)

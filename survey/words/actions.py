@@ -14,7 +14,13 @@ from survey.advise.kinds import (
     RoomAdvice,
 )
 from survey.assess import RoomFinding
-from survey.words.air import _dehumidify, _occupants_note, _ventilate, _ventilated_space
+from survey.words.air import (
+    _dehumidify,
+    _extract,
+    _occupants_note,
+    _ventilate,
+    _ventilated_space,
+)
 from survey.words.basis import moisture_basis, moisture_missing, target_basis
 from survey.words.display import Display
 from survey.words.sources import _find_source, _keep_drying, _remove_contaminated, _repeat
@@ -33,6 +39,7 @@ __all__ = [
 
 TITLES = {
     ActionKind.VENTILATE: "Ventilate",
+    ActionKind.EXTRACT_AT_SOURCE: "Extract the moisture where it is made",
     ActionKind.DEHUMIDIFY: "Dehumidify",
     ActionKind.RAISE_SURFACE_TEMPERATURE: "Raise the surface temperature",
     ActionKind.FIND_SOURCE: "Find the moisture source",
@@ -73,6 +80,8 @@ def action_reason(action: Action[Any], finding: RoomFinding, advice: RoomAdvice,
         return _remove_contaminated(n, d)
     if kind is ActionKind.REPEAT_READINGS:
         return _repeat(n, d)
+    if kind is ActionKind.EXTRACT_AT_SOURCE:
+        return _extract(n, d)
     return _ventilated_space(n, d)
 
 
@@ -89,6 +98,8 @@ def action_numbers(action: Action[Any], d: Display) -> str:
         if n.air_changes_per_h is not None:
             text += f" ({n.air_changes_per_h:.1f} air changes an hour)"
         return text
+    if kind is ActionKind.EXTRACT_AT_SOURCE:
+        return f"at least {d.at_least('airflow', n.intermittent_m3_per_h)} while in use"
     if kind is ActionKind.DEHUMIDIFY and n.removal_l_per_day:
         return f"at least {d.at_least('water_rate', n.removal_l_per_day)}"
     if kind is ActionKind.RAISE_SURFACE_TEMPERATURE:

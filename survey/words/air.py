@@ -7,6 +7,7 @@ from survey.advise.kinds import (
     ActionKind,
     DehumidifyNumbers,
     DehumidifyWhy,
+    ExtractNumbers,
     OutdoorMode,
     RoomAdvice,
     VentilatedSpaceNumbers,
@@ -175,6 +176,44 @@ def _ventilate(n: VentilateNumbers, finding: RoomFinding, advice: RoomAdvice, d:
             " Use trickle vents or a continuous extract fan, and open windows fully for a few "
             "minutes, often."
         )
+    )
+
+
+#: What makes the water in each wet room, for the extract sentence.
+_WET_ACTIVITY = {
+    "bathroom": "showers and baths",
+    "kitchen": "cooking",
+    "utility": "washing and drying clothes",
+}
+_OUTDOOR_NOW = {
+    OutdoorMode.WETTER: "Outdoor air is wetter than the room air now",
+    OutdoorMode.ABOUT_SAME: "Outdoor air is about as wet as the room air now",
+    OutdoorMode.HOLDS_TARGET: "Outdoor air is drier, but its dew point is above the coldest "
+    "surface",
+    OutdoorMode.NOT_MEASURED: "The outdoor air was not measured",
+}
+
+
+def _extract(n: ExtractNumbers, d: Display) -> str:
+    activity = _WET_ACTIVITY.get(n.use, "the room's use")
+    outdoor = (
+        ""
+        if n.outdoor_humidity_ratio_g_per_kg is None
+        else f" ({_hr(d, n.outdoor_humidity_ratio_g_per_kg)} against "
+        f"{_hr(d, n.room_humidity_ratio_g_per_kg)})"
+    )
+    return (
+        f"{_OUTDOOR_NOW[n.outdoor_mode]}{outdoor}, so airing the room does not dry it. The "
+        f"water of {activity} is made in bursts, though, and air drawn out while it is made "
+        f"holds far more water than any outdoor air: extract it at the source. Run an "
+        f"extract fan of at least {d.at_least('airflow', n.intermittent_m3_per_h)} during "
+        f"{activity} and for 15 to 20 minutes after (switched with the light, or by a "
+        f"humidistat), with the door to the rest of the home shut, or one running "
+        f"continuously at no less than {d.at_least('airflow', n.code_minimum_m3_per_h)}; "
+        f"check that the fan runs and moves air (a tissue held to the grille is drawn to "
+        f"it). These are the usual code minimums (England's Approved Document F, and ASHRAE "
+        f"62.2 in the US; from memory); the local code sets its own. Between uses keep "
+        f"windows shut so the dehumidifier works on the room's own air."
     )
 
 

@@ -111,7 +111,8 @@ def moisture_basis(moisture: MoistureEstimate, use: str, d: Display) -> str:
             "laundry": f"{amount:g} wash load{'s' if amount != 1 else ''} dried indoors a day",
         }[moisture.typical_use_assumed]
         people.append(
-            f"no use entered, so {USE_PHRASE[use]}'s typical {what} is assumed: "
+            "no daily use entered (showers, cooking, laundry), so "
+            f"{USE_PHRASE[use]}'s typical {what} is assumed: "
             f"{d.moisture_rate(moisture.activities_g_per_h)} over the day"
         )
     elif moisture.activities_g_per_h is not None:
