@@ -279,7 +279,7 @@ class SurfaceProjection(NamedTuple):
     design_surface_rh_low_pct: float | None
     design_surface_rh_high_pct: float | None
     today_surface_rh_pct: float
-    today_mould: MouldState
+    today_mould: MouldState  #: today's state (with its band)
     today_condensation: CondensationState
     lowest_month: LowestMonth | None
 
@@ -289,21 +289,24 @@ class SurfaceProjection(NamedTuple):
 
     @property
     def fails_in_month(self) -> bool:
-        """Above the mould limit, or condensing, in the design month."""
-        return self.state in _FAILING
+        """Above the mould limit, or condensing, in the design month, across its whole band
+        (a band from above the mould limit to condensing fails either way)."""
+        return self.projected and all(p in _FAILING for p in self.possible)
 
     @property
     def may_fail_in_month(self) -> bool:
-        """The band reaches above the mould limit though the state is not settled."""
-        return self.state is DesignState.CANNOT_TELL and any(p in _FAILING for p in self.possible)
+        """The band reaches above the mould limit, though its lower end is below it."""
+        return (
+            self.state is DesignState.CANNOT_TELL
+            and not self.fails_in_month
+            and any(p in _FAILING for p in self.possible)
+        )
 
     @property
     def safe_today(self) -> bool:
-        """Today's reading is below the mould limit and clear of condensation."""
-        return self.today_mould in (
-            MouldState.BELOW,
-            MouldState.APPROACHING,
-        ) and self.today_condensation in (CondensationState.CLEAR, CondensationState.NEAR)
+        """Today's reading itself is at or below the mould limit (and so clear of
+        condensation): the surface looks safe on the day."""
+        return self.today_surface_rh_pct <= th.value("surface_rh_mould_limit_pct")
 
     @property
     def only_safe_today(self) -> bool:
