@@ -86,9 +86,9 @@ import math
 from collections.abc import Callable
 from dataclasses import dataclass
 from enum import Enum
-from typing import NamedTuple
+from typing import TYPE_CHECKING, NamedTuple
 
-from survey import model, psychro
+from survey import psychro
 from survey import thresholds as th
 from survey.assess import (
     CondensationState,
@@ -99,6 +99,9 @@ from survey.assess import (
     SurfaceFinding,
 )
 from survey.errors import InputError
+
+if TYPE_CHECKING:  # the model (msgspec) stays off the quick check's import path
+    from survey import model
 
 _SQRT3 = math.sqrt(3.0)
 

@@ -43,6 +43,17 @@ INTRO = (
     "measurement of that month: a logger over the winter settles it."
 )
 
+#: The table of surfaces in the design month: its title and columns (name, numbers on the right).
+TABLE_TITLE = "Surfaces in the design month"
+TABLE_COLUMNS = (
+    ("Surface", False),
+    ("Surface RH today", True),
+    ("Surface temp. in the month", True),
+    ("Surface RH in the month", True),
+    ("In the month", False),
+    ("Lowest month it bears", True),
+)
+
 STATE_WORDS = {
     DesignState.BELOW: "below the mould limit",
     DesignState.ABOVE: "above the mould limit",
@@ -358,7 +369,8 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
         lines.append(f"May pass the mould limit in the colder month: {_names(maybe)}.")
     if room.only_safe_today:
         lines.append(
-            "Only look safe today (below the mould limit now, not in the colder month): "
+            "Only look safe today (at or below the mould limit on the day; above it, or possibly "
+            "above it, in the colder month): "
             f"{_names(room.only_safe_today)}."
         )
     projected = [s for s in room.surfaces if s.projected]
