@@ -117,7 +117,7 @@ def not_projected_reason(
     if p.state is DesignState.NOT_MEASURABLE:
         why = None if finding is None else factor_not_judged_reason(finding, d)
         return "cannot be judged: the temperature factor was not measurable today" + (
-            f" ({why})" if why else ""
+            f"; {why}" if why else ""
         )
     if room.reason is RoomReason.INDOOR_NOT_WARMER:
         return (
@@ -229,7 +229,7 @@ def lowest_month_text(p: SurfaceProjection, d: Display) -> str:
     if m is None or m.outcome is InverseOutcome.NO_BRACKET:
         return "–"
     if m.outcome is InverseOutcome.FAILS_AT_WARM_END:
-        return f"none from {d.temperature(m.bracket_high_c)} down"
+        return f"none: above the limit at {d.temperature(m.bracket_high_c)}"
     return _end((m.outcome, m.outdoor_temp_c), m, d)
 
 
@@ -397,3 +397,53 @@ def panel_lines(room: RoomProjection, d: Display) -> list[str]:
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
     )
     return [head, line]
+
+
+# --- the report ------------------------------------------------------------------------------
+
+#: The report's table of a room's surfaces in the design month.
+REPORT_COLUMNS = (
+    "Surface",
+    "Surface RH today",
+    "Surface temp. in the month",
+    "Surface RH in the month",
+    "In the month",
+    "Lowest month it bears",
+)
+#: The subject of a surface's sentence where its label leads the line.
+THIS_SURFACE = "this surface"
+NO_SURFACES = "No surface was measured in this room."
+SITE_VERDICT_LEAD = "Across the rooms:"
+LIMITS_LEAD = "The limits and choices the colder month rests on:"
+
+
+def site_month_unusable(problem: str) -> str:
+    """The site's design month cannot be projected to: what is wrong, and what is used."""
+    return f"The site's design month cannot be used ({problem}); our default month is used instead."
+
+
+def _by_room(rooms: Iterable[RoomProjection], pick: str) -> str:
+    parts = []
+    for room in rooms:
+        chosen = [s for s in room.surfaces if getattr(s, pick)]
+        if chosen:
+            parts.append(f"{visible(room.name)} ({_names(chosen)})")
+    return ", ".join(parts)
+
+
+def site_verdict_lines(rooms: Iterable[RoomProjection]) -> list[str]:
+    """Which surfaces of the site fail in the colder month, which may, and which of them
+    only look safe today, room by room."""
+    rooms = list(rooms)
+    lines = []
+    for pick, lead in (
+        ("fails_in_month", "Above the mould limit or condensing in the colder month"),
+        ("may_fail_in_month", "May pass the mould limit in the colder month"),
+        ("only_safe_today", "Only look safe today"),
+    ):
+        found = _by_room(rooms, pick)
+        if found:
+            lines.append(f"{lead}: {found}.")
+    if not lines and any(s.projected for room in rooms for s in room.surfaces):
+        lines.append("Every projected surface stays below the mould limit in the colder month.")
+    return lines
