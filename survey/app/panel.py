@@ -6,12 +6,16 @@ from __future__ import annotations
 from rich.text import Text
 from textual.widgets import Static
 
-from survey import words
+from survey import season, words
 from survey.app.fields import plain
 from survey.app.judging import RoomJudgement
+from survey.errors import InputError
+from survey.words import season as ws
 
 
-def panel_text(judged: RoomJudgement | None, d: words.Display) -> Text:
+def panel_text(
+    judged: RoomJudgement | None, d: words.Display, month: season.DesignMonth | None = None
+) -> Text:
     if judged is None:
         return Text(
             "Give the room's air temperature and RH to see its dew point, the "
@@ -39,6 +43,13 @@ def panel_text(judged: RoomJudgement | None, d: words.Display) -> Text:
         out.append("No wall, ceiling or floor measured: no highest safe room RH.\n")
     else:
         out.append("No surface measured yet.\n")
+    if month is not None:
+        lines = ws.panel_lines(season.project_room(f, month, lowest_month=False), d)
+        if lines:
+            out.append(f"\n{lines[0]}\n", style="bold")
+            for line in lines[1:]:
+                out.append(plain(line))
+                out.append("\n")
     out.append("\nWhat to do\n", style="bold")
     if not advice.actions:
         out.append("Nothing to do from these readings.\n")
@@ -64,4 +75,15 @@ class LivePanel(Static):
     DEFAULT_CLASSES = "live-panel"
 
     def show(self, judged: RoomJudgement | None, d: words.Display) -> None:
-        self.update(panel_text(judged, d))
+        self.update(panel_text(judged, d, self._design_month()))
+
+    def _design_month(self) -> season.DesignMonth:
+        """The survey site's design month (our default where it gives none or one that
+        cannot be used)."""
+        editor = getattr(self.app, "editor", None)
+        if editor is None:
+            return season.default_design_month()
+        try:
+            return season.site_design_month(editor.survey.site)
+        except InputError:
+            return season.default_design_month()

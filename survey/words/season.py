@@ -384,6 +384,8 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
 def panel_lines(room: RoomProjection, d: Display) -> list[str]:
     """The app's room panel: the design month in brief and the worst surface, today's surface
     RH beside the projected one."""
+    if not room.surfaces:
+        return []
     month = room.month
     head = f"{HEADING} ({_temp(month.outdoor_temp_c, d)} outside, {month.outdoor_rh_pct:.0f} % RH"
     head += ", our default)" if month.is_default else ")"
@@ -447,3 +449,16 @@ def site_verdict_lines(rooms: Iterable[RoomProjection]) -> list[str]:
     if not lines and any(s.projected for room in rooms for s in room.surfaces):
         lines.append("Every projected surface stays below the mould limit in the colder month.")
     return lines
+
+
+def site_field_hints(d: Display) -> dict[str, str]:
+    """What an empty design-month field of the site means, for the app's placeholders."""
+    return {
+        "outdoor_temp": "the design month's mean, for the colder month; blank: our default, "
+        + _temp(th.value("design_month_outdoor_temp_default_c"), d),
+        "outdoor_rh": (
+            "the design month's mean RH; blank: our default, "
+            f"{th.value('design_month_outdoor_rh_default_pct'):.0f} %"
+        ),
+        "indoor_temp": "the room temperature held in that month; blank: each room as measured",
+    }
