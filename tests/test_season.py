@@ -608,3 +608,40 @@ def test_panel_shows_the_projected_surface_rh_beside_todays():
         assert line in text
     assert "99 % today, 100 % or more" in text
     assert ws.HEADING not in panel_text(judged, words.SI).plain
+
+
+@pytest.mark.slow
+async def test_site_screen_edits_the_design_month(tmp_path):
+    """The site screen saves a design month typed in its fields, refuses one the projection
+    cannot use (indoor no warmer than outdoor) with a message naming the field, and the
+    room's panel then projects to the site's month."""
+    import shutil
+
+    from test_app_inputs import goto, message_of, type_into
+
+    from survey.app import make_app
+    from survey.app.main import DEMO_SOURCE
+    from survey.app.panel import LivePanel
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await goto(pilot, app, "site")
+        await type_into(pilot, app, "site-design-outdoor-temp-c", "25")
+        await type_into(pilot, app, "site-design-outdoor-rh-pct", "92")
+        await type_into(pilot, app, "site-design-indoor-temp-c", "20")
+        message = message_of(app, "site-design-indoor-temp-c")
+        assert message.startswith("Not saved") and "above the design outdoor" in message
+        assert store.load_survey(path).site.design_indoor_temp_c is None
+        await type_into(pilot, app, "site-design-outdoor-temp-c", "-3")
+        await type_into(pilot, app, "site-design-indoor-temp-c", "-5")
+        assert message_of(app, "site-design-indoor-temp-c").startswith("Not saved")
+        await type_into(pilot, app, "site-design-indoor-temp-c", "19")
+        assert message_of(app, "site-design-indoor-temp-c") == ""
+        await goto(pilot, app, "room")
+        panel = str(app.screen.query_one(LivePanel).render())
+        assert "The colder month (-3 °C outside, 92 % RH)" in panel
+    site = store.load_survey(path).site
+    assert (site.design_outdoor_temp_c, site.design_outdoor_rh_pct) == (-3.0, 92.0)
+    assert site.design_indoor_temp_c == 19.0

@@ -103,6 +103,21 @@ class SiteScreen(walk.WalkScreen):
                 id="site-year",
                 disabled=ro,
             )
+            yield Field(
+                "Notes",
+                site.notes,
+                walk.text_parser("Notes"),
+                self._setter("notes", "Notes"),
+                id="site-notes",
+                disabled=ro,
+            )
+            yield Label(Text("Instruments", style="bold"))
+            yield Static(
+                Text("On the table: a adds an instrument, Enter edits, d deletes."), classes="hint"
+            )
+            yield InstrumentTable(id="instruments")
+            yield Label(Text(ws.SITE_GROUP, style="bold"))
+            yield Static(Text(ws.SITE_GROUP_HINT), classes="hint")
             hints = ws.site_field_hints(words.Display(system))
             unit = "°F" if system == "ip" else "°C"
             for name, label, quantity, parse, hint in (
@@ -137,19 +152,6 @@ class SiteScreen(walk.WalkScreen):
                     placeholder=hint,
                     disabled=ro,
                 )
-            yield Field(
-                "Notes",
-                site.notes,
-                walk.text_parser("Notes"),
-                self._setter("notes", "Notes"),
-                id="site-notes",
-                disabled=ro,
-            )
-            yield Label(Text("Instruments", style="bold"))
-            yield Static(
-                Text("On the table: a adds an instrument, Enter edits, d deletes."), classes="hint"
-            )
-            yield InstrumentTable(id="instruments")
             yield Button("Continue to the visit ▸", id="to-visit", compact=True)
         yield from self.footer_widgets()
 

@@ -451,14 +451,21 @@ def site_verdict_lines(rooms: Iterable[RoomProjection]) -> list[str]:
     return lines
 
 
+#: The site screen's group of design-month fields, and the line under its title.
+SITE_GROUP = "Design month (for the colder month)"
+SITE_GROUP_HINT = (
+    "A local coldest month's mean outdoor temperature and RH: the report projects each "
+    "measured wall to it. Left blank, our default month is used and the report says so."
+)
+
+
 def site_field_hints(d: Display) -> dict[str, str]:
     """What an empty design-month field of the site means, for the app's placeholders."""
     return {
-        "outdoor_temp": "the design month's mean, for the colder month; blank: our default, "
+        "outdoor_temp": "blank: our default, "
         + _temp(th.value("design_month_outdoor_temp_default_c"), d),
         "outdoor_rh": (
-            "the design month's mean RH; blank: our default, "
-            f"{th.value('design_month_outdoor_rh_default_pct'):.0f} %"
+            f"blank: our default, {th.value('design_month_outdoor_rh_default_pct'):.0f} %"
         ),
-        "indoor_temp": "the room temperature held in that month; blank: each room as measured",
+        "indoor_temp": "blank: each room as measured",
     }
