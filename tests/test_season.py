@@ -16,7 +16,7 @@ from pathlib import Path
 import psychrolib
 import pytest
 
-from survey import assess, evaluate, season, store, words
+from survey import assess, evaluate, season, season_math, store, words
 from survey import thresholds as th
 from survey.errors import InputError
 from survey.season import DesignMonth, DesignState, ExcessModel, InverseOutcome, RoomReason
@@ -53,13 +53,13 @@ def test_class_lines_at_their_published_points(outdoor_c, scale):
     published = (270.0, 540.0, 810.0, 1080.0, 1350.0)
     limits = th.humidity_class_limits_pa(outdoor_c)
     assert limits == pytest.approx(tuple(p * scale for p in published), abs=1e-9)
-    assert season._line_scale(outdoor_c) == pytest.approx(scale, abs=1e-12)
+    assert season_math.line_scale(outdoor_c) == pytest.approx(scale, abs=1e-12)
 
 
 def test_class_lines_end_at_20_c():
     """At and above 20 °C outdoors the lines have reached 0: no class, no excess carried."""
     assert th.humidity_class_limits_pa(20.0) is None
-    assert season._line_scale(20.0) == 0.0 and season._line_scale(25.0) == 0.0
+    assert season_math.line_scale(20.0) == 0.0 and season_math.line_scale(25.0) == 0.0
 
 
 def test_class_limits_agree_with_their_humidity_by_volume_form():
@@ -603,7 +603,7 @@ def test_panel_shows_the_projected_surface_rh_beside_todays():
     judged = judging.judge_room(survey, 0, "bed1")
     month = season.default_design_month()
     text = panel_text(judged, words.SI, month).plain
-    projection = season.project_room(judged.finding, month, lowest_month=False)
+    projection = season.project_room(judged.finding, month, with_lowest=False)
     for line in ws.panel_lines(projection, words.SI):
         assert line in text
     assert "99 % today, 100 % or more" in text

@@ -44,7 +44,7 @@ def panel_text(
     else:
         out.append("No surface measured yet.\n")
     if month is not None:
-        lines = ws.panel_lines(season.project_room(f, month, lowest_month=False), d)
+        lines = ws.panel_lines(season.project_room(f, month, with_lowest=False), d)
         if lines:
             out.append(f"\n{lines[0]}\n", style="bold")
             for line in lines[1:]:
