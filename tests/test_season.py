@@ -83,7 +83,8 @@ def test_projection_worked_by_hand():
 
     fRsi = (15.5 − 5)/(20 − 5) = 0.700
     pi = 0.60 × psat(20 °C) = 0.60 × 2338.80 = 1403.28 Pa
-    pe = 0.80 × psat(5 °C)  = 0.80 × 872.49  =  697.99 Pa;  Δp = 705.29 Pa (class 3)
+    pe = 0.80 × psat(5 °C)  = 0.80 × 872.49  =  697.99 Pa;  Δp = 705.29 Pa
+    (class 4 at 5 °C outside: 0.75 × 810 = 607.5 < 705.29 ≤ 0.75 × 1080 = 810 Pa)
     along the class line: s(5 °C) = (20 − 5)/20 = 0.75, s(2 °C) = 0.90,
         Δp,d = 705.29 × 0.90/0.75 = 846.35 Pa
     pe,d = 0.90 × psat(2 °C) = 0.90 × 705.95 = 635.36 Pa;  pi,d = 1481.71 Pa
@@ -110,6 +111,7 @@ def test_projection_worked_by_hand():
     assert corner.design_surface_rh_pct == pytest.approx(89.15, abs=0.005)
     assert corner.today_surface_rh_pct == pytest.approx(79.68, abs=0.005)
     assert corner.safe_today and corner.only_safe_today
+    assert projection.humidity_class == 4
     assert projection.excess_model is ExcessModel.CLASS_LINE and projection.indoor_measured
 
 
@@ -450,6 +452,14 @@ def test_check_json_gives_the_design_month_keys(check):
     assert data["design_month"]["excess_model"] == "class_line"
     assert data["design_month"]["indoor_as_measured"] is True
     assert "design_month_outdoor_temp_default_c" not in {t["key"] for t in data["thresholds"]}
+    lowest = expected.surfaces[0].lowest_month
+    assert corner["design_lowest_outdoor_temp_outcome"] == lowest.outcome.value
+    assert corner["design_lowest_outdoor_temp_range_outcomes"] == [
+        lowest.low_end[0].value,
+        lowest.high_end[0].value,
+    ]
+    assert corner["design_lowest_outdoor_temp_range_c"] == [lowest.low_end[1], lowest.high_end[1]]
+    assert data["design_month"]["search_range_c"] == [-30.0, 10.0]
 
 
 def test_check_without_the_options_has_no_design_keys(check):

@@ -182,10 +182,12 @@ def _add_colder_month(out: dict[str, Any], result: QuickResult, d: words.Display
                 "design_only_safe_today": p.only_safe_today,
                 "design_lowest_outdoor_temp_outcome": None if m is None else m.outcome.value,
                 "design_lowest_outdoor_temp_c": None if m is None else m.outdoor_temp_c,
+                # the same search on the ends of the surface-RH band: cold end, warm end
                 "design_lowest_outdoor_temp_range_c": (
-                    None
-                    if m is None or m.outcome.value == "no_bracket"
-                    else [m.low_end[1], m.high_end[1]]
+                    None if m is None else [m.low_end[1], m.high_end[1]]
+                ),
+                "design_lowest_outdoor_temp_range_outcomes": (
+                    None if m is None else [m.low_end[0].value, m.high_end[0].value]
                 ),
                 "design_text": ws.surface_sentence(p, room, d, result.finding),
                 "design_lowest_outdoor_temp_text": ws.lowest_month_sentence(p, room, d),
@@ -360,6 +362,8 @@ def render(result: QuickResult, d: words.Display) -> None:
     console.print()
     heading("Limits used")
     shown = set(_SHOWN_LIMITS)
+    if result.colder_month is not None:
+        shown.update(result.colder_month.threshold_keys)
     if f.humidity_class in (1, 2, 3, 4, 5):
         shown.add(f"humidity_class_{f.humidity_class}_pa")
     listed = [t for t in result.limits if t.key in shown]
