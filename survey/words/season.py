@@ -91,7 +91,7 @@ def _state_phrase(state: DesignState, p: SurfaceProjection) -> str:
     return _condensing(p) if state is DesignState.CONDENSING else STATE_WORDS[state]
 
 
-def round_shown(temp_c: float, d: Display) -> float:
+def _round_shown(temp_c: float, d: Display) -> float:
     """``temp_c`` rounded to the whole degree of the display (°C, or °F in IP), in °C."""
     if d.ip:
         return (round(temp_c * 9.0 / 5.0 + 32.0) - 32.0) * 5.0 / 9.0
@@ -100,7 +100,7 @@ def round_shown(temp_c: float, d: Display) -> float:
 
 def _temp(temp_c: float, d: Display) -> str:
     """A temperature the user set or we chose: whole degrees when whole, else 0.1."""
-    if abs(temp_c - round_shown(temp_c, d)) < 0.05 * (5.0 / 9.0 if d.ip else 1.0):
+    if abs(temp_c - _round_shown(temp_c, d)) < 0.05 * (5.0 / 9.0 if d.ip else 1.0):
         return d.temperature(temp_c, 0)
     return d.temperature(temp_c)
 
