@@ -64,12 +64,13 @@ def test_class_lines_end_at_20_c():
 
 def test_class_limits_agree_with_their_humidity_by_volume_form():
     """EN ISO 13788 gives the classes also as a humidity-by-volume excess Δv of 2, 4, 6, 8 and
-    10 g/m³ [M]. The ideal-gas law p = ρ·R_v·T (R_v = 461.5 J/(kg·K), ASHRAE Fundamentals
-    2017 ch. 1 [R]) turns Δv into Δp at a 20 °C room (293.15 K): 270.6, 541.1, 811.7, 1082.2
-    and 1352.8 Pa — the Pa values above to 0.3 %, a check that the two recalled forms are
-    one table."""
+    10 g/m³ [M]. The ideal-gas law p = ρ·R_v·T, with R_v = R/M_w = 8.314 462 618 J/(mol·K)
+    (CODATA 2018, exact) / 0.018 015 28 kg/mol = 461.52 J/(kg·K) [C], turns Δv into Δp at a
+    20 °C room (293.15 K): 270.6, 541.1, 811.7, 1082.2 and 1352.8 Pa — the Pa values above to
+    0.3 %, a check that the two recalled forms are one table."""
+    r_v = 8.314462618 / 0.01801528
     for n, key in enumerate(th.HUMIDITY_CLASS_KEYS, start=1):
-        from_dv = 0.002 * n * 461.5 * 293.15
+        from_dv = 0.002 * n * r_v * 293.15
         assert th.value(key) == pytest.approx(from_dv, rel=3e-3)
 
 
