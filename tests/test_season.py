@@ -205,6 +205,34 @@ def test_range_covers_a_monte_carlo_of_the_readings(shared):
     assert spread == pytest.approx(u, rel=0.10)
 
 
+@pytest.mark.parametrize("shared", [True, False])
+def test_range_carries_the_thermometer_correlation(shared):
+    """Only the air thermometer uncertain (±0.5 K): read by one thermometer, the room and
+    outdoor errors are one error (GUM 5.2) and move fRsi and the excess together; read by
+    two, they are independent. The Monte Carlo spread of ln φ (seeded, 20 000 draws) matches
+    the range's u to 5 % in each case, and the two cases differ by more than that."""
+    accuracy = assess.Accuracy(
+        air_temp_k=0.5, rh_pct=0.0, surface_temp_k=0.0, shared_thermometer=shared
+    )
+    corner = season.project_room(_room(accuracy=accuracy), DesignMonth(2.0, 90.0)).surfaces[0]
+    u = math.log(corner.design_surface_rh_high_pct / corner.design_surface_rh_pct) / 2.0
+    rng = random.Random(5)
+    logs = []
+    for _ in range(20000):
+        e_room = rng.uniform(-0.5, 0.5)
+        e_out = e_room if shared else rng.uniform(-0.5, 0.5)
+        logs.append(math.log(_by_hand(15.5, 20.0 + e_room, 5.0 + e_out, 60.0, 80.0)))
+    mean = sum(logs) / len(logs)
+    spread = math.sqrt(sum((x - mean) ** 2 for x in logs) / (len(logs) - 1))
+    assert spread == pytest.approx(u, rel=0.05)
+    other = assess.Accuracy(
+        air_temp_k=0.5, rh_pct=0.0, surface_temp_k=0.0, shared_thermometer=not shared
+    )
+    twin = season.project_room(_room(accuracy=other), DesignMonth(2.0, 90.0)).surfaces[0]
+    u_other = math.log(twin.design_surface_rh_high_pct / twin.design_surface_rh_pct) / 2.0
+    assert abs(u_other - u) > 0.1 * u
+
+
 def test_state_follows_the_range():
     """A range across the mould limit is unclear, naming the states it spans; one wholly
     above it fails; the central value alone does not decide."""
