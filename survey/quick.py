@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from survey import advise, assess, psychro
+from survey import advise, assess, psychro, season
 from survey import thresholds as th
 
 
@@ -59,6 +59,9 @@ class QuickInput:
     dense_materials_wet: bool = False
     drying: bool = False  #: drying equipment running (a dehumidifier at least)
     flued_appliance: bool | None = None
+    #: The month to project the surfaces to (:mod:`survey.season`); None: no projection.
+    design_month: season.DesignMonth | None = None
+    design_excess: season.ExcessModel = season.ExcessModel.CLASS_LINE
     warnings: tuple[str, ...] = ()
 
 
@@ -73,6 +76,8 @@ class QuickResult:
     advice: advise.RoomAdvice
     cautions: tuple[advise.Caution, ...]
     limits: tuple[th.Threshold, ...] = field(default=())
+    #: The surfaces in the design month, when one was given.
+    colder_month: season.RoomProjection | None = None
 
     @property
     def use(self) -> str:
@@ -139,6 +144,10 @@ def judge(given: QuickInput) -> QuickResult:
     finding = site.rooms[0]
     room_advice = advice.rooms[0]
     keys = set(finding.threshold_keys) | set(room_advice.threshold_keys)
+    projection = None
+    if given.design_month is not None:
+        projection = season.project_room(finding, given.design_month, given.design_excess)
+        keys |= set(projection.threshold_keys)
     return QuickResult(
         input=given,
         room=room,
@@ -147,4 +156,5 @@ def judge(given: QuickInput) -> QuickResult:
         advice=room_advice,
         cautions=advice.cautions,
         limits=tuple(th.cited(keys)),
+        colder_month=projection,
     )

@@ -10,10 +10,7 @@ from __future__ import annotations
 
 import datetime as dt
 
-from survey import assess, evaluate, model, words
-
-#: One room of a visit judged (the core's :class:`survey.evaluate.RoomAssessment`).
-RoomJudgement = evaluate.RoomAssessment
+from survey import assess, model, words
 
 
 def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.RoomVisit | None:

@@ -6,12 +6,13 @@ from rich.text import Text
 from textual import on
 from textual.widgets import Button, DataTable, Label, Select, Static
 
-from survey import model, store, units
+from survey import model, season, store, units, words
 from survey.app import walk
 from survey.app.dialogs import ConfirmDialog, PromptDialog
 from survey.app.fields import Field, plain
 from survey.app.tables import InstrumentTable
 from survey.errors import InputError
+from survey.words import season as ws
 
 PURPOSES = [
     ("damp or mould complaint", "damp_complaint"),
@@ -115,6 +116,42 @@ class SiteScreen(walk.WalkScreen):
                 Text("On the table: a adds an instrument, Enter edits, d deletes."), classes="hint"
             )
             yield InstrumentTable(id="instruments")
+            yield Label(Text(ws.SITE_GROUP, style="bold"))
+            yield Static(Text(ws.SITE_GROUP_HINT), classes="hint")
+            hints = ws.site_field_hints(words.Display(system))
+            unit = "°F" if system == "ip" else "°C"
+            for name, label, quantity, parse, hint in (
+                (
+                    "design_outdoor_temp_c",
+                    f"Month outdoor {unit}",
+                    "temperature",
+                    walk.temperature("Design month outdoor", system),
+                    hints["outdoor_temp"],
+                ),
+                (
+                    "design_outdoor_rh_pct",
+                    "Month outdoor RH",
+                    "rh",
+                    walk.rh("Design month outdoor RH"),
+                    hints["outdoor_rh"],
+                ),
+                (
+                    "design_indoor_temp_c",
+                    f"Month indoor {unit}",
+                    "temperature",
+                    walk.temperature("Design month indoor", system),
+                    hints["indoor_temp"],
+                ),
+            ):
+                yield Field(
+                    label,
+                    walk.shown(quantity, getattr(site, name), system),
+                    walk.optional(parse),
+                    self._design_setter(name, label),
+                    id=f"site-{name.replace('_', '-')}",
+                    placeholder=hint,
+                    disabled=ro,
+                )
             yield Button("Continue to the visit ▸", id="to-visit", compact=True)
         yield from self.footer_widgets()
 
@@ -142,6 +179,23 @@ class SiteScreen(walk.WalkScreen):
         def commit(value):
             survey = self.editor.survey
             survey.site = walk.checked(survey.site, label, **{name: value})
+            self.committed()
+            return ""
+
+        return commit
+
+    def _design_setter(self, name: str, label: str):
+        """A design-month field: the site must still give a month the colder-month
+        projection can use (in the psychrometric range, indoor warmer than outdoor)."""
+
+        def commit(value):
+            survey = self.editor.survey
+            site = walk.checked(survey.site, label, **{name: value})
+            try:
+                season.site_design_month(site)
+            except InputError as exc:
+                raise InputError(label, exc.value, exc.allowed) from None
+            survey.site = site
             self.committed()
             return ""
 

@@ -26,6 +26,8 @@ import sys
 from survey import advise, assess, domain, psychro, units
 from survey.commands.check_parse import (
     _accuracy_option,
+    _design_excess,
+    _design_month,
     _option,
     _parse_mould_area,
     _parse_occupants,
@@ -179,6 +181,8 @@ def gather(args: argparse.Namespace) -> QuickInput:
         drying=args.drying,
         flued_appliance=None if args.flued_appliance is None else args.flued_appliance == "yes",
         accuracy_given=AccuracyGiven(air_given, rh_given, surf_given),
+        design_month=_design_month(args, system),
+        design_excess=_design_excess(args.design_excess),
         warnings=tuple(warnings),
     )
 

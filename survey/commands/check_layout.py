@@ -67,6 +67,8 @@ def encode(result: QuickResult, d: words.Display) -> dict[str, Any]:
     f, advice, given = result.finding, result.advice, result.input
     out = _state(result.room)
     out["surfaces"] = [_surface(s) for s in f.surfaces]
+    if result.colder_month is not None:
+        _add_colder_month(out, result, d)
     out["outdoor"] = None if result.outdoor is None else _state(result.outdoor)
     limit = th.frsi_limit(result.use)
     coldest, apart = f.coldest, f.coldest_glazing_or_pipe
@@ -155,6 +157,73 @@ def encode(result: QuickResult, d: words.Display) -> dict[str, Any]:
         }
     )
     return out
+
+
+def _add_colder_month(out: dict[str, Any], result: QuickResult, d: words.Display) -> None:
+    """The projection's keys, only when a design month was given (``--design-outdoor-*``)."""
+    from survey.words import season as ws
+
+    room = result.colder_month
+    assert room is not None
+    for surface, p in zip(out["surfaces"], room.surfaces, strict=True):
+        m = p.lowest_month
+        surface.update(
+            {
+                "design_surface_temp_c": p.design_surface_temp_c,
+                "design_surface_temp_uncertainty_k": p.design_surface_temp_uncertainty_k,
+                "design_surface_rh_pct": p.design_surface_rh_pct,
+                "design_surface_rh_range_pct": (
+                    None
+                    if p.design_surface_rh_pct is None
+                    else [p.design_surface_rh_low_pct, p.design_surface_rh_high_pct]
+                ),
+                "design_condition": p.state.value,
+                "design_condition_possible": [x.value for x in p.possible],
+                "design_only_safe_today": p.only_safe_today,
+                "design_lowest_outdoor_temp_outcome": None if m is None else m.outcome.value,
+                "design_lowest_outdoor_temp_c": None if m is None else m.outdoor_temp_c,
+                # the same search on the ends of the surface-RH band: cold end, warm end
+                "design_lowest_outdoor_temp_range_c": (
+                    None if m is None else [m.low_end[1], m.high_end[1]]
+                ),
+                "design_lowest_outdoor_temp_range_outcomes": (
+                    None if m is None else [m.low_end[0].value, m.high_end[0].value]
+                ),
+                "design_text": ws.surface_sentence(p, room, d, result.finding),
+                "design_lowest_outdoor_temp_text": ws.lowest_month_sentence(p, room, d),
+            }
+        )
+    month = room.month
+    out.update(
+        {
+            "design_month": {
+                "outdoor_temp_c": month.outdoor_temp_c,
+                "outdoor_rh_pct": month.outdoor_rh_pct,
+                "indoor_temp_c": room.indoor_temp_c,
+                "indoor_as_measured": room.indoor_measured,
+                "excess_model": room.excess_model.value,
+                "excess_model_fallback": room.excess_model_fallback,
+                "not_projected_reason": None if room.reason is None else room.reason.value,
+                "search_range_c": (
+                    None
+                    if room.worst is None or room.worst.lowest_month is None
+                    else [
+                        room.worst.lowest_month.bracket_low_c,
+                        room.worst.lowest_month.bracket_high_c,
+                    ]
+                ),
+            },
+            "design_outdoor_vapour_pressure_pa": room.design_outdoor_vapour_pressure_pa,
+            "design_vapour_pressure_excess_pa": room.design_vapour_pressure_excess_pa,
+            "design_vapour_pressure_excess_uncertainty_pa": (
+                room.design_vapour_pressure_excess_uncertainty_pa
+            ),
+            "design_vapour_pressure_pa": room.design_vapour_pressure_pa,
+            "design_month_text": ws.design_month_text(month, d),
+            "design_excess_text": ws.excess_text(room, d),
+            "design_verdict_lines": ws.room_verdict_lines(room),
+        }
+    )
 
 
 # --- the table -------------------------------------------------------------------------------
@@ -277,6 +346,8 @@ def render(result: QuickResult, d: words.Display) -> None:
     heading("Room")
     for line in words.quick_room_lines(result, d, HINTS):
         console.print(para(line, 2))
+    if result.colder_month is not None:
+        _render_colder_month(console, result, d, heading, para)
     console.print()
     heading("What to do")
     if not advice.actions:
@@ -291,6 +362,8 @@ def render(result: QuickResult, d: words.Display) -> None:
     console.print()
     heading("Limits used")
     shown = set(_SHOWN_LIMITS)
+    if result.colder_month is not None:
+        shown.update(result.colder_month.threshold_keys)
     if f.humidity_class in (1, 2, 3, 4, 5):
         shown.add(f"humidity_class_{f.humidity_class}_pa")
     listed = [t for t in result.limits if t.key in shown]
@@ -305,3 +378,41 @@ def render(result: QuickResult, d: words.Display) -> None:
             2,
         )
     )
+
+
+def _render_colder_month(console, result: QuickResult, d: words.Display, heading, para) -> None:
+    """The projected month: a table of surfaces, then the sentences (all from words)."""
+    from rich.table import Table
+    from rich.text import Text
+
+    from survey.words import season as ws
+
+    room = result.colder_month
+    assert room is not None
+    console.print()
+    heading(ws.HEADING)
+    console.print(para(ws.design_month_text(room.month, d), 2))
+    excess = ws.excess_text(room, d)
+    if excess:
+        console.print(para(excess, 2))
+    table = Table(title=ws.TABLE_TITLE, title_justify="left")
+    for name, right in ws.TABLE_COLUMNS:
+        table.add_column(name, justify="right" if right else "left")
+    for today, p in zip(result.finding.surfaces, room.surfaces, strict=True):
+        table.add_row(
+            Text(visible(p.label)),
+            words.surface_rh_text(today),
+            d.temperature(p.design_surface_temp_c),
+            ws.design_rh_text(p),
+            ws.state_text(p, room, result.finding, d),
+            ws.lowest_month_text(p, d),
+        )
+    console.print(table)
+    for p in room.surfaces:
+        if p.projected:
+            console.print(para(ws.surface_sentence(p, room, d, result.finding), 2))
+            lowest = ws.lowest_month_sentence(p, room, d)
+            if lowest:
+                console.print(para(lowest, 4))
+    for line in ws.room_verdict_lines(room):
+        console.print(para(line, 2, "bold"))

@@ -172,6 +172,34 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
         "the building (not said: the combustion-air caution is shown "
         "wherever the advice closes the space up or extracts air)",
     )
+    month = parser.add_argument_group(
+        "the colder month (each surface's measured temperature factor and the room's "
+        "moisture excess carried to a design month, EN ISO 13788)"
+    )
+    month.add_argument(
+        "--design-outdoor-temp",
+        metavar="T",
+        help="mean outdoor temperature of the month to project to, e.g. 0 (with "
+        "--design-outdoor-rh; needs --outdoor-temp and --outdoor-rh today)",
+    )
+    month.add_argument(
+        "--design-outdoor-rh", metavar="RH", help="mean outdoor RH of that month, %%"
+    )
+    month.add_argument(
+        "--design-indoor-temp",
+        metavar="T",
+        help="room temperature held in that month (default: as measured, --air-temp)",
+    )
+    month.add_argument(
+        "--design-excess",
+        type=str.lower,
+        choices=("class-line", "measured"),
+        default="class-line",
+        metavar="class-line|measured",
+        help="the room's vapour-pressure excess in that month: carried along its "
+        "humidity class's line (constant at and below 0 °C outside, zero at 20 °C; "
+        "the default) or held as measured",
+    )
     accuracy = parser.add_argument_group("instrument accuracy (± each)")
     accuracy.add_argument(
         "--air-temp-accuracy",

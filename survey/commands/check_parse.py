@@ -6,7 +6,7 @@ import argparse
 import math
 from collections.abc import Callable
 
-from survey import assess, domain, psychro, units
+from survey import assess, domain, psychro, season, units
 from survey import thresholds as th
 from survey.errors import InputError
 
@@ -195,3 +195,55 @@ def _surfaces(specs: list[tuple[str, str]], system: units.UnitSystem) -> list[as
             label = f"{prefix} {counts[prefix]}"
         found.append(assess.SurfaceInput(label, temp, element))
     return found
+
+
+_DESIGN_FIELDS = {
+    "design outdoor temperature": "--design-outdoor-temp",
+    "design outdoor RH": "--design-outdoor-rh",
+    "design indoor temperature": "--design-indoor-temp",
+}
+
+
+def _design_month(args: argparse.Namespace, system: units.UnitSystem) -> season.DesignMonth | None:
+    """The design month typed (``--design-outdoor-temp`` with ``--design-outdoor-rh``, and
+    ``--design-indoor-temp`` if given), or None when none was; an error names the option."""
+    temp, rh, indoor = args.design_outdoor_temp, args.design_outdoor_rh, args.design_indoor_temp
+    if temp is None and rh is None:
+        if indoor is not None:
+            raise InputError(
+                "--design-indoor-temp",
+                indoor,
+                "give --design-outdoor-temp and --design-outdoor-rh as well: it is the room "
+                "temperature of that design month",
+            )
+        return None
+    if (temp is None) != (rh is None):
+        given, text = ("--design-outdoor-temp", temp) if rh is None else ("--design-outdoor-rh", rh)
+        missing = "--design-outdoor-rh" if rh is None else "--design-outdoor-temp"
+        raise InputError(
+            given, text, f"give {missing} as well: a design month needs its temperature and RH"
+        )
+    outdoor_c = _read_option(
+        "--design-outdoor-temp", temp, "temperature", system, psychro.check_dry_bulb
+    )
+    rh_pct = _option(
+        "--design-outdoor-rh",
+        rh,
+        lambda t: units.parse_rh(t, "--design-outdoor-rh"),
+        psychro.check_rh,
+    )
+    indoor_c = None
+    if indoor is not None:
+        indoor_c = _read_option(
+            "--design-indoor-temp", indoor, "temperature", system, psychro.check_dry_bulb
+        )
+    try:
+        return season.DesignMonth(outdoor_c, rh_pct, indoor_c, "given")
+    except InputError as exc:
+        option = _DESIGN_FIELDS.get(exc.field, exc.field)
+        text = {"--design-indoor-temp": indoor}.get(option, exc.value)
+        raise InputError(option, text, exc.allowed) from None
+
+
+def _design_excess(text: str) -> season.ExcessModel:
+    return season.ExcessModel.MEASURED if text == "measured" else season.ExcessModel.CLASS_LINE

@@ -20,6 +20,7 @@ from survey.assess import CondensationState, DryStandardState, FactorState, Moul
 from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.report.rooms import Context, drying_section, photo_blocks, room_section
+from survey.report.season import season_section
 from survey.words import report as rw
 
 #: How far back an outdoor logger's samples count as "the days before" a visit.
@@ -443,6 +444,7 @@ def _visit(
         )
     for position in range(len(va.room_ids)):
         room_section(doc, ctx, va, position, 3)
+    season_section(doc, ctx, va)
 
 
 # --- safety, method --------------------------------------------------------------------------

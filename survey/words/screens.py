@@ -5,6 +5,7 @@ judge. The app lays these out; it writes no sentence of its own."""
 from __future__ import annotations
 
 from survey import assess, psychro
+from survey.safe_text import visible
 from survey.words.display import Display
 from survey.words.states import no_limit_reason, rh_limit_text, short_verdict, surface_rh_text
 
@@ -59,6 +60,14 @@ def safe_rh_line(finding: assess.RoomFinding) -> str | None:
     """``Highest safe room RH: 62 % (57 to 67 % at this accuracy)``, or None."""
     limit = rh_limit_text(finding)
     return None if limit is None else f"Highest safe room RH: {limit}"
+
+
+def safe_rh_set_by(finding: assess.RoomFinding) -> str:
+    """``Highest safe room RH: 62 % (…), set by NE corner``, or why there is none."""
+    limit = rh_limit_text(finding)
+    if limit is None or finding.coldest is None:
+        return no_safe_rh_line(finding)
+    return f"Highest safe room RH: {limit}, set by {visible(finding.coldest.label)}"
 
 
 def no_safe_rh_line(finding: assess.RoomFinding) -> str:

@@ -1,0 +1,275 @@
+"""The arithmetic of the colder month (:mod:`survey.season`): one surface carried to a month,
+its uncertainty, and the search for the lowest month it bears.
+
+Readings in (:class:`Readings`: today's surface, room and outdoor temperatures, vapour
+pressures and the instruments' standard uncertainties), plain floats out (:class:`Point`).
+Saturation pressures and their slopes are :mod:`survey.psychro`'s; the class lines are
+:func:`survey.thresholds.humidity_class_limits_pa`.
+
+Uncertainty
+-----------
+First-order propagation (GUM, as :mod:`survey.assess`) from the readings the projection rests
+on, with the accuracies the assessment already carries (:class:`survey.assess.Accuracy`, ±a
+read as rectangular, u = a/√3, coverage factor ``coverage_factor``): the surface temperature
+ts, the room and outdoor air temperatures ti and te, and the room and outdoor RH. With
+Δ = ti − te, D = θi,d − θe,d, f = (ts − te)/Δ, r = s(θe,d)/s(te) (1 when held as measured),
+p = RH·psat,water(t) and L(t) = d ln psat/dt:
+
+* ∂θsi/∂ts = D/Δ,  ∂θsi/∂ti = −f·D/Δ (+ f when θi,d is the measured ti),  ∂θsi/∂te = (f − 1)·D/Δ
+* ∂Δp,d/∂ti = r·pi·Li,  ∂Δp,d/∂te = −r·pe·Le + Δp·∂r/∂te,  ∂Δp,d/∂RHi = r·psat,w(ti),
+  ∂Δp,d/∂RHe = −r·psat,w(te)  (zero when the excess is floored at 0)
+* ∂ ln φsi/∂x = (∂Δp,d/∂x)/pi,d − L(θsi)·∂θsi/∂x
+
+The terms add in quadrature, except that when one thermometer read the room and the outdoor
+air (``Accuracy.shared_thermometer``) the ti and te errors are one error (GUM 5.2, r = 1) and
+their sensitivities add before squaring. So the uncertainty of fRsi and of the excess, and
+their correlation through the thermometer, both reach the range. The band of the surface RH
+is φsi·exp(±k·u(ln φsi)), as the assessment's; a test checks its coverage by Monte Carlo.
+The design month itself is taken as exact: it is a stated condition, not a reading.
+
+The lowest month a surface bears
+--------------------------------
+:func:`lowest_month` solves, for a projected surface, the lowest outdoor monthly mean θe at
+which the surface still meets the mould limit, at the design month's outdoor RH and indoor
+temperature and with the excess along the room's class line (or held, as chosen).
+φsi(θe) is not monotone over every temperature (with a small excess a colder month can be
+drier at the surface; the class lines' knee at 0 °C is often its peak; as θe nears θi the
+surface RH tends to the outdoor RH itself), so the solve keeps to a bracket: from
+``design_month_search_lowest_c`` (−30 °C) up to the warm end θi,d −
+``frsi_min_temperature_difference_k`` (the heated months, where the temperature factor sets
+the surface; at most ``humidity_class_zero_at_c``). It scans the bracket downward from the
+warm end in steps of :data:`SEARCH_STEP_K` (and at the knees of the class lines), and bisects
+the first step in which the surface passes the limit to :data:`SEARCH_TOLERANCE_K`;
+bisection needs only the change of sign at the ends of that step. The answer is "the lowest
+month down to which every month from the warm end meets the limit". The same search on the
+ends of the RH band gives the range of the answer.
+"""
+
+from __future__ import annotations
+
+import itertools
+import math
+from collections.abc import Callable
+from enum import Enum
+from typing import NamedTuple
+
+from survey import psychro
+from survey import thresholds as th
+
+
+class ExcessModel(Enum):
+    """How the room's vapour-pressure excess is carried to the design month."""
+
+    CLASS_LINE = "class_line"  #: along the shape of the EN ISO 13788 humidity-class lines
+    MEASURED = "measured"  #: held as measured
+
+
+class InverseOutcome(Enum):
+    """What the search for the lowest month a surface bears found."""
+
+    SOLVED = "solved"  #: the temperature where the surface reaches the mould limit
+    MEETS_THROUGHOUT = "meets_throughout"  #: meets it down to the cold end of the bracket
+    FAILS_AT_WARM_END = "fails_at_warm_end"  #: above it already at the warm end
+    NO_BRACKET = "no_bracket"  #: the room is too cool for any heated month to be looked at
+
+
+class LowestMonth(NamedTuple):
+    """The lowest outdoor monthly mean at which a surface still meets the mould limit."""
+
+    outcome: InverseOutcome
+    outdoor_temp_c: float | None  #: solved (SOLVED only)
+    #: The same search for the lower end of the surface-RH band (the answer's cold end)
+    low_end: tuple[InverseOutcome, float | None]
+    #: and for the upper end (the answer's warm end)
+    high_end: tuple[InverseOutcome, float | None]
+    bracket_low_c: float  #: the search range, coldest
+    bracket_high_c: float  #: and warmest
+    outdoor_rh_pct: float  #: held at the design month's
+    indoor_temp_c: float  #: held at the design month's (or the room's as measured)
+
+
+def line_scale(outdoor_temp_c: float) -> float:
+    """The EN ISO 13788 class lines' scale at an outdoor temperature: 1 at and below 0 °C,
+    0 at and above 20 °C (the lines of :func:`survey.thresholds.humidity_class_limits_pa`)."""
+    limits = th.humidity_class_limits_pa(outdoor_temp_c)
+    return 0.0 if limits is None else limits[0] / th.value(th.HUMIDITY_CLASS_KEYS[0])
+
+
+def line_slope(outdoor_temp_c: float) -> float:
+    """d s/dθe of :func:`line_scale` (a central difference; the lines are piecewise linear)."""
+    h = 1e-3
+    return (line_scale(outdoor_temp_c + h) - line_scale(outdoor_temp_c - h)) / (2.0 * h)
+
+
+class Readings(NamedTuple):
+    """What one surface's projection rests on: today's readings and their uncertainties."""
+
+    ts: float
+    ti: float
+    te: float
+    p_i: float  #: room vapour pressure today
+    p_e: float  #: outdoor vapour pressure today
+    pws_i: float  #: saturation over water at ti
+    pws_e: float
+    l_i: float  #: d ln psat,water/dt at ti
+    l_e: float
+    u_ts: float
+    u_t: float
+    u_rh: float  #: as a fraction
+    shared: bool
+    k: float
+
+
+class Point(NamedTuple):
+    surface_temp_c: float
+    u_surface_temp: float
+    rh_pct: float
+    u_ln_rh: float
+    excess_pa: float
+
+
+READINGS = ("ts", "ti", "te", "rhi", "rhe")
+
+
+def combined(r: Readings, sens: dict[str, float]) -> float:
+    """Standard uncertainty from the sensitivities to each reading (see the module notes)."""
+    total = (sens["ts"] * r.u_ts) ** 2 + (sens["rhi"] * r.u_rh) ** 2 + (sens["rhe"] * r.u_rh) ** 2
+    if r.shared:
+        total += ((sens["ti"] + sens["te"]) * r.u_t) ** 2
+    else:
+        total += (sens["ti"] * r.u_t) ** 2 + (sens["te"] * r.u_t) ** 2
+    return math.sqrt(total)
+
+
+def excess_in_month(
+    r: Readings, te_d: float, excess_model: ExcessModel
+) -> tuple[float, dict[str, float]]:
+    """The room's vapour-pressure excess in a month of mean ``te_d``, and its sensitivity to
+    each reading (all 0 where a negative excess is floored at 0)."""
+    today = r.p_i - r.p_e
+    if excess_model is ExcessModel.CLASS_LINE:
+        s_today = line_scale(r.te)
+        ratio = line_scale(te_d) / s_today
+        dratio_dte = -ratio * line_slope(r.te) / s_today
+    else:
+        ratio, dratio_dte = 1.0, 0.0
+    excess = ratio * today
+    if excess < 0.0:
+        return 0.0, dict.fromkeys(READINGS, 0.0)
+    return excess, {
+        "ts": 0.0,
+        "ti": ratio * r.p_i * r.l_i,
+        "te": -ratio * r.p_e * r.l_e + today * dratio_dte,
+        "rhi": ratio * r.pws_i,
+        "rhe": -ratio * r.pws_e,
+    }
+
+
+def evaluate(
+    r: Readings,
+    te_d: float,
+    rh_e_d: float,
+    ti_given: float | None,
+    excess_model: ExcessModel,
+) -> Point:
+    """The projection of one surface to a month of mean ``te_d`` and ``rh_e_d`` (see the
+    module notes for the formulas and the sensitivities)."""
+    ti_d = r.ti if ti_given is None else ti_given
+    delta = r.ti - r.te
+    d = ti_d - te_d
+    f = (r.ts - r.te) / delta
+    theta = te_d + f * d
+    excess, dex = excess_in_month(r, te_d, excess_model)
+    p_room = rh_e_d / 100.0 * psychro.sat_vapour_pressure_water_pa(te_d) + excess
+    rh = 100.0 * p_room / psychro.sat_vapour_pressure_pa(theta)
+    l_s = psychro.dln_sat_vapour_pressure_per_k(theta)
+    dth = {
+        "ts": d / delta,
+        "ti": -f * d / delta + (f if ti_given is None else 0.0),
+        "te": (f - 1.0) * d / delta,
+        "rhi": 0.0,
+        "rhe": 0.0,
+    }
+    dln = {x: dex[x] / p_room - l_s * dth[x] for x in READINGS}
+    return Point(theta, combined(r, dth), rh, combined(r, dln), excess)
+
+
+#: Step of the downward scan in the search for the lowest month, K.
+SEARCH_STEP_K = 0.5
+#: The bisection stops when the step is this small, K.
+SEARCH_TOLERANCE_K = 1e-4
+
+
+def scan_points(low_c: float, high_c: float) -> list[float]:
+    """The temperatures of the downward scan, warm end first: every step, and the knees of
+    the class lines (where the surface RH has a corner, often its peak) inside the bracket."""
+    points = {high_c, low_c}
+    n = 1
+    while high_c - n * SEARCH_STEP_K > low_c:
+        points.add(high_c - n * SEARCH_STEP_K)
+        n += 1
+    for knee in (th.value("humidity_class_flat_below_c"), th.value("humidity_class_zero_at_c")):
+        if low_c < knee < high_c:
+            points.add(knee)
+    return sorted(points, reverse=True)
+
+
+def lowest_meeting(
+    excess_of: Callable[[float], float], low_c: float, high_c: float
+) -> tuple[InverseOutcome, float | None]:
+    """The lowest temperature in [low_c, high_c], going down from ``high_c``, before
+    ``excess_of`` (surface RH minus the limit) first turns positive (see the module notes)."""
+    points = scan_points(low_c, high_c)
+    if excess_of(points[0]) > 0.0:
+        return InverseOutcome.FAILS_AT_WARM_END, None
+    for warm, cold in itertools.pairwise(points):
+        if excess_of(cold) > 0.0:
+            meets, fails = warm, cold
+            while meets - fails > SEARCH_TOLERANCE_K:
+                middle = 0.5 * (meets + fails)
+                if excess_of(middle) > 0.0:
+                    fails = middle
+                else:
+                    meets = middle
+            return InverseOutcome.SOLVED, 0.5 * (meets + fails)
+    return InverseOutcome.MEETS_THROUGHOUT, None
+
+
+def lowest_month(
+    r: Readings,
+    outdoor_rh_pct: float,
+    indoor_given_c: float | None,
+    excess_model: ExcessModel,
+) -> LowestMonth:
+    """The lowest outdoor monthly mean at which the surface of ``r`` still meets the mould
+    limit, at ``outdoor_rh_pct`` and the room held at ``indoor_given_c`` (None: as measured),
+    with the range from the ends of its surface-RH band (see the module notes)."""
+    ti_d = r.ti if indoor_given_c is None else indoor_given_c
+    mould = th.value("surface_rh_mould_limit_pct")
+    low_c = th.value("design_month_search_lowest_c")
+    high_c = min(
+        ti_d - th.value("frsi_min_temperature_difference_k"), th.value("humidity_class_zero_at_c")
+    )
+    rh_e, given = outdoor_rh_pct, indoor_given_c
+    if high_c <= low_c:
+        none = (InverseOutcome.NO_BRACKET, None)
+        return LowestMonth(*none, none, none, low_c, high_c, rh_e, ti_d)
+
+    def variant(side: int) -> Callable[[float], float]:
+        def excess_of(t: float) -> float:
+            point = evaluate(r, t, rh_e, given, excess_model)
+            return point.rh_pct * math.exp(side * r.k * point.u_ln_rh) - mould
+
+        return excess_of
+
+    outcome, central = lowest_meeting(variant(0), low_c, high_c)
+    return LowestMonth(
+        outcome,
+        central,
+        lowest_meeting(variant(-1), low_c, high_c),
+        lowest_meeting(variant(+1), low_c, high_c),
+        low_c,
+        high_c,
+        rh_e,
+        ti_d,
+    )
