@@ -1,0 +1,659 @@
+"""Drying progress across a site's visits: each room's air, each material point against its
+dry standard and drying goal, the drying rate, the days left at that rate, and logger days.
+
+Every visit is judged once, by :func:`survey.evaluate.assess_visit` (or a face's cached
+judgement, passed as ``judge``); the numbers here are read from its typed findings: the room
+air's RH and humidity ratio, each surface's margin to the dew (or frost) point, and each
+material reading's dry standard and state. Nothing is stored; it is all worked out from the
+readings each time.
+
+Points. A material point is one spot read on several visits. Readings are matched by
+location, material and scale: the location and material are compared after Unicode
+compatibility normalisation (NFKC), case folding and collapsing every run of white space to
+one space, with the ends trimmed, so ``"Party wall, 0.1 m above floor"`` and ``"party wall,
+0.1 m  above floor "`` are one point; a reading on another scale is another point (MC % and
+a relative scale cannot be trended together). Dry-standard readings (``dry_standard``) are
+not points to dry: they are the goal.
+
+Dry standard and goal. Each reading's dry standard is the one the assessment used
+(:mod:`survey.evaluate`: a dry-standard reading of the same material and scale in the same
+room, else in a reference room on the same visit). A point's goal is its latest dry
+standard plus the ``dry_standard_tolerance_fraction`` allowance, the same rule by which the
+assessment calls a reading "at the dry standard"; the goal is met when the latest reading is
+at or below it. A point with no dry standard has no goal (its trend is still given).
+
+Rate. The drying rate is the ordinary least-squares slope of reading against time in days
+over the point's most recent readings (at most ``drying_trend_readings``: materials dry
+fast at first and slower as they near dry, so the recent part is what says how long is
+left), with the slope's standard error when there are three readings or more. The trend is
+
+* stalled when the fitted fall is less than ``drying_stalled_fraction_per_day`` of the
+  latest reading a day (flat or rising), or when the latest reading did not fall below the
+  one before by that much a day;
+* unclear when it falls on average but by less than ``drying_steady_standard_errors``
+  standard errors (the readings scatter too much for a rate);
+* falling (steady) otherwise: then the days to the goal are the latest reading's excess
+  over the goal divided by the fall per day, with the range given by the rate plus and
+  minus one standard error (none with two readings only). A stalled or unclear trend gets
+  no number.
+
+Loggers. Each :class:`~survey.model.LogSeries` is summed up per calendar day (of the times
+as written): the mean (of the day's samples), minimum and maximum of temperature, RH and
+humidity ratio (:func:`survey.psychro.vapour_state` at the site's pressure), and the hours
+above the mould limit (``surface_rh_mould_limit_pct``, 80 %) and above
+``logger_rh_wet_pct`` (90 %). Hours are weighted by time: the gap between two samples is
+split at its midpoint, each half counting at its own sample's RH (and split again at
+midnight); a gap longer than ``logger_gap_max_intervals`` times the series' median gap is not
+counted for either sample, and is counted as left out. The daily means feed the same rate
+fit as the visits' readings.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import itertools
+import math
+import statistics
+import unicodedata
+from collections.abc import Callable, Sequence
+from dataclasses import dataclass
+from enum import Enum
+
+from survey import evaluate, model, psychro
+from survey import thresholds as th
+from survey.assess import DryStandardState, MaterialFinding, RoomFinding
+from survey.errors import InputError
+
+PointKey = tuple[str, str, str]
+
+_DAY_S = 86_400.0
+
+
+def fold(text: str) -> str:
+    """Text as compared for matching points: NFKC, case-folded, white space collapsed."""
+    return " ".join(unicodedata.normalize("NFKC", text).casefold().split())
+
+
+def point_key(location: str, material: str, scale: str) -> PointKey:
+    """The key two readings of one material point share (see the module notes)."""
+    return (fold(location), fold(material), scale)
+
+
+def _wall_clock(at: dt.datetime) -> dt.datetime:
+    return at.replace(tzinfo=None)
+
+
+def days_between(start: dt.datetime, end: dt.datetime) -> float:
+    """Days from ``start`` to ``end``; when only one of them has a time zone both are read
+    as the wall-clock times written."""
+    if (start.tzinfo is None) != (end.tzinfo is None):
+        start, end = _wall_clock(start), _wall_clock(end)
+    return (end - start).total_seconds() / _DAY_S
+
+
+# --- the rate fit ------------------------------------------------------------------------------
+
+
+class TrendState(Enum):
+    """How a series of readings is moving."""
+
+    FALLING = "falling"  #: a steady fall: a rate, and days to the goal
+    STALLED = "stalled"  #: flat or rising: no number
+    UNCLEAR = "unclear"  #: falling on average, but scattered: no number
+    ONE_READING = "one_reading"  #: nothing to fit yet
+
+
+@dataclass(frozen=True, slots=True)
+class Fit:
+    """A least-squares straight line through (day, value) pairs."""
+
+    readings: int  #: how many readings the line was fitted to
+    rate_per_day: float  #: the slope, in the reading's own unit per day (negative: falling)
+    #: The slope's standard error (same unit); ``None`` with two readings (no residual).
+    rate_se_per_day: float | None
+    first_day: float  #: day of the first reading used
+    last_day: float  #: day of the last reading used
+
+
+def fit_line(days: Sequence[float], values: Sequence[float]) -> Fit | None:
+    """The least-squares line through the points; ``None`` with fewer than two distinct days.
+
+    slope b = Sxy / Sxx, with Sxx = Σ(x − x̄)², Sxy = Σ(x − x̄)(y − ȳ); standard error
+    s_b = √(Σ residual² / (n − 2) / Sxx) for n ≥ 3 (any first course in regression)."""
+    n = len(days)
+    if n != len(values) or n < 2:
+        return None
+    mean_x = math.fsum(days) / n
+    mean_y = math.fsum(values) / n
+    sxx = math.fsum((x - mean_x) ** 2 for x in days)
+    if sxx <= 0.0 or max(days) - min(days) < 1e-9:
+        return None
+    sxy = math.fsum((x - mean_x) * (y - mean_y) for x, y in zip(days, values, strict=True))
+    slope = sxy / sxx
+    se = None
+    if n >= 3:
+        intercept = mean_y - slope * mean_x
+        ssr = math.fsum(
+            (y - (intercept + slope * x)) ** 2 for x, y in zip(days, values, strict=True)
+        )
+        se = math.sqrt(max(ssr, 0.0) / (n - 2) / sxx)
+    return Fit(n, slope, se, min(days), max(days))
+
+
+def recent_fit(days: Sequence[float], values: Sequence[float]) -> Fit | None:
+    """:func:`fit_line` over the most recent ``drying_trend_readings`` readings."""
+    keep = int(th.value("drying_trend_readings"))
+    return fit_line(days[-keep:], values[-keep:])
+
+
+def trend_of(fit: Fit | None, latest: float, last_step_per_day: float | None) -> TrendState:
+    """Falling, stalled or unclear (module notes), for readings whose latest is ``latest``
+    and whose last step changed by ``last_step_per_day``."""
+    if fit is None:
+        return TrendState.ONE_READING
+    least = th.value("drying_stalled_fraction_per_day") * abs(latest)
+    if -fit.rate_per_day < least:
+        return TrendState.STALLED
+    if last_step_per_day is not None and -last_step_per_day < least:
+        return TrendState.STALLED
+    errors = th.value("drying_steady_standard_errors")
+    if fit.rate_se_per_day is not None and -fit.rate_per_day < errors * fit.rate_se_per_day:
+        return TrendState.UNCLEAR
+    return TrendState.FALLING
+
+
+@dataclass(frozen=True, slots=True)
+class GoalEstimate:
+    """Days from the latest reading until the goal, at the fitted rate."""
+
+    days: float
+    days_low: float | None  #: at the rate plus one standard error (faster)
+    days_high: float | None  #: at the rate minus one standard error (slower)
+    by: dt.datetime  #: the latest reading's time plus ``days``
+
+
+def estimate_to_goal(fit: Fit, latest: float, goal: float, at: dt.datetime) -> GoalEstimate:
+    """Days until ``latest`` falls to ``goal`` at the fitted (falling) rate, with the range
+    of rate ± one standard error."""
+    fall = -fit.rate_per_day
+    if fall <= 0.0:
+        raise ValueError("the fit does not fall")
+    excess = max(latest - goal, 0.0)
+    low = high = None
+    se = fit.rate_se_per_day
+    if se is not None:
+        low = excess / (fall + se)
+        high = excess / (fall - se) if fall > se else None
+    days = excess / fall
+    return GoalEstimate(days, low, high, at + dt.timedelta(days=days))
+
+
+# --- records ----------------------------------------------------------------------------------
+
+
+@dataclass(frozen=True, slots=True)
+class PointReading:
+    """One reading of a material point."""
+
+    visit_index: int
+    at: dt.datetime
+    day: float  #: days since the site's first visit
+    value: float
+    dry_standard: float | None
+    state: DryStandardState  #: the assessment's (or its rule, for a room not judged)
+
+    @property
+    def at_goal(self) -> bool:
+        return self.state is DryStandardState.AT
+
+
+@dataclass(frozen=True, slots=True)
+class MaterialPoint:
+    """One material point across the visits: readings, dry standard, goal, rate, days left."""
+
+    key: PointKey
+    location: str  #: as written on the latest reading
+    material: str
+    scale: str
+    readings: tuple[PointReading, ...]  #: in time order
+    dry_standard: float | None  #: the latest reading's
+    dry_standard_room: str | None  #: the room id it was read in
+    goal: float | None  #: the dry standard plus its allowance
+    goal_met: bool | None  #: the latest reading at or below the goal; None: no goal
+    fit: Fit | None
+    last_step_per_day: float | None  #: change from the reading before to the latest, a day
+    trend: TrendState
+    estimate: GoalEstimate | None  #: only for a steady fall toward a goal not yet met
+
+    @property
+    def latest(self) -> PointReading:
+        return self.readings[-1]
+
+
+@dataclass(frozen=True, slots=True)
+class RoomAir:
+    """A room's air and its worst surface on one visit."""
+
+    visit_index: int
+    at: dt.datetime
+    day: float
+    dry_bulb_c: float
+    rh_pct: float
+    humidity_ratio_kg_per_kg: float
+    worst_margin_k: float | None  #: the least margin to the dew (or frost) point
+    worst_margin_label: str | None  #: the surface it belongs to
+    water_removed_l: float | None  #: water the room's equipment logged on this visit
+
+
+@dataclass(frozen=True, slots=True)
+class DayRange:
+    """A day's mean, lowest and highest value."""
+
+    mean: float
+    low: float
+    high: float
+
+
+@dataclass(frozen=True, slots=True)
+class LoggerDay:
+    """One calendar day of a logger series."""
+
+    day: dt.date
+    samples: int
+    hours_logged: float  #: hours the samples stand for (gaps counted, long gaps not)
+    temp_c: DayRange
+    rh_pct: DayRange
+    humidity_ratio_kg_per_kg: DayRange | None  #: None if no sample could be worked out
+    hours_above_mould_rh: float  #: RH above ``surface_rh_mould_limit_pct``
+    hours_above_wet_rh: float  #: RH above ``logger_rh_wet_pct``
+
+
+@dataclass(frozen=True, slots=True)
+class LoggerSummary:
+    """A logger series summed up per day, with the trend of its daily means."""
+
+    log_index: int  #: its place in ``Survey.logs``
+    source: str
+    room_id: str | None  #: None: outdoors
+    surface: str | None  #: a surface's location label, or None for air
+    days: tuple[LoggerDay, ...]
+    interval_h: float | None  #: the median gap between samples
+    gap_limit_h: float | None  #: gaps longer than this are not counted
+    gaps_left_out: int
+    hours_left_out: float
+    humidity_ratio_fit: Fit | None  #: over the daily means, kg/kg per day
+    rh_fit: Fit | None  #: over the daily means, % per day
+
+
+@dataclass(frozen=True, slots=True)
+class RoomDrying:
+    """A room's drying over the visits."""
+
+    room_id: str
+    name: str
+    is_reference: bool
+    air: tuple[RoomAir, ...]  #: visits with an air reading, in time order
+    visits_seen: tuple[int, ...]  #: visit indexes where the room was entered, in time order
+    humidity_ratio_fit: Fit | None  #: kg/kg per day, over the recent visits
+    rh_fit: Fit | None  #: % per day
+    points: tuple[MaterialPoint, ...]
+    loggers: tuple[LoggerSummary, ...]
+
+    @property
+    def goals_met(self) -> int:
+        return sum(p.goal_met is True for p in self.points)
+
+    @property
+    def goals_set(self) -> int:
+        return sum(p.goal_met is not None for p in self.points)
+
+
+@dataclass(frozen=True, slots=True)
+class SiteDrying:
+    """Every room's drying, the outdoor loggers, and the limits used."""
+
+    rooms: tuple[RoomDrying, ...]
+    outdoor_loggers: tuple[LoggerSummary, ...]
+    visit_order: tuple[int, ...]  #: visit indexes in time order
+    threshold_keys: tuple[str, ...]
+
+
+# --- building it ------------------------------------------------------------------------------
+
+Judge = Callable[[int], evaluate.VisitAssessment]
+
+_DRYING_KEYS = (
+    "dry_standard_tolerance_fraction",
+    "drying_trend_readings",
+    "drying_stalled_fraction_per_day",
+    "drying_steady_standard_errors",
+)
+_LOGGER_KEYS = ("logger_gap_max_intervals", "surface_rh_mould_limit_pct", "logger_rh_wet_pct")
+
+
+def goal_for(dry_standard: float) -> float:
+    """The drying goal: the dry standard plus the allowance that still counts as dry."""
+    return dry_standard * (1.0 + th.value("dry_standard_tolerance_fraction"))
+
+
+def _visit_order(survey: model.Survey) -> list[int]:
+    origin = survey.visits[0].started_at if survey.visits else None
+    if origin is None:
+        return []
+    return sorted(
+        range(len(survey.visits)), key=lambda i: days_between(origin, survey.visits[i].started_at)
+    )
+
+
+def _standard_room(
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    rooms: dict[str, model.Room],
+    material: str,
+    scale: str,
+) -> str | None:
+    """The room whose dry-standard reading the assessment took for this material and scale
+    (the same order as :mod:`survey.evaluate`: this room, then reference rooms)."""
+    wanted = (material.strip().lower(), scale)
+    sources = [room_visit] + [
+        rv
+        for rv in visit.rooms
+        if rv is not room_visit and (r := rooms.get(rv.room)) is not None and r.is_reference
+    ]
+    for source in sources:
+        for reading in source.materials:
+            if reading.dry_standard and (reading.material.strip().lower(), reading.scale) == wanted:
+                return source.room
+    return None
+
+
+@dataclass
+class _PointSeries:
+    readings: list[PointReading]
+    latest: model.MaterialReading
+    standard_room: str | None
+
+
+def _room_points(
+    survey: model.Survey,
+    order: list[int],
+    room_id: str,
+    findings: dict[tuple[int, str], tuple[MaterialFinding, ...]],
+    rooms: dict[str, model.Room],
+    origin: dt.datetime,
+) -> tuple[MaterialPoint, ...]:
+    series: dict[PointKey, _PointSeries] = {}
+    for index in order:
+        visit = survey.visits[index]
+        room_visit = visit.room_visit(room_id)
+        if room_visit is None:
+            continue
+        judged = findings.get((index, room_id))
+        standards = (
+            None if judged is not None else evaluate._dry_standards(visit, room_visit, rooms)
+        )
+        readings = [m for m in room_visit.materials if not m.dry_standard]
+        for position, reading in enumerate(readings):
+            if judged is not None and position < len(judged):
+                finding = judged[position]
+                standard, state = finding.dry_standard, finding.dry_standard_state
+            else:
+                standard = (standards or {}).get((reading.material.strip().lower(), reading.scale))
+                state = (
+                    DryStandardState.NO_REFERENCE
+                    if standard is None
+                    else DryStandardState.AT
+                    if reading.value <= goal_for(standard)
+                    else DryStandardState.ABOVE
+                )
+            at = reading.taken_at or visit.started_at
+            point = PointReading(
+                index, at, days_between(origin, at), reading.value, standard, state
+            )
+            key = point_key(reading.location, reading.material, reading.scale)
+            room = (
+                None
+                if standard is None
+                else _standard_room(visit, room_visit, rooms, reading.material, reading.scale)
+            )
+            found = series.get(key)
+            if found is None:
+                series[key] = _PointSeries([point], reading, room)
+            else:
+                found.readings.append(point)
+                found.latest, found.standard_room = reading, room
+    return tuple(_point(key, s) for key, s in series.items())
+
+
+def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
+    readings = sorted(series.readings, key=lambda r: r.day)
+    latest = readings[-1]
+    days = [r.day for r in readings]
+    values = [r.value for r in readings]
+    fit = recent_fit(days, values)
+    step = None
+    if len(readings) >= 2 and readings[-1].day - readings[-2].day > 1e-9:
+        step = (readings[-1].value - readings[-2].value) / (readings[-1].day - readings[-2].day)
+    goal = None if latest.dry_standard is None else goal_for(latest.dry_standard)
+    met = None if goal is None else latest.at_goal
+    trend = trend_of(fit, latest.value, step)
+    estimate = None
+    if fit is not None and goal is not None and not met and trend is TrendState.FALLING:
+        estimate = estimate_to_goal(fit, latest.value, goal, latest.at)
+    return MaterialPoint(
+        key=key,
+        location=series.latest.location,
+        material=series.latest.material,
+        scale=series.latest.scale,
+        readings=tuple(readings),
+        dry_standard=latest.dry_standard,
+        dry_standard_room=series.standard_room if goal is not None else None,
+        goal=goal,
+        goal_met=met,
+        fit=fit,
+        last_step_per_day=step,
+        trend=trend,
+        estimate=estimate,
+    )
+
+
+def _room_air(
+    index: int,
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    finding: RoomFinding,
+    origin: dt.datetime,
+) -> RoomAir:
+    worst = min(finding.surfaces, key=lambda s: s.dew_point_margin_k, default=None)
+    removed = [e.water_removed_l for e in room_visit.equipment if e.water_removed_l is not None]
+    air = room_visit.air
+    at = (air.taken_at if air is not None else None) or visit.started_at
+    return RoomAir(
+        visit_index=index,
+        at=at,
+        day=days_between(origin, at),
+        dry_bulb_c=finding.air.dry_bulb_c,
+        rh_pct=finding.air.rh_pct,
+        humidity_ratio_kg_per_kg=finding.air.humidity_ratio_kg_per_kg,
+        worst_margin_k=None if worst is None else worst.dew_point_margin_k,
+        worst_margin_label=None if worst is None else worst.label,
+        water_removed_l=math.fsum(removed) if removed else None,
+    )
+
+
+def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDrying:
+    """The drying of every room of ``survey`` over its visits, and its logger days.
+
+    ``judge(index)`` returns the judged visit (default :func:`survey.evaluate.assess_visit`);
+    a face that has judged the visits already passes its own, so each is judged once."""
+    if judge is None:
+
+        def judge(index: int) -> evaluate.VisitAssessment:
+            return evaluate.assess_visit(survey, index)
+
+    order = _visit_order(survey)
+    origin = survey.visits[order[0]].started_at if order else None
+    rooms_by_id = {r.id: r for r in survey.rooms}
+    findings: dict[tuple[int, str], tuple[MaterialFinding, ...]] = {}
+    air: dict[str, list[RoomAir]] = {}
+    for index in order:
+        va = judge(index)
+        visit = survey.visits[index]
+        for finding, room_id in zip(va.findings.rooms, va.room_ids, strict=True):
+            findings[(index, room_id)] = finding.materials
+            room_visit = visit.room_visit(room_id)
+            if room_visit is not None and origin is not None:
+                air.setdefault(room_id, []).append(
+                    _room_air(index, visit, room_visit, finding, origin)
+                )
+    pressure = model.pressure_pa_for(survey)
+    loggers = [_logger(i, log, pressure) for i, log in enumerate(survey.logs)]
+    out = []
+    for room in survey.rooms:
+        seen = tuple(i for i in order if survey.visits[i].room_visit(room.id) is not None)
+        room_loggers = tuple(s for s in loggers if s.room_id == room.id)
+        if not seen and not room_loggers:
+            continue
+        room_air = tuple(sorted(air.get(room.id, []), key=lambda a: a.day))
+        days = [a.day for a in room_air]
+        out.append(
+            RoomDrying(
+                room_id=room.id,
+                name=room.name,
+                is_reference=room.is_reference,
+                air=room_air,
+                visits_seen=seen,
+                humidity_ratio_fit=recent_fit(days, [a.humidity_ratio_kg_per_kg for a in room_air]),
+                rh_fit=recent_fit(days, [a.rh_pct for a in room_air]),
+                points=(
+                    ()
+                    if origin is None
+                    else _room_points(survey, order, room.id, findings, rooms_by_id, origin)
+                ),
+                loggers=room_loggers,
+            )
+        )
+    keys = _DRYING_KEYS + (_LOGGER_KEYS if loggers else ())
+    return SiteDrying(
+        rooms=tuple(out),
+        outdoor_loggers=tuple(s for s in loggers if s.room_id is None),
+        visit_order=tuple(order),
+        threshold_keys=keys,
+    )
+
+
+# --- logger days ------------------------------------------------------------------------------
+
+
+def _split_at_midnights(start: dt.datetime, end: dt.datetime) -> list[tuple[dt.date, float]]:
+    """(day, hours) pieces of the span from ``start`` to ``end``."""
+    pieces = []
+    while start < end:
+        midnight = dt.datetime.combine(start.date() + dt.timedelta(days=1), dt.time())
+        stop = min(end, midnight)
+        pieces.append((start.date(), (stop - start).total_seconds() / 3600.0))
+        start = stop
+    return pieces
+
+
+@dataclass
+class _DayTotals:
+    temps: list[float]
+    rhs: list[float]
+    ratios: list[float]
+    hours: float = 0.0
+    above_mould: float = 0.0
+    above_wet: float = 0.0
+
+
+def logger_days(
+    samples: Sequence[model.LogSample], pressure_pa: float = psychro.STANDARD_PRESSURE_PA
+) -> tuple[tuple[LoggerDay, ...], float | None, float | None, int, float]:
+    """The series per calendar day, with the median gap (h), the longest gap counted (h),
+    and how many gaps, and hours, were left out as too long (see the module notes)."""
+    points = sorted((_wall_clock(s.at), s.dry_bulb_c, s.rh_pct) for s in samples)
+    mould = th.value("surface_rh_mould_limit_pct")
+    wet = th.value("logger_rh_wet_pct")
+    gaps = [(b[0] - a[0]).total_seconds() / 3600.0 for a, b in itertools.pairwise(points)]
+    positive = [g for g in gaps if g > 0.0]
+    interval = statistics.median(positive) if positive else None
+    limit = None if interval is None else interval * th.value("logger_gap_max_intervals")
+    totals: dict[dt.date, _DayTotals] = {}
+    ratio_of: dict[tuple[float, float], float | None] = {}
+    for at, temp, rh in points:
+        day = totals.setdefault(at.date(), _DayTotals([], [], []))
+        day.temps.append(temp)
+        day.rhs.append(rh)
+        pair = (temp, rh)
+        if pair not in ratio_of:
+            try:
+                ratio_of[pair] = psychro.vapour_state(
+                    temp, rh, pressure_pa
+                ).humidity_ratio_kg_per_kg
+            except InputError:  # too dry to work out (dew point below -100 °C)
+                ratio_of[pair] = None
+        ratio = ratio_of[pair]
+        if ratio is not None:
+            day.ratios.append(ratio)
+    left_out, hours_out = 0, 0.0
+
+    def credit(start: dt.datetime, end: dt.datetime, rh: float) -> None:
+        for day, hours in _split_at_midnights(start, end):
+            held = totals[day]
+            held.hours += hours
+            if rh > mould:
+                held.above_mould += hours
+            if rh > wet:
+                held.above_wet += hours
+
+    for ((a, _, rh_a), (b, _, rh_b)), gap in zip(itertools.pairwise(points), gaps, strict=True):
+        if gap <= 0.0:
+            continue
+        if limit is not None and gap > limit + 1e-9:
+            left_out += 1
+            hours_out += gap
+            continue
+        middle = a + (b - a) / 2
+        credit(a, middle, rh_a)
+        credit(middle, b, rh_b)
+    days = tuple(
+        LoggerDay(
+            day=day,
+            samples=len(t.temps),
+            hours_logged=t.hours,
+            temp_c=_range(t.temps),
+            rh_pct=_range(t.rhs),
+            humidity_ratio_kg_per_kg=_range(t.ratios) if t.ratios else None,
+            hours_above_mould_rh=t.above_mould,
+            hours_above_wet_rh=t.above_wet,
+        )
+        for day, t in sorted(totals.items())
+    )
+    return days, interval, limit, left_out, hours_out
+
+
+def _range(values: list[float]) -> DayRange:
+    return DayRange(math.fsum(values) / len(values), min(values), max(values))
+
+
+def _logger(index: int, log: model.LogSeries, pressure: float) -> LoggerSummary:
+    days, interval, limit, left_out, hours_out = logger_days(log.samples, pressure)
+    first = days[0].day if days else dt.date.min
+    ratios = [(d.day, d.humidity_ratio_kg_per_kg) for d in days if d.humidity_ratio_kg_per_kg]
+    return LoggerSummary(
+        log_index=index,
+        source=log.source,
+        room_id=log.room,
+        surface=log.surface,
+        days=days,
+        interval_h=interval,
+        gap_limit_h=limit,
+        gaps_left_out=left_out,
+        hours_left_out=hours_out,
+        humidity_ratio_fit=recent_fit(
+            [float((day - first).days) for day, _ in ratios], [r.mean for _, r in ratios]
+        ),
+        rh_fit=recent_fit(
+            [float((d.day - first).days) for d in days], [d.rh_pct.mean for d in days]
+        ),
+    )
