@@ -27,7 +27,7 @@ over the point's most recent readings (at most ``drying_trend_readings``: materi
 fast at first and slower as they near dry, so the recent part is what says how long is
 left), with the slope's standard error when there are three readings or more. The trend is
 
-* stalled when the fitted fall is less than ``drying_stalled_fraction_per_day`` of the
+* stalled when the fitted fall is less than ``drying_stalled_daily_fraction`` of the
   latest reading a day (flat or rising), or when the latest reading did not fall below the
   one before by that much a day;
 * unclear when it falls on average but by less than ``drying_steady_standard_errors``
@@ -151,7 +151,7 @@ def trend_of(fit: Fit | None, latest: float, last_step_per_day: float | None) ->
     and whose last step changed by ``last_step_per_day``."""
     if fit is None:
         return TrendState.ONE_READING
-    least = th.value("drying_stalled_fraction_per_day") * abs(latest)
+    least = th.value("drying_stalled_daily_fraction") * abs(latest)
     if -fit.rate_per_day < least:
         return TrendState.STALLED
     if last_step_per_day is not None and -last_step_per_day < least:
@@ -325,7 +325,7 @@ Judge = Callable[[int], evaluate.VisitAssessment]
 _DRYING_KEYS = (
     "dry_standard_tolerance_fraction",
     "drying_trend_readings",
-    "drying_stalled_fraction_per_day",
+    "drying_stalled_daily_fraction",
     "drying_steady_standard_errors",
 )
 _LOGGER_KEYS = ("logger_gap_max_intervals", "surface_rh_mould_limit_pct", "logger_rh_wet_pct")

@@ -26,8 +26,8 @@ DRYING_LIMITS: tuple[Threshold, ...] = (
         "common practice",
     ),
     Threshold(
-        "drying_stalled_fraction_per_day",
-        "Slowest fall that still counts as drying",
+        "drying_stalled_daily_fraction",
+        "Slowest fall a day, of the reading, that counts as drying",
         0.01,
         "",
         _DRYING_PRACTICE,
