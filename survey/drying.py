@@ -8,12 +8,13 @@ material reading's dry standard and state. Nothing is stored; it is all worked o
 readings each time.
 
 Points. A material point is one spot read on several visits. Readings are matched by
-location, material and scale: the location and material are compared after Unicode
-compatibility normalisation (NFKC), case folding and collapsing every run of white space to
-one space, with the ends trimmed, so ``"Party wall, 0.1 m above floor"`` and ``"party wall,
-0.1 m  above floor "`` are one point; a reading on another scale is another point (MC % and
-a relative scale cannot be trended together). Dry-standard readings (``dry_standard``) are
-not points to dry: they are the goal.
+location, material and scale: the location and material are compared in the Unicode
+compatibility caseless form (:func:`fold`: case and compatibility forms such as full-width
+letters ignored), with every run of white space made one space and the ends trimmed, so
+``"Party wall, 0.1 m above floor"`` and ``"party wall, 0.1 m  above floor "`` are one point.
+Nothing else is forgiven (a changed word or comma is another point, rather than a guess).
+A reading on another scale is another point (MC % and a relative scale cannot be trended
+together). Dry-standard readings (``dry_standard``) are not points to dry: they are the goal.
 
 Dry standard and goal. Each reading's dry standard is the one the assessment used
 (:mod:`survey.evaluate`: a dry-standard reading of the same material and scale in the same
@@ -27,7 +28,7 @@ over the point's most recent readings (at most ``drying_trend_readings``: materi
 fast at first and slower as they near dry, so the recent part is what says how long is
 left), with the slope's standard error when there are three readings or more. The trend is
 
-* stalled when the fitted fall is less than ``drying_stalled_daily_fraction`` of the
+* stalled when the fitted fall is at most ``drying_stalled_daily_fraction`` of the
   latest reading a day (flat or rising), or when the latest reading did not fall below the
   one before by that much a day;
 * unclear when it falls on average but by less than ``drying_steady_standard_errors``
@@ -44,8 +45,9 @@ above the mould limit (``surface_rh_mould_limit_pct``, 80 %) and above
 ``logger_rh_wet_pct`` (90 %). Hours are weighted by time: the gap between two samples is
 split at its midpoint, each half counting at its own sample's RH (and split again at
 midnight); a gap longer than ``logger_gap_max_intervals`` times the series' median gap is not
-counted for either sample, and is counted as left out. The daily means feed the same rate
-fit as the visits' readings.
+counted for either sample, and is counted as left out (as are hours that would fall on a day
+with no sample of its own, for samples days apart). The daily means feed the same rate fit
+as the visits' readings.
 """
 
 from __future__ import annotations
@@ -70,8 +72,12 @@ _DAY_S = 86_400.0
 
 
 def fold(text: str) -> str:
-    """Text as compared for matching points: NFKC, case-folded, white space collapsed."""
-    return " ".join(unicodedata.normalize("NFKC", text).casefold().split())
+    """Text as compared for matching points: the Unicode compatibility caseless form
+    (NFKD(casefold(NFKD(casefold(NFD(text))))), The Unicode Standard ch. 3, D146), with
+    every run of white space made one space and the ends trimmed."""
+    nfd = unicodedata.normalize("NFD", text).casefold()
+    folded = unicodedata.normalize("NFKD", unicodedata.normalize("NFKD", nfd).casefold())
+    return " ".join(folded.split())
 
 
 def point_key(location: str, material: str, scale: str) -> PointKey:
@@ -152,9 +158,9 @@ def trend_of(fit: Fit | None, latest: float, last_step_per_day: float | None) ->
     if fit is None:
         return TrendState.ONE_READING
     least = th.value("drying_stalled_daily_fraction") * abs(latest)
-    if -fit.rate_per_day < least:
+    if -fit.rate_per_day <= least:
         return TrendState.STALLED
-    if last_step_per_day is not None and -last_step_per_day < least:
+    if last_step_per_day is not None and -last_step_per_day <= least:
         return TrendState.STALLED
     errors = th.value("drying_steady_standard_errors")
     if fit.rate_se_per_day is not None and -fit.rate_per_day < errors * fit.rate_se_per_day:
@@ -595,11 +601,15 @@ def logger_days(
         ratio = ratio_of[pair]
         if ratio is not None:
             day.ratios.append(ratio)
-    left_out, hours_out = 0, 0.0
+    left_out = 0
+    out = [0.0]  # hours left out
 
     def credit(start: dt.datetime, end: dt.datetime, rh: float) -> None:
         for day, hours in _split_at_midnights(start, end):
-            held = totals[day]
+            held = totals.get(day)
+            if held is None:  # a day with no sample of its own (samples days apart)
+                out[0] += hours
+                continue
             held.hours += hours
             if rh > mould:
                 held.above_mould += hours
@@ -611,7 +621,7 @@ def logger_days(
             continue
         if limit is not None and gap > limit + 1e-9:
             left_out += 1
-            hours_out += gap
+            out[0] += gap
             continue
         middle = a + (b - a) / 2
         credit(a, middle, rh_a)
@@ -629,11 +639,13 @@ def logger_days(
         )
         for day, t in sorted(totals.items())
     )
-    return days, interval, limit, left_out, hours_out
+    return days, interval, limit, left_out, out[0]
 
 
 def _range(values: list[float]) -> DayRange:
-    return DayRange(math.fsum(values) / len(values), min(values), max(values))
+    low, high = min(values), max(values)
+    # the correctly rounded mean of equal values can round past them: keep it inside
+    return DayRange(min(max(math.fsum(values) / len(values), low), high), low, high)
 
 
 def _logger(index: int, log: model.LogSeries, pressure: float) -> LoggerSummary:
