@@ -294,7 +294,7 @@ def test_two_readings_give_days_without_a_range():
     assert point.fit is not None and point.fit.rate_se_per_day is None
     assert point.estimate is not None and point.estimate.days == pytest.approx(0.9)
     assert point.estimate.days_low is None and point.estimate.days_high is None
-    assert dw.outlook_cell(point) == "about 0.9 days (two readings: no range)"
+    assert dw.outlook_cell(point) == "about 22 hours (two readings: no range)"  # 0.9 × 24 = 21.6
 
 
 def test_no_dry_standard_no_goal():
@@ -469,12 +469,13 @@ def test_room_air_words_in_si_and_ip():
 
 
 def test_days_to_goal_words_give_the_range_and_date():
-    """The steady series' sentence: 7.8 a day, about 1.8 days (1.7 to 1.9), around 6 March
+    """The steady series' sentence: 7.8 a day, about 1.79 days = 43 hours (1.70 to 1.90 days
+    = 41 to 46 hours, hours shown below two days), around 6 March
     2025 (day 3 is 4 March 09:00; plus 1.79 days is 6 March, about 04:00)."""
     point = _only_point(_survey([60.0, 51.0, 45.0, 36.0], [0, 1, 2, 3]))
     text = dw.trend_sentence(point)
     assert "falling 7.8 points a day" in text
-    assert "about 1.8 days away (1.7 to 1.9 days with the rate ± one standard error)" in text
+    assert "about 43 hours away (41 to 46 hours with the rate ± one standard error)" in text
     assert "around 6 March 2025" in text
     assert dw.rate_cell(point) == "−7.8 ± 0.4 points a day (4 readings)"
 
@@ -568,3 +569,41 @@ def test_logger_hours_add_up(minutes, rhs, temps):
         assert d.hours_logged <= 24.0 + 1e-9
         for r in (d.temp_c, d.rh_pct):
             assert r.low <= r.mean <= r.high
+
+
+# --- the app -------------------------------------------------------------------------------
+
+
+async def test_app_drying_screen_from_the_room_list(tmp_path):
+    """On the room list, g opens the drying screen: a sparkline for each room's air and each
+    material point of the basement (3 rooms with air, 4 points), each point with its
+    readings, goal and days to the goal; Escape goes back to the room list."""
+    import shutil
+
+    from textual.widgets import Sparkline, Static
+
+    from survey.app import make_app
+    from survey.app.drying import DryingScreen, PointRow
+    from survey.app.rooms import RoomListScreen
+
+    path = tmp_path / "basement.json"
+    shutil.copyfile(BASEMENT, path)
+    app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2025, 2, 5, 12))
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        assert isinstance(app.screen, RoomListScreen)
+        await pilot.press("g")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert isinstance(app.screen, DryingScreen)
+        assert len(app.screen.query(Sparkline)) == 3 + 4
+        statuses = [
+            str(row.query_one(".drying-status", Static).render())
+            for row in app.screen.query(PointRow)
+        ]
+        party = next(s for s in statuses if s.startswith("95 → 71 → 46"))
+        assert "goal 24.2 or less" in party and "about 21 hours" in party  # 0.887 d × 24
+        await pilot.press("escape")
+        await pilot.pause()
+        assert isinstance(app.screen, RoomListScreen)

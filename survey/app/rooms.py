@@ -19,7 +19,10 @@ from survey.errors import InputError
 class RoomListScreen(walk.WalkScreen):
     TITLE_TEXT = "Rooms"
     PARENT = "visit"
-    BINDINGS = [Binding("ctrl+n", "next_room", "Next room to read", id="next_room")]
+    BINDINGS = [
+        Binding("ctrl+n", "next_room", "Next room to read", id="next_room"),
+        Binding("g", "drying", "Drying progress", id="rooms_drying"),
+    ]
 
     def __init__(self) -> None:
         super().__init__()
@@ -90,6 +93,11 @@ class RoomListScreen(walk.WalkScreen):
         room = self._current()
         if room is not None:
             self.app.open_room(room.id)
+
+    def action_drying(self) -> None:
+        from survey.app.drying import DryingScreen
+
+        self.app.push_screen(DryingScreen())
 
     def action_next_room(self) -> None:
         target = judging.next_room_needing(self.editor.survey, self.editor.visit_index, None)

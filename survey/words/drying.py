@@ -149,6 +149,15 @@ def dry_standard_cell(point: MaterialPoint, room_names: Mapping[str, str]) -> st
     return f"{value} in {where}" if where else value
 
 
+def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
+    """The dry standard with its scale and the room it was read in, for a sentence."""
+    if point.dry_standard is None:
+        return "none recorded"
+    value = reading_text(point.dry_standard, point.scale)
+    room = point.dry_standard_room or ""
+    return f"{value} in {room_names.get(room, room)}" if room else value
+
+
 def goal_cell(point: MaterialPoint) -> str:
     return "–" if point.goal is None else f"{_number(point.goal)} or less"
 
@@ -171,9 +180,10 @@ def rate_cell(point: MaterialPoint) -> str:
 
 
 def days_text(days: float) -> str:
-    """A number of days: "under half a day", "0.9 days", "12 days"."""
-    if days < 0.5:
-        return "under half a day"
+    """A time to the goal: hours under two days ("21 hours"), else days ("2.5 days")."""
+    if days < 2.0:
+        hours = days * 24.0
+        return "under an hour" if hours < 1.0 else f"{hours:.0f} hours"
     if days < 10:
         return f"{days:.1f} days"
     return f"{days:.0f} days"
@@ -182,6 +192,8 @@ def days_text(days: float) -> str:
 def _range_text(low: float | None, high: float | None) -> str:
     if low is None or high is None:
         return ""
+    if high < 2.0:
+        return f"{low * 24:.0f} to {high * 24:.0f} hours"
     if high < 10:
         return f"{low:.1f} to {high:.1f} days"
     return f"{low:.0f} to {high:.0f} days"
@@ -223,12 +235,12 @@ def point_sentence(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
     elif point.goal_met:
         return (
             f"At the drying goal: {value} against {goal_cell(point)} (dry standard "
-            f"{dry_standard_cell(point, room_names)})."
+            f"{_standard_said(point, room_names)})."
         )
     else:
         goal = (
             f"Not yet at the goal: {value} against {goal_cell(point)} (dry standard "
-            f"{dry_standard_cell(point, room_names)})."
+            f"{_standard_said(point, room_names)})."
         )
     return f"{goal} {trend_sentence(point)}"
 
