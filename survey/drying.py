@@ -52,6 +52,7 @@ as the visits' readings.
 
 from __future__ import annotations
 
+import dataclasses
 import datetime as dt
 import itertools
 import math
@@ -230,6 +231,8 @@ class MaterialPoint:
     last_step_per_day: float | None  #: change from the reading before to the latest, a day
     trend: TrendState
     estimate: GoalEstimate | None  #: only for a steady fall toward a goal not yet met
+    #: Visits to the room since the point was last read (0: read on the room's last visit).
+    visits_missed: int = 0
 
     @property
     def latest(self) -> PointReading:
@@ -249,6 +252,10 @@ class RoomAir:
     worst_margin_k: float | None  #: the least margin to the dew (or frost) point
     worst_margin_label: str | None  #: the surface it belongs to
     water_removed_l: float | None  #: water the room's equipment logged on this visit
+    #: The reference rooms' air on the same visit (their mean; None for a reference room
+    #: itself or with none measured), and the outdoor air's: what the room dries toward.
+    reference_humidity_ratio_kg_per_kg: float | None = None
+    outdoor_humidity_ratio_kg_per_kg: float | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -428,7 +435,13 @@ def _room_points(
             else:
                 found.readings.append(point)
                 found.latest, found.standard_room = reading, room
-    return tuple(_point(key, s) for key, s in series.items())
+    seen = [i for i in order if survey.visits[i].room_visit(room_id) is not None]
+    out: list[MaterialPoint] = []
+    for key, held in series.items():
+        made = _point(key, held)
+        last = max(seen.index(r.visit_index) for r in made.readings)
+        out.append(dataclasses.replace(made, visits_missed=len(seen) - 1 - last))
+    return tuple(out)
 
 
 def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
@@ -505,13 +518,28 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
     for index in order:
         va = judge(index)
         visit = survey.visits[index]
-        for finding, room_id in zip(va.findings.rooms, va.room_ids, strict=True):
+        judged = list(zip(va.findings.rooms, va.room_ids, strict=True))
+        references = [
+            f.air.humidity_ratio_kg_per_kg
+            for f, room_id in judged
+            if (r := rooms_by_id.get(room_id)) is not None and r.is_reference
+        ]
+        reference = math.fsum(references) / len(references) if references else None
+        outdoor = va.findings.outdoor
+        for finding, room_id in judged:
             findings[(index, room_id)] = finding.materials
             room_visit = visit.room_visit(room_id)
             if room_visit is not None and origin is not None:
-                air.setdefault(room_id, []).append(
-                    _room_air(index, visit, room_visit, finding, origin)
+                state = _room_air(index, visit, room_visit, finding, origin)
+                is_reference = (r := rooms_by_id.get(room_id)) is not None and r.is_reference
+                state = dataclasses.replace(
+                    state,
+                    reference_humidity_ratio_kg_per_kg=None if is_reference else reference,
+                    outdoor_humidity_ratio_kg_per_kg=(
+                        None if outdoor is None else outdoor.humidity_ratio_kg_per_kg
+                    ),
                 )
+                air.setdefault(room_id, []).append(state)
     pressure = model.pressure_pa_for(survey)
     loggers = [_logger(i, log, pressure) for i, log in enumerate(survey.logs)]
     out = []

@@ -607,3 +607,32 @@ async def test_app_drying_screen_from_the_room_list(tmp_path):
         await pilot.press("escape")
         await pilot.pause()
         assert isinstance(app.screen, RoomListScreen)
+
+
+def test_point_not_read_on_the_last_visit_says_so():
+    """A point read on visits 1 and 2 but not 3 counts one missed visit, and the words ask
+    for it to be read again."""
+    survey = _survey([60.0, 50.0, 40.0], [0, 1, 2])
+    survey.visits[2].rooms[0].materials = []
+    point = _only_point(survey)
+    assert point.visits_missed == 1 and len(point.readings) == 2
+    assert "Not read on the room's last visit" in dw.point_sentence(point, {})
+
+
+def test_room_air_is_set_beside_the_reference_room_and_outdoors():
+    """The family room's last visit: 7.00 g/kg against the office (reference) 6.59 g/kg
+    and outdoors 4.56 g/kg (4 °C / 90 % at 62 m, psychrolib GetHumRatioFromRelHum)."""
+    survey = _basement()
+    room = _room(drying.drying_progress(survey), "family")
+    last = room.air[-1]
+    pressure = model.pressure_pa_for(survey)
+    assert last.reference_humidity_ratio_kg_per_kg == pytest.approx(
+        psychrolib.GetHumRatioFromRelHum(19.0, 0.48, pressure), rel=1e-6
+    )
+    assert last.outdoor_humidity_ratio_kg_per_kg == pytest.approx(
+        psychrolib.GetHumRatioFromRelHum(4.0, 0.90, pressure), rel=1e-6
+    )
+    text = dw.room_air_sentence(room, words.Display("si"))
+    assert "7.00 g/kg, against 6.59 g/kg in the reference room and 4.56 g/kg outdoors" in text
+    office = _room(drying.drying_progress(survey), "office")
+    assert office.air[-1].reference_humidity_ratio_kg_per_kg is None

@@ -17,6 +17,7 @@ from survey.drying import (
     LoggerSummary,
     MaterialPoint,
     PointReading,
+    RoomAir,
     RoomDrying,
     TrendState,
 )
@@ -129,15 +130,37 @@ def room_air_sentence(room: RoomDrying, d: Display) -> str:
             f"{margin_text(first.worst_margin_k, first.worst_margin_label, d)}."
         )
     span = last.day - first.day
+    return _compared(
+        last,
+        d,
+        (
+            f"Room air over {span:.1f} days: humidity ratio "
+            f"{d('humidity_ratio', first.humidity_ratio_kg_per_kg)} to "
+            f"{d('humidity_ratio', last.humidity_ratio_kg_per_kg)} "
+            f"({air_rate_text(room.humidity_ratio_fit, 'humidity_ratio', d)}), RH "
+            f"{first.rh_pct:.0f} % to {last.rh_pct:.0f} % "
+            f"({air_rate_text(room.rh_fit, 'rh', d)}). Worst surface margin to the dew or "
+            f"frost point on the last visit: "
+            f"{margin_text(last.worst_margin_k, last.worst_margin_label, d)}."
+        ),
+    )
+
+
+def _compared(last: RoomAir, d: Display, text: str) -> str:
+    """``text`` with the last visit's humidity ratio beside the reference room's and the
+    outdoor air's, the levels the room dries toward."""
+    parts = []
+    if last.reference_humidity_ratio_kg_per_kg is not None:
+        parts.append(
+            f"{d('humidity_ratio', last.reference_humidity_ratio_kg_per_kg)} in the reference room"
+        )
+    if last.outdoor_humidity_ratio_kg_per_kg is not None:
+        parts.append(f"{d('humidity_ratio', last.outdoor_humidity_ratio_kg_per_kg)} outdoors")
+    if not parts:
+        return text
     return (
-        f"Room air over {span:.1f} days: humidity ratio "
-        f"{d('humidity_ratio', first.humidity_ratio_kg_per_kg)} to "
-        f"{d('humidity_ratio', last.humidity_ratio_kg_per_kg)} "
-        f"({air_rate_text(room.humidity_ratio_fit, 'humidity_ratio', d)}), RH "
-        f"{first.rh_pct:.0f} % to {last.rh_pct:.0f} % "
-        f"({air_rate_text(room.rh_fit, 'rh', d)}). Worst surface margin to the dew or "
-        f"frost point on the last visit: "
-        f"{margin_text(last.worst_margin_k, last.worst_margin_label, d)}."
+        f"{text} On the last visit the air held "
+        f"{d('humidity_ratio', last.humidity_ratio_kg_per_kg)}, against {' and '.join(parts)}."
     )
 
 
@@ -153,7 +176,11 @@ def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
     """The dry standard with its scale and the room it was read in, for a sentence."""
     if point.dry_standard is None:
         return "none recorded"
-    value = reading_text(point.dry_standard, point.scale)
+    value = (
+        f"{point.dry_standard:g} on the same scale"
+        if point.scale == "relative"
+        else reading_text(point.dry_standard, point.scale)
+    )
     room = point.dry_standard_room or ""
     return f"{value} in {room_names.get(room, room)}" if room else value
 
@@ -236,13 +263,21 @@ def point_sentence(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
         return (
             f"At the drying goal: {value} against {goal_cell(point)} (dry standard "
             f"{_standard_said(point, room_names)})."
-        )
+        ) + _missed(point)
     else:
         goal = (
             f"Not yet at the goal: {value} against {goal_cell(point)} (dry standard "
             f"{_standard_said(point, room_names)})."
         )
-    return f"{goal} {trend_sentence(point)}"
+    return f"{goal} {trend_sentence(point)}{_missed(point)}"
+
+
+def _missed(point: MaterialPoint) -> str:
+    if point.visits_missed == 0:
+        return ""
+    if point.visits_missed == 1:
+        return " Not read on the room's last visit: read it again at the next."
+    return f" Not read on the room's last {point.visits_missed} visits: read it again at the next."
 
 
 def trend_sentence(point: MaterialPoint) -> str:
