@@ -52,6 +52,7 @@ as the visits' readings.
 
 from __future__ import annotations
 
+import bisect
 import dataclasses
 import datetime as dt
 import itertools
@@ -579,17 +580,6 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
 # --- logger days ------------------------------------------------------------------------------
 
 
-def _split_at_midnights(start: dt.datetime, end: dt.datetime) -> list[tuple[dt.date, float]]:
-    """(day, hours) pieces of the span from ``start`` to ``end``."""
-    pieces = []
-    while start < end:
-        midnight = dt.datetime.combine(start.date() + dt.timedelta(days=1), dt.time())
-        stop = min(end, midnight)
-        pieces.append((start.date(), (stop - start).total_seconds() / 3600.0))
-        start = stop
-    return pieces
-
-
 @dataclass
 class _DayTotals:
     temps: list[float]
@@ -604,59 +594,87 @@ def logger_days(
     samples: Sequence[model.LogSample], pressure_pa: float = psychro.STANDARD_PRESSURE_PA
 ) -> tuple[tuple[LoggerDay, ...], float | None, float | None, int, float]:
     """The series per calendar day, with the median gap (h), the longest gap counted (h),
-    and how many gaps, and hours, were left out as too long (see the module notes)."""
-    points = sorted((_wall_clock(s.at), s.dry_bulb_c, s.rh_pct) for s in samples)
+    and how many gaps, and hours, were left out as too long (see the module notes).
+
+    Times are worked in hours from the midnight before the first sample, so a million
+    samples take seconds, not minutes."""
+    if not samples:
+        return (), None, None, 0, 0.0
+    times = [s.at if s.at.tzinfo is None else _wall_clock(s.at) for s in samples]
+    order = list(range(len(samples)))
+    if any(a > b for a, b in itertools.pairwise(times)):
+        order.sort(key=times.__getitem__)
+    base = dt.datetime.combine(times[order[0]].date(), dt.time())
+    hours = [(times[i] - base).total_seconds() / 3600.0 for i in order]
+    temps = [samples[i].dry_bulb_c for i in order]
+    rhs = [samples[i].rh_pct for i in order]
     mould = th.value("surface_rh_mould_limit_pct")
     wet = th.value("logger_rh_wet_pct")
-    gaps = [(b[0] - a[0]).total_seconds() / 3600.0 for a, b in itertools.pairwise(points)]
+    gaps = [b - a for a, b in itertools.pairwise(hours)]
     positive = [g for g in gaps if g > 0.0]
     interval = statistics.median(positive) if positive else None
-    limit = None if interval is None else interval * th.value("logger_gap_max_intervals")
-    totals: dict[dt.date, _DayTotals] = {}
+    top = math.inf if interval is None else interval * th.value("logger_gap_max_intervals")
+    limit = None if interval is None else top
+    keys = [int(h // 24.0) for h in hours]
     ratio_of: dict[tuple[float, float], float | None] = {}
-    for at, temp, rh in points:
-        day = totals.setdefault(at.date(), _DayTotals([], [], []))
-        day.temps.append(temp)
-        day.rhs.append(rh)
-        pair = (temp, rh)
-        if pair not in ratio_of:
-            try:
-                ratio_of[pair] = psychro.vapour_state(
-                    temp, rh, pressure_pa
-                ).humidity_ratio_kg_per_kg
-            except InputError:  # too dry to work out (dew point below -100 °C)
-                ratio_of[pair] = None
-        ratio = ratio_of[pair]
-        if ratio is not None:
-            day.ratios.append(ratio)
-    left_out = 0
-    out = [0.0]  # hours left out
+    pairs = list(zip(temps, rhs, strict=True))
+    for pair in set(pairs):
+        try:
+            ratio_of[pair] = psychro.vapour_state(*pair, pressure_pa).humidity_ratio_kg_per_kg
+        except InputError:  # too dry to work out (dew point below -100 °C)
+            ratio_of[pair] = None
+    ratios = [ratio_of[pair] for pair in pairs]
+    # Each counted gap inside one day gives half to each of its two samples; a gap across
+    # midnight is split at midnight below; a gap too long counts for neither.
+    inside = [0.0 < g <= top + 1e-9 and keys[i] == keys[i + 1] for i, g in enumerate(gaps)]
+    halves = [g / 2.0 if ok else 0.0 for g, ok in zip(gaps, inside, strict=True)]
+    weights = [a + b for a, b in zip([0.0, *halves], [*halves, 0.0], strict=True)]
+    totals: dict[int, _DayTotals] = {}
+    begin = 0
+    for k in sorted(set(keys)):
+        end = bisect.bisect_left(keys, k + 1, begin)
+        held = _DayTotals(
+            temps[begin:end], rhs[begin:end], [r for r in ratios[begin:end] if r is not None]
+        )
+        w, rh = weights[begin:end], rhs[begin:end]
+        held.hours = math.fsum(w)
+        held.above_mould = math.fsum(x for x, r in zip(w, rh, strict=True) if r > mould)
+        held.above_wet = math.fsum(x for x, r in zip(w, rh, strict=True) if r > wet)
+        totals[k] = held
+        begin = end
+    left_out = sum(1 for g in gaps if g > top + 1e-9)
+    out = math.fsum(g for g in gaps if g > top + 1e-9)  # hours left out
 
-    def credit(start: dt.datetime, end: dt.datetime, rh: float) -> None:
-        for day, hours in _split_at_midnights(start, end):
-            held = totals.get(day)
-            if held is None:  # a day with no sample of its own (samples days apart)
-                out[0] += hours
-                continue
-            held.hours += hours
-            if rh > mould:
-                held.above_mould += hours
-            if rh > wet:
-                held.above_wet += hours
+    def credit(start: float, end: float, rh: float) -> float:
+        """Count the span at ``rh`` on its days (split at midnight); the hours that fall on a
+        day with no sample of its own (samples days apart) are returned, not counted."""
+        missed = 0.0
+        while start < end:
+            k = int(start // 24.0)
+            stop = min(end, (k + 1) * 24.0)
+            held = totals.get(k)
+            if held is None:
+                missed += stop - start
+            else:
+                span = stop - start
+                held.hours += span
+                if rh > mould:
+                    held.above_mould += span
+                if rh > wet:
+                    held.above_wet += span
+            start = stop
+        return missed
 
-    for ((a, _, rh_a), (b, _, rh_b)), gap in zip(itertools.pairwise(points), gaps, strict=True):
-        if gap <= 0.0:
+    for i, gap in enumerate(gaps):
+        if inside[i] or gap <= 0.0 or gap > top + 1e-9:
             continue
-        if limit is not None and gap > limit + 1e-9:
-            left_out += 1
-            out[0] += gap
-            continue
-        middle = a + (b - a) / 2
-        credit(a, middle, rh_a)
-        credit(middle, b, rh_b)
+        a, b = hours[i], hours[i + 1]
+        middle = a + gap / 2.0
+        out += credit(a, middle, rhs[i]) + credit(middle, b, rhs[i + 1])
+    first = base.date()
     days = tuple(
         LoggerDay(
-            day=day,
+            day=first + dt.timedelta(days=k),
             samples=len(t.temps),
             hours_logged=t.hours,
             temp_c=_range(t.temps),
@@ -665,9 +683,9 @@ def logger_days(
             hours_above_mould_rh=t.above_mould,
             hours_above_wet_rh=t.above_wet,
         )
-        for day, t in sorted(totals.items())
+        for k, t in sorted(totals.items())
     )
-    return days, interval, limit, left_out, out[0]
+    return days, interval, limit, left_out, out
 
 
 def _range(values: list[float]) -> DayRange:
