@@ -48,25 +48,64 @@ midnight); a gap longer than ``logger_gap_max_intervals`` times the series' medi
 counted for either sample, and is counted as left out (as are hours that would fall on a day
 with no sample of its own, for samples days apart). The daily means feed the same rate fit
 as the visits' readings.
+
+The package: this module (points, rooms, the site), :mod:`survey.drying.trend` (the rate
+fit, the trend, the days to the goal) and :mod:`survey.drying.logger` (logger days).
 """
 
 from __future__ import annotations
 
-import bisect
 import dataclasses
 import datetime as dt
-import itertools
 import math
-import statistics
 import unicodedata
-from collections.abc import Callable, Sequence
+from collections.abc import Callable
 from dataclasses import dataclass
-from enum import Enum
 
-from survey import evaluate, model, psychro
+from survey import evaluate, model
 from survey import thresholds as th
 from survey.assess import DryStandardState, MaterialFinding, RoomFinding
-from survey.errors import InputError
+from survey.drying.logger import (
+    DayRange,
+    LoggerDay,
+    LoggerSummary,
+    logger_days,
+    summarise_log,
+)
+from survey.drying.trend import (
+    Fit,
+    GoalEstimate,
+    TrendState,
+    estimate_to_goal,
+    fit_line,
+    recent_fit,
+    trend_of,
+)
+
+__all__ = [
+    "DayRange",
+    "Fit",
+    "GoalEstimate",
+    "LoggerDay",
+    "LoggerSummary",
+    "MaterialPoint",
+    "PointKey",
+    "PointReading",
+    "RoomAir",
+    "RoomDrying",
+    "SiteDrying",
+    "TrendState",
+    "days_between",
+    "drying_progress",
+    "estimate_to_goal",
+    "fit_line",
+    "fold",
+    "goal_for",
+    "logger_days",
+    "point_key",
+    "recent_fit",
+    "trend_of",
+]
 
 PointKey = tuple[str, str, str]
 
@@ -97,103 +136,6 @@ def days_between(start: dt.datetime, end: dt.datetime) -> float:
     if (start.tzinfo is None) != (end.tzinfo is None):
         start, end = _wall_clock(start), _wall_clock(end)
     return (end - start).total_seconds() / _DAY_S
-
-
-# --- the rate fit ------------------------------------------------------------------------------
-
-
-class TrendState(Enum):
-    """How a series of readings is moving."""
-
-    FALLING = "falling"  #: a steady fall: a rate, and days to the goal
-    STALLED = "stalled"  #: flat or rising: no number
-    UNCLEAR = "unclear"  #: falling on average, but scattered: no number
-    ONE_READING = "one_reading"  #: nothing to fit yet
-
-
-@dataclass(frozen=True, slots=True)
-class Fit:
-    """A least-squares straight line through (day, value) pairs."""
-
-    readings: int  #: how many readings the line was fitted to
-    rate_per_day: float  #: the slope, in the reading's own unit per day (negative: falling)
-    #: The slope's standard error (same unit); ``None`` with two readings (no residual).
-    rate_se_per_day: float | None
-    first_day: float  #: day of the first reading used
-    last_day: float  #: day of the last reading used
-
-
-def fit_line(days: Sequence[float], values: Sequence[float]) -> Fit | None:
-    """The least-squares line through the points; ``None`` with fewer than two distinct days.
-
-    slope b = Sxy / Sxx, with Sxx = Σ(x − x̄)², Sxy = Σ(x − x̄)(y − ȳ); standard error
-    s_b = √(Σ residual² / (n − 2) / Sxx) for n ≥ 3 (any first course in regression)."""
-    n = len(days)
-    if n != len(values) or n < 2:
-        return None
-    mean_x = math.fsum(days) / n
-    mean_y = math.fsum(values) / n
-    sxx = math.fsum((x - mean_x) ** 2 for x in days)
-    if sxx <= 0.0 or max(days) - min(days) < 1e-9:
-        return None
-    sxy = math.fsum((x - mean_x) * (y - mean_y) for x, y in zip(days, values, strict=True))
-    slope = sxy / sxx
-    se = None
-    if n >= 3:
-        intercept = mean_y - slope * mean_x
-        ssr = math.fsum(
-            (y - (intercept + slope * x)) ** 2 for x, y in zip(days, values, strict=True)
-        )
-        se = math.sqrt(max(ssr, 0.0) / (n - 2) / sxx)
-    return Fit(n, slope, se, min(days), max(days))
-
-
-def recent_fit(days: Sequence[float], values: Sequence[float]) -> Fit | None:
-    """:func:`fit_line` over the most recent ``drying_trend_readings`` readings."""
-    keep = int(th.value("drying_trend_readings"))
-    return fit_line(days[-keep:], values[-keep:])
-
-
-def trend_of(fit: Fit | None, latest: float, last_step_per_day: float | None) -> TrendState:
-    """Falling, stalled or unclear (module notes), for readings whose latest is ``latest``
-    and whose last step changed by ``last_step_per_day``."""
-    if fit is None:
-        return TrendState.ONE_READING
-    least = th.value("drying_stalled_daily_fraction") * abs(latest)
-    if -fit.rate_per_day <= least:
-        return TrendState.STALLED
-    if last_step_per_day is not None and -last_step_per_day <= least:
-        return TrendState.STALLED
-    errors = th.value("drying_steady_standard_errors")
-    if fit.rate_se_per_day is not None and -fit.rate_per_day < errors * fit.rate_se_per_day:
-        return TrendState.UNCLEAR
-    return TrendState.FALLING
-
-
-@dataclass(frozen=True, slots=True)
-class GoalEstimate:
-    """Days from the latest reading until the goal, at the fitted rate."""
-
-    days: float
-    days_low: float | None  #: at the rate plus one standard error (faster)
-    days_high: float | None  #: at the rate minus one standard error (slower)
-    by: dt.datetime  #: the latest reading's time plus ``days``
-
-
-def estimate_to_goal(fit: Fit, latest: float, goal: float, at: dt.datetime) -> GoalEstimate:
-    """Days until ``latest`` falls to ``goal`` at the fitted (falling) rate, with the range
-    of rate ± one standard error."""
-    fall = -fit.rate_per_day
-    if fall <= 0.0:
-        raise ValueError("the fit does not fall")
-    excess = max(latest - goal, 0.0)
-    low = high = None
-    se = fit.rate_se_per_day
-    if se is not None:
-        low = excess / (fall + se)
-        high = excess / (fall - se) if fall > se else None
-    days = excess / fall
-    return GoalEstimate(days, low, high, at + dt.timedelta(days=days))
 
 
 # --- records ----------------------------------------------------------------------------------
@@ -260,46 +202,6 @@ class RoomAir:
 
 
 @dataclass(frozen=True, slots=True)
-class DayRange:
-    """A day's mean, lowest and highest value."""
-
-    mean: float
-    low: float
-    high: float
-
-
-@dataclass(frozen=True, slots=True)
-class LoggerDay:
-    """One calendar day of a logger series."""
-
-    day: dt.date
-    samples: int
-    hours_logged: float  #: hours the samples stand for (gaps counted, long gaps not)
-    temp_c: DayRange
-    rh_pct: DayRange
-    humidity_ratio_kg_per_kg: DayRange | None  #: None if no sample could be worked out
-    hours_above_mould_rh: float  #: RH above ``surface_rh_mould_limit_pct``
-    hours_above_wet_rh: float  #: RH above ``logger_rh_wet_pct``
-
-
-@dataclass(frozen=True, slots=True)
-class LoggerSummary:
-    """A logger series summed up per day, with the trend of its daily means."""
-
-    log_index: int  #: its place in ``Survey.logs``
-    source: str
-    room_id: str | None  #: None: outdoors
-    surface: str | None  #: a surface's location label, or None for air
-    days: tuple[LoggerDay, ...]
-    interval_h: float | None  #: the median gap between samples
-    gap_limit_h: float | None  #: gaps longer than this are not counted
-    gaps_left_out: int
-    hours_left_out: float
-    humidity_ratio_fit: Fit | None  #: over the daily means, kg/kg per day
-    rh_fit: Fit | None  #: over the daily means, % per day
-
-
-@dataclass(frozen=True, slots=True)
 class RoomDrying:
     """A room's drying over the visits."""
 
@@ -334,6 +236,7 @@ class SiteDrying:
 
 # --- building it ------------------------------------------------------------------------------
 
+#: Returns the judged visit of an index (a face's cache, or evaluate.assess_visit).
 Judge = Callable[[int], evaluate.VisitAssessment]
 
 _DRYING_KEYS = (
@@ -542,7 +445,7 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
                 )
                 air.setdefault(room_id, []).append(state)
     pressure = model.pressure_pa_for(survey)
-    loggers = [_logger(i, log, pressure) for i, log in enumerate(survey.logs)]
+    loggers = [summarise_log(i, log, pressure) for i, log in enumerate(survey.logs)]
     out = []
     for room in survey.rooms:
         seen = tuple(i for i in order if survey.visits[i].room_visit(room.id) is not None)
@@ -574,144 +477,4 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
         outdoor_loggers=tuple(s for s in loggers if s.room_id is None),
         visit_order=tuple(order),
         threshold_keys=keys,
-    )
-
-
-# --- logger days ------------------------------------------------------------------------------
-
-
-@dataclass
-class _DayTotals:
-    temps: list[float]
-    rhs: list[float]
-    ratios: list[float]
-    hours: float = 0.0
-    above_mould: float = 0.0
-    above_wet: float = 0.0
-
-
-def logger_days(
-    samples: Sequence[model.LogSample], pressure_pa: float = psychro.STANDARD_PRESSURE_PA
-) -> tuple[tuple[LoggerDay, ...], float | None, float | None, int, float]:
-    """The series per calendar day, with the median gap (h), the longest gap counted (h),
-    and how many gaps, and hours, were left out as too long (see the module notes).
-
-    Times are worked in hours from the midnight before the first sample, so a million
-    samples take seconds, not minutes."""
-    if not samples:
-        return (), None, None, 0, 0.0
-    times = [s.at if s.at.tzinfo is None else _wall_clock(s.at) for s in samples]
-    order = list(range(len(samples)))
-    if any(a > b for a, b in itertools.pairwise(times)):
-        order.sort(key=times.__getitem__)
-    base = dt.datetime.combine(times[order[0]].date(), dt.time())
-    hours = [(times[i] - base).total_seconds() / 3600.0 for i in order]
-    temps = [samples[i].dry_bulb_c for i in order]
-    rhs = [samples[i].rh_pct for i in order]
-    mould = th.value("surface_rh_mould_limit_pct")
-    wet = th.value("logger_rh_wet_pct")
-    gaps = [b - a for a, b in itertools.pairwise(hours)]
-    positive = [g for g in gaps if g > 0.0]
-    interval = statistics.median(positive) if positive else None
-    top = math.inf if interval is None else interval * th.value("logger_gap_max_intervals")
-    limit = None if interval is None else top
-    keys = [int(h // 24.0) for h in hours]
-    ratio_of: dict[tuple[float, float], float | None] = {}
-    pairs = list(zip(temps, rhs, strict=True))
-    for pair in set(pairs):
-        try:
-            ratio_of[pair] = psychro.vapour_state(*pair, pressure_pa).humidity_ratio_kg_per_kg
-        except InputError:  # too dry to work out (dew point below -100 °C)
-            ratio_of[pair] = None
-    ratios = [ratio_of[pair] for pair in pairs]
-    # Each counted gap inside one day gives half to each of its two samples; a gap across
-    # midnight is split at midnight below; a gap too long counts for neither.
-    inside = [0.0 < g <= top + 1e-9 and keys[i] == keys[i + 1] for i, g in enumerate(gaps)]
-    halves = [g / 2.0 if ok else 0.0 for g, ok in zip(gaps, inside, strict=True)]
-    weights = [a + b for a, b in zip([0.0, *halves], [*halves, 0.0], strict=True)]
-    totals: dict[int, _DayTotals] = {}
-    begin = 0
-    for k in sorted(set(keys)):
-        end = bisect.bisect_left(keys, k + 1, begin)
-        held = _DayTotals(
-            temps[begin:end], rhs[begin:end], [r for r in ratios[begin:end] if r is not None]
-        )
-        w, rh = weights[begin:end], rhs[begin:end]
-        held.hours = math.fsum(w)
-        held.above_mould = math.fsum(x for x, r in zip(w, rh, strict=True) if r > mould)
-        held.above_wet = math.fsum(x for x, r in zip(w, rh, strict=True) if r > wet)
-        totals[k] = held
-        begin = end
-    left_out = sum(1 for g in gaps if g > top + 1e-9)
-    out = math.fsum(g for g in gaps if g > top + 1e-9)  # hours left out
-
-    def credit(start: float, end: float, rh: float) -> float:
-        """Count the span at ``rh`` on its days (split at midnight); the hours that fall on a
-        day with no sample of its own (samples days apart) are returned, not counted."""
-        missed = 0.0
-        while start < end:
-            k = int(start // 24.0)
-            stop = min(end, (k + 1) * 24.0)
-            held = totals.get(k)
-            if held is None:
-                missed += stop - start
-            else:
-                span = stop - start
-                held.hours += span
-                if rh > mould:
-                    held.above_mould += span
-                if rh > wet:
-                    held.above_wet += span
-            start = stop
-        return missed
-
-    for i, gap in enumerate(gaps):
-        if inside[i] or gap <= 0.0 or gap > top + 1e-9:
-            continue
-        a, b = hours[i], hours[i + 1]
-        middle = a + gap / 2.0
-        out += credit(a, middle, rhs[i]) + credit(middle, b, rhs[i + 1])
-    first = base.date()
-    days = tuple(
-        LoggerDay(
-            day=first + dt.timedelta(days=k),
-            samples=len(t.temps),
-            hours_logged=t.hours,
-            temp_c=_range(t.temps),
-            rh_pct=_range(t.rhs),
-            humidity_ratio_kg_per_kg=_range(t.ratios) if t.ratios else None,
-            hours_above_mould_rh=t.above_mould,
-            hours_above_wet_rh=t.above_wet,
-        )
-        for k, t in sorted(totals.items())
-    )
-    return days, interval, limit, left_out, out
-
-
-def _range(values: list[float]) -> DayRange:
-    low, high = min(values), max(values)
-    # the correctly rounded mean of equal values can round past them: keep it inside
-    return DayRange(min(max(math.fsum(values) / len(values), low), high), low, high)
-
-
-def _logger(index: int, log: model.LogSeries, pressure: float) -> LoggerSummary:
-    days, interval, limit, left_out, hours_out = logger_days(log.samples, pressure)
-    first = days[0].day if days else dt.date.min
-    ratios = [(d.day, d.humidity_ratio_kg_per_kg) for d in days if d.humidity_ratio_kg_per_kg]
-    return LoggerSummary(
-        log_index=index,
-        source=log.source,
-        room_id=log.room,
-        surface=log.surface,
-        days=days,
-        interval_h=interval,
-        gap_limit_h=limit,
-        gaps_left_out=left_out,
-        hours_left_out=hours_out,
-        humidity_ratio_fit=recent_fit(
-            [float((day - first).days) for day, _ in ratios], [r.mean for _, r in ratios]
-        ),
-        rh_fit=recent_fit(
-            [float((d.day - first).days) for d in days], [d.rh_pct.mean for d in days]
-        ),
     )
