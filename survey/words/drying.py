@@ -62,9 +62,10 @@ def basis_text() -> str:
         f"room or in the reference room) plus {tolerance:.0f} %; "
         f"{AT_GOAL_MARK} marks a reading at the goal. The drying rate is the straight "
         f"line best fitted to the point's last {window:.0f} readings at most; drying is "
-        f"taken as stalled when the fall is less than {stalled:g} % of the reading a day, "
-        f"and as steady when the fall is at least {errors:g} times the rate's standard "
-        "error. The days to the goal are at the present rate, with the range the rate "
+        f"taken as stalled when the fall is no more than {stalled:g} % of the reading a day "
+        "(or the latest reading did not fall), and as steady when the fall is at least "
+        f"{errors:g} times the rate's standard error; a stalled or scattered trend gets no "
+        "estimate. The days to the goal are at the present rate, with the range the rate "
         "gives plus or minus one standard error; drying usually slows as materials near "
         "dry, so allow longer."
     )
