@@ -636,3 +636,28 @@ def test_room_air_is_set_beside_the_reference_room_and_outdoors():
     assert "7.00 g/kg, against 6.59 g/kg in the reference room and 4.56 g/kg outdoors" in text
     office = _room(drying.drying_progress(survey), "office")
     assert office.air[-1].reference_humidity_ratio_kg_per_kg is None
+
+
+def test_hostile_point_labels_stay_text_in_the_report():
+    """A point's location and material with table pipes, a link, HTML and a heading mark
+    add no cell, link or HTML to the report's drying tables (the report escapes them)."""
+    survey = _survey(
+        [60.0, 50.0, 40.0],
+        [0, 1, 2],
+        location="# wall | [x](http://e.invalid) <b>",
+        material="board |*",
+    )
+    survey.rooms[0].name = "Wet | [room](x)"
+    doc = report.build(survey, report.ReportOptions(generated_at="fixed"))
+    tokens = MarkdownIt("commonmark", {"html": False}).enable("table").parse(report.render(doc))
+    assert not any(t.type in ("link_open", "html_inline", "html_block") for t in tokens)
+    inline = [c for t in tokens if t.type == "inline" for c in (t.children or [])]
+    assert not any(c.type in ("link_open", "html_inline") for c in inline)
+    tables = [b for b in doc.blocks if isinstance(b, Table)]
+    rows = []
+    for token in tokens:
+        if token.type == "tr_open":
+            rows.append(0)
+        elif token.type in ("th_open", "td_open"):
+            rows[-1] += 1
+    assert rows == [len(t.header) for t in tables for _ in range(len(t.rows) + 1)]
