@@ -36,7 +36,7 @@ class RoomListScreen(walk.WalkScreen):
             Text(
                 "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing"
                 "  ★ reference\nEnter opens a room · Ctrl+N the next room to read"
-                " · [ ] move · f reference room · F1 all keys"
+                " · g drying progress · [ ] move · f reference room · F1 all keys"
             ),
             classes="hint",
         )
