@@ -661,3 +661,23 @@ def test_hostile_point_labels_stay_text_in_the_report():
         elif token.type in ("th_open", "td_open"):
             rows[-1] += 1
     assert rows == [len(t.header) for t in tables for _ in range(len(t.rows) + 1)]
+
+
+def test_drying_limits_are_in_the_table_marked_as_practice():
+    """The drying limits are looked up through the one table and marked common practice
+    (no published source was found for them): 4 readings, 1 % a day, 2 standard errors,
+    3 usual intervals, 90 % RH. The goal's allowance is the assessment's own 10 %."""
+    from survey.thresholds.limits_drying import DRYING_LIMITS
+
+    expected = {
+        "drying_trend_readings": 4.0,
+        "drying_stalled_daily_fraction": 0.01,
+        "drying_steady_standard_errors": 2.0,
+        "logger_gap_max_intervals": 3.0,
+        "logger_rh_wet_pct": 90.0,
+    }
+    assert {t.key: t.value for t in DRYING_LIMITS} == expected
+    for t in DRYING_LIMITS:
+        assert th.get(t.key) is t and t.mark == "common practice"
+    assert th.value("dry_standard_tolerance_fraction") == 0.10
+    assert drying.goal_for(22.0) == pytest.approx(24.2)
