@@ -471,7 +471,7 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
                 loggers=room_loggers,
             )
         )
-    keys = _DRYING_KEYS + (_LOGGER_KEYS if loggers else ())
+    keys = (_DRYING_KEYS if order else ()) + (_LOGGER_KEYS if loggers else ())
     return SiteDrying(
         rooms=tuple(out),
         outdoor_loggers=tuple(s for s in loggers if s.room_id is None),

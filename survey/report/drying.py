@@ -151,7 +151,9 @@ def drying_section(doc: Document, ctx: Context) -> None:
     limits these tables rest on."""
     progress = drying.drying_progress(ctx.survey, ctx.assessment)
     names = {r.id: r.name for r in ctx.survey.rooms}
-    doc.add(Heading(2, rw.HEADINGS["drying"]), Para(dw.DRYING_INTRO), Para(dw.basis_text()))
+    doc.add(Heading(2, rw.HEADINGS["drying"]), Para(dw.DRYING_INTRO))
+    if any(room.points for room in progress.rooms):
+        doc.add(Para(dw.basis_text()))
     for room in progress.rooms:
         doc.add(
             Heading(3, rw.room_heading(room.name, room.is_reference)),
@@ -177,6 +179,8 @@ def drying_section(doc: Document, ctx: Context) -> None:
         for summary in progress.outdoor_loggers:
             doc.add(*_logger_blocks(ctx, summary, None, 4))
     limits = th.cited(progress.threshold_keys)
+    if not limits:
+        return
     doc.add(
         Para(dw.LIMITS_LEAD),
         Items(
