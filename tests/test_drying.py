@@ -127,25 +127,37 @@ def test_basement_room_air_and_worst_margin_follow_the_assessment():
     assert store_room.humidity_ratio_fit.rate_per_day < 0  # the air is drying
 
 
-def test_a_fourth_visit_meets_some_goals_exactly_at_the_edge():
-    """A fourth visit copied from the third, with the party wall at 24 (≤ 24.2: met), the
-    skirting at 12.7 (> 12.65: not met, by 0.05) and the screed at 48.4 (= 48.4: met, the
-    limit itself counts as at the dry standard, as in the assessment)."""
+def _with_fourth_visit(values: dict[str, float]) -> model.Survey:
+    """The basement with a fourth visit a day after the third (6 February 09:50), a copy of
+    it with the family room's material readings set by material and every reading's own
+    time cleared (so each counts at the visit's start)."""
     survey = _basement()
     fourth = copy.deepcopy(survey.visits[-1])
-    fourth = msgspec.structs.replace(fourth, started_at=fourth.started_at + dt.timedelta(days=1))
-    family = fourth.room_visit("family")
-    assert family is not None
-    new_values = {"plasterboard": 24.0, "softwood skirting": 12.7, "sand-cement screed": 48.4}
-    family.materials = [
-        msgspec.structs.replace(
-            m,
-            value=new_values[m.material],
-            taken_at=None if m.taken_at is None else m.taken_at + dt.timedelta(days=1),
-        )
-        for m in family.materials
-    ]
+    fourth = msgspec.structs.replace(
+        fourth, started_at=fourth.started_at + dt.timedelta(days=1), outdoor=None
+    )
+    for room_visit in fourth.rooms:
+        if room_visit.air is not None:
+            room_visit.air = msgspec.structs.replace(room_visit.air, taken_at=None)
+        room_visit.materials = [
+            msgspec.structs.replace(
+                m,
+                taken_at=None,
+                value=values.get(m.material, m.value) if room_visit.room == "family" else m.value,
+            )
+            for m in room_visit.materials
+        ]
     survey.visits.append(fourth)
+    return survey
+
+
+def test_a_fourth_visit_meets_some_goals_exactly_at_the_edge():
+    """A fourth visit with the party wall at 24 (≤ 24.2: met), the skirting at 12.7
+    (> 12.65: not met, by 0.05) and the screed at 48.4 (= 48.4: met, the limit itself counts
+    as at the dry standard, as in the assessment)."""
+    survey = _with_fourth_visit(
+        {"plasterboard": 24.0, "softwood skirting": 12.7, "sand-cement screed": 48.4}
+    )
     room = _room(drying.drying_progress(survey), "family")
     met = {p.material: p.goal_met for p in room.points}
     assert met == {"plasterboard": True, "softwood skirting": False, "sand-cement screed": True}
@@ -154,6 +166,34 @@ def test_a_fourth_visit_meets_some_goals_exactly_at_the_edge():
     for p in room.points:
         if p.goal_met:
             assert p.estimate is None and dw.outlook_cell(p) == "met"
+
+
+def test_basement_skirting_that_stops_falling_has_stalled():
+    """A fourth visit with the skirting at 16.1 % MC after 28, 21.5, 16: the fit over the
+    four readings still falls (about (−1.5 × 8.6 − 0.5 × 2.1 + 0.5 × −3.4 + 1.5 × −3.3) / 5
+    = −4.1 % MC a day with the visits a day apart), but the last step rose by 0.1 in 0.993
+    days (5 Feb 10:00 to 6 Feb 09:50): drying has stalled, no days to the goal, and the
+    report's points table says so. The screed, 72 then 60, still falls steadily."""
+    survey = _with_fourth_visit({"softwood skirting": 16.1, "sand-cement screed": 60.0})
+    room = _room(drying.drying_progress(survey), "family")
+    skirting = _point(room, "Skirting, party wall")
+    assert skirting.fit is not None and skirting.fit.rate_per_day == pytest.approx(-4.1, abs=0.1)
+    assert skirting.last_step_per_day == pytest.approx(0.1 / (1430 / 1440), abs=1e-6)
+    assert skirting.trend is TrendState.STALLED and skirting.estimate is None
+    assert skirting.goal_met is False
+    assert "Drying has stalled: no fall since the reading before" in dw.point_sentence(
+        skirting, {"office": "Basement office (unaffected)"}
+    )
+    screed = _point(room, "Screed, centre of room")
+    assert screed.trend is TrendState.FALLING and screed.estimate is not None
+    doc = report.build(survey, report.ReportOptions(generated_at="fixed"))
+    table = next(
+        b
+        for b in doc.blocks
+        if isinstance(b, Table) and b.name == "drying_points" and b.room == "family"
+    )
+    outlook = {row[0].text: row[6].text for row in table.rows}
+    assert outlook["Skirting, party wall (softwood skirting, % MC)"] == "stalled"
 
 
 def test_each_visit_is_judged_once():
