@@ -114,9 +114,9 @@ _DAY_S = 86_400.0
 
 def fold(text: str) -> str:
     """Text as compared for matching points: the Unicode compatibility caseless form
-    (NFKD(casefold(NFKD(casefold(NFD(text))))), The Unicode Standard ch. 3, D146 — the
-    definition number from memory), with
-    every run of white space made one space and the ends trimmed."""
+    NFKD(casefold(NFKD(casefold(NFD(text))))) (The Unicode Standard ch. 3, D146; the
+    definition number from memory), with every run of white space made one space and the
+    ends trimmed."""
     nfd = unicodedata.normalize("NFD", text).casefold()
     folded = unicodedata.normalize("NFKD", unicodedata.normalize("NFKD", nfd).casefold())
     return " ".join(folded.split())
