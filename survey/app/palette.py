@@ -24,6 +24,7 @@ class SurveyCommands(Provider):
         for name, title in (
             ("next_room", "rooms: next room to read"),
             ("add_room", "rooms: add a room"),
+            ("drying", "rooms: drying progress"),
             ("add_surface", "room: add a surface"),
             ("add_material", "room: add a material reading"),
             ("new_visit", "visit: start a new visit"),

@@ -22,6 +22,7 @@ class RoomListScreen(walk.WalkScreen):
     BINDINGS = [
         Binding("ctrl+n", "next_room", "Next room to read", id="next_room"),
         Binding("c", "chart", "Chart", id="rooms_chart"),
+        Binding("g", "drying", "Drying progress", id="rooms_drying"),
     ]
 
     def __init__(self) -> None:
@@ -36,7 +37,7 @@ class RoomListScreen(walk.WalkScreen):
             Text(
                 "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing"
                 "  ★ reference\nEnter opens a room · Ctrl+N the next room to read"
-                " · [ ] move · f reference room · c chart · F1 all keys"
+                " · g drying progress · c chart · [ ] move · f reference room · F1 all keys"
             ),
             classes="hint",
         )
@@ -99,6 +100,11 @@ class RoomListScreen(walk.WalkScreen):
         from survey.app.chart import ChartScreen
 
         self.app.push_screen(ChartScreen())
+
+    def action_drying(self) -> None:
+        from survey.app.drying import DryingScreen
+
+        self.app.push_screen(DryingScreen())
 
     def action_next_room(self) -> None:
         target = judging.next_room_needing(self.editor.survey, self.editor.visit_index, None)

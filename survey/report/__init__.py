@@ -5,7 +5,8 @@ the same report as one self-contained HTML page; :func:`build` the report as typ
 (what the app previews and what the tests read). The rooms of the package:
 
 * :mod:`survey.report.build` — what the report says, in which order;
-* :mod:`survey.report.rooms` — each room's section and the drying-progress tables;
+* :mod:`survey.report.rooms` — each room's section;
+* :mod:`survey.report.drying` — drying progress across visits and logger days;
 * :mod:`survey.report.markdown` — the blocks, the one escaping helper, the Markdown;
 * :mod:`survey.report.html` — the HTML page from that Markdown;
 * :mod:`survey.report.svg` — the charts as SVG (imported only when a report has charts).

@@ -18,8 +18,9 @@ from survey import thresholds as th
 from survey.advise import Caution
 from survey.assess import CondensationState, DryStandardState, FactorState, MouldState
 from survey.errors import InputError
+from survey.report import drying as report_drying
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
-from survey.report.rooms import Context, drying_section, photo_blocks, room_section
+from survey.report.rooms import Context, photo_blocks, room_section
 from survey.report.season import season_section
 from survey.words import report as rw
 
@@ -122,8 +123,8 @@ def build_with_charts(
     _scope(doc, ctx, shown)
     for index in shown:
         _visit(doc, ctx, index, options.chart_stem, charts)
-    if len(survey.visits) > 1:
-        drying_section(doc, ctx)
+    if report_drying.wanted(survey):
+        report_drying.drying_section(doc, ctx)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
     doc.add(

@@ -1,4 +1,5 @@
-"""The report's room sections and the drying-progress tables, laid out from a judged visit.
+"""The report's room sections, laid out from a judged visit (drying progress across visits is
+:mod:`survey.report.drying`'s).
 
 Numbers come from the typed findings of :func:`survey.evaluate.assess_visit` and are written
 by :mod:`survey.words`; every table cell that shows a number keeps the SI value it shows and
@@ -355,78 +356,4 @@ def room_section(
                 visit=visit,
                 values=tuple(c for c in advice.cautions if c.key != "closing"),
             )
-        )
-
-
-# --- drying progress -------------------------------------------------------------------------
-
-
-def drying_section(doc: Document, ctx: Context) -> None:
-    """One table per room across every visit (only for a survey of several visits)."""
-    survey, d = ctx.survey, ctx.d
-    doc.add(Heading(2, rw.HEADINGS["drying"]), Para(rw.DRYING_INTRO))
-    for room in survey.rooms:
-        seen = [
-            (i, v, ctx.room_visits(i)[room.id])
-            for i, v in enumerate(survey.visits)
-            if room.id in ctx.room_visits(i)
-        ]
-        if not seen:
-            continue
-        columns: dict[tuple[str, str, str], str] = {}
-        key: tuple[str, str, str]
-        for _, _, room_visit in seen:
-            for m in room_visit.materials:
-                if not m.dry_standard:
-                    key = (m.location, m.material, m.scale)
-                    columns.setdefault(key, rw.drying_column(m.location, m.material, m.scale))
-        collected = any(e.water_removed_l is not None for _, _, rv in seen for e in rv.equipment)
-        header = (
-            rw.DRYING_HEADER
-            + tuple(columns.values())
-            + ((rw.WATER_COLLECTED,) if collected else ())
-        )
-        rows = []
-        for index, visit, room_visit in seen:
-            position = ctx.position(index, room.id)
-            finding = None if position is None else ctx.assessment(index).findings.rooms[position]
-            cells = [Cell(str(index + 1)), Cell(rw.date_text(visit.started_at))]
-            if finding is None:
-                cells += [Cell(rw.NOT_MEASURED)] * 3
-            else:
-                air = finding.air
-                cells += [
-                    Cell(d.temperature(air.dry_bulb_c), air.dry_bulb_c, "air.dry_bulb_c"),
-                    Cell(rw.rh_text(air.rh_pct), air.rh_pct, "air.rh_pct"),
-                    Cell(
-                        d("humidity_ratio", air.humidity_ratio_kg_per_kg),
-                        air.humidity_ratio_kg_per_kg,
-                        "air.humidity_ratio_kg_per_kg",
-                    ),
-                ]
-            by_key: dict[tuple[str, str, str], model.MaterialReading] = {
-                (m.location, m.material, m.scale): m
-                for m in room_visit.materials
-                if not m.dry_standard
-            }
-            for key in columns:
-                found = by_key.get(key)
-                cells.append(
-                    Cell("–")
-                    if found is None
-                    else Cell(rw.drying_cell(found.value), found.value, "value")
-                )
-            if collected:
-                removed = [
-                    e.water_removed_l for e in room_visit.equipment if e.water_removed_l is not None
-                ]
-                cells.append(
-                    Cell(d.litres(sum(removed)), sum(removed), "water_removed_l")
-                    if removed
-                    else Cell("–")
-                )
-            rows.append(tuple(cells))
-        right = frozenset(range(2, len(header)))
-        doc.add(
-            Heading(3, room.name), Table(header, tuple(rows), right, name="drying", room=room.id)
         )

@@ -16,16 +16,7 @@ from survey.assess import RoomFinding, SurfaceFinding
 from survey.words.cautions import CAUTION_NAMES as CAUTION_NAMES
 from survey.words.display import Display
 from survey.words.report_end import (
-    _SCALE_SHORT as _SCALE_SHORT,
-)
-from survey.words.report_end import (
     DEFERRAL as DEFERRAL,
-)
-from survey.words.report_end import (
-    DRYING_HEADER as DRYING_HEADER,
-)
-from survey.words.report_end import (
-    DRYING_INTRO as DRYING_INTRO,
 )
 from survey.words.report_end import (
     GENERAL_CAUTIONS as GENERAL_CAUTIONS,
@@ -37,16 +28,10 @@ from survey.words.report_end import (
     LIMITS_INTRO as LIMITS_INTRO,
 )
 from survey.words.report_end import (
-    NOT_MEASURED as NOT_MEASURED,
-)
-from survey.words.report_end import (
     SAFETY_INTRO as SAFETY_INTRO,
 )
 from survey.words.report_end import (
     SAFETY_NONE as SAFETY_NONE,
-)
-from survey.words.report_end import (
-    WATER_COLLECTED as WATER_COLLECTED,
 )
 from survey.words.report_end import (
     accuracy_method_text as accuracy_method_text,
@@ -56,12 +41,6 @@ from survey.words.report_end import (
 )
 from survey.words.report_end import (
     applies_to as applies_to,
-)
-from survey.words.report_end import (
-    drying_cell as drying_cell,
-)
-from survey.words.report_end import (
-    drying_column as drying_column,
 )
 from survey.words.report_end import (
     glossary as glossary,

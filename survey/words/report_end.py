@@ -1,4 +1,5 @@
-"""The report's closing parts in words: drying progress, safety, method, glossary."""
+"""The report's closing parts in words: safety, method, glossary (drying progress is
+:mod:`survey.words.drying`'s)."""
 
 from __future__ import annotations
 
@@ -7,29 +8,6 @@ from collections.abc import Iterable, Sequence
 from survey import thresholds as th
 from survey.words.cautions import CAUTION_NAMES as CAUTION_NAMES
 from survey.words.display import Display
-
-# --- drying progress -------------------------------------------------------------------------
-
-DRYING_INTRO = (
-    "Each room's readings on every visit, so the drying can be followed: the "
-    "humidity ratio is the water the air holds, and falling material readings "
-    "mean the materials are drying."
-)
-DRYING_HEADER = ("Visit", "Date", "Air", "RH", "Humidity ratio")
-WATER_COLLECTED = "Water collected"
-NOT_MEASURED = "not measured"
-
-
-_SCALE_SHORT = {"mc_pct": "% MC", "wme_pct": "% WME", "relative": "relative scale"}
-
-
-def drying_column(location: str, material: str, scale: str) -> str:
-    return f"{location} ({material}, {_SCALE_SHORT[scale]})"
-
-
-def drying_cell(value: float) -> str:
-    return f"{value:g}"
-
 
 # --- safety ----------------------------------------------------------------------------------
 

@@ -1,0 +1,164 @@
+"""Drying progress: per room, each material point across the visits as a sparkline with its
+readings, its goal, and whether the goal is met, the days to it, or that drying has stalled;
+the room air's trend; a logger's last days. Worked out by :func:`survey.drying.
+drying_progress` in a thread worker, worded by :mod:`survey.words.drying`.
+
+Opened from the room list (``g``, binding id ``rooms_drying``); Escape goes back.
+"""
+
+from __future__ import annotations
+
+from rich.text import Text
+from textual.containers import Horizontal, VerticalScroll
+from textual.message import Message
+from textual.widgets import Label, Sparkline, Static
+
+from survey import drying
+from survey.app import walk
+from survey.app.fields import plain
+from survey.words import drying as dw
+
+#: Columns a point's sparkline takes; each visit's reading gets an equal share of them.
+SPARK_WIDTH = 15
+#: A logger's last days listed (the report has them all).
+LOGGER_DAYS_SHOWN = 7
+
+
+class DryingReady(Message):
+    """The drying progress was worked out (posted from the worker thread)."""
+
+    def __init__(self, progress: drying.SiteDrying | None, problem: str = "") -> None:
+        super().__init__()
+        self.progress = progress
+        self.problem = problem
+
+
+def spark_data(values: list[float]) -> list[float]:
+    """Each value repeated so that a few readings still fill the sparkline's width (the
+    widget draws one bar per value when there are fewer values than columns)."""
+    if not values:
+        return []
+    share = max(1, SPARK_WIDTH // len(values))
+    return [v for v in values for _ in range(share)]
+
+
+class PointRow(Horizontal):
+    """A material point: its name, a sparkline of its readings, readings and outcome."""
+
+    DEFAULT_CSS = """
+    PointRow { height: auto; }
+    PointRow > .drying-name { width: 30; }
+    PointRow > Sparkline { width: 15; margin: 0 1; }
+    PointRow > .drying-status { width: 1fr; }
+    """
+
+
+class DryingScreen(walk.WalkScreen):
+    TITLE_TEXT = "Drying progress"
+    PARENT = "rooms"
+
+    DEFAULT_CSS = """
+    DryingScreen .drying-room { margin-top: 1; text-style: bold; }
+    DryingScreen .drying-said { color: $text-muted; padding-left: 2; }
+    """
+
+    def compose(self):
+        yield self.header()
+        with VerticalScroll(id="drying-scroll", can_focus=True):
+            yield Static(Text("Working out the drying progress…"), id="drying-wait")
+        yield from self.footer_widgets()
+
+    def on_mount(self) -> None:
+        self.query_one("#drying-scroll").focus()
+        self.refresh_view()
+
+    def action_back(self) -> None:
+        self.app.pop_screen()  # back to the room list it was opened from, as it was
+
+    def refresh_view(self) -> None:
+        survey = self.editor.survey
+
+        def work() -> None:
+            try:
+                progress = drying.drying_progress(survey)
+            except Exception as exc:  # shown, never lost: the survey itself is untouched
+                self.post_message(DryingReady(None, str(exc)))
+                return
+            self.post_message(DryingReady(progress))
+
+        self.run_worker(work, thread=True, group="drying", exclusive=True, exit_on_error=False)
+
+    def on_drying_ready(self, message: DryingReady) -> None:
+        scroll = self.query_one("#drying-scroll", VerticalScroll)
+        scroll.remove_children()
+        if message.progress is None:
+            scroll.mount(
+                Static(Text(f"Drying progress could not be worked out: {message.problem}"))
+            )
+            return
+        scroll.mount_all(self._widgets(message.progress))
+
+    def _widgets(self, progress: drying.SiteDrying) -> list:
+        d = self.app.display_units
+        names = {r.id: r.name for r in self.editor.survey.rooms}
+        out: list = []
+        if not progress.rooms and not progress.outdoor_loggers:
+            return [Static(Text("No room has been read yet."))]
+        for room in progress.rooms:
+            title = plain(room.name, "bold")
+            if room.is_reference:
+                title.append(" ★ reference room")
+            out.append(Static(title, classes="drying-room"))
+            out.append(Static(plain(dw.room_air_sentence(room, d)), classes="drying-said"))
+            if room.air:
+                out.append(
+                    self._row(
+                        Text("Room air humidity ratio"),
+                        [a.humidity_ratio_kg_per_kg for a in room.air],
+                        Text(
+                            " → ".join(
+                                d("humidity_ratio", a.humidity_ratio_kg_per_kg) for a in room.air
+                            )
+                        ),
+                    )
+                )
+            if room.points:
+                out.append(Static(Text(dw.room_goals_text(room)), classes="drying-said"))
+            for point in room.points:
+                values = [r.value for r in point.readings]
+                status = Text(" → ".join(dw.reading_cell(r) for r in point.readings))
+                if point.goal is not None:
+                    status.append(f"  goal {dw.goal_cell(point)}")
+                status.append(f"  {dw.point_status(point)}", "bold")
+                out.append(self._row(plain(walk.cut(point.location, 29)), values, status))
+                out.append(Static(plain(dw.point_sentence(point, names)), classes="drying-said"))
+            for summary in room.loggers:
+                out += self._logger(summary, room.name)
+        for summary in progress.outdoor_loggers:
+            out.append(Static(Text(dw.OUTDOORS), classes="drying-room"))
+            out += self._logger(summary, None)
+        return out
+
+    def _row(self, name: Text, values: list[float], status: Text) -> PointRow:
+        return PointRow(
+            Label(name, classes="drying-name", markup=False),
+            Sparkline(spark_data(values)),
+            Static(status, classes="drying-status"),
+        )
+
+    def _logger(self, summary: drying.LoggerSummary, room_name: str | None) -> list:
+        d = self.app.display_units
+        heading = plain(dw.logger_heading(summary, room_name))
+        out: list = [
+            Static(heading, classes="drying-said"),
+            self._row(
+                Text("Daily mean RH"),
+                [day.rh_pct.mean for day in summary.days],
+                Text(f"{dw.logger_gaps_text(summary)} {dw.logger_trend_text(summary, d)}"),
+            ),
+        ]
+        out += [
+            Static(Text(dw.logger_day_line(day, d)), classes="drying-said")
+            for day in summary.days[-LOGGER_DAYS_SHOWN:]
+        ]
+        return out

@@ -1,0 +1,481 @@
+"""Drying progress across a site's visits: each room's air, each material point against its
+dry standard and drying goal, the drying rate, the days left at that rate, and logger days.
+
+Every visit is judged once, by :func:`survey.evaluate.assess_visit` (or a face's cached
+judgement, passed as ``judge``); the numbers here are read from its typed findings: the room
+air's RH and humidity ratio, each surface's margin to the dew (or frost) point, and each
+material reading's dry standard and state. Nothing is stored; it is all worked out from the
+readings each time.
+
+Points. A material point is one spot read on several visits. Readings are matched by
+location, material and scale: the location and material are compared in the Unicode
+compatibility caseless form (:func:`fold`: case and compatibility forms such as full-width
+letters ignored), with every run of white space made one space and the ends trimmed, so
+``"Party wall, 0.1 m above floor"`` and ``"party wall, 0.1 m  above floor "`` are one point.
+Nothing else is forgiven (a changed word or comma is another point, rather than a guess).
+A reading on another scale is another point (MC % and a relative scale cannot be trended
+together). Dry-standard readings (``dry_standard``) are not points to dry: they are the goal.
+
+Dry standard and goal. Each reading's dry standard is the one the assessment used
+(:mod:`survey.evaluate`: a dry-standard reading of the same material and scale in the same
+room, else in a reference room on the same visit). A point's goal is its latest dry
+standard plus the ``dry_standard_tolerance_fraction`` allowance, the same rule by which the
+assessment calls a reading "at the dry standard"; the goal is met when the latest reading is
+at or below it. A point with no dry standard has no goal (its trend is still given).
+
+Rate. The drying rate is the ordinary least-squares slope of reading against time in days
+over the point's most recent readings (at most ``drying_trend_readings``: materials dry
+fast at first and slower as they near dry, so the recent part is what says how long is
+left), with the slope's standard error when there are three readings or more. The trend is
+
+* stalled when the fitted fall is at most ``drying_stalled_daily_fraction`` of the
+  latest reading a day (flat or rising), or when the latest reading did not fall below the
+  one before by that much a day;
+* unclear when it falls on average but by less than ``drying_steady_standard_errors``
+  standard errors (the readings scatter too much for a rate);
+* falling (steady) otherwise: then the days to the goal are the latest reading's excess
+  over the goal divided by the fall per day, with the range given by the rate plus and
+  minus one standard error (none with two readings only). A stalled or unclear trend gets
+  no number.
+
+Loggers. Each :class:`~survey.model.LogSeries` is summed up per calendar day (of the times
+as written): the mean (of the day's samples), minimum and maximum of temperature, RH and
+humidity ratio (:func:`survey.psychro.vapour_state` at the site's pressure), and the hours
+above the mould limit (``surface_rh_mould_limit_pct``, 80 %) and above
+``logger_rh_wet_pct`` (90 %). Hours are weighted by time: the gap between two samples is
+split at its midpoint, each half counting at its own sample's RH (and split again at
+midnight); a gap longer than ``logger_gap_max_intervals`` times the series' median gap is not
+counted for either sample, and is counted as left out (as are hours that would fall on a day
+with no sample of its own, for samples days apart). The daily means feed the same rate fit
+as the visits' readings.
+
+The package: this module (points, rooms, the site), :mod:`survey.drying.trend` (the rate
+fit, the trend, the days to the goal) and :mod:`survey.drying.logger` (logger days).
+"""
+
+from __future__ import annotations
+
+import dataclasses
+import datetime as dt
+import math
+import unicodedata
+from collections.abc import Callable
+from dataclasses import dataclass
+
+from survey import evaluate, model
+from survey import thresholds as th
+from survey.assess import DryStandardState, MaterialFinding, RoomFinding
+from survey.drying.logger import (
+    DayRange,
+    LoggerDay,
+    LoggerSummary,
+    logger_days,
+    summarise_log,
+)
+from survey.drying.trend import (
+    Fit,
+    GoalEstimate,
+    TrendState,
+    estimate_to_goal,
+    fit_line,
+    recent_fit,
+    trend_of,
+)
+
+__all__ = [
+    "DayRange",
+    "Fit",
+    "GoalEstimate",
+    "LoggerDay",
+    "LoggerSummary",
+    "MaterialPoint",
+    "PointKey",
+    "PointReading",
+    "RoomAir",
+    "RoomDrying",
+    "SiteDrying",
+    "TrendState",
+    "days_between",
+    "drying_progress",
+    "estimate_to_goal",
+    "fit_line",
+    "fold",
+    "goal_for",
+    "logger_days",
+    "point_key",
+    "recent_fit",
+    "trend_of",
+]
+
+PointKey = tuple[str, str, str]
+
+_DAY_S = 86_400.0
+
+
+def fold(text: str) -> str:
+    """Text as compared for matching points: the Unicode compatibility caseless form
+    NFKD(casefold(NFKD(casefold(NFD(text))))) (The Unicode Standard ch. 3, D146; the
+    definition number from memory), with every run of white space made one space and the
+    ends trimmed."""
+    nfd = unicodedata.normalize("NFD", text).casefold()
+    folded = unicodedata.normalize("NFKD", unicodedata.normalize("NFKD", nfd).casefold())
+    return " ".join(folded.split())
+
+
+def point_key(location: str, material: str, scale: str) -> PointKey:
+    """The key two readings of one material point share (see the module notes)."""
+    return (fold(location), fold(material), scale)
+
+
+def _wall_clock(at: dt.datetime) -> dt.datetime:
+    return at.replace(tzinfo=None)
+
+
+def days_between(start: dt.datetime, end: dt.datetime) -> float:
+    """Days from ``start`` to ``end``; when only one of them has a time zone both are read
+    as the wall-clock times written."""
+    if (start.tzinfo is None) != (end.tzinfo is None):
+        start, end = _wall_clock(start), _wall_clock(end)
+    return (end - start).total_seconds() / _DAY_S
+
+
+# --- records ----------------------------------------------------------------------------------
+
+
+@dataclass(frozen=True, slots=True)
+class PointReading:
+    """One reading of a material point."""
+
+    visit_index: int
+    at: dt.datetime
+    day: float  #: days since the site's first visit
+    value: float
+    dry_standard: float | None
+    state: DryStandardState  #: the assessment's (or its rule, for a room not judged)
+
+    @property
+    def at_goal(self) -> bool:
+        return self.state is DryStandardState.AT
+
+
+@dataclass(frozen=True, slots=True)
+class MaterialPoint:
+    """One material point across the visits: readings, dry standard, goal, rate, days left."""
+
+    key: PointKey
+    location: str  #: as written on the latest reading
+    material: str
+    scale: str
+    readings: tuple[PointReading, ...]  #: in time order
+    dry_standard: float | None  #: the latest reading's
+    dry_standard_room: str | None  #: the room id it was read in
+    goal: float | None  #: the dry standard plus its allowance
+    goal_met: bool | None  #: the latest reading at or below the goal; None: no goal
+    fit: Fit | None
+    last_step_per_day: float | None  #: change from the reading before to the latest, a day
+    trend: TrendState
+    estimate: GoalEstimate | None  #: only for a steady fall toward a goal not yet met
+    #: Visits to the room since the point was last read (0: read on the room's last visit).
+    visits_missed: int = 0
+
+    @property
+    def latest(self) -> PointReading:
+        return self.readings[-1]
+
+
+@dataclass(frozen=True, slots=True)
+class RoomAir:
+    """A room's air and its worst surface on one visit."""
+
+    visit_index: int
+    at: dt.datetime
+    day: float
+    dry_bulb_c: float
+    rh_pct: float
+    humidity_ratio_kg_per_kg: float
+    worst_margin_k: float | None  #: the least margin to the dew (or frost) point
+    worst_margin_label: str | None  #: the surface it belongs to
+    water_removed_l: float | None  #: water the room's equipment logged on this visit
+    #: The reference rooms' air on the same visit (their mean; None for a reference room
+    #: itself or with none measured), and the outdoor air's: what the room dries toward.
+    reference_humidity_ratio_kg_per_kg: float | None = None
+    outdoor_humidity_ratio_kg_per_kg: float | None = None
+
+
+@dataclass(frozen=True, slots=True)
+class RoomDrying:
+    """A room's drying over the visits."""
+
+    room_id: str
+    name: str
+    is_reference: bool
+    air: tuple[RoomAir, ...]  #: visits with an air reading, in time order
+    visits_seen: tuple[int, ...]  #: visit indexes where the room was entered, in time order
+    humidity_ratio_fit: Fit | None  #: kg/kg per day, over the recent visits
+    rh_fit: Fit | None  #: % per day
+    points: tuple[MaterialPoint, ...]
+    loggers: tuple[LoggerSummary, ...]
+
+    @property
+    def goals_met(self) -> int:
+        return sum(p.goal_met is True for p in self.points)
+
+    @property
+    def goals_set(self) -> int:
+        return sum(p.goal_met is not None for p in self.points)
+
+
+@dataclass(frozen=True, slots=True)
+class SiteDrying:
+    """Every room's drying, the outdoor loggers, and the limits used."""
+
+    rooms: tuple[RoomDrying, ...]
+    outdoor_loggers: tuple[LoggerSummary, ...]
+    visit_order: tuple[int, ...]  #: visit indexes in time order
+    threshold_keys: tuple[str, ...]
+
+
+# --- building it ------------------------------------------------------------------------------
+
+#: Returns the judged visit of an index (a face's cache, or evaluate.assess_visit).
+Judge = Callable[[int], evaluate.VisitAssessment]
+
+_DRYING_KEYS = (
+    "dry_standard_tolerance_fraction",
+    "drying_trend_readings",
+    "drying_stalled_daily_fraction",
+    "drying_steady_standard_errors",
+)
+_LOGGER_KEYS = ("logger_gap_max_intervals", "surface_rh_mould_limit_pct", "logger_rh_wet_pct")
+
+
+def goal_for(dry_standard: float) -> float:
+    """The drying goal: the dry standard plus the allowance that still counts as dry."""
+    return dry_standard * (1.0 + th.value("dry_standard_tolerance_fraction"))
+
+
+def _visit_order(survey: model.Survey) -> list[int]:
+    origin = survey.visits[0].started_at if survey.visits else None
+    if origin is None:
+        return []
+    return sorted(
+        range(len(survey.visits)), key=lambda i: days_between(origin, survey.visits[i].started_at)
+    )
+
+
+def _standard_room(
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    rooms: dict[str, model.Room],
+    material: str,
+    scale: str,
+) -> str | None:
+    """The room whose dry-standard reading the assessment took for this material and scale
+    (the same order as :mod:`survey.evaluate`: this room, then reference rooms)."""
+    wanted = (material.strip().lower(), scale)
+    sources = [room_visit] + [
+        rv
+        for rv in visit.rooms
+        if rv is not room_visit and (r := rooms.get(rv.room)) is not None and r.is_reference
+    ]
+    for source in sources:
+        for reading in source.materials:
+            if reading.dry_standard and (reading.material.strip().lower(), reading.scale) == wanted:
+                return source.room
+    return None
+
+
+@dataclass
+class _PointSeries:
+    readings: list[PointReading]
+    latest: model.MaterialReading
+    standard_room: str | None
+
+
+def _room_points(
+    survey: model.Survey,
+    order: list[int],
+    room_id: str,
+    findings: dict[tuple[int, str], tuple[MaterialFinding, ...]],
+    rooms: dict[str, model.Room],
+    origin: dt.datetime,
+) -> tuple[MaterialPoint, ...]:
+    series: dict[PointKey, _PointSeries] = {}
+    for index in order:
+        visit = survey.visits[index]
+        room_visit = visit.room_visit(room_id)
+        if room_visit is None:
+            continue
+        judged = findings.get((index, room_id))
+        standards = (
+            None if judged is not None else evaluate._dry_standards(visit, room_visit, rooms)
+        )
+        readings = [m for m in room_visit.materials if not m.dry_standard]
+        for position, reading in enumerate(readings):
+            if judged is not None and position < len(judged):
+                finding = judged[position]
+                standard, state = finding.dry_standard, finding.dry_standard_state
+            else:
+                standard = (standards or {}).get((reading.material.strip().lower(), reading.scale))
+                state = (
+                    DryStandardState.NO_REFERENCE
+                    if standard is None
+                    else DryStandardState.AT
+                    if reading.value <= goal_for(standard)
+                    else DryStandardState.ABOVE
+                )
+            at = reading.taken_at or visit.started_at
+            point = PointReading(
+                index, at, days_between(origin, at), reading.value, standard, state
+            )
+            key = point_key(reading.location, reading.material, reading.scale)
+            room = (
+                None
+                if standard is None
+                else _standard_room(visit, room_visit, rooms, reading.material, reading.scale)
+            )
+            found = series.get(key)
+            if found is None:
+                series[key] = _PointSeries([point], reading, room)
+            else:
+                found.readings.append(point)
+                found.latest, found.standard_room = reading, room
+    seen = [i for i in order if survey.visits[i].room_visit(room_id) is not None]
+    out: list[MaterialPoint] = []
+    for key, held in series.items():
+        made = _point(key, held)
+        last = max(seen.index(r.visit_index) for r in made.readings)
+        out.append(dataclasses.replace(made, visits_missed=len(seen) - 1 - last))
+    return tuple(out)
+
+
+def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
+    readings = sorted(series.readings, key=lambda r: r.day)
+    latest = readings[-1]
+    days = [r.day for r in readings]
+    values = [r.value for r in readings]
+    fit = recent_fit(days, values)
+    step = None
+    if len(readings) >= 2 and readings[-1].day - readings[-2].day > 1e-9:
+        step = (readings[-1].value - readings[-2].value) / (readings[-1].day - readings[-2].day)
+    goal = None if latest.dry_standard is None else goal_for(latest.dry_standard)
+    met = None if goal is None else latest.at_goal
+    trend = trend_of(fit, latest.value, step)
+    estimate = None
+    if fit is not None and goal is not None and not met and trend is TrendState.FALLING:
+        estimate = estimate_to_goal(fit, latest.value, goal, latest.at)
+    return MaterialPoint(
+        key=key,
+        location=series.latest.location,
+        material=series.latest.material,
+        scale=series.latest.scale,
+        readings=tuple(readings),
+        dry_standard=latest.dry_standard,
+        dry_standard_room=series.standard_room if goal is not None else None,
+        goal=goal,
+        goal_met=met,
+        fit=fit,
+        last_step_per_day=step,
+        trend=trend,
+        estimate=estimate,
+    )
+
+
+def _room_air(
+    index: int,
+    visit: model.Visit,
+    room_visit: model.RoomVisit,
+    finding: RoomFinding,
+    origin: dt.datetime,
+) -> RoomAir:
+    worst = min(finding.surfaces, key=lambda s: s.dew_point_margin_k, default=None)
+    removed = [e.water_removed_l for e in room_visit.equipment if e.water_removed_l is not None]
+    air = room_visit.air
+    at = (air.taken_at if air is not None else None) or visit.started_at
+    return RoomAir(
+        visit_index=index,
+        at=at,
+        day=days_between(origin, at),
+        dry_bulb_c=finding.air.dry_bulb_c,
+        rh_pct=finding.air.rh_pct,
+        humidity_ratio_kg_per_kg=finding.air.humidity_ratio_kg_per_kg,
+        worst_margin_k=None if worst is None else worst.dew_point_margin_k,
+        worst_margin_label=None if worst is None else worst.label,
+        water_removed_l=math.fsum(removed) if removed else None,
+    )
+
+
+def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDrying:
+    """The drying of every room of ``survey`` over its visits, and its logger days.
+
+    ``judge(index)`` returns the judged visit (default :func:`survey.evaluate.assess_visit`);
+    a face that has judged the visits already passes its own, so each is judged once."""
+    if judge is None:
+
+        def judge(index: int) -> evaluate.VisitAssessment:
+            return evaluate.assess_visit(survey, index)
+
+    order = _visit_order(survey)
+    origin = survey.visits[order[0]].started_at if order else None
+    rooms_by_id = {r.id: r for r in survey.rooms}
+    findings: dict[tuple[int, str], tuple[MaterialFinding, ...]] = {}
+    air: dict[str, list[RoomAir]] = {}
+    for index in order:
+        va = judge(index)
+        visit = survey.visits[index]
+        judged = list(zip(va.findings.rooms, va.room_ids, strict=True))
+        references = [
+            f.air.humidity_ratio_kg_per_kg
+            for f, room_id in judged
+            if (r := rooms_by_id.get(room_id)) is not None and r.is_reference
+        ]
+        reference = math.fsum(references) / len(references) if references else None
+        outdoor = va.findings.outdoor
+        for finding, room_id in judged:
+            findings[(index, room_id)] = finding.materials
+            room_visit = visit.room_visit(room_id)
+            if room_visit is not None and origin is not None:
+                state = _room_air(index, visit, room_visit, finding, origin)
+                is_reference = (r := rooms_by_id.get(room_id)) is not None and r.is_reference
+                state = dataclasses.replace(
+                    state,
+                    reference_humidity_ratio_kg_per_kg=None if is_reference else reference,
+                    outdoor_humidity_ratio_kg_per_kg=(
+                        None if outdoor is None else outdoor.humidity_ratio_kg_per_kg
+                    ),
+                )
+                air.setdefault(room_id, []).append(state)
+    pressure = model.pressure_pa_for(survey)
+    loggers = [summarise_log(i, log, pressure) for i, log in enumerate(survey.logs)]
+    out = []
+    for room in survey.rooms:
+        seen = tuple(i for i in order if survey.visits[i].room_visit(room.id) is not None)
+        room_loggers = tuple(s for s in loggers if s.room_id == room.id)
+        if not seen and not room_loggers:
+            continue
+        room_air = tuple(sorted(air.get(room.id, []), key=lambda a: a.day))
+        days = [a.day for a in room_air]
+        out.append(
+            RoomDrying(
+                room_id=room.id,
+                name=room.name,
+                is_reference=room.is_reference,
+                air=room_air,
+                visits_seen=seen,
+                humidity_ratio_fit=recent_fit(days, [a.humidity_ratio_kg_per_kg for a in room_air]),
+                rh_fit=recent_fit(days, [a.rh_pct for a in room_air]),
+                points=(
+                    ()
+                    if origin is None
+                    else _room_points(survey, order, room.id, findings, rooms_by_id, origin)
+                ),
+                loggers=room_loggers,
+            )
+        )
+    keys = (_DRYING_KEYS if order else ()) + (_LOGGER_KEYS if loggers else ())
+    return SiteDrying(
+        rooms=tuple(out),
+        outdoor_loggers=tuple(s for s in loggers if s.room_id is None),
+        visit_order=tuple(order),
+        threshold_keys=keys,
+    )
