@@ -189,6 +189,7 @@ class FindingKind(enum.Enum):
     NO_DROP = "no_drop"  #: W drop within the readings' resolution
     OUTLET_NOT_WARMER = "outlet_not_warmer"  #: outlet dry bulb at or below the inlet's
     NO_WATER = "no_water"
+    NOTHING_COLLECTED = "nothing_collected"  #: no water, though the air leaves drier
     NO_DURATION = "no_duration"  #: water given, but over no known time
     NO_POWER = "no_power"
     NO_RATING_CONDITION = "no_rating_condition"  #: a rating without its test condition
@@ -410,6 +411,8 @@ def _findings(
         found.append(Finding(FindingKind.OUTLET_NOT_WARMER))
     if given.water_l is None:
         found.append(Finding(FindingKind.NO_WATER))
+    elif given.water_l == 0.0 and drop >= resolution:
+        found.append(Finding(FindingKind.NOTHING_COLLECTED, drop_keys))
     elif given.duration_h is None:
         found.append(Finding(FindingKind.NO_DURATION))
     if energy is None and given.power_w is None:
@@ -453,7 +456,7 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
     integral = None if hours is None else drop * hours
     resolution = th.value("dehumidifier_drop_resolution_g_per_kg") / 1000.0
     flow = volume = None
-    if water_kg is not None and integral is not None and drop >= resolution:
+    if water_kg and integral is not None and drop >= resolution:
         flow = water_kg / (integral * 3600.0)
         volume = flow * inlet.specific_volume_m3_per_kg * 3600.0
     coil = total = sensible = latent = cop = None
@@ -654,14 +657,21 @@ def _split_unit(text: object, table: dict[str, float]) -> tuple[str, str | None]
 
 
 def _amount(
-    text: object, field: str, table: dict[str, float], bare: float, top: float, allowed: str
+    text: object,
+    field: str,
+    table: dict[str, float],
+    bare: float,
+    top: float,
+    allowed: str,
+    zero: bool = False,
 ) -> tuple[float, str | None]:
     number, unit = _split_unit(text, table)
     try:
         value = units.parse_number(number, field) * (bare if unit is None else table[unit])
     except InputError:
         raise InputError(field, text, allowed) from None
-    if not 0.0 < value <= top:
+    low_ok = value >= 0.0 if zero else value > 0.0
+    if not low_ok or value > top:
         raise InputError(field, text, allowed)
     return value, unit
 
@@ -672,10 +682,10 @@ def read_water(text: object, field: str, system: units.UnitSystem = "si") -> tup
     table = {**_WATER, **_WATER_MASS}
     bare = 1.0 if system == "si" else US_PINT_L
     allowed = (
-        f"water above 0 and up to {WATER_MAX_L:g} L, as a volume (L, mL, pt, gal) or a mass "
+        f"water from 0 to {WATER_MAX_L:g} L, as a volume (L, mL, pt, gal) or a mass "
         f"(kg, g, lb, taken at 1 kg/L); a bare number is {'L' if system == 'si' else 'US pints'}"
     )
-    value, unit = _amount(text, field, table, bare, WATER_MAX_L, allowed)
+    value, unit = _amount(text, field, table, bare, WATER_MAX_L, allowed, zero=True)
     if unit in _WATER_MASS:
         return value / th.value("water_density_kg_per_l"), True
     return value, False

@@ -55,14 +55,13 @@ def _drop(d: Display, kg_per_kg: float) -> str:
     return f"{grains} ({g_per_kg})" if d.ip else f"{g_per_kg} ({grains})"
 
 
-def _amount(d: Display, litres: float) -> str:
-    """A quantity of water: '18.0 L (38.0 US pints)' or '38.0 US pints (18.0 L)'."""
+def _amount(d: Display, litres: float, note: str = "") -> str:
+    """A quantity of water: '18.0 L (38.0 US pints)' or '38.0 US pints (18.0 L)'; ``note``
+    goes inside the brackets."""
     pints = litres / eq.US_PINT_L
-    return (
-        f"{pints:.1f} US pints ({litres:.1f} L)"
-        if d.ip
-        else f"{litres:.1f} L ({pints:.1f} US pints)"
-    )
+    if d.ip:
+        return f"{pints:.1f} US pints ({litres:.1f} L{note})"
+    return f"{litres:.1f} L ({pints:.1f} US pints{note})"
 
 
 def _rate(d: Display, litres_per_day: float) -> str:
@@ -115,11 +114,11 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
     lines = [first]
     if g.water_l is not None:
         weighed = (
-            f", weighed and taken at {limit_value_text(th.get('water_density_kg_per_l'), d)}"
+            f"; weighed, at {limit_value_text(th.get('water_density_kg_per_l'), d)}"
             if g.water_weighed
             else ""
         )
-        text = f"Water collected: {_amount(d, g.water_l)}{weighed}"
+        text = f"Water collected: {_amount(d, g.water_l, weighed)}"
         if r.removal_l_per_day is not None and g.duration_h is not None:
             basis = _duration_basis(g.duration_source)
             text += f" in {g.duration_h:.1f} h{basis}: {_rate(d, r.removal_l_per_day)}"
@@ -282,6 +281,12 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
         return (
             "No water collected was recorded: the removal rate, energy factor, airflow and "
             "cooling capacity need it (the tank emptied and measured, over a known time)."
+        )
+    if kind is FindingKind.NOTHING_COLLECTED:
+        return (
+            "No water was collected, though the air leaves the unit drier: the water is "
+            "going elsewhere (a drain hose, an overflow) or the tank was emptied in between. "
+            "Find where it goes before reading a removal rate from the tank."
         )
     if kind is FindingKind.NO_DURATION:
         return (
