@@ -109,17 +109,18 @@ def gather(args: argparse.Namespace) -> Any:
     from survey.errors import InputError
 
     system = args.units
+    names = ("--inlet-temp", "--inlet-rh", "--outlet-temp", "--outlet-rh")
     sets = (args.inlet_temp, args.inlet_rh, args.outlet_temp, args.outlet_rh)
-    count = len(args.inlet_temp)
-    for option, given in zip(
-        ("--inlet-temp", "--inlet-rh", "--outlet-temp", "--outlet-rh"), sets, strict=True
-    ):
+    counts = [len(given) for given in sets]
+    count = max(set(counts), key=lambda n: (counts.count(n), n == counts[0]))
+    for option, given in zip(names, sets, strict=True):
         if len(given) != count:
             raise InputError(
                 option,
                 given[-1],
-                f"given {len(given)} time(s) but --inlet-temp {count}: give --inlet-temp, "
-                "--inlet-rh, --outlet-temp and --outlet-rh once each per set of readings",
+                f"given {len(given)} time(s) but the other air readings {count}: give "
+                "--inlet-temp, --inlet-rh, --outlet-temp and --outlet-rh once each per set "
+                "of readings",
             )
     at: list[float | None] = [None] * count
     if args.reading_at:
@@ -130,7 +131,7 @@ def gather(args: argparse.Namespace) -> Any:
                 f"give one time per set of readings ({count}) or none",
             )
         at = [
-            _one("--reading-at", t, lambda t: eq.read_hours(t, "--reading-at"))
+            _one("--reading-at", t, lambda t: eq.read_hours(t, "--reading-at", zero=True))
             for t in args.reading_at
         ]
 

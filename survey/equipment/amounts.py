@@ -94,10 +94,12 @@ def read_energy_kwh(text: object, field: str) -> float:
     return _amount(text, field, _ENERGY, 1.0, ENERGY_MAX_KWH, allowed)[0]
 
 
-def read_hours(text: object, field: str) -> float:
-    """A run time, hours: ``3``, ``3 h``, ``180 min``."""
-    allowed = f"hours above 0 and up to {RUN_HOURS_MAX_H:g}: 3, 3h or 180min"
-    return _amount(text, field, _HOURS, 1.0, RUN_HOURS_MAX_H, allowed)[0]
+def read_hours(text: object, field: str, zero: bool = False) -> float:
+    """A run time, hours: ``3``, ``3 h``, ``180 min`` (``zero``: 0 allowed, for the time of
+    a reading into the run)."""
+    low = "from 0" if zero else "above 0"
+    allowed = f"hours {low} and up to {RUN_HOURS_MAX_H:g}: 3, 3h or 180min"
+    return _amount(text, field, _HOURS, 1.0, RUN_HOURS_MAX_H, allowed, zero)[0]
 
 
 def read_capacity(text: object, field: str, system: units.UnitSystem = "si") -> float:
