@@ -362,3 +362,84 @@ def unit_lines(r: DehumidifierResult, d: Display) -> list[str]:
         *finding_lines(r, d),
         *([caution] if caution else []),
     ]
+
+
+# --- the report's table ----------------------------------------------------------------------
+
+REPORT_HEADING = "Dehumidifier performance"
+REPORT_HEADER = (
+    "Unit",
+    "Removal",
+    "Energy factor",
+    "COP",
+    "Rated",
+    "Expected at this air",
+    "Found",
+)
+NOT_CHECKED = "not checked: a reading is missing"
+#: Each finding in a few words, for a table cell.
+FINDING_SHORT = {
+    FindingKind.NOT_RUNNING: "not running",
+    FindingKind.COIL_FROST: "coil frosts: too cold",
+    FindingKind.TOO_COLD: "cold for a refrigerant unit",
+    FindingKind.OUTLET_WETTER: "outlet wetter than inlet",
+    FindingKind.NO_DROP: "no measurable drop",
+    FindingKind.OUTLET_NOT_WARMER: "outlet not warmer",
+    FindingKind.NO_WATER: "no water recorded",
+    FindingKind.NOTHING_COLLECTED: "no water collected",
+    FindingKind.NO_DURATION: "no hours for the water",
+    FindingKind.NO_POWER: "no power recorded",
+    FindingKind.NO_RATING_CONDITION: "rating condition unknown",
+    FindingKind.BELOW_EXPECTED: "below what the air allows",
+    FindingKind.ABOVE_EXPECTED: "above what the air allows: check records",
+}
+
+
+def rate_text(litres_per_day: float | None, d: Display) -> str:
+    """A removal rate in both units, or '–'."""
+    return "–" if litres_per_day is None else _rate(d, litres_per_day)
+
+
+def energy_factor_text(l_per_kwh: float | None) -> str:
+    return "–" if l_per_kwh is None else f"{l_per_kwh:.2f} L/kWh"
+
+
+def cop_text(cop: float | None) -> str:
+    return "–" if cop is None else f"{cop:.1f}"
+
+
+def rated_text(r: DehumidifierResult, d: Display) -> str:
+    """'50.0 L/day, 2.10 L/kWh at 80 °F, 60 % RH' (what the label says)."""
+    c = r.comparison
+    if c is None:
+        return "not recorded"
+    parts = []
+    if c.rated_capacity_l_per_day is not None:
+        parts.append(_rate(d, c.rated_capacity_l_per_day))
+    if c.rated_energy_factor_l_per_kwh is not None:
+        parts.append(f"{c.rated_energy_factor_l_per_kwh:.2f} L/kWh")
+    if c.condition is None:
+        return ", ".join(parts) + ", condition not recorded"
+    point = c.condition
+    temp = (
+        d.nominal_temperature(point.dry_bulb_c)
+        if point.key in _US_RATINGS
+        else d.temperature(point.dry_bulb_c)
+    )
+    return ", ".join(parts) + f" at {temp}, {_pct(point.rh_pct)} RH"
+
+
+def expected_text(r: DehumidifierResult, d: Display) -> str:
+    """The rating scaled to this air, and the share of it reached: '24.0 L/day (75 %)'."""
+    c = r.comparison
+    if c is None or c.expected_removal_l_per_day is None:
+        return "–"
+    text = _rate(d, c.expected_removal_l_per_day)
+    if c.removal_of_expected is not None:
+        text += f", {_pct(100 * c.removal_of_expected)} reached"
+    return text
+
+
+def found_text(r: DehumidifierResult) -> str:
+    """The findings in a few words each, or 'nothing to note'."""
+    return "; ".join(FINDING_SHORT[f.kind] for f in r.findings) or "nothing to note"
