@@ -221,11 +221,15 @@ def rating_caution(r: DehumidifierResult, d: Display) -> str:
         f"{rating_condition_text(c.condition, d)}: air at {_hr(d, air.humidity_ratio_kg_per_kg)} "
         f"with a dew point of {d.temperature(air.dew_point_c)}. The air going in here holds "
         f"{_hr(d, r.inlet.humidity_ratio_kg_per_kg)} (dew point "
-        f"{d.temperature(r.inlet.dew_point_c)}), so the unit can remove only about "
+        f"{d.temperature(r.inlet.dew_point_c)}), so the unit can remove about "
         f"{_pct(100 * c.site_scale)} of its rating, by our rough scaling {basis}; "
-        f"in cooler, drier air a shortfall against the label is expected and not a fault by "
-        f"itself. The maker's performance table, where there is one, is better than this "
-        f"scaling."
+        + (
+            "in cooler, drier air a shortfall against the label is expected and not a fault "
+            "by itself."
+            if c.site_scale < 1.0
+            else "air wetter than the test's lets a unit remove more than its label says."
+        )
+        + " The maker's performance table, where there is one, is better than this scaling."
     )
 
 
