@@ -77,6 +77,8 @@ def test_json_keys_and_values_match_the_core(run):
     assert data["cop"] == pytest.approx(2.473, rel=1e-3)
     assert data["water_weighed"] is True
     assert data["rated"] is None and data["findings"] == []
+    # Electricity near water, and the deferral to local codes and professionals.
+    assert "RCD / GFCI" in data["cautions"][0] and "licensed professionals" in data["cautions"][-1]
 
 
 def test_json_rated_comparison(run):

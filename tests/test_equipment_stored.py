@@ -169,6 +169,21 @@ def test_every_finding_has_words(kind):
         assert we.finding_text(kind, r, d).endswith(".")
 
 
+def test_a_desiccant_unit_says_why_it_has_no_cop():
+    """A desiccant unit: no coil cooling or COP, and a sentence says so."""
+    r = eq.check(
+        eq.DehumidifierInput(
+            readings=(eq.AirPair(24.0, 70.0, 33.0, 30.0),),
+            kind="desiccant",
+            water_l=1.2,
+            duration_h=3.0,
+            power_w=250.0,
+        )
+    )
+    assert r.cop is None and r.cooling_capacity_w is None and r.coil is None
+    assert any("no refrigeration cycle" in line for line in we.measured_lines(r, SI))
+
+
 def test_a_label_with_control_characters_is_shown_safely():
     """A label is user text: control characters are made visible."""
     assert "\x1b" not in we.unit_name("D1\x1b[2J")

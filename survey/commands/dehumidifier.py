@@ -286,6 +286,7 @@ def encode(result: Any, d: Any) -> dict[str, Any]:
             for t in th.cited(r.threshold_keys)
         ],
         "cooling_basis": we.COOLING_BASIS,
+        "cautions": we.safety_lines(d),
     }
 
 
@@ -303,6 +304,7 @@ def render(result: Any, d: Any) -> None:
         ("Against its rating", we.comparison_lines(r, d)),
         ("Found", we.finding_lines(r, d)),
         ("Note", [text] if (text := we.rating_caution(r, d)) else []),
+        ("Safety", we.safety_lines(d)),
     )
     for title, lines in sections:
         if lines:

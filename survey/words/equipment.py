@@ -9,9 +9,11 @@ from __future__ import annotations
 
 from survey import equipment as eq
 from survey import thresholds as th
+from survey.advise import Caution
 from survey.equipment import DehumidifierResult, FindingKind, RatingPoint, StoredUnit
 from survey.safe_text import visible
 from survey.words.basis import _pct
+from survey.words.cautions import CLOSING_TEXT, caution_text
 from survey.words.display import Display
 from survey.words.limits import limit_value_text
 
@@ -146,6 +148,11 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
         if r.cop is not None and r.mean_power_w is not None:
             text += f"; a COP of {r.cop:.1f} on the {r.mean_power_w:.0f} W it draws"
         lines.append(text + ".")
+    if g.kind == "desiccant":
+        lines.append(
+            "A desiccant unit has no refrigeration cycle: no coil cooling or COP is worked "
+            "out for it; its energy factor is the figure to compare."
+        )
     return lines
 
 
@@ -355,6 +362,11 @@ def missing_text(unit: StoredUnit) -> str:
     }
     wanted = " and ".join(needs[m] for m in unit.missing)
     return f"{unit_name(unit.label)} cannot be checked without {wanted}."
+
+
+def safety_lines(d: Display) -> list[str]:
+    """The cautions of a dehumidifier at work on a wet site, and the closing deferral."""
+    return [caution_text(Caution("electrics_near_water"), d), CLOSING_TEXT]
 
 
 def unit_lines(r: DehumidifierResult, d: Display) -> list[str]:
