@@ -291,9 +291,9 @@ class CheckDialog(PromptDialog):
             if not text:
                 changes[field] = None
                 continue
+            if old is not None and text == _air_text(old, self.system):
+                continue  # as offered: the stored reading, its time and instrument, stays
             temp, rh = read_air(text, name, self.system)
-            if old is not None and (old.dry_bulb_c, old.rh_pct) == (temp, rh):
-                continue
             reading = model.AirReading(dry_bulb_c=temp, rh_pct=rh)
             visit = self.room_screen.visit
             changes[field], _ = walk.stamped(
