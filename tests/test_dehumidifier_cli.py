@@ -144,6 +144,22 @@ def test_ip_input_equals_si_input(run):
     assert ip["rated"]["removal_of_expected"] == pytest.approx(si["rated"]["removal_of_expected"])
 
 
+def test_altitude_and_pressure(run):
+    """--altitude 1500 gives the standard atmosphere there (psychrolib, ASHRAE ch. 1 eqn 3);
+    --pressure 850hPa is 85 000 Pa; the humidity ratios follow the pressure."""
+    import psychrolib
+
+    psychrolib.SetUnitSystem(psychrolib.SI)
+    _, out, _ = run(*EXAMPLE, "--altitude", "1500", "--json")
+    data = json.loads(out)
+    pressure = psychrolib.GetStandardAtmPressure(1500.0)
+    assert data["pressure_pa"] == pytest.approx(pressure)
+    w_in = psychrolib.GetHumRatioFromRelHum(24.0, 0.70, pressure)
+    assert data["inlet"]["humidity_ratio_g_per_kg"] == pytest.approx(1000 * w_in, rel=1e-9)
+    _, out, _ = run(*EXAMPLE, "--pressure", "850hPa", "--json")
+    assert json.loads(out)["pressure_pa"] == pytest.approx(85_000.0)
+
+
 def test_water_in_pints_and_gallons(run):
     """2.5 US pints = 1.18294 L; 0.25 gal = 0.946353 L (exact definitions)."""
     for text, litres in (("2.5pt", 2.5 * 0.473176473), ("0.25 gal", 0.25 * 3.785411784)):

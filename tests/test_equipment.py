@@ -248,6 +248,9 @@ def test_site_scaling_by_hand():
     = 2.2901; desiccant: s = 0.013096 / 0.0078449 = 1.6694."""
     common = {"rated_capacity_l_per_day": 20.0, "rating_condition": "18.3c_60"}
     refrigerant = eq.check(_given(**common)).comparison
+    w_rating = psychrolib.GetHumRatioFromRelHum(18.3, 0.60, P)  # the rating air, psychrolib
+    assert refrigerant.rating_air.humidity_ratio_kg_per_kg == pytest.approx(w_rating, rel=1e-9)
+    assert w_rating == pytest.approx(0.0078449, rel=1e-4)
     assert refrigerant.site_scale == pytest.approx(2.2901, rel=1e-4)
     assert refrigerant.expected_removal_l_per_day == pytest.approx(45.80, rel=1e-3)
     assert refrigerant.removal_of_rated == pytest.approx(9.6 / 20.0)
