@@ -155,7 +155,7 @@ def dialog(
         screen.app.push_screen(check_dialog, saved)
 
     note = (
-        "A dehumidifier's performance check (air in and out, hours, power, rating) follows."
+        "For a dehumidifier, its performance check (air in and out, hours, power, rating) follows."
         if screen is not None
         else ""
     )
