@@ -169,8 +169,8 @@ class DehumidifierResult:
     """The check of one unit: states, rates, flows, the rating comparison and findings."""
 
     given: DehumidifierInput
-    inlet: MoistAir  #: the (time-mean) air entering
-    outlet: MoistAir  #: the (time-mean) air leaving
+    inlet: MoistAir  #: the air entering (of several readings: mean dry bulb and W)
+    outlet: MoistAir  #: the air leaving (likewise)
     states: tuple[tuple[MoistAir, MoistAir], ...]  #: each reading's inlet and outlet
     humidity_ratio_drop_kg_per_kg: float  #: time mean of W_in − W_out
     drop_integral_kg_per_kg_h: float | None  #: ∫ΔW dt over the run, (kg/kg)·h
