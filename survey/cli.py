@@ -23,6 +23,7 @@ from survey.errors import InputError, SurveyFileError
 #: Subcommand modules, in the order their commands appear in ``survey --help``.
 COMMAND_MODULES = (
     "survey.commands.check",
+    "survey.commands.dehumidifier",
     "survey.commands.files",
     "survey.commands.report",
     "survey.commands.app",

@@ -283,7 +283,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         row = table.cursor_row
         table.clear()
         for n, e in enumerate(record.equipment if record else ()):
-            table.add_row(*equipment.row(e), key=f"e{n}")
+            table.add_row(*equipment.row(e, self, n), key=f"e{n}")
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self.query_one(".screen-title", Static).update(self.title_line())

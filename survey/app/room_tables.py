@@ -156,7 +156,7 @@ class RoomTables:
             self._changed()
 
         title = "Add equipment" if index is None else "Edit the equipment"
-        self.app.push_screen(*equipment.dialog(title, current, done))
+        self.app.push_screen(*equipment.dialog(title, current, done, self, index))
 
     def action_add_equipment(self) -> None:
         self._edit_equipment(None)

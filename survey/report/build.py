@@ -19,6 +19,7 @@ from survey.advise import Caution
 from survey.assess import CondensationState, DryStandardState, FactorState, MouldState
 from survey.errors import InputError
 from survey.report import drying as report_drying
+from survey.report import equipment as equipment_report
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.report.rooms import Context, photo_blocks, room_section
 from survey.report.season import season_section
@@ -511,6 +512,7 @@ def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
                 worst[name] = max(worst[name], getattr(f.accuracy, name))
         for key, value in va.accuracy_entered.items():
             entered[key] = entered.get(key, True) and value
+    keys.update(equipment_report.threshold_keys(ctx, shown))
     if shown:
         doc.add(
             Para(

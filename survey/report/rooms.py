@@ -16,6 +16,7 @@ from urllib.parse import quote
 from survey import evaluate, model, words
 from survey.advise import RoomAdvice
 from survey.assess import CondensationState, FactorState, MouldState, RoomFinding
+from survey.report import equipment as equipment_report
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.words import report as rw
 
@@ -341,6 +342,7 @@ def room_section(
     if room_visit.materials:
         doc.add(Heading(sub, rw.HEADINGS["materials"]), *_materials(f, room_visit, room_id, visit))
     doc.add(Heading(sub, rw.HEADINGS["seen"]), *_seen(ctx, room, room_visit))
+    doc.add(*equipment_report.blocks(ctx, va.visit_index, room_id, sub))
     if room_visit.photos:
         doc.add(
             Heading(sub, rw.HEADINGS["photos"]), *photo_blocks(ctx, f.name, list(room_visit.photos))

@@ -5,6 +5,7 @@ from __future__ import annotations
 from collections.abc import Iterable
 
 from survey.thresholds.limits_drying import DRYING_LIMITS
+from survey.thresholds.limits_equipment import EQUIPMENT_LIMITS
 from survey.thresholds.limits_room import ROOM_AND_SITE_LIMITS
 from survey.thresholds.limits_season import SEASON_LIMITS
 from survey.thresholds.record import Threshold
@@ -327,6 +328,7 @@ _THRESHOLDS: tuple[Threshold, ...] = (
     *ROOM_AND_SITE_LIMITS,
     *SEASON_LIMITS,
     *DRYING_LIMITS,
+    *EQUIPMENT_LIMITS,
 )
 
 _BY_KEY: dict[str, Threshold] = {t.key: t for t in _THRESHOLDS}

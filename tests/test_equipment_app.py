@@ -1,0 +1,134 @@
+"""The app's dehumidifier check, driven by keys on the basement example: the equipment
+dialog leads to the performance check, its results show as they are typed, and the saved
+record holds the readings and is judged in the equipment table."""
+
+from __future__ import annotations
+
+import shutil
+from pathlib import Path
+
+import pytest
+from textual.widgets import DataTable, Input, Static
+
+from survey import store
+from survey.app import make_app
+from survey.app.equipment import CheckDialog, read_air, read_power_or_energy
+from survey.errors import InputError
+
+ROOT = Path(__file__).resolve().parents[1]
+BASEMENT = ROOT / "example_sites" / "basement-burst-pipe-drying.json"
+SIZE = (120, 40)
+
+
+async def _settle(pilot, app) -> None:
+    await pilot.pause()
+    await app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+def _type(app, text: str) -> None:
+    """Replace the focused input's text."""
+    field = app.focused
+    assert isinstance(field, Input)
+    field.value = text
+
+
+@pytest.mark.slow
+async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
+    """Add a unit (kind as offered, 'D2', 20 L/day, 1.2 kg), then its check: inlet 24 °C /
+    70 %, outlet 33 / 30, 3 h, 250 W, EF 1.8 at 18.3c_60. The preview says 9.6 L/day (the
+    worked case of test_equipment), the file holds every reading, and the table row shows
+    the results."""
+    path = tmp_path / "basement.json"
+    shutil.copyfile(BASEMENT, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await _settle(pilot, app)
+        app.open_room("family")
+        await _settle(pilot, app)
+        app.screen.query_one("#equipment").focus()
+        await pilot.press("a")
+        await _settle(pilot, app)
+        for text in (None, "D2", None, "20", "1.2kg"):
+            if text is not None:
+                _type(app, text)
+            await pilot.press("enter")
+        await _settle(pilot, app)
+        dialog = app.screen
+        assert isinstance(dialog, CheckDialog)
+        for text in ("24, 70", "33 30", "3", "250W", "1.8", "18.3c_60"):
+            _type(app, text)
+            await pilot.pause()
+            if text != "18.3c_60":
+                await pilot.press("enter")
+        await pilot.pause()
+        preview = str(dialog.query_one("#check-preview", Static).render())
+        assert "9.6 L/day (20.3 US pints/day)" in preview and "COP 2.5" in preview
+        await pilot.press("enter")
+        await _settle(pilot, app)
+        assert not isinstance(app.screen, CheckDialog)
+        table = app.screen.query_one("#equipment", DataTable)
+        last = table.get_row_at(table.row_count - 1)
+        assert "9.6 L/day" in str(last[-1]) and "EF 1.60 L/kWh" in str(last[-1])
+    saved = store.load_survey(path).visits[-1].room_visit("family").equipment[-1]
+    assert (saved.label, saved.capacity_l_per_day, saved.water_removed_l) == ("D2", 20.0, 1.2)
+    assert (saved.inlet.dry_bulb_c, saved.inlet.rh_pct) == (24.0, 70.0)
+    assert (saved.outlet.dry_bulb_c, saved.outlet.rh_pct) == (33.0, 30.0)
+    assert saved.outlet.taken_at is not None and saved.outlet.instrument == "th3"
+    assert (saved.run_hours, saved.power_w, saved.energy_kwh) == (3.0, 250.0, None)
+    assert (saved.rated_energy_factor_l_per_kwh, saved.rating_condition) == (1.8, "18.3c_60")
+
+
+@pytest.mark.slow
+async def test_a_bad_reading_is_not_saved_and_escape_keeps_the_record(tmp_path):
+    """A bad rating condition is refused with a message naming the field; Escape closes the
+    check and the stored unit keeps its readings."""
+    path = tmp_path / "basement.json"
+    shutil.copyfile(BASEMENT, path)
+    before = store.load_survey(path).visits[-1].room_visit("family").equipment[0]
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await _settle(pilot, app)
+        app.open_room("family")
+        await _settle(pilot, app)
+        app.screen.query_one("#equipment").focus()
+        await pilot.press("enter")
+        await _settle(pilot, app)
+        for _ in range(5):
+            await pilot.press("enter")
+        await _settle(pilot, app)
+        dialog = app.screen
+        assert isinstance(dialog, CheckDialog)
+        # The stored unit's readings are offered; the inlet is blank (the room's air).
+        values = [i.value for i in dialog.query(Input)]
+        assert values == ["", "27.5, 24", "23.5", "540W", "2.1", "26.7c_60"]
+        preview = str(dialog.query_one("#check-preview", Static).render())
+        assert "11.2 L/day" in preview and "It removes 66 %" in preview
+        for _ in range(5):
+            await pilot.press("enter")
+        _type(app, "80F")
+        await pilot.press("enter")
+        await pilot.pause()
+        message = str(dialog.query_one("#prompt-message", Static).render())
+        assert "Rating condition" in message and "80f" in message.lower()
+        await pilot.press("escape")
+        await _settle(pilot, app)
+    after = store.load_survey(path).visits[-1].room_visit("family").equipment[0]
+    assert after == before
+
+
+def test_air_and_power_texts():
+    """'24, 70', '75F 70%' and '24 °C 70 %' read as a temperature and an RH; W/kW are a
+    power, kWh/Wh an energy."""
+    assert read_air("24, 70", "Air in", "si") == (24.0, 70.0)
+    assert read_air("24 °C 70 %", "Air in", "si") == (24.0, 70.0)
+    temp, rh = read_air("75.2 70", "Air in", "ip")
+    assert temp == pytest.approx(24.0) and rh == 70.0
+    with pytest.raises(InputError, match="Air in"):
+        read_air("24", "Air in", "si")
+    with pytest.raises(InputError):
+        read_air("24, 120", "Air in", "si")
+    assert read_power_or_energy("540W", "P") == (540.0, None)
+    assert read_power_or_energy("0.54 kW", "P") == (540.0, None)
+    assert read_power_or_energy("12.9kWh", "P") == (None, 12.9)
+    assert read_power_or_energy("750 Wh", "P") == (None, pytest.approx(0.75))
