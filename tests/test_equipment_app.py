@@ -101,7 +101,7 @@ async def test_a_bad_reading_is_not_saved_and_escape_keeps_the_record(tmp_path):
         assert isinstance(dialog, CheckDialog)
         # The stored unit's readings are offered; the inlet is blank (the room's air).
         values = [i.value for i in dialog.query(Input)]
-        assert values == ["", "27.5, 24", "23.5", "540W", "2.1", "26.7c_60"]
+        assert values == ["", "27.5, 24", "23.5", "750W", "2.8", "26.7c_60"]
         preview = str(dialog.query_one("#check-preview", Static).render())
         assert "11.2 L/day" in preview and "It removes 66 %" in preview
         for _ in range(5):

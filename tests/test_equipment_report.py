@@ -52,10 +52,10 @@ def test_each_visit_shows_the_unit_beside_its_rating(basement, visit):
 
 
 def test_day_2_cells_as_shown(basement):
-    """Day 2: 18 L in 24 h is 18.0 L/day; EF 18 / 12.96 = 1.39 L/kWh (by hand)."""
+    """Day 2: 18 L in 24 h is 18.0 L/day; EF 18 / 18.0 = 1.00 L/kWh (by hand, 750 W × 24 h)."""
     (row,) = _tables(_doc(basement), 2)[0].rows
     assert row[1].text == "18.0 L/day (38.0 US pints/day)"
-    assert row[2].text == "1.39 L/kWh"
+    assert row[2].text == "1.00 L/kWh"
     assert "26.7 °C, 60 % RH" in row[4].text
     ip_row = _tables(_doc(basement, "ip"), 2)[0].rows[0]
     assert ip_row[1].text == "38.0 US pints/day (18.0 L/day)"

@@ -42,16 +42,16 @@ def test_day_1_has_no_water_or_power(basement):
 
 
 def test_day_2_against_the_readings_by_hand(basement):
-    """Day 2: 18 L over run_hours 24 h at 540 W: 18 L/day, 540 × 24 / 1000 = 12.96 kWh, EF
-    18 / 12.96 = 1.389 L/kWh; inlet = the room air 20.5 °C / 55 %, outlet 27.5 °C / 28 %,
+    """Day 2: 18 L over run_hours 24 h at 750 W: 18 L/day, 750 × 24 / 1000 = 18.0 kWh, EF
+    18 / 18.0 = 1.000 L/kWh; inlet = the room air 20.5 °C / 55 %, outlet 27.5 °C / 28 %,
     at the standard atmosphere of the site's 62 m (psychrolib, ASHRAE ch. 1 eqn 3)."""
     r = _unit(basement, 1).result
     pressure = psychrolib.GetStandardAtmPressure(62.0)
     assert r.given.pressure_pa == pytest.approx(pressure)
     assert r.given.duration_source == "run_hours" and r.given.duration_h == 24.0
     assert r.removal_l_per_day == pytest.approx(18.0)
-    assert r.energy_kwh == pytest.approx(12.96)
-    assert r.energy_factor_l_per_kwh == pytest.approx(18 / 12.96)
+    assert r.energy_kwh == pytest.approx(18.0)
+    assert r.energy_factor_l_per_kwh == pytest.approx(18 / 18.0)
     w_in = psychrolib.GetHumRatioFromRelHum(20.5, 0.55, pressure)
     w_out = psychrolib.GetHumRatioFromRelHum(27.5, 0.28, pressure)
     assert r.humidity_ratio_drop_kg_per_kg == pytest.approx(w_in - w_out, rel=1e-9)
@@ -66,7 +66,7 @@ def test_day_3_uses_its_run_hours(basement):
     """Day 3: 11 L over 23.5 h: 11 × 24 / 23.5 = 11.23 L/day."""
     r = _unit(basement, 2).result
     assert r.removal_l_per_day == pytest.approx(11 * 24 / 23.5)
-    assert r.energy_kwh == pytest.approx(0.54 * 23.5)
+    assert r.energy_kwh == pytest.approx(0.75 * 23.5)
 
 
 def _day3(survey: model.Survey, **changes) -> model.Survey:
@@ -142,7 +142,7 @@ def test_every_sentence_is_said_in_both_unit_systems(basement, d):
     r = _unit(basement, 1).result
     lines = we.unit_lines(r, d)
     text = " ".join(lines)
-    assert "energy factor of 1.39 L/kWh" in text
+    assert "energy factor of 1.00 L/kWh" in text
     assert "COP of" in text and "AHAM DH-1" in text
     if d.ip:
         assert "°F" in text and "gr/lb" in text and "US pints/day (18.0 L/day)" in text
