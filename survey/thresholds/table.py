@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from collections.abc import Iterable
 
+from survey.thresholds.limits_mould import MOULD_INDEX_LIMITS
 from survey.thresholds.limits_room import ROOM_AND_SITE_LIMITS
 from survey.thresholds.record import Threshold
 from survey.thresholds.sources import _BRE, _ISO13788_CLASS, _WOOD
@@ -323,6 +324,7 @@ _THRESHOLDS: tuple[Threshold, ...] = (
         "common practice",
     ),
     *ROOM_AND_SITE_LIMITS,
+    *MOULD_INDEX_LIMITS,
 )
 
 _BY_KEY: dict[str, Threshold] = {t.key: t for t in _THRESHOLDS}
