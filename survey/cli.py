@@ -25,6 +25,7 @@ COMMAND_MODULES = (
     "survey.commands.check",
     "survey.commands.files",
     "survey.commands.report",
+    "survey.commands.mould_index",
     "survey.commands.app",
 )
 
