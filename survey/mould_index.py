@@ -50,10 +50,11 @@ from __future__ import annotations
 import datetime as dt
 import math
 from array import array
-from dataclasses import dataclass
+from bisect import bisect_left, bisect_right
+from dataclasses import dataclass, field
 from enum import Enum
-from itertools import accumulate
-from operator import mul
+from itertools import accumulate, compress, count
+from operator import and_, mul, ne, sub
 from typing import NamedTuple
 
 from survey import thresholds as th
@@ -225,7 +226,8 @@ class SurfaceSeries:
 
     ``hours`` since ``times[0]``; ``basis`` "surface_logger" (a logger on the surface) or
     "air_and_factor" (worked out from the room air, the outdoor air and the temperature factor);
-    ``capped``: samples whose worked-out surface RH passed 100 % (water forming), read as 100."""
+    ``capped``: samples whose worked-out surface RH passed 100 % (water forming), read as 100;
+    ``steps``: the hours from each sample to the next, worked out once here."""
 
     times: list[dt.datetime]
     hours: list[float]
@@ -233,6 +235,14 @@ class SurfaceSeries:
     rhs_pct: list[float]
     basis: str = "surface_logger"
     capped: int = 0
+    steps: list[float] = field(default_factory=list)
+    longest_step: float = -1.0  #: worked out here
+
+    def __post_init__(self) -> None:
+        if not self.steps and len(self.hours) > 1:
+            object.__setattr__(self, "steps", list(map(sub, self.hours[1:], self.hours)))
+        if self.longest_step < 0.0:
+            object.__setattr__(self, "longest_step", max(self.steps, default=0.0))
 
     @classmethod
     def from_samples(
@@ -256,11 +266,32 @@ class IndexPoint(NamedTuple):
 
 @dataclass(frozen=True, slots=True)
 class IndexSeries:
-    """The index at every sample (``hours`` since ``start``), for a chart."""
+    """The index over time as breakpoints (``hours`` since ``start``, rising), straight lines
+    between them: every sample where conditions were near or inside the favourable range, and
+    the corners of each dry stretch (whose decline is straight lines), so a year of dry
+    10-minute samples takes a few points and is still exact at every time."""
 
     start: dt.datetime
     hours: array[float]
     index: array[float]
+
+    def at(self, hours: float) -> float:
+        """The index ``hours`` after ``start`` (held before the first and after the last)."""
+        h, m = self.hours, self.index
+        j = bisect_right(h, hours)
+        if j == 0:
+            return m[0]
+        if j >= len(h):
+            return m[-1]
+        h0, h1 = h[j - 1], h[j]
+        return m[j] if h1 == h0 else m[j - 1] + (m[j] - m[j - 1]) * (hours - h0) / (h1 - h0)
+
+    def highest(self, from_h: float, to_h: float) -> float:
+        """The highest index between two times (hours after ``start``)."""
+        first = bisect_left(self.hours, from_h)
+        last = bisect_right(self.hours, to_h)
+        inside = self.index[first:last]
+        return max(self.at(from_h), self.at(to_h), *inside)
 
     def points(self, max_points: int = 400) -> tuple[IndexPoint, ...]:
         """At most ``max_points`` points, each the highest index of its stretch of samples
@@ -349,120 +380,242 @@ class MouldIndexResult:
 # --- integration -------------------------------------------------------------------------
 
 
-def integrate(
-    series: SurfaceSeries, cls: SensitivityClass
-) -> tuple[list[float], list[int], float, float, float, int, float, bool]:
-    """The index at every sample of ``series`` for ``cls``.
+class Integration(NamedTuple):
+    """What :func:`integrate` works out: the index as breakpoints and the tallies."""
 
-    Returns (index per sample, favourable-run boundaries as sample indexes [start, end, …],
-    favourable hours, hours at index ≥ 1, hours at index ≥ 3, gaps, gap hours, whether the
-    last step grew). The inner loop allocates nothing per step but the index list's append.
+    points_h: list[float]  #: hours since the first sample of each breakpoint
+    points_m: list[float]  #: the index there (straight lines between breakpoints)
+    runs: list[int]  #: favourable runs as sample indexes [start, end, start, end, …]
+    favourable_h: float
+    above_1_h: float
+    above_3_h: float
+    gaps: int
+    gap_h: float
+    grew: bool  #: the last step was favourable and the index below M_max
+    top: float
+    top_sample: int
+    first_1_sample: int | None
+    first_3_sample: int | None
+
+
+def _decline(
+    m: float, clock: float | None, span: float, rates: tuple[float, float, float, float]
+) -> tuple[list[tuple[float, float]], float | None]:
+    """A dry stretch of ``span`` hours from index ``m`` with the dry clock at ``clock`` (None:
+    past the pause); ``rates`` are (fast rate, slow rate, fast hours, pause-to hours). Returns
+    the (hours into the stretch, index) breakpoints where the slope changes, ending at
+    ``span``, never below 0, and the clock after it."""
+    fast, slow, fast_h, pause_h = rates
+    points: list[tuple[float, float]] = []
+    done = 0.0
+    phases = []
+    if clock is not None:
+        if clock < fast_h:
+            phases.append((fast_h - clock, fast))
+        if clock < pause_h:
+            phases.append((pause_h - max(clock, fast_h), 0.0))
+    phases.append((math.inf, slow))
+    for length, rate in phases:
+        take = min(length, span - done)
+        if take <= 0.0:
+            break
+        if rate and m - rate * take <= 0.0:
+            points.append((done + m / rate, 0.0))
+            m = 0.0
+            break
+        m -= rate * take
+        done += take
+        points.append((done, m))
+    if not points or points[-1][0] < span:
+        points.append((span, m))
+    after = None if clock is None or clock + span > pause_h else clock + span
+    return points, after
+
+
+def _time_at_or_above(hours: list[float], index: list[float], level: float) -> float:
+    """Hours the index spends at or above ``level`` along its breakpoints (straight lines
+    between them). Whole segments are summed at C speed; only crossings are worked out."""
+    at = list(map(level.__le__, index))
+    spans = map(sub, hours[1:], hours)
+    total: float = sum(compress(spans, map(and_, at[1:], at)))
+    for j in compress(count(), map(ne, at[1:], at)):
+        m0, m1 = index[j], index[j + 1]
+        above = (m0 - level) / (m0 - m1) if m0 >= level else (m1 - level) / (m1 - m0)
+        total += (hours[j + 1] - hours[j]) * above
+    return total
+
+
+def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
+    """The index over ``series`` for ``cls``.
+
+    Steps whose RH is below the class's lowest critical RH are dry whatever the temperature:
+    they are found at C speed (a byte mask searched with ``bytearray.find``) and each dry
+    stretch is worked out in closed form (its decline is straight lines in time). Only the
+    other steps are stepped through one by one. The index is kept as breakpoints: every
+    sample of those steps, and the corners of each dry stretch.
     """
-    hours, temps, rhs = series.hours, series.temps_c, series.rhs_pct
+    hours, temps, rhs, steps = series.hours, series.temps_c, series.rhs_pct, series.steps
     n = len(hours)
-    out = [0.0] * n
     if n < 2:
-        return out, [], 0.0, 0.0, 0.0, 0, 0.0, False
+        return Integration([0.0], [0.0], [], 0.0, 0.0, 0.0, 0, 0.0, False, 0.0, 0, None, None)
     exp = math.exp
     k1a, k1b, a, b, c = cls.k1_below_1, cls.k1_from_1, cls.a, cls.b, cls.c
     rh_min = cls.rh_min_pct
     c3, c2, c1, c0 = RH_CRIT_POLY
     curve_to = th.value("mould_index_rh_crit_curve_to_c")
-    t_low, t_high = (
-        th.value("mould_index_growth_min_temp_c"),
-        th.value("mould_index_growth_max_temp_c"),
-    )
+    t_low = th.value("mould_index_growth_min_temp_c")
+    t_high = th.value("mould_index_growth_max_temp_c")
     gap = th.value("mould_index_gap_h")
-    fast_h, pause_h = (
-        th.value("mould_index_decline_fast_h"),
-        th.value("mould_index_decline_pause_to_h"),
-    )
+    fast_h = th.value("mould_index_decline_fast_h")
+    pause_h = th.value("mould_index_decline_pause_to_h")
     fast = th.value("mould_index_decline_fast_per_h") * cls.decline_factor
     slow = th.value("mould_index_decline_slow_per_h") * cls.decline_factor
+    rates = (fast, slow, fast_h, pause_h)
     # dM/dt per hour = exp(-66.02) / (7 · 24) · T^0.68 · RH^13.9 · k1 · k2
     scale = exp(-GROWTH_CONSTANT) / (DAYS_PER_WEEK * 24.0)
     p_t, p_rh = -GROWTH_LN_T, -GROWTH_LN_RH
+    slope = K2_SLOPE
+    last = n - 1
+    # 0: dry whatever the temperature; 1: to be stepped through; 2: a gap (index held)
+    mask = bytearray(map(rh_min.__le__, rhs[:last]))
+
+    gaps, gap_h = 0, 0.0
+    if series.longest_step > gap:
+        for i, step in enumerate(steps):
+            if step > gap:
+                mask[i] = 2
+                gaps += 1
+                gap_h += step
+    others = ((b"\x01", b"\x02"), (b"\x00", b"\x02"), (b"\x00", b"\x01"))
+    points_h = [0.0]
+    points_m = [0.0]
+    add_h, add_m = points_h.append, points_m.append
     m = 0.0
-    clock = pause_h + 1.0  # hours into a dry period; the log starts dry and clean
+    m_max = 0.0
+    clock: float | None = None  # hours into a dry period while under the pause; None after
     runs: list[int] = []
     was_fav = False
-    fav_h = above_1 = above_3 = gap_h = 0.0
-    gaps = 0
-    grew = False
-    for i in range(n - 1):
-        step = hours[i + 1] - hours[i]
-        if step > gap:
-            gaps += 1
-            gap_h += step
+    gap_above_1 = gap_above_3 = 0.0
+    # T^0.68 and RH^13.9 once per distinct reading (a logger writes few distinct values)
+    t_powers: dict[float, float] = {}
+    rh_powers: dict[float, float] = {}
+    t_get, rh_get = t_powers.get, rh_powers.get
+    pos = 0
+    while pos < last:
+        kind = mask[pos]
+        one, two = (mask.find(k, pos) for k in others[kind])
+        end = min(one if one >= 0 else last, two if two >= 0 else last)
+        if kind != 1:
             if was_fav:
-                runs.append(i)
+                runs.append(pos)
                 was_fav = False
-            out[i + 1] = m
+                clock = 0.0
+            if kind == 2 or not m:
+                if kind == 2:
+                    gap_above_1 += (hours[end] - hours[pos]) * (m >= 1.0)
+                    gap_above_3 += (hours[end] - hours[pos]) * (m >= 3.0)
+                add_h(hours[end])
+                add_m(m)
+            else:
+                corners, clock = _decline(m, clock, hours[end] - hours[pos], rates)
+                base_h = hours[pos]
+                for h, value in corners:
+                    add_h(base_h + h)
+                    add_m(value)
+                m = corners[-1][1]
+            pos = end
             continue
-        t = temps[i]
-        rh = rhs[i]
-        fav = rh >= rh_min and t_low < t < t_high
-        if fav and t <= curve_to:
-            crit = ((c3 * t + c2) * t + c1) * t + c0
-            fav = rh >= crit
-            crit = crit if crit > rh_min else rh_min
-        else:
-            crit = rh_min
-        if fav:
-            fav_h += step
-            clock = 0.0
+        first_point = len(points_m)
+        for step, t, rh in zip(steps[pos:end], temps[pos:end], rhs[pos:end], strict=True):
+            if t_low < t < t_high:
+                if t <= curve_to:
+                    crit = ((c3 * t + c2) * t + c1) * t + c0
+                    fav = rh >= crit
+                    if crit < rh_min:
+                        crit = rh_min
+                else:
+                    crit = rh_min
+                    fav = True
+            else:
+                fav = False
+            if not fav:
+                if was_fav:
+                    runs.append(pos + len(points_m) - first_point)
+                    was_fav = False
+                    clock = 0.0
+                if m:
+                    if clock is None:
+                        m -= slow * step
+                    else:
+                        start = clock
+                        clock += step
+                        if clock <= fast_h:
+                            m -= fast * step
+                        else:
+                            m -= fast * (fast_h - min(start, fast_h))
+                            if clock > pause_h:
+                                m -= slow * (clock - max(start, pause_h))
+                                clock = None
+                    if m <= 0.0:
+                        m = 0.0
+                add_m(m)
+                continue
             if not was_fav:
-                runs.append(i)
+                runs.append(pos + len(points_m) - first_point)
                 was_fav = True
             x = (crit - rh) / (crit - 100.0)
-            m_max = a + b * x - c * x * x
-            grew = m < m_max
-            if grew:
-                base = scale * t**p_t * rh**p_rh * step
-                k2 = 1.0 - exp(K2_SLOPE * (m - m_max))
-                if m < 1.0:
-                    rise = base * k1a * k2
+            m_max = a + (b - c * x) * x
+            if m < m_max:
+                rate = t_get(t)
+                if rate is None:
+                    rate = t_powers[t] = scale * t**p_t
+                power = rh_get(rh)
+                if power is None:
+                    power = rh_powers[rh] = rh**p_rh
+                rate *= power * step
+                k2 = 1.0 - exp(slope * (m - m_max))
+                if m >= 1.0:
+                    m += rate * k1b * k2
+                else:
+                    rise = rate * k1a * k2
                     if m + rise > 1.0 and m_max > 1.0:
                         # k1 changes where the index crosses 1: the rest of the step at k1b
                         left = 1.0 - (1.0 - m) / rise
-                        m = 1.0 + left * base * k1b * (1.0 - exp(K2_SLOPE * (1.0 - m_max)))
+                        m = 1.0 + left * rate * k1b * (1.0 - exp(slope * (1.0 - m_max)))
                     else:
                         m += rise
-                else:
-                    m += base * k1b * k2
                 if m > m_max:
                     m = m_max
-        else:
-            if was_fav:
-                runs.append(i)
-                was_fav = False
-            grew = False
-            if m > 0.0:
-                start = clock
-                end = clock + step
-                if start >= pause_h:
-                    m -= slow * step
-                elif end <= fast_h:
-                    m -= fast * step
-                else:
-                    m -= fast * (min(end, fast_h) - min(start, fast_h)) + slow * max(
-                        end - pause_h, 0.0
-                    )
-                if m < 0.0:
-                    m = 0.0
-            clock += step
-        if m >= 1.0:
-            above_1 += step
-            if m >= 3.0:
-                above_3 += step
-        out[i + 1] = m
+            add_m(m)
+        points_h.extend(hours[pos + 1 : end + 1])
+        pos = end
     if was_fav:
-        runs.append(n - 1)
-    return out, runs, fav_h, above_1, above_3, gaps, gap_h, grew
+        runs.append(last)
+    pm, ph = points_m, points_h
+    top = max(pm)
+    top_sample = bisect_left(hours, ph[pm.index(top)])
+    firsts = [next(compress(count(), map(v.__le__, pm)), None) for v in (1.0, 3.0)]
+    first_1, first_3 = (None if f is None else bisect_left(hours, ph[f]) for f in firsts)
+    fav_h = sum(hours[runs[k + 1]] - hours[runs[k]] for k in range(0, len(runs), 2))
+    return Integration(
+        points_h,
+        points_m,
+        runs,
+        fav_h,
+        _time_at_or_above(ph, pm, 1.0) - gap_above_1,
+        _time_at_or_above(ph, pm, 3.0) - gap_above_3,
+        gaps,
+        gap_h,
+        was_fav and m < m_max,
+        top,
+        top_sample,
+        first_1,
+        first_3,
+    )
 
 
 def _periods(
-    series: SurfaceSeries, runs: list[int], index: list[float]
+    series: SurfaceSeries, runs: list[int], index: IndexSeries
 ) -> tuple[FavourablePeriod, ...]:
     hours, times = series.hours, series.times
     join = th.value("mould_index_period_join_h")
@@ -476,23 +629,21 @@ def _periods(
         else:
             merged.append([first, last, length])
     return tuple(
-        FavourablePeriod(times[int(f)], times[int(la)], h, max(index[int(f) : int(la) + 1]))
+        FavourablePeriod(
+            times[int(f)], times[int(la)], h, index.highest(hours[int(f)], hours[int(la)])
+        )
         for f, la, h in merged
     )
-
-
-def _first_at(series: SurfaceSeries, index: list[float], level: float) -> dt.datetime | None:
-    position = next((i for i, m in enumerate(index) if m >= level), None)
-    return None if position is None else series.times[position]
 
 
 def analyse(series: SurfaceSeries, choice: ClassChoice) -> MouldIndexResult:
     """The index and its summary over ``series`` for the class of ``choice``, and ASHRAE
     160's 30-day criterion on the same series. ``series`` must hold at least one sample."""
     cls = CLASSES[choice.key]
-    index, runs, fav_h, above_1, above_3, gaps, gap_h, grew = integrate(series, cls)
-    top = max(index)
-    top_at = series.times[index.index(top)]
+    done = integrate(series, cls)
+    top = done.top
+    times = series.times
+    index = IndexSeries(times[0], array("d", done.points_h), array("d", done.points_m))
     state = (
         IndexState.VISIBLE
         if top >= th.value("mould_index_visible")
@@ -521,22 +672,22 @@ def analyse(series: SurfaceSeries, choice: ClassChoice) -> MouldIndexResult:
         basis=series.basis,
         start=series.times[0],
         end=series.times[-1],
-        samples=len(index),
-        logged_days=(span_h - gap_h) / 24.0,
-        gaps=gaps,
-        gap_h=gap_h,
-        index=IndexSeries(series.times[0], array("d", series.hours), array("d", index)),
+        samples=len(times),
+        logged_days=(span_h - done.gap_h) / 24.0,
+        gaps=done.gaps,
+        gap_h=done.gap_h,
+        index=index,
         index_max=top,
-        index_max_at=top_at,
-        index_final=index[-1],
+        index_max_at=times[done.top_sample],
+        index_final=done.points_m[-1],
         state=state,
-        days_above_1=above_1 / 24.0,
-        days_above_3=above_3 / 24.0,
-        first_above_1_at=_first_at(series, index, th.value("mould_index_microscopic")),
-        first_above_3_at=_first_at(series, index, th.value("mould_index_visible")),
-        favourable_h=fav_h,
-        periods=_periods(series, runs, index),
-        rising_at_end=grew,
+        days_above_1=done.above_1_h / 24.0,
+        days_above_3=done.above_3_h / 24.0,
+        first_above_1_at=None if done.first_1_sample is None else times[done.first_1_sample],
+        first_above_3_at=None if done.first_3_sample is None else times[done.first_3_sample],
+        favourable_h=done.favourable_h,
+        periods=_periods(series, done.runs, index),
+        rising_at_end=done.grew,
         capped=series.capped,
         ashrae160=ashrae160(series),
         threshold_keys=keys,
@@ -565,8 +716,9 @@ def ashrae160(series: SurfaceSeries) -> Ashrae160Result:
         "mould_growth_min_surface_temp_c",
         "mould_growth_max_surface_temp_c",
     )
-    steps = [hours[i + 1] - hours[i] for i in range(n - 1)]
-    steps = [s if s <= gap else 0.0 for s in steps]
+    steps = series.steps
+    if steps and max(steps) > gap:
+        steps = [s if s <= gap else 0.0 for s in steps]
     cover = [0.0, *accumulate(steps)]
     rh_sum = [0.0, *accumulate(map(mul, rhs, steps))]
     t_sum = [0.0, *accumulate(map(mul, temps, steps))]

@@ -19,6 +19,7 @@ from survey.advise import Caution
 from survey.assess import CondensationState, DryStandardState, FactorState, MouldState
 from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
+from survey.report.mould import mould_section
 from survey.report.rooms import Context, drying_section, photo_blocks, room_section
 from survey.words import report as rw
 
@@ -91,6 +92,7 @@ def build(
         _visit(doc, ctx, index)
     if len(survey.visits) > 1:
         drying_section(doc, ctx)
+    mould_section(doc, ctx)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
     doc.add(

@@ -163,7 +163,7 @@ MOULD_INDEX_LIMITS: tuple[Threshold, ...] = (
         "ashrae160_running_mean_days",
         "Running mean over",
         30.0,
-        "day",
+        "days",
         _ASHRAE160,
         "The surface RH and temperature are averaged over the 30 days before each moment.",
         "R",
