@@ -40,9 +40,8 @@ moments add no growth (the index already at M_max) restarts the fast decline eac
 drier one stays in the 6-24 h pause, and can end lower. With the same favourable and dry times a
 drier series never gives a higher index (the tests hold both facts).
 
-ASHRAE Standard 160-2009's criterion is worked out on the same series: the 30-day running mean
-surface RH must stay below 80 % while the 30-day running mean surface temperature is between 5
-and 40 °C (time-weighted means over the covered time of the trailing 30 days).
+ASHRAE Standard 160-2009's 30-day criterion is worked out on the same series
+(:mod:`survey.mould_ashrae160`); the class of a surface is chosen in :mod:`survey.mould_series`.
 """
 
 from __future__ import annotations
@@ -53,12 +52,12 @@ from array import array
 from bisect import bisect_left, bisect_right
 from dataclasses import dataclass, field
 from enum import Enum
-from itertools import accumulate, compress, count
-from operator import and_, mul, ne, sub
+from itertools import compress, count
+from operator import and_, ne, sub
 from typing import NamedTuple
 
 from survey import thresholds as th
-from survey.thresholds.policy import POROUS_WORDS, is_timber
+from survey.mould_ashrae160 import Ashrae160Result, ashrae160
 
 _HOUR = dt.timedelta(hours=1)
 
@@ -121,32 +120,6 @@ K2_SLOPE = 2.3
 #: RH_crit polynomial coefficients for T ≤ 20 °C, % (two implementations, R secondary).
 RH_CRIT_POLY = (-0.00267, 0.160, -3.13, 100.0)
 
-#: Words for a class, tried in this order on the material, then on the label. Timber
-#: (:func:`survey.thresholds.is_timber`) is very sensitive: sawn, untreated pine sapwood
-#: is what the model was fitted to, the safe side for any wood. Mineral fibres are medium
-#: resistant (Ojanen 2010, from memory), checked before the porous words that also list them;
-#: the porous, papered and painted finishes are sensitive; masonry, cement and plastics
-#: medium resistant; glass and metal resistant (Ojanen 2010 examples, from memory; an R
-#: package's documentation lists pine sapwood / glued boards, paper-faced foam, spruce /
-#: concrete, glass wool / polished foam, read).
-MINERAL_FIBRE_WORDS = (
-    "mineral wool", "glass wool", "rock wool", "stone wool", "fibreglass", "fiberglass",
-)  # fmt: skip
-SENSITIVE_WORDS = (
-    *POROUS_WORDS, "plaster", "paint", "emulsion", "distemper", "wallpaper", "cork",
-    "silicone", "sealant", "textile",
-)  # fmt: skip
-MEDIUM_RESISTANT_WORDS = (
-    "concrete", "cement", "render", "brick", "block", "masonry", "mortar", "stone", "lime",
-    "screed", "pvc", "plastic", "polystyrene", "polyurethane", "vinyl",
-)  # fmt: skip
-RESISTANT_WORDS = (
-    "glass", "metal", "steel", "aluminium", "aluminum", "copper", "zinc", "ceramic",
-    "porcelain", "glazed tile",
-)  # fmt: skip
-#: Elements that decide a class when no word does.
-ELEMENT_CLASS = {"glazing": "resistant", "pipe": "resistant"}
-
 
 @dataclass(frozen=True, slots=True)
 class ClassChoice:
@@ -156,44 +129,6 @@ class ClassChoice:
     key: str
     basis: str
     word: str = ""
-
-
-def _class_from_text(text: str) -> tuple[str, str] | None:
-    lowered = text.lower()
-    if is_timber(lowered):
-        word = next(w for w in th.TIMBER_WORDS if w in lowered)
-        return "very_sensitive", word
-    for key, words in (
-        ("medium_resistant", MINERAL_FIBRE_WORDS),
-        ("sensitive", SENSITIVE_WORDS),
-        ("medium_resistant", MEDIUM_RESISTANT_WORDS),
-        ("resistant", RESISTANT_WORDS),
-    ):
-        found = next((w for w in words if w in lowered), None)
-        if found is not None:
-            return key, found
-    return None
-
-
-def choose_class(
-    material: str = "", label: str = "", element: str = "", stated: str | None = None
-) -> ClassChoice:
-    """The sensitivity class for a surface: ``stated`` if given (a key of :data:`CLASSES`),
-    else by the words of its material, then of its label, then by its element, else
-    :data:`DEFAULT_CLASS`."""
-    if stated is not None:
-        if stated not in CLASSES:
-            from survey.errors import InputError
-
-            raise InputError("sensitivity class", stated, f"one of {', '.join(CLASS_KEYS)}")
-        return ClassChoice(stated, "stated")
-    for basis, text in (("material", material), ("label", label)):
-        found = _class_from_text(text)
-        if found is not None:
-            return ClassChoice(found[0], basis, found[1])
-    if element in ELEMENT_CLASS:
-        return ClassChoice(ELEMENT_CLASS[element], "element", element)
-    return ClassChoice(DEFAULT_CLASS, "default")
 
 
 def rh_crit_pct(temp_c: float, cls: SensitivityClass) -> float:
@@ -317,13 +252,6 @@ class IndexState(Enum):
     VISIBLE = "visible"  #: 3 or more
 
 
-class Ashrae160State(Enum):
-    MET = "met"
-    EXCEEDED = "exceeded"
-    TOO_SHORT = "too_short"  #: under 30 days logged
-    OUT_OF_RANGE = "out_of_range"  #: the 30-day mean temperature never between 5 and 40 °C
-
-
 @dataclass(frozen=True, slots=True)
 class FavourablePeriod:
     """Favourable times (joined across dry breaks shorter than a day): when, how many hours
@@ -333,18 +261,6 @@ class FavourablePeriod:
     end: dt.datetime
     favourable_h: float
     index_max: float
-
-
-@dataclass(frozen=True, slots=True)
-class Ashrae160Result:
-    state: Ashrae160State
-    days_exceeded: float
-    first_exceeded_at: dt.datetime | None
-    highest_mean_rh_pct: float | None  #: highest 30-day mean where the criterion applies
-    highest_at: dt.datetime | None
-    whole_mean_rh_pct: float  #: time-weighted mean over the whole series
-    whole_mean_temp_c: float
-    threshold_keys: tuple[str, ...]
 
 
 @dataclass(frozen=True, slots=True)
@@ -691,87 +607,4 @@ def analyse(series: SurfaceSeries, choice: ClassChoice) -> MouldIndexResult:
         capped=series.capped,
         ashrae160=ashrae160(series),
         threshold_keys=keys,
-    )
-
-
-# --- ASHRAE 160-2009 ---------------------------------------------------------------------
-
-
-def ashrae160(series: SurfaceSeries) -> Ashrae160Result:
-    """ASHRAE 160-2009's criterion: at each sample from 30 days in, the time-weighted means of
-    surface RH and temperature over the covered time of the 30 days before it (each sample's
-    values held until the next; gaps left out). It is exceeded where the mean RH is 80 % or
-    more while the mean temperature is from 5 to 40 °C; the time until the next sample counts
-    towards the days exceeded."""
-    hours, temps, rhs = series.hours, series.temps_c, series.rhs_pct
-    n = len(hours)
-    gap = th.value("mould_index_gap_h")
-    window = th.value("ashrae160_running_mean_days") * 24.0
-    limit = th.value("ashrae160_surface_rh_limit_pct")
-    t_low = th.value("mould_growth_min_surface_temp_c")
-    t_high = th.value("mould_growth_max_surface_temp_c")
-    keys = (
-        "ashrae160_running_mean_days",
-        "ashrae160_surface_rh_limit_pct",
-        "mould_growth_min_surface_temp_c",
-        "mould_growth_max_surface_temp_c",
-    )
-    steps = series.steps
-    if steps and max(steps) > gap:
-        steps = [s if s <= gap else 0.0 for s in steps]
-    cover = [0.0, *accumulate(steps)]
-    rh_sum = [0.0, *accumulate(map(mul, rhs, steps))]
-    t_sum = [0.0, *accumulate(map(mul, temps, steps))]
-    covered = cover[-1]
-    whole_rh = rh_sum[-1] / covered if covered else (rhs[0] if rhs else 0.0)
-    whole_t = t_sum[-1] / covered if covered else (temps[0] if temps else 0.0)
-    if n < 2 or hours[-1] - hours[0] < window:
-        return Ashrae160Result(
-            Ashrae160State.TOO_SHORT, 0.0, None, None, None, whole_rh, whole_t, keys
-        )
-    p = 0
-    exceeded_h = 0.0
-    first: int | None = None
-    best: float | None = None
-    best_at = 0
-    applies = False
-    start_hour = hours[0]
-    for j in range(n):
-        end = hours[j]
-        if end - start_hour < window:
-            continue
-        begin = end - window
-        while hours[p + 1] <= begin:
-            p += 1
-        part = begin - hours[p]
-        held = steps[p] if p < n - 1 else 0.0
-        into = part if held else 0.0  # covered time of interval p before the window begins
-        c_before = cover[p] + into
-        span = cover[j] - c_before
-        if span <= 0.0:
-            continue
-        mean_rh = (rh_sum[j] - rh_sum[p] - rhs[p] * into) / span
-        mean_t = (t_sum[j] - t_sum[p] - temps[p] * into) / span
-        if not t_low <= mean_t <= t_high:
-            continue
-        applies = True
-        if best is None or mean_rh > best:
-            best, best_at = mean_rh, j
-        if mean_rh >= limit:
-            if first is None:
-                first = j
-            exceeded_h += steps[j] if j < n - 1 else 0.0
-    if not applies:
-        state = Ashrae160State.OUT_OF_RANGE
-    else:
-        state = Ashrae160State.EXCEEDED if first is not None else Ashrae160State.MET
-    return Ashrae160Result(
-        state,
-        exceeded_h / 24.0,
-        None if first is None else series.times[first],
-        best,
-        None if best is None else series.times[best_at],
-        whole_rh,
-        whole_t,
-        keys,
     )

@@ -13,7 +13,7 @@ A surface's conditions come from one of two kinds of logger series:
   factor measured on the day holds at every hour: a steady state, with no lag from the wall's
   heat storage, no sun and no heating cycles on the surface itself.
 
-The class of the surface's material is chosen by :func:`survey.mould_index.choose_class` from
+The class of the surface's material is chosen by :func:`choose_class` from
 the surface reading's material, its label and its element. Errors name the quantity
 ("room", "surface", "series", "sensitivity class", "outdoor series"); a face re-labels them.
 """
@@ -26,10 +26,81 @@ from dataclasses import dataclass
 from survey import evaluate, model, psychro
 from survey import thresholds as th
 from survey.errors import InputError
-from survey.mould_index import MouldIndexResult, SurfaceSeries, analyse, choose_class
+from survey.mould_index import (
+    CLASS_KEYS,
+    CLASSES,
+    DEFAULT_CLASS,
+    ClassChoice,
+    MouldIndexResult,
+    SurfaceSeries,
+    analyse,
+)
 from survey.safe_text import count_cut
+from survey.thresholds.policy import POROUS_WORDS, is_timber
 
 _HOUR = dt.timedelta(hours=1)
+
+#: Words for a class, tried in this order on the material, then on the label. Timber
+#: (:func:`survey.thresholds.is_timber`) is very sensitive: sawn, untreated pine sapwood
+#: is what the model was fitted to, the safe side for any wood. Mineral fibres are medium
+#: resistant (Ojanen 2010, from memory), checked before the porous words that also list them;
+#: the porous, papered and painted finishes are sensitive; masonry, cement and plastics
+#: medium resistant; glass and metal resistant (Ojanen 2010 examples, from memory; an R
+#: package's documentation lists pine sapwood / glued boards, paper-faced foam, spruce /
+#: concrete, glass wool / polished foam, read).
+MINERAL_FIBRE_WORDS = (
+    "mineral wool", "glass wool", "rock wool", "stone wool", "fibreglass", "fiberglass",
+)  # fmt: skip
+SENSITIVE_WORDS = (
+    *POROUS_WORDS, "plaster", "paint", "emulsion", "distemper", "wallpaper", "cork",
+    "silicone", "sealant", "textile",
+)  # fmt: skip
+MEDIUM_RESISTANT_WORDS = (
+    "concrete", "cement", "render", "brick", "block", "masonry", "mortar", "stone", "lime",
+    "screed", "pvc", "plastic", "polystyrene", "polyurethane", "vinyl",
+)  # fmt: skip
+RESISTANT_WORDS = (
+    "glass", "metal", "steel", "aluminium", "aluminum", "copper", "zinc", "ceramic",
+    "porcelain", "glazed tile",
+)  # fmt: skip
+#: Elements that decide a class when no word does.
+ELEMENT_CLASS = {"glazing": "resistant", "pipe": "resistant"}
+
+
+def _class_from_text(text: str) -> tuple[str, str] | None:
+    lowered = text.lower()
+    if is_timber(lowered):
+        word = next(w for w in th.TIMBER_WORDS if w in lowered)
+        return "very_sensitive", word
+    for key, words in (
+        ("medium_resistant", MINERAL_FIBRE_WORDS),
+        ("sensitive", SENSITIVE_WORDS),
+        ("medium_resistant", MEDIUM_RESISTANT_WORDS),
+        ("resistant", RESISTANT_WORDS),
+    ):
+        found = next((w for w in words if w in lowered), None)
+        if found is not None:
+            return key, found
+    return None
+
+
+def choose_class(
+    material: str = "", label: str = "", element: str = "", stated: str | None = None
+) -> ClassChoice:
+    """The sensitivity class for a surface: ``stated`` if given (a key of :data:`CLASSES`),
+    else by the words of its material, then of its label, then by its element, else
+    :data:`DEFAULT_CLASS`."""
+    if stated is not None:
+        if stated not in CLASSES:
+            raise InputError("sensitivity class", stated, f"one of {', '.join(CLASS_KEYS)}")
+        return ClassChoice(stated, "stated")
+    for basis, text in (("material", material), ("label", label)):
+        found = _class_from_text(text)
+        if found is not None:
+            return ClassChoice(found[0], basis, found[1])
+    if element in ELEMENT_CLASS:
+        return ClassChoice(ELEMENT_CLASS[element], "element", element)
+    return ClassChoice(DEFAULT_CLASS, "default")
 
 
 @dataclass(frozen=True, slots=True)

@@ -8,7 +8,8 @@ from __future__ import annotations
 import datetime as dt
 
 from survey import thresholds as th
-from survey.mould_index import Ashrae160State, IndexState, MouldIndexResult
+from survey.mould_ashrae160 import Ashrae160State
+from survey.mould_index import IndexState, MouldIndexResult
 from survey.mould_series import LogIndex, LogNotJudged
 from survey.words.display import Display
 
