@@ -144,7 +144,7 @@ def rh_crit_pct(temp_c: float, cls: SensitivityClass) -> float:
 def growth_rate_per_day(temp_c: float, rh_pct: float, index: float, cls: SensitivityClass) -> float:
     """dM/dt (index units a day) under favourable conditions, at index ``index``."""
     rh_crit = rh_crit_pct(temp_c, cls)
-    x = (rh_crit - rh_pct) / (rh_crit - 100.0)
+    x = (rh_crit - rh_pct) / (rh_crit - 100.0) if rh_crit < 100.0 else 1.0
     m_max = cls.a + cls.b * x - cls.c * x * x
     k1 = cls.k1_below_1 if index < 1.0 else cls.k1_from_1
     k2 = max(1.0 - math.exp(K2_SLOPE * (index - m_max)), 0.0)
@@ -479,7 +479,8 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             if not was_fav:
                 runs.append(pos + len(points_m) - first_point)
                 was_fav = True
-            x = (crit - rh) / (crit - 100.0)
+            # RH at or past the critical value, as a share of the way to 100 % (1 at 100 %)
+            x = (crit - rh) / (crit - 100.0) if crit < 100.0 else 1.0
             m_max = a + (b - c * x) * x
             if m < m_max:
                 rate = t_get(t)
