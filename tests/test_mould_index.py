@@ -41,7 +41,7 @@ def series(temps, rhs, step_h=1.0):
 
 
 def constant(temp_c, rh_pct, days, step_h=1.0):
-    n = int(round(days * 24 / step_h)) + 1
+    n = round(days * 24 / step_h) + 1
     return series([temp_c] * n, [rh_pct] * n, step_h)
 
 
