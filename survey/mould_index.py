@@ -60,6 +60,7 @@ from survey import thresholds as th
 from survey.mould_ashrae160 import Ashrae160Result, ashrae160
 
 _HOUR = dt.timedelta(hours=1)
+_BELOW_100 = math.nextafter(100.0, 0.0)
 
 # --- sensitivity classes -----------------------------------------------------------------
 
@@ -412,10 +413,22 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
     runs: list[int] = []
     was_fav = False
     gap_above_1 = gap_above_3 = 0.0
-    # T^0.68 and RH^13.9 once per distinct reading (a logger writes few distinct values)
-    t_powers: dict[float, float] = {}
+
+    # Once per distinct reading (a logger writes few distinct values): by temperature the
+    # critical RH (infinite where the index cannot grow) and the growth factor scale·T^0.68;
+    # by RH, RH^13.9.
+    def by_temperature(t: float) -> tuple[float, float]:
+        if not t_low < t < t_high:
+            return math.inf, 0.0
+        crit = rh_min
+        if t <= curve_to:
+            # never quite 100 % (the polynomial is 100 at 0 °C), so x below stays finite
+            crit = min(max(((c3 * t + c2) * t + c1) * t + c0, rh_min), _BELOW_100)
+        return crit, scale * t**p_t
+
+    t_values: dict[float, tuple[float, float]] = {}
     rh_powers: dict[float, float] = {}
-    t_get, rh_get = t_powers.get, rh_powers.get
+    t_get, rh_get = t_values.get, rh_powers.get
     pos = 0
     while pos < last:
         kind = mask[pos]
@@ -443,18 +456,11 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             continue
         first_point = len(points_m)
         for step, t, rh in zip(steps[pos:end], temps[pos:end], rhs[pos:end], strict=True):
-            if t_low < t < t_high:
-                if t <= curve_to:
-                    crit = ((c3 * t + c2) * t + c1) * t + c0
-                    fav = rh >= crit
-                    if crit < rh_min:
-                        crit = rh_min
-                else:
-                    crit = rh_min
-                    fav = True
-            else:
-                fav = False
-            if not fav:
+            by_t = t_get(t)
+            if by_t is None:
+                by_t = t_values[t] = by_temperature(t)
+            crit, rate = by_t
+            if rh < crit:
                 if was_fav:
                     runs.append(pos + len(points_m) - first_point)
                     was_fav = False
@@ -480,12 +486,9 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
                 runs.append(pos + len(points_m) - first_point)
                 was_fav = True
             # RH at or past the critical value, as a share of the way to 100 % (1 at 100 %)
-            x = (crit - rh) / (crit - 100.0) if crit < 100.0 else 1.0
+            x = (crit - rh) / (crit - 100.0)
             m_max = a + (b - c * x) * x
             if m < m_max:
-                rate = t_get(t)
-                if rate is None:
-                    rate = t_powers[t] = scale * t**p_t
                 power = rh_get(rh)
                 if power is None:
                     power = rh_powers[rh] = rh**p_rh
@@ -511,16 +514,21 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
     pm, ph = points_m, points_h
     top = max(pm)
     top_sample = bisect_left(hours, ph[pm.index(top)])
-    firsts = [next(compress(count(), map(v.__le__, pm)), None) for v in (1.0, 3.0)]
+    # below a level the index never reached, nothing is to be found
+    firsts = [
+        next(compress(count(), map(v.__le__, pm)), None) if top >= v else None for v in (1.0, 3.0)
+    ]
     first_1, first_3 = (None if f is None else bisect_left(hours, ph[f]) for f in firsts)
     fav_h = sum(hours[runs[k + 1]] - hours[runs[k]] for k in range(0, len(runs), 2))
+    above_1 = _time_at_or_above(ph, pm, 1.0) - gap_above_1 if top >= 1.0 else 0.0
+    above_3 = _time_at_or_above(ph, pm, 3.0) - gap_above_3 if top >= 3.0 else 0.0
     return Integration(
         points_h,
         points_m,
         runs,
         fav_h,
-        _time_at_or_above(ph, pm, 1.0) - gap_above_1,
-        _time_at_or_above(ph, pm, 3.0) - gap_above_3,
+        above_1,
+        above_3,
         gaps,
         gap_h,
         was_fav and m < m_max,
