@@ -201,7 +201,7 @@ def test_text_reads_as_a_surveyors_summary(logged, capsys):
         "is not met",
         "Material class: sensitive",
         "The logger sat on the surface",
-        "rising to 100 % at 32 °F",
+        "rising to 100 % as the surface nears 32 °F",
         "not a laboratory test",
     ):
         assert said in out, said
@@ -280,3 +280,45 @@ def test_report_without_logger_series_has_no_index_section():
 
     survey = store.load_survey(DATA / "flat.json")
     assert "Mould growth over the logged period" not in render(build_report(survey))
+
+
+# --- the words ---------------------------------------------------------------------------
+
+
+def _judged(days, rh):
+    import datetime as dt
+
+    from survey import mould_index as mi
+
+    n = days * 24 + 1
+    times = [dt.datetime(2026, 1, 1) + dt.timedelta(hours=h) for h in range(n)]
+    s = mi.SurfaceSeries.from_samples(times, [20.0] * n, [rh] * n)
+    result = mi.analyse(s, mi.ClassChoice("very_sensitive", "stated"))
+    source = mould_series.SeriesSource(0, "corner.csv", "bed1", CORNER, "", "external_wall")
+    return mould_series.LogIndex(source, result)
+
+
+def test_words_for_visible_growth_carry_the_caution():
+    """60 days at 20 °C / 97 %: visible growth likely (index 3 after about 21 days, from the
+    published regression), with the mould caution and the 30-day criterion failed."""
+    from survey.words import SI
+    from survey.words import mould_index as mw
+
+    text = " ".join(mw.summary_lines(_judged(60, 97.0), SI))
+    assert "visible mould growth is likely on this surface" in text
+    assert mw.VISIBLE_CAUTION in text and "licensed professionals" in text
+    assert "Material class: very sensitive (untreated sawn timber), as stated." in text
+    assert "is not met: the running mean reached 97.0 %" in text
+
+
+def test_words_for_a_short_log_say_the_criterion_needs_a_month():
+    """Under 30 days ASHRAE 160's criterion cannot be formed; the mean is given for
+    comparison only."""
+    from survey.words import SI
+    from survey.words import mould_index as mw
+
+    text = " ".join(mw.summary_lines(_judged(10, 75.0), SI))
+    assert "needs 30 days of log; this one spans 10.0 days" in text
+    assert "Its mean surface RH was 75.0 % at 20.0 °C, below 80 %: for comparison only." in text
+    assert "below index 1, the model expects no growth" in text
+    assert mw.VISIBLE_CAUTION not in text

@@ -28,6 +28,11 @@ LIMITS = (
     "laboratory test of this surface: where mould is suspected, a sample or tape lift examined "
     "by a laboratory settles it."
 )
+VISIBLE_CAUTION = (
+    "Treat this spot as mouldy until it is looked at: check behind furniture and linings "
+    "there, and follow the mould cautions (protective equipment; larger areas cleaned by "
+    "licensed professionals, as local codes require)."
+)
 CLEAN_START = (
     "The index starts at 0 at the first sample: the model does not know of mould already on "
     "the surface, which would make the real state worse than shown."
@@ -105,7 +110,7 @@ def verdict(result: MouldIndexResult) -> str:
             f"({index_meaning(top)}); the model does not expect it to be visible yet."
         )
     else:
-        said = f"{lead}: the model expects no growth over the logged period."
+        said = f"{lead}: below index 1, the model expects no growth over the logged period."
     if result.rising_at_end:
         end = f" At the end of the log it was {result.index_final:.1f} and still rising."
     elif result.index_final < top - 0.05:
@@ -128,10 +133,10 @@ def days_text(result: MouldIndexResult) -> str:
 
 
 def _critical_range(result: MouldIndexResult, d: Display) -> str:
-    warm = th.value("mould_index_rh_crit_curve_to_c")
+    freezing = d.temperature(th.value("mould_index_growth_min_temp_c"), 0)
     return (
-        f"{result.sensitivity.rh_min_pct:g} % above about {d.temperature(warm, 0)}, rising "
-        f"to 100 % at {d.temperature(th.value('mould_index_growth_min_temp_c'), 0)}"
+        f"{result.sensitivity.rh_min_pct:g} % on a warm surface, rising to 100 % as the "
+        f"surface nears {freezing}"
     )
 
 
@@ -269,6 +274,7 @@ def summary_lines(judged: LogIndex | LogNotJudged, d: Display) -> list[str]:
     lines = [
         f"{when(result.start)} to {when(result.end)}, {result.samples} samples.",
         verdict(result),
+        VISIBLE_CAUTION if result.state is IndexState.VISIBLE else "",
         days_text(result),
         periods_text(result, d),
         ashrae_text(result, d),
