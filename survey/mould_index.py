@@ -417,16 +417,24 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
     # Once per distinct reading (a logger writes few distinct values): by temperature the
     # critical RH (infinite where the index cannot grow) and the growth factor scale·T^0.68;
     # by RH, RH^13.9.
-    def by_temperature(t: float) -> tuple[float, float]:
+    def by_temperature(t: float) -> tuple[float, float, float, float, float, float]:
+        """(RH_crit, q0, q1, q2, growth factor at k1 below 1, from 1): M_max = q0 + (q1 +
+        q2·RH)·RH, the class's a + b x − c x² with x = u + v·RH expanded once per temperature."""
         if not t_low < t < t_high:
-            return math.inf, 0.0
+            return math.inf, 0.0, 0.0, 0.0, 0.0, 0.0
         crit = rh_min
         if t <= curve_to:
-            # never quite 100 % (the polynomial is 100 at 0 °C), so x below stays finite
+            # never quite 100 % (the polynomial is 100 at 0 °C), so v below stays finite
             crit = min(max(((c3 * t + c2) * t + c1) * t + c0, rh_min), _BELOW_100)
-        return crit, scale * t**p_t
+        v = -1.0 / (crit - 100.0)
+        u = -crit * v
+        growth = scale * t**p_t
+        return (
+            crit, a + (b - c * u) * u, (b - 2.0 * c * u) * v, -c * v * v, growth * k1a,
+            growth * k1b,
+        )  # fmt: skip
 
-    t_values: dict[float, tuple[float, float]] = {}
+    t_values: dict[float, tuple[float, float, float, float, float, float]] = {}
     rh_powers: dict[float, float] = {}
     t_get, rh_get = t_values.get, rh_powers.get
     pos = 0
@@ -459,7 +467,7 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             by_t = t_get(t)
             if by_t is None:
                 by_t = t_values[t] = by_temperature(t)
-            crit, rate = by_t
+            crit, q0, q1, q2, rate_a, rate_b = by_t
             if rh < crit:
                 if was_fav:
                     runs.append(pos + len(points_m) - first_point)
@@ -485,23 +493,21 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             if not was_fav:
                 runs.append(pos + len(points_m) - first_point)
                 was_fav = True
-            # RH at or past the critical value, as a share of the way to 100 % (1 at 100 %)
-            x = (crit - rh) / (crit - 100.0)
-            m_max = a + (b - c * x) * x
+            m_max = q0 + (q1 + q2 * rh) * rh
             if m < m_max:
                 power = rh_get(rh)
                 if power is None:
                     power = rh_powers[rh] = rh**p_rh
-                rate *= power * step
                 k2 = 1.0 - exp(slope * (m - m_max))
+                power *= step
                 if m >= 1.0:
-                    m += rate * k1b * k2
+                    m += rate_b * power * k2
                 else:
-                    rise = rate * k1a * k2
+                    rise = rate_a * power * k2
                     if m + rise > 1.0 and m_max > 1.0:
                         # k1 changes where the index crosses 1: the rest of the step at k1b
                         left = 1.0 - (1.0 - m) / rise
-                        m = 1.0 + left * rate * k1b * (1.0 - exp(slope * (1.0 - m_max)))
+                        m = 1.0 + left * rate_b * power * (1.0 - exp(slope * (1.0 - m_max)))
                     else:
                         m += rise
                 if m > m_max:
