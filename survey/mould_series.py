@@ -128,7 +128,7 @@ class LogIndex:
 
 
 #: Why a room's series could not be judged (for :class:`LogNotJudged`).
-NOT_JUDGED_REASONS = ("no_factor", "no_outdoor", "outdoor_gap", "too_few")
+NOT_JUDGED_REASONS = ("no_factor", "no_outdoor", "outdoor_gap", "too_few", "times_mixed")
 
 
 @dataclass(frozen=True, slots=True)
@@ -296,6 +296,15 @@ def room_series(survey: model.Survey, room_id: str, series: str | None = None) -
     raise InputError("series", series, f"the room's logger series are: {listed}")
 
 
+def _in_time_order(log: model.LogSeries) -> list[model.LogSample] | None:
+    """The series' samples in time order (a hand-edited file may not keep it); None when its
+    times mix those with and without a UTC offset, which cannot be ordered."""
+    try:
+        return sorted(log.samples, key=lambda s: s.at)
+    except TypeError:
+        return None
+
+
 def _span_middle(samples: list[model.LogSample]) -> dt.datetime:
     return samples[0].at + (samples[-1].at - samples[0].at) / 2
 
@@ -308,16 +317,17 @@ def judge_log(
     with a measured temperature factor and an outdoor logger, else :class:`LogNotJudged`."""
     log = survey.logs[log_index]
     room_id = log.room or ""
+    samples = _in_time_order(log)
+    if samples is None:
+        return LogNotJudged(log_index, log.source, room_id, "times_mixed")
     label = log.surface if log.surface is not None else surface
     material, element = _material_and_element(survey, room_id, label) if label else ("", "other")
     choice = choose_class(material, label or "", element, stated)
-    if len(log.samples) < 2:
+    if len(samples) < 2:
         return LogNotJudged(log_index, log.source, room_id, "too_few")
     if log.surface is not None:
         series = SurfaceSeries.from_samples(
-            [s.at for s in log.samples],
-            [s.dry_bulb_c for s in log.samples],
-            [s.rh_pct for s in log.samples],
+            [s.at for s in samples], [s.dry_bulb_c for s in samples], [s.rh_pct for s in samples]
         )
         source = SeriesSource(log_index, log.source, room_id, log.surface, material, element)
         return LogIndex(source, analyse(series, choice))
@@ -329,14 +339,17 @@ def judge_log(
             "reading's location with a measured temperature factor); the room's surfaces: "
             + (count_cut([f"'{k}'" for k in surface_labels(survey, room_id)]) or "none"),
         )
-    found = measured_factor(survey, room_id, label, _span_middle(log.samples))
+    found = measured_factor(survey, room_id, label, _span_middle(samples))
     if found is None:
         return LogNotJudged(log_index, log.source, room_id, "no_factor")
     frsi, visit = found
     outdoor, outdoor_sources = _outdoor_samples(survey)
     if not outdoor:
         return LogNotJudged(log_index, log.source, room_id, "no_outdoor")
-    series, left_out = air_to_surface(log.samples, outdoor, frsi)
+    try:
+        series, left_out = air_to_surface(samples, outdoor, frsi)
+    except InputError:
+        return LogNotJudged(log_index, log.source, room_id, "times_mixed")
     if len(series.times) < 2:
         return LogNotJudged(log_index, log.source, room_id, "outdoor_gap")
     source = SeriesSource(
@@ -356,7 +369,7 @@ def judge_log(
 
 def _lowest_factor_surface(survey: model.Survey, log: model.LogSeries) -> str | None:
     room_id = log.room or ""
-    near = _span_middle(log.samples)
+    near = _span_middle(_in_time_order(log) or log.samples)
     found = [
         (factor[0], label)
         for label in surface_labels(survey, room_id)
@@ -408,7 +421,7 @@ def judge_survey(survey: model.Survey) -> list[LogIndex | LogNotJudged]:
     for i, log in enumerate(survey.logs):
         if log.room is None:
             continue
-        if log.surface is not None or len(log.samples) < 2:
+        if log.surface is not None or len(log.samples) < 2 or _in_time_order(log) is None:
             judged.append(judge_log(survey, i))
             continue
         label = _lowest_factor_surface(survey, log)

@@ -322,3 +322,30 @@ def test_words_for_a_short_log_say_the_criterion_needs_a_month():
     assert "Its mean surface RH was 75.0 % at 20.0 °C, below 80 %: for comparison only." in text
     assert "below index 1, the model expects no growth" in text
     assert mw.VISIBLE_CAUTION not in text
+
+
+def test_a_series_out_of_order_is_sorted_and_mixed_offsets_are_not_judged(logged):
+    """A hand-edited series out of time order gives the same result as in order; one whose
+    times mix UTC offsets and none is not judged, with the reason (the report still builds)."""
+    import datetime as dt
+
+    import msgspec
+
+    survey = store.load_survey(logged / "flat.json")
+    log = survey.logs[0]
+    shuffled = msgspec.structs.replace(log, samples=log.samples[::-1])
+    reordered = msgspec.structs.replace(survey, logs=[shuffled])
+    first = mould_series.judge_survey(survey)[0]
+    again = mould_series.judge_survey(reordered)[0]
+    assert again.result.index_max == first.result.index_max
+    utc = dt.UTC
+    mixed_samples = [
+        log.samples[0],
+        msgspec.structs.replace(log.samples[1], at=log.samples[1].at.replace(tzinfo=utc)),
+    ]
+    mixed = msgspec.structs.replace(
+        survey, logs=[msgspec.structs.replace(log, samples=mixed_samples)]
+    )
+    (judged,) = mould_series.judge_survey(mixed)
+    assert judged.reason == "times_mixed"
+    assert "mix some with a UTC offset" in render(build(mixed))

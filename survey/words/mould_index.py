@@ -63,6 +63,8 @@ NOT_JUDGED = {
     "needs an outdoor logger series, and none was imported",
     "outdoor_gap": "it measured the room's air, and the outdoor logger does not cover its period",
     "too_few": "it holds fewer than two samples",
+    "times_mixed": "its times (or the outdoor logger's) mix some with a UTC offset and some "
+    "without, so they cannot be put in order",
 }
 
 
