@@ -135,6 +135,26 @@ def test_resistant_classes_stay_under_their_ceiling_at_90_percent():
         assert 0.0 < result.index_max <= ceiling + 1e-12
 
 
+@pytest.mark.parametrize(
+    ("key", "temp_c", "rh_pct"), [("very_sensitive", 20, 97), ("sensitive", 8, 95)]
+)
+def test_each_step_is_the_plain_growth_equation(key, temp_c, rh_pct):
+    """The fast integration's steps equal dM/dt of the equations as written
+    (:func:`growth_rate_per_day`: k1 · k2 / (7 exp(−0.68 ln T − 13.9 ln RH + 66.02))) times
+    the step, below index 1 and above it, to 1e-9."""
+    result = run(constant(temp_c, rh_pct, 60), key)
+    cls = mi.CLASSES[key]
+    index = result.index
+    for i in (0, 100, len(index.hours) - 2):
+        before, after = index.index[i], index.index[i + 1]
+        if before < 1.0 < after:
+            continue  # the step that crosses 1 switches k1 inside it
+        step_h = index.hours[i + 1] - index.hours[i]
+        expected = mi.growth_rate_per_day(temp_c, rh_pct, before, cls) * step_h / 24.0
+        assert after - before == pytest.approx(expected, rel=1e-9)
+    assert result.index_max > 1.0
+
+
 def test_ten_minute_and_hourly_steps_agree():
     """The integration follows the logger's own step: 10-minute and 1-hour samples of the same
     constant conditions give the same time to index 1 within 0.1 %."""
