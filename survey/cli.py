@@ -26,6 +26,7 @@ COMMAND_MODULES = (
     "survey.commands.dehumidifier",
     "survey.commands.files",
     "survey.commands.report",
+    "survey.commands.mould_index",
     "survey.commands.app",
 )
 

@@ -155,9 +155,12 @@ def _is_time_only(name: str) -> bool:
     return bool(re.search(r"\btime\b|\bzeit\b|\bheure\b", name)) and "date" not in name
 
 
-def _temperature_rank(name: str) -> int | None:
+def _temperature_rank(name: str, surface: bool = False) -> int | None:
     """0 for a name that says temperature, 1 for one that only carries a temperature unit
-    ("Sensor 2 (°C)", "degF"), ``None`` for any other (a dew point, a surface …)."""
+    ("Sensor 2 (°C)", "degF"), ``None`` for any other (a dew point, a surface …). For a
+    logger on a surface (``surface``) a surface temperature comes first (−1)."""
+    if surface and "surface" in name and re.search(r"temp|°\s*[cf]\b|\bdeg\s?[cf]\b", name):
+        return -1
     if any(word in name for word in ("dew", "wet bulb", "wetbulb", "surface", "heat index")):
         return None
     if re.search(r"temp|celsius|fahrenheit|^t\b|^t\s*[\(\[]|^air\b", name):
@@ -197,7 +200,7 @@ class _Layout:
     names: list[str]
 
 
-def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
+def _find_layout(text: str, surface: bool = False) -> tuple[_Layout, list[list[str]]] | None:
     """The header's layout and every row, for the separator whose header comes first.
 
     Raises :class:`_CsvProblem` when no separator finds a header and some could not read
@@ -214,7 +217,7 @@ def _find_layout(text: str) -> tuple[_Layout, list[list[str]]] | None:
             names = [_norm(cell) for cell in row]
             if len(names) < 3:
                 continue
-            ranks = {i: _temperature_rank(n) for i, n in enumerate(names)}
+            ranks = {i: _temperature_rank(n, surface) for i, n in enumerate(names)}
             temp = sorted(
                 (i for i, rank in ranks.items() if rank is not None), key=lambda i: (ranks[i], i)
             )
@@ -304,13 +307,19 @@ class _Candidate:
 
 
 def read_logger_csv(
-    data: bytes, *, temp_unit: TempUnit | None = None, date_order: DateOrder | None = None
+    data: bytes,
+    *,
+    temp_unit: TempUnit | None = None,
+    date_order: DateOrder | None = None,
+    surface: bool = False,
 ) -> LoggerData:
     """Read a logger's CSV export (the file's bytes) into samples and skipped rows.
 
     ``temp_unit`` ("c" or "f") is needed when the header does not state the unit and
     overrides it when it does (the result's notes say so); ``date_order`` is needed when
-    the dates are ambiguous. Raises :class:`~survey.errors.InputError` (field
+    the dates are ambiguous; ``surface`` says the logger sat on a surface, so a column of
+    surface temperature is its temperature (and is preferred to any other). Raises
+    :class:`~survey.errors.InputError` (field
     :data:`FILE_FIELD`, :data:`UNIT_FIELD` or :data:`ORDER_FIELD`: the quantity, which a
     face re-labels with its own option name) when the file cannot be read as CSV, no usable
     header is found, the unit or date order is unknown, or no row at all can be used.
@@ -326,7 +335,7 @@ def read_logger_csv(
     text = text.replace("\r\n", "\n").replace("\r", "\n")
     text, long_lines = _set_aside_long_lines(text)
     try:
-        found = _find_layout(text)
+        found = _find_layout(text, surface)
     except _CsvProblem as exc:
         raise InputError(
             FILE_FIELD, f"(line {exc.line})", f"cannot be read as CSV: {exc.detail}"

@@ -98,9 +98,12 @@ def plan_import(
     source: str,
     instrument: str | None = None,
     imported_at: dt.datetime | None = None,
+    surface: str | None = None,
 ) -> LogImport:
     """The series that importing ``data`` (read from the file named ``source``) into
-    ``survey`` for ``room`` (a ``Room.id``; ``None`` for outdoors) would add.
+    ``survey`` for ``room`` (a ``Room.id``; ``None`` for outdoors) would add; ``surface``
+    is the location label of the surface the logger sat on (``None``: the air), and only
+    series of the same room and surface hold repeats of its samples.
 
     Raises :class:`InputError` ("logger file") when a series of the survey came from the
     very same file (same SHA-256); nothing is changed.
@@ -119,7 +122,9 @@ def plan_import(
     known: set[dt.datetime] = set()
     overlapping: list[str] = []
     for log in survey.logs:
-        if log.room != room or (instrument and log.instrument and log.instrument != instrument):
+        if log.room != room or log.surface != surface:
+            continue
+        if instrument and log.instrument and log.instrument != instrument:
             continue
         times = {sample.at for sample in log.samples}
         if any(sample.at in times for sample in data.samples):
@@ -141,6 +146,7 @@ def plan_import(
         room=room,
         source=source[:SOURCE_MAX_CHARS] or "logger.csv",
         samples=samples,
+        surface=surface,
         instrument=instrument,
         source_sha256=data.sha256,
         imported_at=imported_at or dt.datetime.now().replace(microsecond=0),

@@ -151,6 +151,12 @@ def register(subparsers: argparse._SubParsersAction) -> None:
         "--instrument", metavar="ID", help="id of the logger in the survey's instruments"
     )
     log.add_argument(
+        "--surface",
+        metavar="LABEL",
+        help="the logger's probe sat on this surface (a surface reading's location in the "
+        "room): its readings are the surface temperature and RH",
+    )
+    log.add_argument(
         "--temp-unit",
         choices=("c", "f"),
         default=None,
@@ -416,6 +422,7 @@ _IMPORT_OPTIONS = {
     "date order": "--date-order",
     "room": "--room",
     "instrument": "--instrument",
+    "surface": "--surface",
 }
 
 
@@ -472,6 +479,17 @@ def run_import_log(args: argparse.Namespace) -> int:
         raise relabelled from None
 
 
+def _import_surface(survey: Survey, room_id: str | None, label: str | None) -> str | None:
+    """The recorded surface label ``--surface`` names (None without it)."""
+    if label is None:
+        return None
+    if room_id is None:
+        raise InputError("surface", label, "a logger outdoors sat on no surface of a room")
+    from survey.mould_series import resolve_surface
+
+    return resolve_surface(survey, room_id, label)
+
+
 def _import_log(args: argparse.Namespace) -> int:
     from survey import logimport, logseries, store
 
@@ -482,13 +500,20 @@ def _import_log(args: argparse.Namespace) -> int:
         survey = session.survey if session is not None else store.load_survey(args.file)
         room_id = logseries.room_id_for(survey, None if args.outdoor else args.room)
         logseries.check_instrument(survey, args.instrument)
+        surface = _import_surface(survey, room_id, args.surface)
         result = logimport.read_logger_csv(
             store.read_input_file(log_path, "logger file"),
             temp_unit=args.temp_unit,
             date_order=args.date_order,
+            surface=surface is not None,
         )
         plan = logseries.plan_import(
-            survey, result, room=room_id, source=log_path.name, instrument=args.instrument
+            survey,
+            result,
+            room=room_id,
+            source=log_path.name,
+            instrument=args.instrument,
+            surface=surface,
         )
         where = visible(logseries.where(survey, room_id))
         sources = visible(", ".join(plan.overlapping_sources))
@@ -517,6 +542,8 @@ def _import_log(args: argparse.Namespace) -> int:
     unit = "°F, converted to °C" if result.temperature_unit == "f" else "°C"
     verb = "Would import" if args.dry_run else "Imported"
     span = logseries.span(samples)
+    if surface is not None:
+        where = f"{where}, on the surface {visible(repr(surface))}"
     print(
         f"{verb} {_plural(len(samples), 'sample')} from {name} into {where}"
         f"{' ' if span.startswith('at ') else ': '}{span}{_describe_step(result.interval)}."

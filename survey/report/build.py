@@ -21,6 +21,7 @@ from survey.errors import InputError
 from survey.report import drying as report_drying
 from survey.report import equipment as equipment_report
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
+from survey.report.mould import mould_section
 from survey.report.rooms import Context, photo_blocks, room_section
 from survey.report.season import season_section
 from survey.words import report as rw
@@ -126,6 +127,7 @@ def build_with_charts(
         _visit(doc, ctx, index, options.chart_stem, charts)
     if report_drying.wanted(survey):
         report_drying.drying_section(doc, ctx)
+    mould_section(doc, ctx)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
     doc.add(

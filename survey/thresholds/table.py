@@ -6,6 +6,7 @@ from collections.abc import Iterable
 
 from survey.thresholds.limits_drying import DRYING_LIMITS
 from survey.thresholds.limits_equipment import EQUIPMENT_LIMITS
+from survey.thresholds.limits_mould import MOULD_INDEX_LIMITS
 from survey.thresholds.limits_room import ROOM_AND_SITE_LIMITS
 from survey.thresholds.limits_season import SEASON_LIMITS
 from survey.thresholds.record import Threshold
@@ -329,6 +330,7 @@ _THRESHOLDS: tuple[Threshold, ...] = (
     *SEASON_LIMITS,
     *DRYING_LIMITS,
     *EQUIPMENT_LIMITS,
+    *MOULD_INDEX_LIMITS,
 )
 
 _BY_KEY: dict[str, Threshold] = {t.key: t for t in _THRESHOLDS}

@@ -1,0 +1,61 @@
+"""The report's section on mould growth over the logged period: for every logger series of a
+room, the index summary in words (:mod:`survey.words.mould_index`), then the limits it used.
+
+The series are judged by :func:`survey.mould_series.judge_survey`: a logger on a surface as it
+is, an air logger through the room's surface with the lowest measured temperature factor. Each
+summary's :class:`~survey.report.markdown.Items` block carries the judged series in ``values``;
+its index over time, for a chart, is ``judged.result.index.points(max_points)`` — typed
+:class:`~survey.mould_index.IndexPoint` (time, index) values, each the highest of its stretch.
+"""
+
+from __future__ import annotations
+
+from survey import mould_series, words
+from survey import thresholds as th
+from survey.mould_series import LogIndex, LogNotJudged
+from survey.report.markdown import Document, Heading, Items, Para
+from survey.report.rooms import Context
+from survey.words import mould_index as mw
+from survey.words import report as rw
+
+
+def judged_series(ctx: Context) -> list[LogIndex | LogNotJudged]:
+    """Every room logger series of the report's survey, judged."""
+    return mould_series.judge_survey(ctx.survey)
+
+
+def mould_section(doc: Document, ctx: Context) -> None:
+    """The section, when the survey holds any room logger series; nothing otherwise."""
+    judged = judged_series(ctx)
+    if not judged:
+        return
+    doc.add(Heading(2, mw.HEADING), Para(mw.INTRO))
+    keys: set[str] = set()
+    for one in judged:
+        room = one.room if isinstance(one, LogNotJudged) else one.source.room
+        doc.add(Heading(3, mw.series_title(one, ctx.room_name(room))))
+        doc.add(
+            Items(
+                tuple(("", line) for line in mw.summary_lines(one, ctx.d)),
+                name="mould_index",
+                room=room,
+                values=(one,),
+            )
+        )
+        if isinstance(one, LogIndex):
+            keys.update(one.result.threshold_keys)
+            keys.update(one.result.ashrae160.threshold_keys)
+    doc.add(Para(mw.LIMITS))
+    limits = th.cited(keys)
+    if limits:
+        doc.add(
+            Para(rw.LIMITS_INTRO),
+            Items(
+                tuple(("", words.client_citation(t, ctx.d)) for t in limits),
+                name="mould_index_limits",
+                values=tuple(limits),
+            ),
+        )
+        legend = words.legend(limits)
+        if legend:
+            doc.add(Items(tuple(("", line) for line in legend), name="mould_index_legend"))
