@@ -27,6 +27,7 @@ import msgspec
 
 from survey import advise, assess, model
 from survey import thresholds as th
+from survey.equipment import stored
 
 
 @dataclass(frozen=True)
@@ -64,19 +65,6 @@ def drying_in_progress(room_visit: model.RoomVisit) -> bool:
 _DEHUMIDIFIERS = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier"})
 
 
-def _hours_since_previous(survey: model.Survey, visit: model.Visit) -> float | None:
-    """Hours from the visit before ``visit`` (by start time) to ``visit``; None if first."""
-    earlier = [
-        v.started_at for v in survey.visits if v is not visit and v.started_at < visit.started_at
-    ]
-    if not earlier:
-        return None
-    try:
-        return (visit.started_at - max(earlier)).total_seconds() / 3600.0
-    except TypeError:  # naive and aware times mixed
-        return None
-
-
 def drying_equipment(
     survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit
 ) -> assess.DryingEquipment | None:
@@ -89,12 +77,27 @@ def drying_equipment(
     capacities = [e.capacity_l_per_day for e in dehumidifiers if e.capacity_l_per_day]
     removed = [e.water_removed_l for e in dehumidifiers if e.water_removed_l is not None]
     outlet = next((e.outlet for e in dehumidifiers if e.outlet is not None), None)
+    # Each unit's water over its own run time (its run hours, else since its previous
+    # reading): the units' rates add up; the hours given are those the total took at them.
+    hours: float | None = None
+    if removed:
+        rates: list[float] = []
+        for e in dehumidifiers:
+            if e.water_removed_l is None:
+                continue
+            run_h, _ = stored.run_duration(survey, visit, room_visit, e)
+            if run_h is None:
+                rates = []
+                break
+            rates.append(e.water_removed_l * 24.0 / run_h)
+        if rates and sum(rates) > 0.0:
+            hours = sum(removed) * 24.0 / sum(rates)
     return assess.DryingEquipment(
         dehumidifiers=len(dehumidifiers),
         air_movers=len(movers),
         capacity_l_per_day=sum(capacities) if capacities else None,
         water_removed_l=sum(removed) if removed else None,
-        hours_since_previous=_hours_since_previous(survey, visit) if removed else None,
+        hours_since_previous=hours,
         outlet_temp_c=None if outlet is None else outlet.dry_bulb_c,
         outlet_rh_pct=None if outlet is None else outlet.rh_pct,
     )

@@ -10,6 +10,7 @@ from __future__ import annotations
 import typing
 from pathlib import Path
 
+import msgspec
 import pytest
 from CoolProp.HumidAirProp import HAPropsSI
 
@@ -245,15 +246,16 @@ def test_room_being_dried_is_kept_closed_and_dehumidified_never_ventilated():
 
 
 def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
-    """Family room, second visit: 18 L logged over the time since the first visit is the
-    load, per day; the grain depression is the room air's humidity ratio minus the outlet's,
+    """Family room, second visit: 18 L logged over its recorded 24 run hours is the load,
+    per day (the same figure the dehumidifier check gives); the grain depression is the room air's humidity ratio minus the outlet's,
     by CoolProp, in g/kg and in gr/lb (7000 grains = 1 lb)."""
     survey = load("basement-burst-pipe-drying")
     judged = evaluate.assess_visit(survey, 1)
     room_id = judged.room_ids[0]
     room_visit = next(r for r in judged.visit.rooms if r.room == room_id)
     unit = next(e for e in room_visit.equipment if e.kind.endswith("dehumidifier"))
-    hours = (survey.visits[1].started_at - survey.visits[0].started_at).total_seconds() / 3600
+    hours = unit.run_hours
+    assert hours == 24.0  # the example's record
     dehumidify = next(
         a for a in _room_advice(judged, room_id).actions if a.kind.value == "dehumidify"
     )
@@ -317,3 +319,23 @@ def test_a_room_judged_alone_is_judged_as_within_its_visit(name):
         unread = {r.id for r in survey.rooms} - set(whole.room_ids)
         for room_id in unread:
             assert evaluate.assess_room(survey, index, room_id) is None
+
+
+def test_the_logged_load_uses_the_time_since_the_units_last_reading_without_run_hours():
+    """Without run hours, 18 L over the time from day 1's outlet reading (10:12) to day 2's
+    (10:27), 24.25 h: 18 × 24 / 24.25 = 17.81 L/day, as the dehumidifier check has it."""
+    from survey import equipment
+
+    survey = load("basement-burst-pipe-drying")
+    for room_visit in survey.visits[1].rooms:
+        room_visit.equipment = [
+            msgspec.structs.replace(e, run_hours=None) for e in room_visit.equipment
+        ]
+    judged = evaluate.assess_visit(survey, 1)
+    room_id = judged.room_ids[0]
+    dehumidify = next(
+        a for a in _room_advice(judged, room_id).actions if a.kind.value == "dehumidify"
+    )
+    assert dehumidify.numbers.removal_l_per_day == pytest.approx(18 * 24 / 24.25, rel=1e-9)
+    (unit,) = [u for u in equipment.judge_visit(survey, 1) if u.result is not None]
+    assert unit.result.removal_l_per_day == pytest.approx(18 * 24 / 24.25, rel=1e-9)

@@ -65,7 +65,7 @@ def _same_unit(a: model.Equipment, b: model.Equipment) -> bool:
     return a.kind == b.kind and a.label.strip().casefold() == b.label.strip().casefold()
 
 
-def _duration(
+def run_duration(
     survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit, e: model.Equipment
 ) -> tuple[float | None, DurationSource | None]:
     """Run hours, else hours since the previous reading of the same unit (same room, same
@@ -119,7 +119,7 @@ def judge_record(
         missing.append("inlet")
     if e.outlet is None or inlet is None:
         return StoredUnit(visit_index, room_visit.room, equipment_index, e, None, tuple(missing))
-    hours, source = _duration(survey, visit, room_visit, e)
+    hours, source = run_duration(survey, visit, room_visit, e)
     given = DehumidifierInput(
         readings=(AirPair(inlet.dry_bulb_c, inlet.rh_pct, e.outlet.dry_bulb_c, e.outlet.rh_pct),),
         kind=kind,

@@ -373,8 +373,8 @@ def _dehumidify(n: DehumidifyNumbers, finding: RoomFinding, advice: RoomAdvice, 
         )
     if n.logged_removal_l_per_day is not None:
         text += (
-            f" The dehumidifier logged {n.water_removed_l:g} L in the "
-            f"{n.hours_since_previous:.0f} h since the previous visit, about "
+            f" The dehumidifier collected {n.water_removed_l:g} L in "
+            f"{n.hours_since_previous:.0f} h of running, about "
             f"{d.water(n.logged_removal_l_per_day)}: while materials dry, that measured "
             f"figure is the load, and the unit should keep up with it at this room's "
             f"conditions. Falling amounts from visit to visit mean the materials are "
