@@ -247,8 +247,9 @@ def test_room_being_dried_is_kept_closed_and_dehumidified_never_ventilated():
 
 def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
     """Family room, second visit: 18 L logged over its recorded 24 run hours is the load,
-    per day (the same figure the dehumidifier check gives); the grain depression is the room air's humidity ratio minus the outlet's,
-    by CoolProp, in g/kg and in gr/lb (7000 grains = 1 lb)."""
+    per day (the same figure the dehumidifier check gives); the grain depression is the room
+    air's humidity ratio minus the outlet's, by CoolProp, in g/kg and in gr/lb (7000 grains
+    = 1 lb)."""
     survey = load("basement-burst-pipe-drying")
     judged = evaluate.assess_visit(survey, 1)
     room_id = judged.room_ids[0]
