@@ -349,3 +349,36 @@ def test_a_series_out_of_order_is_sorted_and_mixed_offsets_are_not_judged(logged
     (judged,) = mould_series.judge_survey(mixed)
     assert judged.reason == "times_mixed"
     assert "mix some with a UTC offset" in render(build(mixed))
+
+
+def test_report_draws_each_judged_series_index_beside_it(logged, capsys):
+    """`survey report` writes one index chart per judged series beside the Markdown, links
+    it as an image, and each chart's line is the index the summary states (its highest point
+    is the result's maximum; the data, not the pixels, are checked)."""
+    import xml.etree.ElementTree as ET
+
+    from survey import chart
+    from survey.report import build_with_charts
+
+    path = logged / "flat.json"
+    status, out, _ = _main(capsys, "report", str(path))
+    assert status == 0 and "flat-report-mould-1.svg" in out and "flat-report-mould-2.svg" in out
+    text = (logged / "flat-report.md").read_text(encoding="utf-8")
+    assert "](flat-report-mould-1.svg)" in text and "](flat-report-mould-2.svg)" in text
+    for n in (1, 2):
+        svg_text = (logged / f"flat-report-mould-{n}.svg").read_text(encoding="utf-8")
+        root = ET.fromstring(svg_text)
+        assert not any(el.tag.endswith("script") for el in root.iter())
+        assert "growth under a microscope" in svg_text and "visible growth" in svg_text
+    survey = store.load_survey(path)
+    judged = [
+        b.values[0]
+        for b in build(survey, ReportOptions()).blocks
+        if isinstance(b, Items) and b.name == "mould_index"
+    ]
+    points = judged[0].result.index.points(400)
+    assert max(p.value for p in points) == pytest.approx(judged[0].result.index_max)
+    data = chart.time_series_chart("t", [("index", [(p.at, p.value) for p in points])])
+    assert data.series[0].values == tuple(p.value for p in points)
+    _, charts = build_with_charts(survey, ReportOptions(chart_stem="x"))
+    assert [c.name for c in charts if "-mould-" in c.name] == ["x-mould-1.svg", "x-mould-2.svg"]

@@ -127,7 +127,7 @@ def build_with_charts(
         _visit(doc, ctx, index, options.chart_stem, charts)
     if report_drying.wanted(survey):
         report_drying.drying_section(doc, ctx)
-    mould_section(doc, ctx)
+    mould_section(doc, ctx, options.chart_stem, charts)
     _safety(doc, ctx, shown)
     _method(doc, ctx, shown)
     doc.add(

@@ -10,13 +10,18 @@ its index over time, for a chart, is ``judged.result.index.points(max_points)`` 
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 from survey import mould_series, words
 from survey import thresholds as th
 from survey.mould_series import LogIndex, LogNotJudged
-from survey.report.markdown import Document, Heading, Items, Para
+from survey.report.markdown import Document, Heading, Items, Para, Photo
 from survey.report.rooms import Context
 from survey.words import mould_index as mw
 from survey.words import report as rw
+
+if TYPE_CHECKING:
+    from survey.report.build import ChartFile
 
 
 def judged_series(ctx: Context) -> list[LogIndex | LogNotJudged]:
@@ -24,8 +29,42 @@ def judged_series(ctx: Context) -> list[LogIndex | LogNotJudged]:
     return mould_series.judge_survey(ctx.survey)
 
 
-def mould_section(doc: Document, ctx: Context) -> None:
-    """The section, when the survey holds any room logger series; nothing otherwise."""
+def _chart(
+    doc: Document, ctx: Context, one: LogIndex, room_name: str, stem: str, charts: list[ChartFile]
+) -> None:
+    """The series' index over time as a small SVG chart beside the report, linked."""
+    from urllib.parse import quote
+
+    from survey import chart
+    from survey.report import svg
+
+    points = one.result.index.points(400)
+    if not points:
+        return
+    words_ = mw.CHART_WORDS
+    data = chart.time_series_chart(
+        words_["title"],
+        [(words_["series"], [(p.at, p.value) for p in points])],
+        unit="",
+        y_label=words_["axis"],
+        system=ctx.d.system,
+        guides=[(words_["microscopic"], 1.0), (words_["visible"], 3.0)],
+        y_low=0.0,
+        y_high=6.0,
+    )
+    name = f"{stem}-mould-{len([c for c in charts if '-mould-' in c.name]) + 1}.svg"
+    alt = mw.chart_alt(room_name, one.result)
+    from survey.report.build import ChartFile
+
+    charts.append(ChartFile(name, alt, svg.series_svg(data)))
+    doc.add(Photo(alt, quote(name)))
+
+
+def mould_section(
+    doc: Document, ctx: Context, chart_stem: str = "", charts: list[ChartFile] | None = None
+) -> None:
+    """The section, when the survey holds any room logger series; nothing otherwise. With
+    ``chart_stem``, each judged series' index is drawn as a chart file added to ``charts``."""
     judged = judged_series(ctx)
     if not judged:
         return
@@ -43,6 +82,8 @@ def mould_section(doc: Document, ctx: Context) -> None:
             )
         )
         if isinstance(one, LogIndex):
+            if chart_stem and charts is not None:
+                _chart(doc, ctx, one, ctx.room_name(room), chart_stem, charts)
             keys.update(one.result.threshold_keys)
             keys.update(one.result.ashrae160.threshold_keys)
     doc.add(Para(mw.LIMITS))

@@ -11,6 +11,7 @@ from survey import thresholds as th
 from survey.mould_ashrae160 import Ashrae160State
 from survey.mould_index import IndexState, MouldIndexResult
 from survey.mould_series import LogIndex, LogNotJudged
+from survey.safe_text import visible
 from survey.words.display import Display
 
 HEADING = "Mould growth over the logged period"
@@ -66,6 +67,24 @@ NOT_JUDGED = {
     "times_mixed": "its times (or the outdoor logger's) mix some with a UTC offset and some "
     "without, so they cannot be put in order",
 }
+
+
+#: The index chart's wording: its title, axis label, the series and the two guide lines.
+CHART_WORDS = {
+    "title": "Mould-growth index over the logged period",
+    "axis": "Mould-growth index",
+    "series": "index",
+    "microscopic": "growth under a microscope",
+    "visible": "visible growth",
+}
+
+
+def chart_alt(room_name: str, result: MouldIndexResult) -> str:
+    """The chart's alt text: what it shows and its highest value."""
+    return (
+        f"Mould-growth index over the logged period in {visible(room_name)}, from 0 to 6; "
+        f"its highest was {result.index_max:.1f} ({index_meaning(result.index_max)})."
+    )
 
 
 def when(at: dt.datetime) -> str:
