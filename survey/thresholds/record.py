@@ -12,7 +12,7 @@ MARK_TEXT: dict[str, str] = {
     "M": "from memory, not verified against the original",
     "C": "computed from the named formula",
     "common practice": "common practice, no single source",
-    "choice": "our choice of a value inside the range the source gives",
+    "choice": "our choice of a value (inside the range the source gives, where one does)",
 }
 
 #: The marks in words for a client's report: the same facts, in plain terms.

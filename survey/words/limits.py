@@ -10,7 +10,7 @@ MARK_SIGN = {"R": "", "M": "*", "C": "", "common practice": "†", "choice": "�
 MARK_LEGEND = {
     "*": "value recalled from the source, not yet checked against the original text",
     "†": "trade practice, no single published source",
-    "‡": "a value we chose inside the range the source gives",
+    "‡": "a value we chose (inside the range the source gives, where there is one)",
 }
 
 
