@@ -38,7 +38,7 @@ from typing import TYPE_CHECKING, NamedTuple
 
 from survey import psychro, units
 from survey import thresholds as th
-from survey.assess import CondensationState, SurfaceFinding
+from survey.assess import CondensationState
 
 if TYPE_CHECKING:
     from survey.evaluate import VisitAssessment
@@ -108,7 +108,7 @@ class AirPoint:
     rh_pct: float
     dew_point_c: float  #: over liquid water
     condensation_point_c: float  #: dew point, or frost point below 0.01 °C
-    worst_words: str  #: the words module's verdict on :func:`worst_surface` ("" outdoors)
+    worst_words: str  #: the verdict on :func:`survey.words.worst_surface` ("" outdoors)
     condensing: bool  #: the assessment finds water or frost forming on one of its surfaces
     coldest: SurfacePoint | None
 
@@ -301,18 +301,6 @@ def _air_point(
     )
 
 
-def worst_surface(surfaces: Sequence[SurfaceFinding]) -> SurfaceFinding | None:
-    """The surface a room's point speaks for: the coldest one on which water or frost is
-    forming, else the first of :func:`survey.words.worst_first`; None with no surface."""
-    from survey import words
-
-    wet = [s for s in surfaces if s.condensation is CondensationState.CONDENSING]
-    if wet:
-        return min(wet, key=lambda s: s.surface_temp_c)
-    ordered = words.worst_first(surfaces)
-    return ordered[0] if ordered else None
-
-
 def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroChart:
     """The psychrometric chart of a judged visit, in display units ``system``."""
     from survey import words
@@ -324,7 +312,7 @@ def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroCha
     rooms: list[AirPoint] = []
     temps: list[float] = []
     for number, f in enumerate(findings.rooms, start=1):
-        worst = worst_surface(f.surfaces)
+        worst = words.worst_surface(f.surfaces)
         in_range = [s for s in f.surfaces if _in_domain(s.surface_temp_c)]
         cold = min(in_range, key=lambda s: s.surface_temp_c) if in_range else None
         coldest = (

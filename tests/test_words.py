@@ -1112,3 +1112,36 @@ def test_the_app_panels_name_frost_below_zero_and_follow_the_units():
     ip = screens.air_state_lines(psychro.state_from_rh(21.0, 50.0), words.IP, 0.5)
     assert ip[0].startswith("69.8 °F") and ip[1].startswith("Dew point ")
     assert ip[1].endswith("± 0.9 °F") and "gr/lb" in ip[2]
+
+
+def test_one_worst_surface_for_every_face():
+    """A pane with water forming on it outranks a wall only near the dew point but above the
+    mould limit: the room's worst finding names the pane in the words, the app's room list
+    and the chart alike (one ordering, :func:`words.worst_first`)."""
+    from survey import chart
+    from survey.app import judging
+    from survey.evaluate import VisitAssessment
+    from survey.words import screens
+
+    room = assess.RoomInput(
+        "R",
+        "bedroom",
+        20.0,
+        65.0,
+        (
+            assess.SurfaceInput("wall", 15.0, "external_wall"),  # surface RH ~89 %, margin 1.8 K
+            assess.SurfaceInput("pane", 9.0, "glazing"),  # below the 13.2 °C dew point
+        ),
+    )
+    site = assess.assess_site([room], None, 101_325.0)
+    finding = site.rooms[0]
+    wall, pane = finding.surfaces
+    assert pane.condensation is assess.CondensationState.CONDENSING
+    assert wall.mould is assess.MouldState.ABOVE
+    assert words.worst_first(finding.surfaces)[0] is pane
+    assert words.worst_surface(finding.surfaces) is pane
+    assert judging.worst_rank(finding) == 3
+    assert screens.worst_state_words(finding, words.SI).startswith("water forming")
+    judged = VisitAssessment(0, None, site, advise.advise_site(site), ("r",), {})
+    (point,) = chart.psychro_chart(judged).points
+    assert point.worst_words.startswith("water forming")

@@ -29,7 +29,7 @@ def findings_text(survey, visit_index: int, d: words.Display) -> Text:
         rank = judging.worst_rank(finding)
         out.append(f"\n{judging.RANK_SYMBOLS[rank]} ", "bold")
         out.append(plain(survey.room(room_id).name, "bold"))
-        out.append(f" — {judging.worst_words(finding, d)}\n")
+        out.append(f" — {screens.worst_state_words(finding, d)}\n")
         for s in words.worst_first(finding.surfaces)[:3]:
             out.append("   ")
             out.append(plain(s.label))

@@ -10,7 +10,8 @@ from __future__ import annotations
 
 import datetime as dt
 
-from survey import assess, model, words
+from survey import assess, model
+from survey.words import states as words_states
 
 
 def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.RoomVisit | None:
@@ -22,39 +23,9 @@ def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.Ro
 # --- how bad a room is, as a rank ------------------------------------------------------------
 
 
-def surface_rank(s: assess.SurfaceFinding) -> int:
-    """0 clear, 1 near a limit, 2 over the mould limit or not settled, 3 condensing."""
-    if s.condensation.rank is None:
-        condensation = 2
-    else:
-        condensation = s.condensation.rank + (1 if s.condensation.rank == 2 else 0)
-    mould = s.mould.rank if s.mould.rank is not None else 1 if s.mould.value == "cannot_tell" else 0
-    return max(condensation, mould)
-
-
-def worst_surface(finding: assess.RoomFinding) -> assess.SurfaceFinding | None:
-    """The surface of the highest rank (worst first among equals)."""
-    ordered = words.worst_first(finding.surfaces)
-    return max(ordered, key=surface_rank) if ordered else None
-
-
 def worst_rank(finding: assess.RoomFinding) -> int:
-    worst = worst_surface(finding)
-    return 0 if worst is None else surface_rank(worst)
-
-
-def surface_words(surface: assess.SurfaceFinding, d: words.Display) -> str:
-    """A surface's state in a few of the words module's words: what forms, else mould."""
-    parts = words.short_verdict(surface, d).split("; ")
-    if surface.condensation.value == "clear" and len(parts) > 1:
-        return parts[1]
-    return parts[0]
-
-
-def worst_words(finding: assess.RoomFinding, d: words.Display) -> str:
-    """The worst surface's state (see :func:`surface_words`)."""
-    worst = worst_surface(finding)
-    return "no surface measured" if worst is None else surface_words(worst, d)
+    worst = words_states.worst_surface(finding.surfaces)
+    return 0 if worst is None else words_states.surface_rank(worst)
 
 
 #: A symbol per rank, so no state is shown by colour alone.

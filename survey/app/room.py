@@ -19,6 +19,7 @@ from survey.app.panel import LivePanel
 from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
+from survey.words import screens
 from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
@@ -246,11 +247,11 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             f = findings[n] if n < len(findings) else None
             last = last_temp.get(s.location)
             table.add_row(
-                Text("·" if f is None else judging.RANK_SYMBOLS[judging.surface_rank(f)]),
+                Text("·" if f is None else judging.RANK_SYMBOLS[words.surface_rank(f)]),
                 plain(walk.cut(s.location, 24)),
                 Text(d.temperature(s.surface_temp_c)),
                 Text("–" if f is None else words.surface_rh_text(f)),
-                Text("no air reading" if f is None else judging.surface_words(f, d)),
+                Text("no air reading" if f is None else screens.surface_state_words(f, d)),
                 Text(
                     "–"
                     if f is None

@@ -14,6 +14,7 @@ from survey.app.dialogs import ConfirmDialog, PromptDialog
 from survey.app.fields import plain
 from survey.app.tables import RoomTable
 from survey.errors import InputError
+from survey.words import screens
 
 
 class RoomListScreen(walk.WalkScreen):
@@ -73,7 +74,7 @@ class RoomListScreen(walk.WalkScreen):
                 symbol, worst = "·", "no air reading yet"
             else:
                 symbol = judging.RANK_SYMBOLS[judging.worst_rank(judged.finding)]
-                worst = judging.worst_words(judged.finding, d)
+                worst = screens.worst_state_words(judged.finding, d)
             name = plain(room.name)
             if room.is_reference:
                 name.append(" ★")

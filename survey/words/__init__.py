@@ -37,9 +37,11 @@ from survey.words.states import (
     mould_text,
     rh_limit_text,
     short_verdict,
+    surface_rank,
     surface_rh_text,
     timber_emc_text,
     worst_first,
+    worst_surface,
 )
 
 __all__ = [
@@ -76,10 +78,12 @@ __all__ = [
     "round_down_rh",
     "round_up_temperature_c",
     "short_verdict",
+    "surface_rank",
     "surface_rh_text",
     "target_basis",
     "timber_emc_text",
     "worst_first",
+    "worst_surface",
 ]
 
 rh_limit_shown = round_down_rh

@@ -7,7 +7,13 @@ from __future__ import annotations
 from survey import assess, psychro
 from survey.safe_text import visible
 from survey.words.display import Display
-from survey.words.states import no_limit_reason, rh_limit_text, short_verdict, surface_rh_text
+from survey.words.states import (
+    no_limit_reason,
+    rh_limit_text,
+    short_verdict,
+    surface_rh_text,
+    worst_surface,
+)
 
 NO_OUTDOOR_READING = (
     "Outdoor air: give its temperature and RH to see its dew point and moisture content."
@@ -101,3 +107,17 @@ def quick_surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
         f"Surface {d.temperature(surface.surface_temp_c)}: surface RH "
         f"{surface_rh_text(surface)}; {short_verdict(surface, d)}"
     )
+
+
+def surface_state_words(surface: assess.SurfaceFinding, d: Display) -> str:
+    """A surface's state in a few words, for a table cell: what forms, else mould."""
+    parts = short_verdict(surface, d).split("; ")
+    if surface.condensation is assess.CondensationState.CLEAR and len(parts) > 1:
+        return parts[1]
+    return parts[0]
+
+
+def worst_state_words(finding: assess.RoomFinding, d: Display) -> str:
+    """The room's worst surface's state (see :func:`surface_state_words`)."""
+    worst = worst_surface(finding.surfaces)
+    return "no surface measured" if worst is None else surface_state_words(worst, d)

@@ -219,19 +219,44 @@ def short_verdict(surface: SurfaceFinding, d: Display) -> str:
     return "; ".join(parts)
 
 
+def surface_rank(s: SurfaceFinding) -> int:
+    """How bad a surface is, for its symbol: 0 clear, 1 near a limit, 2 over the mould limit
+    or not settled, 3 condensing."""
+    if s.condensation.rank is None:
+        condensation = 2
+    else:
+        condensation = s.condensation.rank + (1 if s.condensation.rank == 2 else 0)
+    mould = s.mould.rank if s.mould.rank is not None else 1 if s.mould.value == "cannot_tell" else 0
+    return max(condensation, mould)
+
+
+_SEVERITY = {
+    CondensationState.CONDENSING: 3,
+    CondensationState.CANNOT_TELL: 2,
+    CondensationState.NEAR: 1,
+    CondensationState.CLEAR: 0,
+}
+_MOULD_SEVERITY = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
+
+
 def worst_first(surfaces: Iterable[SurfaceFinding]) -> list[SurfaceFinding]:
-    """Surfaces ordered worst first: condensation, then mould, then the coldest."""
-    severity = {
-        CondensationState.CONDENSING: 3,
-        CondensationState.CANNOT_TELL: 2,
-        CondensationState.NEAR: 1,
-        CondensationState.CLEAR: 0,
-    }
-    mould = {MouldState.ABOVE: 3, MouldState.CANNOT_TELL: 2, MouldState.APPROACHING: 1}
+    """Surfaces ordered worst first: by :func:`surface_rank` (condensing first), then by
+    condensation and mould together, then the coldest. The first is the surface a room's
+    worst finding speaks of, in every face."""
     return sorted(
         surfaces,
-        key=lambda s: (-severity[s.condensation] - mould.get(s.mould, 0), s.surface_temp_c),
+        key=lambda s: (
+            -surface_rank(s),
+            -_SEVERITY[s.condensation] - _MOULD_SEVERITY.get(s.mould, 0),
+            s.surface_temp_c,
+        ),
     )
+
+
+def worst_surface(surfaces: Iterable[SurfaceFinding]) -> SurfaceFinding | None:
+    """The first of :func:`worst_first`; None with no surface."""
+    ordered = worst_first(surfaces)
+    return ordered[0] if ordered else None
 
 
 def no_limit_reason(finding: RoomFinding) -> str:
