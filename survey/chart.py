@@ -39,6 +39,7 @@ from typing import TYPE_CHECKING, NamedTuple
 from survey import psychro, units
 from survey import thresholds as th
 from survey.assess import CondensationState
+from survey.words.charts import CHART_LABELS
 
 if TYPE_CHECKING:
     from survey.evaluate import VisitAssessment
@@ -56,16 +57,8 @@ VERDICT_PARTS = 2
 #: Faint RH lines drawn to read a point's RH by, %.
 GUIDE_RH_PCT = (20.0, 40.0, 60.0)
 
-LABELS = {
-    "dry_bulb": "Dry bulb",
-    "humidity_ratio": "Humidity ratio",
-    "saturation": "Saturation (100 % RH): dew forms",
-    "frost": "Saturation over ice: frost forms",
-    "mould_limit": "{rh:g} % RH: mould limit at a surface",
-    "guide": "{rh:g} % RH",
-    "outdoors": "Outdoors",
-    "no_surface": "no surface measured",
-}
+#: The chart's labels (the words module's).
+LABELS = CHART_LABELS
 
 
 class ChartXY(NamedTuple):

@@ -29,6 +29,7 @@ from survey import chart, evaluate
 from survey.app import walk
 from survey.app.fields import plain
 from survey.safe_text import visible
+from survey.words import charts as wc
 
 #: The theme variable that colours each part of the chart.
 COLOURS = {
@@ -80,9 +81,7 @@ class ChartScreen(walk.WalkScreen):
         yield from self.footer_widgets()
 
     def on_mount(self) -> None:
-        self.query_one(PointTable).add_columns(
-            " ", "air", "dry bulb", "RH", "humidity ratio", "dew/frost pt", "coldest"
-        )
+        self.query_one(PointTable).add_columns(" ", *wc.CHART_COLUMNS)
         self.app.theme_changed_signal.subscribe(self, lambda _theme: self.refresh_view())
         self.refresh_view()
         self.query_one(PointTable).focus()
@@ -107,19 +106,14 @@ class ChartScreen(walk.WalkScreen):
         table = self.query_one(PointTable)
         table.clear()
         if data is None:
-            note.update(Text("No air reading on this visit yet: nothing to chart."))
+            note.update(Text(wc.CHART_EMPTY))
             plot.display = False
             self._points = ()
             self._show_detail(-1)
             return
         plot.display = True
         d = self.app.display_units
-        note.update(
-            Text(
-                "● room  ■ outdoors  ◆ coldest surface, on the curve"
-                f" · at {d('pressure', data.pressure_pa)}"
-            )
-        )
+        note.update(Text(wc.chart_key(data.pressure_pa, d)))
         self._plot(plot, data)
         self._points = data.points
         for point in data.points:
@@ -146,12 +140,10 @@ class ChartScreen(walk.WalkScreen):
         point = self._points[row]
         d = self.app.display_units
         line = plain(point.name, "bold")
-        if point.coldest is not None:
-            line.append(": coldest surface ")
-            line.append(plain(point.coldest.label))
-            line.append(f" {d.temperature(point.coldest.surface_temp_c)}")
-        if point.worst_words:
-            line.append(f"; worst: {point.worst_words}")
+        coldest = (
+            None if point.coldest is None else (point.coldest.label, point.coldest.surface_temp_c)
+        )
+        line.append(plain(wc.chart_point_detail(coldest, point.worst_words, d)))
         detail.update(line)
 
     def _colour(self, part: str) -> tuple[int, int, int]:

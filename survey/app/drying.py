@@ -16,6 +16,7 @@ from textual.widgets import Label, Sparkline, Static
 from survey import drying
 from survey.app import walk
 from survey.app.fields import plain
+from survey.words import charts as wc
 from survey.words import drying as dw
 
 #: Columns a point's sparkline takes; each visit's reading gets an equal share of them.
@@ -92,9 +93,7 @@ class DryingScreen(walk.WalkScreen):
         scroll = self.query_one("#drying-scroll", VerticalScroll)
         scroll.remove_children()
         if message.progress is None:
-            scroll.mount(
-                Static(Text(f"Drying progress could not be worked out: {message.problem}"))
-            )
+            scroll.mount(Static(Text(wc.drying_failed(message.problem))))
             return
         scroll.mount_all(self._widgets(message.progress))
 
@@ -103,11 +102,11 @@ class DryingScreen(walk.WalkScreen):
         names = {r.id: r.name for r in self.editor.survey.rooms}
         out: list = []
         if not progress.rooms and not progress.outdoor_loggers:
-            return [Static(Text("No room has been read yet."))]
+            return [Static(Text(wc.DRYING_EMPTY))]
         for room in progress.rooms:
             title = plain(room.name, "bold")
             if room.is_reference:
-                title.append(" ★ reference room")
+                title.append(wc.REFERENCE_MARK)
             out.append(Static(title, classes="drying-room"))
             out.append(Static(plain(dw.room_air_sentence(room, d)), classes="drying-said"))
             if room.air:
