@@ -27,7 +27,6 @@ import msgspec
 
 from survey import advise, assess, model
 from survey import thresholds as th
-from survey.equipment import stored
 
 
 @dataclass(frozen=True)
@@ -81,6 +80,8 @@ def drying_equipment(
     # reading): the units' rates add up; the hours given are those the total took at them.
     hours: float | None = None
     if removed:
+        from survey.equipment import stored  # its readers load only where units log water
+
         rates: list[float] = []
         for e in dehumidifiers:
             if e.water_removed_l is None:
