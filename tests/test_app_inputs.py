@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import datetime as dt
 import shutil
+from pathlib import Path
 
 import pytest
 from textual import events
@@ -232,3 +233,29 @@ async def test_the_room_and_visit_details_are_saved_in_si(tmp_path):
     assert record.observations.mould_area_m2 == pytest.approx(6 * 0.3048**2)
     assert visit.pressure_pa == pytest.approx(29.5 * 3386.389)  # NIST SP 811 inHg (32 °F)
     assert visit.notes == "Windy; [b]not[/b] bold" and visit.photos == ["a.jpg", "b.jpg"]
+
+
+async def test_correcting_an_old_reading_keeps_its_time(tmp_path):
+    """Correcting day 1's room RH on the basement's day 3 keeps the reading's time and
+    instrument (it is a correction, not a reading taken today), so the drying trend keeps
+    its order; a reading not there before is stamped with the time it is typed."""
+    path = tmp_path / "b.json"
+    examples = Path(__file__).resolve().parents[1] / "example_sites"
+    shutil.copyfile(examples / "basement-burst-pipe-drying.json", path)
+    before = store.load_survey(path)
+    app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2026, 12, 2, 9))
+    async with app.run_test(size=SIZE) as pilot:
+        await pilot.pause()
+        app.editor.visit_index = 0
+        app.open_room("family")
+        await pilot.pause()
+        await pilot.pause()
+        await type_into(pilot, app, "room-rh", "81")
+        app.editor.visit_index = 2
+        app.go("visit")
+        await pilot.pause()
+        await pilot.pause()
+    after = store.load_survey(path)
+    old, new = before.visits[0].rooms[0].air, after.visits[0].rooms[0].air
+    assert new.rh_pct == 81.0
+    assert (new.taken_at, new.instrument) == (old.taken_at, old.instrument)

@@ -297,7 +297,7 @@ class CheckDialog(PromptDialog):
             reading = model.AirReading(dry_bulb_c=temp, rh_pct=rh)
             visit = self.room_screen.visit
             changes[field], _ = walk.stamped(
-                reading, self.app.clock(), visit, self.room_screen.editor.survey, "air"
+                reading, self.app.clock(), visit, self.room_screen.editor.survey, "air", old
             )
         changes["run_hours"] = eq.read_hours(hours, "Run hours") if hours else None
         power, kwh = read_power_or_energy(energy, "Power or energy") if energy else (None, None)

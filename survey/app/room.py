@@ -370,7 +370,14 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         return commit
 
     def _set_air(self, reading: model.AirReading) -> str:
-        reading, warning = walk.stamped(reading, self.app.clock(), self.visit, self.editor.survey)
+        record = self.record()
+        reading, warning = walk.stamped(
+            reading,
+            self.app.clock(),
+            self.visit,
+            self.editor.survey,
+            replacing=record.air if record else None,
+        )
         self._replace_record("air reading", air=reading)
         self._changed()
         return warning

@@ -126,7 +126,9 @@ class VisitScreen(walk.WalkScreen):
         return commit
 
     def _set_outdoor(self, reading: model.AirReading) -> str:
-        reading, warning = walk.stamped(reading, self.app.clock(), self.visit, self.editor.survey)
+        reading, warning = walk.stamped(
+            reading, self.app.clock(), self.visit, self.editor.survey, replacing=self.visit.outdoor
+        )
         visits = self.editor.survey.visits
         visits[self.editor.visit_index] = walk.checked(self.visit, "outdoor", outdoor=reading)
         self.committed()

@@ -136,9 +136,19 @@ def stamped(
     visit: model.Visit,
     survey: model.Survey | None = None,
     reading_kind: str = "air",
+    replacing=None,
 ):
     """``reading`` taken now (with the site's instrument for it when none is named), and a
-    warning when that is long after the visit began."""
+    warning when that is long after the visit began. A reading ``replacing`` one that has a
+    time is a correction of it: it keeps that reading's time and instrument (correcting
+    yesterday's typing slip must not move yesterday's reading to today)."""
+    if replacing is not None and replacing.taken_at is not None:
+        return (
+            msgspec.structs.replace(
+                reading, taken_at=replacing.taken_at, instrument=replacing.instrument
+            ),
+            "",
+        )
     now = now.replace(microsecond=0)
     reading = msgspec.structs.replace(reading, taken_at=now)
     if survey is not None and reading.instrument is None:
