@@ -159,14 +159,18 @@ async def test_a_bad_surface_temperature_is_not_saved(tmp_path):
 
 
 async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
-    """RH 99 % is possible: saved, with a warning under the field; so is a reading taken
+    """RH 99 % is possible: saved, with a warning under the field; so is a new reading taken
     long after the visit began (the demo visit began on 2025-01-15 09:40; the app's clock
-    here is 2026-12-01 09:30)."""
+    here is 2026-12-01 09:30; the room's reading is removed first, so this one is new)."""
     path = tmp_path / "survey.json"
     shutil.copyfile(DEMO_SOURCE, path)
+    survey = store.load_survey(path)
+    survey.visits[0].rooms[0].air = None
+    store.save_survey(survey, path)
     app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2026, 12, 1, 9, 30))
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-temp", "17.5")
         await type_into(pilot, app, "room-rh", "99")
         assert "close to saturation" in message_of(app, "room-rh")
         assert "days after this visit began" in message_of(app, "room-rh")
@@ -259,3 +263,19 @@ async def test_correcting_an_old_reading_keeps_its_time(tmp_path):
     old, new = before.visits[0].rooms[0].air, after.visits[0].rooms[0].air
     assert new.rh_pct == 81.0
     assert (new.taken_at, new.instrument) == (old.taken_at, old.instrument)
+
+
+async def test_the_live_panel_never_shows_a_refused_value(tmp_path):
+    """RH typed as '70F' is refused (a temperature unit on an RH): the live panel goes back
+    to the stored reading (72 % in the demo's main bedroom), never the 70 % typed on the
+    way."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-rh", "70F")
+        await pilot.pause()
+        assert message_of(app, "room-rh").startswith("Not saved")
+        panel = str(app.screen.query_one("#live").render())
+        assert "72 % RH" in panel and "70 % RH" not in panel

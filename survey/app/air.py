@@ -111,13 +111,15 @@ class AirPair(Vertical):
 
     def on_field_preview(self, event: Field.Preview) -> None:
         event.stop()
-        if event.value is None:
+        if event.value is None:  # not a value (yet): the panel shows the last good reading
+            self.post_message(self.Preview(self, self.reading))
             return
         temp = event.value if event.field.id.endswith("-temp") else self.temp_c
         rh = event.value if event.field.id.endswith("-rh") else self.rh_pct
         try:
             reading = self._build(temp, rh)
         except InputError:
+            self.post_message(self.Preview(self, self.reading))
             return
         if reading is not None:
             self.post_message(self.Preview(self, reading))
