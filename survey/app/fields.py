@@ -11,7 +11,7 @@ from collections.abc import Callable
 from typing import Any
 
 from rich.text import Text
-from textual import on
+from textual import events, on
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
 from textual.widgets import Checkbox, Input, Label, Static
@@ -28,6 +28,24 @@ Commit = Callable[[Any], str]
 def plain(text: object, style: str = "") -> Text:
     """User or file text as Text: never markup, control characters visible."""
     return Text(visible("" if text is None else text), style=style)
+
+
+class FieldInput(Input):
+    """A field's input: text pasted with line breaks is refused with a message, not cut to
+    its first line (a value pasted with the next one under it must not lose the second)."""
+
+    def _on_paste(self, event: events.Paste) -> None:
+        text = event.text
+        if text and len(text.splitlines()) > 1:
+            event.prevent_default()  # Input's own handler would keep the first line
+            event.stop()
+            field = self.parent.parent if self.parent is not None else None
+            if isinstance(field, Field):
+                lines = len(text.splitlines())
+                field.show_message(
+                    f"Not pasted: the text has {lines} lines; paste one value at a time"
+                )
+            return
 
 
 class Field(Vertical):
@@ -86,7 +104,7 @@ class Field(Vertical):
     def compose(self):
         with Horizontal(classes="field-row"):
             yield Label(self.label, classes="field-label", markup=False)
-            yield Input(
+            yield FieldInput(
                 self.text,
                 placeholder=self.placeholder,
                 compact=True,
