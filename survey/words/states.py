@@ -168,7 +168,11 @@ def surface_rh_text(surface: SurfaceFinding) -> str:
     rh = surface.surface_rh_pct
     low, high = surface.surface_rh_low_pct, surface.surface_rh_high_pct
     if rh >= 100.0:
-        return "100 % or more (" + ("frost" if _below_freezing(surface) else "water") + " forming)"
+        what = "frost" if _below_freezing(surface) else "water"
+        if surface.condensation is CondensationState.CONDENSING:
+            return f"100 % or more ({what} forming)"
+        # at the reading water forms, but not at the band's low end: say so, as the state does
+        return f"100 % or more ({low:.0f} % or more at this accuracy: {what} may be forming)"
     if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
         return f"{rh:.0f} %"
     if high >= 100.0:
