@@ -11,6 +11,7 @@ import datetime as dt
 from collections.abc import Callable, Mapping
 
 from survey import thresholds as th
+from survey.advise.kinds import Caution
 from survey.drying import (
     Fit,
     GoalEstimate,
@@ -22,7 +23,6 @@ from survey.drying import (
     RoomDrying,
     TrendState,
 )
-from survey.advise.kinds import Caution
 from survey.drying.trend import INTERVAL_CONFIDENCE_PCT
 from survey.words.cautions import CAUTION_NAMES, caution_text
 from survey.words.display import Display
