@@ -400,3 +400,16 @@ def test_a_stated_class_wins_and_a_wrong_one_is_refused():
     assert choose_class("pine", stated="resistant") == mi.ClassChoice("resistant", "stated")
     with pytest.raises(InputError, match="very_sensitive, sensitive"):
         choose_class(stated="porous")
+
+
+def test_integration_lives_in_its_own_module_and_mould_index_names_still_work():
+    """The integration moved to survey.mould_integrate; survey.mould_index still gives the
+    same objects under the same names (a move, not a copy)."""
+    from survey import mould_integrate
+
+    for name in ("integrate", "Integration", "GROWTH_LN_T", "GROWTH_LN_RH", "GROWTH_CONSTANT"):
+        assert getattr(mi, name) is getattr(mould_integrate, name), name
+    for name in ("K2_SLOPE", "RH_CRIT_POLY", "DAYS_PER_WEEK"):
+        assert getattr(mi, name) is getattr(mould_integrate, name), name
+    done = mi.integrate(constant(20, 97, 2), mi.CLASSES["very_sensitive"])
+    assert done.favourable_h == pytest.approx(48.0)  # 97 % at 20 °C favours growth throughout
