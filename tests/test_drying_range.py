@@ -225,3 +225,36 @@ def test_stalled_pointer_appears_in_the_app_words_by_default():
     """A face that does not know the answer gets the safe side: the pointer."""
     point = _only_point(_stalled(None))
     assert "combustion air of flued appliances" in dw.trend_sentence(point)
+
+
+async def test_app_drying_screen_shows_the_combustion_air_caution_for_stalled_drying(tmp_path):
+    """The app's drying screen, for the stalled series with no answer on flued appliances:
+    the point's words point to the combustion-air caution, and the screen shows the caution
+    once; the room-air logger's note is there once too."""
+    import datetime as dt
+
+    from textual.widgets import Static
+
+    from survey import store
+    from survey.app import make_app
+    from survey.app.drying import DryingScreen
+
+    survey = _stalled(None)
+    samples = [model.LogSample(at=a, dry_bulb_c=t, rh_pct=rh) for a, t, rh in _LOG]
+    survey.logs.append(model.LogSeries(room="wet", source="air.csv", samples=samples))
+    path = tmp_path / "stalled.json"
+    path.write_bytes(store.dumps_survey(survey))
+    app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2025, 3, 4, 12))
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        await pilot.press("f4")
+        await pilot.pause()
+        await pilot.press("g")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert isinstance(app.screen, DryingScreen)
+        texts = [str(w.render()) for w in app.screen.query(Static)]
+        assert any("first see the caution on combustion air" in t for t in texts)
+        assert texts.count(dw.combustion_caution(None, SI)) == 1
+        assert texts.count(dw.AIR_RH_NOTE) == 1
