@@ -40,44 +40,68 @@ from survey.thresholds.policy import POROUS_WORDS, is_timber
 
 _HOUR = dt.timedelta(hours=1)
 
-#: Words for a class, tried in this order on the material, then on the label. Timber
-#: (:func:`survey.thresholds.is_timber`) is very sensitive: sawn, untreated pine sapwood
-#: is what the model was fitted to, the safe side for any wood. Mineral fibres are medium
-#: resistant (Ojanen 2010, from memory), checked before the porous words that also list them;
-#: the porous, papered and painted finishes are sensitive; masonry, cement and plastics
-#: medium resistant; glass and metal resistant (Ojanen 2010 examples, from memory; an R
-#: package's documentation lists pine sapwood / glued boards, paper-faced foam, spruce /
-#: concrete, glass wool / polished foam, read).
+#: The words that set a material's class, tried in this order on the material, then on the
+#: label; the first rule with a word in the text decides. The classes are Ojanen, Viitanen
+#: et al. (2010): very sensitive (untreated wood), sensitive (planed wood, paper-coated
+#: products, wood-based boards), medium resistant (cement- and plastic-based materials,
+#: mineral fibres), resistant (glass and metal) (from memory; an R package's documentation
+#: lists pine sapwood / glued boards, paper-faced foam, spruce / concrete, glass wool /
+#: polished foam, read). Which word falls in which class, and the order, are our choice from
+#: that classification:
+#:
+#: 1. timber (:func:`survey.thresholds.is_timber`, whose words include plywood, OSB and
+#:    chipboard) is very sensitive: sawn, untreated pine sapwood is what the model was
+#:    fitted to, the safe side for any wood;
+#: 2. paper-faced boards, wood-based boards and organic finishes (paint, wallpaper) are
+#:    sensitive, before any mineral word: the face is what mould grows on, so "painted
+#:    plaster" and "plasterboard" are sensitive although "plaster" alone is not;
+#: 3. mineral fibres are medium resistant, before "glass" and "insulation" below;
+#: 4. plaster, render, mortar, concrete, cement, screed, brick, block, masonry and stone are
+#:    medium resistant ("gypsum plaster" among them: a plaster, not a board);
+#: 5. plastics are medium resistant, before "insulation" below;
+#: 6. the other porous materials (:data:`survey.thresholds.POROUS_WORDS`: carpet, underlay,
+#:    insulation, ceiling tiles, fabric, bare "gypsum" read as board …) and sealants,
+#:    cork and textiles are sensitive;
+#: 7. glass, metal and glazed ceramics are resistant.
+BOARD_AND_FINISH_WORDS = (
+    "plasterboard", "gypsum board", "gypsum wallboard", "wallboard", "drywall",
+    "paper-faced", "paper faced", "paper", "cardboard", "mdf", "chipboard",
+    "particleboard", "hardboard", "fibreboard", "fiberboard", "paint", "emulsion",
+    "distemper",
+)  # fmt: skip
 MINERAL_FIBRE_WORDS = (
     "mineral wool", "glass wool", "rock wool", "stone wool", "fibreglass", "fiberglass",
 )  # fmt: skip
-SENSITIVE_WORDS = (
-    *POROUS_WORDS, "plaster", "paint", "emulsion", "distemper", "wallpaper", "cork",
-    "silicone", "sealant", "textile",
+MINERAL_WORDS = (
+    "plaster", "render", "mortar", "concrete", "cement", "screed", "brick", "block",
+    "masonry", "stone", "lime",
 )  # fmt: skip
-MEDIUM_RESISTANT_WORDS = (
-    "concrete", "cement", "render", "brick", "block", "masonry", "mortar", "stone", "lime",
-    "screed", "pvc", "plastic", "polystyrene", "polyurethane", "vinyl",
-)  # fmt: skip
+PLASTIC_WORDS = ("pvc", "plastic", "polystyrene", "polyurethane", "vinyl")
+OTHER_SENSITIVE_WORDS = (*POROUS_WORDS, "cork", "silicone", "sealant", "textile")
 RESISTANT_WORDS = (
     "glass", "metal", "steel", "aluminium", "aluminum", "copper", "zinc", "ceramic",
     "porcelain", "glazed tile",
 )  # fmt: skip
+#: The rules after timber, in their order: (class key, words).
+CLASS_RULES: tuple[tuple[str, tuple[str, ...]], ...] = (
+    ("sensitive", BOARD_AND_FINISH_WORDS),
+    ("medium_resistant", MINERAL_FIBRE_WORDS),
+    ("medium_resistant", MINERAL_WORDS),
+    ("medium_resistant", PLASTIC_WORDS),
+    ("sensitive", OTHER_SENSITIVE_WORDS),
+    ("resistant", RESISTANT_WORDS),
+)
 #: Elements that decide a class when no word does.
 ELEMENT_CLASS = {"glazing": "resistant", "pipe": "resistant"}
 
 
 def _class_from_text(text: str) -> tuple[str, str] | None:
+    """The class and the word that set it, by :data:`CLASS_RULES` after timber."""
     lowered = text.lower()
     if is_timber(lowered):
         word = next(w for w in th.TIMBER_WORDS if w in lowered)
         return "very_sensitive", word
-    for key, words in (
-        ("medium_resistant", MINERAL_FIBRE_WORDS),
-        ("sensitive", SENSITIVE_WORDS),
-        ("medium_resistant", MEDIUM_RESISTANT_WORDS),
-        ("resistant", RESISTANT_WORDS),
-    ):
+    for key, words in CLASS_RULES:
         found = next((w for w in words if w in lowered), None)
         if found is not None:
             return key, found

@@ -85,7 +85,9 @@ def test_basement_party_wall_rate_and_days_by_hand():
     0.3333, −24.6667. Sxx = 1.986263, Sxy = −48.82523, b = −24.5815 a day. Fitted line:
     a = ȳ − b x̄ = 95.4302; residuals −0.2766, 0.5609, −0.2844; SSR = 0.4720;
     s_b = √(0.4720 / 1 / 1.986263) = 0.4875. Days to the goal 24.2 from 46:
-    21.8 / 24.5815 = 0.8869; range 21.8 / (24.5815 ± 0.4875) = 0.8696 to 0.9048."""
+    21.8 / 24.5815 = 0.8869. The 95 % range, one degree of freedom, t = 12.706 (any t table;
+    tan(0.475π), the Cauchy quantile): half-width 12.706 × 0.4875 = 6.1942; 21.8 / 30.7757 =
+    0.7084 to 21.8 / 18.3873 = 1.1856; three readings: rough."""
     point = _point(
         _room(drying.drying_progress(_basement()), "family"), "Party wall, 0.1 m above floor"
     )
@@ -95,9 +97,12 @@ def test_basement_party_wall_rate_and_days_by_hand():
     assert point.trend is TrendState.FALLING
     assert point.estimate is not None
     assert point.estimate.days == pytest.approx(0.8869, abs=5e-4)
-    assert point.estimate.days_low == pytest.approx(0.8696, abs=2e-4)
-    assert point.estimate.days_high == pytest.approx(0.9048, abs=2e-4)
+    assert point.estimate.days_low == pytest.approx(0.7084, abs=2e-4)
+    assert point.estimate.days_high == pytest.approx(1.1856, abs=5e-4)
+    assert point.estimate.rough and not point.estimate.open_ended
     assert point.estimate.by.date() == dt.date(2025, 2, 6)  # 5 Feb 09:59 + 0.887 d
+    # 0.7084 × 24 = 17.0 h, 1.1856 × 24 = 28.5 h, shown to the hour
+    assert dw.outlook_cell(point) == "about 21 hours (rough: 17 to 28 hours)"
 
 
 def test_basement_room_air_and_worst_margin_follow_the_assessment():
@@ -262,8 +267,10 @@ def test_steady_series_rate_and_days_by_hand():
     """Readings 60, 51, 45, 36 on days 0-3, dry standard 20 so goal 22. x̄ = 1.5, ȳ = 48;
     dx = −1.5, −0.5, 0.5, 1.5; dy = 12, 3, −3, −12; Sxx = 5, Sxy = −39, b = −7.8 a day.
     a = 59.7; fitted 59.7, 51.9, 44.1, 36.3; residuals 0.3, −0.9, 0.9, −0.3; SSR = 1.8;
-    s_b = √(1.8 / 2 / 5) = 0.424264. Days from 36 to 22: 14 / 7.8 = 1.794872; range
-    14 / 8.224264 = 1.702280 to 14 / 7.375736 = 1.898115; by day 3 + 1.794872."""
+    s_b = √(1.8 / 2 / 5) = 0.424264. Days from 36 to 22: 14 / 7.8 = 1.794872; by day
+    3 + 1.794872. The 95 % range, two degrees of freedom, t = 4.303 (any t table; the
+    closed form 0.95 · √(2 / (4 · 0.975 · 0.025)) = 4.3027): half-width 1.825608;
+    14 / 9.625608 = 1.454454 to 14 / 5.974392 = 2.343335; four readings: not rough."""
     point = _only_point(_survey([60.0, 51.0, 45.0, 36.0], [0, 1, 2, 3]))
     assert point.goal == pytest.approx(22.0)
     assert point.fit is not None
@@ -272,8 +279,9 @@ def test_steady_series_rate_and_days_by_hand():
     assert point.trend is TrendState.FALLING
     assert point.estimate is not None
     assert point.estimate.days == pytest.approx(1.794872, abs=1e-6)
-    assert point.estimate.days_low == pytest.approx(1.702280, abs=1e-6)
-    assert point.estimate.days_high == pytest.approx(1.898115, abs=1e-6)
+    assert point.estimate.days_low == pytest.approx(1.454454, abs=1e-6)
+    assert point.estimate.days_high == pytest.approx(2.343335, abs=1e-6)
+    assert not point.estimate.rough and not point.estimate.open_ended
     assert point.estimate.by == T0 + dt.timedelta(days=3 + 14 / 7.8)
 
 
@@ -334,7 +342,8 @@ def test_two_readings_give_days_without_a_range():
     assert point.fit is not None and point.fit.rate_se_per_day is None
     assert point.estimate is not None and point.estimate.days == pytest.approx(0.9)
     assert point.estimate.days_low is None and point.estimate.days_high is None
-    assert dw.outlook_cell(point) == "about 22 hours (two readings: no range)"  # 0.9 × 24 = 21.6
+    assert dw.outlook_cell(point) == "about 22 hours (rough: two readings, no range)"  # 21.6 h
+    assert "A rough figure: two readings give no range yet." in dw.trend_sentence(point)
 
 
 def test_no_dry_standard_no_goal():
@@ -509,14 +518,16 @@ def test_room_air_words_in_si_and_ip():
 
 
 def test_days_to_goal_words_give_the_range_and_date():
-    """The steady series' sentence: 7.8 a day, about 1.79 days = 43 hours (1.70 to 1.90 days
-    = 41 to 46 hours, hours shown below two days), around 6 March
-    2025 (day 3 is 4 March 09:00; plus 1.79 days is 6 March, about 04:00)."""
+    """The steady series' sentence: 7.8 a day, about 1.79 days = 43 hours, around 6 March
+    2025 (day 3 is 4 March 09:00; plus 1.79 days is 6 March, about 04:00); the 95 % range
+    1.454 to 2.343 days (test_steady_series_rate_and_days_by_hand) = 35 hours to 2.3 days
+    (hours below two days)."""
     point = _only_point(_survey([60.0, 51.0, 45.0, 36.0], [0, 1, 2, 3]))
     text = dw.trend_sentence(point)
     assert "falling 7.8 points a day" in text
-    assert "about 43 hours away (41 to 46 hours with the rate ± one standard error)" in text
-    assert "around 6 March 2025" in text
+    assert "about 43 hours away, around 6 March 2025." in text
+    assert "From 4 readings, the rate's 95 % range gives 35 hours to 2.3 days." in text
+    assert dw.outlook_cell(point) == "about 43 hours (35 hours to 2.3 days)"
     assert dw.rate_cell(point) == "−7.8 ± 0.4 points a day (4 readings)"
 
 
@@ -617,7 +628,8 @@ def test_logger_hours_add_up(minutes, rhs, temps):
 async def test_app_drying_screen_from_the_room_list(tmp_path):
     """On the room list, g opens the drying screen: a sparkline for each room's air and each
     material point of the basement (3 rooms with air, 4 points), each point with its
-    readings, goal and days to the goal; Escape goes back to the room list."""
+    readings, goal and days to the goal, and the straight-line caveat once; Escape goes back
+    to the room list."""
     import shutil
 
     from textual.widgets import Sparkline, Static
@@ -644,6 +656,10 @@ async def test_app_drying_screen_from_the_room_list(tmp_path):
         ]
         party = next(s for s in statuses if s.startswith("95 → 71 → 46"))
         assert "goal 24.2 or less" in party and "about 21 hours" in party  # 0.887 d × 24
+        # that a straight line is optimistic is said once on the screen, not per point
+        texts = [str(w.render()) for w in app.screen.query(Static)]
+        assert sum("A straight line is optimistic" in t for t in texts) == 1
+        assert not any("allow longer" in t for t in texts)
         await pilot.press("escape")
         await pilot.pause()
         assert isinstance(app.screen, RoomListScreen)

@@ -123,12 +123,13 @@ def _json(capsys, folder, *args):
 
 
 def test_json_for_the_surface_logger(logged, capsys):
-    """The surface logger as it is: class from 'gypsum', the favourable hours worked out by
+    """The surface logger as it is: class from 'paint' (painted gypsum plaster: the painted
+    face is sensitive, mould_series.CLASS_RULES), the favourable hours worked out by
     hand (360 + 479 h), the index within its class's range, the chart points' highest value
     the maximum, and the 30-day criterion exceeded (the RH averages 82-88 %)."""
     (series,) = _json(capsys, logged, "--room", "Main bedroom")["series"]
     assert series["basis"] == "surface_logger" and series["surface"] == CORNER
-    assert (series["sensitivity_class"], series["class_word"]) == ("sensitive", "gypsum")
+    assert (series["sensitivity_class"], series["class_word"]) == ("sensitive", "paint")
     assert series["samples"] == 1008 and series["favourable_h"] == 839.0
     assert [p["favourable_h"] for p in series["favourable_periods"]] == [360.0, 479.0]
     assert 0.0 < series["index_max"] <= 5.3

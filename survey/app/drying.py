@@ -61,7 +61,10 @@ class DryingScreen(walk.WalkScreen):
     DEFAULT_CSS = """
     DryingScreen .drying-room { margin-top: 1; text-style: bold; }
     DryingScreen .drying-said { color: $text-muted; padding-left: 2; }
+    DryingScreen .drying-note { margin-top: 1; }
     """
+
+    _air_note = False  #: the note on room-air loggers shown already (once a screen)
 
     def compose(self):
         yield self.header()
@@ -103,6 +106,8 @@ class DryingScreen(walk.WalkScreen):
         out: list = []
         if not progress.rooms and not progress.outdoor_loggers:
             return [Static(Text(wc.DRYING_EMPTY))]
+        self._air_note = False
+        closing: list[bool | None] = []
         for room in progress.rooms:
             title = plain(room.name, "bold")
             if room.is_reference:
@@ -130,12 +135,21 @@ class DryingScreen(walk.WalkScreen):
                     status.append(f"  goal {dw.goal_cell(point)}")
                 status.append(f"  {dw.point_status(point)}", "bold")
                 out.append(self._row(plain(walk.cut(point.location, 29)), values, status))
-                out.append(Static(plain(dw.point_sentence(point, names)), classes="drying-said"))
+                said = dw.point_sentence(point, names, room.flued_appliance)
+                out.append(Static(plain(said), classes="drying-said"))
+            if any(dw.says_close_up(p, room.flued_appliance) for p in room.points):
+                closing.append(room.flued_appliance)
             for summary in room.loggers:
                 out += self._logger(summary, room.name)
         for summary in progress.outdoor_loggers:
             out.append(Static(Text(dw.OUTDOORS), classes="drying-room"))
             out += self._logger(summary, None)
+        notes = []
+        if any(p.estimate is not None for room in progress.rooms for p in room.points):
+            notes.append(dw.STRAIGHT_LINE_NOTE)
+        if closing:
+            notes.append(dw.combustion_caution(True if True in closing else None, d))
+        out += [Static(Text(n), classes="drying-note") for n in notes]
         return out
 
     def _row(self, name: Text, values: list[float], status: Text) -> PointRow:
@@ -156,8 +170,12 @@ class DryingScreen(walk.WalkScreen):
                 Text(f"{dw.logger_gaps_text(summary)} {dw.logger_trend_text(summary, d)}"),
             ),
         ]
+        kind = dw.rh_kind(summary)
         out += [
-            Static(Text(dw.logger_day_line(day, d)), classes="drying-said")
+            Static(Text(dw.logger_day_line(day, d, kind)), classes="drying-said")
             for day in summary.days[-LOGGER_DAYS_SHOWN:]
         ]
+        if dw.is_room_air(summary) and not self._air_note:
+            out.append(Static(Text(dw.AIR_RH_NOTE), classes="drying-note"))
+            self._air_note = True
         return out

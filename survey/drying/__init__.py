@@ -34,9 +34,11 @@ left), with the slope's standard error when there are three readings or more. Th
 * unclear when it falls on average but by less than ``drying_steady_standard_errors``
   standard errors (the readings scatter too much for a rate);
 * falling (steady) otherwise: then the days to the goal are the latest reading's excess
-  over the goal divided by the fall per day, with the range given by the rate plus and
-  minus one standard error (none with two readings only). A stalled or unclear trend gets
-  no number.
+  over the goal divided by the fall per day, with the range given by the rate's 95 %
+  interval, rate ± t·s_b with Student's t at n − 2 degrees of freedom
+  (:data:`survey.drying.trend.T_975`): none with two readings only, marked rough with two
+  or three, and open at its slow end when that end is no fall at all. A stalled or unclear
+  trend gets no number. A straight line is optimistic: drying slows as materials near dry.
 
 Loggers. Each :class:`~survey.model.LogSeries` is summed up per calendar day (of the times
 as written): the mean (of the day's samples), minimum and maximum of temperature, RH and
@@ -215,6 +217,9 @@ class RoomDrying:
     rh_fit: Fit | None  #: % per day
     points: tuple[MaterialPoint, ...]
     loggers: tuple[LoggerSummary, ...]
+    #: An open-flued appliance in the room or the building: true, false or not said (the
+    #: room's answer, else the site's, as the assessment takes it).
+    flued_appliance: bool | None = None
 
     @property
     def goals_met(self) -> int:
@@ -470,6 +475,11 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
                     else _room_points(survey, order, room.id, findings, rooms_by_id, origin)
                 ),
                 loggers=room_loggers,
+                flued_appliance=(
+                    room.flued_appliance
+                    if room.flued_appliance is not None
+                    else survey.site.flued_appliance
+                ),
             )
         )
     keys = (_DRYING_KEYS if order else ()) + (_LOGGER_KEYS if loggers else ())

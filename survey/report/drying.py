@@ -137,7 +137,7 @@ def _logger_blocks(
         Heading(level, dw.logger_heading(summary, room_name)),
         Para(f"{dw.logger_gaps_text(summary)} {dw.logger_trend_text(summary, d)}"),
         Table(
-            dw.logger_header(d),
+            dw.logger_header(d, summary),
             rows,
             frozenset(range(1, 8)),
             name="logger_days",
@@ -151,6 +151,8 @@ def drying_section(doc: Document, ctx: Context) -> None:
     limits these tables rest on."""
     progress = drying.drying_progress(ctx.survey, ctx.assessment)
     names = {r.id: r.name for r in ctx.survey.rooms}
+    air_note = False  # the note on room-air loggers, said once
+    closing: list[bool | None] = []  # flued answers of rooms told to keep the area closed
     doc.add(Heading(2, rw.HEADINGS["drying"]), Para(dw.DRYING_INTRO))
     if any(room.points for room in progress.rooms):
         doc.add(Para(dw.basis_text()))
@@ -166,14 +168,25 @@ def drying_section(doc: Document, ctx: Context) -> None:
                 Para(dw.room_goals_text(room), name="drying_goals", room=room.room_id),
                 _points_table(room, names),
                 Items(
-                    tuple((p.location + ":", dw.point_sentence(p, names)) for p in room.points),
+                    tuple(
+                        (p.location + ":", dw.point_sentence(p, names, room.flued_appliance))
+                        for p in room.points
+                    ),
                     name="drying_points_said",
                     room=room.room_id,
                     values=room.points,
                 ),
             )
+        if any(dw.says_close_up(p, room.flued_appliance) for p in room.points):
+            closing.append(room.flued_appliance)
         for summary in room.loggers:
             doc.add(*_logger_blocks(ctx, summary, room.name, 4))
+            if dw.is_room_air(summary) and not air_note:
+                doc.add(Para(dw.AIR_RH_NOTE, name="drying_air_rh_note"))
+                air_note = True
+    if closing:
+        flued = True if True in closing else None
+        doc.add(Para(dw.combustion_caution(flued, ctx.d), name="drying_combustion_air"))
     if progress.outdoor_loggers:
         doc.add(Heading(3, dw.OUTDOORS))
         for summary in progress.outdoor_loggers:

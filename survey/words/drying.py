@@ -8,11 +8,13 @@ Plain strings, no markup. The records are :mod:`survey.drying`'s.
 from __future__ import annotations
 
 import datetime as dt
-from collections.abc import Mapping
+from collections.abc import Callable, Mapping
 
 from survey import thresholds as th
+from survey.advise.kinds import Caution
 from survey.drying import (
     Fit,
+    GoalEstimate,
     LoggerDay,
     LoggerSummary,
     MaterialPoint,
@@ -21,6 +23,8 @@ from survey.drying import (
     RoomDrying,
     TrendState,
 )
+from survey.drying.trend import INTERVAL_CONFIDENCE_PCT
+from survey.words.cautions import CAUTION_NAMES, caution_text
 from survey.words.display import Display
 from survey.words.report import date_text
 from survey.words.report_room import reading_text
@@ -64,11 +68,21 @@ def basis_text() -> str:
         f"line best fitted to the point's last {window:.0f} readings at most; drying is "
         f"taken as stalled when the fall is no more than {stalled:g} % of the reading a day "
         "(or the latest reading did not fall), and as steady when the fall is at least "
-        f"{errors:g} times the rate's standard error; a stalled or scattered trend gets no "
-        "estimate. The days to the goal are at the present rate, with the range the rate "
-        "gives plus or minus one standard error; drying usually slows as materials near "
-        "dry, so allow longer."
+        f"{errors:g} times the rate's standard error (a rate's ± is that standard error); "
+        "a stalled or scattered trend gets no estimate. The days to the goal are at the "
+        f"present rate, with the range of the rate's {INTERVAL_CONFIDENCE_PCT:.0f} % "
+        "interval (Student's t on the fitted line): from two or three readings the figure "
+        "is rough (two give no range at all), and where the slow end of that interval is no "
+        "fall at all, the point could take much longer than any date we can give. "
+        + STRAIGHT_LINE_NOTE
     )
+
+
+#: Said once wherever days to a goal are shown (the report's basis, the app's screen).
+STRAIGHT_LINE_NOTE = (
+    "A straight line is optimistic: drying slows as materials near dry, so expect the last "
+    "part to take longer than the line says."
+)
 
 
 def point_column(location: str, material: str, scale: str) -> str:
@@ -91,6 +105,27 @@ def _number(value: float) -> str:
     return f"{value:.2f}" if abs(value) < 0.1 else f"{value:.1f}"
 
 
+def _se_places(render: Callable[[int], str], base: int) -> int | None:
+    """The decimals that show a standard error to one significant figure (two when it
+    begins with 1; common practice, no source), at least ``base``; ``None`` when it needs
+    more than one decimal past ``base`` (then it is too small to matter beside the rate and
+    is left out). ``render(places)`` writes it."""
+    for places in range(base, base + 2):
+        digits = render(places).replace(".", "").replace("-", "").lstrip("0")
+        if digits and (digits[0] != "1" or len(digits) >= 2):
+            return places
+    return None
+
+
+def _rate_and_band(rate: float, se: float | None, base: int) -> tuple[str, str]:
+    """A plain rate and its " ± se" band (empty when there is no standard error or it is
+    too small to show), the rate at the band's decimals."""
+    places = None if se is None else _se_places(lambda k: f"{se:.{k}f}", base)
+    if se is None or places is None:
+        return f"{rate:.{base}f}", ""
+    return f"{rate:.{places}f}", f" ± {se:.{places}f}"
+
+
 def margin_text(margin_k: float | None, label: str | None, d: Display) -> str:
     """The worst surface's margin to the dew (or frost) point, and which surface it is."""
     if margin_k is None or label is None:
@@ -106,15 +141,20 @@ def air_rate_text(fit: Fit | None, quantity: str, d: Display) -> str:
         return "one reading only"
     rate = fit.rate_per_day
     word = "falling" if rate < 0 else "rising"
+    se = fit.rate_se_per_day
     if quantity == "rh":
-        size = f"{abs(rate):.1f}"
-        band = "" if fit.rate_se_per_day is None else f" ± {fit.rate_se_per_day:.1f}"
+        size, band = _rate_and_band(abs(rate), se, 1)
         return f"{word} {size}{band} % RH a day"
-    size = d("humidity_ratio", abs(rate))
-    if fit.rate_se_per_day is None:
-        return f"{word} {size} a day"
-    band = d("humidity_ratio", fit.rate_se_per_day, unit=False)
-    number, unit = size.split(" ", 1)
+    base = 1 if d.ip else 2  # the display's own decimals for a humidity ratio
+    places = (
+        None
+        if se is None
+        else _se_places(lambda k: d("humidity_ratio", se, decimals=k, unit=False), base)
+    )
+    if se is None or places is None:
+        return f"{word} {d('humidity_ratio', abs(rate))} a day"
+    number, unit = d("humidity_ratio", abs(rate), decimals=places).split(" ", 1)
+    band = d("humidity_ratio", se, decimals=places, unit=False)
     return f"{word} {number} ± {band} {unit} a day"
 
 
@@ -202,9 +242,10 @@ def rate_cell(point: MaterialPoint) -> str:
     if fit is None:
         return "one reading"
     unit = _RATE_UNIT[point.scale]
-    band = "" if fit.rate_se_per_day is None else f" ± {_number(fit.rate_se_per_day)}"
+    base = 2 if abs(fit.rate_per_day) < 0.1 else 1  # as _number
+    size, band = _rate_and_band(abs(fit.rate_per_day), fit.rate_se_per_day, base)
     sign = "−" if fit.rate_per_day < 0 else "+"
-    return f"{sign}{_number(abs(fit.rate_per_day))}{band} {unit} a day ({fit.readings} readings)"
+    return f"{sign}{size}{band} {unit} a day ({fit.readings} readings)"
 
 
 def days_text(days: float) -> str:
@@ -217,14 +258,24 @@ def days_text(days: float) -> str:
     return f"{days:.0f} days"
 
 
-def _range_text(low: float | None, high: float | None) -> str:
-    if low is None or high is None:
-        return ""
+def _range_text(low: float, high: float) -> str:
+    """A range of days: "17 to 28 hours", "1.5 to 2.3 days", "35 hours to 2.3 days"."""
     if high < 2.0:
         return f"{low * 24:.0f} to {high * 24:.0f} hours"
-    if high < 10:
-        return f"{low:.1f} to {high:.1f} days"
-    return f"{low:.0f} to {high:.0f} days"
+    if low >= 2.0:
+        if high < 10:
+            return f"{low:.1f} to {high:.1f} days"
+        return f"{low:.0f} to {high:.0f} days"
+    return f"{days_text(low)} to {days_text(high)}"
+
+
+def _spread(estimate: GoalEstimate) -> str:
+    """The estimate's range, or its open end, or "" with two readings."""
+    if estimate.days_low is None:
+        return ""
+    if estimate.open_ended or estimate.days_high is None:
+        return f"{days_text(estimate.days_low)} or more; could take much longer"
+    return _range_text(estimate.days_low, estimate.days_high)
 
 
 def _date(when: dt.datetime) -> str:
@@ -244,15 +295,19 @@ def outlook_cell(point: MaterialPoint) -> str:
     estimate = point.estimate
     if estimate is None:
         return "no goal"
-    spread = _range_text(estimate.days_low, estimate.days_high)
+    spread = _spread(estimate)
     text = f"about {days_text(estimate.days)}"
-    if spread:
-        return f"{text} ({spread})"
-    return f"{text} (two readings: no range)"
+    if not spread:
+        return f"{text} (rough: two readings, no range)"
+    return f"{text} ({'rough: ' if estimate.rough else ''}{spread})"
 
 
-def point_sentence(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
-    """Everything about one point in a sentence or three, as the app shows it."""
+def point_sentence(
+    point: MaterialPoint, room_names: Mapping[str, str], flued: bool | None = None
+) -> str:
+    """Everything about one point in a sentence or three, as the app shows it; ``flued``
+    is the room's open-flued appliance answer (true, false or not said), for
+    :func:`trend_sentence`."""
     latest = point.latest
     value = reading_text(latest.value, point.scale)
     if point.goal is None:
@@ -270,7 +325,7 @@ def point_sentence(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
             f"Not yet at the goal: {value} against {goal_cell(point)} (dry standard "
             f"{_standard_said(point, room_names)})."
         )
-    return f"{goal} {trend_sentence(point)}{_missed(point)}"
+    return f"{goal} {trend_sentence(point, flued)}{_missed(point)}"
 
 
 def _missed(point: MaterialPoint) -> str:
@@ -281,8 +336,22 @@ def _missed(point: MaterialPoint) -> str:
     return f" Not read on the room's last {point.visits_missed} visits: read it again at the next."
 
 
-def trend_sentence(point: MaterialPoint) -> str:
-    """The trend of a point not yet at its goal: the rate and days left, or stalled."""
+def says_close_up(point: MaterialPoint, flued: bool | None) -> bool:
+    """Whether the point's words tell the reader to keep the area closed while an
+    open-flued appliance may be there (``flued`` not false): then they point to the
+    combustion-air caution, and the face shows that caution (:func:`combustion_caution`)."""
+    return point.trend is TrendState.STALLED and point.goal_met is not True and flued is not False
+
+
+def combustion_caution(flued: bool | None, d: Display) -> str:
+    """The combustion-air caution's own words, for a face whose drying words pointed to it."""
+    return caution_text(Caution("combustion_air", flued=flued), d)
+
+
+def trend_sentence(point: MaterialPoint, flued: bool | None = None) -> str:
+    """The trend of a point not yet at its goal: the rate and days left, or stalled. Where
+    stalled drying is told to keep the area closed and an open-flued appliance may be there
+    (``flued`` true or not said), the sentence points to the combustion-air caution."""
     fit = point.fit
     unit = _RATE_UNIT[point.scale]
     if point.trend is TrendState.ONE_READING or fit is None:
@@ -300,10 +369,16 @@ def trend_sentence(point: MaterialPoint) -> str:
                 f"no fall over the last {fit.readings} readings "
                 f"({'+' if fit.rate_per_day > 0 else ''}{_number(fit.rate_per_day)} {unit} a day)"
             )
+        pointer = (
+            f" (first see the caution on {CAUTION_NAMES['combustion_air']}: an open-flued "
+            "appliance may draw its air from it)"
+            if flued is not False
+            else ""
+        )
         return (
             f"Drying has stalled: {how}. Check that the equipment runs and the drying area "
-            "is kept closed, move air over the wet surface, and look for water still "
-            "getting in."
+            f"is kept closed{pointer}, move air over the wet surface, and look for water "
+            "still getting in."
         )
     rate = f"falling {_number(abs(fit.rate_per_day))} {unit} a day"
     if point.trend is TrendState.UNCLEAR:
@@ -314,17 +389,29 @@ def trend_sentence(point: MaterialPoint) -> str:
     estimate = point.estimate
     if estimate is None:
         return f"Drying: {rate}."
-    spread = _range_text(estimate.days_low, estimate.days_high)
-    where = (
-        f" ({spread} with the rate ± one standard error)"
-        if spread
-        else " (from two readings, so no range can be given yet)"
+    head = (
+        f"Drying: {rate}; at that rate the goal is about {days_text(estimate.days)} away, "
+        f"around {_date(estimate.by)}."
     )
-    return (
-        f"Drying: {rate}; at that rate the goal is about {days_text(estimate.days)} away"
-        f"{where}, around {_date(estimate.by)}. Drying slows as materials near dry, so "
-        "allow longer."
+    return f"{head} {_range_sentence(estimate)}"
+
+
+def _range_sentence(estimate: GoalEstimate) -> str:
+    """How sure the days to the goal are: rough, its range, or that it could take longer."""
+    if estimate.days_low is None:
+        return "A rough figure: two readings give no range yet."
+    level = f"the rate's {INTERVAL_CONFIDENCE_PCT:.0f} % range"
+    lead = (
+        "A rough figure from three readings: "
+        if estimate.rough
+        else f"From {estimate.readings} readings, "
     )
+    if estimate.open_ended or estimate.days_high is None:
+        return (
+            f"{lead}{level} gives {days_text(estimate.days_low)} at its fast end, and at its "
+            "slow end no fall at all, so it could take much longer."
+        )
+    return f"{lead}{level} gives {_range_text(estimate.days_low, estimate.days_high)}."
 
 
 def point_status(point: MaterialPoint) -> str:
@@ -359,9 +446,30 @@ def logger_heading(summary: LoggerSummary, room_name: str | None) -> str:
     return f"Logger {summary.source} ({where})"
 
 
-def logger_header(d: Display) -> tuple[str, ...]:
+def rh_kind(summary: LoggerSummary) -> str:
+    """Whose RH a logger's hours count: a surface's, or the air's (room or outdoor)."""
+    return "surface RH" if summary.surface else "air RH"
+
+
+def is_room_air(summary: LoggerSummary) -> bool:
+    """A logger in a room's air (not on a surface, not outdoors)."""
+    return summary.room_id is not None and not summary.surface
+
+
+#: Said once beside the loggers in a room's air: their hours above 80 % apply the surface
+#: mould limit to the air.
+AIR_RH_NOTE = (
+    "A logger in the room air counts the hours the air's RH is above the 80 % mould limit, "
+    "which is a limit for surfaces: air under 80 % does not clear the surfaces, because a "
+    "surface colder than the air has a higher RH than the air (the colder, the higher)."
+)
+
+
+def logger_header(d: Display, summary: LoggerSummary | None = None) -> tuple[str, ...]:
+    """The logger days table's header; the hours columns say whose RH (``summary``'s)."""
     mould = th.value("surface_rh_mould_limit_pct")
     wet = th.value("logger_rh_wet_pct")
+    kind = "RH" if summary is None else rh_kind(summary)
     return (
         "Day",
         "Samples",
@@ -369,8 +477,8 @@ def logger_header(d: Display) -> tuple[str, ...]:
         "Temperature, mean (low to high)",
         "RH, mean (low to high)",
         "Humidity ratio, mean (low to high)",
-        f"Hours above {mould:.0f} %",
-        f"Hours above {wet:.0f} %",
+        f"Hours above {mould:.0f} % {kind}",
+        f"Hours above {wet:.0f} % {kind}",
     )
 
 
@@ -402,14 +510,15 @@ def hours_text(hours: float) -> str:
     return f"{hours:.1f}"
 
 
-def logger_day_line(day: LoggerDay, d: Display) -> str:
-    """One logger day in a line, as the app lists them."""
+def logger_day_line(day: LoggerDay, d: Display, kind: str = "RH") -> str:
+    """One logger day in a line, as the app lists them; ``kind`` says whose RH the hours
+    count (:func:`rh_kind`)."""
     mould = th.value("surface_rh_mould_limit_pct")
     wet = th.value("logger_rh_wet_pct")
     return (
         f"{day_text(day.day)}: {temperature_range_text(day, d)}, {rh_range_text(day)}, "
         f"{ratio_range_text(day, d)}; {hours_text(day.hours_above_mould_rh)} h above "
-        f"{mould:.0f} % and {hours_text(day.hours_above_wet_rh)} h above {wet:.0f} % RH "
+        f"{mould:.0f} % and {hours_text(day.hours_above_wet_rh)} h above {wet:.0f} % {kind} "
         f"({hours_text(day.hours_logged)} h logged, {day.samples} samples)."
     )
 
