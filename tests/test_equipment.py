@@ -52,8 +52,12 @@ def test_worked_case_by_hand():
     h_in   = 1.006 × 24 + 0.013096 × (2501 + 1.86 × 24)         = 24.144 + 33.338 = 57.482 kJ/kg
     h_coil = 1.006 × 13.127 + 0.0094107 × (2501 + 1.86 × 13.127) = 13.206 + 23.766 = 36.972
     h(24 °C, W_out) = 24.144 + 0.0094107 × 2545.64              = 48.100
-    Q = 0.030148 × (57.482 − 36.972) = 0.6183 kW; latent 0.030148 × (57.482 − 48.100)
-    = 0.2829 kW; sensible 0.030148 × (48.100 − 36.972) = 0.3355 kW. COP = 618.3 / 250 = 2.473.
+    Condensate leaving as liquid at the coil (ASHRAE ch. 1, cooling and dehumidifying; hw ≈
+    4.186 t kJ/kg, from memory): ΔW × hw = 0.0036855 × 4.186 × 13.127 = 0.0036855 × 54.950
+    = 0.2025 kJ/kg.
+    Q = 0.030148 × (57.482 − 36.972 − 0.2025) = 0.030148 × 20.3075 = 0.6122 kW; latent
+    0.030148 × (57.482 − 48.100 − 0.2025) = 0.2767 kW; sensible 0.030148 × (48.100 − 36.972)
+    = 0.3355 kW. COP = 612.2 / 250 = 2.449.
     """
     r = eq.check(_given())
     assert r.inlet.humidity_ratio_kg_per_kg == pytest.approx(0.013096, rel=1e-4)
@@ -66,21 +70,46 @@ def test_worked_case_by_hand():
     assert r.energy_factor_l_per_kwh == pytest.approx(1.60)
     assert r.air_mass_flow_kg_per_s == pytest.approx(0.030148, rel=1e-3)
     assert r.coil is not None and r.coil.dry_bulb_c == pytest.approx(13.127, abs=2e-3)
-    assert r.cooling_capacity_kw == pytest.approx(0.6183, rel=1e-3)
-    assert r.latent_cooling_w == pytest.approx(282.9, rel=1e-3)
+    assert r.cooling_capacity_kw == pytest.approx(0.6122, rel=1e-3)
+    assert r.latent_cooling_w == pytest.approx(276.7, rel=1e-3)
     assert r.sensible_cooling_w == pytest.approx(335.5, rel=1e-3)
     assert r.latent_cooling_w + r.sensible_cooling_w == pytest.approx(r.cooling_capacity_w)
-    assert r.cop == pytest.approx(2.473, rel=1e-3)
+    assert r.cop == pytest.approx(2.449, rel=1e-3)
     # Volume flow = ṁ × v_in, v from ASHRAE ch. 1 eqn 26 via psychrolib: 0.85952 m³/kg.
     v = psychrolib.GetMoistAirVolume(24.0, r.inlet.humidity_ratio_kg_per_kg, P)
     assert r.air_volume_flow_m3_per_h == pytest.approx(0.030148 * v * 3600.0, rel=1e-3)
 
 
-def test_latent_cooling_is_the_water_times_its_heat_of_vaporisation():
-    """Cross-check of the latent part: 1.2 kg in 3 h is 0.1111 g/s; at the 2501 kJ/kg
-    (+1.86 t) of ASHRAE eqn 30 it is 0.1111 × 2545.6 = 282.9 W (formula in the test)."""
+def test_latent_cooling_is_the_water_times_its_heat_of_condensation():
+    """Cross-check of the latent part: 1.2 kg in 3 h is 0.1111 g/s, taken in as vapour at
+    the inlet (2501 + 1.86 t kJ/kg, ASHRAE eqn 30) and leaving as liquid at the coil
+    (4.186 t_coil, ASHRAE ch. 1, from memory): 0.1111 × (2545.64 − 54.95) = 276.7 W
+    (formula in the test)."""
     r = eq.check(_given())
-    assert r.latent_cooling_w == pytest.approx(1.2 / (3 * 3600) * (2501.0 + 1.86 * 24.0) * 1000)
+    coil_c = r.coil.dry_bulb_c
+    per_kg = (2501.0 + 1.86 * 24.0 - 4.186 * coil_c) * 1000
+    assert r.latent_cooling_w == pytest.approx(1.2 / (3 * 3600) * per_kg, rel=1e-9)
+
+
+def test_the_condensate_term_is_about_one_percent():
+    """The condensate's enthalpy, ΔW · hw(T_coil), is counted: on the worked case it is
+    0.2025 of 20.51 kJ/kg, 0.99 % of the coil's enthalpy difference (hand arithmetic in
+    test_worked_case_by_hand), so Q_total = ṁ (Δh − ΔW hw)."""
+    r = eq.check(_given())
+    dh = r.inlet.enthalpy_j_per_kg - r.coil.enthalpy_j_per_kg
+    condensate = r.humidity_ratio_drop_kg_per_kg * 4186.0 * r.coil.dry_bulb_c
+    assert condensate / dh == pytest.approx(0.0099, abs=5e-4)
+    assert r.cooling_capacity_w == pytest.approx(r.air_mass_flow_kg_per_s * (dh - condensate))
+
+
+def test_liquid_water_enthalpy_against_coolprop():
+    """hw = 4.186 t kJ/kg (ASHRAE ch. 1, from memory) within 0.5 % of IAPWS-95 liquid water
+    (CoolProp PropsSI, datum the liquid at the triple point) from 1 to 40 °C."""
+    props = pytest.importorskip("CoolProp.CoolProp").PropsSI
+    datum = props("H", "T", 273.16, "P", P, "Water")
+    for t in (1.0, 5.0, 13.127, 20.0, 40.0):
+        iapws = props("H", "T", 273.15 + t, "P", P, "Water") - datum
+        assert psychro.liquid_water_enthalpy_j_per_kg(t) == pytest.approx(iapws, rel=5e-3)
 
 
 @pytest.mark.parametrize("pressure_pa", [P, psychrolib.GetStandardAtmPressure(1500.0)])
@@ -174,6 +203,43 @@ def test_a_series_is_integrated_by_trapezoids():
     assert r.air_mass_flow_kg_per_s == pytest.approx(1.2 / (mean * 3 * 3600), rel=1e-9)
     untimed = eq.check(_given(readings=tuple(dataclasses.replace(p, at_h=None) for p in pairs)))
     assert untimed.humidity_ratio_drop_kg_per_kg == pytest.approx(sum(drops) / 3, rel=1e-9)
+
+
+def test_a_series_mean_state_is_weighted_like_the_drop():
+    """Readings at 0, 0.2 and 3 h: the mean inlet and outlet dry bulb and W are trapezoid
+    time means, the same weights as the drop (trapezoid rule, formula in the test; each W
+    from psychrolib), so W_in − W_out of the mean states is the drop. A plain mean would
+    give the first two readings two thirds of the weight."""
+    pairs = (
+        AirPair(26.0, 80.0, 34.0, 30.0, 0.0),
+        AirPair(25.0, 75.0, 33.0, 30.0, 0.2),
+        AirPair(20.0, 55.0, 26.0, 40.0, 3.0),
+    )
+    r = eq.check(_given(readings=pairs))
+
+    def trapezoid(values):
+        return (0.2 * (values[0] + values[1]) / 2 + 2.8 * (values[1] + values[2]) / 2) / 3
+
+    def w(t, rh):
+        return psychrolib.GetHumRatioFromRelHum(t, rh / 100, P)
+
+    w_in = trapezoid([w(p.inlet_temp_c, p.inlet_rh_pct) for p in pairs])
+    w_out = trapezoid([w(p.outlet_temp_c, p.outlet_rh_pct) for p in pairs])
+    assert r.inlet.humidity_ratio_kg_per_kg == pytest.approx(w_in, rel=1e-9)
+    assert r.outlet.humidity_ratio_kg_per_kg == pytest.approx(w_out, rel=1e-9)
+    assert r.inlet.dry_bulb_c == pytest.approx(trapezoid([26.0, 25.0, 20.0]), rel=1e-12)
+    assert r.outlet.dry_bulb_c == pytest.approx(trapezoid([34.0, 33.0, 26.0]), rel=1e-12)
+    assert r.humidity_ratio_drop_kg_per_kg == pytest.approx(w_in - w_out, rel=1e-9)
+    assert r.coil.humidity_ratio_kg_per_kg == pytest.approx(w_out, rel=1e-9)
+
+
+def test_a_reading_after_the_run_is_refused():
+    """A reading 4 h into a 3 h run cannot be: InputError naming the reading times."""
+    pairs = (AirPair(24, 70, 33, 30, 0.0), AirPair(24, 70, 33, 30, 4.0))
+    with pytest.raises(InputError) as caught:
+        eq.check(_given(readings=pairs))
+    assert caught.value.field == "reading times"
+    eq.check(_given(readings=(AirPair(24, 70, 33, 30, 0.0), AirPair(24, 70, 33, 30, 3.0))))
 
 
 def test_series_times_must_all_be_given_and_increase():

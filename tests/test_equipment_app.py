@@ -63,7 +63,7 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
                 await pilot.press("enter")
         await pilot.pause()
         preview = str(dialog.query_one("#check-preview", Static).render())
-        assert "9.6 L/day (20.3 US pints/day)" in preview and "COP 2.5" in preview
+        assert "9.6 L/day (20.3 US pints/day)" in preview and "COP 2.4" in preview
         await pilot.press("enter")
         await _settle(pilot, app)
         assert not isinstance(app.screen, CheckDialog)

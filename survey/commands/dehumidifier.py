@@ -173,6 +173,12 @@ def gather(args: argparse.Namespace) -> Any:
     if args.water is not None:
         water, weighed = eq.read_water(args.water, "--water", system)
     hours = None if args.hours is None else eq.read_hours(args.hours, "--hours")
+    if hours is not None and args.reading_at:
+        for time, text in zip(at, args.reading_at, strict=True):
+            if time is not None and time > hours:
+                raise InputError(
+                    "--reading-at", text, f"must be within the run: at most --hours {args.hours}"
+                )
     power = None if args.power is None else eq.read_power_w(args.power, "--power")
     energy = None if args.energy is None else eq.read_energy_kwh(args.energy, "--energy")
     capacity = (

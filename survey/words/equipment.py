@@ -35,9 +35,9 @@ COOLING_BASIS = (
     "(water collected ÷ the drop × the hours), times the enthalpy of the air going in less "
     "that of air saturated at the outlet's humidity ratio (the coil state, at the outlet's "
     "dew point); latent is the part from the water taken out, sensible the cooling to the "
-    "coil. Enthalpies by ASHRAE Fundamentals 2017 ch. 1 eqn 30 (psychrolib); the "
-    "condensate's own enthalpy, about 0.2 % of it, is left out. COP: that cooling over "
-    "the unit's mean electrical power, fan included."
+    "coil, less the enthalpy the condensed water carries away as liquid at the coil "
+    "temperature (about 1 % of it). Enthalpies by ASHRAE Fundamentals 2017 ch. 1 eqn 30 "
+    "(psychrolib). COP: that cooling over the unit's mean electrical power, fan included."
 )
 
 
@@ -104,14 +104,15 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
     inlet_note = (
         " (the room's air reading, taken as the air going in)" if g.inlet_is_room_air else ""
     )
-    several = f" (mean of {len(r.states)} readings)" if len(r.states) > 1 else ""
+    timed = all(p.at_h is not None for p in g.readings)
+    mean = "time mean" if timed else "mean"
+    several = f" ({mean} of {len(r.states)} readings)" if len(r.states) > 1 else ""
     i, o = r.inlet, r.outlet
     first = (
         f"Air in{several}: {_air(d, i.dry_bulb_c, i.rh_pct, i.humidity_ratio_kg_per_kg)}"
         f"{inlet_note}; air out: "
         f"{_air(d, o.dry_bulb_c, o.rh_pct, o.humidity_ratio_kg_per_kg)}. "
-        f"The humidity ratio falls by {_drop(d, r.humidity_ratio_drop_kg_per_kg)} across "
-        f"the unit (the grain depression)."
+        + _change_text(d, r.humidity_ratio_drop_kg_per_kg)
     )
     lines = [first]
     if g.water_l is not None:
@@ -154,6 +155,13 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
             "out for it; its energy factor is the figure to compare."
         )
     return lines
+
+
+def _change_text(d: Display, drop: float) -> str:
+    """The humidity ratio's change across the unit: a fall is the grain depression."""
+    if drop < 0.0:
+        return f"The humidity ratio rises by {_drop(d, -drop)} across the unit."
+    return f"The humidity ratio falls by {_drop(d, drop)} across the unit (the grain depression)."
 
 
 def _duration_basis(source: str | None) -> str:
@@ -350,7 +358,8 @@ def summary(r: DehumidifierResult, d: Display) -> str:
     if c is not None and c.removal_of_expected is not None:
         parts.append(f"{_pct(100 * c.removal_of_expected)} of expected here")
     if not parts:
-        parts.append(f"drop {_drop(d, r.humidity_ratio_drop_kg_per_kg)}")
+        drop = r.humidity_ratio_drop_kg_per_kg
+        parts.append(f"rise {_drop(d, -drop)}" if drop < 0.0 else f"drop {_drop(d, drop)}")
     return ", ".join(parts)
 
 
