@@ -238,6 +238,25 @@ def test_bad_input_is_one_line_and_status_2(run, args, option):
     assert option in lines[0] and args[-1] in lines[0]
 
 
+def test_inconsistent_readings_print_no_absurd_number(run):
+    """--water 1000 --hours 0.01 --power 1W would give 2.4e6 L/day, EF 1e8 L/kWh and
+    2.3e7 m³/h (arithmetic in test_equipment.test_implausible_figures_are_inconsistent_readings):
+    the JSON keeps its keys as null and names the finding; the text says the readings are
+    inconsistent and prints none of those numbers."""
+    args = (*EXAMPLE[:8], "--water", "1000", "--hours", "0.01", "--power", "1W")
+    status, out, _ = run(*args, "--json")
+    assert status == 0
+    data = json.loads(out)
+    for key in (*ISSUE_KEYS - {"humidity_ratio_drop_g_per_kg", "grain_depression_gr_per_lb"},
+                "air_volume_flow_m3_per_h"):  # fmt: skip
+        assert key in data and data[key] is None, key
+    assert "readings_inconsistent" in [f["kind"] for f in data["findings"]]
+    status, out, _ = run(*args)
+    assert status == 0 and "The readings are inconsistent" in out
+    for absurd in ("2400000", "1e+08", "100000000", "2.3e+07", "23000000", "1.5e+08"):
+        assert absurd not in out, absurd
+
+
 def test_an_outlet_wetter_than_the_inlet_is_a_rise(run):
     """24 °C / 60 % in, 26 °C / 70 % out: W rises from 11.2 to 14.7 g/kg (psychrolib, ASHRAE
     ch. 1 eqn 20), so the text says the humidity ratio rises by a positive amount; no

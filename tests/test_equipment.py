@@ -423,6 +423,52 @@ def test_a_rating_without_its_condition():
     assert r.comparison.site_scale is None and r.comparison.removal_of_rated == pytest.approx(0.48)
 
 
+def test_implausible_figures_are_inconsistent_readings():
+    """1000 L in 0.01 h at 1 W: removal 1000 × 24 / 0.01 = 2.4e6 L/day (> 1000 L/day), EF
+    1000 / 1e-5 kWh = 1e8 L/kWh (> 8), dry-air flow 1000 / (0.0036855 × 36 s) = 7537 kg/s,
+    about 2.3e7 m³/h (> 3000 m³/h); limits our choice (limits_equipment). None of them is
+    given, nor the cooling and COP that follow from the flow; one finding cites the limits."""
+    r = eq.check(_given(water_l=1000.0, duration_h=0.01, power_w=1.0))
+    assert FindingKind.INCONSISTENT in r.kinds
+    assert r.removal_l_per_day is None and r.removal_pints_per_day is None
+    assert r.energy_factor_l_per_kwh is None
+    assert r.air_mass_flow_kg_per_s is None and r.air_volume_flow_m3_per_h is None
+    assert r.cooling_capacity_w is None and r.cop is None
+    (finding,) = [f for f in r.findings if f.kind is FindingKind.INCONSISTENT]
+    assert set(finding.threshold_keys) == {
+        "dehumidifier_removal_max_l_per_day",
+        "dehumidifier_energy_factor_max_l_per_kwh",
+        "dehumidifier_air_flow_max_m3_per_h",
+    }
+    assert set(finding.threshold_keys) <= set(r.threshold_keys)
+    assert r.humidity_ratio_drop_g_per_kg == pytest.approx(3.6855, rel=1e-3)  # readings kept
+
+
+def test_a_cop_beyond_the_limit_alone_is_left_out():
+    """The worked case at 60 W: COP = 612.2 / 60 = 10.2 (> 8, our choice; the flow, 0.0301
+    kg/s ≈ 93 m³/h, and EF 1.2 / 0.18 = 6.7 L/kWh stay within theirs): only the COP goes."""
+    r = eq.check(_given(power_w=60.0))
+    assert r.cop is None and r.cooling_capacity_w == pytest.approx(612.2, rel=1e-3)
+    assert r.energy_factor_l_per_kwh == pytest.approx(1.2 / 0.18)
+    (finding,) = [f for f in r.findings if f.kind is FindingKind.INCONSISTENT]
+    assert finding.threshold_keys == ("dehumidifier_cop_max",)
+
+
+def test_plausibility_limits_have_sources_and_marks():
+    """Each plausibility limit is one threshold record with a source and an honest mark
+    (our choice: no source gives these bounds)."""
+    for key, value in (
+        ("dehumidifier_removal_max_l_per_day", 1000.0),
+        ("dehumidifier_energy_factor_max_l_per_kwh", 8.0),
+        ("dehumidifier_cop_max", 8.0),
+        ("dehumidifier_air_flow_max_m3_per_h", 3000.0),
+    ):
+        t = th.get(key)
+        assert t.value == value and t.source and t.mark == "choice"
+    # The COP bound sits at the Carnot COP of a 5 °C coil and a 40 °C condenser (computed).
+    assert th.value("dehumidifier_cop_max") == pytest.approx(278.15 / 35.0, abs=0.1)
+
+
 @pytest.mark.parametrize(
     ("changes", "field"),
     [

@@ -126,6 +126,9 @@ class FindingKind(enum.Enum):
     """What the check found; its words are :mod:`survey.words.equipment`'s."""
 
     NOT_RUNNING = "not_running"
+    #: a derived figure beyond what any room unit can give (its limits' keys name which);
+    #: that figure, and those that follow from it, are left out
+    INCONSISTENT = "readings_inconsistent"
     COIL_FROST = "coil_frost"  #: refrigerant unit, inlet below the coil-frost limit
     TOO_COLD = "too_cold_for_refrigerant"  #: refrigerant unit, inlet below its lowest room temp
     OUTLET_WETTER = "outlet_wetter"  #: W rises across the unit beyond the readings' resolution
@@ -286,6 +289,15 @@ def _mean_state(
     return psychro.state_from_humidity_ratio(temp, w, pressure_pa)
 
 
+def _plausible(value: float | None, key: str, beyond: list[str]) -> float | None:
+    """``value``, or None (its limit's key added to ``beyond``) when it exceeds the highest
+    figure a room dehumidifier can give: such a figure says the readings disagree."""
+    if value is not None and value > th.value(key):
+        beyond.append(key)
+        return None
+    return value
+
+
 def _ratio(a: float | None, b: float | None) -> float | None:
     return None if a is None or not b else a / b
 
@@ -341,13 +353,15 @@ def _findings(
     inlet: MoistAir,
     outlet: MoistAir,
     drop: float,
-    removal: float | None,
     energy: float | None,
     comparison: RatingComparison | None,
+    beyond: tuple[str, ...],
 ) -> tuple[Finding, ...]:
     found: list[Finding] = []
     if not given.running:
         found.append(Finding(FindingKind.NOT_RUNNING))
+    if beyond:
+        found.append(Finding(FindingKind.INCONSISTENT, beyond))
     if given.kind == "refrigerant":
         if inlet.dry_bulb_c < th.value("refrigerant_coil_frost_inlet_c"):
             found.append(Finding(FindingKind.COIL_FROST, ("refrigerant_coil_frost_inlet_c",)))
@@ -413,6 +427,12 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
     if water_kg and integral is not None and drop >= resolution:
         flow = water_kg / (integral * 3600.0)
         volume = flow * inlet.specific_volume_m3_per_kg * 3600.0
+    beyond: list[str] = []
+    removal = _plausible(removal, "dehumidifier_removal_max_l_per_day", beyond)
+    ef = _plausible(ef, "dehumidifier_energy_factor_max_l_per_kwh", beyond)
+    volume = _plausible(volume, "dehumidifier_air_flow_max_m3_per_h", beyond)
+    if volume is None:
+        flow = None
     coil = total = sensible = latent = cop = None
     if given.kind == "refrigerant" and drop >= resolution:
         w_out = outlet.humidity_ratio_kg_per_kg
@@ -424,7 +444,7 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
             total = flow * (inlet.enthalpy_j_per_kg - coil.enthalpy_j_per_kg - condensate)
             latent = flow * (inlet.enthalpy_j_per_kg - dried.enthalpy_j_per_kg - condensate)
             sensible = flow * (dried.enthalpy_j_per_kg - coil.enthalpy_j_per_kg)
-            cop = None if not power else total / power
+            cop = _plausible(None if not power else total / power, "dehumidifier_cop_max", beyond)
     comparison = _compare(given, inlet, removal, ef)
     return DehumidifierResult(
         given=given,
@@ -446,5 +466,5 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
         latent_cooling_w=latent,
         cop=cop,
         comparison=comparison,
-        findings=_findings(given, inlet, outlet, drop, removal, energy, comparison),
+        findings=_findings(given, inlet, outlet, drop, energy, comparison, tuple(beyond)),
     )

@@ -122,12 +122,13 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
             else ""
         )
         text = f"Water collected: {_amount(d, g.water_l, weighed)}"
-        if r.removal_l_per_day is not None and g.duration_h is not None:
-            basis = _duration_basis(g.duration_source)
-            text += f" in {g.duration_h:.1f} h{basis}: {_rate(d, r.removal_l_per_day)}"
+        if g.duration_h is not None:
+            text += f" in {_small(g.duration_h, 1)} h{_duration_basis(g.duration_source)}"
+            if r.removal_l_per_day is not None:
+                text += f": {_rate(d, r.removal_l_per_day)}"
         lines.append(text + ".")
     if r.energy_kwh is not None and r.mean_power_w is not None:
-        text = f"Energy used: {r.energy_kwh:.2f} kWh ({r.mean_power_w:.0f} W on average)"
+        text = f"Energy used: {_small(r.energy_kwh, 2)} kWh ({r.mean_power_w:.0f} W on average)"
         if r.energy_factor_l_per_kwh is not None:
             text += f": an energy factor of {r.energy_factor_l_per_kwh:.2f} L/kWh"
         lines.append(text + ".")
@@ -162,6 +163,13 @@ def _change_text(d: Display, drop: float) -> str:
     if drop < 0.0:
         return f"The humidity ratio rises by {_drop(d, -drop)} across the unit."
     return f"The humidity ratio falls by {_drop(d, drop)} across the unit (the grain depression)."
+
+
+def _small(value: float, places: int) -> str:
+    """A number to ``places`` decimals, or to two significant figures when that would show
+    it as 0 (0.01 h, 0.00001 kWh)."""
+    text = f"{value:.{places}f}"
+    return f"{value:.2g}" if value and float(text) == 0.0 else text
 
 
 def _duration_basis(source: str | None) -> str:
@@ -257,6 +265,8 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
             "The unit was recorded as not running: readings across it say nothing of how "
             "it performs."
         )
+    if kind is FindingKind.INCONSISTENT:
+        return _inconsistent_text(r, d)
     if kind is FindingKind.COIL_FROST:
         limit = d.temperature(th.value("refrigerant_coil_frost_inlet_c"))
         return (
@@ -339,6 +349,45 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
     return ""
 
 
+#: What each plausibility limit bounds, as a phrase before its value.
+_BEYOND = {
+    "dehumidifier_removal_max_l_per_day": "a removal rate above",
+    "dehumidifier_energy_factor_max_l_per_kwh": "an energy factor above",
+    "dehumidifier_air_flow_max_m3_per_h": "an air flow through the unit above",
+    "dehumidifier_cop_max": "a COP above",
+}
+
+
+def _limit_shown(key: str, d: Display) -> str:
+    value = th.value(key)
+    if key == "dehumidifier_removal_max_l_per_day":
+        return _rate(d, value)
+    if key == "dehumidifier_air_flow_max_m3_per_h":
+        return d("airflow", value)
+    if key == "dehumidifier_energy_factor_max_l_per_kwh":
+        return f"{value:g} L/kWh"
+    return f"{value:g}"
+
+
+def _listed(parts: list[str]) -> str:
+    """'a', 'a and b', 'a, b and c'."""
+    return parts[0] if len(parts) == 1 else ", ".join(parts[:-1]) + " and " + parts[-1]
+
+
+def _inconsistent_text(r: DehumidifierResult, d: Display) -> str:
+    """The readings are inconsistent: which figures would pass what a room unit can give."""
+    keys = next(f.threshold_keys for f in r.findings if f.kind is FindingKind.INCONSISTENT)
+    parts = [f"{_BEYOND[k]} {_limit_shown(k, d)}" for k in keys if k in _BEYOND]
+    return (
+        "The readings are inconsistent: together they give "
+        + _listed(parts)
+        + ", more than a room dehumidifier can do, so "
+        + ("that figure is" if len(parts) == 1 else "those figures are")
+        + " left out. Check the water collected, the hours it was collected over, the power "
+        "or energy, and the air readings in and out of the unit."
+    )
+
+
 def finding_lines(r: DehumidifierResult, d: Display) -> list[str]:
     return [text for f in r.findings if (text := finding_text(f.kind, r, d))]
 
@@ -405,6 +454,7 @@ NOT_CHECKED = "not checked: a reading is missing"
 #: Each finding in a few words, for a table cell.
 FINDING_SHORT = {
     FindingKind.NOT_RUNNING: "not running",
+    FindingKind.INCONSISTENT: "the readings are inconsistent",
     FindingKind.COIL_FROST: "coil frosts: too cold",
     FindingKind.TOO_COLD: "cold for a refrigerant unit",
     FindingKind.OUTLET_WETTER: "outlet wetter than inlet",
