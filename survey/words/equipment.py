@@ -376,7 +376,8 @@ def _listed(parts: list[str]) -> str:
 
 def _inconsistent_text(r: DehumidifierResult, d: Display) -> str:
     """The readings are inconsistent: which figures would pass what a room unit can give."""
-    keys = next(f.threshold_keys for f in r.findings if f.kind is FindingKind.INCONSISTENT)
+    found = (f.threshold_keys for f in r.findings if f.kind is FindingKind.INCONSISTENT)
+    keys = next(found, tuple(_BEYOND))
     parts = [f"{_BEYOND[k]} {_limit_shown(k, d)}" for k in keys if k in _BEYOND]
     return (
         "The readings are inconsistent: together they give "
