@@ -74,6 +74,13 @@ ReadQuantity = Literal[
     "length",
     "volume",
     "area",
+    "water_volume",
+    "water_mass",
+    "power",
+    "energy",
+    "duration",
+    "water_rate",
+    "energy_factor",
     "number",
 ]
 
@@ -127,6 +134,23 @@ _VOLUME_ALIASES = {"m3": "m**3", "m^3": "m**3", "m³": "m**3", "cu m": "m**3",
 _AREA_ALIASES = {"m2": "m**2", "m^2": "m**2", "m²": "m**2", "sq m": "m**2", "sqm": "m**2",
                  "ft2": "ft**2", "ft^2": "ft**2", "ft²": "ft**2", "sq ft": "ft**2",
                  "sqft": "ft**2", "cm2": "cm**2", "cm²": "cm**2"}
+# Amounts of a dehumidifier check: water collected, power, energy, run time, water rate.
+_WATER_VOLUME_ALIASES = {"l": "L", "litre": "L", "litres": "L", "liter": "L", "liters": "L",
+                         "ml": "mL", "pt": "pint", "pint": "pint", "pints": "pint",
+                         "gal": "gallon", "gallon": "gallon", "gallons": "gallon"}
+_WATER_MASS_ALIASES = {"kg": "kg", "g": "g", "lb": "lb", "lbs": "lb", "pound": "lb",
+                       "pounds": "lb"}
+_POWER_ALIASES = {"w": "W", "watt": "W", "watts": "W", "kw": "kW", "btu/h": "Btu/hour",
+                  "btu/hr": "Btu/hour"}
+_ENERGY_ALIASES = {"kwh": "kWh", "wh": "Wh"}
+_DURATION_ALIASES = {"h": "hour", "hr": "hour", "hrs": "hour", "hour": "hour",
+                     "hours": "hour", "min": "minute", "mins": "minute", "minute": "minute",
+                     "minutes": "minute", "d": "day", "day": "day", "days": "day"}
+_WATER_RATE_ALIASES = {f"{volume}/{per}": f"{name}/day"
+                       for volume, name in (("l", "L"), ("pt", "pint"), ("pint", "pint"),
+                                            ("pints", "pint"))
+                       for per in ("day", "d", "24h")}
+_ENERGY_FACTOR_ALIASES = {"l/kwh": "L/kWh"}
 # fmt: on
 _RH_UNITS = frozenset({"", "%", "percent", "pct", "% rh", "%rh", "rh"})
 _DEGREE_SIGNS = ("°", "º", "deg")
@@ -141,6 +165,15 @@ _ACCEPTED: dict[ReadQuantity, str] = {
     "length": "a number in m (SI) or ft (IP), or with a unit: 350 m, 1150 ft",
     "volume": "a number in m³ (SI) or ft³ (IP), or with a unit: 30, 30 m3, 1060 ft3",
     "area": "a number in m² (SI) or ft² (IP), or with a unit: 0.6, 0.6 m2, 6 sq ft",
+    "water_volume": "a number in L (SI) or US pints (IP), or with a unit: 11 L, 1200 mL, "
+    "2.5 pt, 0.5 gal",
+    "water_mass": "a number in kg (SI) or lb (IP), or with a unit: 1.2 kg, 2.6 lb",
+    "power": "a number of watts, or with a unit: 540, 540 W, 0.54 kW, 1840 Btu/h",
+    "energy": "a number of kWh, or with a unit: 12.9, 12.9 kWh, 750 Wh",
+    "duration": "a number of hours, or with a unit: 3, 3 h, 180 min, 2 days",
+    "water_rate": "a number in L/day (SI) or US pints/day (IP), or with a unit: 20 L/day, "
+    "42 pints/day",
+    "energy_factor": "a number of L/kWh, or with its unit: 1.8, 1.8 L/kWh",
     "number": "a number such as 3, 2.5 or 2,5",
 }
 _KIND_WORDS: dict[ReadQuantity, str] = {
@@ -151,6 +184,13 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
     "length": "length",
     "volume": "volume",
     "area": "area",
+    "water_volume": "volume of water",
+    "water_mass": "mass of water",
+    "power": "power",
+    "energy": "energy",
+    "duration": "time",
+    "water_rate": "water rate",
+    "energy_factor": "energy factor",
     "number": "number",
 }
 # What a value is said to be "read as", in the unit the range limits are written in:
@@ -159,7 +199,10 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
 _READ_AS_UNIT: dict[ReadQuantity, tuple[str, float]] = {
     "temperature": ("°C", 1.0), "temperature_difference": ("K", 1.0),
     "relative_humidity": ("%", 1.0), "pressure": ("hPa", 0.01), "length": ("m", 1.0),
-    "volume": ("m³", 1.0), "area": ("m²", 1.0), "number": ("", 1.0),
+    "volume": ("m³", 1.0), "area": ("m²", 1.0), "water_volume": ("L", 1.0),
+    "water_mass": ("kg", 1.0), "power": ("W", 1.0), "energy": ("kWh", 1.0),
+    "duration": ("h", 1.0), "water_rate": ("L/day", 1.0), "energy_factor": ("L/kWh", 1.0),
+    "number": ("", 1.0),
 }
 # fmt: on
 
@@ -386,6 +429,37 @@ def _area(number: float, unit: str, field: str, text: object, system: str) -> fl
     return _convert(number, unit, "m**2", field, text, "area", _AREA_ALIASES)
 
 
+#: Quantities that are a number times a unit: the core's unit (a pint name), a bare number's
+#: factor to it in SI and in IP (exact definitions: 1 US pint = 0.473176473 L, 1 lb =
+#: 0.45359237 kg; NIST), and the unit texts accepted.
+# fmt: off
+_SCALED: dict[ReadQuantity, tuple[str, float, float, dict[str, str]]] = {
+    "water_volume": ("L", 1.0, 0.473176473, _WATER_VOLUME_ALIASES),
+    "water_mass": ("kg", 1.0, 0.45359237, _WATER_MASS_ALIASES),
+    "power": ("W", 1.0, 1.0, _POWER_ALIASES),
+    "energy": ("kWh", 1.0, 1.0, _ENERGY_ALIASES),
+    "duration": ("hour", 1.0, 1.0, _DURATION_ALIASES),
+    "water_rate": ("L/day", 1.0, 0.473176473, _WATER_RATE_ALIASES),
+    "energy_factor": ("L/kWh", 1.0, 1.0, _ENERGY_FACTOR_ALIASES),
+}
+# fmt: on
+
+
+def _scaled(quantity: ReadQuantity) -> Callable[[float, str, str, object, str], float]:
+    """The reader of a :data:`_SCALED` quantity; a unit may be typed with or without
+    spaces (``20 L / day``)."""
+    target, si, ip, aliases = _SCALED[quantity]
+
+    def reader(number: float, unit: str, field: str, text: object, system: str) -> float:
+        if not unit:
+            return number * (si if system == "si" else ip)
+        squeezed = "".join(unit.split())
+        typed = squeezed if squeezed.lower() in aliases else unit
+        return _convert(number, typed, target, field, text, quantity, aliases)
+
+    return reader
+
+
 def _plain(number: float, unit: str, field: str, text: object, system: str) -> float:
     if unit:
         raise InputError(field, text, f"expected {_ACCEPTED['number']} with no unit")
@@ -400,13 +474,15 @@ _READERS: dict[ReadQuantity, Callable[[float, str, str, object, str], float]] = 
     "length": _length,
     "volume": _volume,
     "area": _area,
+    **{quantity: _scaled(quantity) for quantity in _SCALED},
     "number": _plain,
 }
 
 
 def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = "si") -> Reading:
     """Read ``text`` as ``quantity`` (a bare number in ``system``'s unit): a :class:`Reading`
-    with the value in the core's SI unit (°C, K, %, Pa, m, m³, m²) and what it was read as.
+    with the value in the core's SI unit (°C, K, %, Pa, m, m³, m²; L, kg, W, kWh, h, L/day
+    and L/kWh for a dehumidifier's amounts) and what it was read as.
 
     Raises InputError naming ``field``, the text and what is accepted; ranges are not
     checked here (see :meth:`Reading.checked`)."""
@@ -416,6 +492,27 @@ def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = 
     if not math.isfinite(value):
         raise _refuse(field, text, quantity, "too large to compute with")
     return Reading(quantity, field, text, value, number)
+
+
+def read_any(
+    quantities: tuple[ReadQuantity, ...], text: object, field: str, system: UnitSystem = "si"
+) -> Reading:
+    """Read ``text`` as the first of ``quantities`` whose units hold the unit typed (a bare
+    number: the first); its :attr:`Reading.quantity` says which. ``1.2 kg`` and ``11 L``
+    are both water collected, ``540 W`` and ``12.9 kWh`` what a unit used."""
+    _check_system(system)
+    _, unit = _split(text, field, quantities[0])
+    if unit:
+        typed = {" ".join(unit.lower().split()), "".join(unit.lower().split())}
+        for quantity in quantities:
+            if quantity in _SCALED and typed & set(_SCALED[quantity][3]):
+                return read(quantity, text, field, system)
+        words = " or ".join(_KIND_WORDS[q] for q in quantities)
+        accepted = "; or ".join(_ACCEPTED[q] for q in quantities)
+        raise InputError(
+            field, text, f"unit {shorten(unit, 40)!r} is not a {words} unit; expected {accepted}"
+        )
+    return read(quantities[0], text, field, system)
 
 
 def parse_temperature(text: object, field: str = "temperature", system: UnitSystem = "si") -> float:

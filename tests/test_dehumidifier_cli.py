@@ -304,12 +304,26 @@ def test_rating_keys_are_the_file_models():
     assert typing.get_args(model.RatingCondition) == RATING_KEYS
 
 
+#: EXAMPLE with bare numbers (1.2 kg of water is 1.2 L at 1 kg/L; 250 W; 3 h).
+BARE = (*EXAMPLE[:8], "--water", "1.2", "--hours", "3", "--power", "250")
+
+
+def test_bare_numbers_give_the_same_result(run):
+    """EXAMPLE with bare numbers (1.2 L, 3 h, 250 W) gives its numbers (the 1.2 kg weighed
+    are 1.2 L at 1 kg/L, our choice)."""
+    _, out, _ = run(*EXAMPLE, "--json")
+    _, bare, _ = run(*BARE, "--json")
+    for key in ISSUE_KEYS:
+        assert json.loads(bare)[key] == pytest.approx(json.loads(out)[key], rel=1e-12), key
+
+
 def test_json_path_loads_neither_pint_nor_rich():
-    """`survey check-dehumidifier --json` with its amounts starts without pint or Rich."""
+    """`survey check-dehumidifier --json` with bare numbers starts without pint or Rich (as
+    `survey check` does; a typed unit loads pint, which converts it)."""
     code = (
         "import contextlib, io, sys\nfrom survey.cli import main\n"
         "with contextlib.redirect_stdout(io.StringIO()):\n"
-        f"    main(['check-dehumidifier', *{list(EXAMPLE)!r}, '--json'])\n"
+        f"    main(['check-dehumidifier', *{list(BARE)!r}, '--json'])\n"
         "print('\\n'.join(sys.modules))"
     )
     result = subprocess.run(

@@ -524,6 +524,20 @@ def test_other_amounts():
     assert eq.read_energy_factor("1.8 L/kWh", "f") == 1.8
 
 
+def test_amounts_are_read_by_the_units_module():
+    """The amounts take every unit survey.units.read knows (pint converts): 1000 Btu/h =
+    293.07 W (IT Btu, NIST SP 811), 2 days = 48 h, '20 L / day' with spaces, 0.5 gal =
+    1.8927 L (NIST); a value beyond the file's bound says what it was read as."""
+    assert eq.read_power_w("1000 Btu/h", "p") == pytest.approx(293.07107, rel=1e-6)
+    assert eq.read_power_or_energy("1000 Btu/h", "p") == (pytest.approx(293.07107), None)
+    assert eq.read_power_or_energy("750 Wh", "p") == (None, pytest.approx(0.75))
+    assert eq.read_hours("2 days", "h") == pytest.approx(48.0)
+    assert eq.read_capacity("20 L / day", "c") == 20.0
+    with pytest.raises(InputError) as caught:
+        eq.read_hours("1000 days", "--hours")  # 24 000 h, beyond the file's 10 000 h
+    assert caught.value.read_as == "24000 h"
+
+
 @pytest.mark.parametrize(
     ("read", "text"),
     [

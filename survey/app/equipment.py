@@ -24,6 +24,7 @@ from survey import model, units
 from survey.app import walk
 from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
+from survey.equipment import read_power_or_energy
 from survey.errors import InputError
 
 KINDS = (
@@ -208,13 +209,6 @@ def read_air(text: str, name: str, system: str) -> tuple[float, float]:
             raise InputError(name, text, exc.allowed) from None
         return temp, rh
     raise InputError(name, text, allowed)
-
-
-def read_power_or_energy(text: str, name: str) -> tuple[float | None, float | None]:
-    """'540W', '0.54 kW' or a bare number of watts: a power; '12.9kWh', '750 Wh': an energy."""
-    if text.strip().lower().replace(" ", "").endswith("wh"):
-        return None, eq.read_energy_kwh(text, name)
-    return eq.read_power_w(text, name), None
 
 
 class CheckDialog(PromptDialog):

@@ -11,8 +11,8 @@ Several ``--inlet-temp … --outlet-rh`` sets (each option repeated, in the same
 series of readings over the run; ``--reading-at`` gives each one's hours into the run.
 
 Start-up stays light: the parser imports nothing of the core; the handler loads the
-equipment check and its words, and never pint (units are read by the equipment module's own
-small tables) nor Rich (the text output is plain lines).
+equipment check and its words, never Rich (the text output is plain lines), and pint only
+when a value is typed with its unit (:func:`survey.units.read`; bare numbers never touch it).
 """
 
 from __future__ import annotations
@@ -33,7 +33,7 @@ DESCRIPTION = (
     "temperature is read in the unit system chosen (°C for si, °F for ip), or give a unit "
     "(70F, 21 °C). Water takes L, mL, pt, gal, kg, g or lb (a bare number is L in si, US "
     "pints in ip); power W or kW; energy kWh or Wh; hours h or min; a rated capacity "
-    "L/day or pints/day."
+    "L/day or pints/day. Bare numbers never load the unit library, so they start fastest."
 )
 
 

@@ -55,13 +55,15 @@ water with no duration, no water, no power, no rating condition, removal well be
 above what the site air allows.
 
 Modules: :mod:`~survey.equipment.performance` (the check), :mod:`~survey.equipment.stored`
-(stored visits), :mod:`~survey.equipment.amounts` (typed amounts).
+(stored visits), :mod:`~survey.equipment.amounts` (typed amounts, read by
+:func:`survey.units.read` and checked against the file's bounds).
 
 A stored visit is judged by :func:`judge_visit` (the inlet is the unit's inlet reading or
 the room's air; the duration its run hours, else the time since the previous reading of
 the same unit, matched by label in the same room; power from its power or energy).
 The ``read_*`` helpers turn typed amounts (``1.2kg``, ``250W``, ``20L/day``, ``42 pt/day``)
-into SI numbers for the faces.
+into SI numbers for the faces, through :func:`survey.units.read` (pint only for a typed
+unit).
 """
 
 from survey.equipment.amounts import (
@@ -69,6 +71,7 @@ from survey.equipment.amounts import (
     read_energy_factor,
     read_energy_kwh,
     read_hours,
+    read_power_or_energy,
     read_power_w,
     read_water,
 )
@@ -127,6 +130,7 @@ __all__ = [
     "read_energy_factor",
     "read_energy_kwh",
     "read_hours",
+    "read_power_or_energy",
     "read_power_w",
     "read_water",
     "site_scale",
