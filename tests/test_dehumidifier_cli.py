@@ -206,6 +206,33 @@ def test_text_output(run):
     assert "A rating is the water removed in 24 h" in out
 
 
+def test_the_text_frame_comes_from_the_words_module(run):
+    """The heading and the section titles the command prints are survey.words.equipment's
+    (one voice for the command, the app and the report)."""
+    from survey.words import equipment as we
+
+    status, out, _ = run(*EXAMPLE, "--rated-capacity", "20L/day")
+    assert status == 0
+    given = eq.DehumidifierInput((eq.AirPair(24, 70, 33, 30),), water_l=1.2, duration_h=3.0)
+    assert out.splitlines()[0] == we.check_title(eq.check(given))
+    for key in ("measured", "rating", "found", "safety", "limits"):
+        assert f"\n{we.CHECK_SECTIONS[key]}:\n" in out, key
+
+
+def test_no_sentence_is_built_in_the_faces():
+    """The command's and the app's dehumidifier sentences live in survey.words.equipment:
+    neither face's source spells them out."""
+    from survey.words import equipment as we
+
+    faces = [
+        ROOT / "survey" / "commands" / "dehumidifier.py",
+        ROOT / "survey" / "app" / "equipment.py",
+    ]
+    sources = "".join(path.read_text(encoding="utf-8") for path in faces)
+    for sentence in ("Dehumidifier check (", we.NO_AIR_YET, we.CHECK_FOLLOWS, "Not yet:"):
+        assert sentence not in sources, sentence
+
+
 @pytest.mark.parametrize(
     ("args", "option"),
     [

@@ -155,11 +155,9 @@ def dialog(
 
         screen.app.push_screen(check_dialog, saved)
 
-    note = (
-        "For a dehumidifier, its performance check (air in and out, hours, power, rating) follows."
-        if screen is not None
-        else ""
-    )
+    from survey.words import equipment as we
+
+    note = we.CHECK_FOLLOWS if screen is not None else ""
     return PromptDialog(title, fields, check, note), answered
 
 
@@ -324,12 +322,12 @@ class CheckDialog(PromptDialog):
         try:
             record = self.build(values)
         except InputError as exc:
-            preview.update(plain(f"Not yet: {exc}"))
+            preview.update(plain(we.not_yet_text(exc)))
             return
         unit = _judged(self.room_screen, self.index, record)
         d = self.app.display_units
         if unit is None:
-            preview.update(plain("Give the room's air reading, or the air going in."))
+            preview.update(plain(we.NO_AIR_YET))
         elif unit.result is None:
             preview.update(plain(we.missing_text(unit)))
         else:

@@ -303,23 +303,24 @@ def render(result: Any, d: Any) -> None:
     from survey.words import equipment as we
 
     r = result
-    print(f"Dehumidifier check ({r.given.kind} unit)")
+    titles = we.CHECK_SECTIONS
+    print(we.check_title(r))
     print(f"  {we.summary(r, d)}")
     sections = (
-        ("Measured", we.measured_lines(r, d)),
-        ("Against its rating", we.comparison_lines(r, d)),
-        ("Found", we.finding_lines(r, d)),
-        ("Note", [text] if (text := we.rating_caution(r, d)) else []),
-        ("Safety", we.safety_lines(d)),
+        ("measured", we.measured_lines(r, d)),
+        ("rating", we.comparison_lines(r, d)),
+        ("found", we.finding_lines(r, d)),
+        ("note", [text] if (text := we.rating_caution(r, d)) else []),
+        ("safety", we.safety_lines(d)),
     )
-    for title, lines in sections:
+    for key, lines in sections:
         if lines:
-            print(f"\n{title}:")
+            print(f"\n{titles[key]}:")
             for line in lines:
                 print(f"- {line}")
     limits = th.cited(r.threshold_keys)
     if limits:
-        print("\nLimits used:")
+        print(f"\n{titles['limits']}:")
         for t in limits:
             print(f"- {words.client_citation(t, d)}")
         for line in words.legend(limits):

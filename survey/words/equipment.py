@@ -439,6 +439,36 @@ def unit_lines(r: DehumidifierResult, d: Display) -> list[str]:
     ]
 
 
+# --- the command's and the app's frame --------------------------------------------------------
+
+
+def check_title(r: DehumidifierResult) -> str:
+    """The heading of one unit's check: 'Dehumidifier check (refrigerant unit)'."""
+    return f"Dehumidifier check ({r.given.kind} unit)"
+
+
+#: The sections of a check as the command prints them, in order.
+CHECK_SECTIONS = {
+    "measured": "Measured",
+    "rating": "Against its rating",
+    "found": "Found",
+    "note": "Note",
+    "safety": "Safety",
+    "limits": "Limits used",
+}
+#: The app's check dialog when the unit cannot be judged yet.
+NO_AIR_YET = "Give the room's air reading, or the air going in."
+#: The equipment dialog's note: a dehumidifier's check follows it.
+CHECK_FOLLOWS = (
+    "For a dehumidifier, its performance check (air in and out, hours, power, rating) follows."
+)
+
+
+def not_yet_text(problem: object) -> str:
+    """The check dialog's preview while a field is not yet readable."""
+    return f"Not yet: {problem}"
+
+
 # --- the report's table ----------------------------------------------------------------------
 
 REPORT_HEADING = "Dehumidifier performance"
