@@ -13,6 +13,9 @@ becomes those floats and floats become text again.
   what is accepted.
 
 Relative humidity is a percentage (``65``, ``65 %``, ``65%``), the same in both systems.
+A dehumidifier check's amounts (water as a volume or a mass, power, energy, run time, water
+rate, energy factor; their unit texts in :mod:`survey.unit_amounts`) are read the same way;
+:func:`read_any` takes whichever of several quantities the typed unit belongs to.
 
 Numbers as people type them, and only those
 -------------------------------------------
@@ -54,8 +57,9 @@ import unicodedata
 from collections.abc import Callable
 from dataclasses import dataclass
 from functools import cache, lru_cache
-from typing import TYPE_CHECKING, Literal
+from typing import TYPE_CHECKING, Literal, get_args
 
+from survey import unit_amounts
 from survey.errors import InputError
 from survey.safe_text import shorten
 
@@ -134,23 +138,6 @@ _VOLUME_ALIASES = {"m3": "m**3", "m^3": "m**3", "m³": "m**3", "cu m": "m**3",
 _AREA_ALIASES = {"m2": "m**2", "m^2": "m**2", "m²": "m**2", "sq m": "m**2", "sqm": "m**2",
                  "ft2": "ft**2", "ft^2": "ft**2", "ft²": "ft**2", "sq ft": "ft**2",
                  "sqft": "ft**2", "cm2": "cm**2", "cm²": "cm**2"}
-# Amounts of a dehumidifier check: water collected, power, energy, run time, water rate.
-_WATER_VOLUME_ALIASES = {"l": "L", "litre": "L", "litres": "L", "liter": "L", "liters": "L",
-                         "ml": "mL", "pt": "pint", "pint": "pint", "pints": "pint",
-                         "gal": "gallon", "gallon": "gallon", "gallons": "gallon"}
-_WATER_MASS_ALIASES = {"kg": "kg", "g": "g", "lb": "lb", "lbs": "lb", "pound": "lb",
-                       "pounds": "lb"}
-_POWER_ALIASES = {"w": "W", "watt": "W", "watts": "W", "kw": "kW", "btu/h": "Btu/hour",
-                  "btu/hr": "Btu/hour"}
-_ENERGY_ALIASES = {"kwh": "kWh", "wh": "Wh"}
-_DURATION_ALIASES = {"h": "hour", "hr": "hour", "hrs": "hour", "hour": "hour",
-                     "hours": "hour", "min": "minute", "mins": "minute", "minute": "minute",
-                     "minutes": "minute", "d": "day", "day": "day", "days": "day"}
-_WATER_RATE_ALIASES = {f"{volume}/{per}": f"{name}/day"
-                       for volume, name in (("l", "L"), ("pt", "pint"), ("pint", "pint"),
-                                            ("pints", "pint"))
-                       for per in ("day", "d", "24h")}
-_ENERGY_FACTOR_ALIASES = {"l/kwh": "L/kWh"}
 # fmt: on
 _RH_UNITS = frozenset({"", "%", "percent", "pct", "% rh", "%rh", "rh"})
 _DEGREE_SIGNS = ("°", "º", "deg")
@@ -165,15 +152,6 @@ _ACCEPTED: dict[ReadQuantity, str] = {
     "length": "a number in m (SI) or ft (IP), or with a unit: 350 m, 1150 ft",
     "volume": "a number in m³ (SI) or ft³ (IP), or with a unit: 30, 30 m3, 1060 ft3",
     "area": "a number in m² (SI) or ft² (IP), or with a unit: 0.6, 0.6 m2, 6 sq ft",
-    "water_volume": "a number in L (SI) or US pints (IP), or with a unit: 11 L, 1200 mL, "
-    "2.5 pt, 0.5 gal",
-    "water_mass": "a number in kg (SI) or lb (IP), or with a unit: 1.2 kg, 2.6 lb",
-    "power": "a number of watts, or with a unit: 540, 540 W, 0.54 kW, 1840 Btu/h",
-    "energy": "a number of kWh, or with a unit: 12.9, 12.9 kWh, 750 Wh",
-    "duration": "a number of hours, or with a unit: 3, 3 h, 180 min, 2 days",
-    "water_rate": "a number in L/day (SI) or US pints/day (IP), or with a unit: 20 L/day, "
-    "42 pints/day",
-    "energy_factor": "a number of L/kWh, or with its unit: 1.8, 1.8 L/kWh",
     "number": "a number such as 3, 2.5 or 2,5",
 }
 _KIND_WORDS: dict[ReadQuantity, str] = {
@@ -184,13 +162,6 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
     "length": "length",
     "volume": "volume",
     "area": "area",
-    "water_volume": "volume of water",
-    "water_mass": "mass of water",
-    "power": "power",
-    "energy": "energy",
-    "duration": "time",
-    "water_rate": "water rate",
-    "energy_factor": "energy factor",
     "number": "number",
 }
 # What a value is said to be "read as", in the unit the range limits are written in:
@@ -199,10 +170,7 @@ _KIND_WORDS: dict[ReadQuantity, str] = {
 _READ_AS_UNIT: dict[ReadQuantity, tuple[str, float]] = {
     "temperature": ("°C", 1.0), "temperature_difference": ("K", 1.0),
     "relative_humidity": ("%", 1.0), "pressure": ("hPa", 0.01), "length": ("m", 1.0),
-    "volume": ("m³", 1.0), "area": ("m²", 1.0), "water_volume": ("L", 1.0),
-    "water_mass": ("kg", 1.0), "power": ("W", 1.0), "energy": ("kWh", 1.0),
-    "duration": ("h", 1.0), "water_rate": ("L/day", 1.0), "energy_factor": ("L/kWh", 1.0),
-    "number": ("", 1.0),
+    "volume": ("m³", 1.0), "area": ("m²", 1.0), "number": ("", 1.0),
 }
 # fmt: on
 
@@ -429,26 +397,19 @@ def _area(number: float, unit: str, field: str, text: object, system: str) -> fl
     return _convert(number, unit, "m**2", field, text, "area", _AREA_ALIASES)
 
 
-#: Quantities that are a number times a unit: the core's unit (a pint name), a bare number's
-#: factor to it in SI and in IP (exact definitions: 1 US pint = 0.473176473 L, 1 lb =
-#: 0.45359237 kg; NIST), and the unit texts accepted.
-# fmt: off
-_SCALED: dict[ReadQuantity, tuple[str, float, float, dict[str, str]]] = {
-    "water_volume": ("L", 1.0, 0.473176473, _WATER_VOLUME_ALIASES),
-    "water_mass": ("kg", 1.0, 0.45359237, _WATER_MASS_ALIASES),
-    "power": ("W", 1.0, 1.0, _POWER_ALIASES),
-    "energy": ("kWh", 1.0, 1.0, _ENERGY_ALIASES),
-    "duration": ("hour", 1.0, 1.0, _DURATION_ALIASES),
-    "water_rate": ("L/day", 1.0, 0.473176473, _WATER_RATE_ALIASES),
-    "energy_factor": ("L/kWh", 1.0, 1.0, _ENERGY_FACTOR_ALIASES),
+#: The dehumidifier check's amounts (:mod:`survey.unit_amounts`): a number times a unit.
+_SCALED: dict[ReadQuantity, unit_amounts.Amount] = {
+    q: unit_amounts.AMOUNTS[q] for q in get_args(ReadQuantity) if q in unit_amounts.AMOUNTS
 }
-# fmt: on
+_ACCEPTED.update({q: amount.accepted for q, amount in _SCALED.items()})
+_KIND_WORDS.update({q: amount.kind_words for q, amount in _SCALED.items()})
+_READ_AS_UNIT.update({q: (amount.read_as, 1.0) for q, amount in _SCALED.items()})
 
 
 def _scaled(quantity: ReadQuantity) -> Callable[[float, str, str, object, str], float]:
     """The reader of a :data:`_SCALED` quantity; a unit may be typed with or without
     spaces (``20 L / day``)."""
-    target, si, ip, aliases = _SCALED[quantity]
+    target, si, ip, aliases = _SCALED[quantity][:4]
 
     def reader(number: float, unit: str, field: str, text: object, system: str) -> float:
         if not unit:
@@ -505,7 +466,7 @@ def read_any(
     if unit:
         typed = {" ".join(unit.lower().split()), "".join(unit.lower().split())}
         for quantity in quantities:
-            if quantity in _SCALED and typed & set(_SCALED[quantity][3]):
+            if quantity in _SCALED and typed & set(_SCALED[quantity].aliases):
                 return read(quantity, text, field, system)
         words = " or ".join(_KIND_WORDS[q] for q in quantities)
         accepted = "; or ".join(_ACCEPTED[q] for q in quantities)
