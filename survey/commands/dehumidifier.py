@@ -32,8 +32,9 @@ DESCRIPTION = (
     "the drop imply, its COP, and its rating scaled to the air it is working in. A bare "
     "temperature is read in the unit system chosen (°C for si, °F for ip), or give a unit "
     "(70F, 21 °C). Water takes L, mL, pt, gal, kg, g or lb (a bare number is L in si, US "
-    "pints in ip); power W or kW; energy kWh or Wh; hours h or min; a rated capacity "
-    "L/day or pints/day. Bare numbers never load the unit library, so they start fastest."
+    "pints in ip); power W, kW or Btu/h; energy kWh or Wh; hours h, min or days; a rated "
+    "capacity L/day or pints/day. Bare numbers never load the unit library, so they start "
+    "fastest."
 )
 
 
