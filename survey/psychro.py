@@ -518,3 +518,18 @@ def site_pressure_pa(altitude_m: float | None = None, pressure_pa: float | None 
     if altitude_m is not None:
         return pressure_from_altitude_m(altitude_m)
     return STANDARD_PRESSURE_PA
+
+
+# --- liquid water ------------------------------------------------------------------------
+
+#: Specific heat of liquid water, J/(kg·K), for its enthalpy (ASHRAE ch. 1: hw ≈ 4.186 t
+#: kJ/kg, from memory; IAPWS gives 4.18–4.19 kJ/(kg·K) from 0 to 40 °C).
+LIQUID_WATER_CP_J_PER_KG_K = 4186.0
+
+
+def liquid_water_enthalpy_j_per_kg(temp_c: float) -> float:
+    """Enthalpy of liquid water at ``temp_c`` (J/kg), on this module's datum (liquid water at
+    0 °C): ``hw = 4.186 t`` kJ/kg, the ASHRAE ch. 1 approximation used in the
+    cooling-and-dehumidifying balance (a constant specific heat; within 0.5 % of IAPWS from
+    1 to 40 °C). psychrolib has no liquid-water enthalpy."""
+    return LIQUID_WATER_CP_J_PER_KG_K * temp_c

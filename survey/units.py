@@ -13,6 +13,9 @@ becomes those floats and floats become text again.
   what is accepted.
 
 Relative humidity is a percentage (``65``, ``65 %``, ``65%``), the same in both systems.
+A dehumidifier check's amounts (water as a volume or a mass, power, energy, run time, water
+rate, energy factor; their unit texts in :mod:`survey.unit_amounts`) are read the same way;
+:func:`read_any` takes whichever of several quantities the typed unit belongs to.
 
 Numbers as people type them, and only those
 -------------------------------------------
@@ -54,8 +57,9 @@ import unicodedata
 from collections.abc import Callable
 from dataclasses import dataclass
 from functools import cache, lru_cache
-from typing import TYPE_CHECKING, Literal
+from typing import TYPE_CHECKING, Literal, get_args
 
+from survey import unit_amounts
 from survey.errors import InputError
 from survey.safe_text import shorten
 
@@ -74,6 +78,13 @@ ReadQuantity = Literal[
     "length",
     "volume",
     "area",
+    "water_volume",
+    "water_mass",
+    "power",
+    "energy",
+    "duration",
+    "water_rate",
+    "energy_factor",
     "number",
 ]
 
@@ -386,6 +397,30 @@ def _area(number: float, unit: str, field: str, text: object, system: str) -> fl
     return _convert(number, unit, "m**2", field, text, "area", _AREA_ALIASES)
 
 
+#: The dehumidifier check's amounts (:mod:`survey.unit_amounts`): a number times a unit.
+_SCALED: dict[ReadQuantity, unit_amounts.Amount] = {
+    q: unit_amounts.AMOUNTS[q] for q in get_args(ReadQuantity) if q in unit_amounts.AMOUNTS
+}
+_ACCEPTED.update({q: amount.accepted for q, amount in _SCALED.items()})
+_KIND_WORDS.update({q: amount.kind_words for q, amount in _SCALED.items()})
+_READ_AS_UNIT.update({q: (amount.read_as, 1.0) for q, amount in _SCALED.items()})
+
+
+def _scaled(quantity: ReadQuantity) -> Callable[[float, str, str, object, str], float]:
+    """The reader of a :data:`_SCALED` quantity; a unit may be typed with or without
+    spaces (``20 L / day``)."""
+    target, si, ip, aliases = _SCALED[quantity][:4]
+
+    def reader(number: float, unit: str, field: str, text: object, system: str) -> float:
+        if not unit:
+            return number * (si if system == "si" else ip)
+        squeezed = "".join(unit.split())
+        typed = squeezed if squeezed.lower() in aliases else unit
+        return _convert(number, typed, target, field, text, quantity, aliases)
+
+    return reader
+
+
 def _plain(number: float, unit: str, field: str, text: object, system: str) -> float:
     if unit:
         raise InputError(field, text, f"expected {_ACCEPTED['number']} with no unit")
@@ -400,13 +435,15 @@ _READERS: dict[ReadQuantity, Callable[[float, str, str, object, str], float]] = 
     "length": _length,
     "volume": _volume,
     "area": _area,
+    **{quantity: _scaled(quantity) for quantity in _SCALED},
     "number": _plain,
 }
 
 
 def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = "si") -> Reading:
     """Read ``text`` as ``quantity`` (a bare number in ``system``'s unit): a :class:`Reading`
-    with the value in the core's SI unit (°C, K, %, Pa, m, m³, m²) and what it was read as.
+    with the value in the core's SI unit (°C, K, %, Pa, m, m³, m²; L, kg, W, kWh, h, L/day
+    and L/kWh for a dehumidifier's amounts) and what it was read as.
 
     Raises InputError naming ``field``, the text and what is accepted; ranges are not
     checked here (see :meth:`Reading.checked`)."""
@@ -416,6 +453,27 @@ def read(quantity: ReadQuantity, text: object, field: str, system: UnitSystem = 
     if not math.isfinite(value):
         raise _refuse(field, text, quantity, "too large to compute with")
     return Reading(quantity, field, text, value, number)
+
+
+def read_any(
+    quantities: tuple[ReadQuantity, ...], text: object, field: str, system: UnitSystem = "si"
+) -> Reading:
+    """Read ``text`` as the first of ``quantities`` whose units hold the unit typed (a bare
+    number: the first); its :attr:`Reading.quantity` says which. ``1.2 kg`` and ``11 L``
+    are both water collected, ``540 W`` and ``12.9 kWh`` what a unit used."""
+    _check_system(system)
+    _, unit = _split(text, field, quantities[0])
+    if unit:
+        typed = {" ".join(unit.lower().split()), "".join(unit.lower().split())}
+        for quantity in quantities:
+            if quantity in _SCALED and typed & set(_SCALED[quantity].aliases):
+                return read(quantity, text, field, system)
+        words = " or ".join(_KIND_WORDS[q] for q in quantities)
+        accepted = "; or ".join(_ACCEPTED[q] for q in quantities)
+        raise InputError(
+            field, text, f"unit {shorten(unit, 40)!r} is not a {words} unit; expected {accepted}"
+        )
+    return read(quantities[0], text, field, system)
 
 
 def parse_temperature(text: object, field: str = "temperature", system: UnitSystem = "si") -> float:

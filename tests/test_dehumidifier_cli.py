@@ -62,7 +62,7 @@ def run(capsys, monkeypatch):
 
 def test_json_keys_and_values_match_the_core(run):
     """The issue's example: every listed key, equal to survey.equipment.check's numbers
-    (themselves checked by hand in test_equipment.py: 9.6 L/day, EF 1.60, COP 2.473)."""
+    (themselves checked by hand in test_equipment.py: 9.6 L/day, EF 1.60, COP 2.449)."""
     status, out, err = run(*EXAMPLE, "--json")
     assert status == 0 and err == ""
     data = json.loads(out)
@@ -73,8 +73,8 @@ def test_json_keys_and_values_match_the_core(run):
     assert data["humidity_ratio_drop_g_per_kg"] == pytest.approx(3.6855, rel=1e-3)
     assert data["grain_depression_gr_per_lb"] == pytest.approx(7 * 3.6855, rel=1e-3)
     assert data["air_mass_flow_kg_per_s"] == pytest.approx(0.030148, rel=1e-3)
-    assert data["cooling_capacity_kw"] == pytest.approx(0.6183, rel=1e-3)
-    assert data["cop"] == pytest.approx(2.473, rel=1e-3)
+    assert data["cooling_capacity_kw"] == pytest.approx(0.6122, rel=1e-3)
+    assert data["cop"] == pytest.approx(2.449, rel=1e-3)
     assert data["water_weighed"] is True
     assert data["rated"] is None and data["findings"] == []
     # Electricity near water, and the deferral to local codes and professionals.
@@ -206,6 +206,33 @@ def test_text_output(run):
     assert "A rating is the water removed in 24 h" in out
 
 
+def test_the_text_frame_comes_from_the_words_module(run):
+    """The heading and the section titles the command prints are survey.words.equipment's
+    (one voice for the command, the app and the report)."""
+    from survey.words import equipment as we
+
+    status, out, _ = run(*EXAMPLE, "--rated-capacity", "20L/day")
+    assert status == 0
+    given = eq.DehumidifierInput((eq.AirPair(24, 70, 33, 30),), water_l=1.2, duration_h=3.0)
+    assert out.splitlines()[0] == we.check_title(eq.check(given))
+    for key in ("measured", "rating", "found", "safety", "limits"):
+        assert f"\n{we.CHECK_SECTIONS[key]}:\n" in out, key
+
+
+def test_no_sentence_is_built_in_the_faces():
+    """The command's and the app's dehumidifier sentences live in survey.words.equipment:
+    neither face's source spells them out."""
+    from survey.words import equipment as we
+
+    faces = [
+        ROOT / "survey" / "commands" / "dehumidifier.py",
+        ROOT / "survey" / "app" / "equipment.py",
+    ]
+    sources = "".join(path.read_text(encoding="utf-8") for path in faces)
+    for sentence in ("Dehumidifier check (", we.NO_AIR_YET, we.CHECK_FOLLOWS, "Not yet:"):
+        assert sentence not in sources, sentence
+
+
 @pytest.mark.parametrize(
     ("args", "option"),
     [
@@ -219,6 +246,14 @@ def test_text_output(run):
         (("--pressure", "2000"), "--pressure"),
         (("--inlet-temp", "24"), "--inlet-temp"),
         (("--reading-at", "1", "--reading-at", "2"), "--reading-at"),
+        (
+            # a second set of readings, 4 h into the 3 h run of EXAMPLE
+            (
+                *("--inlet-temp", "24", "--inlet-rh", "70", "--outlet-temp", "33", "--outlet-rh"),
+                *("30", "--reading-at", "0", "--reading-at", "4"),
+            ),
+            "--reading-at",
+        ),
     ],
 )
 def test_bad_input_is_one_line_and_status_2(run, args, option):
@@ -228,6 +263,45 @@ def test_bad_input_is_one_line_and_status_2(run, args, option):
     lines = err.strip().splitlines()
     assert len(lines) == 1
     assert option in lines[0] and args[-1] in lines[0]
+
+
+def test_inconsistent_readings_print_no_absurd_number(run):
+    """--water 1000 --hours 0.01 --power 1W would give 2.4e6 L/day, EF 1e8 L/kWh and
+    2.3e7 m³/h (arithmetic in test_equipment.test_implausible_figures_are_inconsistent_readings):
+    the JSON keeps its keys as null and names the finding; the text says the readings are
+    inconsistent and prints none of those numbers."""
+    args = (*EXAMPLE[:8], "--water", "1000", "--hours", "0.01", "--power", "1W")
+    status, out, _ = run(*args, "--json")
+    assert status == 0
+    data = json.loads(out)
+    for key in (*ISSUE_KEYS - {"humidity_ratio_drop_g_per_kg", "grain_depression_gr_per_lb"},
+                "air_volume_flow_m3_per_h"):  # fmt: skip
+        assert key in data and data[key] is None, key
+    assert "readings_inconsistent" in [f["kind"] for f in data["findings"]]
+    status, out, _ = run(*args)
+    assert status == 0 and "The readings are inconsistent" in out
+    for absurd in ("2400000", "1e+08", "100000000", "2.3e+07", "23000000", "1.5e+08"):
+        assert absurd not in out, absurd
+
+
+def test_an_outlet_wetter_than_the_inlet_is_a_rise(run):
+    """24 °C / 60 % in, 26 °C / 70 % out: W rises from 11.2 to 14.7 g/kg (psychrolib, ASHRAE
+    ch. 1 eqn 20), so the text says the humidity ratio rises by a positive amount; no
+    negative 'fall' is printed."""
+    import psychrolib
+
+    psychrolib.SetUnitSystem(psychrolib.SI)
+    rise = 1000 * (
+        psychrolib.GetHumRatioFromRelHum(26.0, 0.70, 101325)
+        - psychrolib.GetHumRatioFromRelHum(24.0, 0.60, 101325)
+    )
+    status, out, _ = run(
+        "--inlet-temp", "24", "--inlet-rh", "60", "--outlet-temp", "26", "--outlet-rh", "70",
+        "--water", "1", "--hours", "3",
+    )  # fmt: skip
+    assert status == 0
+    assert f"The humidity ratio rises by {rise:.2f} g/kg ({7 * rise:.1f} gr/lb)" in out
+    assert "falls by -" not in out and "falls by −" not in out
 
 
 @pytest.mark.parametrize(
@@ -257,12 +331,26 @@ def test_rating_keys_are_the_file_models():
     assert typing.get_args(model.RatingCondition) == RATING_KEYS
 
 
+#: EXAMPLE with bare numbers (1.2 kg of water is 1.2 L at 1 kg/L; 250 W; 3 h).
+BARE = (*EXAMPLE[:8], "--water", "1.2", "--hours", "3", "--power", "250")
+
+
+def test_bare_numbers_give_the_same_result(run):
+    """EXAMPLE with bare numbers (1.2 L, 3 h, 250 W) gives its numbers (the 1.2 kg weighed
+    are 1.2 L at 1 kg/L, our choice)."""
+    _, out, _ = run(*EXAMPLE, "--json")
+    _, bare, _ = run(*BARE, "--json")
+    for key in ISSUE_KEYS:
+        assert json.loads(bare)[key] == pytest.approx(json.loads(out)[key], rel=1e-12), key
+
+
 def test_json_path_loads_neither_pint_nor_rich():
-    """`survey check-dehumidifier --json` with its amounts starts without pint or Rich."""
+    """`survey check-dehumidifier --json` with bare numbers starts without pint or Rich (as
+    `survey check` does; a typed unit loads pint, which converts it)."""
     code = (
         "import contextlib, io, sys\nfrom survey.cli import main\n"
         "with contextlib.redirect_stdout(io.StringIO()):\n"
-        f"    main(['check-dehumidifier', *{list(EXAMPLE)!r}, '--json'])\n"
+        f"    main(['check-dehumidifier', *{list(BARE)!r}, '--json'])\n"
         "print('\\n'.join(sys.modules))"
     )
     result = subprocess.run(

@@ -52,8 +52,12 @@ def test_worked_case_by_hand():
     h_in   = 1.006 × 24 + 0.013096 × (2501 + 1.86 × 24)         = 24.144 + 33.338 = 57.482 kJ/kg
     h_coil = 1.006 × 13.127 + 0.0094107 × (2501 + 1.86 × 13.127) = 13.206 + 23.766 = 36.972
     h(24 °C, W_out) = 24.144 + 0.0094107 × 2545.64              = 48.100
-    Q = 0.030148 × (57.482 − 36.972) = 0.6183 kW; latent 0.030148 × (57.482 − 48.100)
-    = 0.2829 kW; sensible 0.030148 × (48.100 − 36.972) = 0.3355 kW. COP = 618.3 / 250 = 2.473.
+    Condensate leaving as liquid at the coil (ASHRAE ch. 1, cooling and dehumidifying; hw ≈
+    4.186 t kJ/kg, from memory): ΔW × hw = 0.0036855 × 4.186 × 13.127 = 0.0036855 × 54.950
+    = 0.2025 kJ/kg.
+    Q = 0.030148 × (57.482 − 36.972 − 0.2025) = 0.030148 × 20.3075 = 0.6122 kW; latent
+    0.030148 × (57.482 − 48.100 − 0.2025) = 0.2767 kW; sensible 0.030148 × (48.100 − 36.972)
+    = 0.3355 kW. COP = 612.2 / 250 = 2.449.
     """
     r = eq.check(_given())
     assert r.inlet.humidity_ratio_kg_per_kg == pytest.approx(0.013096, rel=1e-4)
@@ -66,21 +70,46 @@ def test_worked_case_by_hand():
     assert r.energy_factor_l_per_kwh == pytest.approx(1.60)
     assert r.air_mass_flow_kg_per_s == pytest.approx(0.030148, rel=1e-3)
     assert r.coil is not None and r.coil.dry_bulb_c == pytest.approx(13.127, abs=2e-3)
-    assert r.cooling_capacity_kw == pytest.approx(0.6183, rel=1e-3)
-    assert r.latent_cooling_w == pytest.approx(282.9, rel=1e-3)
+    assert r.cooling_capacity_kw == pytest.approx(0.6122, rel=1e-3)
+    assert r.latent_cooling_w == pytest.approx(276.7, rel=1e-3)
     assert r.sensible_cooling_w == pytest.approx(335.5, rel=1e-3)
     assert r.latent_cooling_w + r.sensible_cooling_w == pytest.approx(r.cooling_capacity_w)
-    assert r.cop == pytest.approx(2.473, rel=1e-3)
+    assert r.cop == pytest.approx(2.449, rel=1e-3)
     # Volume flow = ṁ × v_in, v from ASHRAE ch. 1 eqn 26 via psychrolib: 0.85952 m³/kg.
     v = psychrolib.GetMoistAirVolume(24.0, r.inlet.humidity_ratio_kg_per_kg, P)
     assert r.air_volume_flow_m3_per_h == pytest.approx(0.030148 * v * 3600.0, rel=1e-3)
 
 
-def test_latent_cooling_is_the_water_times_its_heat_of_vaporisation():
-    """Cross-check of the latent part: 1.2 kg in 3 h is 0.1111 g/s; at the 2501 kJ/kg
-    (+1.86 t) of ASHRAE eqn 30 it is 0.1111 × 2545.6 = 282.9 W (formula in the test)."""
+def test_latent_cooling_is_the_water_times_its_heat_of_condensation():
+    """Cross-check of the latent part: 1.2 kg in 3 h is 0.1111 g/s, taken in as vapour at
+    the inlet (2501 + 1.86 t kJ/kg, ASHRAE eqn 30) and leaving as liquid at the coil
+    (4.186 t_coil, ASHRAE ch. 1, from memory): 0.1111 × (2545.64 − 54.95) = 276.7 W
+    (formula in the test)."""
     r = eq.check(_given())
-    assert r.latent_cooling_w == pytest.approx(1.2 / (3 * 3600) * (2501.0 + 1.86 * 24.0) * 1000)
+    coil_c = r.coil.dry_bulb_c
+    per_kg = (2501.0 + 1.86 * 24.0 - 4.186 * coil_c) * 1000
+    assert r.latent_cooling_w == pytest.approx(1.2 / (3 * 3600) * per_kg, rel=1e-9)
+
+
+def test_the_condensate_term_is_about_one_percent():
+    """The condensate's enthalpy, ΔW · hw(T_coil), is counted: on the worked case it is
+    0.2025 of 20.51 kJ/kg, 0.99 % of the coil's enthalpy difference (hand arithmetic in
+    test_worked_case_by_hand), so Q_total = ṁ (Δh − ΔW hw)."""
+    r = eq.check(_given())
+    dh = r.inlet.enthalpy_j_per_kg - r.coil.enthalpy_j_per_kg
+    condensate = r.humidity_ratio_drop_kg_per_kg * 4186.0 * r.coil.dry_bulb_c
+    assert condensate / dh == pytest.approx(0.0099, abs=5e-4)
+    assert r.cooling_capacity_w == pytest.approx(r.air_mass_flow_kg_per_s * (dh - condensate))
+
+
+def test_liquid_water_enthalpy_against_coolprop():
+    """hw = 4.186 t kJ/kg (ASHRAE ch. 1, from memory) within 0.5 % of IAPWS-95 liquid water
+    (CoolProp PropsSI, datum the liquid at the triple point) from 1 to 40 °C."""
+    props = pytest.importorskip("CoolProp.CoolProp").PropsSI
+    datum = props("H", "T", 273.16, "P", P, "Water")
+    for t in (1.0, 5.0, 13.127, 20.0, 40.0):
+        iapws = props("H", "T", 273.15 + t, "P", P, "Water") - datum
+        assert psychro.liquid_water_enthalpy_j_per_kg(t) == pytest.approx(iapws, rel=5e-3)
 
 
 @pytest.mark.parametrize("pressure_pa", [P, psychrolib.GetStandardAtmPressure(1500.0)])
@@ -174,6 +203,43 @@ def test_a_series_is_integrated_by_trapezoids():
     assert r.air_mass_flow_kg_per_s == pytest.approx(1.2 / (mean * 3 * 3600), rel=1e-9)
     untimed = eq.check(_given(readings=tuple(dataclasses.replace(p, at_h=None) for p in pairs)))
     assert untimed.humidity_ratio_drop_kg_per_kg == pytest.approx(sum(drops) / 3, rel=1e-9)
+
+
+def test_a_series_mean_state_is_weighted_like_the_drop():
+    """Readings at 0, 0.2 and 3 h: the mean inlet and outlet dry bulb and W are trapezoid
+    time means, the same weights as the drop (trapezoid rule, formula in the test; each W
+    from psychrolib), so W_in − W_out of the mean states is the drop. A plain mean would
+    give the first two readings two thirds of the weight."""
+    pairs = (
+        AirPair(26.0, 80.0, 34.0, 30.0, 0.0),
+        AirPair(25.0, 75.0, 33.0, 30.0, 0.2),
+        AirPair(20.0, 55.0, 26.0, 40.0, 3.0),
+    )
+    r = eq.check(_given(readings=pairs))
+
+    def trapezoid(values):
+        return (0.2 * (values[0] + values[1]) / 2 + 2.8 * (values[1] + values[2]) / 2) / 3
+
+    def w(t, rh):
+        return psychrolib.GetHumRatioFromRelHum(t, rh / 100, P)
+
+    w_in = trapezoid([w(p.inlet_temp_c, p.inlet_rh_pct) for p in pairs])
+    w_out = trapezoid([w(p.outlet_temp_c, p.outlet_rh_pct) for p in pairs])
+    assert r.inlet.humidity_ratio_kg_per_kg == pytest.approx(w_in, rel=1e-9)
+    assert r.outlet.humidity_ratio_kg_per_kg == pytest.approx(w_out, rel=1e-9)
+    assert r.inlet.dry_bulb_c == pytest.approx(trapezoid([26.0, 25.0, 20.0]), rel=1e-12)
+    assert r.outlet.dry_bulb_c == pytest.approx(trapezoid([34.0, 33.0, 26.0]), rel=1e-12)
+    assert r.humidity_ratio_drop_kg_per_kg == pytest.approx(w_in - w_out, rel=1e-9)
+    assert r.coil.humidity_ratio_kg_per_kg == pytest.approx(w_out, rel=1e-9)
+
+
+def test_a_reading_after_the_run_is_refused():
+    """A reading 4 h into a 3 h run cannot be: InputError naming the reading times."""
+    pairs = (AirPair(24, 70, 33, 30, 0.0), AirPair(24, 70, 33, 30, 4.0))
+    with pytest.raises(InputError) as caught:
+        eq.check(_given(readings=pairs))
+    assert caught.value.field == "reading times"
+    eq.check(_given(readings=(AirPair(24, 70, 33, 30, 0.0), AirPair(24, 70, 33, 30, 3.0))))
 
 
 def test_series_times_must_all_be_given_and_increase():
@@ -357,6 +423,52 @@ def test_a_rating_without_its_condition():
     assert r.comparison.site_scale is None and r.comparison.removal_of_rated == pytest.approx(0.48)
 
 
+def test_implausible_figures_are_inconsistent_readings():
+    """1000 L in 0.01 h at 1 W: removal 1000 × 24 / 0.01 = 2.4e6 L/day (> 1000 L/day), EF
+    1000 / 1e-5 kWh = 1e8 L/kWh (> 8), dry-air flow 1000 / (0.0036855 × 36 s) = 7537 kg/s,
+    about 2.3e7 m³/h (> 3000 m³/h); limits our choice (limits_equipment). None of them is
+    given, nor the cooling and COP that follow from the flow; one finding cites the limits."""
+    r = eq.check(_given(water_l=1000.0, duration_h=0.01, power_w=1.0))
+    assert FindingKind.INCONSISTENT in r.kinds
+    assert r.removal_l_per_day is None and r.removal_pints_per_day is None
+    assert r.energy_factor_l_per_kwh is None
+    assert r.air_mass_flow_kg_per_s is None and r.air_volume_flow_m3_per_h is None
+    assert r.cooling_capacity_w is None and r.cop is None
+    (finding,) = [f for f in r.findings if f.kind is FindingKind.INCONSISTENT]
+    assert set(finding.threshold_keys) == {
+        "dehumidifier_removal_max_l_per_day",
+        "dehumidifier_energy_factor_max_l_per_kwh",
+        "dehumidifier_air_flow_max_m3_per_h",
+    }
+    assert set(finding.threshold_keys) <= set(r.threshold_keys)
+    assert r.humidity_ratio_drop_g_per_kg == pytest.approx(3.6855, rel=1e-3)  # readings kept
+
+
+def test_a_cop_beyond_the_limit_alone_is_left_out():
+    """The worked case at 60 W: COP = 612.2 / 60 = 10.2 (> 8, our choice; the flow, 0.0301
+    kg/s ≈ 93 m³/h, and EF 1.2 / 0.18 = 6.7 L/kWh stay within theirs): only the COP goes."""
+    r = eq.check(_given(power_w=60.0))
+    assert r.cop is None and r.cooling_capacity_w == pytest.approx(612.2, rel=1e-3)
+    assert r.energy_factor_l_per_kwh == pytest.approx(1.2 / 0.18)
+    (finding,) = [f for f in r.findings if f.kind is FindingKind.INCONSISTENT]
+    assert finding.threshold_keys == ("dehumidifier_cop_max",)
+
+
+def test_plausibility_limits_have_sources_and_marks():
+    """Each plausibility limit is one threshold record with a source and an honest mark
+    (our choice: no source gives these bounds)."""
+    for key, value in (
+        ("dehumidifier_removal_max_l_per_day", 1000.0),
+        ("dehumidifier_energy_factor_max_l_per_kwh", 8.0),
+        ("dehumidifier_cop_max", 8.0),
+        ("dehumidifier_air_flow_max_m3_per_h", 3000.0),
+    ):
+        t = th.get(key)
+        assert t.value == value and t.source and t.mark == "choice"
+    # The COP bound sits at the Carnot COP of a 5 °C coil and a 40 °C condenser (computed).
+    assert th.value("dehumidifier_cop_max") == pytest.approx(278.15 / 35.0, abs=0.1)
+
+
 @pytest.mark.parametrize(
     ("changes", "field"),
     [
@@ -410,6 +522,20 @@ def test_other_amounts():
     assert eq.read_hours("3h", "h") == 3.0
     assert eq.read_capacity("20L/day", "c") == 20.0
     assert eq.read_energy_factor("1.8 L/kWh", "f") == 1.8
+
+
+def test_amounts_are_read_by_the_units_module():
+    """The amounts take every unit survey.units.read knows (pint converts): 1000 Btu/h =
+    293.07 W (IT Btu, NIST SP 811), 2 days = 48 h, '20 L / day' with spaces, 0.5 gal =
+    1.8927 L (NIST); a value beyond the file's bound says what it was read as."""
+    assert eq.read_power_w("1000 Btu/h", "p") == pytest.approx(293.07107, rel=1e-6)
+    assert eq.read_power_or_energy("1000 Btu/h", "p") == (pytest.approx(293.07107), None)
+    assert eq.read_power_or_energy("750 Wh", "p") == (None, pytest.approx(0.75))
+    assert eq.read_hours("2 days", "h") == pytest.approx(48.0)
+    assert eq.read_capacity("20 L / day", "c") == 20.0
+    with pytest.raises(InputError) as caught:
+        eq.read_hours("1000 days", "--hours")  # 24 000 h, beyond the file's 10 000 h
+    assert caught.value.read_as == "24000 h"
 
 
 @pytest.mark.parametrize(

@@ -63,7 +63,7 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
                 await pilot.press("enter")
         await pilot.pause()
         preview = str(dialog.query_one("#check-preview", Static).render())
-        assert "9.6 L/day (20.3 US pints/day)" in preview and "COP 2.5" in preview
+        assert "9.6 L/day (20.3 US pints/day)" in preview and "COP 2.4" in preview
         await pilot.press("enter")
         await _settle(pilot, app)
         assert not isinstance(app.screen, CheckDialog)
@@ -132,3 +132,28 @@ def test_air_and_power_texts():
     assert read_power_or_energy("0.54 kW", "P") == (540.0, None)
     assert read_power_or_energy("12.9kWh", "P") == (None, 12.9)
     assert read_power_or_energy("750 Wh", "P") == (None, pytest.approx(0.75))
+
+
+def test_the_table_row_of_inconsistent_readings_prints_no_absurd_number():
+    """99999 L over 0.01 h (239997600 L/day, 99999 × 24 / 0.01) in the equipment table's
+    row: the findings say the readings are inconsistent and no such figure is shown."""
+    from types import SimpleNamespace
+
+    import msgspec
+
+    from survey.app.equipment import row
+    from survey.words import SI
+
+    survey = store.load_survey(BASEMENT)
+    room_visit = survey.visits[1].room_visit("family")
+    e = msgspec.structs.replace(room_visit.equipment[0], water_removed_l=99999.0, run_hours=0.01)
+    room_visit = msgspec.structs.replace(room_visit, equipment=[e])
+    screen = SimpleNamespace(
+        record=lambda: room_visit,
+        editor=SimpleNamespace(survey=survey, visit_index=1),
+        app=SimpleNamespace(display_units=SI),
+    )
+    cell = str(row(e, screen, 0)[-1])
+    assert "the readings are inconsistent" in cell
+    for absurd in ("239997600", "507205775", "EF ", "COP "):
+        assert absurd not in cell

@@ -112,3 +112,28 @@ def test_user_text_in_a_label_is_escaped(basement):
     visits[1] = msgspec.structs.replace(visits[1], rooms=rooms)
     text = report.render(_doc(msgspec.structs.replace(basement, visits=visits)))
     assert r"\*\*D1\*\* \| \<b\>" in text
+
+
+def test_inconsistent_stored_readings_print_no_absurd_number(basement):
+    """99999 L over 0.01 h on day 2 would be 99999 × 24 / 0.01 = 239997600 L/day and a COP
+    in the tens of millions: the row shows dashes and 'the readings are inconsistent', and
+    the report prints neither number."""
+    visits = list(basement.visits)
+    rooms = list(visits[1].rooms)
+    family = next(i for i, rv in enumerate(rooms) if rv.room == "family")
+    items = list(rooms[family].equipment)
+    items[0] = msgspec.structs.replace(items[0], water_removed_l=99999.0, run_hours=0.01)
+    rooms[family] = msgspec.structs.replace(rooms[family], equipment=items)
+    visits[1] = msgspec.structs.replace(visits[1], rooms=rooms)
+    survey = msgspec.structs.replace(basement, visits=visits)
+    (row,) = _tables(_doc(survey), 2)[0].rows
+    assert [c.text for c in row[1:4]] == ["–", "–", "–"]
+    assert we.FINDING_SHORT[eq.FindingKind.INCONSISTENT] in row[-1].text
+    doc = _doc(survey)
+    (items,) = [b for b in doc.blocks if isinstance(b, Items) and b.name == "dehumidifier"][1:2]
+    text = "\n".join(line for _, line in items.items)
+    for absurd in ("239997600", "507205775", "49170574"):
+        assert absurd not in text
+    assert "The readings are inconsistent" in text
+    limits = next(b for b in doc.blocks if isinstance(b, Items) and b.name == "limits")
+    assert "dehumidifier_removal_max_l_per_day" in {t.key for t in limits.values}

@@ -391,6 +391,13 @@ def test_a_number_beyond_the_float_range_is_refused():
             "length",
             "volume",
             "area",
+            "water_volume",
+            "water_mass",
+            "power",
+            "energy",
+            "duration",
+            "water_rate",
+            "energy_factor",
             "number",
         ]
     ),
@@ -426,6 +433,22 @@ def test_any_text_reads_as_a_finite_number_or_is_refused_in_one_short_line(text,
         ("area", "6 sq ft", "si", "0.557 m²"),  # 6 × 0.3048² = 0.5574 m² (exact foot)
         ("area", "6", "ip", "0.557 m²"),  # a bare number is ft² in IP
         ("area", "500 cm2", "si", "0.05 m²"),  # 1 cm² = 1e-4 m² (definition)
+        ("water_volume", "2.5 pt", "si", "1.18 L"),  # 1 US pint = 0.473176473 L (NIST)
+        ("water_volume", "2.5", "ip", "1.18 L"),  # a bare number is US pints in IP
+        ("water_volume", "0.5 gal", "si", "1.89 L"),  # 1 US gallon = 3.785411784 L (NIST)
+        ("water_volume", "1200 mL", "si", "1.2 L"),  # 1 mL = 0.001 L (definition)
+        ("water_mass", "2.6 lb", "si", "1.18 kg"),  # 1 lb = 0.45359237 kg exactly
+        ("water_mass", "2.6", "ip", "1.18 kg"),  # a bare number is lb in IP
+        ("power", "0.54 kW", "si", "540 W"),  # 1 kW = 1000 W
+        ("power", "1000 Btu/h", "si", "293.07 W"),  # 1 Btu/h = 0.29307 W (IT Btu, NIST SP 811)
+        ("power", "540", "ip", ""),  # watts in both systems
+        ("energy", "750 Wh", "si", "0.75 kWh"),
+        ("duration", "180 min", "si", "3 h"),
+        ("duration", "2 days", "si", "48 h"),
+        ("water_rate", "42 pints/day", "si", "19.87 L/day"),  # 42 × 0.473176473
+        ("water_rate", "42", "ip", "19.87 L/day"),  # a bare number is US pints/day in IP
+        ("water_rate", "20 L / day", "si", ""),  # spaces inside the unit
+        ("energy_factor", "1.8 L/kWh", "si", ""),
         ("temperature", "21", "si", ""),  # nothing converted: nothing to say
         ("temperature", "21 °C", "ip", ""),
         ("temperature", "-40", "ip", ""),  # −40 °F is −40 °C
@@ -498,3 +521,16 @@ def test_instrument_accuracy_minimums_lie_above_zero_and_below_the_defaults():
         ),
     ):
         assert 0.0 < low < default <= high
+
+
+def test_read_any_takes_the_quantity_whose_unit_was_typed():
+    """Water collected may be a volume or a mass, what a unit used a power or an energy:
+    the unit typed picks the quantity; a bare number is the first; another unit is refused
+    naming both kinds."""
+    assert units.read_any(("water_volume", "water_mass"), "1.2 kg", "w").quantity == "water_mass"
+    assert units.read_any(("water_volume", "water_mass"), "11 L", "w").quantity == "water_volume"
+    assert units.read_any(("water_volume", "water_mass"), "11", "w").quantity == "water_volume"
+    reading = units.read_any(("power", "energy"), "12.9kWh", "p")
+    assert (reading.quantity, reading.value) == ("energy", 12.9)
+    with pytest.raises(InputError, match="not a power or energy unit"):
+        units.read_any(("power", "energy"), "12 V", "p")

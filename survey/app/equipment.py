@@ -24,6 +24,7 @@ from survey import model, units
 from survey.app import walk
 from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
+from survey.equipment import read_power_or_energy
 from survey.errors import InputError
 
 KINDS = (
@@ -154,11 +155,9 @@ def dialog(
 
         screen.app.push_screen(check_dialog, saved)
 
-    note = (
-        "For a dehumidifier, its performance check (air in and out, hours, power, rating) follows."
-        if screen is not None
-        else ""
-    )
+    from survey.words import equipment as we
+
+    note = we.CHECK_FOLLOWS if screen is not None else ""
     return PromptDialog(title, fields, check, note), answered
 
 
@@ -208,13 +207,6 @@ def read_air(text: str, name: str, system: str) -> tuple[float, float]:
             raise InputError(name, text, exc.allowed) from None
         return temp, rh
     raise InputError(name, text, allowed)
-
-
-def read_power_or_energy(text: str, name: str) -> tuple[float | None, float | None]:
-    """'540W', '0.54 kW' or a bare number of watts: a power; '12.9kWh', '750 Wh': an energy."""
-    if text.strip().lower().replace(" ", "").endswith("wh"):
-        return None, eq.read_energy_kwh(text, name)
-    return eq.read_power_w(text, name), None
 
 
 class CheckDialog(PromptDialog):
@@ -330,12 +322,12 @@ class CheckDialog(PromptDialog):
         try:
             record = self.build(values)
         except InputError as exc:
-            preview.update(plain(f"Not yet: {exc}"))
+            preview.update(plain(we.not_yet_text(exc)))
             return
         unit = _judged(self.room_screen, self.index, record)
         d = self.app.display_units
         if unit is None:
-            preview.update(plain("Give the room's air reading, or the air going in."))
+            preview.update(plain(we.NO_AIR_YET))
         elif unit.result is None:
             preview.update(plain(we.missing_text(unit)))
         else:

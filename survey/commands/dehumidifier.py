@@ -11,8 +11,8 @@ Several ``--inlet-temp … --outlet-rh`` sets (each option repeated, in the same
 series of readings over the run; ``--reading-at`` gives each one's hours into the run.
 
 Start-up stays light: the parser imports nothing of the core; the handler loads the
-equipment check and its words, and never pint (units are read by the equipment module's own
-small tables) nor Rich (the text output is plain lines).
+equipment check and its words, never Rich (the text output is plain lines), and pint only
+when a value is typed with its unit (:func:`survey.units.read`; bare numbers never touch it).
 """
 
 from __future__ import annotations
@@ -32,8 +32,9 @@ DESCRIPTION = (
     "the drop imply, its COP, and its rating scaled to the air it is working in. A bare "
     "temperature is read in the unit system chosen (°C for si, °F for ip), or give a unit "
     "(70F, 21 °C). Water takes L, mL, pt, gal, kg, g or lb (a bare number is L in si, US "
-    "pints in ip); power W or kW; energy kWh or Wh; hours h or min; a rated capacity "
-    "L/day or pints/day."
+    "pints in ip); power W, kW or Btu/h; energy kWh or Wh; hours h, min or days; a rated "
+    "capacity L/day or pints/day. Bare numbers never load the unit library, so they start "
+    "fastest."
 )
 
 
@@ -173,6 +174,12 @@ def gather(args: argparse.Namespace) -> Any:
     if args.water is not None:
         water, weighed = eq.read_water(args.water, "--water", system)
     hours = None if args.hours is None else eq.read_hours(args.hours, "--hours")
+    if hours is not None and args.reading_at:
+        for time, text in zip(at, args.reading_at, strict=True):
+            if time is not None and time > hours:
+                raise InputError(
+                    "--reading-at", text, f"must be within the run: at most --hours {args.hours}"
+                )
     power = None if args.power is None else eq.read_power_w(args.power, "--power")
     energy = None if args.energy is None else eq.read_energy_kwh(args.energy, "--energy")
     capacity = (
@@ -297,23 +304,24 @@ def render(result: Any, d: Any) -> None:
     from survey.words import equipment as we
 
     r = result
-    print(f"Dehumidifier check ({r.given.kind} unit)")
+    titles = we.CHECK_SECTIONS
+    print(we.check_title(r))
     print(f"  {we.summary(r, d)}")
     sections = (
-        ("Measured", we.measured_lines(r, d)),
-        ("Against its rating", we.comparison_lines(r, d)),
-        ("Found", we.finding_lines(r, d)),
-        ("Note", [text] if (text := we.rating_caution(r, d)) else []),
-        ("Safety", we.safety_lines(d)),
+        ("measured", we.measured_lines(r, d)),
+        ("rating", we.comparison_lines(r, d)),
+        ("found", we.finding_lines(r, d)),
+        ("note", [text] if (text := we.rating_caution(r, d)) else []),
+        ("safety", we.safety_lines(d)),
     )
-    for title, lines in sections:
+    for key, lines in sections:
         if lines:
-            print(f"\n{title}:")
+            print(f"\n{titles[key]}:")
             for line in lines:
                 print(f"- {line}")
     limits = th.cited(r.threshold_keys)
     if limits:
-        print("\nLimits used:")
+        print(f"\n{titles['limits']}:")
         for t in limits:
             print(f"- {words.client_citation(t, d)}")
         for line in words.legend(limits):

@@ -15,22 +15,26 @@ Results (:class:`DehumidifierResult`), every moist-air state from :mod:`survey.p
 * humidity-ratio drop across the unit ``ΔW = W_in − W_out`` (g/kg, and grains per pound,
   7000 × ΔW in kg/kg: the trade's grain depression). With a series of readings it is the
   time mean of ΔW (trapezoids between the reading times; a plain mean when no times are
-  given), taken as holding over the whole run;
+  given), taken as holding over the whole run; the mean inlet and outlet states are the
+  time means of their dry bulb and W by the same trapezoids, so they differ by that drop;
 * dry-air mass flow through the unit implied by the water and the drop:
   ``ṁ_da = m_w / ∫ΔW dt`` kg/s (m_w the collected water's mass), and the volume flow
   ``ṁ_da · v_in`` at the inlet's specific volume (ASHRAE ch. 1 eqn 26);
 * cooling capacity of a refrigerant unit's coil. The air is taken as cooled from the inlet
   state to saturation at the outlet's humidity ratio (the "coil state": dry bulb = the
   outlet's dew point, W = W_out), then reheated to the outlet temperature by the condenser.
-  With h from psychrolib's ``GetMoistAirEnthalpy`` (ASHRAE ch. 1 eqn 30)::
+  With h from psychrolib's ``GetMoistAirEnthalpy`` (ASHRAE ch. 1 eqn 30) and the water
+  condensed on the coil leaving as liquid at the coil temperature, carrying
+  ``ΔW · h_f(T_coil)`` (ASHRAE ch. 1, the cooling-and-dehumidifying balance; ``h_f ≈
+  4.186 t`` kJ/kg, :func:`survey.psychro.liquid_water_enthalpy_j_per_kg`)::
 
-      Q_total    = ṁ_da · (h(T_in, W_in) − h(T_coil, W_out))
-      Q_latent   = ṁ_da · (h(T_in, W_in) − h(T_in, W_out))
+      Q_total    = ṁ_da · [(h(T_in, W_in) − h(T_coil, W_out)) − ΔW · h_f(T_coil)]
+      Q_latent   = ṁ_da · [(h(T_in, W_in) − h(T_in, W_out)) − ΔW · h_f(T_coil)]
       Q_sensible = ṁ_da · (h(T_in, W_out) − h(T_coil, W_out))   (Q_total = sum of both)
 
-  The enthalpy the condensate carries away, ṁ_da · ΔW · h_f(T_coil) (ASHRAE ch. 1, the
-  cooling-and-dehumidifying process), is left out: at a coil near 10 °C it is about 0.2 %
-  of Q_total. A desiccant unit has no refrigeration cycle: no cooling capacity, no COP;
+  The condensate's term is about 1 % of Q_total (0.20 of 20.5 kJ/kg with a 13 °C coil) and
+  counts in the latent part. A desiccant unit has no refrigeration cycle: no cooling
+  capacity, no COP;
 * coefficient of performance of the refrigeration cycle ``COP = Q_total / P`` (P the mean
   electrical power; the fan's share is counted in P, so this is the unit's COP, a little
   below the compressor's own).
@@ -51,13 +55,15 @@ water with no duration, no water, no power, no rating condition, removal well be
 above what the site air allows.
 
 Modules: :mod:`~survey.equipment.performance` (the check), :mod:`~survey.equipment.stored`
-(stored visits), :mod:`~survey.equipment.amounts` (typed amounts).
+(stored visits), :mod:`~survey.equipment.amounts` (typed amounts, read by
+:func:`survey.units.read` and checked against the file's bounds).
 
 A stored visit is judged by :func:`judge_visit` (the inlet is the unit's inlet reading or
 the room's air; the duration its run hours, else the time since the previous reading of
 the same unit, matched by label in the same room; power from its power or energy).
 The ``read_*`` helpers turn typed amounts (``1.2kg``, ``250W``, ``20L/day``, ``42 pt/day``)
-into SI numbers for the faces.
+into SI numbers for the faces, through :func:`survey.units.read` (pint only for a typed
+unit).
 """
 
 from survey.equipment.amounts import (
@@ -65,6 +71,7 @@ from survey.equipment.amounts import (
     read_energy_factor,
     read_energy_kwh,
     read_hours,
+    read_power_or_energy,
     read_power_w,
     read_water,
 )
@@ -123,6 +130,7 @@ __all__ = [
     "read_energy_factor",
     "read_energy_kwh",
     "read_hours",
+    "read_power_or_energy",
     "read_power_w",
     "read_water",
     "site_scale",

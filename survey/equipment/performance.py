@@ -126,6 +126,9 @@ class FindingKind(enum.Enum):
     """What the check found; its words are :mod:`survey.words.equipment`'s."""
 
     NOT_RUNNING = "not_running"
+    #: a derived figure beyond what any room unit can give (its limits' keys name which);
+    #: that figure, and those that follow from it, are left out
+    INCONSISTENT = "readings_inconsistent"
     COIL_FROST = "coil_frost"  #: refrigerant unit, inlet below the coil-frost limit
     TOO_COLD = "too_cold_for_refrigerant"  #: refrigerant unit, inlet below its lowest room temp
     OUTLET_WETTER = "outlet_wetter"  #: W rises across the unit beyond the readings' resolution
@@ -243,6 +246,10 @@ def _check(given: DehumidifierInput) -> None:
             raise InputError("reading times", "some missing", "give every reading a time or none")
         if any(b <= a for a, b in itertools.pairwise(times)):
             raise InputError("reading times", times, "must increase from one reading to the next")
+    if given.duration_h is not None and times and max(times) > given.duration_h:
+        raise InputError(
+            "reading times", max(times), f"must be within the run of {given.duration_h:g} h"
+        )
     if given.water_l is not None and not psychro.in_range(given.water_l, 0.0, WATER_MAX_L):
         raise InputError("water", given.water_l, f"must be from 0 to {WATER_MAX_L:g} L")
     _positive(given.duration_h, "hours", RUN_HOURS_MAX_H, "h")
@@ -260,21 +267,35 @@ def _check(given: DehumidifierInput) -> None:
     psychro.check_pressure(given.pressure_pa)
 
 
-def _mean_drop(drops: Sequence[float], times: Sequence[float | None]) -> float:
-    """Time mean of the drops: trapezoids between reading times, else a plain mean."""
-    if len(drops) == 1 or any(t is None for t in times):
-        return sum(drops) / len(drops)
+def _time_mean(values: Sequence[float], times: Sequence[float | None]) -> float:
+    """Time mean of a series: trapezoids between the reading times, else a plain mean. The
+    drop, and the inlet's and outlet's dry bulb and W, are all meant this one way, so the
+    mean states differ by exactly the mean drop."""
+    if len(values) == 1 or any(t is None for t in times):
+        return sum(values) / len(values)
     at = [float(t) for t in times if t is not None]
-    area = sum((at[i + 1] - at[i]) * (drops[i] + drops[i + 1]) / 2 for i in range(len(at) - 1))
+    area = sum((at[i + 1] - at[i]) * (values[i] + values[i + 1]) / 2 for i in range(len(at) - 1))
     return area / (at[-1] - at[0])
 
 
-def _mean_state(states: Sequence[MoistAir], pressure_pa: float) -> MoistAir:
+def _mean_state(
+    states: Sequence[MoistAir], times: Sequence[float | None], pressure_pa: float
+) -> MoistAir:
+    """The state of the time-mean dry bulb and humidity ratio (:func:`_time_mean`)."""
     if len(states) == 1:
         return states[0]
-    temp = sum(s.dry_bulb_c for s in states) / len(states)
-    w = sum(s.humidity_ratio_kg_per_kg for s in states) / len(states)
+    temp = _time_mean([s.dry_bulb_c for s in states], times)
+    w = _time_mean([s.humidity_ratio_kg_per_kg for s in states], times)
     return psychro.state_from_humidity_ratio(temp, w, pressure_pa)
+
+
+def _plausible(value: float | None, key: str, beyond: list[str]) -> float | None:
+    """``value``, or None (its limit's key added to ``beyond``) when it exceeds the highest
+    figure a room dehumidifier can give: such a figure says the readings disagree."""
+    if value is not None and value > th.value(key):
+        beyond.append(key)
+        return None
+    return value
 
 
 def _ratio(a: float | None, b: float | None) -> float | None:
@@ -332,13 +353,15 @@ def _findings(
     inlet: MoistAir,
     outlet: MoistAir,
     drop: float,
-    removal: float | None,
     energy: float | None,
     comparison: RatingComparison | None,
+    beyond: tuple[str, ...],
 ) -> tuple[Finding, ...]:
     found: list[Finding] = []
     if not given.running:
         found.append(Finding(FindingKind.NOT_RUNNING))
+    if beyond:
+        found.append(Finding(FindingKind.INCONSISTENT, beyond))
     if given.kind == "refrigerant":
         if inlet.dry_bulb_c < th.value("refrigerant_coil_frost_inlet_c"):
             found.append(Finding(FindingKind.COIL_FROST, ("refrigerant_coil_frost_inlet_c",)))
@@ -382,10 +405,12 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
         )
         for r in given.readings
     )
-    drops = [i.humidity_ratio_kg_per_kg - o.humidity_ratio_kg_per_kg for i, o in states]
-    drop = _mean_drop(drops, [r.at_h for r in given.readings])
-    inlet = _mean_state([s[0] for s in states], p)
-    outlet = _mean_state([s[1] for s in states], p)
+    times = [r.at_h for r in given.readings]
+    inlet = _mean_state([s[0] for s in states], times, p)
+    outlet = _mean_state([s[1] for s in states], times, p)
+    drop = _time_mean(
+        [i.humidity_ratio_kg_per_kg - o.humidity_ratio_kg_per_kg for i, o in states], times
+    )
     hours = given.duration_h
     water_kg = None if given.water_l is None else given.water_l * th.value("water_density_kg_per_l")
     removal = None if given.water_l is None or hours is None else given.water_l * 24.0 / hours
@@ -402,6 +427,12 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
     if water_kg and integral is not None and drop >= resolution:
         flow = water_kg / (integral * 3600.0)
         volume = flow * inlet.specific_volume_m3_per_kg * 3600.0
+    beyond: list[str] = []
+    removal = _plausible(removal, "dehumidifier_removal_max_l_per_day", beyond)
+    ef = _plausible(ef, "dehumidifier_energy_factor_max_l_per_kwh", beyond)
+    volume = _plausible(volume, "dehumidifier_air_flow_max_m3_per_h", beyond)
+    if volume is None:
+        flow = None
     coil = total = sensible = latent = cop = None
     if given.kind == "refrigerant" and drop >= resolution:
         w_out = outlet.humidity_ratio_kg_per_kg
@@ -409,10 +440,11 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
         coil = psychro.state_from_humidity_ratio(coil_c, w_out, p)
         dried = psychro.state_from_humidity_ratio(inlet.dry_bulb_c, w_out, p)
         if flow is not None:
-            total = flow * (inlet.enthalpy_j_per_kg - coil.enthalpy_j_per_kg)
-            latent = flow * (inlet.enthalpy_j_per_kg - dried.enthalpy_j_per_kg)
+            condensate = drop * psychro.liquid_water_enthalpy_j_per_kg(coil_c)
+            total = flow * (inlet.enthalpy_j_per_kg - coil.enthalpy_j_per_kg - condensate)
+            latent = flow * (inlet.enthalpy_j_per_kg - dried.enthalpy_j_per_kg - condensate)
             sensible = flow * (dried.enthalpy_j_per_kg - coil.enthalpy_j_per_kg)
-            cop = None if not power else total / power
+            cop = _plausible(None if not power else total / power, "dehumidifier_cop_max", beyond)
     comparison = _compare(given, inlet, removal, ef)
     return DehumidifierResult(
         given=given,
@@ -434,5 +466,5 @@ def check(given: DehumidifierInput) -> DehumidifierResult:
         latent_cooling_w=latent,
         cop=cop,
         comparison=comparison,
-        findings=_findings(given, inlet, outlet, drop, removal, energy, comparison),
+        findings=_findings(given, inlet, outlet, drop, energy, comparison, tuple(beyond)),
     )

@@ -94,6 +94,53 @@ EQUIPMENT_LIMITS: tuple[Threshold, ...] = (
         "at any temperature collected water has.",
         "choice",
     ),
+    # --- what a room unit can give: beyond these the readings disagree -------------------------
+    Threshold(
+        "dehumidifier_removal_max_l_per_day",
+        "Highest removal a room dehumidifier gives",
+        1000.0,
+        "L/day",
+        "our choice, well above the largest portable restoration units, which are rated at "
+        "roughly 70–150 L/day (from memory)",
+        "A removal rate above this from one unit says the water or the hours were recorded "
+        "wrongly: the rate, and what follows from it, is not shown.",
+        "choice",
+    ),
+    Threshold(
+        "dehumidifier_energy_factor_max_l_per_kwh",
+        "Highest energy factor of a refrigerant dehumidifier",
+        8.0,
+        "L/kWh",
+        "our choice: about twice the best rated units (rated energy factors of roughly "
+        "1.5–4 L/kWh, from memory); condensing 1 L takes about 0.68 kWh (2450 kJ/kg), so "
+        "8 L/kWh would need a cycle moving 5.4 kWh of latent heat per kWh drawn (computed)",
+        "An energy factor above this says the water, the hours or the power or energy were "
+        "recorded wrongly: it is not shown. A desiccant unit's is lower still.",
+        "choice",
+    ),
+    Threshold(
+        "dehumidifier_cop_max",
+        "Highest COP of a dehumidifier's refrigeration cycle",
+        8.0,
+        "",
+        "our choice: room units' cycles give COPs of about 2–4 (from memory); the Carnot "
+        "limit between a 5 °C coil and a 40 °C condenser is 278.15 / 35 = 7.9 (computed)",
+        "A COP above this says the water, the hours, the power or the air readings disagree: "
+        "it is not shown.",
+        "choice",
+    ),
+    Threshold(
+        "dehumidifier_air_flow_max_m3_per_h",
+        "Highest air flow through a room dehumidifier",
+        3000.0,
+        "m³/h",
+        "our choice, about twice the largest portable restoration units (roughly 500–1500 "
+        "m³/h, 300–900 cfm, from memory)",
+        "An air flow implied above this means the water is far more than the drop across "
+        "the unit allows (or the drop far too small for the water): the flow, the cooling "
+        "and the COP are not shown.",
+        "choice",
+    ),
     # --- comparison with a rating --------------------------------------------------------------
     Threshold(
         "dehumidifier_nominal_coil_c",

@@ -35,9 +35,9 @@ COOLING_BASIS = (
     "(water collected ÷ the drop × the hours), times the enthalpy of the air going in less "
     "that of air saturated at the outlet's humidity ratio (the coil state, at the outlet's "
     "dew point); latent is the part from the water taken out, sensible the cooling to the "
-    "coil. Enthalpies by ASHRAE Fundamentals 2017 ch. 1 eqn 30 (psychrolib); the "
-    "condensate's own enthalpy, about 0.2 % of it, is left out. COP: that cooling over "
-    "the unit's mean electrical power, fan included."
+    "coil, less the enthalpy the condensed water carries away as liquid at the coil "
+    "temperature (about 1 % of it). Enthalpies by ASHRAE Fundamentals 2017 ch. 1 eqn 30 "
+    "(psychrolib). COP: that cooling over the unit's mean electrical power, fan included."
 )
 
 
@@ -104,14 +104,15 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
     inlet_note = (
         " (the room's air reading, taken as the air going in)" if g.inlet_is_room_air else ""
     )
-    several = f" (mean of {len(r.states)} readings)" if len(r.states) > 1 else ""
+    timed = all(p.at_h is not None for p in g.readings)
+    mean = "time mean" if timed else "mean"
+    several = f" ({mean} of {len(r.states)} readings)" if len(r.states) > 1 else ""
     i, o = r.inlet, r.outlet
     first = (
         f"Air in{several}: {_air(d, i.dry_bulb_c, i.rh_pct, i.humidity_ratio_kg_per_kg)}"
         f"{inlet_note}; air out: "
         f"{_air(d, o.dry_bulb_c, o.rh_pct, o.humidity_ratio_kg_per_kg)}. "
-        f"The humidity ratio falls by {_drop(d, r.humidity_ratio_drop_kg_per_kg)} across "
-        f"the unit (the grain depression)."
+        + _change_text(d, r.humidity_ratio_drop_kg_per_kg)
     )
     lines = [first]
     if g.water_l is not None:
@@ -121,12 +122,13 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
             else ""
         )
         text = f"Water collected: {_amount(d, g.water_l, weighed)}"
-        if r.removal_l_per_day is not None and g.duration_h is not None:
-            basis = _duration_basis(g.duration_source)
-            text += f" in {g.duration_h:.1f} h{basis}: {_rate(d, r.removal_l_per_day)}"
+        if g.duration_h is not None:
+            text += f" in {_small(g.duration_h, 1)} h{_duration_basis(g.duration_source)}"
+            if r.removal_l_per_day is not None:
+                text += f": {_rate(d, r.removal_l_per_day)}"
         lines.append(text + ".")
     if r.energy_kwh is not None and r.mean_power_w is not None:
-        text = f"Energy used: {r.energy_kwh:.2f} kWh ({r.mean_power_w:.0f} W on average)"
+        text = f"Energy used: {_small(r.energy_kwh, 2)} kWh ({r.mean_power_w:.0f} W on average)"
         if r.energy_factor_l_per_kwh is not None:
             text += f": an energy factor of {r.energy_factor_l_per_kwh:.2f} L/kWh"
         lines.append(text + ".")
@@ -154,6 +156,20 @@ def measured_lines(r: DehumidifierResult, d: Display) -> list[str]:
             "out for it; its energy factor is the figure to compare."
         )
     return lines
+
+
+def _change_text(d: Display, drop: float) -> str:
+    """The humidity ratio's change across the unit: a fall is the grain depression."""
+    if drop < 0.0:
+        return f"The humidity ratio rises by {_drop(d, -drop)} across the unit."
+    return f"The humidity ratio falls by {_drop(d, drop)} across the unit (the grain depression)."
+
+
+def _small(value: float, places: int) -> str:
+    """A number to ``places`` decimals, or to two significant figures when that would show
+    it as 0 (0.01 h, 0.00001 kWh)."""
+    text = f"{value:.{places}f}"
+    return f"{value:.2g}" if value and float(text) == 0.0 else text
 
 
 def _duration_basis(source: str | None) -> str:
@@ -249,6 +265,8 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
             "The unit was recorded as not running: readings across it say nothing of how "
             "it performs."
         )
+    if kind is FindingKind.INCONSISTENT:
+        return _inconsistent_text(r, d)
     if kind is FindingKind.COIL_FROST:
         limit = d.temperature(th.value("refrigerant_coil_frost_inlet_c"))
         return (
@@ -331,6 +349,46 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
     return ""
 
 
+#: What each plausibility limit bounds, as a phrase before its value.
+_BEYOND = {
+    "dehumidifier_removal_max_l_per_day": "a removal rate above",
+    "dehumidifier_energy_factor_max_l_per_kwh": "an energy factor above",
+    "dehumidifier_air_flow_max_m3_per_h": "an air flow through the unit above",
+    "dehumidifier_cop_max": "a COP above",
+}
+
+
+def _limit_shown(key: str, d: Display) -> str:
+    value = th.value(key)
+    if key == "dehumidifier_removal_max_l_per_day":
+        return _rate(d, value)
+    if key == "dehumidifier_air_flow_max_m3_per_h":
+        return d("airflow", value)
+    if key == "dehumidifier_energy_factor_max_l_per_kwh":
+        return f"{value:g} L/kWh"
+    return f"{value:g}"
+
+
+def _listed(parts: list[str]) -> str:
+    """'a', 'a and b', 'a, b and c'."""
+    return parts[0] if len(parts) == 1 else ", ".join(parts[:-1]) + " and " + parts[-1]
+
+
+def _inconsistent_text(r: DehumidifierResult, d: Display) -> str:
+    """The readings are inconsistent: which figures would pass what a room unit can give."""
+    found = (f.threshold_keys for f in r.findings if f.kind is FindingKind.INCONSISTENT)
+    keys = next(found, tuple(_BEYOND))
+    parts = [f"{_BEYOND[k]} {_limit_shown(k, d)}" for k in keys if k in _BEYOND]
+    return (
+        "The readings are inconsistent: together they give "
+        + _listed(parts)
+        + ", more than a room dehumidifier can do, so "
+        + ("that figure is" if len(parts) == 1 else "those figures are")
+        + " left out. Check the water collected, the hours it was collected over, the power "
+        "or energy, and the air readings in and out of the unit."
+    )
+
+
 def finding_lines(r: DehumidifierResult, d: Display) -> list[str]:
     return [text for f in r.findings if (text := finding_text(f.kind, r, d))]
 
@@ -350,7 +408,8 @@ def summary(r: DehumidifierResult, d: Display) -> str:
     if c is not None and c.removal_of_expected is not None:
         parts.append(f"{_pct(100 * c.removal_of_expected)} of expected here")
     if not parts:
-        parts.append(f"drop {_drop(d, r.humidity_ratio_drop_kg_per_kg)}")
+        drop = r.humidity_ratio_drop_kg_per_kg
+        parts.append(f"rise {_drop(d, -drop)}" if drop < 0.0 else f"drop {_drop(d, drop)}")
     return ", ".join(parts)
 
 
@@ -380,6 +439,36 @@ def unit_lines(r: DehumidifierResult, d: Display) -> list[str]:
     ]
 
 
+# --- the command's and the app's frame --------------------------------------------------------
+
+
+def check_title(r: DehumidifierResult) -> str:
+    """The heading of one unit's check: 'Dehumidifier check (refrigerant unit)'."""
+    return f"Dehumidifier check ({r.given.kind} unit)"
+
+
+#: The sections of a check as the command prints them, in order.
+CHECK_SECTIONS = {
+    "measured": "Measured",
+    "rating": "Against its rating",
+    "found": "Found",
+    "note": "Note",
+    "safety": "Safety",
+    "limits": "Limits used",
+}
+#: The app's check dialog when the unit cannot be judged yet.
+NO_AIR_YET = "Give the room's air reading, or the air going in."
+#: The equipment dialog's note: a dehumidifier's check follows it.
+CHECK_FOLLOWS = (
+    "For a dehumidifier, its performance check (air in and out, hours, power, rating) follows."
+)
+
+
+def not_yet_text(problem: object) -> str:
+    """The check dialog's preview while a field is not yet readable."""
+    return f"Not yet: {problem}"
+
+
 # --- the report's table ----------------------------------------------------------------------
 
 REPORT_HEADING = "Dehumidifier performance"
@@ -396,6 +485,7 @@ NOT_CHECKED = "not checked: a reading is missing"
 #: Each finding in a few words, for a table cell.
 FINDING_SHORT = {
     FindingKind.NOT_RUNNING: "not running",
+    FindingKind.INCONSISTENT: "the readings are inconsistent",
     FindingKind.COIL_FROST: "coil frosts: too cold",
     FindingKind.TOO_COLD: "cold for a refrigerant unit",
     FindingKind.OUTLET_WETTER: "outlet wetter than inlet",
