@@ -91,6 +91,10 @@ def drying_equipment(
                 rates = []
                 break
             rates.append(e.water_removed_l * 24.0 / run_h)
+        # A rate no room unit gives means the water or the hours were recorded wrongly: no
+        # load is taken from it (the dehumidifier check names the inconsistency).
+        if any(r > th.value("dehumidifier_removal_max_l_per_day") for r in rates):
+            rates = []
         if rates and sum(rates) > 0.0:
             hours = sum(removed) * 24.0 / sum(rates)
     return assess.DryingEquipment(

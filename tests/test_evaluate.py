@@ -340,3 +340,21 @@ def test_the_logged_load_uses_the_time_since_the_units_last_reading_without_run_
     assert dehumidify.numbers.removal_l_per_day == pytest.approx(18 * 24 / 24.25, rel=1e-9)
     (unit,) = [u for u in equipment.judge_visit(survey, 1) if u.result is not None]
     assert unit.result.removal_l_per_day == pytest.approx(18 * 24 / 24.25, rel=1e-9)
+
+
+def test_a_logged_rate_no_unit_gives_is_not_taken_as_the_load():
+    """99 999 L over 0.01 h (a typing slip) is far beyond the most a room unit removes (the
+    dehumidifier check's limit): the advice takes no logged load from it."""
+    survey = load("basement-burst-pipe-drying")
+    for room_visit in survey.visits[1].rooms:
+        room_visit.equipment = [
+            msgspec.structs.replace(e, water_removed_l=99_999.0, run_hours=0.01)
+            if e.kind.endswith("dehumidifier")
+            else e
+            for e in room_visit.equipment
+        ]
+    judged = evaluate.assess_visit(survey, 1)
+    dehumidify = next(
+        a for a in _room_advice(judged, judged.room_ids[0]).actions if a.kind.value == "dehumidify"
+    )
+    assert dehumidify.numbers.logged_removal_l_per_day is None
