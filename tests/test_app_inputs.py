@@ -279,3 +279,28 @@ async def test_the_live_panel_never_shows_a_refused_value(tmp_path):
         assert message_of(app, "room-rh").startswith("Not saved")
         panel = str(app.screen.query_one("#live").render())
         assert "72 % RH" in panel and "70 % RH" not in panel
+
+
+async def test_enter_moves_past_a_tick_box_and_space_ticks_it(tmp_path):
+    """In the surface dialog Enter walks on from "condensation seen" without ticking it,
+    as it does from every field; Space ticks it."""
+    from textual.widgets import Checkbox
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("a")
+        await pilot.pause()
+        box = app.screen.query_one("#surface-condensation", Checkbox)
+        box.focus()
+        await pilot.pause()
+        await pilot.press("enter")
+        await pilot.pause()
+        assert box.value is False and app.focused is not box
+        box.focus()
+        await pilot.press("space")
+        await pilot.pause()
+        assert box.value is True

@@ -12,6 +12,7 @@ from typing import Any
 
 from rich.text import Text
 from textual import events, on
+from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.message import Message
 from textual.widgets import Checkbox, Input, Label, Static
@@ -177,7 +178,13 @@ class Field(Vertical):
 
 
 class Tick(Checkbox):
-    """A check box whose state is a symbol (✓ or blank), not a colour alone."""
+    """A check box whose state is a symbol (✓ or blank), not a colour alone. Space ticks it;
+    Enter moves on, as it does from every field (so a walk by Enter ticks nothing)."""
+
+    BINDINGS = [
+        Binding("space", "toggle_button", "Tick", id="tick_toggle", show=False),
+        Binding("enter", "app.focus_next", "Next", id="tick_next", show=False),
+    ]
 
     @property
     def _button(self):

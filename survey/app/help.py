@@ -29,6 +29,7 @@ def key_text(binding: Binding) -> str:
 def sections() -> list[tuple[str, list[Binding]]]:
     """Each screen's (or widget's) title and its bindings, as the help screen lists them."""
     from survey.app import chart, main, report_view, room, rooms, start, tables, visit, walk
+    from survey.app.fields import Tick
 
     return [
         ("Everywhere", main.SurveyApp.BINDINGS),
@@ -41,6 +42,7 @@ def sections() -> list[tuple[str, list[Binding]]]:
         ("Material table", tables.MaterialTable.BINDINGS),
         ("Equipment table", tables.EquipmentTable.BINDINGS),
         ("Instruments (site)", tables.InstrumentTable.BINDINGS),
+        ("Tick boxes", Tick.BINDINGS),
         ("Report", report_view.ReportScreen.BINDINGS),
         ("Chart", chart.ChartScreen.BINDINGS),
     ]
