@@ -310,8 +310,11 @@ def test_lowest_month_at_the_ends_of_the_bracket():
 
 def test_a_room_too_cool_for_a_heated_month_has_no_bracket():
     """Held at −22 °C, the warm end of the search (−22 − 10 = −32 °C) lies below its cold end
-    (−30 °C): no month is looked at, and the words say why."""
-    room = _room(ti=5.0, te=-8.0, surfaces=(("Wall", 0.0, "external_wall"),))
+    (−30 °C): no month is looked at, and the words say why. The room is dry enough for air at
+    −22 °C to hold its excess in that month (0.35 × 872.49 − 0.80 × 335.15 = 37.3 Pa, plus
+    0.90 × 19.05 = 17.1 Pa outdoors, is 54.4 Pa, below psat,water(−22 °C) = 105.6 Pa;
+    psychrolib's saturation pressures), so the month itself is still projected."""
+    room = _room(ti=5.0, rhi=35.0, te=-8.0, surfaces=(("Wall", 0.0, "external_wall"),))
     projection = season.project_room(room, DesignMonth(-40.0, 90.0, indoor_temp_c=-22.0))
     wall = projection.surfaces[0]
     assert wall.lowest_month.outcome is InverseOutcome.NO_BRACKET
@@ -368,6 +371,112 @@ def test_warm_day_falls_back_to_the_measured_excess_and_floors_a_negative_one():
     assert room.vapour_pressure_excess_pa < 0.0
     assert projection.design_vapour_pressure_excess_pa == 0.0
     assert "floor of class 1" in ws.excess_text(projection, words.SI)
+
+
+def test_a_mild_day_holds_the_excess_as_measured():
+    """Today 15 °C outside: along the class line the excess would be multiplied by
+    s(0 °C)/s(15 °C) = 1/0.25 = 4 (EN ISO 13788 Annex A lines, as above), 824 Pa becoming
+    3296 Pa and the room's air 114 % RH. Above ``class_line_warmest_outdoor_c`` (10 °C, our
+    choice) it is held as measured. By hand (psychrolib's saturation over water):
+    pi = 0.60 × psat(26 °C) = 0.60 × 3363.13 = 2017.88 Pa, pe = 0.70 × psat(15 °C) =
+    0.70 × 1705.45 = 1193.82 Pa, Δp = 824.07 Pa; pe,d = 0.90 × psat(0 °C) = 0.90 × 611.15 =
+    550.04 Pa (psychrolib's ice branch at 0 °C; over water 0.01 % more), pi,d = 1374.10 Pa
+    (room RH 1374.10/3363.13 = 40.9 %); fRsi = (21 − 15)/(26 − 15) = 0.545,
+    θsi = 0 + 0.545 × 26 = 14.18 °C, φsi = 1374.10/psat(14.18 °C) = 1374.10/1617.63 = 84.9 %."""
+    assert th.get("class_line_warmest_outdoor_c").mark == "choice"
+    room = _room(ti=26.0, rhi=60.0, te=15.0, rhe=70.0, surfaces=(("Wall", 21.0, "external_wall"),))
+    projection = season.project_room(room, DesignMonth(0.0, 90.0))
+    excess = 0.60 * _psat(26.0) - 0.70 * _psat(15.0)
+    assert round(excess, 2) == 824.07
+    assert projection.excess_model is ExcessModel.MEASURED and projection.excess_model_fallback
+    assert projection.reason is None
+    assert projection.design_vapour_pressure_excess_pa == pytest.approx(excess, rel=1e-9)
+    p_room = 0.90 * _psat(0.0) + excess
+    assert projection.design_vapour_pressure_pa == pytest.approx(p_room, rel=1e-4)
+    assert 100 * p_room / _psat(26.0) == pytest.approx(40.9, abs=0.05)
+    wall = projection.surfaces[0]
+    theta = 26.0 * 6.0 / 11.0
+    assert wall.design_surface_temp_c == pytest.approx(theta, abs=1e-9)
+    assert wall.design_surface_rh_pct == pytest.approx(100 * p_room / _psat(theta), rel=1e-4)
+    assert wall.design_surface_rh_pct == pytest.approx(84.9, abs=0.05)
+    text = ws.excess_text(projection, words.SI)
+    assert "is held as measured (today's outdoor air was warmer than 10 °C" in text
+    assert "may well be larger" in text
+
+
+@pytest.mark.parametrize(("te", "carried"), [(10.0, True), (10.5, False)])
+def test_the_class_line_is_used_up_to_its_warmest_day(te, carried):
+    """At 10 °C outside today the excess is still carried (s(0 °C)/s(10 °C) = 1/0.5 = 2, the
+    class lines above); at 10.5 °C it is held as measured."""
+    room = _room(ti=22.0, rhi=50.0, te=te, rhe=80.0)
+    projection = season.project_room(room, DesignMonth(0.0, 90.0))
+    excess = room.vapour_pressure_excess_pa
+    assert projection.excess_model_fallback is not carried
+    expected = 2.0 * excess if carried else excess
+    assert projection.design_vapour_pressure_excess_pa == pytest.approx(expected, rel=1e-9)
+
+
+def test_room_air_that_would_saturate_is_not_meaningful():
+    """Today 20 °C / 70 % in the room, 10 °C / 70 % outside: Δp = 0.70 × (2338.80 − 1228.00) =
+    777.57 Pa, carried along the class line to a 0 °C month ×2 = 1555.13 Pa; with
+    pe,d = 0.90 × 611.15 = 550.04 Pa that is 2105.2 Pa, more than air at the 12 °C the month
+    holds the room at can take (psat,water(12 °C) = 1402.59 Pa; psychrolib's saturation
+    pressures). The room's vapour pressure is held at saturation, and no surface RH is
+    projected (at θsi = 0 + 0.5 × 12 = 6 °C it would read 2105.2/935.25 = 225 % without the
+    hold)."""
+    room = _room(ti=20.0, rhi=70.0, te=10.0, rhe=70.0, surfaces=(("Wall", 15.0, "external_wall"),))
+    projection = season.project_room(room, DesignMonth(0.0, 90.0, indoor_temp_c=12.0))
+    excess = 0.70 * (_psat(20.0) - _psat(10.0))
+    assert round(excess, 2) == 777.57
+    assert projection.design_vapour_pressure_excess_pa == pytest.approx(2 * excess, rel=1e-9)
+    assert projection.design_vapour_pressure_pa == pytest.approx(_psat(12.0), rel=1e-9)
+    assert projection.reason is RoomReason.ROOM_SATURATED
+    wall = projection.surfaces[0]
+    assert wall.state is DesignState.NOT_MEANINGFUL and not wall.projected
+    assert wall.design_surface_rh_pct is None and not wall.fails_in_month
+    text = ws.excess_text(projection, words.SI)
+    assert "The room's air itself would saturate" in text and "not meaningful" in text
+    assert "1403 Pa" in text and "2105 Pa" in text
+    assert ws.surface_sentence(wall, projection, words.SI).startswith(
+        "Wall: not meaningful: in the design month the room's air itself would saturate"
+    )
+
+
+def test_evaluate_holds_the_room_at_saturation():
+    """The per-surface arithmetic holds the room's vapour pressure at psat,water(θi,d) too
+    (the search for the lowest month goes through it): φsi = psat(12)/psat(θsi), with
+    θsi = 0 + 0.5 × 12 = 6 °C for fRsi = (15 − 10)/(20 − 10) = 0.5 (the room above)."""
+    room = _room(ti=20.0, rhi=70.0, te=10.0, rhe=70.0, surfaces=(("Wall", 15.0, "external_wall"),))
+    air, outdoor = room.air, room.outdoor
+    r = season_math.Readings(
+        15.0, 20.0, 10.0, air.vapour_pressure_pa, outdoor.vapour_pressure_pa,
+        air.sat_pressure_water_pa, outdoor.sat_pressure_water_pa,
+        air.dln_sat_pressure_water_per_k, outdoor.dln_sat_pressure_water_per_k,
+        0.3, 0.3, 0.01, True, 2.0,
+    )  # fmt: skip
+    point = season_math.evaluate(r, 0.0, 90.0, 12.0, ExcessModel.CLASS_LINE)
+    assert point.room_saturated
+    assert point.surface_temp_c == pytest.approx(6.0, abs=1e-9)
+    assert point.rh_pct == pytest.approx(100 * _psat(12.0) / _psat(6.0), rel=1e-9)
+    drier = season_math.evaluate(r, 0.0, 90.0, 19.0, ExcessModel.CLASS_LINE)
+    assert not drier.room_saturated
+
+
+def test_check_mild_day_keeps_the_room_below_saturation(check):
+    """The command line on the mild day above: the excess held as measured (824 Pa, not
+    3296 Pa), the surface near 85 %, said so in words."""
+    status, out, err = check(
+        "--air-temp", "26", "--rh", "60", "--surface-temp", "21", "--outdoor-temp", "15",
+        "--outdoor-rh", "70", "--design-outdoor-temp", "0", "--design-outdoor-rh", "90", "--json",
+    )  # fmt: skip
+    assert status == 0, err
+    data = json.loads(out)
+    excess = 0.60 * _psat(26.0) - 0.70 * _psat(15.0)
+    assert data["design_vapour_pressure_excess_pa"] == pytest.approx(excess, rel=1e-4)
+    assert data["design_month"]["excess_model"] == "measured"
+    assert data["design_month"]["excess_model_fallback"] is True
+    assert data["surfaces"][0]["design_surface_rh_pct"] == pytest.approx(84.9, abs=0.05)
+    assert "held as measured" in data["design_excess_text"]
 
 
 # --- the design month --------------------------------------------------------------------------

@@ -61,6 +61,7 @@ STATE_WORDS = {
     DesignState.CANNOT_TELL: CANNOT_TELL,
     DesignState.NOT_MEASURABLE: "cannot be judged",
     DesignState.NOT_PROJECTED: "not projected",
+    DesignState.NOT_MEANINGFUL: "not meaningful",
 }
 
 _NOT_PROJECTED = {
@@ -118,6 +119,12 @@ def not_projected_reason(
         why = None if finding is None else factor_not_judged_reason(finding, d)
         return "cannot be judged: the temperature factor was not measurable today" + (
             f"; {why}" if why else ""
+        )
+    if room.reason is RoomReason.ROOM_SATURATED and p.state is DesignState.NOT_MEANINGFUL:
+        return (
+            "not meaningful: in the design month the room's air itself would saturate (today's "
+            "moisture excess carried there is more vapour than air at "
+            f"{d.temperature(room.indoor_temp_c)} holds), so no surface RH is projected"
         )
     if room.reason is RoomReason.INDOOR_NOT_WARMER:
         return (
@@ -339,19 +346,51 @@ def excess_text(room: RoomProjection, d: Display) -> str | None:
         if room.design_vapour_pressure_excess_pa == 0.0 and room.measured_excess_pa < 0.0
         else ""
     )
+    saturated = _saturated_text(room, d)
     if room.excess_model is ExcessModel.CLASS_LINE:
         return (
             f"{today}, is carried along the line of its humidity class (EN ISO 13788 Annex A: "
             f"constant at and below {d.temperature(th.value('humidity_class_flat_below_c'), 0)} "
             f"outside, falling to zero at "
             f"{d.temperature(th.value('humidity_class_zero_at_c'), 0)}): {month}{floored}."
+            f"{saturated}"
         )
-    why = (
-        " (outdoors was too warm today to place it on a class line)"
-        if room.excess_model_fallback
-        else ""
+    why = ""
+    if room.excess_model_fallback and room.measured_outdoor_temp_c is not None:
+        zero = th.value("humidity_class_zero_at_c")
+        if room.measured_outdoor_temp_c >= zero:
+            why = (
+                f" (at {_temp(zero, d)} outside or warmer the class lines have reached zero: "
+                "there is no line to carry it along"
+            )
+        else:
+            why = (
+                f" (today's outdoor air was warmer than "
+                f"{_temp(th.value('class_line_warmest_outdoor_c'), d)}, the warmest at which it "
+                f"is carried along a class line: nearer {_temp(zero, d)} the line multiplies "
+                "one mild day's excess many times over, more than that reading bears"
+            )
+        why += (
+            "; in a colder month, with the windows shut, the excess may well be larger than "
+            "this, and a reading on a colder day settles it)"
+        )
+    return f"{today}, is held as measured{why}: {month}{floored}.{saturated}"
+
+
+def _saturated_text(room: RoomProjection, d: Display) -> str:
+    """Said after the excess when the room's air itself would saturate in the month."""
+    excess, saturation = room.design_vapour_pressure_excess_pa, room.design_vapour_pressure_pa
+    if room.reason is not RoomReason.ROOM_SATURATED or excess is None or saturation is None:
+        return ""
+    total = room.design_outdoor_vapour_pressure_pa + excess
+    return (
+        f" With the month's outdoor vapour pressure, "
+        f"{d('vapour_pressure', room.design_outdoor_vapour_pressure_pa)}, that is "
+        f"{d('vapour_pressure', total)}: more than air at {d.temperature(room.indoor_temp_c)} "
+        f"holds ({d('vapour_pressure', saturation)}). The room's air itself would saturate, "
+        "which no room does for a month, so the projection is not meaningful for this room; "
+        "check today's readings, and if they stand, the room's moisture sources."
     )
-    return f"{today}, is held as measured{why}: {month}{floored}."
 
 
 def _names(surfaces: Iterable[SurfaceProjection]) -> str:
