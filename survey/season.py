@@ -111,6 +111,7 @@ __all__ = [
     "project_room",
     "project_site",
     "site_design_month",
+    "usable_site_month",
 ]
 
 # --- states ------------------------------------------------------------------------------------
@@ -243,6 +244,16 @@ def site_design_month(site: model.Site) -> DesignMonth:
         outdoor_temp_default=temp is None,
         outdoor_rh_default=rh is None,
     )
+
+
+def usable_site_month(site: model.Site) -> tuple[DesignMonth, InputError | None]:
+    """The site's design month, or our default and the error that refused the site's. A site
+    loaded from a file has none to refuse (the store checks it, ``model.problems``); one being
+    edited in memory may."""
+    try:
+        return site_design_month(site), None
+    except InputError as exc:
+        return default_design_month(), exc
 
 
 # --- results -----------------------------------------------------------------------------------

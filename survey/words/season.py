@@ -295,13 +295,20 @@ def month_phrase(month: DesignMonth, d: Display) -> str:
     )
 
 
-def design_month_text(month: DesignMonth, d: Display) -> str:
-    """Which design month is used and whose it is; our default is said to be our choice."""
+def design_month_text(month: DesignMonth, d: Display, site_refused: bool = False) -> str:
+    """Which design month is used and whose it is; our default is said to be our choice.
+    ``site_refused``: the site gives a month that cannot be used (:func:`site_month_unusable`
+    says so), so the default is not said to stand for a month not given."""
     if month.source == "default":
         text = (
             f"Design month: {month_phrase(month, d)}, our choice: a typical coldest-month mean "
-            "for a temperate climate, used because no design month is given for this site "
-            "(a local month's mean temperature and RH can be set on the site)."
+            "for a temperate climate"
+        )
+        text += (
+            "."
+            if site_refused
+            else ", used because no design month is given for this site (a local month's "
+            "mean temperature and RH can be set on the site)."
         )
     else:
         whose = "the site's" if month.source == "site" else "the one given"
@@ -420,24 +427,28 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
     return lines
 
 
-def panel_lines(room: RoomProjection, d: Display) -> list[str]:
-    """The app's room panel: the design month in brief and the worst surface, today's surface
-    RH beside the projected one."""
+def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = None) -> list[str]:
+    """The app's room panel: the design month in brief (and, when the site's month was
+    refused, ``site_problem`` says why in one line) and the worst surface, today's surface RH
+    beside the projected one."""
     if not room.surfaces:
         return []
     month = room.month
     head = f"{HEADING} ({_temp(month.outdoor_temp_c, d)} outside, {month.outdoor_rh_pct:.0f} % RH"
     head += ", our default)" if month.is_default else ")"
+    lines = [head]
+    if site_problem is not None:
+        lines.append(site_month_unusable(site_problem))
     worst = room.worst
     if worst is None:
         reasons = {not_projected_reason(s, room, None, d) for s in room.surfaces}
         why = next(iter(reasons)) if len(reasons) == 1 else "no wall, ceiling or floor projected"
-        return [head, "No surface projected: " + why + "."]
+        return [*lines, "No surface projected: " + why + "."]
     line = (
         f"{visible(worst.label)}: {worst.today_surface_rh_pct:.0f} % today, "
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
     )
-    return [head, line]
+    return [*lines, line]
 
 
 # --- the report ------------------------------------------------------------------------------
@@ -459,8 +470,13 @@ LIMITS_LEAD = "The limits and choices the colder month rests on:"
 
 
 def site_month_unusable(problem: str) -> str:
-    """The site's design month cannot be projected to: what is wrong, and what is used."""
-    return f"The site's design month cannot be used ({problem}); our default month is used instead."
+    """The site's design month cannot be projected to: what is wrong, and what is used. The
+    problem (an error's text, which may quote what was typed) has its control characters
+    made visible."""
+    return (
+        f"The site's design month cannot be used ({visible(problem)}); our default month is "
+        "used instead."
+    )
 
 
 def _by_room(rooms: Iterable[RoomProjection], pick: str) -> str:
