@@ -244,3 +244,27 @@ def test_panel_says_why_the_site_month_is_not_used():
     assert line in text.splitlines()
     assert "above the design outdoor temperature (25 °C)" in line
     assert season.usable_site_month(store.load_survey(FLAT).site)[1] is None
+
+
+def test_check_help_reads_the_class_lines_from_their_records(monkeypatch):
+    """The --design-excess help gives the class lines' knees and the warmest day the line is
+    used on from their threshold records (moved here to 2, 18 and 8 °C, values of no source,
+    only to see the help follow the records)."""
+    import argparse
+    import dataclasses
+
+    from survey.commands import check_options
+    from survey.thresholds import table
+
+    for key, moved in (
+        ("humidity_class_flat_below_c", 2.0),
+        ("humidity_class_zero_at_c", 18.0),
+        ("class_line_warmest_outdoor_c", 8.0),
+    ):
+        monkeypatch.setitem(table._BY_KEY, key, dataclasses.replace(th.get(key), value=moved))
+    parser = argparse.ArgumentParser()
+    check_options.add_arguments(parser)
+    action = next(a for a in parser._actions if "--design-excess" in a.option_strings)
+    text = " ".join(action.help.split())
+    assert "constant at and below 2 °C outside, zero at 18 °C" in text
+    assert "at most 8 °C" in text
