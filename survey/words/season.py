@@ -122,9 +122,8 @@ def not_projected_reason(
         )
     if room.reason is RoomReason.ROOM_SATURATED and p.state is DesignState.NOT_MEANINGFUL:
         return (
-            "not meaningful: in the design month the room's air itself would saturate (today's "
-            "moisture excess carried there is more vapour than air at "
-            f"{d.temperature(room.indoor_temp_c)} holds), so no surface RH is projected"
+            "not meaningful: in the design month the room's air itself would saturate at "
+            f"{d.temperature(room.indoor_temp_c)}"
         )
     if room.reason is RoomReason.INDOOR_NOT_WARMER:
         return (
