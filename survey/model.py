@@ -42,7 +42,7 @@ from typing import Annotated, Literal
 
 from msgspec import Meta, Struct, field
 
-from survey import domain
+from survey import domain, thresholds
 from survey.psychro import (
     ALTITUDE_MAX_M,
     ALTITUDE_MIN_M,
@@ -526,14 +526,35 @@ def photo_name_problem(name: str) -> str:
     return ""
 
 
+def _design_month_problem(site: Site) -> tuple[str, str] | None:
+    """A design month the colder-month projection (``survey.season.DesignMonth``) refuses: an
+    outdoor mean below the psychrometric range (the field allows −60 °C), or an indoor
+    temperature no warmer than the outdoor mean (our default's where the site gives none)."""
+    outdoor, indoor = site.design_outdoor_temp_c, site.design_indoor_temp_c
+    if outdoor is not None and outdoor < DRY_BULB_MIN_C:
+        problem = f"the colder-month projection takes air from {DRY_BULB_MIN_C:g} °C"
+        return "site.design_outdoor_temp_c", f"{outdoor:g} °C is too cold: {problem}"
+    ours = outdoor is None
+    outdoor = thresholds.value("design_month_outdoor_temp_default_c") if ours else outdoor
+    if indoor is None or outdoor is None or indoor > outdoor:
+        return None
+    month = f"{'our default, ' * ours}{outdoor:g} °C"
+    problem = f"the colder month is a heated month: it must be above the outdoor mean ({month})"
+    return "site.design_indoor_temp_c", f"{indoor:g} °C: {problem}"
+
+
 def problems(survey: Survey) -> list[tuple[str, str]]:
     """Checks across records, as ``(where, problem)`` pairs; empty when all is well.
 
     Ids must be unique; every room and instrument a reading names must exist; a room
     appears at most once per visit; a mould area needs visible mould; a volume worked out
-    from floor area × height must lie in the room-volume domain.
+    from floor area × height must lie in the room-volume domain; the site's design month
+    must be one the colder-month projection can use (:func:`_design_month_problem`).
     """
     found: list[tuple[str, str]] = []
+    design = _design_month_problem(survey.site)
+    if design is not None:
+        found.append(design)
     room_ids: set[str] = set()
     for i, room in enumerate(survey.rooms):
         if room.id in room_ids:

@@ -34,9 +34,17 @@ The excess in the design month
   linearly to zero at 20 °C (``humidity_class_flat_below_c``, ``humidity_class_zero_at_c``,
   read through :func:`survey.thresholds.humidity_class_limits_pa`). So
   Δp,d = Δp · s(θe,d)/s(θe) with s the line's scale; the room stays at the same place
-  within its class. When today's outdoor air was at or above 20 °C there is no line to carry
-  it along and the excess is held as measured (``excess_model_fallback``).
+  within its class. The factor s(θe,d)/s(θe) grows without bound as today's outdoor air
+  nears 20 °C (×4 at 15 °C, ×20 at 19 °C), so the line is used only on a day no warmer than
+  ``class_line_warmest_outdoor_c`` (10 °C: at most ×2); on a warmer day the excess is held
+  as measured and the words say it may understate a colder month's
+  (``excess_model_fallback``).
 * ``MEASURED``: Δp,d = Δp.
+
+Whichever it is, the room's vapour pressure pe,d + Δp,d is held at saturation over water at
+θi,d: an excess that would carry the room's air past saturation is no room that exists, so
+its surfaces are ``NOT_MEANINGFUL`` (the room's ``reason`` is ``ROOM_SATURATED``), never a
+surface RH of 200 %.
 
 A negative excess (a room drier than outdoors, which a heated room in winter does not stay
 without drying equipment) is projected as no excess: the floor of class 1.
@@ -77,8 +85,8 @@ from survey.season_math import (
     combined,
     evaluate,
     excess_in_month,
-    line_scale,
     lowest_month,
+    room_vapour_pressure,
 )
 
 if TYPE_CHECKING:  # the model (msgspec) stays off the quick check's import path
@@ -103,6 +111,7 @@ __all__ = [
     "project_room",
     "project_site",
     "site_design_month",
+    "usable_site_month",
 ]
 
 # --- states ------------------------------------------------------------------------------------
@@ -119,6 +128,8 @@ class DesignState(Enum):
     CANNOT_TELL = ("cannot_tell", None)
     NOT_MEASURABLE = ("not_measurable", None)
     NOT_PROJECTED = ("not_projected", None)
+    #: The room's air itself would saturate in the month: no surface RH is projected.
+    NOT_MEANINGFUL = ("not_meaningful", None)
 
     def __new__(cls, value: str, rank: int | None) -> DesignState:
         member = object.__new__(cls)
@@ -140,6 +151,9 @@ class RoomReason(Enum):
 
     NO_OUTDOOR = "no_outdoor"  #: no outdoor reading today: no factor, no excess
     INDOOR_NOT_WARMER = "indoor_not_warmer"  #: the design month is as warm as the room
+    #: The room's air itself would saturate in the design month: outdoor vapour pressure plus
+    #: the excess carried there is at least saturation at the indoor temperature.
+    ROOM_SATURATED = "room_saturated"
 
 
 # --- the design month --------------------------------------------------------------------------
@@ -232,6 +246,16 @@ def site_design_month(site: model.Site) -> DesignMonth:
     )
 
 
+def usable_site_month(site: model.Site) -> tuple[DesignMonth, InputError | None]:
+    """The site's design month, or our default and the error that refused the site's. A site
+    loaded from a file has none to refuse (the store checks it, ``model.problems``); one being
+    edited in memory may."""
+    try:
+        return site_design_month(site), None
+    except InputError as exc:
+        return default_design_month(), exc
+
+
 # --- results -----------------------------------------------------------------------------------
 
 
@@ -296,7 +320,9 @@ class RoomProjection(NamedTuple):
     indoor_temp_c: float  #: used in the design month
     indoor_measured: bool  #: the room's as measured (the month gives none)
     excess_model: ExcessModel  #: the one used
-    excess_model_fallback: bool  #: class line asked, but today's outdoor air was too warm
+    #: Class line asked, but today's outdoor air was warmer than
+    #: ``class_line_warmest_outdoor_c``: held as measured.
+    excess_model_fallback: bool
     measured_outdoor_temp_c: float | None
     measured_excess_pa: float | None
     measured_excess_uncertainty_pa: float | None  #: expanded, the assessment's
@@ -304,7 +330,9 @@ class RoomProjection(NamedTuple):
     design_outdoor_vapour_pressure_pa: float
     design_vapour_pressure_excess_pa: float | None
     design_vapour_pressure_excess_uncertainty_pa: float | None  #: expanded
-    design_vapour_pressure_pa: float | None  #: the room's in the design month
+    #: The room's in the design month, held at saturation at the indoor temperature (so
+    #: below outdoor plus excess when ``reason`` is ``ROOM_SATURATED``).
+    design_vapour_pressure_pa: float | None
     surfaces: tuple[SurfaceProjection, ...]
     threshold_keys: tuple[str, ...]
 
@@ -379,12 +407,14 @@ def project_room(
     ti_d = air.dry_bulb_c if month.indoor_temp_c is None else month.indoor_temp_c
     pe_d = month.outdoor_rh_pct / 100.0 * psychro.sat_vapour_pressure_water_pa(month.outdoor_temp_c)
     keys = (*PROJECTION_KEYS, *month.threshold_keys)
+    if excess_model is ExcessModel.CLASS_LINE:  # the warmest day the class line is used on
+        keys = (*keys, "class_line_warmest_outdoor_c")
     used = excess_model
     fallback = False
     if (
         outdoor is not None
         and used is ExcessModel.CLASS_LINE
-        and line_scale(outdoor.dry_bulb_c) <= 0
+        and outdoor.dry_bulb_c > th.value("class_line_warmest_outdoor_c")
     ):
         used, fallback = ExcessModel.MEASURED, True
     reason = None
@@ -415,7 +445,9 @@ def project_room(
         )
         design_excess, sens = excess_in_month(readings, month.outdoor_temp_c, used)
         design_excess_u = readings.k * combined(readings, sens)
-        design_p = pe_d + design_excess
+        design_p, saturated = room_vapour_pressure(pe_d, design_excess, ti_d)
+        if saturated and reason is None:
+            reason = RoomReason.ROOM_SATURATED
     mould = th.value("surface_rh_mould_limit_pct")
     for s in finding.surfaces:
         if s.temperature_factor is None:
@@ -427,7 +459,14 @@ def project_room(
             surfaces.append(_not_projected(s, state))
             continue
         if reason is not None:
-            surfaces.append(_not_projected(s, DesignState.NOT_PROJECTED))
+            surfaces.append(
+                _not_projected(
+                    s,
+                    DesignState.NOT_MEANINGFUL
+                    if reason is RoomReason.ROOM_SATURATED
+                    else DesignState.NOT_PROJECTED,
+                )
+            )
             continue
         r = readings._replace(ts=s.surface_temp_c)
         point = evaluate(r, month.outdoor_temp_c, month.outdoor_rh_pct, month.indoor_temp_c, used)

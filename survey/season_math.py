@@ -20,6 +20,11 @@ p = RH·psat,water(t) and L(t) = d ln psat/dt:
   ∂Δp,d/∂RHe = −r·psat,w(te)  (zero when the excess is floored at 0)
 * ∂ ln φsi/∂x = (∂Δp,d/∂x)/pi,d − L(θsi)·∂θsi/∂x
 
+The room's vapour pressure pi,d = pe,d + Δp,d is held at saturation over water at θi,d
+(:func:`room_vapour_pressure`): air holds no more, and an excess carried past it is no
+longer a room that exists. Held there, pi,d moves only with a measured room temperature
+(∂pi,d/∂ti = psat,w(ti)·Li); the projection flags it (:attr:`Point.room_saturated`).
+
 The terms add in quadrature, except that when one thermometer read the room and the outdoor
 air (``Accuracy.shared_thermometer``) the ti and te errors are one error (GUM 5.2, r = 1) and
 their sensitivities add before squaring. So the uncertainty of fRsi and of the excess, and
@@ -126,6 +131,9 @@ class Point(NamedTuple):
     rh_pct: float
     u_ln_rh: float
     excess_pa: float
+    #: The room's vapour pressure (outdoor plus excess) reached saturation at the indoor
+    #: temperature and was held there (:func:`room_vapour_pressure`).
+    room_saturated: bool = False
 
 
 READINGS = ("ts", "ti", "te", "rhi", "rhe")
@@ -165,6 +173,17 @@ def excess_in_month(
     }
 
 
+def room_vapour_pressure(
+    outdoor_pa: float, excess_pa: float, indoor_c: float
+) -> tuple[float, bool]:
+    """The room's vapour pressure in the month, outdoor plus excess, held at saturation over
+    water at the indoor temperature (air cannot hold more; RH relative to water, as
+    measured), and whether it was held there."""
+    saturation = psychro.sat_vapour_pressure_water_pa(indoor_c)
+    p_room = outdoor_pa + excess_pa
+    return (saturation, True) if p_room >= saturation else (p_room, False)
+
+
 def evaluate(
     r: Readings,
     te_d: float,
@@ -180,7 +199,13 @@ def evaluate(
     f = (r.ts - r.te) / delta
     theta = te_d + f * d
     excess, dex = excess_in_month(r, te_d, excess_model)
-    p_room = rh_e_d / 100.0 * psychro.sat_vapour_pressure_water_pa(te_d) + excess
+    p_room, saturated = room_vapour_pressure(
+        rh_e_d / 100.0 * psychro.sat_vapour_pressure_water_pa(te_d), excess, ti_d
+    )
+    if saturated:  # held at psat,water(θi,d): it moves only with a measured room temperature
+        dex = dict.fromkeys(READINGS, 0.0)
+        if ti_given is None:
+            dex["ti"] = r.pws_i * r.l_i
     rh = 100.0 * p_room / psychro.sat_vapour_pressure_pa(theta)
     l_s = psychro.dln_sat_vapour_pressure_per_k(theta)
     dth = {
@@ -191,7 +216,7 @@ def evaluate(
         "rhe": 0.0,
     }
     dln = {x: dex[x] / p_room - l_s * dth[x] for x in READINGS}
-    return Point(theta, combined(r, dth), rh, combined(r, dln), excess)
+    return Point(theta, combined(r, dth), rh, combined(r, dln), excess, saturated)
 
 
 #: Step of the downward scan in the search for the lowest month, K.

@@ -293,7 +293,7 @@ def test_a_unit_at_its_rating_condition_is_expected_to_give_its_rating():
     for kind in ("refrigerant", "desiccant"):
         r = eq.check(
             _given(
-                readings=(AirPair(26.7, 60.0, 33.0, 30.0),),
+                readings=(AirPair((80 - 32) / 1.8, 60.0, 33.0, 30.0),),  # 80 °F, the point
                 kind=kind,
                 rated_capacity_l_per_day=9.6,
                 rated_energy_factor_l_per_kwh=1.6,
@@ -308,20 +308,22 @@ def test_a_unit_at_its_rating_condition_is_expected_to_give_its_rating():
 
 
 def test_site_scaling_by_hand():
-    """24 °C / 70 % against 18.3 °C / 60 %: W = 0.013096 and 0.0078449 kg/kg; saturated air
-    at 0 °C holds W_0 = 0.621945 × 611.21 / (101325 − 611.21) = 0.0037745 (pws over water at
-    0 °C, ASHRAE eqn 6). Refrigerant: s = (0.013096 − 0.0037745) / (0.0078449 − 0.0037745)
-    = 2.2901; desiccant: s = 0.013096 / 0.0078449 = 1.6694."""
+    """24 °C / 70 % against 65 °F = (65 − 32)/1.8 = 18.333 °C / 60 %: W = 0.013096 and
+    0.0078616 kg/kg (psychrolib); saturated air at 0 °C holds W_0 = 0.621945 × 611.21 /
+    (101325 − 611.21) = 0.0037745 (pws over water at 0 °C, ASHRAE eqn 6). Refrigerant:
+    s = (0.013096 − 0.0037745) / (0.0078616 − 0.0037745) = 2.2808; desiccant:
+    s = 0.013096 / 0.0078616 = 1.6659."""
     common = {"rated_capacity_l_per_day": 20.0, "rating_condition": "18.3c_60"}
     refrigerant = eq.check(_given(**common)).comparison
-    w_rating = psychrolib.GetHumRatioFromRelHum(18.3, 0.60, P)  # the rating air, psychrolib
+    # the rating air, psychrolib
+    w_rating = psychrolib.GetHumRatioFromRelHum((65 - 32) / 1.8, 0.60, P)
     assert refrigerant.rating_air.humidity_ratio_kg_per_kg == pytest.approx(w_rating, rel=1e-9)
-    assert w_rating == pytest.approx(0.0078449, rel=1e-4)
-    assert refrigerant.site_scale == pytest.approx(2.2901, rel=1e-4)
-    assert refrigerant.expected_removal_l_per_day == pytest.approx(45.80, rel=1e-3)
+    assert w_rating == pytest.approx(0.0078616, rel=1e-4)
+    assert refrigerant.site_scale == pytest.approx(2.2808, rel=1e-4)
+    assert refrigerant.expected_removal_l_per_day == pytest.approx(45.62, rel=1e-3)
     assert refrigerant.removal_of_rated == pytest.approx(9.6 / 20.0)
     desiccant = eq.check(_given(kind="desiccant", **common)).comparison
-    assert desiccant.site_scale == pytest.approx(1.6694, rel=1e-4)
+    assert desiccant.site_scale == pytest.approx(1.6659, rel=1e-4)
 
 
 def test_comparison_keys_are_cited():

@@ -310,8 +310,11 @@ def test_lowest_month_at_the_ends_of_the_bracket():
 
 def test_a_room_too_cool_for_a_heated_month_has_no_bracket():
     """Held at −22 °C, the warm end of the search (−22 − 10 = −32 °C) lies below its cold end
-    (−30 °C): no month is looked at, and the words say why."""
-    room = _room(ti=5.0, te=-8.0, surfaces=(("Wall", 0.0, "external_wall"),))
+    (−30 °C): no month is looked at, and the words say why. The room is dry enough for air at
+    −22 °C to hold its excess in that month (0.35 × 872.49 − 0.80 × 335.15 = 37.3 Pa, plus
+    0.90 × 19.05 = 17.1 Pa outdoors, is 54.4 Pa, below psat,water(−22 °C) = 105.6 Pa;
+    psychrolib's saturation pressures), so the month itself is still projected."""
+    room = _room(ti=5.0, rhi=35.0, te=-8.0, surfaces=(("Wall", 0.0, "external_wall"),))
     projection = season.project_room(room, DesignMonth(-40.0, 90.0, indoor_temp_c=-22.0))
     wall = projection.surfaces[0]
     assert wall.lowest_month.outcome is InverseOutcome.NO_BRACKET

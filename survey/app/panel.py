@@ -8,7 +8,6 @@ from textual.widgets import Static
 
 from survey import evaluate, season, words
 from survey.app.fields import plain
-from survey.errors import InputError
 from survey.words import screens
 from survey.words import season as ws
 
@@ -17,7 +16,10 @@ def panel_text(
     judged: evaluate.RoomAssessment | None,
     d: words.Display,
     month: season.DesignMonth | None = None,
+    month_problem: str | None = None,
 ) -> Text:
+    """The panel's text; ``month_problem`` is why the site's design month was refused (our
+    default ``month`` is then projected to, and the panel says why in one line)."""
     if judged is None:
         return Text(screens.NO_ROOM_READING)
     f, advice = judged.finding, judged.advice
@@ -28,7 +30,8 @@ def panel_text(
     out.append(plain(screens.safe_rh_set_by(f)))
     out.append("\n")
     if month is not None:
-        lines = ws.panel_lines(season.project_room(f, month, with_lowest=False), d)
+        room = season.project_room(f, month, with_lowest=False)
+        lines = ws.panel_lines(room, d, month_problem)
         if lines:
             out.append(f"\n{lines[0]}\n", style="bold")
             for line in lines[1:]:
@@ -59,15 +62,14 @@ class LivePanel(Static):
     DEFAULT_CLASSES = "live-panel"
 
     def show(self, judged: evaluate.RoomAssessment | None, d: words.Display) -> None:
-        self.update(panel_text(judged, d, self._design_month()))
+        month, problem = self._design_month()
+        self.update(panel_text(judged, d, month, problem))
 
-    def _design_month(self) -> season.DesignMonth:
-        """The survey site's design month (our default where it gives none or one that
-        cannot be used)."""
+    def _design_month(self) -> tuple[season.DesignMonth, str | None]:
+        """The survey site's design month (our default where it gives none), or our default
+        and why the site's cannot be used."""
         editor = getattr(self.app, "editor", None)
         if editor is None:
-            return season.default_design_month()
-        try:
-            return season.site_design_month(editor.survey.site)
-        except InputError:
-            return season.default_design_month()
+            return season.default_design_month(), None
+        month, refused = season.usable_site_month(editor.survey.site)
+        return month, None if refused is None else str(refused)

@@ -197,8 +197,11 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
         default="class-line",
         metavar="class-line|measured",
         help="the room's vapour-pressure excess in that month: carried along its "
-        "humidity class's line (constant at and below 0 °C outside, zero at 20 °C; "
-        "the default) or held as measured",
+        "humidity class's line (constant at and below "
+        f"{th.value('humidity_class_flat_below_c'):g} °C outside, zero at "
+        f"{th.value('humidity_class_zero_at_c'):g} °C; the default, used when today's outdoor "
+        f"air is at most {th.value('class_line_warmest_outdoor_c'):g} °C, held as measured "
+        "on a warmer day) or held as measured",
     )
     accuracy = parser.add_argument_group("instrument accuracy (± each)")
     accuracy.add_argument(

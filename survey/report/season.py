@@ -8,7 +8,6 @@ from typing import Any
 
 from survey import evaluate, season, words
 from survey import thresholds as th
-from survey.errors import InputError
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
 from survey.report.rooms import Context
 from survey.words import season as ws
@@ -16,10 +15,8 @@ from survey.words import season as ws
 
 def _month(ctx: Context) -> tuple[season.DesignMonth, str | None]:
     """The site's design month, or our default with the reason the site's cannot be used."""
-    try:
-        return season.site_design_month(ctx.survey.site), None
-    except InputError as exc:
-        return season.default_design_month(), ws.site_month_unusable(str(exc))
+    month, refused = season.usable_site_month(ctx.survey.site)
+    return month, None if refused is None else ws.site_month_unusable(str(refused))
 
 
 def _surfaces(
@@ -90,7 +87,13 @@ def season_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment) ->
     doc.add(Heading(3, ws.HEADING), Para(ws.INTRO))
     if unusable:
         doc.add(Para(unusable))
-    doc.add(Para(ws.design_month_text(month, d), name="design_month", visit=visit))
+    doc.add(
+        Para(
+            ws.design_month_text(month, d, site_refused=unusable is not None),
+            name="design_month",
+            visit=visit,
+        )
+    )
     for position, room in enumerate(rooms):
         finding = va.findings.rooms[position]
         room_id = va.room_ids[position]

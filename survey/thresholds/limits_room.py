@@ -101,7 +101,7 @@ ROOM_AND_SITE_LIMITS: tuple[Threshold, ...] = (
     Threshold(
         "dehumidifier_rating_old_dry_bulb_c",
         "Dehumidifier rating temperature, older",
-        26.7,
+        (80.0 - 32.0) / 1.8,  # 80 °F exactly (26.666… °C), so it reads 80 °F in IP
         "°C",
         "AHAM DH-1 rating point, 80 °F dry bulb, 60 % RH (secondary sources)",
         "Older ratings: litres per 24 h at this warm, humid condition.",
@@ -110,7 +110,7 @@ ROOM_AND_SITE_LIMITS: tuple[Threshold, ...] = (
     Threshold(
         "dehumidifier_rating_current_dry_bulb_c",
         "Dehumidifier rating temperature, current US",
-        18.3,
+        (65.0 - 32.0) / 1.8,  # 65 °F exactly (18.333… °C), so it reads 65 °F in IP
         "°C",
         "current US portable dehumidifier test, 65 °F dry bulb, 60 % RH (secondary sources)",
         "Current US ratings: litres per 24 h at this cooler condition.",

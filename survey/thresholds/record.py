@@ -32,8 +32,10 @@ class Threshold:
 
     @property
     def value_text(self) -> str:
-        """The value with its unit, e.g. ``'80 %'``."""
-        return f"{self.value:g} {self.unit}" if self.unit else f"{self.value:g}"
+        """The value with its unit, e.g. ``'80 %'``; a temperature to 0.1 °C at most (a limit
+        defined in °F, 80 °F = 26.666… °C, reads 26.7 °C)."""
+        value = round(self.value, 1) if self.unit == "°C" else self.value
+        return f"{value:g} {self.unit}" if self.unit else f"{value:g}"
 
     def citation(self) -> str:
         """One line for a report's method section: value, source, mark and note."""

@@ -19,7 +19,12 @@ def limit_value_text(t: th.Threshold, d: Display) -> str:
     if d.ip and t.unit == "K":
         return d.difference(t.value)
     if d.ip and t.unit == "°C":
-        return d.temperature(t.value)
+        # A limit defined in whole °F (its °C value no round tenth: 80 °F = 26.666… °C) reads
+        # in whole °F, as the sentences that name it (Display.nominal_temperature).
+        fahrenheit = t.value * 1.8 + 32.0
+        whole_f = abs(fahrenheit - round(fahrenheit)) < 1e-9
+        tenth_c = abs(t.value * 10.0 - round(t.value * 10.0)) < 1e-9
+        return d.nominal_temperature(t.value) if whole_f and not tenth_c else d.temperature(t.value)
     if t.unit == "Pa":
         return d("vapour_pressure", t.value)
     if t.unit == "m²":

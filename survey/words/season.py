@@ -61,6 +61,7 @@ STATE_WORDS = {
     DesignState.CANNOT_TELL: CANNOT_TELL,
     DesignState.NOT_MEASURABLE: "cannot be judged",
     DesignState.NOT_PROJECTED: "not projected",
+    DesignState.NOT_MEANINGFUL: "not meaningful",
 }
 
 _NOT_PROJECTED = {
@@ -118,6 +119,11 @@ def not_projected_reason(
         why = None if finding is None else factor_not_judged_reason(finding, d)
         return "cannot be judged: the temperature factor was not measurable today" + (
             f"; {why}" if why else ""
+        )
+    if room.reason is RoomReason.ROOM_SATURATED and p.state is DesignState.NOT_MEANINGFUL:
+        return (
+            "not meaningful: in the design month the room's air itself would saturate at "
+            f"{d.temperature(room.indoor_temp_c)}"
         )
     if room.reason is RoomReason.INDOOR_NOT_WARMER:
         return (
@@ -288,13 +294,20 @@ def month_phrase(month: DesignMonth, d: Display) -> str:
     )
 
 
-def design_month_text(month: DesignMonth, d: Display) -> str:
-    """Which design month is used and whose it is; our default is said to be our choice."""
+def design_month_text(month: DesignMonth, d: Display, site_refused: bool = False) -> str:
+    """Which design month is used and whose it is; our default is said to be our choice.
+    ``site_refused``: the site gives a month that cannot be used (:func:`site_month_unusable`
+    says so), so the default is not said to stand for a month not given."""
     if month.source == "default":
         text = (
             f"Design month: {month_phrase(month, d)}, our choice: a typical coldest-month mean "
-            "for a temperate climate, used because no design month is given for this site "
-            "(a local month's mean temperature and RH can be set on the site)."
+            "for a temperate climate"
+        )
+        text += (
+            "."
+            if site_refused
+            else ", used because no design month is given for this site (a local month's "
+            "mean temperature and RH can be set on the site)."
         )
     else:
         whose = "the site's" if month.source == "site" else "the one given"
@@ -339,19 +352,51 @@ def excess_text(room: RoomProjection, d: Display) -> str | None:
         if room.design_vapour_pressure_excess_pa == 0.0 and room.measured_excess_pa < 0.0
         else ""
     )
+    saturated = _saturated_text(room, d)
     if room.excess_model is ExcessModel.CLASS_LINE:
         return (
             f"{today}, is carried along the line of its humidity class (EN ISO 13788 Annex A: "
             f"constant at and below {d.temperature(th.value('humidity_class_flat_below_c'), 0)} "
             f"outside, falling to zero at "
             f"{d.temperature(th.value('humidity_class_zero_at_c'), 0)}): {month}{floored}."
+            f"{saturated}"
         )
-    why = (
-        " (outdoors was too warm today to place it on a class line)"
-        if room.excess_model_fallback
-        else ""
+    why = ""
+    if room.excess_model_fallback and room.measured_outdoor_temp_c is not None:
+        zero = th.value("humidity_class_zero_at_c")
+        if room.measured_outdoor_temp_c >= zero:
+            why = (
+                f" (at {_temp(zero, d)} outside or warmer the class lines have reached zero: "
+                "there is no line to carry it along"
+            )
+        else:
+            why = (
+                f" (today's outdoor air was warmer than "
+                f"{_temp(th.value('class_line_warmest_outdoor_c'), d)}, the warmest at which it "
+                f"is carried along a class line: nearer {_temp(zero, d)} the line multiplies "
+                "one mild day's excess many times over, more than that reading bears"
+            )
+        why += (
+            "; in a colder month, with the windows shut, the excess may well be larger than "
+            "this, and a reading on a colder day settles it)"
+        )
+    return f"{today}, is held as measured{why}: {month}{floored}.{saturated}"
+
+
+def _saturated_text(room: RoomProjection, d: Display) -> str:
+    """Said after the excess when the room's air itself would saturate in the month."""
+    excess, saturation = room.design_vapour_pressure_excess_pa, room.design_vapour_pressure_pa
+    if room.reason is not RoomReason.ROOM_SATURATED or excess is None or saturation is None:
+        return ""
+    total = room.design_outdoor_vapour_pressure_pa + excess
+    return (
+        f" With the month's outdoor vapour pressure, "
+        f"{d('vapour_pressure', room.design_outdoor_vapour_pressure_pa)}, that is "
+        f"{d('vapour_pressure', total)}: more than air at {d.temperature(room.indoor_temp_c)} "
+        f"holds ({d('vapour_pressure', saturation)}). The room's air itself would saturate, "
+        "which no room does for a month, so the projection is not meaningful for this room; "
+        "check today's readings, and if they stand, the room's moisture sources."
     )
-    return f"{today}, is held as measured{why}: {month}{floored}."
 
 
 def _names(surfaces: Iterable[SurfaceProjection]) -> str:
@@ -381,24 +426,28 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
     return lines
 
 
-def panel_lines(room: RoomProjection, d: Display) -> list[str]:
-    """The app's room panel: the design month in brief and the worst surface, today's surface
-    RH beside the projected one."""
+def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = None) -> list[str]:
+    """The app's room panel: the design month in brief (and, when the site's month was
+    refused, ``site_problem`` says why in one line) and the worst surface, today's surface RH
+    beside the projected one."""
     if not room.surfaces:
         return []
     month = room.month
     head = f"{HEADING} ({_temp(month.outdoor_temp_c, d)} outside, {month.outdoor_rh_pct:.0f} % RH"
     head += ", our default)" if month.is_default else ")"
+    lines = [head]
+    if site_problem is not None:
+        lines.append(site_month_unusable(site_problem))
     worst = room.worst
     if worst is None:
         reasons = {not_projected_reason(s, room, None, d) for s in room.surfaces}
         why = next(iter(reasons)) if len(reasons) == 1 else "no wall, ceiling or floor projected"
-        return [head, "No surface projected: " + why + "."]
+        return [*lines, "No surface projected: " + why + "."]
     line = (
         f"{visible(worst.label)}: {worst.today_surface_rh_pct:.0f} % today, "
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
     )
-    return [head, line]
+    return [*lines, line]
 
 
 # --- the report ------------------------------------------------------------------------------
@@ -420,8 +469,13 @@ LIMITS_LEAD = "The limits and choices the colder month rests on:"
 
 
 def site_month_unusable(problem: str) -> str:
-    """The site's design month cannot be projected to: what is wrong, and what is used."""
-    return f"The site's design month cannot be used ({problem}); our default month is used instead."
+    """The site's design month cannot be projected to: what is wrong, and what is used. The
+    problem (an error's text, which may quote what was typed) has its control characters
+    made visible."""
+    return (
+        f"The site's design month cannot be used ({visible(problem)}); our default month is "
+        "used instead."
+    )
 
 
 def _by_room(rooms: Iterable[RoomProjection], pick: str) -> str:
