@@ -6,6 +6,7 @@ from __future__ import annotations
 
 import datetime as dt
 import shutil
+from pathlib import Path
 
 import pytest
 from textual.widgets import Input
@@ -26,8 +27,8 @@ def demo_app(tmp_path, monkeypatch):
     """The demo survey as ``survey.json`` in a temporary folder (shown by that name)."""
     monkeypatch.chdir(tmp_path)
     shutil.copyfile(DEMO_SOURCE, tmp_path / "survey.json")
-    return lambda: make_app(
-        "survey.json", data_dir=tmp_path / "data", clock=lambda: dt.datetime(2026, 12, 1, 9, 30)
+    return lambda: make_app(  # the data folder by a relative name, shown the same every run
+        "survey.json", data_dir=Path("data"), clock=lambda: dt.datetime(2026, 12, 1, 9, 30)
     )
 
 
