@@ -11,6 +11,7 @@ from survey import evaluate, words
 from survey.app import judging, walk
 from survey.app.fields import plain
 from survey.words import screens
+from survey.words.report_end import applies_to
 
 
 def findings_text(survey, visit_index: int, d: words.Display) -> Text:
@@ -49,8 +50,13 @@ def findings_text(survey, visit_index: int, d: words.Display) -> Text:
     if judged.advice.cautions:
         out.append(f"\n{screens.HEADINGS['cautions']}\n", "bold")
         for caution in judged.advice.cautions:
+            rooms = [
+                survey.room(room_id).name
+                for advice, room_id in zip(judged.advice.rooms, judged.room_ids, strict=False)
+                if caution in advice.cautions
+            ]
             out.append("• ")
-            out.append(plain(words.caution_text(caution, d)))
+            out.append(plain(applies_to(words.caution_text(caution, d), rooms)))
             out.append("\n")
     return out
 

@@ -219,7 +219,7 @@ ROOM_AND_SITE_LIMITS: tuple[Threshold, ...] = (
     ),
     Threshold(
         "water_category_2",
-        "Water category 2",
+        "Significantly contaminated water, category",
         2.0,
         "",
         "restoration standard of practice, water-damage categories (secondary source)",
@@ -228,7 +228,7 @@ ROOM_AND_SITE_LIMITS: tuple[Threshold, ...] = (
     ),
     Threshold(
         "water_category_3",
-        "Water category 3",
+        "Grossly contaminated water (sewage, flood water), category",
         3.0,
         "",
         "restoration standard of practice, water-damage categories (secondary source)",
