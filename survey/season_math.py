@@ -56,6 +56,7 @@ import itertools
 import math
 from collections.abc import Callable
 from enum import Enum
+from functools import cache
 from typing import NamedTuple
 
 from survey import psychro
@@ -93,17 +94,34 @@ class LowestMonth(NamedTuple):
     indoor_temp_c: float  #: held at the design month's (or the room's as measured)
 
 
+@cache
+def _class_line_knees() -> tuple[float, float]:
+    """The class lines' knees (°C): full value at and below the first, zero at the second."""
+    return th.value("humidity_class_flat_below_c"), th.value("humidity_class_zero_at_c")
+
+
 def line_scale(outdoor_temp_c: float) -> float:
     """The EN ISO 13788 class lines' scale at an outdoor temperature: 1 at and below 0 °C,
-    0 at and above 20 °C (the lines of :func:`survey.thresholds.humidity_class_limits_pa`)."""
-    limits = th.humidity_class_limits_pa(outdoor_temp_c)
-    return 0.0 if limits is None else limits[0] / th.value(th.HUMIDITY_CLASS_KEYS[0])
+    0 at and above 20 °C (the lines of :func:`survey.thresholds.humidity_class_limits_pa`,
+    whose shape a test holds this to)."""
+    flat, zero = _class_line_knees()
+    if outdoor_temp_c >= zero:
+        return 0.0
+    if outdoor_temp_c <= flat:
+        return 1.0
+    return (zero - outdoor_temp_c) / (zero - flat)
 
 
 def line_slope(outdoor_temp_c: float) -> float:
-    """d s/dθe of :func:`line_scale` (a central difference; the lines are piecewise linear)."""
-    h = 1e-3
-    return (line_scale(outdoor_temp_c + h) - line_scale(outdoor_temp_c - h)) / (2.0 * h)
+    """d s/dθe of :func:`line_scale`: the lines are piecewise linear (at a knee, the mean of
+    the two sides, as a central difference gives)."""
+    flat, zero = _class_line_knees()
+    inside = -1.0 / (zero - flat)
+    if flat < outdoor_temp_c < zero:
+        return inside
+    if outdoor_temp_c in (flat, zero):
+        return inside / 2.0
+    return 0.0
 
 
 class Readings(NamedTuple):
@@ -220,7 +238,7 @@ def evaluate(
 
 
 #: Step of the downward scan in the search for the lowest month, K.
-SEARCH_STEP_K = 0.5
+SEARCH_STEP_K = 1.0
 #: The bisection stops when the step is this small, K.
 SEARCH_TOLERANCE_K = 1e-4
 

@@ -268,3 +268,19 @@ def test_check_help_reads_the_class_lines_from_their_records(monkeypatch):
     text = " ".join(action.help.split())
     assert "constant at and below 2 °C outside, zero at 18 °C" in text
     assert "at most 8 °C" in text
+
+
+@pytest.mark.parametrize("te", [-20.0, 0.0, 0.5, 5.0, 10.0, 19.9, 20.0, 25.0])
+def test_the_class_line_scale_is_the_class_lines_own_shape(te):
+    """line_scale is the ratio of a class limit at te to its value at 0 °C (EN ISO 13788
+    Annex A lines, as thresholds.humidity_class_limits_pa draws them), and line_slope its
+    derivative (central difference over ±1 mK)."""
+    from survey import season_math
+    from survey import thresholds as th
+
+    limits = th.humidity_class_limits_pa(te)
+    expected = 0.0 if limits is None else limits[2] / th.value("humidity_class_3_pa")
+    assert season_math.line_scale(te) == pytest.approx(expected, abs=1e-12)
+    h = 1e-3
+    numeric = (season_math.line_scale(te + h) - season_math.line_scale(te - h)) / (2 * h)
+    assert season_math.line_slope(te) == pytest.approx(numeric, abs=1e-9)
