@@ -440,9 +440,11 @@ def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = Non
         lines.append(site_month_unusable(site_problem))
     worst = room.worst
     if worst is None:
-        reasons = {not_projected_reason(s, room, None, d) for s in room.surfaces}
-        why = next(iter(reasons)) if len(reasons) == 1 else "no wall, ceiling or floor projected"
-        return [*lines, "No surface projected: " + why + "."]
+        reasons = dict.fromkeys(
+            not_projected_reason(s, room, None, d).removeprefix("not projected: ")
+            for s in room.surfaces
+        )
+        return [*lines, "No surface projected: " + "; ".join(reasons) + "."]
     line = (
         f"{visible(worst.label)}: {worst.today_surface_rh_pct:.0f} % today, "
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
