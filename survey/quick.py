@@ -9,9 +9,13 @@ a table or encodes it as JSON; the app's quick-check screen shows the same resul
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from typing import TYPE_CHECKING
 
-from survey import advise, assess, psychro, season
+from survey import advise, assess, psychro
 from survey import thresholds as th
+
+if TYPE_CHECKING:
+    from survey import season
 
 
 @dataclass(frozen=True, slots=True)
@@ -61,7 +65,8 @@ class QuickInput:
     flued_appliance: bool | None = None
     #: The month to project the surfaces to (:mod:`survey.season`); None: no projection.
     design_month: season.DesignMonth | None = None
-    design_excess: season.ExcessModel = season.ExcessModel.CLASS_LINE
+    #: How the excess is carried to the design month; None: along its class line.
+    design_excess: season.ExcessModel | None = None
     warnings: tuple[str, ...] = ()
 
 
@@ -146,7 +151,11 @@ def judge(given: QuickInput) -> QuickResult:
     keys = set(finding.threshold_keys) | set(room_advice.threshold_keys)
     projection = None
     if given.design_month is not None:
-        projection = season.project_room(finding, given.design_month, given.design_excess)
+        from survey import season  # only when a design month is asked for
+
+        projection = season.project_room(
+            finding, given.design_month, given.design_excess or season.ExcessModel.CLASS_LINE
+        )
         keys |= set(projection.threshold_keys)
     return QuickResult(
         input=given,

@@ -3,9 +3,10 @@
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 from enum import Enum
 from typing import NamedTuple
+
+import msgspec
 
 from survey import domain, psychro
 from survey import thresholds as th
@@ -96,8 +97,7 @@ _ACCURACY_FIELD = {
 }
 
 
-@dataclass(frozen=True, slots=True)
-class Accuracy:
+class Accuracy(msgspec.Struct, frozen=True):
     """± accuracy of each instrument (read as a rectangular bound, see the module notes)."""
 
     air_temp_k: float = th.value("accuracy_air_temp_k")
@@ -125,8 +125,7 @@ class Accuracy:
 DEFAULT_ACCURACY = Accuracy()
 
 
-@dataclass(frozen=True, slots=True)
-class SurfaceInput:
+class SurfaceInput(msgspec.Struct, frozen=True):
     """One measured surface: a label, its temperature, and what it is — one of
     :data:`survey.thresholds.SURFACE_ELEMENTS`; ``"other"`` (not said) is judged as a wall,
     ceiling or floor. What each element is judged by is
@@ -144,8 +143,7 @@ MATERIAL_SCALES = ("mc_pct", "wme_pct", "relative")
 _MATERIAL_READING_MAX = 1000.0
 
 
-@dataclass(frozen=True, slots=True)
-class MaterialInput:
+class MaterialInput(msgspec.Struct, frozen=True):
     """A moisture-meter reading: ``mc_pct`` is moisture content in % by weight (timber,
     pin meter on the wood scale), ``relative`` the meter's own comparative scale. The dry
     standard is the reading of the same material in an unaffected area, same scale."""
@@ -158,16 +156,14 @@ class MaterialInput:
     timber: bool = False
 
 
-@dataclass(frozen=True, slots=True)
-class Activity:
+class Activity(msgspec.Struct, frozen=True):
     """A moisture-producing activity in the room (``thresholds.ACTIVITY_RATE`` kinds)."""
 
     kind: str
     hours_per_day: float
 
 
-@dataclass(frozen=True, slots=True)
-class Observations:
+class Observations(msgspec.Struct, frozen=True):
     """What the surveyor saw, heard or smelt in the room."""
 
     visible_mould_area_m2: float = 0.0  #: 0: none seen, or seen but not measured
@@ -193,8 +189,7 @@ class Observations:
         return self.visible_mould or self.visible_mould_area_m2 > 0.0
 
 
-@dataclass(frozen=True, slots=True)
-class DryingEquipment:
+class DryingEquipment(msgspec.Struct, frozen=True):
     """Drying equipment running in a room, and what it logged."""
 
     dehumidifiers: int = 0
@@ -213,8 +208,7 @@ class DryingEquipment:
         return self.water_removed_l * 24.0 / self.hours_since_previous
 
 
-@dataclass(frozen=True, slots=True)
-class RoomInput:
+class RoomInput(msgspec.Struct, frozen=True):
     """One room's readings. ``use`` is one of :data:`survey.thresholds.ROOM_USES`."""
 
     name: str
@@ -226,13 +220,12 @@ class RoomInput:
     occupants: int | None = None
     activities: tuple[Activity, ...] = ()
     materials: tuple[MaterialInput, ...] = ()
-    observations: Observations = Observations()
+    observations: Observations = msgspec.field(default_factory=Observations)
     accuracy: Accuracy | None = None  #: None: the site's accuracy
     laundry_loads_per_day: float | None = None  #: wash loads dried indoors in the room
 
 
-@dataclass(frozen=True, slots=True)
-class OutdoorInput:
+class OutdoorInput(msgspec.Struct, frozen=True):
     """Outdoor air at the time of the readings."""
 
     air_temp_c: float

@@ -5,10 +5,14 @@ from __future__ import annotations
 import argparse
 import math
 from collections.abc import Callable
+from typing import TYPE_CHECKING
 
-from survey import assess, domain, psychro, season, units
+from survey import assess, domain, psychro, units
 from survey import thresholds as th
 from survey.errors import InputError
+
+if TYPE_CHECKING:
+    from survey import season
 
 VOLUME_MIN_M3 = domain.ROOM_VOLUME_MIN_M3
 VOLUME_MAX_M3 = domain.ROOM_VOLUME_MAX_M3
@@ -238,6 +242,8 @@ def _design_month(args: argparse.Namespace, system: units.UnitSystem) -> season.
             "--design-indoor-temp", indoor, "temperature", system, psychro.check_dry_bulb
         )
     try:
+        from survey import season
+
         return season.DesignMonth(outdoor_c, rh_pct, indoor_c, "given")
     except InputError as exc:
         option = _DESIGN_FIELDS.get(exc.field, exc.field)
@@ -245,5 +251,10 @@ def _design_month(args: argparse.Namespace, system: units.UnitSystem) -> season.
         raise InputError(option, text, exc.allowed) from None
 
 
-def _design_excess(text: str) -> season.ExcessModel:
-    return season.ExcessModel.MEASURED if text == "measured" else season.ExcessModel.CLASS_LINE
+def _design_excess(text: str) -> season.ExcessModel | None:
+    """The excess model asked for; None (the class line) when not said."""
+    if text != "measured":
+        return None
+    from survey import season
+
+    return season.ExcessModel.MEASURED
