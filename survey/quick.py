@@ -8,8 +8,9 @@ a table or encodes it as JSON; the app's quick-check screen shows the same resul
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
 from typing import TYPE_CHECKING
+
+import msgspec
 
 from survey import advise, assess, psychro
 from survey import thresholds as th
@@ -18,8 +19,7 @@ if TYPE_CHECKING:
     from survey import season
 
 
-@dataclass(frozen=True, slots=True)
-class AccuracyGiven:
+class AccuracyGiven(msgspec.Struct, frozen=True):
     """Which instrument accuracies were entered (the rest are typical specifications)."""
 
     air_temp_k: bool = False
@@ -35,8 +35,7 @@ class AccuracyGiven:
         return self.air_temp_k and self.rh_pct and self.surface_temp_k
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
-class QuickInput:
+class QuickInput(msgspec.Struct, frozen=True, kw_only=True):
     """One room's readings in SI, as a face gathered them."""
 
     air_temp_c: float
@@ -70,8 +69,7 @@ class QuickInput:
     warnings: tuple[str, ...] = ()
 
 
-@dataclass(frozen=True, slots=True)
-class QuickResult:
+class QuickResult(msgspec.Struct, frozen=True):
     """Everything the quick check found."""
 
     input: QuickInput
@@ -80,7 +78,7 @@ class QuickResult:
     finding: assess.RoomFinding
     advice: advise.RoomAdvice
     cautions: tuple[advise.Caution, ...]
-    limits: tuple[th.Threshold, ...] = field(default=())
+    limits: tuple[th.Threshold, ...] = ()
     #: The surfaces in the design month, when one was given.
     colder_month: season.RoomProjection | None = None
 
