@@ -73,6 +73,7 @@ from survey.assess import (
     SiteFinding,
     SurfaceFinding,
 )
+from survey.assess.records import RankedState
 from survey.errors import InputError
 from survey.season_math import (
     SEARCH_STEP_K,
@@ -117,10 +118,8 @@ __all__ = [
 # --- states ------------------------------------------------------------------------------------
 
 
-class DesignState(Enum):
+class DesignState(RankedState):
     """A surface in the design month. ``rank`` is higher for worse; None where not judged."""
-
-    rank: int | None
 
     BELOW = ("below_limit", 0)
     ABOVE = ("above_limit", 1)
@@ -130,15 +129,6 @@ class DesignState(Enum):
     NOT_PROJECTED = ("not_projected", None)
     #: The room's air itself would saturate in the month: no surface RH is projected.
     NOT_MEANINGFUL = ("not_meaningful", None)
-
-    def __new__(cls, value: str, rank: int | None) -> DesignState:
-        member = object.__new__(cls)
-        member._value_ = value
-        member.rank = rank
-        return member
-
-    def __str__(self) -> str:
-        return str(self.value)
 
 
 _ORDER = (DesignState.BELOW, DesignState.ABOVE, DesignState.CONDENSING)

@@ -15,13 +15,13 @@ from survey.errors import InputError
 # --- ordered state names ---------------------------------------------------------------------
 
 
-class _State(Enum):
+class RankedState(Enum):
     """A state name with a rank (higher is worse; None for 'cannot tell'). Its words for
     people are :mod:`survey.words`'."""
 
     rank: int | None
 
-    def __new__(cls, value: str, rank: int | None) -> _State:
+    def __new__(cls, value: str, rank: int | None) -> RankedState:
         member = object.__new__(cls)
         member._value_ = value
         member.rank = rank
@@ -31,14 +31,14 @@ class _State(Enum):
         return str(self.value)
 
 
-class CondensationState(_State):
+class CondensationState(RankedState):
     CLEAR = ("clear", 0)
     NEAR = ("near_dew_point", 1)
     CONDENSING = ("condensing", 2)
     CANNOT_TELL = ("cannot_tell", None)
 
 
-class MouldState(_State):
+class MouldState(RankedState):
     BELOW = ("below_limit", 0)
     APPROACHING = ("approaching_limit", 1)
     ABOVE = ("above_limit", 2)
@@ -48,7 +48,7 @@ class MouldState(_State):
     TOO_HOT = ("too_hot_now", None)
 
 
-class FactorState(_State):
+class FactorState(RankedState):
     MEETS = ("meets_limit", 0)
     UNDER = ("under_limit", 1)
     CANNOT_TELL = ("cannot_tell", None)
@@ -62,13 +62,13 @@ class FactorState(_State):
     WARMER_THAN_AIR = ("warmer_than_air", None)
 
 
-class DryStandardState(_State):
+class DryStandardState(RankedState):
     AT = ("at_dry_standard", 0)
     ABOVE = ("above_dry_standard", 1)
     NO_REFERENCE = ("no_reference", None)
 
 
-class TimberState(_State):
+class TimberState(RankedState):
     DRY = ("below_mould_range", 0)
     MOULD_RANGE = ("mould_range", 1)
     DECAY_RANGE = ("decay_range", 2)

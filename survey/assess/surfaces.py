@@ -22,11 +22,11 @@ from survey.assess.records import (
     MaterialFinding,
     MaterialInput,
     MouldState,
+    RankedState,
     SurfaceFinding,
     SurfaceInput,
     TimberState,
     _dln_pws,
-    _State,
 )
 from survey.errors import InputError
 
@@ -142,7 +142,7 @@ _BELOW, _APPROACHING, _ABOVE = _MOULD_ORDER
 _MEETS, _UNDER = _FACTOR_ORDER
 
 
-def _spans(order: tuple[Any, ...], cannot_tell: _State) -> dict[Any, Any]:
+def _spans(order: tuple[Any, ...], cannot_tell: RankedState) -> dict[Any, Any]:
     """(best, worst) -> (state, possible states), precomputed for every pair."""
     table = {}
     for low, best in enumerate(order):

@@ -34,6 +34,7 @@ from survey.commands.check_parse import (
     _parse_rh_accuracy,
     _parse_volume,
     _plausibility,
+    _pressure,
     _read_option,
     _surfaces,
 )
@@ -59,18 +60,7 @@ def gather(args: argparse.Namespace) -> QuickInput:
         "--air-temp", args.air_temp, "temperature", system, psychro.check_dry_bulb
     )
     rh = _option("--rh", args.rh, lambda t: units.parse_rh(t, "--rh"), psychro.check_rh)
-    if args.pressure is not None:
-        pressure = _read_option(
-            "--pressure", args.pressure, "pressure", system, psychro.check_pressure
-        )
-    elif args.altitude is not None:
-        pressure = _option(
-            "--altitude",
-            args.altitude,
-            lambda t: psychro.pressure_from_altitude_m(units.parse_length(t, "--altitude", system)),
-        )
-    else:
-        pressure = psychro.STANDARD_PRESSURE_PA
+    pressure = _pressure(args, system)
     surfaces = _surfaces(args.surfaces or [], system)
     outdoor = None
     if (args.outdoor_temp is None) != (args.outdoor_rh is None):

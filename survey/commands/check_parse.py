@@ -75,6 +75,19 @@ def _plausibility(option: str, text: str, value_c: float, system: str) -> str | 
     return None
 
 
+def _pressure(args: argparse.Namespace, system: units.UnitSystem) -> float:
+    """``--pressure``, else the standard atmosphere at ``--altitude``, else at sea level."""
+    if args.pressure is not None:
+        return _read_option("--pressure", args.pressure, "pressure", system, psychro.check_pressure)
+    if args.altitude is not None:
+        return _option(
+            "--altitude",
+            args.altitude,
+            lambda t: psychro.pressure_from_altitude_m(units.parse_length(t, "--altitude", system)),
+        )
+    return psychro.STANDARD_PRESSURE_PA
+
+
 def _read_option(
     option: str,
     text: str,

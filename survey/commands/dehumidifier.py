@@ -106,7 +106,7 @@ def gather(args: argparse.Namespace) -> Any:
     """The options typed, read to SI and checked: a ``DehumidifierInput``."""
     from survey import equipment as eq
     from survey import psychro, units
-    from survey.commands.check_parse import _option, _read_option
+    from survey.commands.check_parse import _option, _pressure, _read_option
     from survey.errors import InputError
 
     system = args.units
@@ -158,18 +158,7 @@ def gather(args: argparse.Namespace) -> Any:
                 raise InputError(
                     "--reading-at", text, "each time must be later than the one before"
                 )
-    if args.pressure is not None:
-        pressure = _read_option(
-            "--pressure", args.pressure, "pressure", system, psychro.check_pressure
-        )
-    elif args.altitude is not None:
-        pressure = _option(
-            "--altitude",
-            args.altitude,
-            lambda t: psychro.pressure_from_altitude_m(units.parse_length(t, "--altitude", system)),
-        )
-    else:
-        pressure = psychro.STANDARD_PRESSURE_PA
+    pressure = _pressure(args, system)
     water, weighed = (None, False)
     if args.water is not None:
         water, weighed = eq.read_water(args.water, "--water", system)
