@@ -101,7 +101,8 @@ class ReportScreen(walk.WalkScreen):
     def _show(self, text: str) -> None:
         self.query_one("#report-progress", Static).update(
             Text(
-                "Preview of the report as it will be written (w: Markdown with its charts, h: HTML)."
+                "Preview of the report as it will be written "
+                "(w: Markdown with its charts, h: HTML)."
             )
         )
         from rich.markdown import Markdown
