@@ -57,15 +57,44 @@ def test_core_module_list_is_not_empty():
     assert not any(name.split(".")[1] in FACES for name in CORE_MODULES)
 
 
-@pytest.mark.parametrize("module", CORE_MODULES)
-def test_core_module_loads_neither_textual_nor_rich_nor_pint(module):
-    """Importing a core module in a fresh interpreter leaves textual and Rich unloaded, and
-    pint too: only survey.units uses pint, and only once a unit is read."""
-    loaded = _loaded_after(f"import {module}")
-    assert module in loaded
-    assert not _has(loaded, "textual")
-    assert not _has(loaded, "rich")
-    assert not _has(loaded, "pint")
+_FORBIDDEN = ("textual", "rich", "pint")
+
+#: Imports each core module in turn in one fresh interpreter and prints, per module, any
+#: forbidden package that its import loaded (a module imported earlier that had loaded one
+#: would be reported there first), then the modules loaded in all.
+_EACH = """
+import importlib, sys
+forbidden = {forbidden!r}
+for name in {modules!r}:
+    before = set(sys.modules)
+    importlib.import_module(name)
+    new = set(sys.modules) - before
+    bad = sorted(m for m in new if m.split(".")[0] in forbidden)
+    if bad:
+        print("BAD", name, ",".join(bad[:5]))
+print("LOADED", " ".join(sys.modules))
+"""
+
+
+def test_core_modules_load_neither_textual_nor_rich_nor_pint():
+    """Importing the core modules, one after another in a fresh interpreter, loads neither
+    textual nor Rich, nor pint: only survey.units uses pint, and only once a unit is read.
+    Each module's own new imports are checked, so the one that loads a forbidden package is
+    named."""
+    result = subprocess.run(
+        [sys.executable, "-c", _EACH.format(forbidden=_FORBIDDEN, modules=CORE_MODULES)],
+        capture_output=True,
+        text=True,
+        timeout=120,
+        cwd=ROOT,
+    )
+    assert result.returncode == 0, result.stderr
+    bad = [line for line in result.stdout.splitlines() if line.startswith("BAD ")]
+    assert bad == []
+    loaded = set(result.stdout.split("LOADED", 1)[1].split())
+    assert set(CORE_MODULES) <= loaded
+    for package in _FORBIDDEN:
+        assert not _has(loaded, package)
 
 
 def test_pint_is_loaded_by_units_only_when_a_unit_is_read():
