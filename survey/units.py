@@ -511,6 +511,21 @@ def parse_volume(text: object, field: str = "volume", system: UnitSystem = "si")
     return read("volume", text, field, system).value
 
 
+def parse_volume_or_dimensions(
+    text: object, field: str = "volume", system: UnitSystem = "si"
+) -> float:
+    """A volume (``30``, ``30 m3``) or three lengths multiplied out (``4.2 x 3.1 x 2.4``,
+    ``×`` too, each with or without its unit), in m³."""
+    raw = str(text)
+    parts = raw.lower().replace("×", "x").split("x")
+    if len(parts) == 1:
+        return parse_volume(raw, field, system)
+    if len(parts) != 3 or not all(p.strip() for p in parts):
+        raise InputError(field, text, "a volume (30, 30 m3) or three dimensions: 4.2 x 3.1 x 2.4")
+    sides = [parse_length(p, field, system) for p in parts]
+    return sides[0] * sides[1] * sides[2]
+
+
 def parse_number(text: object, field: str = "number") -> float:
     """A plain number (``3``, ``2.5``, ``2,5``) with no unit."""
     return read("number", text, field).value

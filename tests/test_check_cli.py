@@ -279,3 +279,30 @@ def test_rh_accuracy_below_one_is_an_accuracy_not_a_fraction(check):
     status, out, err = check("--air-temp", "20", "--rh", "50", "--rh-accuracy", "0.8", "--json")
     assert status == 0, err
     assert json.loads(out)["accuracy"]["rh_pct"] == 0.8
+
+
+@pytest.mark.parametrize(
+    ("given", "units", "m3"),
+    [
+        ("4.2 x 3.1 x 2.4", "si", 4.2 * 3.1 * 2.4),  # 31.248 m³, multiplied out
+        ("4,2×3,1×2,4", "si", 4.2 * 3.1 * 2.4),  # decimal commas and the times sign
+        ("12 x 10 x 8", "ip", 12 * 10 * 8 * 0.3048**3),  # 960 ft³ = 27.18 m³ (exact foot)
+        ("4.2m x 10ft x 2.4 m", "si", 4.2 * 3.048 * 2.4),  # each side with its own unit
+    ],
+)
+def test_room_volume_as_dimensions(check, given, units, m3):
+    """--room-volume takes the room's dimensions, as the app's volume field does."""
+    code, out, _ = check(
+        "--air-temp", "20", "--rh", "60", "--room-volume", given, "--units", units, "--json"
+    )
+    assert code == 0
+    assert json.loads(out)["room_volume_m3"] == pytest.approx(m3, rel=1e-12)
+
+
+@pytest.mark.parametrize(
+    ("given", "said"),
+    [("4.2 x 3.1", "three dimensions"), ("0.1x0.1x0.1", "read as 0.001 m³"), ("4 x a x 2", "a")],
+)
+def test_bad_room_dimensions_exit_2_with_one_line(check, given, said):
+    code, _, err = check("--air-temp", "20", "--rh", "60", "--room-volume", given)
+    assert code == 2 and said in err and len(err.strip().splitlines()) == 1

@@ -272,19 +272,7 @@ def yes_no_choice(value: bool | None) -> str:
 
 def volume_or_dimensions(name: str, system: str) -> Callable[[str], float]:
     """A volume (``30``, ``30 m3``) or dimensions multiplied out (``4.2 x 3.1 x 2.4``)."""
-
-    def run(text: str) -> float:
-        parts = list(text.lower().replace("×", "x").split("x"))
-        if len(parts) == 1:
-            return units.parse_volume(text, name, system)
-        if len(parts) != 3 or not all(p.strip() for p in parts):
-            raise InputError(
-                name, text, "a volume (30, 30 m3) or three dimensions: 4.2 x 3.1 x 2.4"
-            )
-        sides = [units.parse_length(p, name, system) for p in parts]
-        return sides[0] * sides[1] * sides[2]
-
-    return run
+    return lambda text: units.parse_volume_or_dimensions(text, name, system)
 
 
 def timestamp(name: str) -> Callable[[str], dt.datetime]:

@@ -93,7 +93,8 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
     room.add_argument(
         "--room-volume",
         metavar="V",
-        help="room volume (m³ for si, ft³ for ip), to size airflow and drying",
+        help="room volume (m³ for si, ft³ for ip), or its dimensions such as 4.2x3.1x2.4, "
+        "to size airflow and drying",
     )
     room.add_argument(
         "--occupants", metavar="N", help="people usually in the room, for the moisture load"

@@ -102,12 +102,17 @@ def _read_option(
 
 
 def _parse_volume(text: str, system: units.UnitSystem) -> float:
-    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``; pint only for a suffix."""
+    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``, or dimensions multiplied out
+    (``4.2 x 3.1 x 2.4``); pint only for a suffix."""
+    allowed = f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³"
+    if "x" in text.lower() or "×" in text:
+        value = units.parse_volume_or_dimensions(text, "--room-volume", system)
+        if not VOLUME_MIN_M3 <= value <= VOLUME_MAX_M3:
+            raise InputError("--room-volume", text, f"{allowed} (read as {value:.3g} m³)")
+        return value
     reading = units.read("volume", text, "--room-volume", system)
     if not VOLUME_MIN_M3 <= reading.value <= VOLUME_MAX_M3:
-        raise reading.error(
-            f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³"
-        )
+        raise reading.error(allowed)
     return reading.value
 
 
