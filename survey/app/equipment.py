@@ -220,6 +220,8 @@ class CheckDialog(PromptDialog):
     """
 
     def __init__(self, screen, index: int, record: model.Equipment, system: str) -> None:
+        from survey.words import equipment as we
+
         e = record
         t = "°F" if system == "ip" else "°C"
         fields = [
@@ -236,7 +238,7 @@ class CheckDialog(PromptDialog):
                 "Rated energy factor, L/kWh",
                 f"{e.rated_energy_factor_l_per_kwh:g}" if e.rated_energy_factor_l_per_kwh else "",
             ),
-            ("Rating condition", e.rating_condition or ""),
+            (we.rating_condition_prompt(), e.rating_condition or ""),
         ]
         name = e.label or e.kind.replace("_", " ")
         super().__init__(f"Performance check — {name}", fields, self._check)

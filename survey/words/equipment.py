@@ -549,3 +549,10 @@ def expected_text(r: DehumidifierResult, d: Display) -> str:
 def found_text(r: DehumidifierResult) -> str:
     """The findings in a few words each, or 'nothing to note'."""
     return "; ".join(FINDING_SHORT[f.kind] for f in r.findings) or "nothing to note"
+
+
+def rating_condition_prompt() -> str:
+    """The app's short prompt for a rating condition key (test °C and % RH, e.g.
+    ``26.7c_60``); the keys are listed by the message a wrong one gets."""
+    first = next(iter(eq.RATING_CONDITIONS))
+    return f"Rating (°C_%RH, e.g. {first})"
