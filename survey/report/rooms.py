@@ -259,7 +259,13 @@ def _seen(ctx: Context, room: model.Room | None, room_visit: model.RoomVisit) ->
         (
             "",
             rw.equipment_text(
-                e.kind, e.label, e.running, e.capacity_l_per_day, e.water_removed_l, ctx.d
+                e.kind,
+                e.label,
+                e.running,
+                e.capacity_l_per_day,
+                e.water_removed_l,
+                ctx.d,
+                e.run_hours,
             ),
         )
         for e in room_visit.equipment

@@ -252,13 +252,16 @@ def equipment_text(
     capacity_l_per_day: float | None,
     water_removed_l: float | None,
     d: Display,
+    run_hours: float | None = None,
 ) -> str:
     text = EQUIPMENT_WORDS[kind] + (f": {label}" if label else "")
     text += ", running" if running else ", not running"
     if capacity_l_per_day is not None:
         text += f", rated {d.water(capacity_l_per_day)}"
     if water_removed_l is not None:
-        text += f", {water_removed_l:g} L collected since the previous visit"
+        text += f", {water_removed_l:g} L collected " + (
+            "since the previous visit" if run_hours is None else f"in {run_hours:g} h of running"
+        )
     return text[:1].upper() + text[1:] + "."
 
 
