@@ -93,7 +93,7 @@ class SurfacePoint:
 class AirPoint:
     """A room's air, or the outdoor air, on the chart."""
 
-    mark: str  #: the short label drawn beside the point: "1", "2", … or "O"
+    mark: str  #: the short label drawn beside the point: "1", "2", … or "out"
     name: str  #: the room's name as typed (user text), or "Outdoors"
     outdoor: bool
     dry_bulb_c: float
@@ -340,7 +340,7 @@ def psychro_chart(assessment: VisitAssessment, system: str = "si") -> PsychroCha
     outdoor = None
     if findings.outdoor is not None:
         outdoor = _air_point(
-            "O", LABELS["outdoors"], findings.outdoor.dry_bulb_c, findings.outdoor.rh_pct, p, True
+            "out", LABELS["outdoors"], findings.outdoor.dry_bulb_c, findings.outdoor.rh_pct, p, True
         )
         temps.append(outdoor.dry_bulb_c)
     low, high = dry_bulb_range(temps, unit_system)

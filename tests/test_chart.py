@@ -169,7 +169,7 @@ def test_outdoor_point_is_the_visits_outdoor_reading():
     from psychrolib; listed first among the points, marked O."""
     c = _chart()
     out = c.outdoor
-    assert out is not None and out.outdoor and out.mark == "O" and c.points[0] is out
+    assert out is not None and out.outdoor and out.mark == "out" and c.points[0] is out
     assert (out.dry_bulb_c, out.rh_pct) == (2.0, 85.0)
     assert out.humidity_ratio_kg_per_kg == pytest.approx(
         psychrolib.GetHumRatioFromRelHum(2.0, 0.85, c.pressure_pa), rel=1e-12

@@ -6,7 +6,7 @@ textual-plotext's widget (plotext underneath), and a table under it names each p
 module, and with it plotext, is imported only when the screen is first opened, so the
 app's start-up never pays for it.
 
-Room names are user text: the plot marks points only with their number ("1", "2", … and "O"
+Room names are user text: the plot marks points only with their number ("1", "2", … and "out"
 for outdoors), and the table shows the names as plain ``Text`` (never markup, control
 characters visible). Colours come from the app's theme variables, so the chart reads in
 the light and the dark themes alike, and each kind of point has its own marker too.

@@ -127,6 +127,10 @@ def _style(style: dict[str, str]) -> dict[str, str]:
     return {key.replace("_", "-"): value for key, value in style.items()}
 
 
+#: Where a point's name starts in the key, after its mark ("1" … "9", "out"), px.
+KEY_INDENT = 30
+
+
 def _marker(parent: ET.Element, shape: str, x: float, y: float, size: float, **style: str) -> None:
     s = size
     if shape == "circle":
@@ -416,12 +420,12 @@ def _psychro_legend(
         colour = OUTDOOR if point.outdoor else CONDENSING if point.condensing else ROOM
         canvas.text(legend, left, y, point.mark, font_weight="bold", fill=colour)
         state, details = _point_lines(chart, d, index)
-        entry = ET.SubElement(legend, "text", {"x": _n(left + 18), "y": _n(y)})
+        entry = ET.SubElement(legend, "text", {"x": _n(left + KEY_INDENT), "y": _n(y)})
         name = ET.SubElement(entry, "tspan", {"font-weight": "bold"})
         name.text = _text(point.name, NAME_CHARS)
         name.tail = " — " + state
         if details:
-            canvas.text(legend, left + 18, y + 15, details, 108, fill=MUTED, font_size="11")
+            canvas.text(legend, left + KEY_INDENT, y + 15, details, 108, fill=MUTED, font_size="11")
         y += 34 if details else 20
     return y
 
