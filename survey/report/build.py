@@ -22,7 +22,7 @@ from survey.report import drying as report_drying
 from survey.report import equipment as equipment_report
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Photo, Table
 from survey.report.mould import mould_section
-from survey.report.rooms import Context, photo_blocks, room_section
+from survey.report.rooms import Context, limits_blocks, photo_blocks, room_section
 from survey.report.season import season_section
 from survey.words import report as rw
 
@@ -527,13 +527,5 @@ def _method(doc: Document, ctx: Context, shown: list[int]) -> None:
     if limits:
         doc.add(
             Heading(3, rw.HEADINGS["limits"]),
-            Para(rw.LIMITS_INTRO),
-            Items(
-                tuple(("", words.client_citation(t, d)) for t in limits),
-                name="limits",
-                values=tuple(limits),
-            ),
+            *limits_blocks(limits, d, rw.LIMITS_INTRO, "limits", "legend"),
         )
-        legend = words.legend(limits)
-        if legend:
-            doc.add(Items(tuple(("", line) for line in legend), name="legend"))

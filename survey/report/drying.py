@@ -11,10 +11,10 @@ from __future__ import annotations
 
 from typing import Any
 
-from survey import drying, model, words
+from survey import drying, model
 from survey import thresholds as th
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
-from survey.report.rooms import Context
+from survey.report.rooms import Context, limits_blocks
 from survey.words import drying as dw
 from survey.words import report as rw
 
@@ -192,16 +192,4 @@ def drying_section(doc: Document, ctx: Context) -> None:
         for summary in progress.outdoor_loggers:
             doc.add(*_logger_blocks(ctx, summary, None, 4))
     limits = th.cited(progress.threshold_keys)
-    if not limits:
-        return
-    doc.add(
-        Para(dw.LIMITS_LEAD),
-        Items(
-            tuple(("", words.client_citation(t, ctx.d)) for t in limits),
-            name="drying_limits",
-            values=tuple(limits),
-        ),
-    )
-    legend = words.legend(limits)
-    if legend:
-        doc.add(Items(tuple(("", line) for line in legend), name="drying_legend"))
+    doc.add(*limits_blocks(limits, ctx.d, dw.LIMITS_LEAD, "drying_limits", "drying_legend"))

@@ -12,11 +12,11 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from survey import mould_series, words
+from survey import mould_series
 from survey import thresholds as th
 from survey.mould_series import LogIndex, LogNotJudged
 from survey.report.markdown import Document, Heading, Items, Para, Photo
-from survey.report.rooms import Context
+from survey.report.rooms import Context, limits_blocks
 from survey.words import mould_index as mw
 from survey.words import report as rw
 
@@ -88,15 +88,6 @@ def mould_section(
             keys.update(one.result.ashrae160.threshold_keys)
     doc.add(Para(mw.LIMITS))
     limits = th.cited(keys)
-    if limits:
-        doc.add(
-            Para(rw.LIMITS_INTRO),
-            Items(
-                tuple(("", words.client_citation(t, ctx.d)) for t in limits),
-                name="mould_index_limits",
-                values=tuple(limits),
-            ),
-        )
-        legend = words.legend(limits)
-        if legend:
-            doc.add(Items(tuple(("", line) for line in legend), name="mould_index_legend"))
+    doc.add(
+        *limits_blocks(limits, ctx.d, rw.LIMITS_INTRO, "mould_index_limits", "mould_index_legend")
+    )

@@ -14,6 +14,7 @@ from typing import Any
 from urllib.parse import quote
 
 from survey import evaluate, model, words
+from survey import thresholds as th
 from survey.advise import RoomAdvice
 from survey.assess import CondensationState, FactorState, MouldState, RoomFinding
 from survey.report import equipment as equipment_report
@@ -285,6 +286,27 @@ def _seen(ctx: Context, room: model.Room | None, room_visit: model.RoomVisit) ->
         if text.strip():
             blocks.append(Para(text, strong=rw.NOTES_LABELS[key] + ":", note=True))
     return blocks or [Para(rw.NOTHING_SEEN)]
+
+
+def limits_blocks(
+    limits: list[th.Threshold], d: words.Display, lead: str, name: str, legend_name: str = ""
+) -> list[Any]:
+    """The limits a section rests on, for a client: ``lead``, each limit's citation (the
+    ``name``d list carries the typed records) and the legend of their marks."""
+    if not limits:
+        return []
+    blocks: list[Any] = [
+        Para(lead),
+        Items(
+            tuple(("", words.client_citation(t, d)) for t in limits),
+            name=name,
+            values=tuple(limits),
+        ),
+    ]
+    legend = words.legend(limits)
+    if legend:
+        blocks.append(Items(tuple(("", line) for line in legend), name=legend_name))
+    return blocks
 
 
 def photo_blocks(ctx: Context, owner: str, names: list[str]) -> list[Any]:

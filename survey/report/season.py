@@ -9,7 +9,7 @@ from typing import Any
 from survey import evaluate, season, words
 from survey import thresholds as th
 from survey.report.markdown import Cell, Document, Heading, Items, Para, Table
-from survey.report.rooms import Context
+from survey.report.rooms import Context, limits_blocks
 from survey.words import season as ws
 
 
@@ -112,15 +112,4 @@ def season_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment) ->
     if summary:
         doc.add(Para("", strong=ws.SITE_VERDICT_LEAD), *(Para(line) for line in summary))
     keys = {key for room in rooms for key in room.threshold_keys}
-    limits = th.cited(keys)
-    doc.add(
-        Para(ws.LIMITS_LEAD),
-        Items(
-            tuple(("", words.client_citation(t, d)) for t in limits),
-            name="colder_month_limits",
-            values=tuple(limits),
-        ),
-    )
-    legend = words.legend(limits)
-    if legend:
-        doc.add(Items(tuple(("", line) for line in legend)))
+    doc.add(*limits_blocks(th.cited(keys), d, ws.LIMITS_LEAD, "colder_month_limits"))
