@@ -361,9 +361,18 @@ def _extract_at_source(finding: RoomFinding, mode: OutdoorMode) -> Action[Any] |
     return Action(ActionKind.EXTRACT_AT_SOURCE, numbers, _keys(in_use[1], continuous[1]))
 
 
-def _with_extract(
-    finding: RoomFinding, actions: list[Action[Any]], mode: OutdoorMode
+def _dehumidify_closed(
+    finding: RoomFinding,
+    target: Target,
+    target_air: AirState,
+    moisture: MoistureEstimate,
+    why: DehumidifyWhy,
+    mode: OutdoorMode,
+    keys: tuple[str, ...],
 ) -> list[Action[Any]]:
+    """Outdoor air is no help now: dehumidify with the room closed, and in a wet room
+    extract at the source while it is in use."""
+    actions = [_dehumidify(finding, target, target_air, moisture, why, extra_keys=keys)]
     extract = _extract_at_source(finding, mode)
     return actions if extract is None else [*actions, extract]
 
@@ -380,19 +389,14 @@ def _moisture_actions(
     w_room = air.humidity_ratio_kg_per_kg
     w_target = target_air.humidity_ratio_kg_per_kg
     if out is None:
-        return _with_extract(
+        return _dehumidify_closed(
             finding,
-            [
-                _dehumidify(
-                    finding,
-                    target,
-                    target_air,
-                    moisture,
-                    DehumidifyWhy.OUTDOOR_NOT_MEASURED,
-                    extra_keys=target.threshold_keys,
-                )
-            ],
+            target,
+            target_air,
+            moisture,
+            DehumidifyWhy.OUTDOOR_NOT_MEASURED,
             OutdoorMode.NOT_MEASURED,
+            target.threshold_keys,
         )
     w_out = out.humidity_ratio_kg_per_kg
     coldest = finding.coldest
@@ -403,36 +407,26 @@ def _moisture_actions(
     ):
         # Airing can only bring the room's dew point down to outdoor air's, still above the
         # coldest surface: keep windows closed and dehumidify below it.
-        return _with_extract(
+        return _dehumidify_closed(
             finding,
-            [
-                _dehumidify(
-                    finding,
-                    target,
-                    target_air,
-                    moisture,
-                    DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
-                    extra_keys=(*target.threshold_keys, margin_key),
-                )
-            ],
+            target,
+            target_air,
+            moisture,
+            DehumidifyWhy.OUTDOOR_DEW_POINT_ABOVE_SURFACE,
             OutdoorMode.HOLDS_TARGET,
+            (*target.threshold_keys, margin_key),
         )
     if w_out > w_room - margin:
         wetter = w_out >= w_room
         why = DehumidifyWhy.OUTDOOR_WETTER if wetter else DehumidifyWhy.OUTDOOR_ABOUT_SAME
-        return _with_extract(
+        return _dehumidify_closed(
             finding,
-            [
-                _dehumidify(
-                    finding,
-                    target,
-                    target_air,
-                    moisture,
-                    why,
-                    extra_keys=(*target.threshold_keys, margin_key),
-                )
-            ],
+            target,
+            target_air,
+            moisture,
+            why,
             OutdoorMode.WETTER if wetter else OutdoorMode.ABOUT_SAME,
+            (*target.threshold_keys, margin_key),
         )
     if w_out <= w_target - margin:
         ventilate = _ventilate(finding, target, target_air, moisture)
