@@ -257,7 +257,7 @@ def test_display_conversion_round_trip(quantity, value, system):
 def test_round_trip_error_near_the_ip_enthalpy_datum_is_float_spacing():
     """The round trip's error near 0 J/kg is a few float spacings of the 17 884 J/kg datum
     (math.ulp), the bound the tolerance above rests on; the display shows 0.1 Btu/lb."""
-    datum = 1006.0 * 32.0 / 1.8  # cp_da × 17.78 K, the shift in units._DATUM_SHIFT
+    datum = 1006.0 * 32.0 / 1.8  # cp_da × 17.78 K, the shift in units_display._DATUM_SHIFT
     for value in (0.001, 0.003340719959137196, 0.5, 1.0):
         back = units.from_display("enthalpy", units.to_display("enthalpy", value, "ip"), "ip")
         assert abs(back - value) <= 4 * math.ulp(datum)

@@ -144,10 +144,10 @@ class Display:
         import math
 
         if self.ip:
-            from survey import units
+            from survey import units, units_display
 
             shown = units.to_display(quantity, value_si, "ip")
-            places = units._DECIMALS[(quantity, "ip")]
+            places = units_display.DECIMALS[(quantity, "ip")]
             up = math.ceil(shown * 10**places - 1e-9) / 10**places
             return self(quantity, units.from_display(quantity, up, "ip") + 1e-12)
         places, factor, _ = SI_TEXT[quantity]
