@@ -19,7 +19,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from survey import domain, model, psychro, store
+from survey import domain, model, model_checks, psychro, store
 from survey.errors import SurveyFileError
 from survey.store import fileio
 
@@ -68,7 +68,7 @@ def _maybe(strategy):
 def _room(**fields) -> model.Room:
     """A room whose floor area × height, when it gives the volume, lies in the domain."""
     room = model.Room(**fields)
-    if model._volume_problem(room):
+    if model_checks._volume_problem(room):
         room.height_m = None
     return room
 
