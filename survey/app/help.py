@@ -8,7 +8,9 @@ from rich.text import Text
 from textual.binding import Binding
 from textual.containers import VerticalScroll
 from textual.screen import Screen
-from textual.widgets import Footer, Static
+from textual.widgets import Static
+
+from survey.app.footer import KeysFooter
 
 WALK = (
     "Walk: site (F2) → visit (F3) → rooms (F4) → each room → findings (F5) → report "
@@ -75,7 +77,7 @@ class HelpScreen(Screen):
         yield Static(Text("Keys", style="bold"), classes="screen-title")
         with VerticalScroll(id="help-scroll", can_focus=True):
             yield Static(help_text(self.app.user_keys, self.app.data_dir))
-        yield Footer()
+        yield KeysFooter()
 
     def on_mount(self) -> None:
         self.query_one("#help-scroll").focus()

@@ -8,11 +8,12 @@ from textual import on
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
-from textual.widgets import Footer, Input, Label, Select, Static
+from textual.widgets import Input, Label, Select, Static
 
 from survey import assess, quick, units, words
 from survey.app import walk
 from survey.app.fields import plain
+from survey.app.footer import KeysFooter
 from survey.app.room import USES
 from survey.errors import InputError
 from survey.words import screens
@@ -59,7 +60,7 @@ class QuickScreen(Screen):
                 )
                 yield Static("", id="quick-message", classes="field-message -error")
             yield VerticalScroll(Static(id="quick-result"), classes="live-panel-scroll")
-        yield Footer()
+        yield KeysFooter()
 
     def on_mount(self) -> None:
         self.query_one("#quick-air").focus()

@@ -9,11 +9,12 @@ from rich.text import Text
 from textual import on
 from textual.binding import Binding
 from textual.screen import Screen
-from textual.widgets import Footer, OptionList, Static
+from textual.widgets import OptionList, Static
 from textual.widgets.option_list import Option
 
 from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
+from survey.app.footer import KeysFooter
 from survey.app.status import StatusBar
 
 
@@ -37,7 +38,7 @@ class StartScreen(Screen):
         )
         yield OptionList(id="start-menu")
         yield StatusBar()
-        yield Footer()
+        yield KeysFooter()
 
     def on_mount(self) -> None:
         self.fill()

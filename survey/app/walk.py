@@ -12,11 +12,12 @@ from rich.text import Text
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
-from textual.widgets import Footer, Label, Static
+from textual.widgets import Label, Static
 
 from survey import model, store, units
 from survey.app.editing import Editor
 from survey.app.fields import plain
+from survey.app.footer import KeysFooter
 from survey.app.status import StatusBar
 from survey.errors import InputError
 
@@ -70,7 +71,7 @@ class WalkScreen(Screen):
 
     def footer_widgets(self):
         yield StatusBar()
-        yield Footer()
+        yield KeysFooter()
 
     def on_screen_resume(self) -> None:
         if getattr(self, "_shown_once", False):
