@@ -49,7 +49,7 @@ def run() -> list[Result]:
     choice = mi.ClassChoice("sensitive", "stated")
     values = [t / 40.0 for t in series.temps_c]
     ours, bare = interleaved_best(
-        lambda: mi.integrate(series, cls), lambda: _bare(values), repeat=7
+        lambda: mi.integrate(series, cls), lambda: _bare(values), repeat=21
     )
     full, bare_full = interleaved_best(
         lambda: mi.analyse(series, choice), lambda: _bare(values), repeat=5

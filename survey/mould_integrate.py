@@ -11,8 +11,8 @@ from __future__ import annotations
 
 import math
 from bisect import bisect_left
-from itertools import compress, count
-from operator import and_, ne, sub
+from itertools import compress, count, repeat
+from operator import and_, le, ne, sub
 from typing import TYPE_CHECKING, NamedTuple
 
 from survey import thresholds as th
@@ -92,7 +92,7 @@ def _decline(
 def _time_at_or_above(hours: list[float], index: list[float], level: float) -> float:
     """Hours the index spends at or above ``level`` along its breakpoints (straight lines
     between them). Whole segments are summed at C speed; only crossings are worked out."""
-    at = list(map(level.__le__, index))
+    at = list(map(le, repeat(level), index))
     spans = map(sub, hours[1:], hours)
     total: float = sum(compress(spans, map(and_, at[1:], at)))
     for j in compress(count(), map(ne, at[1:], at)):
@@ -134,7 +134,7 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
     slope = K2_SLOPE
     last = n - 1
     # 0: dry whatever the temperature; 1: to be stepped through; 2: a gap (index held)
-    mask = bytearray(map(rh_min.__le__, rhs[:last]))
+    mask = bytearray(map(le, repeat(rh_min), rhs[:last]))  # (a bound method maps slower)
 
     gaps, gap_h = 0, 0.0
     if series.longest_step > gap:
@@ -144,6 +144,7 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
                 gaps += 1
                 gap_h += step
     others = ((b"\x01", b"\x02"), (b"\x00", b"\x02"), (b"\x00", b"\x01"))
+    flip = (b"\x01", b"\x00")
     points_h = [0.0]
     points_m = [0.0]
     add_h, add_m = points_h.append, points_m.append
@@ -176,12 +177,16 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
 
     t_values: dict[float, tuple[float, float, float, float, float, float]] = {}
     rh_powers: dict[float, float] = {}
-    t_get, rh_get = t_values.get, rh_powers.get
     pos = 0
     while pos < last:
         kind = mask[pos]
-        one, two = (mask.find(k, pos) for k in others[kind])
-        end = min(one if one >= 0 else last, two if two >= 0 else last)
+        if gaps:
+            one, two = (mask.find(k, pos) for k in others[kind])
+            end = min(one if one >= 0 else last, two if two >= 0 else last)
+        else:  # no gap: the stretch ends where the other kind begins
+            end = mask.find(flip[kind], pos)
+            if end < 0:
+                end = last
         if kind != 1:
             if was_fav:
                 runs.append(pos)
@@ -203,11 +208,14 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             pos = end
             continue
         first_point = len(points_m)
+        t_prev = math.nan  # never equal: the first sample looks its temperature up
         for step, t, rh in zip(steps[pos:end], temps[pos:end], rhs[pos:end], strict=True):
-            by_t = t_get(t)
-            if by_t is None:
-                by_t = t_values[t] = by_temperature(t)
-            crit, q0, q1, q2, rate_a, rate_b = by_t
+            if t != t_prev:  # a logger's temperature often holds from one sample to the next
+                t_prev = t
+                try:  # (a subscript is quicker than .get; a new value is rare)
+                    crit, q0, q1, q2, rate_a, rate_b = t_values[t]
+                except KeyError:
+                    crit, q0, q1, q2, rate_a, rate_b = t_values[t] = by_temperature(t)
             if rh < crit:
                 if was_fav:
                     runs.append(pos + len(points_m) - first_point)
@@ -235,11 +243,12 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
                 was_fav = True
             m_max = q0 + (q1 + q2 * rh) * rh
             if m < m_max:
-                power = rh_get(rh)
-                if power is None:
-                    power = rh_powers[rh] = rh**p_rh
+                try:
+                    power = rh_powers[rh] * step
+                except KeyError:
+                    rh_powers[rh] = rh**p_rh
+                    power = rh_powers[rh] * step
                 k2 = 1.0 - exp(slope * (m - m_max))
-                power *= step
                 if m >= 1.0:
                     m += rate_b * power * k2
                 else:
@@ -262,7 +271,8 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
     top_sample = bisect_left(hours, ph[pm.index(top)])
     # below a level the index never reached, nothing is to be found
     firsts = [
-        next(compress(count(), map(v.__le__, pm)), None) if top >= v else None for v in (1.0, 3.0)
+        next(compress(count(), map(le, repeat(v), pm)), None) if top >= v else None
+        for v in (1.0, 3.0)
     ]
     first_1, first_3 = (None if f is None else bisect_left(hours, ph[f]) for f in firsts)
     fav_h = sum(hours[runs[k + 1]] - hours[runs[k]] for k in range(0, len(runs), 2))
