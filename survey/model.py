@@ -55,7 +55,7 @@ from survey.psychro import (
 
 #: The schema version this program writes. Older versions are upgraded on load by the
 #: migrations in :mod:`survey.store.migrations`; newer ones are refused.
-SCHEMA_VERSION = 2
+SCHEMA_VERSION = 3
 
 # --- choices -----------------------------------------------------------------------------
 
@@ -253,8 +253,9 @@ class Room(Struct, **_RECORD):
     height_m: (
         Annotated[float, Meta(ge=domain.ROOM_HEIGHT_MIN_M, le=domain.ROOM_HEIGHT_MAX_M)] | None
     ) = None
-    #: People who usually use it.
-    occupants: Annotated[int, Meta(ge=0, le=domain.OCCUPANTS_MAX)] = 0
+    #: People who usually use it; None: not recorded (the advice asks for it rather than
+    #: reckon with no one).
+    occupants: Annotated[int, Meta(ge=0, le=domain.OCCUPANTS_MAX)] | None = None
     #: True for an unaffected room used as the reference (dry standard, normal conditions).
     is_reference: bool = False
     #: The room's usual moisture-producing use, for the moisture load (not said: a wet

@@ -185,6 +185,8 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     assert survey.instruments[0].rh_accuracy_pct == 2.0
     assert str(survey.instruments[0].calibrated_on) == "2026-06-01"
     assert [r.name for r in survey.rooms] == ["Bed [b]1", "Kitchen"]
+    # A room added in the app has its occupants unrecorded, not none: nothing typed there.
+    assert [r.occupants for r in survey.rooms] == [None, None]
     first, second = survey.visits
     assert first.started_at == dt.datetime(2026, 12, 1, 9, 30)
     assert (first.label, first.weather) == ("Day 1", "overcast")
@@ -217,3 +219,9 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     # 8 °C is about 4.5 K below that dew point, far outside the instruments' band.
     assert room.surfaces[0].condensation.value == "condensing"
     assert judged.advice.rooms[0].actions  # something to do in a room that condenses
+    # Unrecorded occupants are not reckoned as no one: the report says they were not recorded.
+    from survey import report
+
+    text = report.markdown_report(survey, report.ReportOptions(generated_at="fixed"))
+    assert "usual occupants not recorded" in text
+    assert "no occupants:" not in text and "no usual occupants" not in text

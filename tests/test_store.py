@@ -860,11 +860,16 @@ def test_schema_0_file_with_a_bad_value_names_the_place(tmp_path):
 
 
 @pytest.mark.parametrize("name", ["basement-burst-pipe-drying", "winter-flat-bedroom-mould"])
-def test_a_version_1_file_loads_unchanged_as_version_2(tmp_path, name):
-    """Version 2 only added optional fields: a version-1 file gives the same records."""
+def test_a_version_1_file_loads_unchanged_as_the_current_version(tmp_path, name):
+    """Version 2 only added optional fields, and version 3 reads a room's missing occupants
+    as not recorded where versions 1 and 2 read none: a version-1 file (which left out a
+    room's 0 occupants) gives the same records."""
     source = Path("example_sites") / f"{name}.json"
     doc = json.loads(source.read_text())
     doc["schema_version"] = 1
+    for room in doc["rooms"]:
+        if room.get("occupants") == 0:
+            del room["occupants"]
     for visit in doc["visits"]:
         for room in visit["rooms"]:
             for unit in room.get("equipment", []):
@@ -874,7 +879,7 @@ def test_a_version_1_file_loads_unchanged_as_version_2(tmp_path, name):
     path = tmp_path / "v1.json"
     path.write_text(json.dumps(doc))
     upgraded = store.load_survey(path)
-    assert upgraded.schema_version == 2
+    assert upgraded.schema_version == model.SCHEMA_VERSION == 3
     expected = store.load_survey(source)
     for visit in expected.visits:
         for room in visit.rooms:
@@ -889,3 +894,27 @@ def test_a_version_1_file_loads_unchanged_as_version_2(tmp_path, name):
                 for e in room.equipment
             ]
     assert upgraded == expected
+
+
+def test_a_version_2_room_without_occupants_had_none_and_a_version_3_room_has_them_unrecorded(
+    tmp_path,
+):
+    """Version 2 left out a room's 0 occupants; version 3 leaves out occupants not
+    recorded. The upgrade writes the 0 in, so the version-2 file keeps its meaning."""
+    source = Path("example_sites") / "winter-flat-bedroom-mould.json"
+    doc = json.loads(source.read_text())
+    kitchen = next(room for room in doc["rooms"] if room["id"] == "kitchen")
+    assert kitchen.pop("occupants") == 0
+    doc["schema_version"] = 2
+    path = tmp_path / "v2.json"
+    path.write_text(json.dumps(doc))
+    assert next(r for r in store.load_survey(path).rooms if r.id == "kitchen").occupants == 0
+    doc["schema_version"] = 3
+    path.write_text(json.dumps(doc))
+    loaded = store.load_survey(path)
+    assert next(r for r in loaded.rooms if r.id == "kitchen").occupants is None
+    saved = tmp_path / "saved.json"
+    store.save_survey(loaded, saved)
+    assert "occupants" not in next(
+        r for r in json.loads(saved.read_text())["rooms"] if r["id"] == "kitchen"
+    )

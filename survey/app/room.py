@@ -123,10 +123,11 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield Field(
                     "Occupants",
-                    str(room.occupants),
-                    walk.whole("Occupants"),
+                    "" if room.occupants is None else str(room.occupants),
+                    walk.optional(walk.whole("Occupants")),
                     self._set_room("occupants", "Occupants"),
                     id="room-occupants",
+                    placeholder="not recorded",
                     disabled=ro,
                 )
                 yield from room_details.room_fields(self, room, system, ro)

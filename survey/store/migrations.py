@@ -155,3 +155,16 @@ def _upgrade_1_to_2(doc: dict[str, Any]) -> dict[str, Any]:
     if not isinstance(doc, dict):
         raise TypeError("the document is not an object")
     return doc
+
+
+@migration(2)
+def _upgrade_2_to_3(doc: dict[str, Any]) -> dict[str, Any]:
+    """Version 3 lets a room's occupants be unrecorded: a room without ``occupants`` now
+    means "not recorded", where in version 2 it meant none. Rooms of a version-2 file that
+    left it out are given ``0``, which is what the file meant."""
+    if not isinstance(doc, dict):
+        raise TypeError("the document is not an object")
+    for room in doc.get("rooms", []):
+        if isinstance(room, dict):
+            room.setdefault("occupants", 0)
+    return doc

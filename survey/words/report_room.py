@@ -28,15 +28,18 @@ def room_heading(name: str, reference: bool) -> str:
     return reference_room_name(name) if reference else name
 
 
-def room_facts(use: str, level: int, volume_m3: float | None, occupants: int, d: Display) -> str:
+def room_facts(
+    use: str, level: int, volume_m3: float | None, occupants: int | None, d: Display
+) -> str:
     phrase = USE_PHRASE.get(use) or "a room of unstated use"
     parts = [f"Used as {phrase}", f"level {level}"]
     parts.append("volume not given" if volume_m3 is None else f"volume {d('volume', volume_m3)}")
-    parts.append(
-        "no usual occupants"
-        if occupants == 0
-        else f"{occupants} usual occupant{'s' if occupants != 1 else ''}"
-    )
+    if occupants is None:
+        parts.append("usual occupants not recorded")
+    elif occupants == 0:
+        parts.append("no usual occupants")
+    else:
+        parts.append(f"{occupants} usual occupant{'s' if occupants != 1 else ''}")
     return "; ".join(parts) + "."
 
 
