@@ -574,6 +574,29 @@ def test_water_on_a_cold_pipe_above_0_c_and_closed_cell_insulation():
     assert "frost" not in text
 
 
+def test_a_pipe_near_the_dew_point_in_a_room_already_at_its_target_says_so():
+    """A pipe at 10.0 °C in air of 20.2 °C / 50 %, whose dew point is 9.5 °C (CoolProp): at
+    ±1 K the pipe cannot be told apart from the dew point. It stays dry only below about
+    52 % room RH (50 × 100 / its 96 % surface RH), and the room is at 50 % already, so
+    the words do not say "once the room is down to" a target it has reached; they say the
+    room is at 50 % now, too close to the limit to rely on."""
+    room = RoomInput(
+        "Store",
+        "bedroom",
+        20.2,
+        50.0,
+        (SurfaceInput("repaired joint", 10.0, "pipe"),),
+        volume_m3=17.0,
+        occupants=0,
+    )
+    dew = coolprop("D", 20.2, 50.0) - 273.15
+    assert dew == pytest.approx(9.5, abs=0.05)
+    text = reason_of(room, OutdoorInput(3.0, 88.0), ActionKind.INSULATE_PIPE)
+    assert "water may form on it" in text
+    assert "the room is at 50 % now, too close to that to rely on" in text
+    assert "once the room is down to" not in text
+
+
 def bedroom_with_bay_window():
     walls = winter_bedroom()
     return RoomInput(

@@ -240,7 +240,7 @@ class ColdSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     """A pane, frame or pipe at or near its condensation point."""
 
     __words__: ClassVar[frozenset[str]] = frozenset(
-        ("target_rh_pct", "forming", "mouldy", "drying")
+        ("target_rh_pct", "forming", "mouldy", "drying", "room_rh_pct")
     )
     surface: str
     element: str
@@ -253,6 +253,7 @@ class ColdSurfaceNumbers(msgspec.Struct, frozen=True, kw_only=True):
     forming: Forming
     mouldy: bool = False
     drying: bool = False
+    room_rh_pct: float | None = None  #: the room's RH now
 
 
 class MaterialPoint(msgspec.Struct, frozen=True, kw_only=True):

@@ -123,6 +123,7 @@ def _cold_surface(
         forming=forming,
         mouldy=mouldy,
         drying=_drying(finding) is not None,
+        room_rh_pct=finding.air.rh_pct,
     )
 
 

@@ -129,6 +129,15 @@ def _stays_dry(n: ColdSurfaceNumbers, d: Display) -> str:
     dry = round_down_rh(n.max_room_rh_pct_dry)
     what = "free of frost" if n.frost else "dry"
     text = f"It stays {what} only while the room is below {dry} %"
+    room = n.room_rh_pct
+    if room is not None and room <= n.target_rh_pct and room < n.max_room_rh_pct_dry:
+        # the room is there already: a lower target would not be "once the room is down"
+        if n.forming is Forming.NO:
+            return text + f", and the room is below that now, at {_pct(room)}."
+        return (
+            text + f"; the room is at {_pct(room)} now, too close to that to rely on at this "
+            "instrument accuracy."
+        )
     if dry >= n.target_rh_pct:
         return text + f", so once the room is down to {_pct(n.target_rh_pct)} it stays {what}."
     return (
