@@ -63,6 +63,8 @@ class QuickScreen(Screen):
         yield KeysFooter()
 
     def on_mount(self) -> None:
+        #: The last value each field read, kept while its text does not read.
+        self._good: dict[str, float] = {}
         self.query_one("#quick-air").focus()
         self.update_result()
 
@@ -76,22 +78,33 @@ class QuickScreen(Screen):
         self.update_result()
 
     def gather(self) -> quick.QuickInput | None:
+        """The readings as typed. A field that does not read keeps the last value that did
+        (or is left out), and the message under the form says which value is in use, so one
+        slip (or a half-typed "-") does not blank the result."""
         values: dict[str, float | None] = {}
-        message = self.query_one("#quick-message", Static)
-        for key, _label, parse, need in FIELDS:
+        problems: list[str] = []
+        good = self._good
+        for key, label, parse, _need in FIELDS:
             text = self.query_one(f"#quick-{key}", Input).value
             if not text.strip():
-                if need:
-                    message.update("")
-                    return None
+                good.pop(key, None)
                 values[key] = None
                 continue
             try:
-                values[key] = parse(text)
+                values[key] = good[key] = parse(text)
             except InputError as exc:
-                message.update(plain(str(exc)))
-                return None
-        message.update("")
+                kept = good.get(key)
+                values[key] = kept
+                unit = " °C" if "°C" in label else " %"
+                used = (
+                    "it is left out"
+                    if kept is None
+                    else f"the result uses the last value that read, {kept:g}{unit}"
+                )
+                problems.append(f"Not read: {exc}; {used}.")
+        self.query_one("#quick-message", Static).update(plain(" ".join(problems)))
+        if values["air"] is None or values["rh"] is None:
+            return None
         use = self.query_one("#quick-use", Select).value
         surfaces = (
             ()

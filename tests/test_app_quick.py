@@ -1,0 +1,60 @@
+"""The quick-check screen: readings that belong to no survey, judged as ``survey check``
+judges them; a value that does not read is named and the last one that did stays in use."""
+
+from __future__ import annotations
+
+import CoolProp.CoolProp as CP
+from textual.widgets import Input, Static
+
+from survey.app import make_app
+from survey.app.quick import QuickScreen
+
+
+def shown(app, widget_id: str) -> str:
+    return str(app.screen.query_one(f"#{widget_id}", Static).render())
+
+
+async def type_into(pilot, app, key: str, text: str) -> None:
+    box = app.screen.query_one(f"#quick-{key}", Input)
+    box.value = text
+    await pilot.pause()
+
+
+async def test_a_value_that_does_not_read_keeps_the_last_good_one_in_the_result(tmp_path):
+    """21 °C and 65 % give a dew point of 14.2 °C (CoolProp, at 101 325 Pa); a surface at
+    12.5 °C is under it. The surface then typed as "abc" is named under the form, and the
+    result still shows the 12.5 °C surface; the air temperature typed as "-" (half of a
+    negative number) keeps 21 °C. Nothing is written: the data folder stays empty."""
+    data = tmp_path / "data"
+    app = make_app(data_dir=data)
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        await pilot.press("f6")
+        await pilot.pause()
+        assert isinstance(app.screen, QuickScreen)
+        assert "Type the air temperature and RH" in shown(app, "quick-result")
+        await type_into(pilot, app, "air", "21")
+        await type_into(pilot, app, "rh", "65")
+        await type_into(pilot, app, "surface", "12.5")
+        dew = CP.HAPropsSI("D", "T", 294.15, "R", 0.65, "P", 101325.0) - 273.15
+        result = shown(app, "quick-result")
+        assert f"{dew:.1f} °C" in result
+        assert "12.5 °C" in result
+        assert shown(app, "quick-message") == ""
+
+        await type_into(pilot, app, "surface", "abc")
+        message = shown(app, "quick-message")
+        assert "Not read: surface temperature abc" in message
+        assert "the result uses the last value that read, 12.5 °C" in message
+        assert shown(app, "quick-result") == result
+
+        await type_into(pilot, app, "air", "-")
+        assert "air temperature -" in shown(app, "quick-message")
+        assert shown(app, "quick-result") == result  # 21 °C still in use
+
+        await type_into(pilot, app, "surface", "")  # cleared: left out, not kept
+        await type_into(pilot, app, "air", "21")
+        assert shown(app, "quick-message") == ""
+        assert "12.5 °C" not in shown(app, "quick-result")
+        assert f"{dew:.1f} °C" in shown(app, "quick-result")
+    assert not data.exists() or not any(data.rglob("*.json"))
