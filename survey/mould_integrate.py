@@ -244,10 +244,10 @@ def integrate(series: SurfaceSeries, cls: SensitivityClass) -> Integration:
             m_max = q0 + (q1 + q2 * rh) * rh
             if m < m_max:
                 try:
-                    power = rh_powers[rh] * step
+                    power = rh_powers[rh]
                 except KeyError:
-                    rh_powers[rh] = rh**p_rh
-                    power = rh_powers[rh] * step
+                    power = rh_powers[rh] = rh**p_rh
+                power *= step
                 k2 = 1.0 - exp(slope * (m - m_max))
                 if m >= 1.0:
                     m += rate_b * power * k2

@@ -20,7 +20,7 @@ class KeysFooter(Footer):
 
     _shown: Hashable = None
 
-    def _on_show_keys(self) -> Hashable:
+    def _keys_on_show(self) -> Hashable:
         """What the footer would show now: each shown key with its label and state."""
         shown = tuple(
             (binding.key, binding.action, binding.description, enabled, tooltip, binding.group)
@@ -31,7 +31,7 @@ class KeysFooter(Footer):
 
     def compose(self) -> ComposeResult:
         if self._bindings_ready:
-            self._shown = self._on_show_keys()
+            self._shown = self._keys_on_show()
         yield from super().compose()
 
     def bindings_changed(self, screen: Screen) -> None:
@@ -40,7 +40,7 @@ class KeysFooter(Footer):
             and screen.app.app_focus
             and self.is_attached
             and screen is self.screen
-            and self._on_show_keys() == self._shown
+            and self._keys_on_show() == self._shown
         ):
             return
         super().bindings_changed(screen)

@@ -18,7 +18,7 @@ from survey.app.room import USES
 from survey.errors import InputError
 from survey.words import screens
 
-#: (id, label, parser, needed)
+#: (id, label, parser, needed; the label ends with the unit the field is read in)
 FIELDS = [
     ("air", "Air temp. °C", lambda t: units.parse_temperature(t, "air temperature"), True),
     ("rh", "RH %", lambda t: units.parse_rh(t, "relative humidity"), True),
@@ -95,15 +95,15 @@ class QuickScreen(Screen):
             except InputError as exc:
                 kept = good.get(key)
                 values[key] = kept
-                unit = " °C" if "°C" in label else " %"
+                unit = label.rsplit(" ", 1)[1]
                 used = (
                     "it is left out"
                     if kept is None
-                    else f"the result uses the last value that read, {kept:g}{unit}"
+                    else f"the result uses the last value that read, {kept:g} {unit}"
                 )
                 problems.append(f"Not read: {exc}; {used}.")
         self.query_one("#quick-message", Static).update(plain(" ".join(problems)))
-        if values["air"] is None or values["rh"] is None:
+        if any(values[key] is None for key, _label, _parse, need in FIELDS if need):
             return None
         use = self.query_one("#quick-use", Select).value
         surfaces = (
