@@ -43,9 +43,10 @@ surface RH tends to the outdoor RH itself), so the solve keeps to a bracket: fro
 ``design_month_search_lowest_c`` (−30 °C) up to the warm end θi,d −
 ``frsi_min_temperature_difference_k`` (the heated months, where the temperature factor sets
 the surface; at most ``humidity_class_zero_at_c``). It scans the bracket downward from the
-warm end in steps of :data:`SEARCH_STEP_K` (and at the knees of the class lines), and bisects
-the first step in which the surface passes the limit to :data:`SEARCH_TOLERANCE_K`;
-bisection needs only the change of sign at the ends of that step. The answer is "the lowest
+warm end in steps of :data:`SEARCH_STEP_K` (and at the knees of the class lines), and narrows
+the first step in which the surface passes the limit to :data:`SEARCH_TOLERANCE_K`
+(:func:`refine`, Brent's method, which like bisection needs only the change of sign at the
+ends of that step). The answer is "the lowest
 month down to which every month from the warm end meets the limit". The same search on the
 ends of the RH band gives the range of the answer.
 """
@@ -54,9 +55,10 @@ from __future__ import annotations
 
 import itertools
 import math
+import sys
 from collections.abc import Callable
 from enum import Enum
-from functools import cache
+from functools import cache, lru_cache
 from typing import NamedTuple
 
 from survey import psychro
@@ -154,22 +156,33 @@ class Point(NamedTuple):
     room_saturated: bool = False
 
 
+#: The readings a sensitivity is taken to, in the order of the tuples below.
 READINGS = ("ts", "ti", "te", "rhi", "rhe")
 
+#: Saturation over water, remembered: a search asks it again and again at the room's
+#: temperature and at the scan's whole kelvins (a pure function; the cache only saves time).
+_psat_water = lru_cache(maxsize=4096)(psychro.sat_vapour_pressure_water_pa)
+_NONE = (0.0, 0.0, 0.0, 0.0, 0.0)
+_EPS = sys.float_info.epsilon
 
-def combined(r: Readings, sens: dict[str, float]) -> float:
-    """Standard uncertainty from the sensitivities to each reading (see the module notes)."""
-    total = (sens["ts"] * r.u_ts) ** 2 + (sens["rhi"] * r.u_rh) ** 2 + (sens["rhe"] * r.u_rh) ** 2
+Sensitivities = tuple[float, float, float, float, float]
+
+
+def combined(r: Readings, sens: Sensitivities) -> float:
+    """Standard uncertainty from the sensitivities to each reading, in the order of
+    :data:`READINGS` (see the module notes)."""
+    s_ts, s_ti, s_te, s_rhi, s_rhe = sens
+    total = (s_ts * r.u_ts) ** 2 + (s_rhi * r.u_rh) ** 2 + (s_rhe * r.u_rh) ** 2
     if r.shared:
-        total += ((sens["ti"] + sens["te"]) * r.u_t) ** 2
+        total += ((s_ti + s_te) * r.u_t) ** 2
     else:
-        total += (sens["ti"] * r.u_t) ** 2 + (sens["te"] * r.u_t) ** 2
+        total += (s_ti * r.u_t) ** 2 + (s_te * r.u_t) ** 2
     return math.sqrt(total)
 
 
 def excess_in_month(
     r: Readings, te_d: float, excess_model: ExcessModel
-) -> tuple[float, dict[str, float]]:
+) -> tuple[float, Sensitivities]:
     """The room's vapour-pressure excess in a month of mean ``te_d``, and its sensitivity to
     each reading (all 0 where a negative excess is floored at 0)."""
     today = r.p_i - r.p_e
@@ -181,14 +194,14 @@ def excess_in_month(
         ratio, dratio_dte = 1.0, 0.0
     excess = ratio * today
     if excess < 0.0:
-        return 0.0, dict.fromkeys(READINGS, 0.0)
-    return excess, {
-        "ts": 0.0,
-        "ti": ratio * r.p_i * r.l_i,
-        "te": -ratio * r.p_e * r.l_e + today * dratio_dte,
-        "rhi": ratio * r.pws_i,
-        "rhe": -ratio * r.pws_e,
-    }
+        return 0.0, _NONE
+    return excess, (
+        0.0,
+        ratio * r.p_i * r.l_i,
+        -ratio * r.p_e * r.l_e + today * dratio_dte,
+        ratio * r.pws_i,
+        -ratio * r.pws_e,
+    )
 
 
 def room_vapour_pressure(
@@ -197,7 +210,7 @@ def room_vapour_pressure(
     """The room's vapour pressure in the month, outdoor plus excess, held at saturation over
     water at the indoor temperature (air cannot hold more; RH relative to water, as
     measured), and whether it was held there."""
-    saturation = psychro.sat_vapour_pressure_water_pa(indoor_c)
+    saturation = _psat_water(indoor_c)
     p_room = outdoor_pa + excess_pa
     return (saturation, True) if p_room >= saturation else (p_room, False)
 
@@ -211,35 +224,38 @@ def evaluate(
 ) -> Point:
     """The projection of one surface to a month of mean ``te_d`` and ``rh_e_d`` (see the
     module notes for the formulas and the sensitivities)."""
+    measured_ti = ti_given is None
     ti_d = r.ti if ti_given is None else ti_given
     delta = r.ti - r.te
     d = ti_d - te_d
     f = (r.ts - r.te) / delta
     theta = te_d + f * d
     excess, dex = excess_in_month(r, te_d, excess_model)
-    p_room, saturated = room_vapour_pressure(
-        rh_e_d / 100.0 * psychro.sat_vapour_pressure_water_pa(te_d), excess, ti_d
-    )
+    p_room, saturated = room_vapour_pressure(rh_e_d / 100.0 * _psat_water(te_d), excess, ti_d)
     if saturated:  # held at psat,water(θi,d): it moves only with a measured room temperature
-        dex = dict.fromkeys(READINGS, 0.0)
-        if ti_given is None:
-            dex["ti"] = r.pws_i * r.l_i
+        dex = (0.0, r.pws_i * r.l_i if measured_ti else 0.0, 0.0, 0.0, 0.0)
     rh = 100.0 * p_room / psychro.sat_vapour_pressure_pa(theta)
     l_s = psychro.dln_sat_vapour_pressure_per_k(theta)
-    dth = {
-        "ts": d / delta,
-        "ti": -f * d / delta + (f if ti_given is None else 0.0),
-        "te": (f - 1.0) * d / delta,
-        "rhi": 0.0,
-        "rhe": 0.0,
-    }
-    dln = {x: dex[x] / p_room - l_s * dth[x] for x in READINGS}
+    dth = (
+        d / delta,
+        -f * d / delta + (f if measured_ti else 0.0),
+        (f - 1.0) * d / delta,
+        0.0,
+        0.0,
+    )
+    dln = (
+        dex[0] / p_room - l_s * dth[0],
+        dex[1] / p_room - l_s * dth[1],
+        dex[2] / p_room - l_s * dth[2],
+        dex[3] / p_room,
+        dex[4] / p_room,
+    )
     return Point(theta, combined(r, dth), rh, combined(r, dln), excess, saturated)
 
 
 #: Step of the downward scan in the search for the lowest month, K.
 SEARCH_STEP_K = 1.0
-#: The bisection stops when the step is this small, K.
+#: The refinement stops when the step that holds the answer is this narrow, K.
 SEARCH_TOLERANCE_K = 1e-4
 
 
@@ -257,24 +273,80 @@ def scan_points(low_c: float, high_c: float) -> list[float]:
     return sorted(points, reverse=True)
 
 
+def refine(
+    excess_of: Callable[[float], float],
+    meets: float,
+    fails: float,
+    at_meets: float,
+    at_fails: float,
+) -> float:
+    """The temperature between ``meets`` (``excess_of`` ≤ 0 there) and ``fails`` (> 0) where
+    ``excess_of`` changes sign, to :data:`SEARCH_TOLERANCE_K`.
+
+    Brent's method (R. P. Brent, *Algorithms for Minimization without Derivatives*, 1973,
+    ch. 4): inverse quadratic interpolation or the secant while they close in fast, a
+    bisection step whenever they would not. Like bisection it keeps a change of sign between
+    its two ends, so it cannot leave the step, and it stops when they are within the
+    tolerance; on a smooth stretch it takes a third to a half of bisection's tries, at a
+    kink (the room's saturation) not many more. The answer is the middle of the last ends,
+    as bisection's was. "Meets" (≤ 0) and "fails" (> 0) are the two signs throughout."""
+    a, fa, b, fb = meets, at_meets, fails, at_fails
+    c, fc = a, fa
+    d = e = b - a
+    tol = 0.5 * SEARCH_TOLERANCE_K
+    while True:
+        if (fb > 0.0) == (fc > 0.0):  # keep c on the other side of the change from b
+            c, fc = a, fa
+            d = e = b - a
+        if abs(fc) < abs(fb):
+            a, b, c = b, c, b
+            fa, fb, fc = fb, fc, fb
+        step_tol = 2.0 * _EPS * abs(b) + 0.5 * tol
+        m = 0.5 * (c - b)
+        if abs(m) <= step_tol:
+            return b + m
+        if abs(e) >= step_tol and abs(fa) > abs(fb):
+            s = fb / fa
+            if a == c:  # the secant
+                p, q = 2.0 * m * s, 1.0 - s
+            else:  # inverse quadratic interpolation
+                q, r = fa / fc, fb / fc
+                p = s * (2.0 * m * q * (q - r) - (b - a) * (r - 1.0))
+                q = (q - 1.0) * (r - 1.0) * (s - 1.0)
+            if p > 0.0:
+                q = -q
+            else:
+                p = -p
+            if 2.0 * p < min(3.0 * m * q - abs(step_tol * q), abs(e * q)):
+                e, d = d, p / q
+            else:
+                d = e = m
+        else:
+            d = e = m
+        a, fa = b, fb
+        b += d if abs(d) > step_tol else math.copysign(step_tol, m)
+        fb = excess_of(b)
+
+
 def lowest_meeting(
-    excess_of: Callable[[float], float], low_c: float, high_c: float
+    excess_of: Callable[[float], float],
+    low_c: float,
+    high_c: float,
+    points: list[float] | None = None,
 ) -> tuple[InverseOutcome, float | None]:
     """The lowest temperature in [low_c, high_c], going down from ``high_c``, before
-    ``excess_of`` (surface RH minus the limit) first turns positive (see the module notes)."""
-    points = scan_points(low_c, high_c)
-    if excess_of(points[0]) > 0.0:
+    ``excess_of`` (surface RH minus the limit) first turns positive (see the module notes);
+    ``points`` is :func:`scan_points` of the bracket, where the caller has it already."""
+    if points is None:
+        points = scan_points(low_c, high_c)
+    at_warm = excess_of(points[0])
+    if at_warm > 0.0:
         return InverseOutcome.FAILS_AT_WARM_END, None
     for warm, cold in itertools.pairwise(points):
-        if excess_of(cold) > 0.0:
-            meets, fails = warm, cold
-            while meets - fails > SEARCH_TOLERANCE_K:
-                middle = 0.5 * (meets + fails)
-                if excess_of(middle) > 0.0:
-                    fails = middle
-                else:
-                    meets = middle
-            return InverseOutcome.SOLVED, 0.5 * (meets + fails)
+        at_cold = excess_of(cold)
+        if at_cold > 0.0:
+            return InverseOutcome.SOLVED, refine(excess_of, warm, cold, at_warm, at_cold)
+        at_warm = at_cold
     return InverseOutcome.MEETS_THROUGHOUT, None
 
 
@@ -298,19 +370,26 @@ def lowest_month(
         none = (InverseOutcome.NO_BRACKET, None)
         return LowestMonth(*none, none, none, low_c, high_c, rh_e, ti_d)
 
+    seen: dict[float, Point] = {}  # the scan's points serve all three searches
+
     def variant(side: int) -> Callable[[float], float]:
+        spread = side * r.k
+
         def excess_of(t: float) -> float:
-            point = evaluate(r, t, rh_e, given, excess_model)
-            return point.rh_pct * math.exp(side * r.k * point.u_ln_rh) - mould
+            point = seen.get(t)
+            if point is None:
+                point = seen[t] = evaluate(r, t, rh_e, given, excess_model)
+            return point.rh_pct * math.exp(spread * point.u_ln_rh) - mould
 
         return excess_of
 
-    outcome, central = lowest_meeting(variant(0), low_c, high_c)
+    points = scan_points(low_c, high_c)
+    outcome, central = lowest_meeting(variant(0), low_c, high_c, points)
     return LowestMonth(
         outcome,
         central,
-        lowest_meeting(variant(-1), low_c, high_c),
-        lowest_meeting(variant(+1), low_c, high_c),
+        lowest_meeting(variant(-1), low_c, high_c, points),
+        lowest_meeting(variant(+1), low_c, high_c, points),
         low_c,
         high_c,
         rh_e,
