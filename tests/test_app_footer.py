@@ -1,12 +1,12 @@
 """The key footer follows the focus: the keys it shows are those of the focused widget and
-its screen, rebuilt when they change and kept when they do not."""
+its screen, redrawn when they change and kept when they do not; a key shown is a key that
+works (a click on it does what pressing it does), and at any width the command palette's
+key stays in sight."""
 
 from __future__ import annotations
 
 import shutil
 from pathlib import Path
-
-from textual.widgets._footer import FooterKey
 
 from survey.app import make_app
 from survey.app.footer import KeysFooter
@@ -16,7 +16,11 @@ EXAMPLE = Path(__file__).resolve().parents[1] / "example_sites" / "winter-flat-b
 
 def shown(app) -> list[tuple[str, str]]:
     footer = app.screen.query_one(KeysFooter)
-    return [(key.action, key.description) for key in footer.query(FooterKey)]
+    return [(key.action, key.description) for key in footer.shown_keys()]
+
+
+def line(app) -> str:
+    return app.screen.query_one(KeysFooter).render().plain
 
 
 async def test_the_footer_shows_the_focused_widgets_keys_and_keeps_them_when_unchanged(tmp_path):
@@ -37,8 +41,9 @@ async def test_the_footer_shows_the_focused_widgets_keys_and_keeps_them_when_unc
         assert ("screen.edit_surface", "Edit/read") in keys
         assert ("screen.edit_material", "Edit/read") not in keys
         footer = screen.query_one(KeysFooter)
-        undo = next(k for k in footer.query(FooterKey) if k.action == "screen.undo")
+        undo = next(k for k in footer.shown_keys() if k.action == "screen.undo")
         assert undo.key == "z"  # the user's own key, shown
+        assert " z Undo" in line(app)
 
         screen.query_one("#materials").focus()
         await pilot.pause()
@@ -46,12 +51,47 @@ async def test_the_footer_shows_the_focused_widgets_keys_and_keeps_them_when_unc
         assert ("screen.edit_material", "Edit/read") in keys
         assert ("screen.edit_surface", "Edit/read") not in keys
 
-        # From one field to the next the keys on show stay the same: the footer keeps its
-        # widgets rather than building them again.
+        # From one field to the next the keys on show stay the same: the footer keeps the
+        # line it drew rather than drawing it again.
         screen.query_one("#room-temp-input").focus()
         await pilot.pause()
-        before = list(footer.query(FooterKey))
+        before = footer.render()
         assert ("screen.edit_material", "Edit/read") not in shown(app)
         screen.query_one("#room-volume-input").focus()
         await pilot.pause()
-        assert list(footer.query(FooterKey)) == before
+        assert footer.render() is before
+
+
+async def test_a_click_on_a_key_does_what_the_key_does(tmp_path):
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(120, 30)) as pilot:
+        await pilot.pause()
+        assert type(app.screen).__name__ == "RoomListScreen"
+        text = line(app)
+        column = text.index(" Back ")
+        await pilot.click(KeysFooter, offset=(column + 2, 0))
+        await pilot.pause()
+        assert type(app.screen).__name__ == "VisitScreen"  # as Escape goes back
+
+
+async def test_at_80_columns_whole_keys_fit_and_the_palette_key_stays(tmp_path):
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        footer = app.screen.query_one(KeysFooter)
+        text = line(app)
+        assert len(text) == 80
+        assert text.endswith(" ^p palette  ")
+        # the left part is the first keys whole, in order, and not all of them at this width
+        pieces = [
+            footer._piece(k).plain
+            for k in footer.shown_keys()
+            if k.key != app.COMMAND_PALETTE_BINDING
+        ]
+        left = text[: text.rindex(" ^p ")].rstrip()
+        fitted = next(n for n in range(len(pieces) + 1) if "".join(pieces[:n]).rstrip() == left)
+        assert 3 <= fitted < len(pieces)

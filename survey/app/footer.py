@@ -1,46 +1,152 @@
-"""The key footer: Textual's own, rebuilt only when the keys it shows change.
+"""The key footer: the keys of the focused widget and its screen, on one line.
 
-Textual's footer rebuilds its keys every time the focused widget changes, even when the
-keys on show stay the same (moving from one field to the next in a form). Each rebuild mounts
-and styles a dozen widgets; on a form walked by Enter that was most of the app's work per
-keystroke. This footer compares what it would show with what it shows and keeps its keys when
-they are the same."""
+One widget that draws one line, not a widget per key: Textual's own footer mounts and styles
+a widget for every key each time the keys change (and once more after every screen is first
+shown), which was the larger part of the app's start-up and of a screen change. This one
+draws the same keys in the theme's footer colours, dims a key that is disabled, redraws only
+when the keys on show change, and presses a key when it is clicked."""
 
 from __future__ import annotations
 
 from collections.abc import Hashable
+from typing import NamedTuple
 
-from textual.app import ComposeResult
+from textual import events
+from textual.content import Content
 from textual.screen import Screen
-from textual.widgets import Footer
+from textual.style import Style
+from textual.widget import Widget
 
 
-class KeysFooter(Footer):
-    """A footer that rebuilds only when the keys on show change."""
+class ShownKey(NamedTuple):
+    """One key on show: what is pressed, what the footer shows for it, and what it does."""
+
+    key: str
+    display: str
+    description: str
+    action: str
+    enabled: bool
+
+
+class KeysFooter(Widget):
+    """The footer line of a screen."""
+
+    DEFAULT_CSS = """
+    KeysFooter {
+        dock: bottom;
+        height: 1;
+        width: 1fr;
+        color: $footer-foreground;
+        background: $footer-background;
+        text-wrap: nowrap;
+        text-overflow: clip;
+    }
+    """
 
     _shown: Hashable = None
+    _content: Content | None = None
+    #: Where each key is drawn: first and past-last column, and the key.
+    _spans: list[tuple[int, int, str]] = []
 
-    def _keys_on_show(self) -> Hashable:
-        """What the footer would show now: each shown key with its label and state."""
-        shown = tuple(
-            (binding.key, binding.action, binding.description, enabled, tooltip, binding.group)
-            for (_, binding, enabled, tooltip) in self.screen.active_bindings.values()
-            if binding.show
-        )
-        return (shown, self.compact, self.show_command_palette)
+    def shown_keys(self) -> list[ShownKey]:
+        """The keys on show now, in the order the footer shows them: each action once (its
+        first key), the command palette's last."""
+        app = self.app
+        bindings = self.screen.active_bindings
+        keys: list[ShownKey] = []
+        actions: set[str] = set()
+        for _node, binding, enabled, _tooltip in bindings.values():
+            if not binding.show or binding.action in actions:
+                continue
+            actions.add(binding.action)
+            keys.append(
+                ShownKey(
+                    binding.key,
+                    app.get_key_display(binding),
+                    binding.description,
+                    binding.action,
+                    enabled,
+                )
+            )
+        palette = bindings.get(app.COMMAND_PALETTE_BINDING) if app.ENABLE_COMMAND_PALETTE else None
+        if palette is not None:
+            _node, binding, enabled, _tooltip = palette
+            keys = [k for k in keys if k.action != binding.action]
+            keys.append(
+                ShownKey(
+                    binding.key,
+                    app.get_key_display(binding),
+                    binding.description,
+                    binding.action,
+                    enabled,
+                )
+            )
+        return keys
 
-    def compose(self) -> ComposeResult:
-        if self._bindings_ready:
-            self._shown = self._keys_on_show()
-        yield from super().compose()
+    def on_mount(self) -> None:
+        self.screen.bindings_updated_signal.subscribe(self, self.bindings_changed)
+
+    def on_unmount(self) -> None:
+        self.screen.bindings_updated_signal.unsubscribe(self)
 
     def bindings_changed(self, screen: Screen) -> None:
-        if (
-            self._bindings_ready
-            and screen.app.app_focus
-            and self.is_attached
-            and screen is self.screen
-            and self._keys_on_show() == self._shown
-        ):
-            return
-        super().bindings_changed(screen)
+        if self.is_attached and screen is self.screen and self._keys() != self._shown:
+            self.refresh()
+
+    def _keys(self) -> tuple[str, int, tuple[ShownKey, ...]]:
+        """The keys on show, with the theme and width they were drawn for."""
+        return self.app.theme, self.size.width, tuple(self.shown_keys())
+
+    def render(self) -> Content:
+        keys = self._keys()
+        if self._content is None or keys != self._shown:
+            self._shown, self._content = keys, self._draw(keys[2], keys[1])
+        return self._content
+
+    def _draw(self, keys: tuple[ShownKey, ...], width: int) -> Content:
+        """The line: the keys from the left, as many whole ones as fit, and the command
+        palette's at the right end."""
+        palette = self.app.COMMAND_PALETTE_BINDING
+        pieces = [self._piece(k) for k in keys if k.key != palette]
+        right = [self._piece(k) for k in keys if k.key == palette]
+        room = width - sum(p.cell_length for p in right)
+        left: list[Content] = []
+        used = 0
+        for piece in pieces:
+            if used + piece.cell_length > room:
+                break
+            left.append(piece)
+            used += piece.cell_length
+        gap = max(0, room - used)
+        self._spans = []
+        x = 0
+        order = [k for k in keys if k.key != palette][: len(left)] + [
+            k for k in keys if k.key == palette
+        ]
+        for key, piece in zip(order, [*left, *right], strict=True):
+            if key.key == palette:
+                x += gap
+            self._spans.append((x, x + piece.cell_length, key.key))
+            x += piece.cell_length
+        return Content.assemble(*left, " " * gap, *right)
+
+    def on_click(self, event: events.Click) -> None:
+        """A click on a key presses it."""
+        for start, end, key in self._spans:
+            if start <= event.x < end:
+                event.stop()
+                self.app.simulate_key(key)
+                return
+
+    @staticmethod
+    def _piece(shown: ShownKey) -> Content:
+        dim = "" if shown.enabled else " dim"
+        key_style = Style.parse(f"bold $footer-key-foreground on $footer-key-background{dim}")
+        text_style = Style.parse(
+            f"$footer-description-foreground on $footer-description-background{dim}"
+        )
+        parts: list[str | tuple[str, str | Style]] = [(f" {shown.display} ", key_style)]
+        if shown.description:
+            parts.append((f"{shown.description} ", text_style))
+        parts.append(" ")
+        return Content.assemble(*parts)
