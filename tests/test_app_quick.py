@@ -58,3 +58,35 @@ async def test_a_value_that_does_not_read_keeps_the_last_good_one_in_the_result(
         assert "12.5 °C" not in shown(app, "quick-result")
         assert f"{dew:.1f} °C" in shown(app, "quick-result")
     assert not data.exists() or not any(data.rglob("*.json"))
+
+
+async def test_a_value_outside_the_cores_domain_is_named_in_its_field_and_the_result_stays(
+    tmp_path,
+):
+    """A stray digit makes 21 °C into 210 °C, outside the air temperatures the psychrometric
+    core takes (−50 to 70 °C, its stated domain): the field is named with the value and the
+    range, and the result stays the one for 21 °C rather than being replaced by a refusal.
+    The same for a surface at 180 °C (the core's surfaces run −60 to 90 °C)."""
+    app = make_app(data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        await pilot.press("f6")
+        await pilot.pause()
+        await type_into(pilot, app, "air", "21")
+        await type_into(pilot, app, "rh", "65")
+        await type_into(pilot, app, "surface", "12.5")
+        result = shown(app, "quick-result")
+        assert "12.5 °C" in result
+
+        await type_into(pilot, app, "air", "210")
+        message = shown(app, "quick-message")
+        assert "Not read: air temperature 210" in message
+        assert "between -50 and 70 °C" in message
+        assert "the result uses the last value that read, 21 °C" in message
+        assert shown(app, "quick-result") == result
+
+        await type_into(pilot, app, "air", "21")
+        await type_into(pilot, app, "surface", "180")
+        message = shown(app, "quick-message")
+        assert "Not read: surface temperature 180" in message and "-60 and 90 °C" in message
+        assert shown(app, "quick-result") == result

@@ -10,7 +10,7 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
 from textual.widgets import Input, Label, Select, Static
 
-from survey import assess, quick, units, words
+from survey import assess, psychro, quick, units, words
 from survey.app import walk
 from survey.app.fields import plain
 from survey.app.footer import KeysFooter
@@ -18,23 +18,41 @@ from survey.app.room import USES
 from survey.errors import InputError
 from survey.words import screens
 
+
+def _reader(quantity: str, field: str, check):
+    """A field's parser: the text read as ``quantity`` and held to the core's domain for it
+    (so "210" in the air field is a value that does not read, named there, not a result
+    replaced by the core's refusal)."""
+    return lambda text: units.read(quantity, text, field).checked(check)
+
+
 #: (id, label, parser, needed; the label ends with the unit the field is read in)
 FIELDS = [
-    ("air", "Air temp. °C", lambda t: units.parse_temperature(t, "air temperature"), True),
-    ("rh", "RH %", lambda t: units.parse_rh(t, "relative humidity"), True),
+    (
+        "air",
+        "Air temp. °C",
+        _reader("temperature", "air temperature", psychro.check_dry_bulb),
+        True,
+    ),
+    ("rh", "RH %", _reader("relative_humidity", "relative humidity", psychro.check_rh), True),
     (
         "surface",
         "Surface temp. °C",
-        lambda t: units.parse_temperature(t, "surface temperature"),
+        _reader("temperature", "surface temperature", psychro.check_surface_temp),
         False,
     ),
     (
         "outdoor",
         "Outdoor temp. °C",
-        lambda t: units.parse_temperature(t, "outdoor temperature"),
+        _reader("temperature", "outdoor temperature", psychro.check_dry_bulb),
         False,
     ),
-    ("outdoor_rh", "Outdoor RH %", lambda t: units.parse_rh(t, "outdoor RH"), False),
+    (
+        "outdoor_rh",
+        "Outdoor RH %",
+        _reader("relative_humidity", "outdoor RH", psychro.check_rh),
+        False,
+    ),
 ]
 
 
@@ -65,6 +83,8 @@ class QuickScreen(Screen):
     def on_mount(self) -> None:
         #: The last value each field read, kept while its text does not read.
         self._good: dict[str, float] = {}
+        #: Whether the result panel shows a judged result (kept when the next is refused).
+        self._shown_result = False
         self.query_one("#quick-air").focus()
         self.update_result()
 
@@ -126,6 +146,7 @@ class QuickScreen(Screen):
         target = self.query_one("#quick-result", Static)
         given = self.gather()
         if given is None:
+            self._shown_result = False
             target.update(
                 Text(
                     "Type the air temperature and RH (a surface temperature and "
@@ -135,9 +156,16 @@ class QuickScreen(Screen):
             return
         try:
             result = quick.judge(given)
-        except InputError as exc:
-            target.update(plain(str(exc)))
+        except InputError as exc:  # the fields are held to the core's domain: a safety net
+            message = self.query_one("#quick-message", Static)
+            if self._shown_result:
+                message.update(
+                    plain(f"Not judged: {exc}; the result below is for the last readings judged.")
+                )
+            else:
+                target.update(plain(f"Not judged: {exc}."))
             return
+        self._shown_result = True
         target.update(result_text(result, words.SI))
 
 
