@@ -13,9 +13,6 @@
 from __future__ import annotations
 
 import asyncio
-import atexit
-import os
-import shutil
 import statistics
 import subprocess
 import sys
@@ -23,7 +20,7 @@ import tempfile
 import time
 from pathlib import Path
 
-from common import Result
+from common import CHILD_ENV, Result
 
 HERE = Path(__file__).resolve().parent
 ROOT = HERE.parent
@@ -80,18 +77,6 @@ except OSError:
 """
 
 
-#: Compiled modules for the child interpreters, kept for the benchmark's run only. An
-#: installed survey runs from compiled modules, as Textual does; with PYTHONDONTWRITEBYTECODE
-#: set (some shells and CI set it) our sources would be compiled afresh at every start while
-#: Textual's came compiled from its wheel, and the ratio would measure the compiler.
-_PYCACHE = tempfile.mkdtemp(prefix="bench-pycache-")
-atexit.register(shutil.rmtree, _PYCACHE, ignore_errors=True)
-_ENV = {
-    **{k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTECODE"},
-    "PYTHONPYCACHEPREFIX": _PYCACHE,
-}
-
-
 def _python(code: str, *args: str) -> tuple[float, str]:
     start = time.perf_counter()
     done = subprocess.run(
@@ -100,7 +85,7 @@ def _python(code: str, *args: str) -> tuple[float, str]:
         check=True,
         capture_output=True,
         text=True,
-        env=_ENV,
+        env=CHILD_ENV,
     )
     return time.perf_counter() - start, done.stdout
 

@@ -1,7 +1,12 @@
-"""Shared helpers for the benchmarks: a result record and a best-of-N timer."""
+"""Shared helpers for the benchmarks: a result record, a best-of-N timer, and the
+environment for timing a fresh interpreter."""
 
 from __future__ import annotations
 
+import atexit
+import os
+import shutil
+import tempfile
 import time
 from collections.abc import Callable
 from dataclasses import dataclass
@@ -41,3 +46,16 @@ def interleaved_best(ours: Callable[[], object], base: Callable[[], object], rep
         ours()
         best_ours = min(best_ours, time.perf_counter() - start)
     return best_ours, best_base
+
+
+#: Compiled modules for the child interpreters a benchmark starts, kept for the run only.
+#: An installed survey runs from compiled modules, as its dependencies do; with
+#: PYTHONDONTWRITEBYTECODE set (some shells and CI set it) our sources would be compiled
+#: afresh at every start while the dependencies' came compiled from their wheels, and a
+#: start-up ratio would measure the compiler.
+_PYCACHE = tempfile.mkdtemp(prefix="bench-pycache-")
+atexit.register(shutil.rmtree, _PYCACHE, ignore_errors=True)
+CHILD_ENV = {
+    **{k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTECODE"},
+    "PYTHONPYCACHEPREFIX": _PYCACHE,
+}
