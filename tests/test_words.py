@@ -1168,3 +1168,44 @@ def test_one_worst_surface_for_every_face():
     judged = VisitAssessment(0, None, site, advise.advise_site(site), ("r",), {})
     (point,) = chart.psychro_chart(judged).points
     assert point.worst_words.startswith("water forming")
+
+
+def test_the_narrow_surface_rh_cell_keeps_the_band_and_leaves_what_forms_to_the_state():
+    """Room air 17.5 °C and 72 % (dew point 12.4 °C, CoolProp): a pane at 6.0 °C is past
+    saturation ("≥100 %", the state cell says water forms), a wall at 13.1 °C near 96 % with
+    a band reaching 100 % ("≥…"), an internal wall at 20.0 °C near 62 % (its band in brief,
+    the same numbers as the report's longer text; surface RH at constant humidity ratio from
+    CoolProp)."""
+    from survey.words import screens
+
+    dew = HAPropsSI("D", "T", 290.65, "R", 0.72, "P", 101325.0) - 273.15
+    assert dew == pytest.approx(12.4, abs=0.05)
+    room = assess.RoomInput(
+        "Room",
+        "bedroom",
+        17.5,
+        72.0,
+        (
+            assess.SurfaceInput("Pane", 6.0, "glazing"),
+            assess.SurfaceInput("Wall", 13.1, "external_wall"),
+            assess.SurfaceInput("Inner", 20.0, "internal_wall"),
+        ),
+    )
+    pane, wall, inner = assess.assess_room(room, None, accuracy=assess.DEFAULT_ACCURACY).surfaces
+    assert screens.surface_rh_cell(pane) == "≥100 %"
+    assert "water forming" in screens.surface_state_words(pane, words.SI)
+    assert wall.surface_rh_high_pct >= 100.0 > inner.surface_rh_high_pct
+    ratio = HAPropsSI("W", "T", 290.65, "R", 0.72, "P", 101325.0)
+    for s, kelvin, near in ((wall, 286.25, 96), (inner, 293.15, 62)):
+        expected = 100 * HAPropsSI("R", "T", kelvin, "W", ratio, "P", 101325.0)
+        assert s.surface_rh_pct == pytest.approx(expected, abs=0.3)
+        assert round(expected) == near
+    for s in (wall, inner):
+        cell = screens.surface_rh_cell(s)
+        assert cell.startswith(f"{s.surface_rh_pct:.0f} % (")
+        if s.surface_rh_high_pct >= 100.0:
+            assert cell.endswith(f"(≥{s.surface_rh_low_pct:.0f})")
+        else:
+            band = f"({s.surface_rh_low_pct:.0f}–{s.surface_rh_high_pct:.0f})"
+            assert cell.endswith(band) and band in words.surface_rh_text(s)
+        assert len(cell) <= 13

@@ -23,6 +23,9 @@ from survey.words import screens
 from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
+#: A location's width in the tables (the whole label is in its dialog and the live panel);
+#: short enough that at 80 columns the surface RH is in sight beside it.
+LOCATION_CELL = 20
 ODOURS = [
     ("not recorded", ""),
     ("none", "none"),
@@ -249,9 +252,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             last = last_temp.get(s.location)
             table.add_row(
                 Text("·" if f is None else judging.RANK_SYMBOLS[words.surface_rank(f)]),
-                plain(walk.cut(s.location, 24)),
+                plain(walk.cut(s.location, LOCATION_CELL)),
                 Text(d.temperature(s.surface_temp_c)),
-                Text("–" if f is None else words.surface_rh_text(f)),
+                Text("–" if f is None else screens.surface_rh_cell(f)),
                 Text("no air reading" if f is None else screens.surface_state_words(f, d)),
                 Text(
                     "–"
@@ -269,7 +272,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         for n, s in enumerate(pending):
             table.add_row(
                 Text("·"),
-                plain(walk.cut(s.location, 24)),
+                plain(walk.cut(s.location, LOCATION_CELL)),
                 Text("to read"),
                 Text(""),
                 Text("measured last visit"),
@@ -308,7 +311,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
             last = last_value.get((m.location, m.material))
             table.add_row(
-                plain(walk.cut(m.location, 24)),
+                plain(walk.cut(m.location, LOCATION_CELL)),
                 Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
                 Text(state),
                 plain(walk.cut(m.material, 20)),
@@ -320,7 +323,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         )
         for n, m in enumerate(pending):
             table.add_row(
-                plain(walk.cut(m.location, 24)),
+                plain(walk.cut(m.location, LOCATION_CELL)),
                 Text("to read"),
                 Text("read last visit"),
                 plain(walk.cut(m.material, 20)),

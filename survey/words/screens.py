@@ -109,6 +109,20 @@ def quick_surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
     )
 
 
+def surface_rh_cell(surface: assess.SurfaceFinding) -> str:
+    """Surface RH for a narrow table cell, its band in brief: ``87 % (80–94)``,
+    ``96 % (≥88)``, ``≥100 %`` (what forms is the state's cell, beside it)."""
+    rh = surface.surface_rh_pct
+    low, high = surface.surface_rh_low_pct, surface.surface_rh_high_pct
+    if rh >= 100.0:
+        return "≥100 %"
+    if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
+        return f"{rh:.0f} %"
+    if high >= 100.0:
+        return f"{rh:.0f} % (≥{low:.0f})"
+    return f"{rh:.0f} % ({low:.0f}–{high:.0f})"
+
+
 def surface_state_words(surface: assess.SurfaceFinding, d: Display) -> str:
     """A surface's state in a few words, for a table cell: what forms, else mould."""
     parts = short_verdict(surface, d).split("; ")
