@@ -12,7 +12,7 @@ from textual.widgets import Input, Label, Select, Static
 
 from survey import assess, psychro, quick, units, words
 from survey.app import walk
-from survey.app.fields import plain
+from survey.app.fields import Choice, plain
 from survey.app.footer import KeysFooter
 from survey.app.room import USES
 from survey.errors import InputError
@@ -74,7 +74,7 @@ class QuickScreen(Screen):
                         yield Input(id=f"quick-{key}", compact=True)
                 yield walk.labelled(
                     "Use",
-                    Select(USES, value="other", allow_blank=False, compact=True, id="quick-use"),
+                    Choice(USES, value="other", allow_blank=False, compact=True, id="quick-use"),
                 )
                 yield Static("", id="quick-message", classes="field-message -error")
             yield VerticalScroll(Static(id="quick-result"), classes="live-panel-scroll")

@@ -20,7 +20,7 @@ from textual.widgets import Select, Static
 
 from survey import model
 from survey.app import walk
-from survey.app.fields import plain
+from survey.app.fields import Choice, plain
 from survey.errors import InputError, SurveyFileError
 
 UNIT_CHOICES = [("SI units", "si"), ("IP units", "ip")]
@@ -44,8 +44,8 @@ class ReportScreen(walk.WalkScreen):
         ]
         yield self.header()
         with Horizontal(classes="report-options"):
-            yield Select(visits, value="last", allow_blank=False, compact=True, id="report-visit")
-            yield Select(
+            yield Choice(visits, value="last", allow_blank=False, compact=True, id="report-visit")
+            yield Choice(
                 UNIT_CHOICES,
                 value=editor.unit_system,
                 allow_blank=False,

@@ -14,7 +14,7 @@ from survey import evaluate, model, words
 from survey import thresholds as th
 from survey.app import equipment, judging, room_details, walk
 from survey.app.air import AirPair
-from survey.app.fields import Field, Tick, plain
+from survey.app.fields import Choice, Field, Tick, plain
 from survey.app.panel import LivePanel
 from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
@@ -106,7 +106,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield walk.labelled(
                     "Use",
-                    Select(
+                    Choice(
                         USES,
                         value=room.use,
                         allow_blank=False,
@@ -174,7 +174,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield walk.labelled(
                     "Water category",
-                    Select(
+                    Choice(
                         WATER,
                         value=seen.water_category or 0,
                         allow_blank=False,
@@ -185,7 +185,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield walk.labelled(
                     "Odour",
-                    Select(
+                    Choice(
                         ODOURS,
                         value=seen.odour or "",
                         allow_blank=False,

@@ -8,11 +8,9 @@ kept in :class:`survey.model.Room`, those of the visit in :class:`survey.model.R
 
 from __future__ import annotations
 
-from textual.widgets import Select
-
 from survey import model
 from survey.app import walk
-from survey.app.fields import Field
+from survey.app.fields import Choice, Field
 
 #: Select ids whose value is a yes / no / not recorded flag: id -> (record, field, label).
 FLAG_SELECTS = {
@@ -86,7 +84,7 @@ def _flag(select_id: str, value: bool | None, ro: bool):
     label = FLAG_SELECTS[select_id][2]
     return walk.labelled(
         label,
-        Select(
+        Choice(
             walk.YES_NO,
             value=walk.yes_no_choice(value),
             allow_blank=False,

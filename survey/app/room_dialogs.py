@@ -15,7 +15,7 @@ from textual.widgets import Checkbox, Select, Static
 
 from survey import model, store, words
 from survey.app import walk
-from survey.app.fields import Field, Tick, plain
+from survey.app.fields import Choice, Field, Tick, plain
 from survey.errors import InputError
 
 ELEMENTS = [
@@ -109,7 +109,7 @@ class SurfaceDialog(_ReadingDialog):
             )
             yield walk.labelled(
                 "Element",
-                Select(
+                Choice(
                     ELEMENTS,
                     value=r.element if r else "external_wall",
                     allow_blank=False,
@@ -244,7 +244,7 @@ class MaterialDialog(_ReadingDialog):
             )
             yield walk.labelled(
                 "Scale",
-                Select(
+                Choice(
                     SCALES,
                     value=r.scale if r else "wme_pct",
                     allow_blank=False,

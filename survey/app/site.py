@@ -9,7 +9,7 @@ from textual.widgets import Button, DataTable, Label, Select, Static
 from survey import model, season, store, units, words
 from survey.app import walk
 from survey.app.dialogs import ConfirmDialog, PromptDialog
-from survey.app.fields import Field, plain
+from survey.app.fields import Choice, Field, plain
 from survey.app.tables import InstrumentTable
 from survey.errors import InputError
 from survey.words import season as ws
@@ -57,7 +57,7 @@ class SiteScreen(walk.WalkScreen):
                 )
             yield walk.labelled(
                 "Purpose",
-                Select(
+                Choice(
                     PURPOSES,
                     value=site.purpose,
                     allow_blank=False,
@@ -68,7 +68,7 @@ class SiteScreen(walk.WalkScreen):
             )
             yield walk.labelled(
                 "Units shown",
-                Select(
+                Choice(
                     UNIT_SYSTEMS,
                     value=site.unit_system,
                     allow_blank=False,

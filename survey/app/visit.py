@@ -13,7 +13,7 @@ from survey import model, psychro
 from survey.app import judging, walk
 from survey.app.air import AirPair
 from survey.app.dialogs import ConfirmDialog
-from survey.app.fields import Field, plain
+from survey.app.fields import Choice, Field, plain
 from survey.words import screens
 
 
@@ -38,7 +38,7 @@ class VisitScreen(walk.WalkScreen):
                 ]
                 yield walk.labelled(
                     "Visit shown",
-                    Select(
+                    Choice(
                         choices,
                         value=editor.visit_index % len(editor.survey.visits),
                         allow_blank=False,
