@@ -18,7 +18,8 @@ WALK = (
     "commits a field and moves to the next, Tab / Shift+Tab move, Escape goes back. "
     "Every committed field is saved at once; the bottom line says when. A value that "
     "is not accepted shows a message under its field and is not saved. Ctrl+P opens "
-    "the command palette."
+    "the command palette. A drop-down list opens with Enter (or Space); Enter chooses and "
+    "moves on, Escape closes it."
 )
 
 
@@ -57,7 +58,14 @@ def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) 
 
     keymap = keymap or {}
     where = str(folder / FILE) if folder is not None else f"{FILE} in the app's data folder"
+    from survey.app.judging import SYMBOL_LEGEND
+
     out = Text(WALK + "\n")
+    out.append(
+        "\nSymbols in the tables: "
+        + SYMBOL_LEGEND.replace("  ", ", ")
+        + " room; · not judged yet.\n"
+    )
     for title, bindings in sections():
         out.append(f"\n{title}\n", "bold")
         for b in bindings:

@@ -30,6 +30,8 @@ def worst_rank(finding: assess.RoomFinding) -> int:
 
 #: A symbol per rank, so no state is shown by colour alone.
 RANK_SYMBOLS = {0: "✓", 1: "~", 2: "!", 3: "‼"}
+#: What the symbols of the tables mean (the room list and the help screen show it).
+SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing  ★ reference"
 
 
 # --- the walk ----------------------------------------------------------------------------

@@ -36,8 +36,7 @@ class RoomListScreen(walk.WalkScreen):
         yield RoomTable(id="rooms")
         yield Static(
             Text(
-                "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing"
-                "  ★ reference\nEnter opens a room · Ctrl+N the next room to read"
+                judging.SYMBOL_LEGEND + "\nEnter opens a room · Ctrl+N the next room to read"
                 " · g drying progress · c chart · [ ] move · f reference room · F1 all keys"
             ),
             classes="hint",
