@@ -81,7 +81,7 @@ class ChartScreen(walk.WalkScreen):
         yield from self.footer_widgets()
 
     def on_mount(self) -> None:
-        self.query_one(PointTable).add_columns(" ", *wc.CHART_COLUMNS)
+        self.query_one(PointTable).add_columns(*(Text(label) for label in (" ", *wc.CHART_COLUMNS)))
         self.app.theme_changed_signal.subscribe(self, lambda _theme: self.refresh_view())
         self.refresh_view()
         self.query_one(PointTable).focus()

@@ -179,11 +179,9 @@ class SurveyApp(App):
     @property
     def _walk_base(self) -> int:
         """Screens under the walk's screens."""
-        from survey.app.start import StartScreen
-
-        return (
-            2 if len(self.screen_stack) > 1 and isinstance(self.screen_stack[1], StartScreen) else 1
-        )
+        # by a mark rather than isinstance: opening a file need not import the start screen
+        stack = self.screen_stack
+        return 2 if len(stack) > 1 and getattr(stack[1], "IS_START", False) else 1
 
     def show_start(self) -> None:
         """The start screen: back under the walk, or built now."""

@@ -218,12 +218,12 @@ class RoomScreen(RoomTables, walk.WalkScreen):
 
     def on_mount(self) -> None:
         surfaces = self.query_one(SurfaceTable)
-        surfaces.add_columns(
+        surfaces.add_headings(
             " ", "location", "temp.", "surface RH", "state", "margin ± U", "element", "last visit"
         )
         materials = self.query_one(MaterialTable)
-        materials.add_columns("location", "reading", "state", "material", "last visit")
-        self.query_one(EquipmentTable).add_columns(*equipment.COLUMNS)
+        materials.add_headings("location", "reading", "state", "material", "last visit")
+        self.query_one(EquipmentTable).add_headings(*equipment.COLUMNS)
         self.refresh_view()
         record = self.record()
         if self.read_only or (record is not None and record.air is not None):

@@ -45,7 +45,7 @@ class RoomListScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         table = self.query_one(RoomTable)
-        table.add_columns(" ", "room", "use", "this visit", "worst finding")
+        table.add_headings(" ", "room", "use", "this visit", "worst finding")
         self.refresh_view()
         table.focus()
 

@@ -157,7 +157,7 @@ class SiteScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         table = self.query_one("#instruments", DataTable)
-        table.add_columns("id", "kind", "name", "± air K", "± RH %", "± surface K", "calibrated")
+        table.add_headings("id", "kind", "name", "± air K", "± RH %", "± surface K", "calibrated")
         self.fill_instruments()
 
     def fill_instruments(self) -> None:

@@ -21,6 +21,9 @@ from survey.app.status import StatusBar
 class StartScreen(Screen):
     """What to do first."""
 
+    #: The mark the app finds it by in the screen stack (see ``SurveyApp._walk_base``).
+    IS_START = True
+
     BINDINGS = [
         Binding("d", "demo", "Demo", id="start_demo"),
         Binding("n", "new", "New survey", id="start_new"),

@@ -3,6 +3,7 @@ table has focus). Every cell is given as ``Text``, never as a markup string."""
 
 from __future__ import annotations
 
+from rich.text import Text
 from textual.binding import Binding
 from textual.widgets import DataTable
 
@@ -12,6 +13,11 @@ class RowTable(DataTable):
 
     def __init__(self, **kwargs) -> None:
         super().__init__(cursor_type="row", zebra_stripes=True, **kwargs)
+
+    def add_headings(self, *labels: str) -> None:
+        """The column headings, as plain text: a heading is never read as markup (and a
+        string heading would be, which also loads Rich's emoji table at start-up)."""
+        self.add_columns(*(Text(label) for label in labels))
 
 
 class InstrumentTable(RowTable):
