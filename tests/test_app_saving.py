@@ -284,3 +284,32 @@ async def test_text_typed_then_quit_is_saved(tmp_path):
         await pilot.pause()
         await pilot.press("ctrl+q")
     assert store.load_survey(path).rooms[0].occupants == 4
+
+
+async def test_the_open_survey_opened_again_stays_editable_under_its_lock(tmp_path):
+    """Back on the start screen, the demo opened again (d), and the file picked again from
+    the recent list: each time the survey opens editable, not read-only against this app's
+    own lock, and the lock file stays, naming this process, so no other program can take
+    the file for editing while it is open here. Starting the demo afresh does the same."""
+    data = tmp_path / "data"
+    app = make_app(demo=True, data_dir=data)
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        path = app.editor.path
+        for again in ("d", "recent", "fresh"):
+            app.show_start()
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "StartScreen"
+            if again == "d":
+                await pilot.press("d")
+            elif again == "recent":
+                app.open_survey(path)
+            else:
+                app.open_demo(fresh=True)
+            await settle(pilot, app)
+            assert app.editor is not None and not app.editor.read_only, again
+            holder = store.read_lock(path)
+            assert holder is not None and holder.pid == os.getpid(), again
+        await rename_first_room(pilot, app, "Attic")
+    assert store.load_survey(path).rooms[0].name == "Attic"
+    assert not store.lock_path(path).exists()

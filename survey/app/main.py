@@ -4,6 +4,7 @@ the status line."""
 from __future__ import annotations
 
 import datetime as dt
+import os
 import shutil
 from collections.abc import Callable
 from pathlib import Path
@@ -111,6 +112,8 @@ class SurveyApp(App):
         """Copy the bundled example site to the data folder (once, or afresh) and open it;
         the bundled file is never edited."""
         target = self.demo_path()
+        if fresh and self._is_open(target):
+            self.close_survey()  # its lock is ours: released before the copy is replaced
         try:
             target.parent.mkdir(parents=True, exist_ok=True)
             if fresh or not target.exists():
@@ -125,7 +128,22 @@ class SurveyApp(App):
             return False
         return self.open_survey(target)
 
+    def _is_open(self, path: Path) -> bool:
+        """Whether ``path`` is the survey open now."""
+        current = self.editor.path if self.editor is not None else None
+        if current is None:
+            return False
+        try:
+            return os.path.samefile(current, path)
+        except OSError:
+            return current.resolve() == Path(path).resolve()
+
     def open_survey(self, path: Path) -> bool:
+        if self._is_open(path):
+            # Opened again (from the recent list, say): let go of it first, or the new
+            # session would find this one's lock and open read-only, and closing this one
+            # would then remove the lock the file is edited under.
+            self.close_survey()
         try:
             editor = Editor.open(path)
         except SurveyFileError as exc:
