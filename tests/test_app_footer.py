@@ -95,3 +95,25 @@ async def test_at_80_columns_whole_keys_fit_and_the_palette_key_stays(tmp_path):
         left = text[: text.rindex(" ^p ")].rstrip()
         fitted = next(n for n in range(len(pieces) + 1) if "".join(pieces[:n]).rstrip() == left)
         assert 3 <= fitted < len(pieces)
+
+
+async def test_the_rooms_live_panel_scrolls_by_keys_from_a_field(tmp_path):
+    """At 80×24 the room's actions and cautions lie below the panel's fold: Shift+↓ from a
+    field brings them up, the focus staying in the field."""
+    from textual.containers import VerticalScroll
+
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        app.open_room(app.editor.survey.rooms[0].id)
+        await pilot.pause()
+        app.screen.query_one("#room-temp-input").focus()
+        await pilot.pause()
+        panel = app.screen.query_one("#live-scroll", VerticalScroll)
+        assert panel.max_scroll_y > 10 and panel.scroll_y == 0
+        await pilot.press("shift+pagedown", "shift+down")
+        await pilot.pause()
+        assert panel.scroll_y == 15
+        assert app.focused.id == "room-temp-input"

@@ -90,3 +90,30 @@ async def test_a_value_outside_the_cores_domain_is_named_in_its_field_and_the_re
         message = shown(app, "quick-message")
         assert "Not read: surface temperature 180" in message and "-60 and 90 °C" in message
         assert shown(app, "quick-result") == result
+
+
+async def test_the_result_scrolls_by_keys_from_a_field(tmp_path):
+    """Shift+↓ scrolls the result from the field being typed in, so the cautions at its
+    foot are reached without a mouse; Shift+↑ scrolls back."""
+    from textual.containers import VerticalScroll
+
+    app = make_app(data_dir=tmp_path / "data")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("f6")
+        await pilot.pause()
+        await type_into(pilot, app, "air", "21")
+        await type_into(pilot, app, "rh", "85")
+        await type_into(pilot, app, "surface", "9")
+        app.screen.query_one("#quick-air", Input).focus()
+        await pilot.pause()
+        panel = app.screen.query_one(".live-panel-scroll", VerticalScroll)
+        assert panel.max_scroll_y > 0 and panel.scroll_y == 0
+        for _ in range(40):
+            await pilot.press("shift+down")
+        await pilot.pause()
+        assert panel.scroll_y == panel.max_scroll_y
+        assert app.focused.id == "quick-air"
+        await pilot.press("shift+up")
+        await pilot.pause()
+        assert panel.scroll_y == panel.max_scroll_y - 3

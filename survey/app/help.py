@@ -19,7 +19,8 @@ WALK = (
     "Every committed field is saved at once; the bottom line says when. A value that "
     "is not accepted shows a message under its field and is not saved. Ctrl+P opens "
     "the command palette. A drop-down list opens with Enter (or Space); Enter chooses and "
-    "moves on, Escape closes it."
+    "moves on, Escape closes it. Shift+↓ / Shift+↑ scroll the live panel (the actions and "
+    "cautions at its foot) from any field."
 )
 
 
@@ -40,7 +41,7 @@ def sections() -> list[tuple[str, list[Binding]]]:
         ("Walk screens", walk.WalkScreen.BINDINGS),
         ("Visit", visit.VisitScreen.BINDINGS),
         ("Room list", rooms.RoomListScreen.BINDINGS + tables.RoomTable.BINDINGS),
-        ("Room", room.RoomScreen.BINDINGS),
+        ("Room (and the quick check)", room.RoomScreen.BINDINGS),
         ("Surface table", tables.SurfaceTable.BINDINGS),
         ("Material table", tables.MaterialTable.BINDINGS),
         ("Equipment table", tables.EquipmentTable.BINDINGS),

@@ -4,12 +4,29 @@ room RH, the room's actions and cautions — every sentence from :mod:`survey.wo
 from __future__ import annotations
 
 from rich.text import Text
+from textual.binding import Binding
+from textual.screen import Screen
 from textual.widgets import Static
 
 from survey import evaluate, season, words
 from survey.app.fields import plain
 from survey.words import screens
 from survey.words import season as ws
+
+#: Keys that scroll a screen's live panel (or the quick check's result) from any field: the
+#: panel's lower lines (the actions, the safety cautions) are reached without a mouse.
+PANEL_KEYS = [
+    Binding("shift+down", "scroll_panel(3)", "Panel down", id="panel_down", show=False),
+    Binding("shift+up", "scroll_panel(-3)", "Panel up", id="panel_up", show=False),
+    Binding("shift+pagedown", "scroll_panel(12)", "Panel page down", id="panel_pgdn", show=False),
+    Binding("shift+pageup", "scroll_panel(-12)", "Panel page up", id="panel_pgup", show=False),
+]
+
+
+def scroll_panel(screen: Screen, lines: int) -> None:
+    """Scroll the screen's live panel by ``lines`` (down when positive)."""
+    for panel in screen.query("#live-scroll, .live-panel-scroll"):
+        panel.scroll_relative(y=lines, animate=False)
 
 
 def panel_text(

@@ -14,6 +14,7 @@ from survey import assess, psychro, quick, units, words
 from survey.app import walk
 from survey.app.fields import Choice, plain
 from survey.app.footer import KeysFooter
+from survey.app.panel import PANEL_KEYS, scroll_panel
 from survey.app.room import USES
 from survey.errors import InputError
 from survey.words import screens
@@ -59,7 +60,10 @@ FIELDS = [
 class QuickScreen(Screen):
     """Type readings; the result follows every keystroke. Nothing is saved."""
 
-    BINDINGS = [Binding("escape", "app.pop_screen", "Back", id="quick_back")]
+    BINDINGS = [Binding("escape", "app.pop_screen", "Back", id="quick_back"), *PANEL_KEYS]
+
+    def action_scroll_panel(self, lines: int) -> None:
+        scroll_panel(self, lines)
 
     def compose(self):
         yield Static(

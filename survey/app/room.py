@@ -12,7 +12,7 @@ from textual.widgets import Checkbox, Select, Static
 
 from survey import evaluate, model, words
 from survey import thresholds as th
-from survey.app import equipment, judging, room_details, walk
+from survey.app import equipment, judging, panel, room_details, walk
 from survey.app.air import AirPair
 from survey.app.fields import Choice, Field, Tick, plain
 from survey.app.panel import LivePanel
@@ -46,7 +46,13 @@ WATER = [
 class RoomScreen(RoomTables, walk.WalkScreen):
     TITLE_TEXT = "Room"
     PARENT = "rooms"
-    BINDINGS = [Binding("ctrl+n", "next_room", "Next room to read", id="room_next")]
+    BINDINGS = [
+        Binding("ctrl+n", "next_room", "Next room to read", id="room_next"),
+        *panel.PANEL_KEYS,
+    ]
+
+    def action_scroll_panel(self, lines: int) -> None:
+        panel.scroll_panel(self, lines)
 
     def __init__(self, room_id: str) -> None:
         super().__init__()
