@@ -1,6 +1,6 @@
-"""A drop-down list in a form behaves as the text fields do: a choice made by Enter is saved
-and moves on to the next field (the next Enter does not open the list again); Escape closes
-the list, keeps the value and stays."""
+"""Moving through forms and lists by keys: a drop-down list behaves as the text fields do (a
+choice made by Enter is saved and moves on; Escape closes the list and stays), and back from
+a room the room list is where it was, on the room just left."""
 
 from __future__ import annotations
 
@@ -48,3 +48,34 @@ async def test_a_choice_made_by_enter_is_saved_and_moves_on(tmp_path):
         await pilot.press("enter")  # from the next field on, not back into the list
         await pilot.pause()
         assert not use.expanded
+
+
+async def test_back_from_a_room_the_list_is_on_that_room(tmp_path):
+    """Enter on the third room, then Escape: the room list is the same screen, its cursor on
+    the third room; Ctrl+N to the next room to read, then Escape: on that room."""
+    from survey.app.tables import RoomTable
+
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        rooms_screen = app.screen
+        assert type(rooms_screen).__name__ == "RoomListScreen"
+        await pilot.press("down", "down", "enter")
+        await pilot.pause()
+        assert app.screen.room_id == app.editor.survey.rooms[2].id
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("escape")
+        await pilot.pause()
+        assert app.screen is rooms_screen
+        assert rooms_screen.query_one(RoomTable).cursor_row == 2
+
+        await pilot.press("enter")
+        await pilot.pause()
+        app.open_room(app.editor.survey.rooms[4].id)  # as Ctrl+N to the fifth does
+        await pilot.pause()
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("escape")
+        await pilot.pause()
+        assert rooms_screen.query_one(RoomTable).cursor_row == 4

@@ -232,12 +232,23 @@ class SurveyApp(App):
         }[name]
         screen = getattr(importlib.import_module(f"survey.app.{module}"), class_name)
         base = self._walk_base
+        popped = False
         while len(self.screen_stack) > base + 1:
             self.pop_screen()
-        if len(self.screen_stack) == base + 1:
-            self.switch_screen(screen())
+            popped = True
+        top = self.screen_stack[-1] if len(self.screen_stack) == base + 1 else None
+        if type(top) is screen and getattr(top, "opened_with", None) is self.editor:
+            # the same screen of the same survey: kept, with its cursor and undo (shown
+            # again, it redraws what another screen changed)
+            if not popped:
+                top.refresh_view()
+            return
+        shown = screen()
+        shown.opened_with = self.editor
+        if top is not None:
+            self.switch_screen(shown)
         else:
-            self.push_screen(screen())
+            self.push_screen(shown)
 
     def action_go(self, name: str) -> None:
         self.go(name)
@@ -261,6 +272,8 @@ class SurveyApp(App):
             self.push_screen(RoomScreen(room_id))
         if editor.path is not None:
             self.recents.remember(editor.path, editor.survey.site.reference, room_id)
+        #: The room shown last: the room list's cursor goes back to it.
+        self.last_room_id = room_id
 
     def ensure_visit(self) -> None:
         """A survey with no visit gets one starting now, so readings have a home."""

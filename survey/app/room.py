@@ -216,7 +216,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     walk.photo_names("Photos"),
                     self._set_record("photos", "Photos"),
                     id="room-photos",
-                    placeholder="bed1-corner.jpg, …",
+                    placeholder="file names, separated by commas",
                     disabled=ro,
                 )
             yield VerticalScroll(LivePanel(id="live"), id="live-scroll")

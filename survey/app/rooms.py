@@ -49,6 +49,13 @@ class RoomListScreen(walk.WalkScreen):
         self.refresh_view()
         table.focus()
 
+    def on_screen_resume(self) -> None:
+        # (the walk screen's own handler then redraws, keeping the row chosen here)
+        last = getattr(self.app, "last_room_id", None)
+        ids = [r.id for r in self.editor.survey.rooms]
+        if last in ids:
+            self.query_one(RoomTable).move_cursor(row=ids.index(last))
+
     def refresh_view(self) -> None:
         survey, editor = self.editor.survey, self.editor
         d = self.app.display_units

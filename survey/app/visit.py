@@ -90,7 +90,7 @@ class VisitScreen(walk.WalkScreen):
                     walk.photo_names("Photos"),
                     self._setter("photos", "Photos"),
                     id="visit-photos",
-                    placeholder="front-elevation.jpg, …",
+                    placeholder="file names, separated by commas",
                     disabled=ro,
                 )
                 yield Static(Text("Outdoor reading", style="bold"))
