@@ -313,3 +313,44 @@ async def test_the_open_survey_opened_again_stays_editable_under_its_lock(tmp_pa
         await rename_first_room(pilot, app, "Attic")
     assert store.load_survey(path).rooms[0].name == "Attic"
     assert not store.lock_path(path).exists()
+
+
+async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
+    """A room with no air reading: 20 °C typed and committed with no RH is kept on screen
+    but cannot be saved. Ctrl+Q then asks; n stays (the 20 °C still there), y quits, and the
+    file holds no air reading for the room (nothing half-saved)."""
+    import json
+
+    from survey.app.air import AirPair
+    from survey.app.dialogs import ConfirmDialog
+
+    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
+    data["visits"][0]["rooms"][0].pop("air", None)
+    path = tmp_path / "no-air.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    room_id = data["visits"][0]["rooms"][0]["room"]
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(room_id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-temp-input").focus()
+        send_keys(app, "20")
+        await pilot.press("enter")
+        await settle(pilot, app)
+        assert app.screen.query_one(AirPair).unsaved_half() is not None
+        await pilot.press("ctrl+q")
+        await settle(pilot, app)
+        assert isinstance(app.screen, ConfirmDialog)
+        assert "air temperature of 20 °C with no RH" in app.screen.question
+        await pilot.press("n")
+        await settle(pilot, app)
+        assert app.is_running and app.screen.query_one(AirPair).temp_c == 20.0
+        await pilot.press("ctrl+q")
+        await settle(pilot, app)
+        await pilot.press("y")
+        await settle(pilot, app)
+        assert app.editor is None  # quit: the survey closed, its lock let go
+        assert not store.lock_path(path).exists()
+    saved = json.loads(path.read_text(encoding="utf-8"))
+    assert saved["visits"][0]["rooms"][0].get("air") is None

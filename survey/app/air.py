@@ -70,6 +70,15 @@ class AirPair(Vertical):
             previous="" if prev is None else f"last {prev.rh_pct:.0f} %",
         )
 
+    def unsaved_half(self) -> str | None:
+        """Half a reading kept on screen but not saved (a temperature with no RH, or an RH
+        with no temperature), in words; None when there is none."""
+        if self.reading is not None or (self.temp_c is None) == (self.rh_pct is None):
+            return None
+        if self.temp_c is not None:
+            return f"an air temperature of {self.temp_c:g} °C with no RH"
+        return f"an RH of {self.rh_pct:g} % with no air temperature"
+
     def _build(self, temp_c: float | None, rh_pct: float | None) -> model.AirReading | None:
         if temp_c is None or rh_pct is None:
             return None

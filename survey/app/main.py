@@ -75,6 +75,8 @@ class SurveyApp(App):
         self.status_kind = ""
         self._start = (path, create, demo, fresh_demo)
         self._retry_timer = None
+        #: Quitting was confirmed (half a reading on screen is let go).
+        self._quitting = False
         #: The user's own keys (binding id to key) from the keys file in the data folder.
         self.user_keys: dict[str, str] = {}
 
@@ -351,10 +353,35 @@ class SurveyApp(App):
             bar.show(text, kind)
 
     async def action_quit(self) -> None:
+        from survey.app.air import AirPair
+
         for screen in self.screen_stack:
             commit = getattr(screen, "commit_pending", None)
             if commit is not None:
                 commit()
+        halves = [
+            half
+            for screen in self.screen_stack
+            for pair in screen.query(AirPair)
+            if (half := pair.unsaved_half()) is not None
+        ]
+        if halves and not self._quitting:
+            from survey.app.dialogs import ConfirmDialog
+
+            def answered(yes: bool | None) -> None:
+                if yes:
+                    self._quitting = True
+                    self.call_next(self.action_quit)
+
+            self.push_screen(
+                ConfirmDialog(
+                    "Not saved: "
+                    + "; ".join(halves)
+                    + " (a reading is saved once it has both). Quit anyway?"
+                ),
+                answered,
+            )
+            return
         self.close_survey()
         self.exit()
 
