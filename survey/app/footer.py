@@ -53,34 +53,28 @@ class KeysFooter(Widget):
         first key), the command palette's last."""
         app = self.app
         bindings = self.screen.active_bindings
+
+        def shown(binding, enabled: bool) -> ShownKey:
+            return ShownKey(
+                binding.key,
+                app.get_key_display(binding),
+                binding.description,
+                binding.action,
+                enabled,
+            )
+
         keys: list[ShownKey] = []
         actions: set[str] = set()
         for _node, binding, enabled, _tooltip in bindings.values():
             if not binding.show or binding.action in actions:
                 continue
             actions.add(binding.action)
-            keys.append(
-                ShownKey(
-                    binding.key,
-                    app.get_key_display(binding),
-                    binding.description,
-                    binding.action,
-                    enabled,
-                )
-            )
+            keys.append(shown(binding, enabled))
         palette = bindings.get(app.COMMAND_PALETTE_BINDING) if app.ENABLE_COMMAND_PALETTE else None
         if palette is not None:
             _node, binding, enabled, _tooltip = palette
             keys = [k for k in keys if k.action != binding.action]
-            keys.append(
-                ShownKey(
-                    binding.key,
-                    app.get_key_display(binding),
-                    binding.description,
-                    binding.action,
-                    enabled,
-                )
-            )
+            keys.append(shown(binding, enabled))
         return keys
 
     def on_mount(self) -> None:
