@@ -21,7 +21,9 @@ so the report, the app and the command line all judge a stored visit the same wa
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from dataclasses import dataclass
+from typing import NamedTuple
 
 import msgspec
 
@@ -149,23 +151,59 @@ def _accuracy(
     )
 
 
+class DryStandard(NamedTuple):
+    """A dry-standard reading a material is judged against: its value, the room it was read
+    in, and the visit (index) it was read on when that is an earlier one (None: this one)."""
+
+    value: float
+    room_id: str
+    visit_index: int | None = None
+
+
 def _dry_standards(
     visit: model.Visit,
     room_visit: model.RoomVisit,
     rooms: dict[str, model.Room],
     references: list[model.RoomVisit] | None = None,
-) -> dict[tuple[str, str], float]:
-    """Dry-standard readings by (material, scale): this room's first, then reference rooms'."""
+    earlier: Sequence[tuple[int, model.Visit]] = (),
+) -> dict[tuple[str, str], DryStandard]:
+    """Dry-standard readings by (material, scale): this room's first, then the visit's
+    reference rooms'; then, for a material not read so on this visit, the same on the
+    ``earlier`` visits, latest first (an unaffected area read once is still the standard
+    until it is read again)."""
     if references is None:
         references = _reference_visits(visit, rooms)
-    standards: dict[tuple[str, str], float] = {}
-    for source in (room_visit, *(rv for rv in references if rv is not room_visit)):
-        for reading in source.materials:
-            if reading.dry_standard:
-                standards.setdefault(
-                    (reading.material.strip().lower(), reading.scale), reading.value
-                )
+    standards: dict[tuple[str, str], DryStandard] = {}
+
+    def take(sources: Sequence[model.RoomVisit], index: int | None) -> None:
+        for source in sources:
+            for reading in source.materials:
+                if reading.dry_standard:
+                    standards.setdefault(
+                        (reading.material.strip().lower(), reading.scale),
+                        DryStandard(reading.value, source.room, index),
+                    )
+
+    take((room_visit, *(rv for rv in references if rv is not room_visit)), None)
+    wanted = {
+        (m.material.strip().lower(), m.scale) for m in room_visit.materials if not m.dry_standard
+    }
+    for index, before in earlier:
+        if wanted <= standards.keys():
+            break
+        own = before.room_visit(room_visit.room)
+        refs = _reference_visits(before, rooms)
+        take((*((own,) if own is not None else ()), *(rv for rv in refs if rv is not own)), index)
     return standards
+
+
+def earlier_visits(survey: model.Survey, visit: model.Visit) -> list[tuple[int, model.Visit]]:
+    """The visits begun before ``visit``, with their indexes, latest first."""
+    return sorted(
+        ((i, v) for i, v in enumerate(survey.visits) if v.started_at < visit.started_at),
+        key=lambda pair: pair[1].started_at,
+        reverse=True,
+    )
 
 
 def _reference_visits(visit: model.Visit, rooms: dict[str, model.Room]) -> list[model.RoomVisit]:
@@ -189,19 +227,21 @@ def room_input(
     if rooms is None:
         rooms = {r.id: r for r in survey.rooms}
     room = rooms.get(room_visit.room)
-    standards = _dry_standards(visit, room_visit, rooms, references)
-    materials = tuple(
-        assess.MaterialInput(
+    standards = _dry_standards(visit, room_visit, rooms, references, earlier_visits(survey, visit))
+
+    def material(reading: model.MaterialReading) -> assess.MaterialInput:
+        standard = standards.get((reading.material.strip().lower(), reading.scale))
+        return assess.MaterialInput(
             label=reading.location,
             material=reading.material,
             value=reading.value,
             scale=reading.scale,
-            dry_standard=standards.get((reading.material.strip().lower(), reading.scale)),
+            dry_standard=None if standard is None else standard.value,
             timber=reading.scale == "mc_pct" and is_timber(reading.material),
+            dry_standard_visit=None if standard is None else standard.visit_index,
         )
-        for reading in room_visit.materials
-        if not reading.dry_standard
-    )
+
+    materials = tuple(material(r) for r in room_visit.materials if not r.dry_standard)
     surfaces = tuple(
         assess.SurfaceInput(s.location, s.surface_temp_c, s.element) for s in room_visit.surfaces
     )

@@ -737,3 +737,62 @@ def test_drying_limits_are_in_the_table_marked_as_practice():
         assert th.get(t.key) is t and t.mark == "common practice"
     assert th.value("dry_standard_tolerance_fraction") == 0.10
     assert drying.goal_for(22.0) == pytest.approx(24.2)
+
+
+def test_a_dry_standard_not_read_again_stands_from_the_visit_it_was_read_on():
+    """The reference room's dry standard (20, relative) is read on the first visit only; the
+    later visits judge the wet wall against it (goal 20 × 1.1 = 22, the allowance of
+    ``dry_standard_tolerance_fraction``), say which visit it was read on, and a standard
+    read again on a later visit takes over from then on (here 25, goal 27.5)."""
+    survey = _survey([60.0, 30.0, 21.0, 26.0], [0, 2, 4, 6])
+    for visit in survey.visits[1:]:
+        visit.rooms[1].materials = []  # the reference wall not read again
+    point = _only_point(survey)
+    assert [r.dry_standard for r in point.readings] == [20.0, 20.0, 20.0, 20.0]
+    assert [r.state for r in point.readings][1:] == [
+        DryStandardState.ABOVE,
+        DryStandardState.AT,
+        DryStandardState.ABOVE,
+    ]
+    assert point.goal == pytest.approx(22.0) and point.dry_standard_visit == 0
+    names = {"ref": "Reference room"}
+    assert dw.dry_standard_cell(point, names) == "20 in Reference room, read on visit 1"
+
+    from survey import evaluate
+
+    judged = evaluate.assess_visit(survey, 2).findings.rooms[0].materials[0]
+    assert judged.dry_standard == 20.0 and judged.dry_standard_visit == 0
+    assert words.report_room.dry_standard_text(judged).endswith(", read on visit 1")
+
+    survey.visits[3].rooms[1].materials = copy.deepcopy(survey.visits[0].rooms[1].materials)
+    survey.visits[3].rooms[1].materials[0].value = 25.0
+    point = _only_point(survey)
+    assert point.readings[-1].dry_standard == 25.0 and point.dry_standard_visit is None
+    assert point.goal == pytest.approx(27.5) and point.goal_met is True
+    assert dw.dry_standard_cell(point, names) == "25 in Reference room"
+
+
+def test_this_visits_dry_standard_comes_before_an_earlier_visits():
+    """The room's own dry-standard reading on this visit is taken over the reference room's
+    from an earlier visit; with neither on this visit, the earlier visit's own-room reading
+    comes before its reference room's (the same order as within a visit)."""
+    from survey import evaluate
+
+    survey = _survey([60.0, 40.0], [0, 1])
+    first, second = survey.visits
+    own = model.MaterialReading(
+        location="Wall, unaffected end",
+        material="plasterboard",
+        value=18.0,
+        scale="relative",
+        dry_standard=True,
+    )
+    second.rooms[1].materials = []
+    second.rooms[0].materials.append(copy.deepcopy(own))
+    judged = evaluate.assess_visit(survey, 1).findings.rooms[0].materials[0]
+    assert (judged.dry_standard, judged.dry_standard_visit) == (18.0, None)
+
+    second.rooms[0].materials.pop()
+    first.rooms[0].materials.append(copy.deepcopy(own))
+    judged = evaluate.assess_visit(survey, 1).findings.rooms[0].materials[0]
+    assert (judged.dry_standard, judged.dry_standard_visit) == (18.0, 0)

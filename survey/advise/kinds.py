@@ -265,6 +265,8 @@ class MaterialPoint(msgspec.Struct, frozen=True, kw_only=True):
     value: float
     dry_standard: float
     dry_at_or_below: float
+    #: The visit (index) the dry standard was read on, when an earlier one than this reading's.
+    dry_standard_visit: int | None = None
 
 
 class TimberPoint(msgspec.Struct, frozen=True, kw_only=True):

@@ -43,6 +43,7 @@ def _material_points(wet: Iterable[MaterialFinding]) -> tuple[MaterialPoint, ...
             value=m.value,
             dry_standard=m.dry_standard,
             dry_at_or_below=m.dry_standard * (1.0 + tolerance),
+            dry_standard_visit=m.dry_standard_visit,
         )
         for m in wet
         if m.dry_standard is not None

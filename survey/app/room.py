@@ -313,6 +313,11 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     "–"
                     if f is None
                     else DRY_STANDARD_WORDS[f.dry_standard_state]
+                    + (
+                        ""
+                        if f.dry_standard_visit is None
+                        else f" (visit {f.dry_standard_visit + 1}'s)"
+                    )
                     + ("" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
                 )
             last = last_value.get((m.location, m.material))

@@ -154,6 +154,9 @@ class MaterialInput(msgspec.Struct, frozen=True):
     scale: str = "mc_pct"
     dry_standard: float | None = None
     timber: bool = False
+    #: The visit (its index) the dry standard was read on, when not the reading's own: an
+    #: unaffected area read on an earlier visit and not read again since.
+    dry_standard_visit: int | None = None
 
 
 class Activity(msgspec.Struct, frozen=True):
@@ -372,6 +375,9 @@ class MaterialFinding(NamedTuple):
     wetter_than_air_explains: bool  #: timber in the mould range while the air's EMC is not
     decay_slowed_by_temperature: bool  #: decay-range timber in air below 10 or above 35 °C
     threshold_keys: tuple[str, ...]
+    #: The visit (index) the dry standard was read on when it is an earlier one's; None: this
+    #: visit's (or none).
+    dry_standard_visit: int | None = None
 
 
 class RoomFinding(NamedTuple):

@@ -332,4 +332,5 @@ def _material(
         wetter_than_air_explains=wetter,
         decay_slowed_by_temperature=slowed,
         threshold_keys=tuple(keys),
+        dry_standard_visit=None if reading.dry_standard is None else reading.dry_standard_visit,
     )

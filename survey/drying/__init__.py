@@ -171,6 +171,8 @@ class MaterialPoint:
     readings: tuple[PointReading, ...]  #: in time order
     dry_standard: float | None  #: the latest reading's
     dry_standard_room: str | None  #: the room id it was read in
+    #: the visit (index) it was read on when an earlier one than the latest reading's
+    dry_standard_visit: int | None
     goal: float | None  #: the dry standard plus its allowance
     goal_met: bool | None  #: the latest reading at or below the goal; None: no goal
     fit: Fit | None
@@ -268,33 +270,12 @@ def _visit_order(survey: model.Survey) -> list[int]:
     )
 
 
-def _standard_room(
-    visit: model.Visit,
-    room_visit: model.RoomVisit,
-    rooms: dict[str, model.Room],
-    material: str,
-    scale: str,
-) -> str | None:
-    """The room whose dry-standard reading the assessment took for this material and scale
-    (the same order as :mod:`survey.evaluate`: this room, then reference rooms)."""
-    wanted = (material.strip().lower(), scale)
-    sources = [room_visit] + [
-        rv
-        for rv in visit.rooms
-        if rv is not room_visit and (r := rooms.get(rv.room)) is not None and r.is_reference
-    ]
-    for source in sources:
-        for reading in source.materials:
-            if reading.dry_standard and (reading.material.strip().lower(), reading.scale) == wanted:
-                return source.room
-    return None
-
-
 @dataclass
 class _PointSeries:
     readings: list[PointReading]
     latest: model.MaterialReading
     standard_room: str | None
+    standard_visit: int | None = None
 
 
 def _room_points(
@@ -312,16 +293,19 @@ def _room_points(
         if room_visit is None:
             continue
         judged = findings.get((index, room_id))
-        standards = (
-            None if judged is not None else evaluate._dry_standards(visit, room_visit, rooms)
+        # the same lookup the assessment makes: this room, the visit's reference rooms, then
+        # the earlier visits' (where the room was judged, its finding's value is taken)
+        standards = evaluate._dry_standards(
+            visit, room_visit, rooms, earlier=evaluate.earlier_visits(survey, visit)
         )
         readings = [m for m in room_visit.materials if not m.dry_standard]
         for position, reading in enumerate(readings):
+            source = standards.get((reading.material.strip().lower(), reading.scale))
             if judged is not None and position < len(judged):
                 finding = judged[position]
                 standard, state = finding.dry_standard, finding.dry_standard_state
             else:
-                standard = (standards or {}).get((reading.material.strip().lower(), reading.scale))
+                standard = None if source is None else source.value
                 state = (
                     DryStandardState.NO_REFERENCE
                     if standard is None
@@ -334,17 +318,15 @@ def _room_points(
                 index, at, days_between(origin, at), reading.value, standard, state
             )
             key = point_key(reading.location, reading.material, reading.scale)
-            room = (
-                None
-                if standard is None
-                else _standard_room(visit, room_visit, rooms, reading.material, reading.scale)
-            )
+            room = None if standard is None or source is None else source.room_id
+            standard_visit = None if standard is None or source is None else source.visit_index
             found = series.get(key)
             if found is None:
-                series[key] = _PointSeries([point], reading, room)
+                series[key] = _PointSeries([point], reading, room, standard_visit)
             else:
                 found.readings.append(point)
                 found.latest, found.standard_room = reading, room
+                found.standard_visit = standard_visit
     seen = [i for i in order if survey.visits[i].room_visit(room_id) is not None]
     out: list[MaterialPoint] = []
     for key, held in series.items():
@@ -377,6 +359,7 @@ def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
         readings=tuple(readings),
         dry_standard=latest.dry_standard,
         dry_standard_room=series.standard_room if goal is not None else None,
+        dry_standard_visit=series.standard_visit if goal is not None else None,
         goal=goal,
         goal_met=met,
         fit=fit,

@@ -63,7 +63,8 @@ def basis_text() -> str:
         "Readings of one material point are matched across visits by location, material "
         "and scale, ignoring differences of case and spacing. A point's goal is its dry "
         "standard (the same material, on the same scale, in an unaffected part of the "
-        f"room or in the reference room) plus {tolerance:.0f} %; "
+        f"room or in the reference room, the latest read up to that visit) plus "
+        f"{tolerance:.0f} %; "
         f"{AT_GOAL_MARK} marks a reading at the goal. The drying rate is the straight "
         f"line best fitted to the point's last {window:.0f} readings at most; drying is "
         f"taken as stalled when the fall is no more than {stalled:g} % of the reading a day "
@@ -210,7 +211,14 @@ def dry_standard_cell(point: MaterialPoint, room_names: Mapping[str, str]) -> st
         return "none recorded"
     where = room_names.get(point.dry_standard_room or "", point.dry_standard_room or "")
     value = f"{point.dry_standard:g}"
-    return f"{value} in {where}" if where else value
+    text = f"{value} in {where}" if where else value
+    return text + _visit_said(point)
+
+
+def _visit_said(point: MaterialPoint) -> str:
+    """ ", read on visit 1" for a dry standard read on an earlier visit than the latest."""
+    visit = point.dry_standard_visit
+    return "" if visit is None else f", read on visit {visit + 1}"
 
 
 def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
@@ -223,7 +231,8 @@ def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
         else reading_text(point.dry_standard, point.scale)
     )
     room = point.dry_standard_room or ""
-    return f"{value} in {room_names.get(room, room)}" if room else value
+    said = f"{value} in {room_names.get(room, room)}" if room else value
+    return said + _visit_said(point)
 
 
 def goal_cell(point: MaterialPoint) -> str:

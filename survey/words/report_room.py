@@ -161,7 +161,15 @@ def reading_text(value: float, scale: str) -> str:
 
 
 def dry_standard_text(m: MaterialFinding) -> str:
-    return "–" if m.dry_standard is None else reading_text(m.dry_standard, m.scale)
+    """The dry standard; one read on an earlier visit (not read again since) says which."""
+    if m.dry_standard is None:
+        return "–"
+    text = reading_text(m.dry_standard, m.scale)
+    return (
+        text
+        if m.dry_standard_visit is None
+        else f"{text}, read on visit {m.dry_standard_visit + 1}"
+    )
 
 
 def against_text(m: MaterialFinding) -> str:
@@ -191,7 +199,8 @@ def dry_standards_text(readings: Sequence[str]) -> str:
 
 DRY_STANDARD_BASIS = (
     "The dry standard is a reading of the same material, on the same "
-    f"scale, in an unaffected part of the same room or of a reference room; "
+    f"scale, in an unaffected part of the same room or of a reference room (one "
+    "read on an earlier visit and not read again since stands, and says which visit); "
     f"a reading within {th.value('dry_standard_tolerance_fraction') * 100:.0f} "
     "% of it counts as dry."
 )

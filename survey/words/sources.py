@@ -55,8 +55,9 @@ def _remove_contaminated(n: RemoveContaminatedNumbers, d: Display) -> str:
 
 def _materials(points: tuple[MaterialPoint, ...]) -> str:
     return ", ".join(
-        f"{m.label} {m.value:g} against {m.dry_standard:g} (dry once at or below "
-        f"{m.dry_at_or_below:.3g})"
+        f"{m.label} {m.value:g} against {m.dry_standard:g}"
+        + ("" if m.dry_standard_visit is None else f" read on visit {m.dry_standard_visit + 1}")
+        + f" (dry once at or below {m.dry_at_or_below:.3g})"
         for m in points
     )
 
