@@ -117,3 +117,34 @@ async def test_the_result_scrolls_by_keys_from_a_field(tmp_path):
         await pilot.press("shift+up")
         await pilot.pause()
         assert panel.scroll_y == panel.max_scroll_y - 3
+
+
+async def test_volume_occupants_and_a_second_surface_are_taken(tmp_path):
+    """The advice asks for the occupants or the room volume to size a dehumidifier; the
+    screen takes both (volume as dimensions, with a decimal comma), and a second surface.
+    21 °C and 75 % (dew point 16.4 °C, CoolProp) with 2 people: the load is 2 × 50 g/h
+    (``moisture_person_sedentary_g_per_h``, our choice in the published 40-60 g/h), 100 g/h × 24 h =
+    2.4 L/day. A volume out of the file's range (0.5 m³; 1 to 100 000 allowed) is named in
+    its field and left out."""
+    dew = CP.HAPropsSI("D", "T", 294.15, "R", 0.75, "P", 101325.0) - 273.15
+    app = make_app(data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 40)) as pilot:
+        await pilot.pause()
+        await pilot.press("f6")
+        await pilot.pause()
+        for key, text in (("air", "21"), ("rh", "75"), ("surface", "12"), ("surface2", "19")):
+            await type_into(pilot, app, key, text)
+        result = shown(app, "quick-result")
+        assert f"Dew point {dew:.1f} °C" in result
+        assert "Surface 12.0 °C" in result and "Surface 19.0 °C" in result
+        assert "no dehumidifier size can be given" in result
+
+        await type_into(pilot, app, "volume", "0,5")
+        assert "Not read: room volume 0,5" in shown(app, "quick-message")
+        assert "between 1 and 100000 m³" in shown(app, "quick-message")
+        await type_into(pilot, app, "volume", "4 x 3 x 2,5")
+        await type_into(pilot, app, "occupants", "2")
+        assert shown(app, "quick-message") == ""
+        result = shown(app, "quick-result")
+        assert "2 people sitting at 50 g/h each: 100 g/h" in result
+        assert "at least 2.4 L/day" in result

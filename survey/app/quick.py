@@ -10,7 +10,7 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
 from textual.widgets import Input, Label, Select, Static
 
-from survey import assess, psychro, quick, units, words
+from survey import assess, domain, psychro, quick, units, words
 from survey.app import walk
 from survey.app.fields import Choice, plain
 from survey.app.footer import KeysFooter
@@ -27,7 +27,28 @@ def _reader(quantity: str, field: str, check):
     return lambda text: units.read(quantity, text, field).checked(check)
 
 
-#: (id, label, parser, needed; the label ends with the unit the field is read in)
+def _volume(text: str) -> float:
+    """A room volume, or its dimensions multiplied out, within the survey file's range."""
+    value = units.parse_volume_or_dimensions(text, "room volume", "si")
+    low, high = domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3
+    if not low <= value <= high:
+        raise InputError(
+            "room volume", text, f"room volume must be between {low:g} and {high:g} m³"
+        )
+    return value
+
+
+def _occupants(text: str) -> int:
+    """The usual number of people in the room, a whole number within the file's range."""
+    value = units.parse_number(text, "occupants")
+    if value != int(value) or not 0 <= value <= domain.OCCUPANTS_MAX:
+        raise InputError(
+            "occupants", text, f"a whole number of people from 0 to {domain.OCCUPANTS_MAX}"
+        )
+    return int(value)
+
+
+#: (id, label, parser, needed; a label with a unit ends with it)
 FIELDS = [
     (
         "air",
@@ -42,6 +63,14 @@ FIELDS = [
         _reader("temperature", "surface temperature", psychro.check_surface_temp),
         False,
     ),
+    (
+        "surface2",
+        "2nd surface °C",
+        _reader("temperature", "second surface temperature", psychro.check_surface_temp),
+        False,
+    ),
+    ("volume", "Volume m³", lambda text: _volume(text), False),
+    ("occupants", "Occupants", lambda text: _occupants(text), False),
     (
         "outdoor",
         "Outdoor temp. °C",
@@ -119,21 +148,21 @@ class QuickScreen(Screen):
             except InputError as exc:
                 kept = good.get(key)
                 values[key] = kept
-                unit = label.rsplit(" ", 1)[1]
+                unit = label.rsplit(" ", 1)[1] if label.endswith(("°C", "%", "m³")) else ""
                 used = (
                     "it is left out"
                     if kept is None
-                    else f"the result uses the last value that read, {kept:g} {unit}"
+                    else f"the result uses the last value that read, {kept:g} {unit}".rstrip()
                 )
                 problems.append(f"Not read: {exc}; {used}.")
         self.query_one("#quick-message", Static).update(plain(" ".join(problems)))
         if any(values[key] is None for key, _label, _parse, need in FIELDS if need):
             return None
         use = self.query_one("#quick-use", Select).value
-        surfaces = (
-            ()
-            if values["surface"] is None
-            else (assess.SurfaceInput("surface", values["surface"], "external_wall"),)
+        surfaces = tuple(
+            assess.SurfaceInput(name, values[key], "external_wall")
+            for key, name in (("surface", "surface"), ("surface2", "second surface"))
+            if values[key] is not None
         )
         outdoor = None
         if values["outdoor"] is not None and values["outdoor_rh"] is not None:
@@ -144,6 +173,8 @@ class QuickScreen(Screen):
             surfaces=surfaces,
             outdoor=outdoor,
             use=None if use == "other" else use,
+            volume_m3=values["volume"],
+            occupants=None if values["occupants"] is None else int(values["occupants"]),
         )
 
     def update_result(self) -> None:
