@@ -117,3 +117,32 @@ async def test_the_rooms_live_panel_scrolls_by_keys_from_a_field(tmp_path):
         await pilot.pause()
         assert panel.scroll_y == 15
         assert app.focused.id == "room-temp-input"
+
+
+async def test_a_new_visit_starts_from_the_room_list_too(tmp_path):
+    """F7 is a key of every walk screen, not of the visit screen alone: on the room list it
+    asks, n changes nothing, y starts visit 2 with the rooms offered to read again."""
+    from survey import store
+    from survey.app.dialogs import ConfirmDialog
+
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        assert type(app.screen).__name__ == "RoomListScreen"
+        assert "New visit" in line(app)
+        await pilot.press("f7")
+        await pilot.pause()
+        assert isinstance(app.screen, ConfirmDialog)
+        await pilot.press("n")
+        await pilot.pause()
+        assert len(app.editor.survey.visits) == 1
+        await pilot.press("f7")
+        await pilot.pause()
+        await pilot.press("y")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        assert type(app.screen).__name__ == "VisitScreen"
+        assert len(app.editor.survey.visits) == 2 and app.editor.visit_index == 1
+    assert len(store.load_survey(path).visits) == 2

@@ -32,14 +32,13 @@ def key_text(binding: Binding) -> str:
 
 def sections() -> list[tuple[str, list[Binding]]]:
     """Each screen's (or widget's) title and its bindings, as the help screen lists them."""
-    from survey.app import chart, main, report_view, room, rooms, start, tables, visit, walk
+    from survey.app import chart, main, report_view, room, rooms, start, tables, walk
     from survey.app.fields import Tick
 
     return [
         ("Everywhere", main.SurveyApp.BINDINGS),
         ("Start screen", start.StartScreen.BINDINGS),
         ("Walk screens", walk.WalkScreen.BINDINGS),
-        ("Visit", visit.VisitScreen.BINDINGS),
         ("Room list", rooms.RoomListScreen.BINDINGS + tables.RoomTable.BINDINGS),
         ("Room (and the quick check)", room.RoomScreen.BINDINGS),
         ("Surface table", tables.SurfaceTable.BINDINGS),

@@ -5,14 +5,12 @@ from __future__ import annotations
 
 from rich.text import Text
 from textual import on
-from textual.binding import Binding
 from textual.containers import Horizontal
 from textual.widgets import Button, Select, Static
 
 from survey import model, psychro
-from survey.app import judging, walk
+from survey.app import walk
 from survey.app.air import AirPair
-from survey.app.dialogs import ConfirmDialog
 from survey.app.fields import Choice, Field, plain
 from survey.words import screens
 
@@ -20,7 +18,6 @@ from survey.words import screens
 class VisitScreen(walk.WalkScreen):
     TITLE_TEXT = "Visit"
     PARENT = "site"
-    BINDINGS = [Binding("f7", "new_visit", "New visit", id="new_visit")]
 
     @property
     def visit(self) -> model.Visit:
@@ -163,28 +160,3 @@ class VisitScreen(walk.WalkScreen):
     @on(Button.Pressed, "#to-rooms")
     def _continue(self) -> None:
         self.app.go("rooms")
-
-    def action_new_visit(self) -> None:
-        if self.refuse_if_read_only():
-            return
-
-        def done(yes: bool) -> None:
-            if yes:
-                survey = self.editor.survey
-                survey.visits.append(judging.new_visit(self.app.clock()))
-                self.editor.visit_index = len(survey.visits) - 1
-                self.committed()
-                self.app.go("visit")
-                self.app.show_status(
-                    "New visit started: the rooms and the points measured "
-                    "last time are listed to read again."
-                )
-
-        self.app.push_screen(
-            ConfirmDialog(
-                "Start a new visit now? The rooms, surface locations and material points of the "
-                "last visit are offered again (without their values), with last time's values "
-                "shown beside them."
-            ),
-            done,
-        )

@@ -46,7 +46,10 @@ class WalkScreen(Screen):
     TITLE_TEXT = ""
     #: The screen Escape goes back to ("" for the start screen).
     PARENT = ""
-    BINDINGS = [Binding("escape", "back", "Back", id="back")]
+    BINDINGS = [
+        Binding("escape", "back", "Back", id="back"),
+        Binding("f7", "new_visit", "New visit", id="new_visit"),
+    ]
 
     @property
     def editor(self) -> Editor:
@@ -101,6 +104,35 @@ class WalkScreen(Screen):
 
     def committed(self) -> None:
         self.app.committed()
+
+    def action_new_visit(self) -> None:
+        """Start a new visit (from any screen of the walk), after asking."""
+        from survey.app import judging
+        from survey.app.dialogs import ConfirmDialog
+
+        if self.refuse_if_read_only():
+            return
+
+        def done(yes: bool) -> None:
+            if yes:
+                survey = self.editor.survey
+                survey.visits.append(judging.new_visit(self.app.clock()))
+                self.editor.visit_index = len(survey.visits) - 1
+                self.committed()
+                self.app.go("visit")
+                self.app.show_status(
+                    "New visit started: the rooms and the points measured "
+                    "last time are listed to read again."
+                )
+
+        self.app.push_screen(
+            ConfirmDialog(
+                "Start a new visit now? The rooms, surface locations and material points of the "
+                "last visit are offered again (without their values), with last time's values "
+                "shown beside them."
+            ),
+            done,
+        )
 
     def refuse_if_read_only(self) -> bool:
         if self.read_only:
