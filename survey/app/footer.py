@@ -50,7 +50,7 @@ class KeysFooter(Widget):
 
     def shown_keys(self) -> list[ShownKey]:
         """The keys on show now, in the order the footer shows them: each action once (its
-        first key), the command palette's last."""
+        first key), the help key first and the command palette's last."""
         app = self.app
         bindings = self.screen.active_bindings
 
@@ -70,6 +70,8 @@ class KeysFooter(Widget):
                 continue
             actions.add(binding.action)
             keys.append(shown(binding, enabled))
+        # the key to every key first: at 80 columns not all of a screen's keys fit
+        keys.sort(key=lambda k: k.action != "help")
         palette = bindings.get(app.COMMAND_PALETTE_BINDING) if app.ENABLE_COMMAND_PALETTE else None
         if palette is not None:
             _node, binding, enabled, _tooltip = palette
@@ -98,25 +100,26 @@ class KeysFooter(Widget):
         return self._content
 
     def _draw(self, keys: tuple[ShownKey, ...], width: int) -> Content:
-        """The line: the keys from the left, as many whole ones as fit, and the command
-        palette's at the right end."""
+        """The line: the keys from the left in their order, each whole (one too long for the
+        room left is passed over for the shorter ones after it), and the command palette's
+        at the right end."""
         palette = self.app.COMMAND_PALETTE_BINDING
         pieces = [self._piece(k) for k in keys if k.key != palette]
         right = [self._piece(k) for k in keys if k.key == palette]
         room = width - sum(p.cell_length for p in right)
         left: list[Content] = []
         used = 0
-        for piece in pieces:
+        kept: list[ShownKey] = []
+        for key, piece in zip([k for k in keys if k.key != palette], pieces, strict=True):
             if used + piece.cell_length > room:
-                break
+                continue  # too long for what is left: a shorter one after it may fit
             left.append(piece)
+            kept.append(key)
             used += piece.cell_length
         gap = max(0, room - used)
         self._spans = []
         x = 0
-        order = [k for k in keys if k.key != palette][: len(left)] + [
-            k for k in keys if k.key == palette
-        ]
+        order = kept + [k for k in keys if k.key == palette]
         for key, piece in zip(order, [*left, *right], strict=True):
             if key.key == palette:
                 x += gap
@@ -139,8 +142,9 @@ class KeysFooter(Widget):
         text_style = Style.parse(
             f"$footer-description-foreground on $footer-description-background{dim}"
         )
+        # " key description " with one space more before the next key: two columns a key
+        # fewer than a padded key cell, so at 80 columns the app's own keys fit too
         parts: list[str | tuple[str, str | Style]] = [(f" {shown.display} ", key_style)]
         if shown.description:
             parts.append((f"{shown.description} ", text_style))
-        parts.append(" ")
         return Content.assemble(*parts)

@@ -70,7 +70,7 @@ def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) 
         out.append(f"\n{title}\n", "bold")
         for b in bindings:
             key = key_text(b) if b.id not in keymap else key_text(Binding(keymap[b.id], ""))
-            out.append(f"  {key:<18} {b.description}  ({b.id})\n")
+            out.append(f"  {key:<18} {b.tooltip or b.description}  ({b.id})\n")
     out.append(
         "\nKeys can be remapped by binding id (shown in brackets): write them in "
         f'{where}, e.g. {{"go_report": "f9"}}, and start the app again.\n'

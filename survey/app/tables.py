@@ -34,7 +34,7 @@ class RoomTable(RowTable):
         Binding("a", "screen.add_room", "Add", id="rooms_add"),
         Binding("r", "screen.rename_room", "Rename", id="rooms_rename"),
         Binding("d,delete", "screen.delete_room", "Delete", id="rooms_delete"),
-        Binding("u", "screen.undo", "Undo delete", id="rooms_undo"),
+        Binding("u", "screen.undo", "Undo", id="rooms_undo", tooltip="Undo the last deletion"),
         # In the help screen and the hint line, not the footer (it has no room for them).
         Binding("[", "screen.move(-1)", "Move up", id="rooms_up", show=False),
         Binding("]", "screen.move(1)", "Move down", id="rooms_down", show=False),
@@ -47,7 +47,7 @@ class SurfaceTable(RowTable):
         Binding("a", "screen.add_surface", "Add", id="surface_add"),
         Binding("e,enter", "screen.edit_surface", "Edit/read", id="surface_edit"),
         Binding("d,delete", "screen.delete_surface", "Delete", id="surface_delete"),
-        Binding("u", "screen.undo", "Undo delete", id="surface_undo"),
+        Binding("u", "screen.undo", "Undo", id="surface_undo", tooltip="Undo the last deletion"),
     ]
 
 
@@ -56,7 +56,7 @@ class MaterialTable(RowTable):
         Binding("a", "screen.add_material", "Add", id="material_add"),
         Binding("e,enter", "screen.edit_material", "Edit/read", id="material_edit"),
         Binding("d,delete", "screen.delete_material", "Delete", id="material_delete"),
-        Binding("u", "screen.undo", "Undo delete", id="material_undo"),
+        Binding("u", "screen.undo", "Undo", id="material_undo", tooltip="Undo the last deletion"),
     ]
 
 
@@ -65,5 +65,5 @@ class EquipmentTable(RowTable):
         Binding("a", "screen.add_equipment", "Add", id="equipment_add"),
         Binding("e,enter", "screen.edit_equipment", "Edit", id="equipment_edit"),
         Binding("d,delete", "screen.delete_equipment", "Delete", id="equipment_delete"),
-        Binding("u", "screen.undo", "Undo delete", id="equipment_undo"),
+        Binding("u", "screen.undo", "Undo", id="equipment_undo", tooltip="Undo the last deletion"),
     ]
