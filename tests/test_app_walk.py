@@ -168,9 +168,14 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await settle(pilot, app)
         await press(pilot, "e")  # the first point measured last time
         await settle(pilot, app)
+        assert app.screen.title_text == "Read the surface measured last visit"
         await field(pilot, "10")  # its temperature: saved
         await settle(pilot, app)
         assert app.status_text.startswith("Saved")
+        await press(pilot, "e")  # the cursor moved on to the next point still to read
+        await settle(pilot, app)
+        await field(pilot, "16")
+        await settle(pilot, app)
         await press(pilot, "ctrl+q")
 
     survey = store.load_survey(path)
@@ -206,7 +211,8 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
     assert len(kitchen.surfaces) == 3 and kitchen.materials[0].value == 22.0
     assert second.started_at == FIXED_NOW
     assert [(s.location, s.surface_temp_c) for s in second.rooms[0].surfaces] == [
-        ("N corner", 10.0)
+        ("N corner", 10.0),
+        ("E wall", 16.0),
     ]
     assert (second.rooms[0].air.dry_bulb_c, second.rooms[0].air.rh_pct) == (19.0, 60.0)
 

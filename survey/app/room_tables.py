@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import msgspec
 from rich.text import Text
+from textual.widgets.data_table import RowDoesNotExist
 
 from survey import evaluate, model
 from survey.app import equipment, judging, walk
@@ -70,11 +71,13 @@ class RoomTables:
                 mould_visible=False,
             )
             d = self.app.display_units
-            self._edit_surface(None, template, f"last {d.temperature(point.surface_temp_c)}")
+            previous = f"last {d.temperature(point.surface_temp_c)}"
+            self._edit_surface(None, template, previous, pending=index)
         else:
             self._edit_surface(index, self.record().surfaces[index])
 
-    def _edit_surface(self, index, reading, previous: str = "") -> None:
+    def _edit_surface(self, index, reading, previous: str = "", pending: int | None = None) -> None:
+        """Add (``index`` None), edit, or read again the ``pending`` point of last visit."""
         if self.refuse_if_read_only():
             return
         record = self.record()
@@ -93,8 +96,16 @@ class RoomTables:
                 surfaces[index] = result
             self._replace_record("surface", surfaces=surfaces)
             self._changed()
+            if pending is not None:
+                self._to_next_pending(SurfaceTable, "p", pending)
 
-        title = "Add a surface" if index is None else "Edit the surface"
+        title = (
+            "Edit the surface"
+            if index is not None
+            else "Add a surface"
+            if pending is None
+            else "Read the surface measured last visit"
+        )
         self.app.push_screen(
             SurfaceDialog(
                 title, self.editor.unit_system, reading, self._surface_preview(index), previous, air
@@ -115,11 +126,14 @@ class RoomTables:
                 self.editor.survey, self.editor.visit_index, self.room_id
             )[index]
             template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
-            self._edit_material(None, template, f"last {point.value:g}")
+            self._edit_material(None, template, f"last {point.value:g}", pending=index)
         else:
             self._edit_material(index, self.record().materials[index])
 
-    def _edit_material(self, index, reading, previous: str = "") -> None:
+    def _edit_material(
+        self, index, reading, previous: str = "", pending: int | None = None
+    ) -> None:
+        """Add (``index`` None), edit, or read again the ``pending`` point of last visit."""
         if self.refuse_if_read_only():
             return
 
@@ -136,9 +150,29 @@ class RoomTables:
                 materials[index] = result
             self._replace_record("material reading", materials=materials)
             self._changed()
+            if pending is not None:
+                self._to_next_pending(MaterialTable, "q", pending)
 
-        title = "Add a material reading" if index is None else "Edit the material reading"
+        title = (
+            "Edit the material reading"
+            if index is not None
+            else "Add a material reading"
+            if pending is None
+            else "Read the point measured last visit"
+        )
         self.app.push_screen(MaterialDialog(title, reading, previous), done)
+
+    def _to_next_pending(self, table_type, prefix: str, read: int) -> None:
+        """After a point of last visit is read, the cursor goes to the next one still to
+        read (the one read has left the list, so the next has its number), or stays."""
+        table = self.query_one(table_type)
+        for key in (f"{prefix}{read}", f"{prefix}{read - 1}"):
+            try:
+                row = table.get_row_index(key)
+            except RowDoesNotExist:  # nothing left to read there
+                continue
+            table.move_cursor(row=row)
+            return
 
     def _edit_equipment(self, index: int | None) -> None:
         if self.refuse_if_read_only():
