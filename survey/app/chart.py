@@ -45,6 +45,9 @@ COLOURS = {
 NAME_WIDTH = 24
 #: Markers: plotext's own names or one character each.
 MARKERS = {"curve": "braille", "room": "●", "outdoor": "■", "surface": "◆"}
+#: Each curve its own mark, so the curves differ by shape as well as by colour: saturation
+#: drawn solid, the mould limit in dots, the frost curve in crosses (the legend shows each).
+CURVE_MARKERS = {"saturation": "braille", "mould_limit": "•", "frost": "×"}
 
 
 class PsychroPlot(PlotextPlot):
@@ -159,7 +162,7 @@ class ChartScreen(walk.WalkScreen):
             plt.plot(
                 [data.x(p.dry_bulb_c) for p in line.points],
                 [data.y(p.humidity_ratio_kg_per_kg) for p in line.points],
-                marker=MARKERS["curve"],
+                marker=CURVE_MARKERS.get(line.key, MARKERS["curve"]),
                 color=self._colour(line.key),
                 label=_short_label(line),
             )
@@ -218,6 +221,8 @@ class SeriesPlot(PlotextPlot):
     DEFAULT_CSS = "SeriesPlot { height: 12; }"
     #: The theme variable of each series in turn, and of the guides.
     SERIES_COLOURS = ("primary", "success", "accent", "secondary", "error")
+    #: and marks, so that series differ by shape too (the legend shows each)
+    SERIES_MARKERS = ("braille", "•", "×", "+", "○")
     GUIDE_COLOUR = "warning"
 
     def __init__(self, **kwargs) -> None:
@@ -253,7 +258,7 @@ class SeriesPlot(PlotextPlot):
             plt.plot(
                 [hours(at) for at in series.times],
                 list(series.values),
-                marker="braille",
+                marker=self.SERIES_MARKERS[number % len(self.SERIES_MARKERS)],
                 color=self._colour(self.SERIES_COLOURS[number % len(self.SERIES_COLOURS)]),
                 label=visible(series.name),
             )
