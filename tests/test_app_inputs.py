@@ -121,6 +121,7 @@ async def test_bad_inputs_show_a_message_and_change_nothing(tmp_path):
             message = message_of(app, field_id)
             assert message.startswith("Not saved"), (field_id, text, message)
             assert word in message, (field_id, text, message)
+            assert message.endswith(("is kept.", "Nothing is saved here yet.")), message
             assert path.read_bytes() == before, (field_id, text)
         # Pasted text with a line break is refused whole (not cut to its first line).
         await goto(pilot, app, "room")
@@ -129,6 +130,9 @@ async def test_bad_inputs_show_a_message_and_change_nothing(tmp_path):
         await pilot.pause()
         assert "Not pasted: the text has 2 lines" in message_of(app, "room-temp")
         assert app.screen.query_one("#room-temp-input").value == "17.5"
+        await type_into(pilot, app, "room-temp", "abc")
+        assert message_of(app, "room-temp").endswith("The last good value, 17.5, is kept.")
+        await type_into(pilot, app, "room-temp", "17.5")
         await pilot.press("enter")
         await pilot.pause()
         await app.workers.wait_for_complete()
@@ -304,3 +308,19 @@ async def test_enter_moves_past_a_tick_box_and_space_ticks_it(tmp_path):
         await pilot.press("space")
         await pilot.pause()
         assert box.value is True
+
+
+async def test_a_refused_value_is_named_as_it_was_typed(tmp_path):
+    """An RH of 101 and an air temperature of 99 °C are outside the core's domain; the
+    message names them as typed ("101", "99"), not as the floats they were read as."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-rh", "101")
+        message = message_of(app, "room-rh")
+        assert "relative humidity 101:" in message and "101.0" not in message
+        await type_into(pilot, app, "room-temp", "99")
+        message = message_of(app, "room-temp")
+        assert "air temperature 99:" in message and "99.0" not in message

@@ -5,7 +5,7 @@ from __future__ import annotations
 from textual.containers import Vertical
 from textual.message import Message
 
-from survey import model
+from survey import model, psychro
 from survey.app import walk
 from survey.app.fields import Field
 from survey.errors import InputError
@@ -52,7 +52,10 @@ class AirPair(Vertical):
         yield Field(
             f"Air temp. {unit}",
             walk.shown("temperature", self.temp_c, self.system),
-            walk.required("air temperature", walk.temperature("air temperature", self.system)),
+            walk.required(
+                "air temperature",
+                walk.temperature("air temperature", self.system, psychro.check_dry_bulb),
+            ),
             self._commit("temp"),
             id=f"{self.key_name}-temp",
             live=True,

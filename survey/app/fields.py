@@ -144,7 +144,12 @@ class Field(Vertical):
             warning = self.commit(value)
         except InputError as exc:
             self.add_class("-invalid")
-            self.show_message(f"Not saved — {exc}. The last good value is kept.")
+            kept = (
+                f"The last good value, {self.committed_text.strip()}, is kept."
+                if self.committed_text.strip()
+                else "Nothing is saved here yet."
+            )
+            self.show_message(f"Not saved — {exc}. {kept}")
             return False
         self.remove_class("-invalid")
         self.committed_text = text

@@ -13,7 +13,7 @@ from textual.containers import Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Checkbox, Select, Static
 
-from survey import model, store, words
+from survey import model, psychro, store, words
 from survey.app import walk
 from survey.app.fields import Choice, Field, Tick, plain
 from survey.errors import InputError
@@ -139,7 +139,10 @@ class SurfaceDialog(_ReadingDialog):
                 if r is None or r.surface_temp_c is None
                 else walk.shown("temperature", r.surface_temp_c, self.system),
                 walk.required(
-                    "Surface temperature", walk.temperature("Surface temperature", self.system)
+                    "Surface temperature",
+                    walk.temperature(
+                        "Surface temperature", self.system, psychro.check_surface_temp
+                    ),
                 ),
                 self._temperature,
                 id="surface-temp",

@@ -234,8 +234,12 @@ def text_parser(name: str, need: bool = False, multi_line: bool = False) -> Call
     return run
 
 
-def temperature(name: str, system: str) -> Callable[[str], float]:
-    return lambda text: units.parse_temperature(text, name, system)
+def temperature(name: str, system: str, check=None) -> Callable[[str], float]:
+    """A temperature; with ``check`` (a core domain check such as
+    :func:`survey.psychro.check_dry_bulb`) held to it, the message naming the text typed."""
+    if check is None:
+        return lambda text: units.parse_temperature(text, name, system)
+    return lambda text: units.read("temperature", text, name, system).checked(check)
 
 
 def difference(name: str, system: str) -> Callable[[str], float]:
@@ -243,7 +247,10 @@ def difference(name: str, system: str) -> Callable[[str], float]:
 
 
 def rh(name: str) -> Callable[[str], float]:
-    return lambda text: units.parse_rh(text, name)
+    """An RH, held to the core's domain (the message names the text typed, not a float)."""
+    from survey import psychro
+
+    return lambda text: units.read("relative_humidity", text, name).checked(psychro.check_rh)
 
 
 def number(name: str) -> Callable[[str], float]:
