@@ -79,3 +79,31 @@ async def test_back_from_a_room_the_list_is_on_that_room(tmp_path):
         await pilot.press("escape")
         await pilot.pause()
         assert rooms_screen.query_one(RoomTable).cursor_row == 4
+
+
+async def test_a_room_renamed_to_another_rooms_name_is_refused_and_kept(tmp_path):
+    """r on the first room, typed as the second room's name in other letters' case: refused
+    with the same "Not saved —" message as every field, the dialog stays, the name is kept."""
+    from textual.widgets import Input, Static
+
+    from survey import store
+
+    path = tmp_path / EXAMPLE.name
+    shutil.copyfile(EXAMPLE, path)
+    before = path.read_bytes()
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        first, second = app.editor.survey.rooms[:2]
+        await pilot.press("r")
+        await pilot.pause()
+        box = app.screen.query_one("#prompt-0", Input)
+        box.value = second.name.upper()
+        await pilot.press("enter")
+        await pilot.pause()
+        message = str(app.screen.query_one("#prompt-message", Static).render())
+        assert message.startswith("Not saved — room name ")
+        assert message.endswith("another room has this name")
+        assert app.editor.survey.rooms[0].name == first.name
+    assert path.read_bytes() == before
+    assert store.load_survey(path).rooms[0].name == first.name

@@ -132,7 +132,7 @@ class RoomListScreen(walk.WalkScreen):
                 r.name.casefold() == name.casefold() and r.id != exclude
                 for r in self.editor.survey.rooms
             ):
-                return f"Room name {name}: another room has this name"
+                return f"Not saved — room name {name}: another room has this name"
             return ""
 
         return check
