@@ -9,6 +9,7 @@ from textual.widgets.data_table import RowDoesNotExist
 
 from survey import evaluate, model
 from survey.app import equipment, judging, walk
+from survey.app.fields import plain
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.words import screens
@@ -43,9 +44,10 @@ class RoomTables:
             d = self.app.display_units
             f = judged.finding.surfaces[at]
             text = Text(screens.surface_line(f, d))
-            limit = screens.safe_rh_line(judged.finding)
-            if limit is not None:
-                text.append(f"\n{limit}")
+            if screens.safe_rh_line(judged.finding) is not None:
+                # the room's limit, said as the room's: the surface that sets it is named
+                text.append("\n")
+                text.append(plain(screens.safe_rh_set_by(judged.finding)))
             return text
 
         return preview
