@@ -157,7 +157,9 @@ class SiteScreen(walk.WalkScreen):
 
     def on_mount(self) -> None:
         table = self.query_one("#instruments", DataTable)
-        table.add_headings("id", "kind", "name", "± air K", "± RH %", "± surface K", "calibrated")
+        # the accuracies and the calibration before the free-text name, so that at 80 columns
+        # what the readings' uncertainty rests on is in sight
+        table.add_headings("id", "kind", "± air K", "± RH %", "± surface K", "calibrated", "name")
         self.fill_instruments()
 
     def fill_instruments(self) -> None:
@@ -167,11 +169,11 @@ class SiteScreen(walk.WalkScreen):
             table.add_row(
                 plain(inst.id),
                 Text(inst.kind.replace("_", " ")),
-                plain(inst.name),
                 Text(_g(inst.air_temp_accuracy_k)),
                 Text(_g(inst.rh_accuracy_pct)),
                 Text(_g(inst.surface_temp_accuracy_k)),
                 Text(str(inst.calibrated_on or "–")),
+                plain(inst.name),
                 key=str(i),
             )
 
