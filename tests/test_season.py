@@ -687,3 +687,18 @@ async def test_site_screen_edits_the_design_month(tmp_path):
     site = store.load_survey(path).site
     assert (site.design_outdoor_temp_c, site.design_outdoor_rh_pct) == (-3.0, 92.0)
     assert site.design_indoor_temp_c == 19.0
+
+
+def test_panel_says_a_surface_past_saturation_today_as_the_tables_do():
+    """A wall corner at 11 °C in a 20 °C, 60 % room (dew point 12.0 °C, CoolProp) is past
+    saturation today (its surface RH about 107 %): the panel's colder-month line says
+    "100 % or more today", as the tables say it, not the ratio itself."""
+    from CoolProp.HumidAirProp import HAPropsSI
+
+    dew = HAPropsSI("D", "T", 293.15, "R", 0.60, "P", 101325.0) - 273.15
+    assert dew == pytest.approx(12.0, abs=0.05)
+    finding = _room(surfaces=(("Corner", 11.0, "external_wall"),))
+    assert finding.surfaces[0].surface_rh_pct > 100.0
+    projection = season.project_room(finding, DesignMonth(0.0, 90.0), with_lowest=False)
+    (line,) = ws.panel_lines(projection, words.SI)[1:]
+    assert line.startswith("Corner: 100 % or more today, ")

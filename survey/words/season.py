@@ -445,8 +445,10 @@ def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = Non
             for s in room.surfaces
         )
         return [*lines, "No surface projected: " + "; ".join(reasons) + "."]
+    today = worst.today_surface_rh_pct
+    today_said = "100 % or more" if today >= 100.0 else f"{today:.0f} %"  # as the tables say it
     line = (
-        f"{visible(worst.label)}: {worst.today_surface_rh_pct:.0f} % today, "
+        f"{visible(worst.label)}: {today_said} today, "
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
     )
     return [*lines, line]
