@@ -21,6 +21,7 @@ so the report, the app and the command line all judge a stored visit the same wa
 
 from __future__ import annotations
 
+import datetime as dt
 from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import NamedTuple
@@ -198,10 +199,21 @@ def _dry_standards(
 
 
 def earlier_visits(survey: model.Survey, visit: model.Visit) -> list[tuple[int, model.Visit]]:
-    """The visits begun before ``visit``, with their indexes, latest first."""
+    """The visits begun before ``visit`` (at the same time: those before it in the file),
+    with their indexes, latest first. Where some visits give a time zone and others do not,
+    start times are compared as the wall-clock times written (as drying progress reads
+    them), so such a file still orders."""
+    index = next((i for i, v in enumerate(survey.visits) if v is visit), len(survey.visits))
+    mixed = len({v.started_at.tzinfo is None for v in (*survey.visits, visit)}) > 1
+
+    def key(pair: tuple[int, model.Visit]) -> tuple[dt.datetime, int]:
+        at = pair[1].started_at
+        return (at.replace(tzinfo=None) if mixed else at), pair[0]
+
+    mine = key((index, visit))
     return sorted(
-        ((i, v) for i, v in enumerate(survey.visits) if v.started_at < visit.started_at),
-        key=lambda pair: pair[1].started_at,
+        (pair for pair in enumerate(survey.visits) if key(pair) < mine),
+        key=key,
         reverse=True,
     )
 

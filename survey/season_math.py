@@ -255,7 +255,8 @@ def evaluate(
 
 #: Step of the downward scan in the search for the lowest month, K.
 SEARCH_STEP_K = 1.0
-#: The refinement stops when the step that holds the answer is this narrow, K.
+#: The answer is within this of the true crossing, K (:func:`refine` keeps to a quarter of
+#: it: it stops with the ends that hold the crossing half this apart, and answers their middle).
 SEARCH_TOLERANCE_K = 1e-4
 
 

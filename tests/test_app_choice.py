@@ -107,3 +107,40 @@ async def test_a_room_renamed_to_another_rooms_name_is_refused_and_kept(tmp_path
         assert app.editor.survey.rooms[0].name == first.name
     assert path.read_bytes() == before
     assert store.load_survey(path).rooms[0].name == first.name
+
+
+async def test_a_visit_chosen_is_the_visit_edited(tmp_path):
+    """On a survey of three visits, the visit screen shows the last; visit 1 chosen from
+    the list, its label edited: visit 1's label changes in the file and visit 3's does not
+    (the screen is built again on the visit chosen, not kept on the one shown before)."""
+    import json
+
+    from textual.widgets import Input
+
+    source = EXAMPLE.parent / "basement-burst-pipe-drying.json"
+    path = tmp_path / source.name
+    shutil.copyfile(source, path)
+    labels_before = [v["label"] for v in json.loads(path.read_text(encoding="utf-8"))["visits"]]
+    assert len(labels_before) == 3
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        app.editor.visit_index = 2
+        app.go("visit")
+        await pilot.pause()
+        choice = app.screen.query_one("#visit-choice", Choice)
+        choice.focus()
+        await pilot.pause()
+        await pilot.press("enter", "home", "enter")  # open the list, the first visit
+        await pilot.pause()
+        await pilot.pause()
+        assert app.editor.visit_index == 0
+        box = app.screen.query_one("#visit-label-input", Input)
+        assert box.value == labels_before[0]
+        box.focus()
+        box.value = "Day 1, edited"
+        await pilot.press("enter")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+    labels = [v["label"] for v in json.loads(path.read_text(encoding="utf-8"))["visits"]]
+    assert labels == ["Day 1, edited", *labels_before[1:]]

@@ -123,7 +123,8 @@ async def test_volume_occupants_and_a_second_surface_are_taken(tmp_path):
     """The advice asks for the occupants or the room volume to size a dehumidifier; the
     screen takes both (volume as dimensions, with a decimal comma), and a second surface.
     21 °C and 75 % (dew point 16.4 °C, CoolProp) with 2 people: the load is 2 × 50 g/h
-    (``moisture_person_sedentary_g_per_h``, our choice in the published 40-60 g/h), 100 g/h × 24 h =
+    (``moisture_person_sedentary_g_per_h``: our choice in a published 40-60 g/h, from a
+    building-science text quoting the BS 5250 tables, the originals from memory), 100 g/h × 24 h =
     2.4 L/day. A volume out of the file's range (0.5 m³; 1 to 100 000 allowed) is named in
     its field and left out."""
     dew = CP.HAPropsSI("D", "T", 294.15, "R", 0.75, "P", 101325.0) - 273.15

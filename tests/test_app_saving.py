@@ -317,8 +317,8 @@ async def test_the_open_survey_opened_again_stays_editable_under_its_lock(tmp_pa
 
 async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
     """A room with no air reading: 20 °C typed and committed with no RH is kept on screen
-    but cannot be saved. Ctrl+Q then asks; n stays (the 20 °C still there), y quits, and the
-    file holds no air reading for the room (nothing half-saved)."""
+    but cannot be saved. Ctrl+Q then asks; n stays (the 20 °C still there); Ctrl+Q twice
+    quits, and the file holds no air reading for the room (nothing half-saved)."""
     import json
 
     from survey.app.air import AirPair
@@ -348,7 +348,9 @@ async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
         assert app.is_running and app.screen.query_one(AirPair).temp_c == 20.0
         await pilot.press("ctrl+q")
         await settle(pilot, app)
-        await pilot.press("y")
+        await pilot.press(
+            "ctrl+q"
+        )  # asked again: a second Ctrl+Q is the answer, not a second question
         await settle(pilot, app)
         assert app.editor is None  # quit: the survey closed, its lock let go
         assert not store.lock_path(path).exists()

@@ -796,3 +796,31 @@ def test_this_visits_dry_standard_comes_before_an_earlier_visits():
     first.rooms[0].materials.append(copy.deepcopy(own))
     judged = evaluate.assess_visit(survey, 1).findings.rooms[0].materials[0]
     assert (judged.dry_standard, judged.dry_standard_visit) == (18.0, 0)
+
+
+def test_visits_with_and_without_a_time_zone_still_find_an_earlier_dry_standard():
+    """The first visit's start written with a time zone, the second's without (a file the
+    store accepts): the visits order by the wall-clock times written, and the second visit
+    is judged against the first visit's dry standard (20, goal 22) rather than failing."""
+    from survey import evaluate
+
+    survey = _survey([60.0, 21.0], [0, 1])
+    first, second = survey.visits
+    first.started_at = first.started_at.replace(tzinfo=dt.UTC)
+    second.rooms[1].materials = []
+    judged = evaluate.assess_visit(survey, 1).findings.rooms[0].materials[0]
+    assert (judged.dry_standard, judged.dry_standard_visit) == (20.0, 0)
+    point = _only_point(survey)
+    assert point.goal == pytest.approx(22.0) and point.goal_met is True
+
+
+def test_two_visits_begun_at_the_same_time_order_as_in_the_file():
+    """Two visits with the same start: the one later in the file sees the earlier one's
+    dry standard, not the other way round."""
+    from survey import evaluate
+
+    survey = _survey([60.0, 21.0], [0, 0])
+    first, second = survey.visits
+    second.rooms[1].materials = []
+    assert evaluate.earlier_visits(survey, second) == [(0, first)]
+    assert evaluate.earlier_visits(survey, first) == []

@@ -1173,9 +1173,10 @@ def test_one_worst_surface_for_every_face():
 def test_the_narrow_surface_rh_cell_keeps_the_band_and_leaves_what_forms_to_the_state():
     """Room air 17.5 °C and 72 % (dew point 12.4 °C, CoolProp): a pane at 6.0 °C is past
     saturation ("≥100 %", the state cell says water forms), a wall at 13.1 °C near 96 % with
-    a band reaching 100 % ("≥…"), an internal wall at 20.0 °C near 62 % (its band in brief,
-    the same numbers as the report's longer text; surface RH at constant humidity ratio from
-    CoolProp)."""
+    a band reaching 100 % ("≥…"), an internal wall at 20.0 °C near 62 % (surface RH at
+    constant humidity ratio from CoolProp). The band itself is the assessment's (checked
+    against a Monte Carlo in tests/test_assess_uncertainty.py); here only its brief form is
+    checked, against the report's longer text."""
     from survey.words import screens
 
     dew = HAPropsSI("D", "T", 290.65, "R", 0.72, "P", 101325.0) - 273.15

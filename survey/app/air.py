@@ -79,8 +79,10 @@ class AirPair(Vertical):
         if self.reading is not None or (self.temp_c is None) == (self.rh_pct is None):
             return None
         if self.temp_c is not None:
-            return f"an air temperature of {self.temp_c:g} °C with no RH"
-        return f"an RH of {self.rh_pct:g} % with no air temperature"
+            unit = "°C" if self.system == "si" else "°F"
+            shown = walk.shown("temperature", self.temp_c, self.system)
+            return f"an air temperature of {shown} {unit} with no RH"
+        return f"an RH of {walk.shown('rh', self.rh_pct, self.system)} % with no air temperature"
 
     def _build(self, temp_c: float | None, rh_pct: float | None) -> model.AirReading | None:
         if temp_c is None or rh_pct is None:

@@ -32,7 +32,7 @@ def key_text(binding: Binding) -> str:
 
 def sections() -> list[tuple[str, list[Binding]]]:
     """Each screen's (or widget's) title and its bindings, as the help screen lists them."""
-    from survey.app import chart, main, report_view, room, rooms, start, tables, walk
+    from survey.app import chart, main, quick, report_view, room, rooms, start, tables, walk
     from survey.app.fields import Tick
 
     return [
@@ -40,7 +40,8 @@ def sections() -> list[tuple[str, list[Binding]]]:
         ("Start screen", start.StartScreen.BINDINGS),
         ("Walk screens", walk.WalkScreen.BINDINGS),
         ("Room list", rooms.RoomListScreen.BINDINGS + tables.RoomTable.BINDINGS),
-        ("Room (and the quick check)", room.RoomScreen.BINDINGS),
+        ("Room", room.RoomScreen.BINDINGS),
+        ("Quick check", quick.QuickScreen.BINDINGS),
         ("Surface table", tables.SurfaceTable.BINDINGS),
         ("Material table", tables.MaterialTable.BINDINGS),
         ("Equipment table", tables.EquipmentTable.BINDINGS),

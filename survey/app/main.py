@@ -71,6 +71,8 @@ class SurveyApp(App):
         self.recents = Recents(self.data_dir)
         self.clock = clock or dt.datetime.now
         self.editor: Editor | None = None
+        #: The room of the open survey shown last (the room list's cursor goes back to it).
+        self.last_room_id: str | None = None
         self.status_text = "No survey open."
         self.status_kind = ""
         self._start = (path, create, demo, fresh_demo)
@@ -142,10 +144,20 @@ class SurveyApp(App):
 
     def open_survey(self, path: Path) -> bool:
         if self._is_open(path):
-            # Opened again (from the recent list, say): let go of it first, or the new
-            # session would find this one's lock and open read-only, and closing this one
-            # would then remove the lock the file is edited under.
-            self.close_survey()
+            editor = self.editor
+            assert editor is not None
+            if not editor.read_only:
+                # Opened again (from the recent list, say) while it is open here for editing:
+                # go back to it. Reopening would read the file again, and edits a failing
+                # save still holds would be lost; and the new session would find this one's
+                # lock and open read-only.
+                self.show_status(f"{editor.path.name} is open here already.")
+                self.go("rooms")
+                last = self.last_room_id
+                if last is not None and any(r.id == last for r in editor.survey.rooms):
+                    self.open_room(last)
+                return True
+            self.close_survey()  # open read-only here: let go, and try the lock again
         try:
             editor = Editor.open(path)
         except SurveyFileError as exc:
@@ -166,6 +178,7 @@ class SurveyApp(App):
     def _begin(self, editor: Editor, new: bool = False) -> None:
         self.close_survey()
         self.editor = editor
+        self.last_room_id = None
         assert editor.path is not None
         recent = self.recents.find(editor.path)
         self.recents.remember(
@@ -239,9 +252,14 @@ class SurveyApp(App):
             self.pop_screen()
             popped = True
         top = self.screen_stack[-1] if len(self.screen_stack) == base + 1 else None
-        if type(top) is screen and getattr(top, "opened_with", None) is self.editor:
-            # the same screen of the same survey: kept, with its cursor and undo (shown
-            # again, it redraws what another screen changed)
+        if (
+            getattr(screen, "KEPT", False)
+            and type(top) is screen
+            and getattr(top, "opened_with", None) is self.editor
+        ):
+            # a screen that keeps its place (the room list: its cursor and undo), of the same
+            # survey: kept, and redrawn for what another screen changed. Others (the visit
+            # and site screens, built on the visit chosen and the unit system) are built again.
             if not popped:
                 top.refresh_view()
             return
@@ -274,7 +292,6 @@ class SurveyApp(App):
             self.push_screen(RoomScreen(room_id))
         if editor.path is not None:
             self.recents.remember(editor.path, editor.survey.site.reference, room_id)
-        #: The room shown last: the room list's cursor goes back to it.
         self.last_room_id = room_id
 
     def ensure_visit(self) -> None:
@@ -367,6 +384,12 @@ class SurveyApp(App):
         ]
         if halves and not self._quitting:
             from survey.app.dialogs import ConfirmDialog
+
+            if isinstance(self.screen, ConfirmDialog):  # asked already: Ctrl+Q again quits
+                self._quitting = True
+                self.screen.dismiss(False)
+                self.call_next(self.action_quit)
+                return
 
             def answered(yes: bool | None) -> None:
                 if yes:

@@ -194,9 +194,9 @@ class QuickScreen(Screen):
         except InputError as exc:  # the fields are held to the core's domain: a safety net
             message = self.query_one("#quick-message", Static)
             if self._shown_result:
-                message.update(
-                    plain(f"Not judged: {exc}; the result below is for the last readings judged.")
-                )
+                earlier = str(message.render()).strip()  # what gather() said of the fields
+                said = f"Not judged: {exc}; the result below is for the last readings judged."
+                message.update(plain(f"{earlier} {said}".strip()))
             else:
                 target.update(plain(f"Not judged: {exc}."))
             return

@@ -20,6 +20,8 @@ from survey.words import screens
 class RoomListScreen(walk.WalkScreen):
     TITLE_TEXT = "Rooms"
     PARENT = "visit"
+    #: Kept when shown again (``SurveyApp.go``): the cursor stays, and the undo of a deletion.
+    KEPT = True
     BINDINGS = [
         Binding("ctrl+n", "next_room", "Next room to read", id="next_room"),
         Binding("c", "chart", "Chart", id="rooms_chart"),
@@ -51,7 +53,7 @@ class RoomListScreen(walk.WalkScreen):
 
     def on_screen_resume(self) -> None:
         # (the walk screen's own handler then redraws, keeping the row chosen here)
-        last = getattr(self.app, "last_room_id", None)
+        last = self.app.last_room_id
         ids = [r.id for r in self.editor.survey.rooms]
         if last in ids:
             self.query_one(RoomTable).move_cursor(row=ids.index(last))

@@ -116,6 +116,8 @@ def surface_rh_cell(surface: assess.SurfaceFinding) -> str:
     low, high = surface.surface_rh_low_pct, surface.surface_rh_high_pct
     if rh >= 100.0:
         return "≥100 %"
+    if rh >= 99.5:  # not "100 %" beside "≥100 %" for a surface that is not there yet
+        return f"{rh:.1f} %"
     if f"{low:.0f}" == f"{min(high, 100.0):.0f}" == f"{rh:.0f}":
         return f"{rh:.0f} %"
     if high >= 100.0:

@@ -446,7 +446,14 @@ def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = Non
         )
         return [*lines, "No surface projected: " + "; ".join(reasons) + "."]
     today = worst.today_surface_rh_pct
-    today_said = "100 % or more" if today >= 100.0 else f"{today:.0f} %"  # as the tables say it
+    # as the tables say it: never "100 %" for a surface short of saturation
+    today_said = (
+        "100 % or more"
+        if today >= 100.0
+        else f"{today:.1f} %"
+        if today >= 99.5
+        else f"{today:.0f} %"
+    )
     line = (
         f"{visible(worst.label)}: {today_said} today, "
         f"{design_rh_text(worst)} in the month: {state_text(worst, room, None, d)}."
