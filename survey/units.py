@@ -524,6 +524,8 @@ def parse_volume_or_dimensions(
     if len(parts) != 3 or not all(p.strip() for p in parts):
         raise InputError(field, text, "a volume (30, 30 m3) or three dimensions: 4.2 x 3.1 x 2.4")
     sides = [parse_length(p, field, system) for p in parts]
+    if not all(side > 0.0 for side in sides):  # two negative sides would multiply out
+        raise InputError(field, text, "three dimensions, each above 0: 4.2 x 3.1 x 2.4")
     return sides[0] * sides[1] * sides[2]
 
 

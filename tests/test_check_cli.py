@@ -301,7 +301,12 @@ def test_room_volume_as_dimensions(check, given, units, m3):
 
 @pytest.mark.parametrize(
     ("given", "said"),
-    [("4.2 x 3.1", "three dimensions"), ("0.1x0.1x0.1", "read as 0.001 m³"), ("4 x a x 2", "a")],
+    [
+        ("4.2 x 3.1", "three dimensions"),
+        ("0.1x0.1x0.1", "read as 0.001 m³"),
+        ("4 x a x 2", "a"),
+        ("-2 x -3 x 4", "each above 0"),  # two negative sides would multiply out to 24 m³
+    ],
 )
 def test_bad_room_dimensions_exit_2_with_one_line(check, given, said):
     code, _, err = check("--air-temp", "20", "--rh", "60", "--room-volume", given)
