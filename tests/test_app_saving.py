@@ -356,3 +356,57 @@ async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
         assert not store.lock_path(path).exists()
     saved = json.loads(path.read_text(encoding="utf-8"))
     assert saved["visits"][0]["rooms"][0].get("air") is None
+
+
+async def test_an_air_reading_emptied_is_deleted_only_when_confirmed_and_u_puts_it_back(tmp_path):
+    """The demo's main bedroom holds 17.5 °C, 72 %. The temperature emptied and committed
+    asks; n keeps the reading (the field shows it again, the file unchanged). Asked again,
+    y deletes it (the file holds no air reading for the room, the panel says so); u from
+    the surfaces table puts it back, in the file and in both fields."""
+    import json
+
+    from survey.app.dialogs import ConfirmDialog
+
+    path = tmp_path / "demo.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    before = path.read_bytes()
+    room_id = json.loads(before)["visits"][0]["rooms"][0]["room"]
+    app = make_app(path, data_dir=tmp_path / "data")
+
+    def stored_air():
+        return json.loads(path.read_text(encoding="utf-8"))["visits"][0]["rooms"][0].get("air")
+
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(room_id)
+        await settle(pilot, app)
+        box = app.screen.query_one("#room-temp-input")
+        assert box.value == "17.5"
+        box.focus()
+        box.value = ""
+        await pilot.press("enter")
+        await settle(pilot, app)
+        assert isinstance(app.screen, ConfirmDialog)
+        assert "17.5 °C, 72 %" in app.screen.question
+        await pilot.press("n")
+        await settle(pilot, app)
+        assert app.screen.query_one("#room-temp-input").value == "17.5"
+        assert path.read_bytes() == before
+
+        box = app.screen.query_one("#room-temp-input")
+        box.focus()
+        box.value = ""
+        await pilot.press("enter")
+        await settle(pilot, app)
+        await pilot.press("y")
+        await settle(pilot, app)
+        assert stored_air() is None
+        assert app.screen.query_one("#room-rh-input").value == ""
+
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("u")
+        await settle(pilot, app)
+        air = stored_air()
+        assert (air["dry_bulb_c"], air["rh_pct"]) == (17.5, 72.0)
+        assert app.screen.query_one("#room-temp-input").value == "17.5"
+        assert app.screen.query_one("#room-rh-input").value == "72"

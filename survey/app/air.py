@@ -17,7 +17,8 @@ RH_WARNING_PCT = 98.0
 
 class AirPair(Vertical):
     """Temperature and RH of one reading; ``save(AirReading) -> warning`` is called once
-    both parse."""
+    both parse. With ``clear(AirReading) -> message`` given, a field emptied and committed
+    asks whether to delete the stored reading (the room's undo puts it back)."""
 
     class Preview(Message):
         def __init__(self, pair: AirPair, reading: model.AirReading | None) -> None:
@@ -34,8 +35,10 @@ class AirPair(Vertical):
         *,
         disabled: bool = False,
         previous: model.AirReading | None = None,
+        clear=None,
     ) -> None:
         super().__init__(id=f"{name}-air", classes="air-pair")
+        self.clear = clear
         self.key_name = name
         self.system = system
         self.save = save
@@ -52,7 +55,7 @@ class AirPair(Vertical):
         yield Field(
             f"Air temp. {unit}",
             walk.shown("temperature", self.temp_c, self.system),
-            walk.required(
+            self._emptiable(
                 "air temperature",
                 walk.temperature("air temperature", self.system, psychro.check_dry_bulb),
             ),
@@ -65,12 +68,51 @@ class AirPair(Vertical):
         yield Field(
             "RH %",
             walk.shown("rh", self.rh_pct, self.system),
-            walk.required("relative humidity", walk.rh("relative humidity")),
+            self._emptiable("relative humidity", walk.rh("relative humidity")),
             self._commit("rh"),
             id=f"{self.key_name}-rh",
             live=True,
             disabled=self.read_only,
             previous="" if prev is None else f"last {prev.rh_pct:.0f} %",
+        )
+
+    def _emptiable(self, name: str, parse):
+        """A field's parser: a value is needed, unless the reading may be cleared (empty
+        text is then None, and the commit asks)."""
+        return walk.optional(parse) if self.clear is not None else walk.required(name, parse)
+
+    def show_reading(self, reading: model.AirReading | None) -> None:
+        """Show ``reading`` (stored elsewhere, as by an undo) in both fields."""
+        self.reading = reading
+        self.temp_c = None if reading is None else reading.dry_bulb_c
+        self.rh_pct = None if reading is None else reading.rh_pct
+        self.query_one(f"#{self.key_name}-temp", Field).set_text(
+            walk.shown("temperature", self.temp_c, self.system)
+        )
+        self.query_one(f"#{self.key_name}-rh", Field).set_text(
+            walk.shown("rh", self.rh_pct, self.system)
+        )
+
+    def _ask_clear(self) -> None:
+        from survey.app.dialogs import ConfirmDialog
+
+        reading = self.reading
+        assert reading is not None and self.clear is not None
+        shown = (
+            f"{walk.shown('temperature', reading.dry_bulb_c, self.system)} "
+            f"{'°C' if self.system == 'si' else '°F'}, {reading.rh_pct:g} %"
+        )
+
+        def answered(yes: bool | None) -> None:
+            if yes:
+                message = self.clear(reading)
+                self.show_reading(None)
+                self.app.show_status(message)
+            else:
+                self.show_reading(reading)
+
+        self.app.push_screen(
+            ConfirmDialog(f"Delete this air reading ({shown})? u puts it back."), answered
         )
 
     def unsaved_half(self) -> str | None:
@@ -91,7 +133,16 @@ class AirPair(Vertical):
         return walk.checked(base, "air reading", dry_bulb_c=temp_c, rh_pct=rh_pct)
 
     def _commit(self, which: str):
-        def commit(value: float) -> str:
+        def commit(value: float | None) -> str:
+            if value is None:  # emptied, where the reading may be cleared
+                if self.reading is not None:
+                    self._ask_clear()
+                    return "asked whether to delete the reading; it stays until you answer y"
+                if which == "temp":
+                    self.temp_c = None
+                else:
+                    self.rh_pct = None
+                return ""
             temp = value if which == "temp" else self.temp_c
             rh = value if which == "rh" else self.rh_pct
             try:

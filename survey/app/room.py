@@ -149,6 +149,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     self._set_air,
                     disabled=ro,
                     previous=before.air if before else None,
+                    clear=self._clear_air,
                 )
                 yield Static(Text("Surfaces", style="bold"))
                 yield SurfaceTable(id="surfaces")
@@ -396,6 +397,13 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         self._replace_record("air reading", air=reading)
         self._changed()
         return warning
+
+    def _clear_air(self, reading: model.AirReading) -> str:
+        """Delete the room's air reading on this visit (asked first; u puts it back)."""
+        self._replace_record("air reading", air=None)
+        self.undo_stack.append(("air", 0, reading))
+        self._changed()
+        return "Deleted the air reading — u puts it back."
 
     @on(AirPair.Preview)
     def _preview_air(self, event: AirPair.Preview) -> None:

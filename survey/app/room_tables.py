@@ -9,6 +9,7 @@ from textual.widgets.data_table import RowDoesNotExist
 
 from survey import evaluate, model
 from survey.app import equipment, judging, walk
+from survey.app.air import AirPair
 from survey.app.fields import plain
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
@@ -233,6 +234,12 @@ class RoomTables:
             self.app.show_status("Nothing to undo.")
             return
         kind, index, removed = self.undo_stack.pop()
+        if kind == "air":
+            self._replace_record("air reading", air=removed)
+            self._changed()
+            self.query_one(AirPair).show_reading(removed)
+            self.app.show_status("Put back the air reading.")
+            return
         items = list(getattr(self.record(create=True), kind))
         items.insert(min(index, len(items)), removed)
         self._replace_record(kind, **{kind: items})
