@@ -402,6 +402,8 @@ async def test_an_air_reading_emptied_is_deleted_only_when_confirmed_and_u_puts_
         await settle(pilot, app)
         assert stored_air() is None
         assert app.screen.query_one("#room-rh-input").value == ""
+        # the undo hint stays beside the save that followed, not replaced by it
+        assert app.status_text.startswith("Deleted the air reading — u puts it back. Saved ")
 
         app.screen.query_one("#surfaces").focus()
         await pilot.press("u")

@@ -75,6 +75,8 @@ class SurveyApp(App):
         self.last_room_id: str | None = None
         self.status_text = "No survey open."
         self.status_kind = ""
+        #: A plain note shown since the last save (see ``on_save_done``).
+        self._note: str | None = None
         self._start = (path, create, demo, fresh_demo)
         self._retry_timer = None
         #: Quitting was confirmed (half a reading on screen is let go).
@@ -351,7 +353,11 @@ class SurveyApp(App):
             if self._retry_timer is not None:
                 self._retry_timer.stop()
                 self._retry_timer = None
-            self.show_status(f"Saved {outcome.at:%H:%M:%S}.", "saved")
+            saved = f"Saved {outcome.at:%H:%M:%S}."
+            # a note shown since the last save (a deletion's "u puts it back") stays beside
+            # the first save after it, not replaced by it at once
+            note = self._note if self._note is not None else ""
+            self.show_status(f"{note} {saved}".strip(), "saved")
         else:
             self.show_status(
                 f"NOT SAVED {outcome.at:%H:%M:%S}: {outcome.problem}. Your "
@@ -365,6 +371,8 @@ class SurveyApp(App):
     def show_status(self, text: str, kind: str = "") -> None:
         from survey.app.status import StatusBar
 
+        # a plain note waits for the next save to be shown beside it; anything else ends it
+        self._note = text if kind == "" else None
         self.status_text, self.status_kind = text, kind
         for bar in self.screen.query(StatusBar):
             bar.show(text, kind)
