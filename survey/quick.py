@@ -12,11 +12,44 @@ from typing import TYPE_CHECKING
 
 import msgspec
 
-from survey import advise, assess, psychro
+from survey import advise, assess, domain, psychro, units
 from survey import thresholds as th
+from survey.errors import InputError
 
 if TYPE_CHECKING:
     from survey import season
+
+
+def read_room_volume(
+    text: str, field: str = "room volume", system: units.UnitSystem = "si"
+) -> float:
+    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``, or dimensions multiplied
+    out (``4.2 x 3.1 x 2.4``), within the survey file's range; the message names ``field``,
+    the text as typed and, where a unit was converted, what it was read as."""
+    low, high = domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3
+    allowed = f"room volume must be between {low:g} and {high:g} m³"
+    if "x" in text.lower() or "×" in text:
+        value = units.parse_volume_or_dimensions(text, field, system)
+        if not low <= value <= high:
+            raise InputError(field, text, f"{allowed} (read as {value:.3g} m³)")
+        return value
+    reading = units.read("volume", text, field, system)
+    if not low <= reading.value <= high:
+        raise reading.error(allowed)
+    return reading.value
+
+
+def read_occupants(text: str, field: str = "occupants") -> int:
+    """The usual number of people in the room: a whole number within the survey file's
+    range."""
+    allowed = f"expected a whole number of people from 0 to {domain.OCCUPANTS_MAX}"
+    try:
+        number = units.parse_number(text, field)
+    except InputError:
+        raise InputError(field, text, allowed) from None
+    if number != int(number) or not 0 <= number <= domain.OCCUPANTS_MAX:
+        raise InputError(field, text, allowed)
+    return int(number)
 
 
 class AccuracyGiven(msgspec.Struct, frozen=True):

@@ -10,7 +10,7 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
 from textual.widgets import Input, Label, Select, Static
 
-from survey import assess, domain, psychro, quick, units, words
+from survey import assess, psychro, quick, words
 from survey.app import walk
 from survey.app.fields import Choice, plain
 from survey.app.footer import KeysFooter
@@ -19,68 +19,39 @@ from survey.app.room import USES
 from survey.errors import InputError
 from survey.words import screens
 
-
-def _reader(quantity: str, field: str, check):
-    """A field's parser: the text read as ``quantity`` and held to the core's domain for it
-    (so "210" in the air field is a value that does not read, named there, not a result
-    replaced by the core's refusal)."""
-    return lambda text: units.read(quantity, text, field).checked(check)
-
-
-def _volume(text: str) -> float:
-    """A room volume, or its dimensions multiplied out, within the survey file's range."""
-    value = units.parse_volume_or_dimensions(text, "room volume", "si")
-    low, high = domain.ROOM_VOLUME_MIN_M3, domain.ROOM_VOLUME_MAX_M3
-    if not low <= value <= high:
-        raise InputError(
-            "room volume", text, f"room volume must be between {low:g} and {high:g} m³"
-        )
-    return value
-
-
-def _occupants(text: str) -> int:
-    """The usual number of people in the room, a whole number within the file's range."""
-    value = units.parse_number(text, "occupants")
-    if value != int(value) or not 0 <= value <= domain.OCCUPANTS_MAX:
-        raise InputError(
-            "occupants", text, f"a whole number of people from 0 to {domain.OCCUPANTS_MAX}"
-        )
-    return int(value)
-
-
 #: (id, label, parser, needed; a label with a unit ends with it)
 FIELDS = [
     (
         "air",
         "Air temp. °C",
-        _reader("temperature", "air temperature", psychro.check_dry_bulb),
+        walk.temperature("air temperature", "si", psychro.check_dry_bulb),
         True,
     ),
-    ("rh", "RH %", _reader("relative_humidity", "relative humidity", psychro.check_rh), True),
+    ("rh", "RH %", walk.rh("relative humidity"), True),
     (
         "surface",
         "Surface temp. °C",
-        _reader("temperature", "surface temperature", psychro.check_surface_temp),
+        walk.temperature("surface temperature", "si", psychro.check_surface_temp),
         False,
     ),
     (
         "surface2",
         "2nd surface °C",
-        _reader("temperature", "second surface temperature", psychro.check_surface_temp),
+        walk.temperature("second surface temperature", "si", psychro.check_surface_temp),
         False,
     ),
-    ("volume", "Volume m³", lambda text: _volume(text), False),
-    ("occupants", "Occupants", lambda text: _occupants(text), False),
+    ("volume", "Volume m³", quick.read_room_volume, False),
+    ("occupants", "Occupants", quick.read_occupants, False),
     (
         "outdoor",
         "Outdoor temp. °C",
-        _reader("temperature", "outdoor temperature", psychro.check_dry_bulb),
+        walk.temperature("outdoor temperature", "si", psychro.check_dry_bulb),
         False,
     ),
     (
         "outdoor_rh",
         "Outdoor RH %",
-        _reader("relative_humidity", "outdoor RH", psychro.check_rh),
+        walk.rh("outdoor RH"),
         False,
     ),
 ]

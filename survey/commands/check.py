@@ -30,16 +30,21 @@ from survey.commands.check_parse import (
     _design_month,
     _option,
     _parse_mould_area,
-    _parse_occupants,
     _parse_rh_accuracy,
-    _parse_volume,
     _plausibility,
     _pressure,
     _read_option,
     _surfaces,
 )
 from survey.errors import InputError
-from survey.quick import AccuracyGiven, QuickInput, QuickResult, judge
+from survey.quick import (
+    AccuracyGiven,
+    QuickInput,
+    QuickResult,
+    judge,
+    read_occupants,
+    read_room_volume,
+)
 
 
 def register(subparsers: argparse._SubParsersAction) -> None:
@@ -89,10 +94,12 @@ def gather(args: argparse.Namespace) -> QuickInput:
     ):
         if value is not None and (warning := _plausibility(option, text, value, system)):
             warnings.append(warning)
-    volume = None if args.room_volume is None else _parse_volume(args.room_volume, system)
-    occupants = (
-        None if args.occupants is None else _option("--occupants", args.occupants, _parse_occupants)
+    volume = (
+        None
+        if args.room_volume is None
+        else read_room_volume(args.room_volume, "--room-volume", system)
     )
+    occupants = None if args.occupants is None else read_occupants(args.occupants, "--occupants")
     target = None
     if args.target_rh is not None:
         target = _option("--target-rh", args.target_rh, lambda t: units.parse_rh(t, "--target-rh"))

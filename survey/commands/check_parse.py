@@ -14,9 +14,6 @@ from survey.errors import InputError
 if TYPE_CHECKING:
     from survey import season
 
-VOLUME_MIN_M3 = domain.ROOM_VOLUME_MIN_M3
-VOLUME_MAX_M3 = domain.ROOM_VOLUME_MAX_M3
-OCCUPANTS_MAX = domain.OCCUPANTS_MAX
 #: A bare SI air temperature above this is more likely °F typed without --units ip: a
 #: warning (not an error) says how it was read. A plausibility cue of this face only.
 PLAUSIBLE_SI_AIR_TEMP_MAX_C = 40.0
@@ -101,21 +98,6 @@ def _read_option(
     return reading.value if check is None else reading.checked(check)
 
 
-def _parse_volume(text: str, system: units.UnitSystem) -> float:
-    """A room volume in m³ from ``30``, ``30 m3``, ``1060 ft3``, or dimensions multiplied out
-    (``4.2 x 3.1 x 2.4``); pint only for a suffix."""
-    allowed = f"room volume must be between {VOLUME_MIN_M3:g} and {VOLUME_MAX_M3:g} m³"
-    if "x" in text.lower() or "×" in text:
-        value = units.parse_volume_or_dimensions(text, "--room-volume", system)
-        if not VOLUME_MIN_M3 <= value <= VOLUME_MAX_M3:
-            raise InputError("--room-volume", text, f"{allowed} (read as {value:.3g} m³)")
-        return value
-    reading = units.read("volume", text, "--room-volume", system)
-    if not VOLUME_MIN_M3 <= reading.value <= VOLUME_MAX_M3:
-        raise reading.error(allowed)
-    return reading.value
-
-
 def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
     """A visible-mould area in m² (a bare number is m² in si, ft² in ip; "m2", "ft2",
     "sq ft" may follow it), above 0 and up to the survey file's limit."""
@@ -131,17 +113,6 @@ def _parse_mould_area(text: str, system: units.UnitSystem = "si") -> float:
     if math.isnan(area) or not 0.0 < area <= domain.MOULD_AREA_MAX_M2:
         raise InputError("--mould-area", text, allowed)
     return area
-
-
-def _parse_occupants(text: str) -> int:
-    allowed = f"expected a whole number of people from 0 to {OCCUPANTS_MAX}"
-    try:
-        number = units.parse_number(text, "--occupants")
-    except InputError:
-        raise InputError("--occupants", text, allowed) from None
-    if number != math.floor(number) or not 0 <= number <= OCCUPANTS_MAX:
-        raise InputError("--occupants", text, allowed)
-    return int(number)
 
 
 def _parse_rh_accuracy(text: str) -> float:
