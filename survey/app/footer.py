@@ -104,28 +104,27 @@ class KeysFooter(Widget):
         room left is passed over for the shorter ones after it), and the command palette's
         at the right end."""
         palette = self.app.COMMAND_PALETTE_BINDING
-        pieces = [self._piece(k) for k in keys if k.key != palette]
-        right = [self._piece(k) for k in keys if k.key == palette]
-        room = width - sum(p.cell_length for p in right)
-        left: list[Content] = []
+        right = [(k, self._piece(k)) for k in keys if k.key == palette]
+        room = width - sum(piece.cell_length for _, piece in right)
+        left: list[tuple[ShownKey, Content]] = []
         used = 0
-        kept: list[ShownKey] = []
-        for key, piece in zip([k for k in keys if k.key != palette], pieces, strict=True):
+        for key in keys:
+            if key.key == palette:
+                continue
+            piece = self._piece(key)
             if used + piece.cell_length > room:
                 continue  # too long for what is left: a shorter one after it may fit
-            left.append(piece)
-            kept.append(key)
+            left.append((key, piece))
             used += piece.cell_length
         gap = max(0, room - used)
         self._spans = []
         x = 0
-        order = kept + [k for k in keys if k.key == palette]
-        for key, piece in zip(order, [*left, *right], strict=True):
-            if key.key == palette:
+        for n, (key, piece) in enumerate(left + right):
+            if n == len(left):
                 x += gap
             self._spans.append((x, x + piece.cell_length, key.key))
             x += piece.cell_length
-        return Content.assemble(*left, " " * gap, *right)
+        return Content.assemble(*(p for _, p in left), " " * gap, *(p for _, p in right))
 
     def on_click(self, event: events.Click) -> None:
         """A click on a key presses it."""
