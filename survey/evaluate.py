@@ -166,7 +166,7 @@ def _dry_standards(
     room_visit: model.RoomVisit,
     rooms: dict[str, model.Room],
     references: list[model.RoomVisit] | None = None,
-    earlier: Sequence[tuple[int, model.Visit]] = (),
+    earlier: Sequence[EarlierVisit] = (),
 ) -> dict[tuple[str, str], DryStandard]:
     """Dry-standard readings by (material, scale): this room's first, then the visit's
     reference rooms'; then, for a material not read so on this visit, the same on the
@@ -189,33 +189,42 @@ def _dry_standards(
     wanted = {
         (m.material.strip().lower(), m.scale) for m in room_visit.materials if not m.dry_standard
     }
-    for index, before in earlier:
+    for index, before, refs in earlier:
         if wanted <= standards.keys():
             break
         own = before.room_visit(room_visit.room)
-        refs = _reference_visits(before, rooms)
         take((*((own,) if own is not None else ()), *(rv for rv in refs if rv is not own)), index)
     return standards
 
 
-def earlier_visits(survey: model.Survey, visit: model.Visit) -> list[tuple[int, model.Visit]]:
-    """The visits begun before ``visit`` (at the same time: those before it in the file),
-    with their indexes, latest first. Where some visits give a time zone and others do not,
-    start times are compared as the wall-clock times written (as drying progress reads
-    them), so such a file still orders."""
-    index = next((i for i, v in enumerate(survey.visits) if v is visit), len(survey.visits))
-    mixed = len({v.started_at.tzinfo is None for v in (*survey.visits, visit)}) > 1
+class EarlierVisit(NamedTuple):
+    """A visit begun before the one judged: its index, the visit, its reference rooms'
+    readings (found once, for all the rooms judged)."""
 
-    def key(pair: tuple[int, model.Visit]) -> tuple[dt.datetime, int]:
-        at = pair[1].started_at
-        return (at.replace(tzinfo=None) if mixed else at), pair[0]
+    visit_index: int
+    visit: model.Visit
+    references: list[model.RoomVisit]
 
-    mine = key((index, visit))
-    return sorted(
-        (pair for pair in enumerate(survey.visits) if key(pair) < mine),
-        key=key,
-        reverse=True,
-    )
+
+def earlier_visits(
+    survey: model.Survey, visit_index: int, rooms: dict[str, model.Room] | None = None
+) -> list[EarlierVisit]:
+    """The visits begun before visit ``visit_index`` (at the same time: those before it in
+    the file), latest first. Where some visits give a time zone and others do not, start
+    times are compared as the wall-clock times written (as drying progress reads them), so
+    such a file still orders."""
+    if rooms is None:
+        rooms = {r.id: r for r in survey.rooms}
+    visits = survey.visits
+    mixed = len({v.started_at.tzinfo is None for v in visits}) > 1
+
+    def key(index: int) -> tuple[dt.datetime, int]:
+        at = visits[index].started_at
+        return (at.replace(tzinfo=None) if mixed else at), index
+
+    mine = key(visit_index % len(visits))
+    before = sorted((i for i in range(len(visits)) if key(i) < mine), key=key, reverse=True)
+    return [EarlierVisit(i, visits[i], _reference_visits(visits[i], rooms)) for i in before]
 
 
 def _reference_visits(visit: model.Visit, rooms: dict[str, model.Room]) -> list[model.RoomVisit]:
@@ -230,16 +239,22 @@ def room_input(
     entered: dict[str, bool],
     rooms: dict[str, model.Room] | None = None,
     references: list[model.RoomVisit] | None = None,
+    earlier: Sequence[EarlierVisit] | None = None,
 ) -> assess.RoomInput | None:
     """The assessment's input for one room on one visit; None when no air was measured.
-    ``rooms`` (the survey's rooms by id) and ``references`` (the visit's reference-room
-    readings) may be given when many rooms of one visit are judged, so each is found once."""
+    ``rooms`` (the survey's rooms by id), ``references`` (the visit's reference-room
+    readings) and ``earlier`` (:func:`earlier_visits`) may be given when many rooms of one
+    visit are judged, so each is found once; ``earlier`` must be given for a ``visit`` that
+    is not one of the survey's own objects (a candidate copy)."""
     if room_visit.air is None:
         return None
     if rooms is None:
         rooms = {r.id: r for r in survey.rooms}
     room = rooms.get(room_visit.room)
-    standards = _dry_standards(visit, room_visit, rooms, references, earlier_visits(survey, visit))
+    if earlier is None:
+        index = next((i for i, v in enumerate(survey.visits) if v is visit), None)
+        earlier = [] if index is None else earlier_visits(survey, index, rooms)
+    standards = _dry_standards(visit, room_visit, rooms, references, earlier)
 
     def material(reading: model.MaterialReading) -> assess.MaterialInput:
         standard = standards.get((reading.material.strip().lower(), reading.scale))
@@ -334,8 +349,9 @@ def assess_visit(
     room_ids: list[str] = []
     rooms_by_id = {r.id: r for r in survey.rooms}
     references = _reference_visits(visit, rooms_by_id)
+    earlier = earlier_visits(survey, index, rooms_by_id)
     for room_visit in visit.rooms:
-        judged = room_input(survey, visit, room_visit, entered, rooms_by_id, references)
+        judged = room_input(survey, visit, room_visit, entered, rooms_by_id, references, earlier)
         if judged is not None:
             rooms.append(judged)
             room_ids.append(room_visit.room)
@@ -385,7 +401,14 @@ def assess_room(
     )
     rooms_by_id = {r.id: r for r in survey.rooms}
     judged = room_input(
-        survey, visit, record, {}, rooms_by_id, _reference_visits(visit, rooms_by_id)
+        survey,
+        visit,
+        record,
+        {},
+        rooms_by_id,
+        _reference_visits(visit, rooms_by_id),
+        # by index: ``visit`` here is a copy, which is not one of the survey's visits
+        earlier_visits(survey, visit_index, rooms_by_id),
     )
     if judged is None:
         return None

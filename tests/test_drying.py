@@ -822,5 +822,29 @@ def test_two_visits_begun_at_the_same_time_order_as_in_the_file():
     survey = _survey([60.0, 21.0], [0, 0])
     first, second = survey.visits
     second.rooms[1].materials = []
-    assert evaluate.earlier_visits(survey, second) == [(0, first)]
-    assert evaluate.earlier_visits(survey, first) == []
+    assert [(e.visit_index, e.visit) for e in evaluate.earlier_visits(survey, 1)] == [(0, first)]
+    assert evaluate.earlier_visits(survey, 0) == []
+
+
+def test_the_live_judgement_of_a_room_never_takes_its_own_visit_as_an_earlier_one():
+    """The room judged as it is being edited (a candidate record, as the app's panel does):
+    with the room's own dry-standard reading (18) taken out of the candidate, its material
+    is judged against the first visit's reference reading (20, read on visit 1), not against
+    the 18 still stored for this same visit."""
+    from survey import evaluate
+
+    survey = _survey([60.0, 40.0], [0, 1])
+    second = survey.visits[1]
+    second.rooms[1].materials = []
+    own = model.MaterialReading(
+        location="Wall, unaffected end",
+        material="plasterboard",
+        value=18.0,
+        scale="relative",
+        dry_standard=True,
+    )
+    second.rooms[0].materials.append(own)
+    candidate = msgspec.structs.replace(second.rooms[0], materials=second.rooms[0].materials[:1])
+    judged = evaluate.assess_room(survey, 1, "wet", candidate)
+    material = judged.finding.materials[0]
+    assert (material.dry_standard, material.dry_standard_visit) == (20.0, 0)

@@ -285,6 +285,7 @@ def _room_points(
     findings: dict[tuple[int, str], tuple[MaterialFinding, ...]],
     rooms: dict[str, model.Room],
     origin: dt.datetime,
+    earlier: dict[int, list[evaluate.EarlierVisit]],
 ) -> tuple[MaterialPoint, ...]:
     series: dict[PointKey, _PointSeries] = {}
     for index in order:
@@ -295,9 +296,7 @@ def _room_points(
         judged = findings.get((index, room_id))
         # the same lookup the assessment makes: this room, the visit's reference rooms, then
         # the earlier visits' (where the room was judged, its finding's value is taken)
-        standards = evaluate._dry_standards(
-            visit, room_visit, rooms, earlier=evaluate.earlier_visits(survey, visit)
-        )
+        standards = evaluate._dry_standards(visit, room_visit, rooms, earlier=earlier[index])
         readings = [m for m in room_visit.materials if not m.dry_standard]
         for position, reading in enumerate(readings):
             source = standards.get((reading.material.strip().lower(), reading.scale))
@@ -406,6 +405,8 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
     order = _visit_order(survey)
     origin = survey.visits[order[0]].started_at if order else None
     rooms_by_id = {r.id: r for r in survey.rooms}
+    #: each visit's earlier visits, found once for all the rooms
+    earlier = {i: evaluate.earlier_visits(survey, i, rooms_by_id) for i in order}
     findings: dict[tuple[int, str], tuple[MaterialFinding, ...]] = {}
     air: dict[str, list[RoomAir]] = {}
     for index in order:
@@ -455,7 +456,9 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
                 points=(
                     ()
                     if origin is None
-                    else _room_points(survey, order, room.id, findings, rooms_by_id, origin)
+                    else _room_points(
+                        survey, order, room.id, findings, rooms_by_id, origin, earlier
+                    )
                 ),
                 loggers=room_loggers,
                 flued_appliance=(
