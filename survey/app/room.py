@@ -20,7 +20,7 @@ from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
 from survey.words import screens
-from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS
+from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS, standard_visit_said
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
 #: A location's width in the tables (the whole label is in its dialog and the live panel);
@@ -314,11 +314,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     "–"
                     if f is None
                     else DRY_STANDARD_WORDS[f.dry_standard_state]
-                    + (
-                        ""
-                        if f.dry_standard_visit is None
-                        else f" (visit {f.dry_standard_visit + 1}'s)"
-                    )
+                    + standard_visit_said(f.dry_standard_visit)
                     + ("" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
                 )
             last = last_value.get((m.location, m.material))

@@ -28,6 +28,7 @@ from survey.words.cautions import CAUTION_NAMES, caution_text
 from survey.words.display import Display
 from survey.words.report import date_text
 from survey.words.report_room import reading_text
+from survey.words.states import standard_visit_said
 
 # --- the report's section --------------------------------------------------------------------
 
@@ -212,13 +213,7 @@ def dry_standard_cell(point: MaterialPoint, room_names: Mapping[str, str]) -> st
     where = room_names.get(point.dry_standard_room or "", point.dry_standard_room or "")
     value = f"{point.dry_standard:g}"
     text = f"{value} in {where}" if where else value
-    return text + _visit_said(point)
-
-
-def _visit_said(point: MaterialPoint) -> str:
-    """ ", read on visit 1" for a dry standard read on an earlier visit than the latest."""
-    visit = point.dry_standard_visit
-    return "" if visit is None else f", read on visit {visit + 1}"
+    return text + standard_visit_said(point.dry_standard_visit)
 
 
 def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
@@ -232,7 +227,7 @@ def _standard_said(point: MaterialPoint, room_names: Mapping[str, str]) -> str:
     )
     room = point.dry_standard_room or ""
     said = f"{value} in {room_names.get(room, room)}" if room else value
-    return said + _visit_said(point)
+    return said + standard_visit_said(point.dry_standard_visit)
 
 
 def goal_cell(point: MaterialPoint) -> str:

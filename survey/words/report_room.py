@@ -15,6 +15,7 @@ from survey.words.states import (
     USE_PHRASE,
     humidity_class_range_text,
     humidity_class_text,
+    standard_visit_said,
 )
 
 # --- a room ----------------------------------------------------------------------------------
@@ -164,12 +165,7 @@ def dry_standard_text(m: MaterialFinding) -> str:
     """The dry standard; one read on an earlier visit (not read again since) says which."""
     if m.dry_standard is None:
         return "–"
-    text = reading_text(m.dry_standard, m.scale)
-    return (
-        text
-        if m.dry_standard_visit is None
-        else f"{text}, read on visit {m.dry_standard_visit + 1}"
-    )
+    return reading_text(m.dry_standard, m.scale) + standard_visit_said(m.dry_standard_visit)
 
 
 def against_text(m: MaterialFinding) -> str:

@@ -13,7 +13,12 @@ from survey.advise.kinds import (
 )
 from survey.safe_text import visible
 from survey.words.display import Display
-from survey.words.states import USE_PHRASE, humidity_class_range_text, humidity_class_text
+from survey.words.states import (
+    USE_PHRASE,
+    humidity_class_range_text,
+    humidity_class_text,
+    standard_visit_said,
+)
 
 
 def _remove_contaminated(n: RemoveContaminatedNumbers, d: Display) -> str:
@@ -56,7 +61,7 @@ def _remove_contaminated(n: RemoveContaminatedNumbers, d: Display) -> str:
 def _materials(points: tuple[MaterialPoint, ...]) -> str:
     return ", ".join(
         f"{m.label} {m.value:g} against {m.dry_standard:g}"
-        + ("" if m.dry_standard_visit is None else f" read on visit {m.dry_standard_visit + 1}")
+        + standard_visit_said(m.dry_standard_visit)
         + f" (dry once at or below {m.dry_at_or_below:.3g})"
         for m in points
     )

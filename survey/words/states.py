@@ -89,6 +89,14 @@ DRY_STANDARD_WORDS = {
     DryStandardState.ABOVE: "above the dry standard",
     DryStandardState.NO_REFERENCE: "no dry standard given",
 }
+
+
+def standard_visit_said(visit_index: int | None) -> str:
+    """``", read on visit 2"`` for a dry standard read on an earlier visit than the reading
+    judged against it (``visit_index`` as the finding carries it); "" for this visit's."""
+    return "" if visit_index is None else f", read on visit {visit_index + 1}"
+
+
 TIMBER_WORDS = {
     TimberState.DRY: "below the mould range for timber",
     TimberState.MOULD_RANGE: "in the mould range for timber",
