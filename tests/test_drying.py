@@ -772,6 +772,27 @@ def test_a_dry_standard_not_read_again_stands_from_the_visit_it_was_read_on():
     assert dw.dry_standard_cell(point, names) == "25 in Reference room"
 
 
+def test_the_latest_reading_by_time_taken_names_the_point_and_its_standard():
+    """A point's readings are ordered by when each was taken, and the latest one gives the
+    point its name, its standard and where that was read, even where the visits' start
+    times order them otherwise: visit 2 started a day after visit 1, but visit 1's wall was
+    read (taken_at) two days after that. Visit 1 judged it against the reference room's 20,
+    visit 2 against 25 read again on visit 2. The latest reading is visit 1's, so the goal is
+    22 (20 × 1.1) and its name is as written then. (The point's name and standard were once
+    taken from the last visit by start time while its latest reading was by time taken.)"""
+    survey = _survey([40.0, 30.0], [0, 1])
+    first, second = survey.visits
+    first.rooms[0].materials[0].taken_at = T0 + dt.timedelta(days=3)
+    first.rooms[0].materials[0].location = "WALL, 0.1 m"
+    second.rooms[1].materials[0].value = 25.0
+    point = _only_point(survey)
+    assert [r.visit_index for r in point.readings] == [1, 0]
+    assert [r.dry_standard for r in point.readings] == [25.0, 20.0]
+    assert point.goal == pytest.approx(22.0) and point.goal_met is False
+    assert point.location == "WALL, 0.1 m"
+    assert point.dry_standard_room == "ref" and point.dry_standard_visit is None
+
+
 def test_this_visits_dry_standard_comes_before_an_earlier_visits():
     """The room's own dry-standard reading on this visit is taken over the reference room's
     from an earlier visit; with neither on this visit, the earlier visit's own-room reading

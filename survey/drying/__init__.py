@@ -270,12 +270,16 @@ def _visit_order(survey: model.Survey) -> list[int]:
     )
 
 
-@dataclass
-class _PointSeries:
-    readings: list[PointReading]
-    latest: model.MaterialReading
+@dataclass(frozen=True, slots=True)
+class _Held:
+    """One reading of a point with what it was judged against: where its dry standard was
+    read (room and visit). The point's latest reading, by the time it was taken, gives the
+    point's name and standard, so the two can never come from different readings."""
+
+    point: PointReading
+    reading: model.MaterialReading
     standard_room: str | None
-    standard_visit: int | None = None
+    standard_visit: int | None
 
 
 def _room_points(
@@ -287,7 +291,7 @@ def _room_points(
     origin: dt.datetime,
     earlier: dict[int, list[evaluate.EarlierVisit]],
 ) -> tuple[MaterialPoint, ...]:
-    series: dict[PointKey, _PointSeries] = {}
+    series: dict[PointKey, list[_Held]] = {}
     for index in order:
         visit = survey.visits[index]
         room_visit = visit.room_visit(room_id)
@@ -319,13 +323,7 @@ def _room_points(
             key = point_key(reading.location, reading.material, reading.scale)
             room = None if standard is None or source is None else source.room_id
             standard_visit = None if standard is None or source is None else source.visit_index
-            found = series.get(key)
-            if found is None:
-                series[key] = _PointSeries([point], reading, room, standard_visit)
-            else:
-                found.readings.append(point)
-                found.latest, found.standard_room = reading, room
-                found.standard_visit = standard_visit
+            series.setdefault(key, []).append(_Held(point, reading, room, standard_visit))
     seen = [i for i in order if survey.visits[i].room_visit(room_id) is not None]
     out: list[MaterialPoint] = []
     for key, held in series.items():
@@ -335,9 +333,11 @@ def _room_points(
     return tuple(out)
 
 
-def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
-    readings = sorted(series.readings, key=lambda r: r.day)
+def _point(key: PointKey, series: list[_Held]) -> MaterialPoint:
+    held = sorted(series, key=lambda h: h.point.day)  # stable: visit order breaks ties
+    readings = [h.point for h in held]
     latest = readings[-1]
+    last = held[-1]
     days = [r.day for r in readings]
     values = [r.value for r in readings]
     fit = recent_fit(days, values)
@@ -352,13 +352,13 @@ def _point(key: PointKey, series: _PointSeries) -> MaterialPoint:
         estimate = estimate_to_goal(fit, latest.value, goal, latest.at)
     return MaterialPoint(
         key=key,
-        location=series.latest.location,
-        material=series.latest.material,
-        scale=series.latest.scale,
+        location=last.reading.location,
+        material=last.reading.material,
+        scale=last.reading.scale,
         readings=tuple(readings),
         dry_standard=latest.dry_standard,
-        dry_standard_room=series.standard_room if goal is not None else None,
-        dry_standard_visit=series.standard_visit if goal is not None else None,
+        dry_standard_room=last.standard_room if goal is not None else None,
+        dry_standard_visit=last.standard_visit if goal is not None else None,
         goal=goal,
         goal_met=met,
         fit=fit,
