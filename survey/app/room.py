@@ -5,10 +5,10 @@ from __future__ import annotations
 
 import msgspec
 from rich.text import Text
-from textual import on
+from textual import events, on
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
-from textual.widgets import Checkbox, Select, Static
+from textual.widgets import Checkbox, DataTable, Select, Static
 
 from survey import evaluate, model, words
 from survey import thresholds as th
@@ -20,12 +20,13 @@ from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
 from survey.words import screens
-from survey.words.states import DRY_STANDARD_WORDS, TIMBER_WORDS, standard_visit_said
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
 #: A location's width in the tables (the whole label is in its dialog and the live panel);
 #: short enough that at 80 columns the surface RH is in sight beside it.
 LOCATION_CELL = 20
+#: The material table's (a symbol comes first; the row's words in full are under the table).
+MATERIAL_LOCATION_CELL = 18
 ODOURS = [
     ("not recorded", ""),
     ("none", "none"),
@@ -155,6 +156,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 yield SurfaceTable(id="surfaces")
                 yield Static(Text("Material readings", style="bold"))
                 yield MaterialTable(id="materials")
+                yield Static("", id="material-detail", classes="row-detail")
                 yield Static(Text("What was seen", style="bold"))
                 yield Tick(
                     "Mould seen",
@@ -229,7 +231,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             " ", "location", "temp.", "surface RH", "state", "margin ± U", "element", "last visit"
         )
         materials = self.query_one(MaterialTable)
-        materials.add_headings("location", "reading", "state", "material", "last visit")
+        materials.add_headings(" ", "location", "reading", "state", "material", "last visit")
         self.query_one(EquipmentTable).add_headings(*equipment.COLUMNS)
         self.refresh_view()
         record = self.record()
@@ -305,41 +307,78 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         row = table.cursor_row
         table.clear()
         states = iter(judged.finding.materials if judged else ())
+        #: The words of each row, in full, for the line under the table (the cells are brief).
+        self._material_details: list[Text] = []
         for n, m in enumerate(record.materials if record else ()):
-            if m.dry_standard:
-                state = "dry standard"
-            else:
-                f = next(states, None)
-                state = (
-                    "–"
-                    if f is None
-                    else DRY_STANDARD_WORDS[f.dry_standard_state]
-                    + standard_visit_said(f.dry_standard_visit)
-                    + ("" if f.timber_state is None else "; " + TIMBER_WORDS[f.timber_state])
-                )
+            f = None if m.dry_standard else next(states, None)
+            rank = None if f is None else words.material_rank(f)
             last = last_value.get((m.location, m.material))
             table.add_row(
-                plain(walk.cut(m.location, LOCATION_CELL)),
+                Text("·" if rank is None else judging.RANK_SYMBOLS[rank]),
+                plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
                 Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
-                Text(state),
+                Text(
+                    "dry standard"
+                    if m.dry_standard
+                    else "–"
+                    if f is None
+                    else words.material_state_brief(f)
+                ),
                 plain(walk.cut(m.material, 20)),
                 Text("" if last is None else f"{last:g}"),
                 key=f"m{n}",
+            )
+            self._material_details.append(
+                self._material_detail(m, f, "the dry standard for this material")
             )
         pending = judging.pending_materials(
             self.editor.survey, self.editor.visit_index, self.room_id
         )
         for n, m in enumerate(pending):
             table.add_row(
-                plain(walk.cut(m.location, LOCATION_CELL)),
+                Text("·"),
+                plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
                 Text("to read"),
                 Text("read last visit"),
                 plain(walk.cut(m.material, 20)),
                 Text(f"{m.value:g}"),
                 key=f"q{n}",
             )
+            self._material_details.append(self._material_detail(m, None, "to read this visit"))
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
+        self._show_material_detail(table.cursor_row if table.row_count else None)
+
+    @staticmethod
+    def _material_detail(m: model.MaterialReading, f, otherwise: str) -> Text:
+        """The highlighted reading in full: its location and material as typed (shown as
+        text), then what it was judged to be."""
+        text = plain(f"{m.location} ({m.material}): ")
+        text.append(otherwise if m.dry_standard or f is None else words.material_state_words(f))
+        return text
+
+    def _show_material_detail(self, row: int | None) -> None:
+        details = getattr(self, "_material_details", [])
+        shown = details[row] if row is not None and 0 <= row < len(details) else Text("")
+        line = self.query_one("#material-detail", Static)
+        line.update(shown)
+        line.set_class(not shown.plain, "-empty")
+
+    def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
+        if event.data_table.id == "materials":
+            self._show_material_detail(event.cursor_row)
+            if event.data_table.has_focus:
+                self._material_detail_in_sight()
+
+    def on_descendant_focus(self, event: events.DescendantFocus) -> None:
+        if event.widget.id == "materials":
+            self._material_detail_in_sight()
+
+    def _material_detail_in_sight(self) -> None:
+        """The line under the material table says what its brief cells leave out: scrolled
+        into sight with the table."""
+        line = self.query_one("#material-detail")
+        self.call_after_refresh(line.scroll_visible, animate=False)
 
     # --- committing -----------------------------------------------------------------------
 

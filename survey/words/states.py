@@ -17,6 +17,7 @@ from survey.assess import (
     CondensationState,
     DryStandardState,
     FactorState,
+    MaterialFinding,
     MouldState,
     RoomFinding,
     SurfaceFinding,
@@ -102,6 +103,53 @@ TIMBER_WORDS = {
     TimberState.MOULD_RANGE: "in the mould range for timber",
     TimberState.DECAY_RANGE: "in the decay range for timber",
 }
+
+#: A material reading's state in brief, as a narrow table cell shows it (the long forms
+#: above are for a sentence).
+DRY_STANDARD_BRIEF = {
+    DryStandardState.AT: "at standard",
+    DryStandardState.ABOVE: "above standard",
+    DryStandardState.NO_REFERENCE: "no standard",
+}
+TIMBER_BRIEF = {
+    TimberState.DRY: "timber dry",
+    TimberState.MOULD_RANGE: "mould range",
+    TimberState.DECAY_RANGE: "decay range",
+}
+
+
+def material_state_words(m: MaterialFinding) -> str:
+    """``"above the dry standard of 20, read on visit 1; in the decay range for timber"``
+    (the standard in the reading's own scale)."""
+    text = DRY_STANDARD_WORDS[m.dry_standard_state]
+    if m.dry_standard is not None:
+        text += f" of {m.dry_standard:g}" + standard_visit_said(m.dry_standard_visit)
+    return text if m.timber_state is None else f"{text}; {TIMBER_WORDS[m.timber_state]}"
+
+
+def material_state_brief(m: MaterialFinding) -> str:
+    """``"above standard (visit 1's); decay range"``: :func:`material_state_words` in brief."""
+    text = DRY_STANDARD_BRIEF[m.dry_standard_state]
+    if m.dry_standard_visit is not None:
+        text += f" (visit {m.dry_standard_visit + 1}'s)"
+    return text if m.timber_state is None else f"{text}; {TIMBER_BRIEF[m.timber_state]}"
+
+
+def material_rank(m: MaterialFinding) -> int | None:
+    """How wet a material reading is, for its symbol on the scale of :func:`surface_rank`:
+    2 above its dry standard or timber in the mould or decay range, 0 at its standard (or
+    timber below the mould range with no standard); None where nothing judges it (no dry
+    standard, not timber)."""
+    timber = m.timber_state
+    if m.dry_standard_state is DryStandardState.ABOVE or timber in (
+        TimberState.MOULD_RANGE,
+        TimberState.DECAY_RANGE,
+    ):
+        return 2
+    if m.dry_standard_state is DryStandardState.AT or timber is TimberState.DRY:
+        return 0
+    return None
+
 
 #: The kind of surface, as a table shows it.
 ELEMENT_WORDS = {
