@@ -65,7 +65,9 @@ def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) 
     out.append(
         "\nSymbols in the tables: "
         + SYMBOL_LEGEND.replace("  ", ", ")
-        + " room; · not judged yet.\n"
+        + " room; · not judged yet. In the material table ! is a reading above its dry"
+        " standard or timber in its mould or decay range, ✓ one at its standard; the line"
+        " under that table says the highlighted reading in full.\n"
     )
     for title, bindings in sections():
         out.append(f"\n{title}\n", "bold")
