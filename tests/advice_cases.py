@@ -6,7 +6,7 @@ import math
 
 from CoolProp.HumidAirProp import HAPropsSI
 
-from survey import advise, assess
+from survey import advise, assess, words
 from survey.advise import ActionKind
 from survey.assess import (
     Accuracy,
@@ -87,3 +87,45 @@ def drying_room(drying: bool = True):
         materials=materials,
         observations=Observations(water_category=1, drying_in_progress=drying),
     )
+
+
+# --- for the words tests -----------------------------------------------------------------
+
+US_PINT_L = 0.473176  # 1 US liquid pint [R]
+G_PER_LB = 453.59237  # 1 lb = 0.45359237 kg exactly [R]
+GRAINS_PER_LB = 7000.0  # 7000 grains = 1 lb [R]
+BTU_H_PER_W = 3600.0 / 1055.05585262  # 1 IT Btu = 1055.05585262 J (from memory): 3.412142 [C]
+FT = 0.3048  # 1 ft = 0.3048 m exactly [R]
+
+
+def reason_of(room, outdoor, kind: ActionKind, display=words.SI) -> str:
+    """The reason of the room's one action of ``kind``, in ``display``'s units."""
+    finding, advice = advice_for(room, outdoor)
+    return words.action_reason(action(advice, kind), finding, advice, display)
+
+
+def every_reason(finding, advice, display=words.SI) -> str:
+    return " ".join(words.action_reason(a, finding, advice, display) for a in advice.actions)
+
+
+def caution_texts(room, outdoor=None, year=None, display=words.SI) -> dict[str, str]:
+    _, advice = advice_for(room, outdoor, year=year)
+    return {c.key: words.caution_text(c, display) for c in advice.cautions}
+
+
+def summer_basement(occupants=0):
+    return RoomInput(
+        "Basement",
+        "basement",
+        22.0,
+        75.0,
+        (SurfaceInput("slab", 17.0),),
+        volume_m3=60.0,
+        occupants=occupants,
+    )
+
+
+def up(value: float, places: int = 0) -> float:
+    """``value`` rounded up at ``places`` decimals: a least figure is never shown below the
+    one worked out."""
+    return math.ceil(value * 10**places - 1e-9) / 10**places
