@@ -216,8 +216,12 @@ async def test_equipment_added_by_keys_is_saved_and_judged(tmp_path):
         app.screen.query_one("#equipment").focus()
         await pilot.press("a")
         await settle(pilot, app)
-        for text in ("", "Dehu 1", "", "20", "3"):  # kind and "running" as offered
-            send_keys(app, text)
+        for text in (None, "Dehu 1", None, "20", "3"):  # kind and "running" as offered
+            if text is None:  # a drop-down: Enter opens it, Enter keeps the choice shown
+                await pilot.press("enter")
+                await pilot.pause()
+            else:
+                send_keys(app, text)
             await pilot.press("enter")
         await settle(pilot, app)
     room = store.load_survey(path).visits[0].rooms[0]

@@ -118,7 +118,8 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await press(pilot, "a")  # instruments table: add
         await settle(pilot, app)
         await field(pilot, "th1")
-        await press(pilot, "enter")  # the kind offered: thermo_hygrometer
+        await press(pilot, "enter")  # the kind's list opened,
+        await press(pilot, "enter")  # the thermo-hygrometer offered kept
         for text in ("M1", "0.3", "2", "", "2026-06-01"):
             await field(pilot, text)
         await settle(pilot, app)

@@ -50,7 +50,9 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
         await pilot.press("a")
         await _settle(pilot, app)
         for text in (None, "D2", None, "20", "1.2kg"):
-            if text is not None:
+            if text is None:  # a drop-down (kind, running): Enter opens it, Enter keeps it
+                await pilot.press("enter")
+            else:
                 _type(app, text)
             await pilot.press("enter")
         await _settle(pilot, app)
@@ -94,7 +96,9 @@ async def test_a_bad_reading_is_not_saved_and_escape_keeps_the_record(tmp_path):
         app.screen.query_one("#equipment").focus()
         await pilot.press("enter")
         await _settle(pilot, app)
-        for _ in range(5):
+        # all as stored: kind (a drop-down: opened, kept), label, running (the same), capacity,
+        # water removed
+        for _ in range(2 + 1 + 2 + 1 + 1):
             await pilot.press("enter")
         await _settle(pilot, app)
         dialog = app.screen
@@ -157,3 +161,44 @@ def test_the_table_row_of_inconsistent_readings_prints_no_absurd_number():
     assert "the readings are inconsistent" in cell
     for absurd in ("239997600", "507205775", "EF ", "COP "):
         assert absurd not in cell
+
+
+async def test_kind_and_running_are_chosen_from_lists_in_words(tmp_path):
+    """The equipment dialog offers the kinds in words and whether the unit runs as yes or
+    no, each a drop-down: an air mover that is not running, chosen by arrows and Enter, is
+    saved with its stored kind and shown in words in the table (no dehumidifier check)."""
+    from survey.app.fields import Choice
+
+    path = tmp_path / "basement.json"
+    shutil.copyfile(BASEMENT, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await _settle(pilot, app)
+        app.open_room("family")
+        await _settle(pilot, app)
+        app.screen.query_one("#equipment").focus()
+        await pilot.press("a")
+        await _settle(pilot, app)
+        kind = app.screen.query_one("#prompt-0", Choice)
+        assert app.focused is kind
+        shown = [str(prompt) for prompt, _ in kind._options]
+        assert shown[:3] == ["refrigerant dehumidifier", "desiccant dehumidifier", "air mover"]
+        await pilot.press("enter", "down", "down", "enter")
+        await pilot.pause()
+        _type(app, "AM 1")
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.focused is app.screen.query_one("#prompt-2", Choice)
+        await pilot.press("enter", "down", "enter")
+        await pilot.pause()
+        await pilot.press("enter", "enter")  # no rated capacity, no water removed
+        await _settle(pilot, app)
+        assert not isinstance(app.screen, CheckDialog)
+        table = app.screen.query_one("#equipment", DataTable)
+        assert [str(c) for c in table.get_row_at(table.row_count - 1)][:3] == [
+            "air mover",
+            "AM 1",
+            "no",
+        ]
+    saved = store.load_survey(path).visits[-1].room_visit("family").equipment[-1]
+    assert (saved.kind, saved.label, saved.running) == ("air_mover", "AM 1", False)

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from collections.abc import Sequence
+
 from rich.text import Text
 from textual import on
 from textual.binding import Binding
@@ -9,19 +11,23 @@ from textual.containers import Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Input, Label, Static
 
-from survey.app.fields import plain
+from survey.app.fields import Choice, plain
+
+#: A line of a :class:`PromptDialog`: its label and value, and for a choice from a list
+#: its options as (words shown, value kept).
+PromptField = tuple[str, str] | tuple[str, str, Sequence[tuple[str, str]]]
 
 
 class PromptDialog(ModalScreen[list[str] | None]):
-    """Fill in one or more lines; Enter on the last one answers, Escape cancels.
+    """Fill in one or more lines; Enter on the last one answers, Escape cancels. A line
+    given options is a drop-down (:class:`~survey.app.fields.Choice`: Enter opens it, a
+    choice moves on); its answer is the chosen option's value.
 
     ``check(values) -> message`` may refuse the answer ('' accepts it)."""
 
     BINDINGS = [Binding("escape", "cancel", "Cancel", id="dialog_cancel")]
 
-    def __init__(
-        self, title: str, fields: list[tuple[str, str]], check=None, note: str = ""
-    ) -> None:
+    def __init__(self, title: str, fields: list[PromptField], check=None, note: str = "") -> None:
         super().__init__()
         self.title_text = title
         self.fields = fields
@@ -33,21 +39,33 @@ class PromptDialog(ModalScreen[list[str] | None]):
             yield Static(Text(self.title_text, style="bold"))
             if self.note:
                 yield Static(plain(self.note), classes="dialog-note")
-            for index, (label, value) in enumerate(self.fields):
+            for index, (label, value, *options) in enumerate(self.fields):
                 yield Label(label, markup=False)
-                yield Input(value, id=f"prompt-{index}", compact=True)
+                if options:
+                    yield Choice(
+                        [(Text(shown), kept) for shown, kept in options[0]],
+                        value=value,
+                        allow_blank=False,
+                        compact=True,
+                        id=f"prompt-{index}",
+                    )
+                else:
+                    yield Input(value, id=f"prompt-{index}", compact=True)
             yield Static("", id="prompt-message", classes="field-message")
             yield Static(Text("Enter: next / done    Escape: cancel", style="dim"))
+
+    def _lines(self) -> list[Input | Choice]:
+        return [self.query_one(f"#prompt-{i}") for i in range(len(self.fields))]  # type: ignore[misc]
 
     @on(Input.Submitted)
     def _next(self, event: Input.Submitted) -> None:
         event.stop()
-        inputs = list(self.query(Input))
-        index = inputs.index(event.input)
-        if index + 1 < len(inputs):
-            inputs[index + 1].focus()
+        lines = self._lines()
+        index = lines.index(event.input)
+        if index + 1 < len(lines):
+            lines[index + 1].focus()
             return
-        values = [i.value for i in inputs]
+        values = [str(line.value) for line in lines]
         problem = self.check(values) if self.check else ""
         if problem:
             message = self.query_one("#prompt-message", Static)

@@ -26,16 +26,13 @@ from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
 from survey.equipment import read_power_or_energy
 from survey.errors import InputError
+from survey.words.report_room import EQUIPMENT_WORDS
 
-KINDS = (
-    "refrigerant_dehumidifier",
-    "desiccant_dehumidifier",
-    "air_mover",
-    "heater",
-    "extract_fan",
-    "air_scrubber",
-    "other",
-)
+#: The kinds as the dialog offers them: (words, stored value).
+KIND_WORDS = {k: "other" if k == "other" else w for k, w in EQUIPMENT_WORDS.items()}
+KINDS = [(words, kind) for kind, words in KIND_WORDS.items()]
+#: Whether it is running, as the dialog offers it.
+RUNNING = [("yes", "yes"), ("no", "no")]
 DEHUMIDIFIERS = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier"})
 COLUMNS = ("kind", "label", "running", "L/day rated", "water removed")
 
@@ -73,7 +70,7 @@ def row(e: model.Equipment, screen=None, index: int | None = None) -> tuple[Text
                 p for p in (water, we.summary(unit.result, d), we.found_text(unit.result)) if p
             )
     return (
-        Text(e.kind.replace("_", " ")),
+        Text(KIND_WORDS.get(e.kind, e.kind)),
         plain(walk.cut(e.label, 20)),
         Text("yes" if e.running else "no"),
         Text("" if e.capacity_l_per_day is None else f"{e.capacity_l_per_day:g}"),
@@ -94,9 +91,9 @@ def dialog(
     e = current
     system = "si" if screen is None else screen.editor.unit_system
     fields = [
-        ("Kind: " + ", ".join(KINDS), e.kind if e else "refrigerant_dehumidifier"),
+        ("Kind", e.kind if e else "refrigerant_dehumidifier", KINDS),
         ("Label", e.label if e else ""),
-        ("Running now (yes or no)", "no" if e and not e.running else "yes"),
+        ("Running now", "no" if e and not e.running else "yes", RUNNING),
         (
             "Rated capacity, L/day",
             "" if e is None or e.capacity_l_per_day is None else f"{e.capacity_l_per_day:g}",
@@ -110,12 +107,7 @@ def dialog(
 
     def check(v: list[str]) -> str:
         try:
-            kind = v[0].strip()
-            if kind not in KINDS:
-                raise InputError("Kind", kind, "one of " + ", ".join(KINDS))
-            running = v[2].strip().lower()
-            if running not in ("yes", "no", "y", "n"):
-                raise InputError("Running now", v[2], "yes or no")
+            kind, running = v[0], v[2]
             base = e or model.Equipment(kind=kind)
             capacity = walk.optional(lambda t: eq.read_capacity(t, "Rated capacity", "si"))
             water = walk.optional(lambda t: eq.read_water(t, "Water removed", "si")[0])
@@ -124,7 +116,7 @@ def dialog(
                 "equipment",
                 kind=kind,
                 label=walk.text_parser("Label")(v[1]),
-                running=running.startswith("y"),
+                running=running == "yes",
                 capacity_l_per_day=capacity(v[3]),
                 water_removed_l=water(v[4]),
             )
@@ -240,7 +232,7 @@ class CheckDialog(PromptDialog):
             ),
             (we.rating_condition_prompt(), e.rating_condition or ""),
         ]
-        name = e.label or e.kind.replace("_", " ")
+        name = e.label or KIND_WORDS.get(e.kind, e.kind)
         super().__init__(f"Performance check — {name}", fields, self._check)
         self.room_screen = screen
         self.index = index

@@ -13,6 +13,7 @@ from survey.app.fields import Choice, Field, plain
 from survey.app.tables import InstrumentTable
 from survey.errors import InputError
 from survey.words import season as ws
+from survey.words.report import INSTRUMENT_KIND_WORDS
 
 PURPOSES = [
     ("damp or mould complaint", "damp_complaint"),
@@ -23,14 +24,8 @@ PURPOSES = [
     ("other", "other"),
 ]
 UNIT_SYSTEMS = [("SI (°C, m, g/kg)", "si"), ("IP (°F, ft, gr/lb)", "ip")]
-INSTRUMENT_KINDS = [
-    "thermo_hygrometer",
-    "surface_thermometer",
-    "moisture_meter",
-    "data_logger",
-    "combined_meter",
-    "other",
-]
+#: The instrument kinds as the dialog offers them: (words, stored value).
+INSTRUMENT_KINDS = [(words, kind) for kind, words in INSTRUMENT_KIND_WORDS.items()]
 
 
 class SiteScreen(walk.WalkScreen):
@@ -168,7 +163,7 @@ class SiteScreen(walk.WalkScreen):
         for i, inst in enumerate(self.editor.survey.instruments):
             table.add_row(
                 plain(inst.id),
-                Text(inst.kind.replace("_", " ")),
+                Text(INSTRUMENT_KIND_WORDS.get(inst.kind, inst.kind)),
                 Text(_g(inst.air_temp_accuracy_k)),
                 Text(_g(inst.rh_accuracy_pct)),
                 Text(_g(inst.surface_temp_accuracy_k)),
@@ -226,7 +221,7 @@ class SiteScreen(walk.WalkScreen):
         system = self.editor.unit_system
         values = [
             ("Id (short, e.g. th1)", inst.id if inst else ""),
-            ("Kind: " + ", ".join(INSTRUMENT_KINDS), inst.kind if inst else "thermo_hygrometer"),
+            ("Kind", inst.kind if inst else "thermo_hygrometer", INSTRUMENT_KINDS),
             ("Name (make and model)", inst.name if inst else ""),
             ("± air temperature, K", _g(inst.air_temp_accuracy_k, "") if inst else ""),
             ("± RH, percentage points", _g(inst.rh_accuracy_pct, "") if inst else ""),
@@ -237,9 +232,7 @@ class SiteScreen(walk.WalkScreen):
 
         def check(v: list[str]) -> str:
             try:
-                kind = v[1].strip()
-                if kind not in INSTRUMENT_KINDS:
-                    raise InputError("Kind", kind, "one of " + ", ".join(INSTRUMENT_KINDS))
+                kind = v[1]
                 record = model.Instrument(
                     id=v[0].strip(),
                     kind=kind,
