@@ -56,11 +56,8 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
                 if n.factor_unclear
                 else ""
             )
-            + ", which today "
-            f"means "
-            f"a surface of at least "
-            f"{d.minimum_temperature(n.surface_temp_for_factor_limit_c)} (the factor "
-            f"limit)"
+            + ", which today means a surface of at least "
+            f"{d.minimum_temperature(n.surface_temp_for_factor_limit_c)}"
         )
     if n.drying_wet:
         reasons.append(
