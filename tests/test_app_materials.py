@@ -10,8 +10,9 @@ from pathlib import Path
 
 from textual.widgets import DataTable, Static
 
+from survey import store
 from survey import thresholds as th
-from survey.app import make_app
+from survey.app import make_app, room, walk
 
 DEMO = Path(__file__).resolve().parents[1] / "survey" / "app" / "demo_site.json"
 
@@ -20,8 +21,8 @@ def _cells(table: DataTable) -> list[list[str]]:
     return [[str(c) for c in table.get_row_at(r)] for r in range(table.row_count)]
 
 
-def _detail(app) -> str:
-    return str(app.screen.query_one("#material-detail", Static).render())
+def _detail(app, table: str = "materials") -> str:
+    return str(app.screen.query_one(f"#{table}-detail", Static).render())
 
 
 async def _open_bedroom(pilot, app) -> DataTable:
@@ -62,7 +63,7 @@ async def test_rows_in_brief_and_the_highlighted_one_in_full(tmp_path):
             "Window sill, left end (softwood): no dry standard given; in the decay range for timber"
         )
         # kept in sight with the table at 24 lines
-        line = app.screen.query_one("#material-detail")
+        line = app.screen.query_one("#materials-detail")
         assert line.region.height >= 1 and app.screen.region.contains_region(line.region)
 
 
@@ -86,3 +87,57 @@ def _demo_copy(tmp_path: Path) -> Path:
     target = tmp_path / "flat.json"
     shutil.copyfile(DEMO, target)
     return target
+
+
+async def test_points_read_again_keep_last_visits_order(tmp_path):
+    """On a second visit every surface and material point of the first is listed to read,
+    in the first visit's order. A point read stays where it was (it once moved to the top,
+    so a technician pressing Down after a reading skipped a point and put the next reading
+    against the wrong location), and the cursor moves on to the next point still to read;
+    the line under the table names the highlighted point and last visit's value."""
+    path = _demo_copy(tmp_path)
+    first = store.load_survey(path).visits[0].rooms[0]
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        await pilot.press("f7")
+        await pilot.pause()
+        await pilot.press("y")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        app.open_room(first.room)
+        await pilot.pause()
+        table = app.screen.query_one("#surfaces", DataTable)
+        table.focus()
+        await pilot.pause()
+        locations = [s.location for s in first.surfaces]
+        cut = [walk.cut(x, room.LOCATION_CELL) for x in locations]
+        assert [r[1] for r in _cells(table)] == cut
+        assert [r[2] for r in _cells(table)] == ["to read"] * len(locations)
+        await pilot.press("down")
+        assert _detail(app, "surfaces").startswith(f"{locations[1]} (")
+        assert "to read this visit (last visit " in _detail(app, "surfaces")
+        await pilot.press("enter")  # read the second point
+        await pilot.pause()
+        app.focused.value = "11.5"
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        rows = _cells(table)
+        assert [r[1] for r in rows] == cut  # nothing moved
+        assert rows[1][2] == "11.5 °C" and rows[0][2] == "to read"
+        assert table.cursor_row == 2  # on to the next point still to read
+        assert _detail(app, "surfaces").startswith(f"{locations[2]} (")
+
+        materials = app.screen.query_one("#materials", DataTable)
+        materials.focus()
+        await pilot.pause()
+        assert [r[1] for r in _cells(materials)] == [
+            walk.cut(m.location, room.MATERIAL_LOCATION_CELL) for m in first.materials
+        ]
+        assert _detail(app, "materials") == (
+            f"{first.materials[0].location} ({first.materials[0].material}): to read this "
+            f"visit (last visit {first.materials[0].value:g} (meter's relative scale))"
+        )
+    saved = store.load_survey(path).visits[1].room_visit(first.room)
+    assert [(s.location, s.surface_temp_c) for s in saved.surfaces] == [(locations[1], 11.5)]

@@ -9,6 +9,7 @@ points measured on the previous visit, a new visit.
 from __future__ import annotations
 
 import datetime as dt
+from collections.abc import Hashable, Sequence
 
 from survey import assess, model
 from survey.words import states as words_states
@@ -71,6 +72,19 @@ def pending_materials(
     now = room_visit(survey, visit_index, room_id)
     done = {(m.location, m.material) for m in now.materials} if now is not None else set()
     return [m for m in before.materials if (m.location, m.material) not in done]
+
+
+def walk_order(last: Sequence[Hashable], read: Sequence[Hashable], pending: Sequence[Hashable]):
+    """The rows of a table of points as (kind, index): ``("read", n)`` for this visit's
+    n-th reading, ``("pending", n)`` for the n-th point of last visit still to read. The
+    points of last visit keep last visit's order whether read yet or not (a point read moves
+    nowhere, so the row under the cursor is the one the technician sees); this visit's new
+    points follow in the order they were added. Each point is given by its key (a surface's
+    location; a material point's location and material)."""
+    where = {key: n for n, key in reversed(list(enumerate(last)))}
+    rows = [((where.get(key, len(last)), 0, n), ("read", n)) for n, key in enumerate(read)]
+    rows += [((where.get(key, len(last)), 1, n), ("pending", n)) for n, key in enumerate(pending)]
+    return [row for _, row in sorted(rows)]
 
 
 def readings_missing(survey: model.Survey, visit_index: int, room_id: str) -> int:

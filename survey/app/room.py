@@ -20,6 +20,7 @@ from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
 from survey.words import screens
+from survey.words.report_room import reading_text
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
 #: A location's width in the tables (the whole label is in its dialog and the live panel);
@@ -59,6 +60,8 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         super().__init__()
         self.room_id = room_id
         self.undo_stack: list[tuple[str, int, msgspec.Struct]] = []
+        #: Each table's rows in full (table id to one Text a row), for the line under it.
+        self._details: dict[str, list[Text]] = {"surfaces": [], "materials": []}
 
     # --- records --------------------------------------------------------------------------
 
@@ -154,9 +157,10 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 yield Static(Text("Surfaces", style="bold"))
                 yield SurfaceTable(id="surfaces")
+                yield Static("", id="surfaces-detail", classes="row-detail")
                 yield Static(Text("Material readings", style="bold"))
                 yield MaterialTable(id="materials")
-                yield Static("", id="material-detail", classes="row-detail")
+                yield Static("", id="materials-detail", classes="row-detail")
                 yield Static(Text("What was seen", style="bold"))
                 yield Tick(
                     "Mould seen",
@@ -256,42 +260,67 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         row = table.cursor_row
         table.clear()
         findings = judged.finding.surfaces if judged else ()
-        for n, s in enumerate(record.surfaces if record else ()):
-            f = findings[n] if n < len(findings) else None
-            last = last_temp.get(s.location)
-            table.add_row(
-                Text("·" if f is None else judging.RANK_SYMBOLS[words.surface_rank(f)]),
-                plain(walk.cut(s.location, LOCATION_CELL)),
-                Text(d.temperature(s.surface_temp_c)),
-                Text("–" if f is None else screens.surface_rh_cell(f)),
-                Text("no air reading" if f is None else screens.surface_state_words(f, d)),
-                Text(
-                    "–"
-                    if f is None
-                    else (
-                        f"{d.difference(f.dew_point_margin_k)} ± "
-                        f"{d.difference(f.margin_uncertainty_k)}"
-                    )
-                ),
-                Text(words.ELEMENT_WORDS.get(s.element, s.element)),
-                Text("" if last is None else d.temperature(last)),
-                key=f"s{n}",
-            )
+        read = list(record.surfaces if record else ())
         pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
-        for n, s in enumerate(pending):
-            table.add_row(
-                Text("·"),
-                plain(walk.cut(s.location, LOCATION_CELL)),
-                Text("to read"),
-                Text(""),
-                Text("measured last visit"),
-                Text(""),
-                Text(words.ELEMENT_WORDS.get(s.element, "")),
-                Text(d.temperature(s.surface_temp_c)),
-                key=f"p{n}",
-            )
+        order = judging.walk_order(
+            [s.location for s in (before.surfaces if before else ())],
+            [s.location for s in read],
+            [s.location for s in pending],
+        )
+        details = self._details["surfaces"] = []
+        for kind, n in order:
+            if kind == "read":
+                s = read[n]
+                f = findings[n] if n < len(findings) else None
+                last = last_temp.get(s.location)
+                details.append(
+                    self._detail(
+                        s.location,
+                        words.ELEMENT_WORDS.get(s.element, s.element),
+                        "no air reading yet" if f is None else screens.surface_detail(f, d),
+                    )
+                )
+                table.add_row(
+                    Text("·" if f is None else judging.RANK_SYMBOLS[words.surface_rank(f)]),
+                    plain(walk.cut(s.location, LOCATION_CELL)),
+                    Text(d.temperature(s.surface_temp_c)),
+                    Text("–" if f is None else screens.surface_rh_cell(f)),
+                    Text("no air reading" if f is None else screens.surface_state_words(f, d)),
+                    Text(
+                        "–"
+                        if f is None
+                        else (
+                            f"{d.difference(f.dew_point_margin_k)} ± "
+                            f"{d.difference(f.margin_uncertainty_k)}"
+                        )
+                    ),
+                    Text(words.ELEMENT_WORDS.get(s.element, s.element)),
+                    Text("" if last is None else d.temperature(last)),
+                    key=f"s{n}",
+                )
+            else:
+                s = pending[n]
+                details.append(
+                    self._detail(
+                        s.location,
+                        words.ELEMENT_WORDS.get(s.element, s.element),
+                        f"to read this visit (last visit {d.temperature(s.surface_temp_c)})",
+                    )
+                )
+                table.add_row(
+                    Text("·"),
+                    plain(walk.cut(s.location, LOCATION_CELL)),
+                    Text("to read"),
+                    Text(""),
+                    Text("measured last visit"),
+                    Text(""),
+                    Text(words.ELEMENT_WORDS.get(s.element, "")),
+                    Text(d.temperature(s.surface_temp_c)),
+                    key=f"p{n}",
+                )
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
+        self._show_detail(table)
         self._fill_materials(record, judged, last_value)
         table = self.query_one(EquipmentTable)
         row = table.cursor_row
@@ -307,77 +336,93 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         row = table.cursor_row
         table.clear()
         states = iter(judged.finding.materials if judged else ())
-        #: The words of each row, in full, for the line under the table (the cells are brief).
-        self._material_details: list[Text] = []
-        for n, m in enumerate(record.materials if record else ()):
-            f = None if m.dry_standard else next(states, None)
-            rank = None if f is None else words.material_rank(f)
-            last = last_value.get((m.location, m.material))
-            table.add_row(
-                Text("·" if rank is None else judging.RANK_SYMBOLS[rank]),
-                plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
-                Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
-                Text(
-                    "dry standard"
-                    if m.dry_standard
-                    else "–"
-                    if f is None
-                    else words.material_state_brief(f)
-                ),
-                plain(walk.cut(m.material, 20)),
-                Text("" if last is None else f"{last:g}"),
-                key=f"m{n}",
-            )
-            self._material_details.append(
-                self._material_detail(m, f, "the dry standard for this material")
-            )
+        read = list(record.materials if record else ())
+        judged_as = [None if m.dry_standard else next(states, None) for m in read]
         pending = judging.pending_materials(
             self.editor.survey, self.editor.visit_index, self.room_id
         )
-        for n, m in enumerate(pending):
-            table.add_row(
-                Text("·"),
-                plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
-                Text("to read"),
-                Text("read last visit"),
-                plain(walk.cut(m.material, 20)),
-                Text(f"{m.value:g}"),
-                key=f"q{n}",
-            )
-            self._material_details.append(self._material_detail(m, None, "to read this visit"))
+        before = self.previous()
+        order = judging.walk_order(
+            [(m.location, m.material) for m in (before.materials if before else ())],
+            [(m.location, m.material) for m in read],
+            [(m.location, m.material) for m in pending],
+        )
+        details = self._details["materials"] = []
+        for kind, n in order:
+            if kind == "read":
+                m, f = read[n], judged_as[n]
+                rank = None if f is None else words.material_rank(f)
+                last = last_value.get((m.location, m.material))
+                table.add_row(
+                    Text("·" if rank is None else judging.RANK_SYMBOLS[rank]),
+                    plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
+                    Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
+                    Text(
+                        "dry standard"
+                        if m.dry_standard
+                        else "–"
+                        if f is None
+                        else words.material_state_brief(f)
+                    ),
+                    plain(walk.cut(m.material, 20)),
+                    Text("" if last is None else f"{last:g}"),
+                    key=f"m{n}",
+                )
+                said = (
+                    "the dry standard for this material"
+                    if m.dry_standard or f is None
+                    else words.material_state_words(f)
+                )
+            else:
+                m = pending[n]
+                table.add_row(
+                    Text("·"),
+                    plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
+                    Text("to read"),
+                    Text("read last visit"),
+                    plain(walk.cut(m.material, 20)),
+                    Text(f"{m.value:g}"),
+                    key=f"q{n}",
+                )
+                said = f"to read this visit (last visit {reading_text(m.value, m.scale)})"
+            details.append(self._detail(m.location, m.material, said))
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
-        self._show_material_detail(table.cursor_row if table.row_count else None)
+        self._show_detail(table)
 
     @staticmethod
-    def _material_detail(m: model.MaterialReading, f, otherwise: str) -> Text:
-        """The highlighted reading in full: its location and material as typed (shown as
-        text), then what it was judged to be."""
-        text = plain(f"{m.location} ({m.material}): ")
-        text.append(otherwise if m.dry_standard or f is None else words.material_state_words(f))
+    def _detail(location: str, what: str, said: str) -> Text:
+        """A row in full for the line under its table: the location and the material or
+        element as typed (shown as text), then what it was judged to be."""
+        text = plain(f"{location} ({what}): ")
+        text.append(said)
         return text
 
-    def _show_material_detail(self, row: int | None) -> None:
-        details = getattr(self, "_material_details", [])
+    def _show_detail(self, table: DataTable, row: int | None = None) -> None:
+        """The line under ``table`` for its highlighted row (``row``, else the cursor's)."""
+        if row is None:
+            row = table.cursor_row if table.row_count else None
+        details = self._details.get(table.id or "", [])
         shown = details[row] if row is not None and 0 <= row < len(details) else Text("")
-        line = self.query_one("#material-detail", Static)
+        line = self.query_one(f"#{table.id}-detail", Static)
         line.update(shown)
         line.set_class(not shown.plain, "-empty")
 
     def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
-        if event.data_table.id == "materials":
-            self._show_material_detail(event.cursor_row)
-            if event.data_table.has_focus:
-                self._material_detail_in_sight()
+        table = event.data_table
+        if table.id in self._details:
+            self._show_detail(table, event.cursor_row)
+            if table.has_focus:
+                self._detail_in_sight(table)
 
     def on_descendant_focus(self, event: events.DescendantFocus) -> None:
-        if event.widget.id == "materials":
-            self._material_detail_in_sight()
+        if isinstance(event.widget, DataTable) and event.widget.id in self._details:
+            self._detail_in_sight(event.widget)
 
-    def _material_detail_in_sight(self) -> None:
-        """The line under the material table says what its brief cells leave out: scrolled
-        into sight with the table."""
-        line = self.query_one("#material-detail")
+    def _detail_in_sight(self, table: DataTable) -> None:
+        """The line under a table says what its brief cells leave out: scrolled into sight
+        with the table."""
+        line = self.query_one(f"#{table.id}-detail")
         self.call_after_refresh(line.scroll_visible, animate=False)
 
     # --- committing -----------------------------------------------------------------------

@@ -101,6 +101,17 @@ def surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
     )
 
 
+def surface_detail(surface: assess.SurfaceFinding, d: Display) -> str:
+    """A surface in full for the line under a table whose cells are brief: ``12.6 °C,
+    surface RH 99 % (91 % or more), margin 0.2 K ± 1.2 K: water may be forming; above the
+    mould limit``."""
+    return (
+        f"{d.temperature(surface.surface_temp_c)}, surface RH {surface_rh_text(surface)}, "
+        f"margin {d.difference(surface.dew_point_margin_k)} ± "
+        f"{d.difference(surface.margin_uncertainty_k)}: {short_verdict(surface, d)}"
+    )
+
+
 def quick_surface_line(surface: assess.SurfaceFinding, d: Display) -> str:
     """``Surface 12.0 °C: surface RH 82 % (77–87); verdict``."""
     return (
