@@ -362,6 +362,69 @@ async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
     assert saved["visits"][0]["rooms"][0].get("air") is None
 
 
+async def test_leaving_a_screen_with_half_an_air_reading_asks_first(tmp_path):
+    """Escape, a screen key or a new visit left half an air reading behind without a word
+    (only quitting asked). Now each asks as quitting does: n stays with the half on screen;
+    y lets it go, the screen is left, and coming back shows the field empty again. The
+    outdoor reading on the visit screen is asked about the same way."""
+    import json
+
+    from survey.app.air import AirPair
+    from survey.app.dialogs import ConfirmDialog
+
+    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
+    data["visits"][0]["rooms"][0].pop("air", None)
+    data["visits"][0].pop("outdoor", None)
+    path = tmp_path / "no-air.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    room_id = data["visits"][0]["rooms"][0]["room"]
+    before = path.read_bytes()
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(room_id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-temp-input").focus()
+        send_keys(app, "20")
+        await pilot.press("enter")
+        await settle(pilot, app)
+        for key in ("escape", "f5", "f7"):
+            await pilot.press(key)
+            await settle(pilot, app)
+            assert isinstance(app.screen, ConfirmDialog), key
+            assert "air temperature of 20 °C with no RH" in app.screen.question
+            assert "Leave it unsaved?" in app.screen.question
+            await pilot.press("n")
+            await settle(pilot, app)
+            assert type(app.screen).__name__ == "RoomScreen"
+            assert app.screen.query_one(AirPair).temp_c == 20.0
+        await pilot.press("escape")
+        await settle(pilot, app)
+        await pilot.press("y")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "RoomListScreen"
+        app.open_room(room_id)
+        await settle(pilot, app)
+        pair = app.screen.query_one(AirPair)
+        assert pair.temp_c is None and pair.unsaved_half() is None
+        assert app.screen.query_one("#room-temp-input").value == ""
+
+        await pilot.press("f3")
+        await settle(pilot, app)
+        app.screen.query_one("#outdoor-rh-input").focus()
+        send_keys(app, "80")
+        await pilot.press("enter")
+        await settle(pilot, app)
+        await pilot.press("f4")
+        await settle(pilot, app)
+        assert isinstance(app.screen, ConfirmDialog)
+        assert "an RH of 80 % with no air temperature" in app.screen.question
+        await pilot.press("y")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "RoomListScreen"
+    assert path.read_bytes() == before  # nothing half-saved
+
+
 async def test_an_air_reading_emptied_is_deleted_only_when_confirmed_and_u_puts_it_back(tmp_path):
     """The demo's main bedroom holds 17.5 °C, 72 %. The temperature emptied and committed
     asks; n keeps the reading (the field shows it again, the file unchanged). Asked again,

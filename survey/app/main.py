@@ -222,11 +222,40 @@ class SurveyApp(App):
         """The start screen: back under the walk, or built now."""
         from survey.app.start import StartScreen
 
+        if not self.may_leave(self.show_start):
+            return
         base = self._walk_base
         while len(self.screen_stack) > base:
             self.pop_screen()
         if base == 1:
             self.push_screen(StartScreen())
+
+    def may_leave(self, then: Callable[[], object]) -> bool:
+        """Whether the screen shown can be left now. Half an air reading on it (a temperature
+        with no RH, or the other way round), which is not saved, is asked about first, as
+        quitting asks: let go, the half is dropped and ``then`` runs; kept, nothing moves."""
+        from survey.app.air import AirPair
+
+        pairs = [p for p in self.screen.query(AirPair) if p.unsaved_half() is not None]
+        if not pairs:
+            return True
+        from survey.app.dialogs import ConfirmDialog
+
+        def answered(yes: bool | None) -> None:
+            if yes:
+                for pair in pairs:
+                    pair.show_reading(pair.reading)  # back to what is saved
+                then()
+
+        self.push_screen(
+            ConfirmDialog(
+                "Not saved: "
+                + "; ".join(str(p.unsaved_half()) for p in pairs)
+                + " (a reading is saved once it has both). Leave it unsaved?"
+            ),
+            answered,
+        )
+        return False
 
     def go(self, name: str) -> None:
         """Show one of the walk's screens (above the start screen)."""
@@ -234,6 +263,8 @@ class SurveyApp(App):
 
         if self.editor is None:
             self.show_status("Open or create a survey first (on the start screen).", "error")
+            return
+        if not self.may_leave(lambda: self.go(name)):
             return
         if name != "site":
             self.ensure_visit()
@@ -279,7 +310,7 @@ class SurveyApp(App):
         from survey.app.room import RoomScreen
 
         editor = self.editor
-        if editor is None:
+        if editor is None or not self.may_leave(lambda: self.open_room(room_id)):
             return
         self.ensure_visit()
         if not editor.survey.visits:

@@ -110,7 +110,7 @@ class WalkScreen(Screen):
         from survey.app import judging
         from survey.app.dialogs import ConfirmDialog
 
-        if self.refuse_if_read_only():
+        if self.refuse_if_read_only() or not self.app.may_leave(self.action_new_visit):
             return
 
         def done(yes: bool) -> None:
