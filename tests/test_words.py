@@ -413,6 +413,26 @@ def test_occupants_explaining_the_excess_say_under_ventilated():
     ) in text
 
 
+def test_occupants_explaining_the_air_do_not_contradict_a_search_for_a_source():
+    """The same bedroom with a wet plaster reading (30 against a dry standard of 12): the
+    advice asks for the moisture source to be found, so the air's note no longer says the
+    room is "rather than hiding a source" (the report said both of one room)."""
+    import msgspec
+    from advice_cases import MaterialInput
+
+    room = msgspec.structs.replace(
+        winter_bedroom(), materials=(MaterialInput("corner", "plaster", 30.0, "relative", 12.0),)
+    )
+    finding, advice = advice_for(room, OutdoorInput(3.0, 88.0))
+    assert any(a.kind is ActionKind.FIND_SOURCE for a in advice.actions)
+    text = words.action_reason(action(advice, ActionKind.VENTILATE), finding, advice, words.SI)
+    assert "rather than hiding a source" not in text
+    assert (
+        "the room is under-ventilated for the people in it. That speaks of the air only: the "
+        "search for a moisture source asked for here rests on other signs."
+    ) in text
+
+
 # --- targets ---------------------------------------------------------------------------------
 
 

@@ -324,3 +324,20 @@ def test_ip_raise_surface_text_is_in_fahrenheit():
     assert text.startswith("north wall is too cold at 51.8 °F:")
     assert "Raise it to at least 57.7 °F" in text
     assert "°C" not in text
+
+
+def test_a_surface_raised_for_the_usual_target_says_what_the_room_must_stay_under_until_then():
+    """The winter bedroom's north wall at 11.0 °C in 18 °C air bears less than the usual
+    60 % room RH: the action to warm it says the room is to be kept at or under what it
+    bears until then (the number the ventilation target uses), so 60 % and that number do
+    not read as two targets for one room."""
+    finding, advice = advice_for(winter_bedroom(), OutdoorInput(3.0, 88.0))
+    raise_it = action(advice, ActionKind.RAISE_SURFACE_TEMPERATURE)
+    n = raise_it.numbers
+    assert n.max_room_rh_pct < n.design_rh_pct == 60.0
+    text = words.action_reason(raise_it, finding, advice, words.SI)
+    if n.too_cold:
+        assert "until then" not in text  # its reason says the room RH it bears already
+    else:
+        bears = words.round_down_rh(n.max_room_rh_pct)
+        assert f"kept at 60 % without mould risk (until then, at no more than {bears} %)" in text

@@ -466,7 +466,12 @@ def _occupants_note(n: VentilateNumbers | DehumidifyNumbers, advice: RoomAdvice,
         + f") accounts for {min(n.occupants_share_of_load, 9.99) * 100:.0f} % of the "
         f"{d.moisture_rate(moisture.back_calculated_g_per_h)} the measured excess implies "
         f"at the assumed air change rate: the room is under-ventilated for the people in "
-        f"it rather than hiding a source."
+        + (
+            "it. That speaks of the air only: the search for a moisture source asked for "
+            "here rests on other signs."
+            if any(a.kind is ActionKind.FIND_SOURCE for a in advice.actions)
+            else "it rather than hiding a source."
+        )
     )
 
 

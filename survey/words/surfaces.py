@@ -76,7 +76,12 @@ def _raise_surface(n: RaiseSurfaceNumbers, d: Display) -> str:
             if n.target_surface_temp_c > n.surface_temp_for_target_rh_c
             else ""
         )
-        + f"so the room can be kept at {design} without mould risk: "
+        + f"so the room can be kept at {design} without mould risk"
+        + (
+            f" (until then, at no more than {round_down_rh(n.max_room_rh_pct)} %): "
+            if n.max_room_rh_pct < n.design_rh_pct and not n.too_cold
+            else ": "
+        )
     )
     if n.ground_contact:
         text += (
