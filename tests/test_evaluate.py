@@ -269,6 +269,12 @@ def test_logged_water_removed_is_the_load_and_grain_depression_is_reported():
     assert dehumidify.numbers.grain_depression_g_per_kg == pytest.approx(1000 * drop, rel=0.02)
     assert dehumidify.numbers.grain_depression_gr_per_lb == pytest.approx(7000 * drop, rel=0.02)
     assert dehumidify.numbers.rated_capacity_l_per_day == pytest.approx(50.0)  # the example
+    # the sentence gives the grains as the equipment section does (to 0.1 gr/lb): the two
+    # once read "10.5 gr/lb" and "49 − 38 = 11 gr/lb" for one drop
+    finding = judged.findings.rooms[judged.room_ids.index(room_id)]
+    text = words.action_reason(dehumidify, finding, _room_advice(judged, room_id), words.SI)
+    grains = dehumidify.numbers.grain_depression_gr_per_lb
+    assert f"= {grains:.1f} gr/lb)." in text
 
 
 def test_air_movers_without_a_dehumidifier_are_told_to_join_the_dried_area():

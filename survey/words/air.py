@@ -318,7 +318,7 @@ def _grain_depression(n: DehumidifyNumbers, finding: RoomFinding) -> str:
     text = (
         f" Grain depression (room air in, minus air out of the dehumidifier): "
         f"{w_in:.2f} − {w_out:.2f} = {n.grain_depression_g_per_kg:.2f} g/kg "
-        f"({g_in:.0f} − {g_out:.0f} = {n.grain_depression_gr_per_lb:.0f} gr/lb)."
+        f"({g_in:.1f} − {g_out:.1f} = {n.grain_depression_gr_per_lb:.1f} gr/lb)."
     )
     if n.grain_depression_g_per_kg <= 0.0:
         text += (
