@@ -869,3 +869,15 @@ def test_the_live_judgement_of_a_room_never_takes_its_own_visit_as_an_earlier_on
     judged = evaluate.assess_room(survey, 1, "wet", candidate)
     material = judged.finding.materials[0]
     assert (material.dry_standard, material.dry_standard_visit) == (20.0, 0)
+
+
+def test_one_point_is_said_in_the_singular():
+    """ "1 material points" read badly: one point is one."""
+    survey = _survey([60.0, 30.0], [0, 2])
+    room = _room(drying.drying_progress(survey), "wet")
+    assert dw.room_goals_text(room) == "0 of 1 material point at its drying goal."
+    for visit in survey.visits:
+        visit.rooms[1].materials = []  # no dry standard: no goal
+    room = _room(drying.drying_progress(survey), "wet")
+    assert dw.room_goals_text(room) == ("1 material point, without a dry standard to set a goal.")
+    assert "Time to goal" in dw.POINTS_HEADER  # the estimate can be hours as well as days

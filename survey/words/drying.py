@@ -48,7 +48,7 @@ POINTS_HEADER = (
     "Goal",
     "Goal met",
     "Drying rate",
-    "Days to goal",
+    "Time to goal",
 )
 LIMITS_LEAD = "Limits behind these tables:"
 OUTDOORS = "Outdoors"
@@ -430,8 +430,16 @@ def room_goals_text(room: RoomDrying) -> str:
     if not room.points:
         return "No material points are read in this room."
     if room.goals_set == 0:
-        return f"{len(room.points)} material points, none with a dry standard to set a goal."
-    return f"{room.goals_met} of {room.goals_set} material points at their drying goal."
+        count = len(room.points)
+        return (
+            f"{count} material point{'' if count == 1 else 's'}, "
+            f"{'without' if count == 1 else 'none with'} a dry standard to set a goal."
+        )
+    return (
+        f"{room.goals_met} of {room.goals_set} material point"
+        f"{'' if room.goals_set == 1 else 's'} at {'its' if room.goals_set == 1 else 'their'} "
+        "drying goal."
+    )
 
 
 # --- loggers ---------------------------------------------------------------------------------
