@@ -616,6 +616,33 @@ def test_winter_flat_report_section(tmp_path):
     assert "Default design month, outdoor mean temperature 0 °C‡" in text
 
 
+def test_a_room_with_nothing_to_project_gets_one_sentence_not_a_table():
+    """The basement being dried: its wet floors and walls are not projected (evaporation
+    keeps them cold) nor is an internal wall or a pipe. Each such room says so in one
+    paragraph naming every surface with its reason, instead of a table of dashes."""
+    from survey import report
+    from survey.report.markdown import Para, Table
+
+    survey = store.load_survey(FLAT.parent / "basement-burst-pipe-drying.json")
+    doc = report.build(survey, report.ReportOptions(generated_at="fixed"))
+    va = evaluate.assess_visit(survey)
+    rooms = season.project_site(va.findings, season.default_design_month())
+    assert rooms and not any(p.projected for room in rooms for p in room.surfaces)
+    assert not any(isinstance(b, Table) and b.name == "colder_month" for b in doc.blocks)
+    said = {
+        b.room: b.text
+        for b in doc.blocks
+        if isinstance(b, Para) and b.name == "colder_month_verdict"
+    }
+    assert set(said) == set(va.room_ids)
+    for room_id, room in zip(va.room_ids, rooms, strict=True):
+        text = said[room_id]
+        assert text.startswith("No surface of this room could be carried to the month: ")
+        for p in room.surfaces:
+            assert p.label in text
+    assert "(wet materials are drying, and evaporation keeps it cold)" in said[va.room_ids[0]]
+
+
 def test_report_uses_the_site_month():
     """A site with its own month is projected to it, and the report says it is the site's."""
     import msgspec

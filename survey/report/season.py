@@ -104,6 +104,17 @@ def season_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment) ->
         if room.reason is season.RoomReason.NO_OUTDOOR:
             doc.add(Para(ws.not_projected_reason(room.surfaces[0], room, finding, d) + "."))
             continue
+        if not any(p.projected for p in room.surfaces):
+            doc.add(
+                Para(
+                    ws.none_projected_text(room, finding, d),
+                    name="colder_month_verdict",
+                    room=room_id,
+                    visit=visit,
+                    values=room.surfaces,
+                )
+            )
+            continue
         excess = ws.excess_text(room, d)
         if excess:
             doc.add(Para(excess))

@@ -426,6 +426,17 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
     return lines
 
 
+def none_projected_text(room: RoomProjection, finding: RoomFinding | None, d: Display) -> str:
+    """A room none of whose surfaces could be carried to the month, in one paragraph rather
+    than a table of dashes: the surfaces grouped by the reason, in the order measured."""
+    groups: dict[str, list[SurfaceProjection]] = {}
+    for p in room.surfaces:
+        reason = not_projected_reason(p, room, finding, d).removeprefix("not projected: ")
+        groups.setdefault(reason, []).append(p)
+    parts = [f"{_names(surfaces)} ({reason})" for reason, surfaces in groups.items()]
+    return "No surface of this room could be carried to the month: " + "; ".join(parts) + "."
+
+
 def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = None) -> list[str]:
     """The app's room panel: the design month in brief (and, when the site's month was
     refused, ``site_problem`` says why in one line) and the worst surface, today's surface RH
