@@ -33,7 +33,10 @@ def read_room_volume(
         if not low <= value <= high:
             raise InputError(field, text, f"{allowed} (read as {value:.3g} m³)")
         return value
-    reading = units.read("volume", text, field, system)
+    try:
+        reading = units.read("volume", text, field, system)
+    except InputError as exc:  # a room's volume may also be given by its dimensions
+        raise units.with_dimensions(exc) from None
     if not low <= reading.value <= high:
         raise reading.error(allowed)
     return reading.value

@@ -512,6 +512,16 @@ def parse_volume(text: object, field: str = "volume", system: UnitSystem = "si")
     return read("volume", text, field, system).value
 
 
+def with_dimensions(exc: InputError) -> InputError:
+    """A volume's refusal that says the dimensions are taken too (where they are)."""
+    return InputError(
+        exc.field,
+        exc.value,
+        f"{exc.allowed}, or three dimensions: 4.2 x 3.1 x 2.4",
+        read_as=exc.read_as,
+    )
+
+
 def parse_volume_or_dimensions(
     text: object, field: str = "volume", system: UnitSystem = "si"
 ) -> float:
@@ -520,7 +530,10 @@ def parse_volume_or_dimensions(
     raw = str(text)
     parts = raw.lower().replace("×", "x").split("x")
     if len(parts) == 1:
-        return parse_volume(raw, field, system)
+        try:
+            return parse_volume(raw, field, system)
+        except InputError as exc:
+            raise with_dimensions(exc) from None
     if len(parts) != 3 or not all(p.strip() for p in parts):
         raise InputError(field, text, "a volume (30, 30 m3) or three dimensions: 4.2 x 3.1 x 2.4")
     sides = [parse_length(p, field, system) for p in parts]

@@ -53,6 +53,7 @@ BAD_INPUTS = [
     ("room", "room-height", "-2", "-2"),
     ("room", "room-showers-per-day", "lots", "lots"),
     ("site", "site-reference", "", "empty"),
+    ("site", "site-year", "2090", "2090"),  # after this year (1990 mistyped)
 ]
 
 

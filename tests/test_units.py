@@ -534,3 +534,16 @@ def test_read_any_takes_the_quantity_whose_unit_was_typed():
     assert (reading.quantity, reading.value) == ("energy", 12.9)
     with pytest.raises(InputError, match="not a power or energy unit"):
         units.read_any(("power", "energy"), "12 V", "p")
+
+
+def test_a_volume_refused_says_dimensions_are_taken_too():
+    """Where dimensions are read (a room's volume), a refused volume says so: the message
+    once offered only ``30, 30 m3, 1060 ft3``."""
+    from survey import quick
+    from survey.errors import InputError
+
+    for read in (units.parse_volume_or_dimensions, quick.read_room_volume):
+        with pytest.raises(InputError) as caught:
+            read("abc", "Room volume")
+        assert str(caught.value).endswith("or three dimensions: 4.2 x 3.1 x 2.4")
+        assert caught.value.value == "abc"

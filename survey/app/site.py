@@ -94,7 +94,7 @@ class SiteScreen(walk.WalkScreen):
                 "Year built",
                 "" if site.year_built is None else str(site.year_built),
                 walk.optional(walk.whole("Year built")),
-                self._setter("year_built", "Year built"),
+                self._year_setter(),
                 id="site-year",
                 disabled=ro,
             )
@@ -178,6 +178,19 @@ class SiteScreen(walk.WalkScreen):
             survey.site = walk.checked(survey.site, label, **{name: value})
             self.committed()
             return ""
+
+        return commit
+
+    def _year_setter(self):
+        """The year built: not after this year (a typed 2090 for 1990 would drop the
+        cautions that go by the building's age)."""
+        setter = self._setter("year_built", "Year built")
+
+        def commit(value):
+            this_year = self.app.clock().year
+            if value is not None and value > this_year:
+                raise InputError("Year built", str(value), f"a year up to {this_year}")
+            return setter(value)
 
         return commit
 
