@@ -325,3 +325,24 @@ async def test_a_refused_value_is_named_as_it_was_typed(tmp_path):
         await type_into(pilot, app, "room-temp", "99")
         message = message_of(app, "room-temp")
         assert "air temperature 99:" in message and "99.0" not in message
+
+
+async def test_a_long_field_not_being_typed_in_shows_the_start_of_its_text(tmp_path):
+    """A field's text longer than its box showed its end ("…nels, single-glazed timber
+    windows") until it was typed in; now a field without the focus shows its start, on
+    the screen's first showing and after the focus leaves it."""
+    from textual.widgets import Input
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await goto(pilot, app, "site")
+        box = app.screen.query_one("#site-construction-input", Input)
+        assert len(box.value) > box.size.width and box.cursor_position == 0
+        box.focus()
+        await pilot.pause()
+        assert box.cursor_position == len(box.value)  # typing in it: the whole text selected
+        await pilot.press("tab")
+        await pilot.pause()
+        assert box.cursor_position == 0

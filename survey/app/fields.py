@@ -36,6 +36,12 @@ class FieldInput(Input):
     """A field's input: text pasted with line breaks is refused with a message, not cut to
     its first line (a value pasted with the next one under it must not lose the second)."""
 
+    def on_mount(self) -> None:
+        self.cursor_position = 0  # a field not being typed in shows the start of its text
+
+    def on_blur(self) -> None:
+        self.cursor_position = 0
+
     def _on_paste(self, event: events.Paste) -> None:
         text = event.text
         if text and len(text.splitlines()) > 1:
