@@ -346,3 +346,24 @@ async def test_a_long_field_not_being_typed_in_shows_the_start_of_its_text(tmp_p
         await pilot.press("tab")
         await pilot.pause()
         assert box.cursor_position == 0
+
+
+async def test_an_empty_volume_says_what_it_stands_for(tmp_path):
+    """The demo's main bedroom has no volume typed but a floor area (11.6 m²) and a height
+    (2.4 m): the empty field says the 27.8 m³ the advice uses comes from them (its example
+    "30 or 4.2 x 3.1 x 2.4" read like a value), and follows the area when it changes."""
+    from textual.widgets import Input
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    room = store.load_survey(path).rooms[0]
+    assert room.volume_m3 is None and (room.floor_area_m2, room.height_m) == (11.6, 2.4)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        box = app.screen.query_one("#room-volume-input", Input)
+        assert box.value == "" and box.placeholder == "not given: 27.8 m³ from area × height"
+        await type_into(pilot, app, "room-floor-area", "10")
+        assert box.placeholder == "not given: 24.0 m³ from area × height"
+        await type_into(pilot, app, "room-height", "")
+        assert box.placeholder == "not given; e.g. 30, or 4.2 x 3.1 x 2.4"

@@ -8,7 +8,7 @@ from rich.text import Text
 from textual import events, on
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
-from textual.widgets import Checkbox, DataTable, Select, Static
+from textual.widgets import Checkbox, DataTable, Input, Select, Static
 
 from survey import evaluate, model, words
 from survey import thresholds as th
@@ -85,6 +85,15 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.editor.survey, self.editor.visit_index, self.room_id
         )
 
+    @staticmethod
+    def _volume_placeholder(room: model.Room, system: str) -> str:
+        """What an empty volume field stands for: the floor area × height the advice uses,
+        or an example (said so, so that it is not read as a value)."""
+        estimate = room.volume_estimate_m3()
+        if estimate is None:
+            return "not given; e.g. 30, or 4.2 x 3.1 x 2.4"
+        return f"not given: {words.Display(system)('volume', estimate)} from area × height"
+
     def title_line(self) -> Text:
         line = Text("Room — ", style="bold")
         line.append(plain(self.room.name))
@@ -131,7 +140,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     walk.optional(walk.volume_or_dimensions("Room volume", system)),
                     self._set_room("volume_m3", "Room volume"),
                     id="room-volume",
-                    placeholder="30 or 4.2 x 3.1 x 2.4",
+                    placeholder=self._volume_placeholder(room, system),
                     disabled=ro,
                 )
                 yield Field(
@@ -330,6 +339,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self.query_one(".screen-title", Static).update(self.title_line())
+        self.query_one("#room-volume-input", Input).placeholder = self._volume_placeholder(
+            self.room, self.editor.unit_system
+        )
 
     def _fill_materials(self, record, judged, last_value) -> None:
         table = self.query_one(MaterialTable)
