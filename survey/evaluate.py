@@ -67,6 +67,14 @@ def drying_in_progress(room_visit: model.RoomVisit) -> bool:
 _DEHUMIDIFIERS = frozenset({"refrigerant_dehumidifier", "desiccant_dehumidifier"})
 
 
+def year_built(survey: model.Survey, visit: model.Visit) -> int | None:
+    """The building's year as the cautions take it: a year after the visit's cannot be
+    right (a mistyped 2090 for 1990), so it is taken as not known, and the cautions that go
+    by the building's age are given as for a building of unknown age."""
+    year = survey.site.year_built
+    return None if year is not None and year > visit.started_at.year else year
+
+
 def drying_equipment(
     survey: model.Survey, visit: model.Visit, room_visit: model.RoomVisit
 ) -> assess.DryingEquipment | None:
@@ -361,7 +369,7 @@ def assess_visit(
         else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
     )
     findings = assess.assess_site(
-        rooms, outdoor, model.pressure_pa_for(survey, visit), year_built=survey.site.year_built
+        rooms, outdoor, model.pressure_pa_for(survey, visit), year_built=year_built(survey, visit)
     )
     return VisitAssessment(
         visit_index=index,
@@ -418,7 +426,10 @@ def assess_room(
         else assess.OutdoorInput(visit.outdoor.dry_bulb_c, visit.outdoor.rh_pct)
     )
     site = assess.assess_site(
-        [judged], outdoor, model.pressure_pa_for(survey, visit), year_built=survey.site.year_built
+        [judged],
+        outdoor,
+        model.pressure_pa_for(survey, visit),
+        year_built=year_built(survey, visit),
     )
     advice = advise.advise_site(site, target_rh_pct)
     return RoomAssessment(site.rooms[0], advice.rooms[0], advice.cautions)

@@ -36,7 +36,7 @@ def read_room_volume(
     try:
         reading = units.read("volume", text, field, system)
     except InputError as exc:  # a room's volume may also be given by its dimensions
-        raise units.with_dimensions(exc) from None
+        raise units.with_dimensions(exc, system) from None
     if not low <= reading.value <= high:
         raise reading.error(allowed)
     return reading.value

@@ -512,12 +512,16 @@ def parse_volume(text: object, field: str = "volume", system: UnitSystem = "si")
     return read("volume", text, field, system).value
 
 
-def with_dimensions(exc: InputError) -> InputError:
+#: Three dimensions of a room, as an example in each unit system (metres, feet).
+DIMENSIONS_EXAMPLE = {"si": "4.2 x 3.1 x 2.4", "ip": "14 x 10 x 8"}
+
+
+def with_dimensions(exc: InputError, system: UnitSystem = "si") -> InputError:
     """A volume's refusal that says the dimensions are taken too (where they are)."""
     return InputError(
         exc.field,
         exc.value,
-        f"{exc.allowed}, or three dimensions: 4.2 x 3.1 x 2.4",
+        f"{exc.allowed}, or three dimensions: {DIMENSIONS_EXAMPLE[system]}",
         read_as=exc.read_as,
     )
 
@@ -533,12 +537,14 @@ def parse_volume_or_dimensions(
         try:
             return parse_volume(raw, field, system)
         except InputError as exc:
-            raise with_dimensions(exc) from None
+            raise with_dimensions(exc, system) from None
+    example = DIMENSIONS_EXAMPLE[system]
     if len(parts) != 3 or not all(p.strip() for p in parts):
-        raise InputError(field, text, "a volume (30, 30 m3) or three dimensions: 4.2 x 3.1 x 2.4")
+        volume = "30, 30 m3" if system == "si" else "1060, 1060 ft3"
+        raise InputError(field, text, f"a volume ({volume}) or three dimensions: {example}")
     sides = [parse_length(p, field, system) for p in parts]
     if not all(side > 0.0 for side in sides):  # two negative sides would multiply out
-        raise InputError(field, text, "three dimensions, each above 0: 4.2 x 3.1 x 2.4")
+        raise InputError(field, text, f"three dimensions, each above 0: {example}")
     return sides[0] * sides[1] * sides[2]
 
 

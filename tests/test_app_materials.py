@@ -116,7 +116,7 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
         assert [r[2] for r in _cells(table)] == ["to read"] * len(locations)
         await pilot.press("down")
         assert _detail(app, "surfaces").startswith(f"{locations[1]} (")
-        assert "to read this visit (last visit " in _detail(app, "surfaces")
+        assert "to read this visit; last visit " in _detail(app, "surfaces")
         await pilot.press("enter")  # read the second point
         await pilot.pause()
         app.focused.value = "11.5"
@@ -137,7 +137,47 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
         ]
         assert _detail(app, "materials") == (
             f"{first.materials[0].location} ({first.materials[0].material}): to read this "
-            f"visit (last visit {first.materials[0].value:g} (meter's relative scale))"
+            f"visit; last visit {first.materials[0].value:g} (meter's relative scale)"
         )
     saved = store.load_survey(path).visits[1].room_visit(first.room)
     assert [(s.location, s.surface_temp_c) for s in saved.surfaces] == [(locations[1], 11.5)]
+
+
+def test_walk_order_keeps_last_visits_order_with_repeated_and_new_points():
+    """Rows by last visit's order, whether read yet or not; a location written twice last
+    visit keeps both its places (its readings take them in turn); new points at the end in
+    the order they were added."""
+    from survey.app.judging import walk_order
+
+    last = ["a", "b", "a", "c"]
+    assert walk_order(last, [], last) == [("pending", n) for n in range(4)]
+    assert walk_order(last, ["c", "new", "b"], ["a", "a"]) == [
+        ("pending", 0),
+        ("read", 2),
+        ("pending", 1),
+        ("read", 0),
+        ("read", 1),
+    ]
+    assert walk_order(last, ["a", "a", "a"], ["b", "c"]) == [
+        ("read", 0),
+        ("pending", 0),
+        ("read", 1),
+        ("pending", 1),
+        ("read", 2),
+    ]
+    assert walk_order([], ["x", "y"], []) == [("read", 0), ("read", 1)]
+
+
+def test_the_kinds_offered_are_the_models():
+    """The instrument and equipment dialogs offer every kind the survey file takes, each
+    in words, and nothing else (a kind missing from the list could not be shown)."""
+    from typing import get_args
+
+    from survey import model
+    from survey.app.equipment import KINDS
+    from survey.app.site import INSTRUMENT_KINDS
+
+    assert [k for _, k in INSTRUMENT_KINDS] == list(get_args(model.InstrumentKind))
+    assert [k for _, k in KINDS] == list(get_args(model.EquipmentKind))
+    for words_shown, kind in (*INSTRUMENT_KINDS, *KINDS):
+        assert words_shown and "_" not in words_shown, kind

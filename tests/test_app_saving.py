@@ -425,6 +425,57 @@ async def test_leaving_a_screen_with_half_an_air_reading_asks_first(tmp_path):
     assert path.read_bytes() == before  # nothing half-saved
 
 
+async def test_half_an_air_reading_is_asked_about_under_help_and_typed_text_first(tmp_path):
+    """With the help screen over the room, a screen key still asks about the half reading
+    under it; a second screen key while the question shows does not leave past it. An RH
+    typed but not committed is committed before the question, so the reading is whole and
+    saved, and nothing is asked."""
+    import json
+
+    from survey.app.air import AirPair
+    from survey.app.dialogs import ConfirmDialog
+
+    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
+    data["visits"][0]["rooms"][0].pop("air", None)
+    path = tmp_path / "no-air.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    room_id = data["visits"][0]["rooms"][0]["room"]
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await settle(pilot, app)
+        app.open_room(room_id)
+        await settle(pilot, app)
+        app.screen.query_one("#room-temp-input").focus()
+        send_keys(app, "20")
+        await pilot.press("enter")
+        await settle(pilot, app)
+        await pilot.press("f1")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "HelpScreen"
+        await pilot.press("f4")
+        await settle(pilot, app)
+        assert isinstance(app.screen, ConfirmDialog)
+        await pilot.press("f5")  # asked already: the question stays, nothing is left
+        await settle(pilot, app)
+        assert isinstance(app.screen, ConfirmDialog)
+        await pilot.press("n")
+        await settle(pilot, app)
+        await pilot.press("escape")  # out of help
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "RoomScreen"
+        assert app.screen.query_one(AirPair).temp_c == 20.0
+
+        rh = app.screen.query_one("#room-rh-input")
+        rh.focus()
+        await pilot.pause()
+        rh.value = "60"  # typed, not committed
+        await pilot.press("f4")
+        await settle(pilot, app)
+        assert type(app.screen).__name__ == "RoomListScreen"
+    air = store.load_survey(path).visits[0].rooms[0].air
+    assert (air.dry_bulb_c, air.rh_pct) == (20.0, 60.0)
+
+
 async def test_an_air_reading_emptied_is_deleted_only_when_confirmed_and_u_puts_it_back(tmp_path):
     """The demo's main bedroom holds 17.5 °C, 72 %. The temperature emptied and committed
     asks; n keeps the reading (the field shows it again, the file unchanged). Asked again,

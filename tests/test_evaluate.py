@@ -364,3 +364,25 @@ def test_a_logged_rate_no_unit_gives_is_not_taken_as_the_load():
         a for a in _room_advice(judged, judged.room_ids[0]).actions if a.kind.value == "dehumidify"
     )
     assert dehumidify.numbers.logged_removal_l_per_day is None
+
+
+def test_a_year_built_after_the_visit_is_taken_as_not_known():
+    """The winter flat was built in 1964 (the example): its rooms get the old-materials
+    caution. Typed as 2090, a year after the visit, it cannot be right, and the caution
+    stays, as for a building of unknown age (it was dropped)."""
+    survey = load("winter-flat-bedroom-mould")
+
+    def old_materials(year):
+        survey.site.year_built = year
+        judged = evaluate.assess_visit(survey, 0)
+        return [
+            c.year_built
+            for room in judged.advice.rooms
+            for c in room.cautions
+            if c.key == "asbestos_lead"
+        ]
+
+    assert old_materials(1964) and set(old_materials(1964)) == {1964}
+    assert old_materials(2090) and set(old_materials(2090)) == {None}
+    assert not old_materials(2020)  # after the asbestos and lead years: none
+    assert evaluate.year_built(survey, survey.visits[0]) == 2020

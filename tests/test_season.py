@@ -616,12 +616,12 @@ def test_winter_flat_report_section(tmp_path):
     assert "Default design month, outdoor mean temperature 0 °C‡" in text
 
 
-def test_a_room_with_nothing_to_project_gets_one_sentence_not_a_table():
+def test_a_room_with_nothing_to_project_gets_a_list_not_a_table():
     """The basement being dried: its wet floors and walls are not projected (evaporation
-    keeps them cold) nor is an internal wall or a pipe. Each such room says so in one
-    paragraph naming every surface with its reason, instead of a table of dashes."""
+    keeps them cold) nor is an internal wall or a pipe. Each such room says so and lists
+    every surface with its reason, instead of a table of dashes."""
     from survey import report
-    from survey.report.markdown import Para, Table
+    from survey.report.markdown import Items, Para, Table
 
     survey = store.load_survey(FLAT.parent / "basement-burst-pipe-drying.json")
     doc = report.build(survey, report.ReportOptions(generated_at="fixed"))
@@ -629,18 +629,40 @@ def test_a_room_with_nothing_to_project_gets_one_sentence_not_a_table():
     rooms = season.project_site(va.findings, season.default_design_month())
     assert rooms and not any(p.projected for room in rooms for p in room.surfaces)
     assert not any(isinstance(b, Table) and b.name == "colder_month" for b in doc.blocks)
-    said = {
+    leads = {
         b.room: b.text
         for b in doc.blocks
         if isinstance(b, Para) and b.name == "colder_month_verdict"
     }
-    assert set(said) == set(va.room_ids)
+    lists = {
+        b.room: b.items
+        for b in doc.blocks
+        if isinstance(b, Items) and b.name == "colder_month_surfaces"
+    }
+    assert set(leads) == set(lists) == set(va.room_ids)
     for room_id, room in zip(va.room_ids, rooms, strict=True):
-        text = said[room_id]
-        assert text.startswith("No surface of this room could be carried to the month: ")
-        for p in room.surfaces:
-            assert p.label in text
-    assert "(wet materials are drying, and evaporation keeps it cold)" in said[va.room_ids[0]]
+        assert leads[room_id] == ws.NONE_PROJECTED
+        assert [label for label, _ in lists[room_id]] == [p.label + ":" for p in room.surfaces]
+    assert lists[va.room_ids[0]][0][1] == (
+        "wet materials are drying, and evaporation keeps it cold."
+    )
+
+
+def test_a_saturated_room_keeps_its_warning_when_nothing_is_projected():
+    """A room so humid that its own air would saturate in the design month (14 °C at 97 %
+    here): the reason and what to check stay in the report, before the list of surfaces."""
+    from survey import report
+    from survey.report.markdown import Para
+
+    survey = store.load_survey(FLAT)
+    air = survey.visits[0].rooms[0].air
+    air.dry_bulb_c, air.rh_pct = 14.0, 97.0
+    va = evaluate.assess_visit(survey)
+    room = season.project_room(va.findings.rooms[0], season.default_design_month())
+    assert room.reason is season.RoomReason.ROOM_SATURATED
+    doc = report.build(survey, report.ReportOptions(generated_at="fixed"))
+    texts = [b.text for b in doc.blocks if isinstance(b, Para)]
+    assert ws.excess_text(room, words.SI) in texts
 
 
 def test_report_uses_the_site_month():

@@ -60,17 +60,23 @@ def test_timber_ranks_by_its_limits_where_there_is_no_standard():
     )
 
 
-def test_the_example_readings_rank_as_judged():
-    """Every judged reading of the drying example: rank 2 exactly when it is above its dry
-    standard or timber at or over the mould limit (``timber_mould_mc_pct``)."""
+def test_the_example_readings_rank_by_the_limits():
+    """Every judged reading of the drying example, end to end: a timber reading in % MC
+    ranks 2 exactly when it is at or over the moisture content at which mould grows on
+    timber (``timber_mould_mc_pct``) or above its dry standard; a reading with a dry
+    standard ranks 2 exactly when it is over the standard plus its tolerance
+    (``dry_standard_tolerance_fraction``), else 0."""
     findings = _findings()
     assert findings
+    mould_mc = th.value("timber_mould_mc_pct")
+    tolerance = th.value("dry_standard_tolerance_fraction")
+    timber = [m for m in findings if m.timber_state is not None and m.scale == "mc_pct"]
+    standard = [m for m in findings if m.dry_standard is not None]
+    assert timber and standard
     for m in findings:
-        over = m.dry_standard_state is DryStandardState.ABOVE or (
-            m.timber_state is not None and m.timber_state is not TimberState.DRY
+        over_standard = m.dry_standard is not None and m.value > m.dry_standard * (1 + tolerance)
+        over_timber = m in timber and m.value >= mould_mc
+        expected = (
+            2 if over_standard or over_timber else 0 if m in timber or m in standard else None
         )
-        assert (words.material_rank(m) == 2) is over
-        if m.timber_state is not None and m.scale == "mc_pct":
-            assert (m.value >= th.value("timber_mould_mc_pct")) is (
-                m.timber_state is not TimberState.DRY
-            )
+        assert words.material_rank(m) == expected, m

@@ -80,10 +80,24 @@ def walk_order(last: Sequence[Hashable], read: Sequence[Hashable], pending: Sequ
     points of last visit keep last visit's order whether read yet or not (a point read moves
     nowhere, so the row under the cursor is the one the technician sees); this visit's new
     points follow in the order they were added. Each point is given by its key (a surface's
-    location; a material point's location and material)."""
-    where = {key: n for n, key in reversed(list(enumerate(last)))}
-    rows = [((where.get(key, len(last)), 0, n), ("read", n)) for n, key in enumerate(read)]
-    rows += [((where.get(key, len(last)), 1, n), ("pending", n)) for n, key in enumerate(pending)]
+    location; a material point's location and material); ``pending`` is the part of ``last``
+    not read yet, in its order. A key written twice last visit matches its readings in turn."""
+    places: dict[Hashable, list[int]] = {}
+    for n, key in enumerate(last):
+        places.setdefault(key, []).append(n)
+    taken: dict[Hashable, int] = {}  # how many of a key's places are taken so far
+    rows = []
+
+    def place(key: Hashable) -> int:
+        free = places.get(key, [])
+        count = taken.get(key, 0)
+        taken[key] = count + 1
+        return free[count] if count < len(free) else len(last)
+
+    for n, key in enumerate(read):
+        rows.append(((place(key), 0, n), ("read", n)))
+    for n, key in enumerate(pending):
+        rows.append(((place(key), 1, n), ("pending", n)))
     return [row for _, row in sorted(rows)]
 
 

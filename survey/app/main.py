@@ -231,12 +231,25 @@ class SurveyApp(App):
             self.push_screen(StartScreen())
 
     def may_leave(self, then: Callable[[], object]) -> bool:
-        """Whether the screen shown can be left now. Half an air reading on it (a temperature
-        with no RH, or the other way round), which is not saved, is asked about first, as
-        quitting asks: let go, the half is dropped and ``then`` runs; kept, nothing moves."""
+        """Whether the walk's screens can be left now. Text typed but not committed is
+        committed first (leaving commits it anyway). Half an air reading on any of them (a
+        temperature with no RH, or the other way round), which is not saved, is asked about
+        first, as quitting asks: let go, the half is dropped and ``then`` runs; kept,
+        nothing moves. While the question is showing, nothing else leaves."""
         from survey.app.air import AirPair
 
-        pairs = [p for p in self.screen.query(AirPair) if p.unsaved_half() is not None]
+        if any(getattr(screen, "leave_question", False) for screen in self.screen_stack):
+            return False  # asked already: answered there
+        for screen in self.screen_stack:
+            commit = getattr(screen, "commit_pending", None)
+            if commit is not None:
+                commit()
+        pairs = [
+            pair
+            for screen in self.screen_stack
+            for pair in screen.query(AirPair)
+            if pair.unsaved_half() is not None
+        ]
         if not pairs:
             return True
         from survey.app.dialogs import ConfirmDialog
@@ -247,14 +260,13 @@ class SurveyApp(App):
                     pair.show_reading(pair.reading)  # back to what is saved
                 then()
 
-        self.push_screen(
-            ConfirmDialog(
-                "Not saved: "
-                + "; ".join(str(p.unsaved_half()) for p in pairs)
-                + " (a reading is saved once it has both). Leave it unsaved?"
-            ),
-            answered,
+        question = ConfirmDialog(
+            "Not saved: "
+            + "; ".join(str(p.unsaved_half()) for p in pairs)
+            + " (a reading is saved once it has both). Leave it unsaved?"
         )
+        question.leave_question = True
+        self.push_screen(question, answered)
         return False
 
     def go(self, name: str) -> None:

@@ -10,7 +10,7 @@ from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.widgets import Checkbox, DataTable, Input, Select, Static
 
-from survey import evaluate, model, words
+from survey import evaluate, model, units, words
 from survey import thresholds as th
 from survey.app import equipment, judging, panel, room_details, walk
 from survey.app.air import AirPair
@@ -91,7 +91,8 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         or an example (said so, so that it is not read as a value)."""
         estimate = room.volume_estimate_m3()
         if estimate is None:
-            return "not given; e.g. 30, or 4.2 x 3.1 x 2.4"
+            volume = "30" if system == "si" else "1060"
+            return f"not given; e.g. {volume}, or {units.DIMENSIONS_EXAMPLE[system]}"
         return f"not given: {words.Display(system)('volume', estimate)} from area × height"
 
     def title_line(self) -> Text:
@@ -313,7 +314,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     self._detail(
                         s.location,
                         words.ELEMENT_WORDS.get(s.element, s.element),
-                        f"to read this visit (last visit {d.temperature(s.surface_temp_c)})",
+                        f"to read this visit; last visit {d.temperature(s.surface_temp_c)}",
                     )
                 )
                 table.add_row(
@@ -323,7 +324,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     Text(""),
                     Text("measured last visit"),
                     Text(""),
-                    Text(words.ELEMENT_WORDS.get(s.element, "")),
+                    Text(words.ELEMENT_WORDS.get(s.element, s.element)),
                     Text(d.temperature(s.surface_temp_c)),
                     key=f"p{n}",
                 )
@@ -382,7 +383,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                 )
                 said = (
                     "the dry standard for this material"
-                    if m.dry_standard or f is None
+                    if m.dry_standard
+                    else "not judged yet (the room's air reading is needed)"
+                    if f is None
                     else words.material_state_words(f)
                 )
             else:
@@ -396,7 +399,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     Text(f"{m.value:g}"),
                     key=f"q{n}",
                 )
-                said = f"to read this visit (last visit {reading_text(m.value, m.scale)})"
+                said = f"to read this visit; last visit {reading_text(m.value, m.scale)}"
             details.append(self._detail(m.location, m.material, said))
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))

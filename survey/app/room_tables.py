@@ -100,7 +100,7 @@ class RoomTables:
             self._replace_record("surface", surfaces=surfaces)
             self._changed()
             if pending is not None:
-                self._to_next_pending(SurfaceTable, "p", pending)
+                self._to_next_pending(SurfaceTable, "p", pending, f"s{len(surfaces) - 1}")
 
         title = (
             "Edit the surface"
@@ -154,7 +154,7 @@ class RoomTables:
             self._replace_record("material reading", materials=materials)
             self._changed()
             if pending is not None:
-                self._to_next_pending(MaterialTable, "q", pending)
+                self._to_next_pending(MaterialTable, "q", pending, f"m{len(materials) - 1}")
 
         title = (
             "Edit the material reading"
@@ -165,11 +165,12 @@ class RoomTables:
         )
         self.app.push_screen(MaterialDialog(title, reading, previous), done)
 
-    def _to_next_pending(self, table_type, prefix: str, read: int) -> None:
+    def _to_next_pending(self, table_type, prefix: str, read: int, read_key: str) -> None:
         """After a point of last visit is read, the cursor goes to the next one still to
-        read (the one read has left the list, so the next has its number), or stays."""
+        read (the one read has left the list, so the next has its number); with none after
+        it, it stays on the row just read (``read_key``)."""
         table = self.query_one(table_type)
-        for key in (f"{prefix}{read}", f"{prefix}{read - 1}"):
+        for key in (f"{prefix}{read}", read_key):
             try:
                 row = table.get_row_index(key)
             except RowDoesNotExist:  # nothing left to read there

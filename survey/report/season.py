@@ -104,18 +104,26 @@ def season_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment) ->
         if room.reason is season.RoomReason.NO_OUTDOOR:
             doc.add(Para(ws.not_projected_reason(room.surfaces[0], room, finding, d) + "."))
             continue
+        excess = ws.excess_text(room, d)
         if not any(p.projected for p in room.surfaces):
+            if excess and room.reason is season.RoomReason.ROOM_SATURATED:
+                doc.add(Para(excess))  # why: the room's own air, and what to check
             doc.add(
                 Para(
-                    ws.none_projected_text(room, finding, d),
+                    ws.NONE_PROJECTED,
                     name="colder_month_verdict",
                     room=room_id,
                     visit=visit,
                     values=room.surfaces,
-                )
+                ),
+                Items(
+                    ws.none_projected_items(room, finding, d),
+                    name="colder_month_surfaces",
+                    room=room_id,
+                    visit=visit,
+                ),
             )
             continue
-        excess = ws.excess_text(room, d)
         if excess:
             doc.add(Para(excess))
         doc.add(*_surfaces(room, finding, room_id, visit, d))

@@ -426,15 +426,22 @@ def room_verdict_lines(room: RoomProjection) -> list[str]:
     return lines
 
 
-def none_projected_text(room: RoomProjection, finding: RoomFinding | None, d: Display) -> str:
-    """A room none of whose surfaces could be carried to the month, in one paragraph rather
-    than a table of dashes: the surfaces grouped by the reason, in the order measured."""
-    groups: dict[str, list[SurfaceProjection]] = {}
-    for p in room.surfaces:
-        reason = not_projected_reason(p, room, finding, d).removeprefix("not projected: ")
-        groups.setdefault(reason, []).append(p)
-    parts = [f"{_names(surfaces)} ({reason})" for reason, surfaces in groups.items()]
-    return "No surface of this room could be carried to the month: " + "; ".join(parts) + "."
+#: A room none of whose surfaces could be carried to the month: the lead of its list.
+NONE_PROJECTED = "No surface of this room could be carried to the month:"
+
+
+def none_projected_items(
+    room: RoomProjection, finding: RoomFinding | None, d: Display
+) -> tuple[tuple[str, str], ...]:
+    """Each surface of such a room with why it was not carried over, as list items (label,
+    reason), in the order measured: a few lines rather than a table of dashes."""
+    return tuple(
+        (
+            visible(p.label) + ":",
+            not_projected_reason(p, room, finding, d).removeprefix("not projected: ") + ".",
+        )
+        for p in room.surfaces
+    )
 
 
 def panel_lines(room: RoomProjection, d: Display, site_problem: str | None = None) -> list[str]:
