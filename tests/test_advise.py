@@ -16,6 +16,7 @@ from advice_cases import (
     coolprop,
     drying_room,
     plain,
+    summer_basement,
     wet_skirting_hall,
     winter_bedroom,
     wmo_frost_point_c,
@@ -141,15 +142,7 @@ def test_humid_summer_case_dehumidification_wins():
 
     A basement at 22 °C / 75 % under 28 °C / 75 % outdoor air: outdoor air is wetter, so
     the action is to dehumidify; the numbers follow the water balance (CoolProp W, v)."""
-    room = RoomInput(
-        "Basement",
-        "basement",
-        22.0,
-        75.0,
-        (SurfaceInput("slab", 17.0),),
-        volume_m3=60.0,
-        occupants=0,
-    )
+    room = summer_basement()
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     assert ActionKind.VENTILATE not in kinds(advice)
     dehum = action(advice, ActionKind.DEHUMIDIFY)
@@ -180,15 +173,7 @@ def test_dehumidify_cites_the_rating_points():
     The dehumidifier action cites both rating points: 80 °F = 26.7 °C (AHAM DH-1) and
     65 °F = 18.3 °C (current US test), both at 60 % RH [R, secondary]; °F → °C by hand,
     (F − 32) × 5/9."""
-    room = RoomInput(
-        "Basement",
-        "basement",
-        22.0,
-        75.0,
-        (SurfaceInput("slab", 17.0),),
-        volume_m3=60.0,
-        occupants=0,
-    )
+    room = summer_basement()
     _, advice = advice_for(room, OutdoorInput(28.0, 75.0))
     keys = action(advice, ActionKind.DEHUMIDIFY).threshold_keys
     assert {

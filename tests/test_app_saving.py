@@ -319,6 +319,31 @@ async def test_the_open_survey_opened_again_stays_editable_under_its_lock(tmp_pa
     assert not store.lock_path(path).exists()
 
 
+def _without_air(tmp_path, outdoor: bool = True):
+    """The demo with no air reading in its first room (and, ``outdoor`` False, none
+    outdoors): the file's path and the room's id."""
+    import json
+
+    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
+    data["visits"][0]["rooms"][0].pop("air", None)
+    if not outdoor:
+        data["visits"][0].pop("outdoor", None)
+    path = tmp_path / "no-air.json"
+    path.write_text(json.dumps(data), encoding="utf-8")
+    return path, data["visits"][0]["rooms"][0]["room"]
+
+
+async def _half_a_reading(pilot, app, room_id: str) -> None:
+    """The room opened and 20 °C committed with no RH: half a reading, not saved."""
+    await settle(pilot, app)
+    app.open_room(room_id)
+    await settle(pilot, app)
+    app.screen.query_one("#room-temp-input").focus()
+    send_keys(app, "20")
+    await pilot.press("enter")
+    await settle(pilot, app)
+
+
 async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
     """A room with no air reading: 20 °C typed and committed with no RH is kept on screen
     but cannot be saved. Ctrl+Q then asks; n stays (the 20 °C still there); Ctrl+Q twice
@@ -328,20 +353,10 @@ async def test_quitting_with_half_an_air_reading_asks_first(tmp_path):
     from survey.app.air import AirPair
     from survey.app.dialogs import ConfirmDialog
 
-    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
-    data["visits"][0]["rooms"][0].pop("air", None)
-    path = tmp_path / "no-air.json"
-    path.write_text(json.dumps(data), encoding="utf-8")
-    room_id = data["visits"][0]["rooms"][0]["room"]
+    path, room_id = _without_air(tmp_path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await settle(pilot, app)
-        app.open_room(room_id)
-        await settle(pilot, app)
-        app.screen.query_one("#room-temp-input").focus()
-        send_keys(app, "20")
-        await pilot.press("enter")
-        await settle(pilot, app)
+        await _half_a_reading(pilot, app, room_id)
         assert app.screen.query_one(AirPair).unsaved_half() is not None
         await pilot.press("ctrl+q")
         await settle(pilot, app)
@@ -367,27 +382,15 @@ async def test_leaving_a_screen_with_half_an_air_reading_asks_first(tmp_path):
     (only quitting asked). Now each asks as quitting does: n stays with the half on screen;
     y lets it go, the screen is left, and coming back shows the field empty again. The
     outdoor reading on the visit screen is asked about the same way."""
-    import json
 
     from survey.app.air import AirPair
     from survey.app.dialogs import ConfirmDialog
 
-    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
-    data["visits"][0]["rooms"][0].pop("air", None)
-    data["visits"][0].pop("outdoor", None)
-    path = tmp_path / "no-air.json"
-    path.write_text(json.dumps(data), encoding="utf-8")
-    room_id = data["visits"][0]["rooms"][0]["room"]
+    path, room_id = _without_air(tmp_path, outdoor=False)
     before = path.read_bytes()
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await settle(pilot, app)
-        app.open_room(room_id)
-        await settle(pilot, app)
-        app.screen.query_one("#room-temp-input").focus()
-        send_keys(app, "20")
-        await pilot.press("enter")
-        await settle(pilot, app)
+        await _half_a_reading(pilot, app, room_id)
         for key in ("escape", "f5", "f7"):
             await pilot.press(key)
             await settle(pilot, app)
@@ -430,25 +433,14 @@ async def test_half_an_air_reading_is_asked_about_under_help_and_typed_text_firs
     under it; a second screen key while the question shows does not leave past it. An RH
     typed but not committed is committed before the question, so the reading is whole and
     saved, and nothing is asked."""
-    import json
 
     from survey.app.air import AirPair
     from survey.app.dialogs import ConfirmDialog
 
-    data = json.loads(DEMO_SOURCE.read_text(encoding="utf-8"))
-    data["visits"][0]["rooms"][0].pop("air", None)
-    path = tmp_path / "no-air.json"
-    path.write_text(json.dumps(data), encoding="utf-8")
-    room_id = data["visits"][0]["rooms"][0]["room"]
+    path, room_id = _without_air(tmp_path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await settle(pilot, app)
-        app.open_room(room_id)
-        await settle(pilot, app)
-        app.screen.query_one("#room-temp-input").focus()
-        send_keys(app, "20")
-        await pilot.press("enter")
-        await settle(pilot, app)
+        await _half_a_reading(pilot, app, room_id)
         await pilot.press("f1")
         await settle(pilot, app)
         assert type(app.screen).__name__ == "HelpScreen"

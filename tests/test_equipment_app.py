@@ -26,6 +26,16 @@ async def _settle(pilot, app) -> None:
     await pilot.pause()
 
 
+async def _add_in_family_room(pilot, app) -> None:
+    """The family room's equipment table, and its add dialog opened."""
+    await _settle(pilot, app)
+    app.open_room("family")
+    await _settle(pilot, app)
+    app.screen.query_one("#equipment").focus()
+    await pilot.press("a")
+    await _settle(pilot, app)
+
+
 def _type(app, text: str) -> None:
     """Replace the focused input's text."""
     field = app.focused
@@ -43,12 +53,7 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
     shutil.copyfile(BASEMENT, path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await _settle(pilot, app)
-        app.open_room("family")
-        await _settle(pilot, app)
-        app.screen.query_one("#equipment").focus()
-        await pilot.press("a")
-        await _settle(pilot, app)
+        await _add_in_family_room(pilot, app)
         for text in (None, "D2", None, "20", "1.2kg"):
             if text is None:  # a drop-down (kind, running): Enter opens it, Enter keeps it
                 await pilot.press("enter")
@@ -173,12 +178,7 @@ async def test_kind_and_running_are_chosen_from_lists_in_words(tmp_path):
     shutil.copyfile(BASEMENT, path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await _settle(pilot, app)
-        app.open_room("family")
-        await _settle(pilot, app)
-        app.screen.query_one("#equipment").focus()
-        await pilot.press("a")
-        await _settle(pilot, app)
+        await _add_in_family_room(pilot, app)
         kind = app.screen.query_one("#prompt-0", Choice)
         assert app.focused is kind
         shown = [str(prompt) for prompt, _ in kind._options]

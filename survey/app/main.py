@@ -236,20 +236,9 @@ class SurveyApp(App):
         temperature with no RH, or the other way round), which is not saved, is asked about
         first, as quitting asks: let go, the half is dropped and ``then`` runs; kept,
         nothing moves. While the question is showing, nothing else leaves."""
-        from survey.app.air import AirPair
-
         if any(getattr(screen, "leave_question", False) for screen in self.screen_stack):
             return False  # asked already: answered there
-        for screen in self.screen_stack:
-            commit = getattr(screen, "commit_pending", None)
-            if commit is not None:
-                commit()
-        pairs = [
-            pair
-            for screen in self.screen_stack
-            for pair in screen.query(AirPair)
-            if pair.unsaved_half() is not None
-        ]
+        pairs = self._half_readings()
         if not pairs:
             return True
         from survey.app.dialogs import ConfirmDialog
@@ -420,19 +409,24 @@ class SurveyApp(App):
         for bar in self.screen.query(StatusBar):
             bar.show(text, kind)
 
-    async def action_quit(self) -> None:
+    def _half_readings(self):
+        """The air readings on any open screen that are half typed (a temperature with no
+        RH, or the other way round), after what was typed but not committed is committed."""
         from survey.app.air import AirPair
 
         for screen in self.screen_stack:
             commit = getattr(screen, "commit_pending", None)
             if commit is not None:
                 commit()
-        halves = [
-            half
+        return [
+            pair
             for screen in self.screen_stack
             for pair in screen.query(AirPair)
-            if (half := pair.unsaved_half()) is not None
+            if pair.unsaved_half() is not None
         ]
+
+    async def action_quit(self) -> None:
+        halves = [str(pair.unsaved_half()) for pair in self._half_readings()]
         if halves and not self._quitting:
             from survey.app.dialogs import ConfirmDialog
 
