@@ -362,8 +362,26 @@ async def test_an_empty_volume_says_what_it_stands_for(tmp_path):
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         box = app.screen.query_one("#room-volume-input", Input)
-        assert box.value == "" and box.placeholder == "not given: 27.8 m³ from area × height"
+        assert box.value == "" and box.placeholder == "area × height: 27.8 m³"
         await type_into(pilot, app, "room-floor-area", "10")
-        assert box.placeholder == "not given: 24.0 m³ from area × height"
+        assert box.placeholder == "area × height: 24.0 m³"
         await type_into(pilot, app, "room-height", "")
         assert box.placeholder == "not given; e.g. 30, or 4.2 x 3.1 x 2.4"
+
+
+async def test_a_volume_far_from_area_times_height_is_saved_with_a_warning(tmp_path):
+    """Dimensions in feet typed into an SI survey (14 x 10 x 8 read as metres: 1120 m³) for
+    the main bedroom of 11.6 m² × 2.4 m (27.8 m³): saved, as typed, but with a warning
+    naming both volumes (the advice's litres a day scale with it); a volume near area ×
+    height gets none."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        await type_into(pilot, app, "room-volume", "14 x 10 x 8")
+        message = message_of(app, "room-volume")
+        assert "Saved as 1120.0 m³" in message and "(27.8 m³)" in message
+        await type_into(pilot, app, "room-volume", "4.2 x 2.8 x 2.4")
+        assert message_of(app, "room-volume") == ""
+    assert store.load_survey(path).rooms[0].volume_m3 == pytest.approx(4.2 * 2.8 * 2.4)

@@ -202,3 +202,35 @@ async def test_kind_and_running_are_chosen_from_lists_in_words(tmp_path):
         ]
     saved = store.load_survey(path).visits[-1].room_visit("family").equipment[-1]
     assert (saved.kind, saved.label, saved.running) == ("air_mover", "AM 1", False)
+
+
+def test_a_new_visit_keeps_the_equipment_set_up_without_its_readings():
+    """The basement's last visit has a dehumidifier and air movers running in the family
+    room: a new visit starts with them there, as set up (kind, label, running, rating), and
+    without what they were measured at; the room still needs its readings."""
+    import datetime as dt
+
+    from survey.app import judging
+
+    survey = store.load_survey(BASEMENT)
+    last = survey.visits[-1]
+    before = last.room_visit("family").equipment
+    assert before and any(e.water_removed_l is not None for e in before)
+    visit = judging.new_visit(dt.datetime(2025, 2, 8, 9, 30), last)
+    survey.visits.append(visit)
+    kept = visit.room_visit("family").equipment
+    assert [(e.kind, e.label, e.running, e.capacity_l_per_day) for e in kept] == [
+        (e.kind, e.label, e.running, e.capacity_l_per_day) for e in before
+    ]
+    for unit in kept:
+        assert (unit.water_removed_l, unit.outlet, unit.inlet, unit.run_hours) == (
+            None,
+            None,
+            None,
+            None,
+        )
+        assert unit.energy_kwh is None
+    assert visit.room_visit("family").air is None
+    index = len(survey.visits) - 1
+    assert judging.readings_missing(survey, index, "family") >= 1
+    assert judging.new_visit(dt.datetime(2025, 2, 8), None).rooms == []

@@ -644,8 +644,10 @@ def test_a_room_with_nothing_to_project_gets_a_list_not_a_table():
         assert leads[room_id] == ws.NONE_PROJECTED
         assert [label for label, _ in lists[room_id]] == [p.label + ":" for p in room.surfaces]
     assert lists[va.room_ids[0]][0][1] == (
-        "wet materials are drying, and evaporation keeps it cold."
+        "the room is being dried, and evaporation from wet materials keeps its surfaces cold."
     )
+    text = report.render(doc)  # no limits listed for a projection nothing was put through
+    assert ws.LIMITS_LEAD not in text
 
 
 def test_a_saturated_room_keeps_its_warning_when_nothing_is_projected():

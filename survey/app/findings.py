@@ -16,6 +16,12 @@ from survey.words import screens
 from survey.words.report_end import applies_to
 
 
+def _rank(finding) -> int:
+    """The room's worst rank for ordering, worst first; nothing judged comes last."""
+    rank = judging.worst_rank(finding)
+    return -1 if rank is None else rank
+
+
 def _hanging(lead: str, body: Text, lead_style: str = "") -> Table:
     """``lead`` (a symbol, an indent, a number) with ``body`` beside it: wrapped lines of
     the body keep under its first word, not under the lead."""
@@ -37,10 +43,10 @@ def findings_view(survey, visit_index: int, d: words.Display) -> Group:
     head.append(plain(visit.label))
     parts.append(head)
     pairs = list(zip(judged.findings.rooms, judged.advice.rooms, judged.room_ids, strict=False))
-    pairs.sort(key=lambda p: -judging.worst_rank(p[0]))
+    pairs.sort(key=lambda p: -_rank(p[0]))
     unread = [r for r in survey.rooms if r.id not in judged.room_ids]
     for finding, advice, room_id in pairs:
-        rank = judging.worst_rank(finding)
+        rank = judging.worst_rank(finding)  # None: nothing judged, shown as "·"
         parts.append(Text(""))
         line = plain(survey.room(room_id).name, "bold")
         line.append(f" — {screens.worst_state_words(finding, d)}")

@@ -11,6 +11,8 @@ from __future__ import annotations
 import datetime as dt
 from collections.abc import Hashable, Sequence
 
+import msgspec
+
 from survey import assess, model
 from survey.words import states as words_states
 
@@ -24,13 +26,16 @@ def room_visit(survey: model.Survey, visit_index: int, room_id: str) -> model.Ro
 # --- how bad a room is, as a rank ------------------------------------------------------------
 
 
-def worst_rank(finding: assess.RoomFinding) -> int:
-    worst = words_states.worst_surface(finding.surfaces)
-    return 0 if worst is None else words_states.surface_rank(worst)
+def worst_rank(finding: assess.RoomFinding) -> int | None:
+    """The room's worst rank over its surfaces and material readings; None where nothing in
+    it was judged (no surface measured, no material reading judged): not "clear"."""
+    ranks = [words_states.surface_rank(s) for s in finding.surfaces]
+    ranks += [r for m in finding.materials if (r := words_states.material_rank(m)) is not None]
+    return max(ranks, default=None)
 
 
-#: A symbol per rank, so no state is shown by colour alone.
-RANK_SYMBOLS = {0: "✓", 1: "~", 2: "!", 3: "‼"}
+#: A symbol per rank, so no state is shown by colour alone ("·" for nothing judged).
+RANK_SYMBOLS = {None: "·", 0: "✓", 1: "~", 2: "!", 3: "‼"}
 #: What the symbols of the tables mean (the room list and the help screen show it).
 SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ condensing  ★ reference"
 
@@ -127,10 +132,28 @@ def next_room_needing(survey: model.Survey, visit_index: int, after: str | None)
     return None
 
 
-def new_visit(now: dt.datetime | None = None) -> model.Visit:
+def new_visit(now: dt.datetime | None = None, after: model.Visit | None = None) -> model.Visit:
     """A new visit starting now. The rooms belong to the site and carry over; the surface
-    locations and material points of the previous visit are offered as points to read."""
-    return model.Visit(started_at=(now or dt.datetime.now()).replace(second=0, microsecond=0))
+    locations and material points of the previous visit are offered as points to read. The
+    equipment left in the rooms on visit ``after`` is carried over as it was set up (kind,
+    label, running, its rating), without what it was measured at (water collected, air in
+    and out, hours, energy): a drying job's units stay from one day to the next."""
+    visit = model.Visit(started_at=(now or dt.datetime.now()).replace(second=0, microsecond=0))
+    for record in after.rooms if after is not None else ():
+        if record.equipment:
+            kept = [
+                msgspec.structs.replace(
+                    unit,
+                    water_removed_l=None,
+                    outlet=None,
+                    inlet=None,
+                    run_hours=None,
+                    energy_kwh=None,
+                )
+                for unit in record.equipment
+            ]
+            visit.rooms.append(model.RoomVisit(room=record.room, equipment=kept))
+    return visit
 
 
 def new_room_id(survey: model.Survey, name: str) -> str:

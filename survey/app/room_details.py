@@ -21,7 +21,7 @@ FLAG_SELECTS = {
 
 #: Moisture sources per day: (field, label, placeholder).
 _PER_DAY = (
-    ("showers_per_day", "Showers/day", "e.g. 2 (not said: usual for the use)"),
+    ("showers_per_day", "Showers/day", "not said: usual for the use"),
     ("baths_per_day", "Baths/day", "e.g. 1"),
     ("cooking_hours_per_day", "Cooking h/day", "e.g. 1.5"),
     ("laundry_loads_per_day", "Laundry loads/day", "loads dried indoors, e.g. 1"),
@@ -44,21 +44,21 @@ def room_fields(screen, room: model.Room, system: str, ro: bool):
         disabled=ro,
     )
     yield Field(
-        "Floor area",
+        "Floor area m²" if system == "si" else "Floor area ft²",
         walk.shown("area", room.floor_area_m2, system),
         walk.optional(walk.area("Floor area", system)),
         screen._set_room("floor_area_m2", "Floor area"),
         id="room-floor-area",
-        placeholder="m²" if system == "si" else "ft²",
+        placeholder="not given",
         disabled=ro,
     )
     yield Field(
-        "Height",
+        "Height m" if system == "si" else "Height ft",
         walk.shown("length", room.height_m, system),
         walk.optional(walk.length("Room height", system)),
         screen._set_room("height_m", "Room height"),
         id="room-height",
-        placeholder="m" if system == "si" else "ft",
+        placeholder="not given",
         disabled=ro,
     )
     for name, label, hint in _PER_DAY:

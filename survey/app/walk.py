@@ -116,7 +116,8 @@ class WalkScreen(Screen):
         def done(yes: bool) -> None:
             if yes:
                 survey = self.editor.survey
-                survey.visits.append(judging.new_visit(self.app.clock()))
+                last = survey.visits[-1] if survey.visits else None
+                survey.visits.append(judging.new_visit(self.app.clock(), last))
                 self.editor.visit_index = len(survey.visits) - 1
                 self.committed()
                 self.app.go("visit")
@@ -129,7 +130,7 @@ class WalkScreen(Screen):
             ConfirmDialog(
                 "Start a new visit now? The rooms, surface locations and material points of the "
                 "last visit are offered again (without their values), with last time's values "
-                "shown beside them."
+                "shown beside them; the equipment in the rooms stays (without its readings)."
             ),
             done,
         )

@@ -130,5 +130,6 @@ def season_section(doc: Document, ctx: Context, va: evaluate.VisitAssessment) ->
     summary = ws.site_verdict_lines(rooms)
     if summary:
         doc.add(Para("", strong=ws.SITE_VERDICT_LEAD), *(Para(line) for line in summary))
-    keys = {key for room in rooms for key in room.threshold_keys}
-    doc.add(*limits_blocks(th.cited(keys), d, ws.LIMITS_LEAD, "colder_month_limits"))
+    if any(p.projected for room in rooms for p in room.surfaces):  # else no limit was used
+        keys = {key for room in rooms for key in room.threshold_keys}
+        doc.add(*limits_blocks(th.cited(keys), d, ws.LIMITS_LEAD, "colder_month_limits"))

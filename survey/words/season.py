@@ -67,7 +67,8 @@ STATE_WORDS = {
 _NOT_PROJECTED = {
     FactorState.GROUND_CONTACT: "it is in contact with the ground, which sets its temperature, "
     "not the outdoor air",
-    FactorState.DRYING_WET: "wet materials are drying, and evaporation keeps it cold",
+    FactorState.DRYING_WET: "the room is being dried, and evaporation from wet materials "
+    "keeps its surfaces cold",
     FactorState.NOT_APPLICABLE: "this room use has no temperature-factor limit, so its factor "
     "is not judged",
 }

@@ -112,7 +112,7 @@ DRY_STANDARD_BRIEF = {
     DryStandardState.NO_REFERENCE: "no standard",
 }
 TIMBER_BRIEF = {
-    TimberState.DRY: "timber dry",
+    TimberState.DRY: "under mould range",
     TimberState.MOULD_RANGE: "mould range",
     TimberState.DECAY_RANGE: "decay range",
 }
