@@ -181,3 +181,45 @@ def test_the_kinds_offered_are_the_models():
     assert [k for _, k in KINDS] == list(get_args(model.EquipmentKind))
     for words_shown, kind in (*INSTRUMENT_KINDS, *KINDS):
         assert words_shown and "_" not in words_shown, kind
+
+
+async def test_after_the_last_point_the_cursor_goes_to_what_is_left_to_read(tmp_path):
+    """Read last in its table, a point sends the cursor back to the first one left above it;
+    with every surface read, on to the material points still to read (that table takes the
+    focus); with nothing left, it stays on the point just read."""
+    path = _demo_copy(tmp_path)
+    first = store.load_survey(path).visits[0].rooms[0]
+    app = make_app(path, data_dir=tmp_path / "data")
+
+    async def read(value: str) -> None:
+        await pilot.press("enter")
+        await pilot.pause()
+        app.focused.value = value
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        await pilot.press("f7")
+        await pilot.pause()
+        await pilot.press("y")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        app.open_room(first.room)
+        await pilot.pause()
+        surfaces = app.screen.query_one("#surfaces", DataTable)
+        materials = app.screen.query_one("#materials", DataTable)
+        surfaces.focus()
+        surfaces.move_cursor(row=surfaces.row_count - 1)
+        await pilot.pause()
+        await read("15")
+        assert surfaces.cursor_row == 0  # back to the first left to read
+        for _ in range(len(first.surfaces) - 1):
+            await read("15")
+        assert all(r[2] == "15.0 °C" for r in _cells(surfaces))
+        assert app.focused is materials and materials.cursor_row == 0
+        for _ in range(len(first.materials)):
+            await read("10")
+        assert app.focused is materials
+        assert materials.cursor_row == len(first.materials) - 1  # stays on the last read

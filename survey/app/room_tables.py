@@ -167,16 +167,31 @@ class RoomTables:
 
     def _to_next_pending(self, table_type, prefix: str, read: int, read_key: str) -> None:
         """After a point of last visit is read, the cursor goes to the next one still to
-        read (the one read has left the list, so the next has its number); with none after
-        it, it stays on the row just read (``read_key``)."""
+        read: the next in this table (the one read has left the list, so the next has its
+        number), else the first left above it, else the first in the other table of points
+        (which takes the focus); with none left anywhere it stays on the row just read
+        (``read_key``)."""
         table = self.query_one(table_type)
-        for key in (f"{prefix}{read}", read_key):
-            try:
-                row = table.get_row_index(key)
-            except RowDoesNotExist:  # nothing left to read there
-                continue
-            table.move_cursor(row=row)
+        for key in (f"{prefix}{read}", f"{prefix}0"):
+            if self._move_to(table, key):
+                return
+        other, other_prefix = (
+            (MaterialTable, "q") if table_type is SurfaceTable else (SurfaceTable, "p")
+        )
+        other_table = self.query_one(other)
+        if self._move_to(other_table, f"{other_prefix}0"):
+            other_table.focus()
             return
+        self._move_to(table, read_key)
+
+    @staticmethod
+    def _move_to(table, key: str) -> bool:
+        try:
+            row = table.get_row_index(key)
+        except RowDoesNotExist:  # no such row (nothing left to read there)
+            return False
+        table.move_cursor(row=row)
+        return True
 
     def _edit_equipment(self, index: int | None) -> None:
         if self.refuse_if_read_only():
