@@ -385,3 +385,33 @@ async def test_a_volume_far_from_area_times_height_is_saved_with_a_warning(tmp_p
         await type_into(pilot, app, "room-volume", "4.2 x 2.8 x 2.4")
         assert message_of(app, "room-volume") == ""
     assert store.load_survey(path).rooms[0].volume_m3 == pytest.approx(4.2 * 2.8 * 2.4)
+
+
+async def test_an_instrument_added_has_the_cursor(tmp_path):
+    """The demo lists three instruments; one added by keys (id, the kind's list opened and
+    kept, a name, the rest blank) is saved and the cursor is on it, so the next Enter edits
+    the new one, not the one above it."""
+    from textual.widgets import DataTable
+
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "site")
+        table = app.screen.query_one("#instruments", DataTable)
+        table.focus()
+        await pilot.pause()
+        await pilot.press("a")
+        await pilot.pause()
+        for step in ("th9", None, "Spare meter", "", "", "", ""):
+            if step is None:  # the kind: a drop-down, Enter opens it and Enter keeps it
+                await pilot.press("enter")
+                await pilot.pause()
+            else:
+                app.focused.value = step
+            await pilot.press("enter")
+            await pilot.pause()
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert table.row_count == 4 and table.cursor_row == 3
+    assert [i.id for i in store.load_survey(path).instruments][-1] == "th9"

@@ -276,6 +276,9 @@ class SiteScreen(walk.WalkScreen):
                 items[index] = result["record"]
             self.committed()
             self.fill_instruments()
+            # the cursor on the instrument just saved (a new one is the last row)
+            table = self.query_one("#instruments", DataTable)
+            table.move_cursor(row=len(items) - 1 if index is None else index)
 
         self.app.push_screen(PromptDialog(title, values, check), done)
 
