@@ -128,6 +128,13 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
         assert rows[1][2] == "11.5 °C" and rows[0][2] == "to read"
         assert table.cursor_row == 2  # on to the next point still to read
         assert _detail(app, "surfaces").startswith(f"{locations[2]} (")
+        table.move_cursor(row=1)  # the point read, opened again: last visit's value beside it
+        await pilot.press("enter")
+        await pilot.pause()
+        last = f"last {first.surfaces[1].surface_temp_c:.1f} °C"
+        assert last in [str(w.render()) for w in app.screen.query(".field-previous")]
+        await pilot.press("escape")
+        await pilot.pause()
 
         materials = app.screen.query_one("#materials", DataTable)
         materials.focus()

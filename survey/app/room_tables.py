@@ -77,7 +77,15 @@ class RoomTables:
             previous = f"last {d.temperature(point.surface_temp_c)}"
             self._edit_surface(None, template, previous, pending=index)
         else:
-            self._edit_surface(index, self.record().surfaces[index])
+            reading = self.record().surfaces[index]
+            before = self.previous()
+            last = next(
+                (s for s in (before.surfaces if before else ()) if s.location == reading.location),
+                None,
+            )
+            d = self.app.display_units
+            previous = "" if last is None else f"last {d.temperature(last.surface_temp_c)}"
+            self._edit_surface(index, reading, previous)
 
     def _edit_surface(self, index, reading, previous: str = "", pending: int | None = None) -> None:
         """Add (``index`` None), edit, or read again the ``pending`` point of last visit."""
@@ -131,7 +139,18 @@ class RoomTables:
             template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
             self._edit_material(None, template, f"last {point.value:g}", pending=index)
         else:
-            self._edit_material(index, self.record().materials[index])
+            reading = self.record().materials[index]
+            before = self.previous()
+            last = next(
+                (
+                    m
+                    for m in (before.materials if before else ())
+                    if (m.location, m.material) == (reading.location, reading.material)
+                ),
+                None,
+            )
+            previous = "" if last is None or last.value is None else f"last {last.value:g}"
+            self._edit_material(index, reading, previous)
 
     def _edit_material(
         self, index, reading, previous: str = "", pending: int | None = None
