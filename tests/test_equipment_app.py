@@ -234,3 +234,28 @@ def test_a_new_visit_keeps_the_equipment_set_up_without_its_readings():
     index = len(survey.visits) - 1
     assert judging.readings_missing(survey, index, "family") >= 1
     assert judging.new_visit(dt.datetime(2025, 2, 8), None).rooms == []
+
+
+def test_a_room_holding_only_carried_equipment_was_not_entered():
+    """A new visit begun and nothing read yet: the report does not say the family room was
+    "entered but the air was not measured" because its units were carried over; it is
+    among the rooms not entered. Once a reading is taken there, it was entered."""
+    import datetime as dt
+
+    from survey import model, report
+    from survey.app import judging
+
+    survey = store.load_survey(BASEMENT)
+    survey.visits.append(judging.new_visit(dt.datetime(2025, 2, 8, 9, 30), survey.visits[-1]))
+    options = report.ReportOptions(generated_at="fixed")
+    lead = "were not entered, so nothing is said about them: "
+
+    def not_entered() -> str:
+        text = report.markdown_report(survey, options)
+        assert "Entered but the air was not measured" not in text
+        return text[text.index(lead) + len(lead) :].split(".")[0]
+
+    assert "Basement family room" in not_entered()
+    family = survey.visits[-1].room_visit("family")
+    family.air = model.AirReading(dry_bulb_c=20.0, rh_pct=55.0)
+    assert "Basement family room" not in not_entered()
