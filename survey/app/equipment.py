@@ -95,11 +95,11 @@ def dialog(
         ("Label", e.label if e else ""),
         ("Running now", "no" if e and not e.running else "yes", RUNNING),
         (
-            "Rated capacity, L/day",
+            "Rated capacity, L/day (a dehumidifier; else blank)",
             "" if e is None or e.capacity_l_per_day is None else f"{e.capacity_l_per_day:g}",
         ),
         (
-            "Water removed since the last visit, L",
+            "Water removed since the last visit, L (a dehumidifier)",
             "" if e is None or e.water_removed_l is None else f"{e.water_removed_l:g}",
         ),
     ]
