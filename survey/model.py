@@ -379,6 +379,28 @@ class RoomVisit(Struct, **_RECORD):
     notes: Notes = ""
     photos: list[FileName] = []
 
+    def entered(self) -> bool:
+        """Whether anything was recorded here on the visit: False for a record holding only
+        the equipment carried over from the visit before, unread (the room not yet entered)."""
+        return not (
+            self.air is None
+            and not self.surfaces
+            and not self.materials
+            and not self.notes.strip()
+            and not self.photos
+            and self.heating_on is None
+            and self.windows_open is None
+            and self.observations == Observations()
+            and all(
+                e.water_removed_l is None
+                and e.outlet is None
+                and e.inlet is None
+                and e.run_hours is None
+                and e.energy_kwh is None
+                for e in self.equipment
+            )
+        )
+
 
 class Visit(Struct, **_RECORD):
     """One visit to the site: when, the weather, the outdoor air, and the rooms seen."""

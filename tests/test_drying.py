@@ -881,3 +881,23 @@ def test_one_point_is_said_in_the_singular():
     room = _room(drying.drying_progress(survey), "wet")
     assert dw.room_goals_text(room) == ("1 material point, without a dry standard to set a goal.")
     assert "Time to goal" in dw.POINTS_HEADER  # the estimate can be hours as well as days
+
+
+def test_equipment_carried_to_a_new_visit_does_not_count_as_a_visit_missed():
+    """A new visit begun with the rooms' units carried over, nothing read yet: no point has
+    missed a visit (the room was not entered), and a record is entered once anything is
+    read there."""
+    from survey.app import judging
+
+    survey = _basement()
+    before = drying.drying_progress(survey)
+    survey.visits.append(judging.new_visit(dt.datetime(2025, 2, 8, 9, 30), survey.visits[-1]))
+    after = drying.drying_progress(survey)
+    assert [[p.visits_missed for p in r.points] for r in after.rooms] == [
+        [p.visits_missed for p in r.points] for r in before.rooms
+    ]
+    record = survey.visits[-1].room_visit("family")
+    assert record.equipment and not record.entered()
+    record.air = model.AirReading(dry_bulb_c=20.0, rh_pct=55.0)
+    assert record.entered()
+    assert all(p.visits_missed == 1 for p in _room(drying.drying_progress(survey), "family").points)

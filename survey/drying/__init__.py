@@ -324,7 +324,7 @@ def _room_points(
             room = None if standard is None or source is None else source.room_id
             standard_visit = None if standard is None or source is None else source.visit_index
             series.setdefault(key, []).append(_Held(point, reading, room, standard_visit))
-    seen = [i for i in order if survey.visits[i].room_visit(room_id) is not None]
+    seen = [i for i in order if (rv := survey.visits[i].room_visit(room_id)) and rv.entered()]
     out: list[MaterialPoint] = []
     for key, held in series.items():
         made = _point(key, held)
@@ -438,7 +438,9 @@ def drying_progress(survey: model.Survey, judge: Judge | None = None) -> SiteDry
     loggers = [summarise_log(i, log, pressure) for i, log in enumerate(survey.logs)]
     out = []
     for room in survey.rooms:
-        seen = tuple(i for i in order if survey.visits[i].room_visit(room.id) is not None)
+        seen = tuple(
+            i for i in order if (rv := survey.visits[i].room_visit(room.id)) and rv.entered()
+        )
         room_loggers = tuple(s for s in loggers if s.room_id == room.id)
         if not seen and not room_loggers:
             continue

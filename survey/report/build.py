@@ -259,29 +259,6 @@ def _summary(doc: Document, ctx: Context, shown: list[int]) -> None:
 # --- scope and instruments -------------------------------------------------------------------
 
 
-def _carried_only(rv: model.RoomVisit) -> bool:
-    """A room's record on a visit that holds nothing but the equipment carried over from the
-    visit before, unread: the room was not entered on this visit."""
-    return (
-        rv.air is None
-        and not rv.surfaces
-        and not rv.materials
-        and not rv.notes.strip()
-        and not rv.photos
-        and rv.heating_on is None
-        and rv.windows_open is None
-        and rv.observations == model.Observations()
-        and all(
-            e.water_removed_l is None
-            and e.outlet is None
-            and e.inlet is None
-            and e.run_hours is None
-            and e.energy_kwh is None
-            for e in rv.equipment
-        )
-    )
-
-
 def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
     survey = ctx.survey
     doc.add(Heading(2, rw.HEADINGS["scope"]))
@@ -289,7 +266,7 @@ def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
         visit = survey.visits[index]
         va = ctx.assessment(index)
         measured = [ctx.room_name(r) for r in va.room_ids]
-        visited = {room: rv for room, rv in ctx.room_visits(index).items() if not _carried_only(rv)}
+        visited = {room: rv for room, rv in ctx.room_visits(index).items() if rv.entered()}
         unmeasured = [
             ctx.room_name(rv.room)
             for rv in visit.rooms
