@@ -83,6 +83,18 @@ async def test_typed_location_and_material_are_shown_as_text(tmp_path):
         assert _detail(app) == "[b]Corner[/b] ([red]plaster): no dry standard given"
 
 
+async def _second_visit_in(pilot, app, room_id: str) -> None:
+    """A new visit started by keys (F7, y), and the room opened on it."""
+    await pilot.pause()
+    await pilot.press("f7")
+    await pilot.pause()
+    await pilot.press("y")
+    await app.workers.wait_for_complete()
+    await pilot.pause()
+    app.open_room(room_id)
+    await pilot.pause()
+
+
 def _demo_copy(tmp_path: Path) -> Path:
     target = tmp_path / "flat.json"
     shutil.copyfile(DEMO, target)
@@ -99,14 +111,7 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
     first = store.load_survey(path).visits[0].rooms[0]
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=(100, 30)) as pilot:
-        await pilot.pause()
-        await pilot.press("f7")
-        await pilot.pause()
-        await pilot.press("y")
-        await app.workers.wait_for_complete()
-        await pilot.pause()
-        app.open_room(first.room)
-        await pilot.pause()
+        await _second_visit_in(pilot, app, first.room)
         table = app.screen.query_one("#surfaces", DataTable)
         table.focus()
         await pilot.pause()
@@ -207,14 +212,7 @@ async def test_after_the_last_point_the_cursor_goes_to_what_is_left_to_read(tmp_
         await pilot.pause()
 
     async with app.run_test(size=(100, 30)) as pilot:
-        await pilot.pause()
-        await pilot.press("f7")
-        await pilot.pause()
-        await pilot.press("y")
-        await app.workers.wait_for_complete()
-        await pilot.pause()
-        app.open_room(first.room)
-        await pilot.pause()
+        await _second_visit_in(pilot, app, first.room)
         surfaces = app.screen.query_one("#surfaces", DataTable)
         materials = app.screen.query_one("#materials", DataTable)
         surfaces.focus()
