@@ -38,6 +38,7 @@ from __future__ import annotations
 import datetime as dt
 from typing import Annotated, Literal
 
+import msgspec
 from msgspec import Meta, Struct, field
 
 from survey import domain
@@ -364,6 +365,13 @@ class Equipment(Struct, **_RECORD):
     rating_condition: RatingCondition | None = None
     notes: Notes = ""
 
+    def as_set_up(self) -> Equipment:
+        """The unit as it was set up (kind, label, running, rating, notes), without what it
+        was measured at on the visit: water collected, air in and out, hours, energy."""
+        return msgspec.structs.replace(
+            self, water_removed_l=None, outlet=None, inlet=None, run_hours=None, energy_kwh=None
+        )
+
 
 class RoomVisit(Struct, **_RECORD):
     """Everything recorded in one room on one visit."""
@@ -391,14 +399,7 @@ class RoomVisit(Struct, **_RECORD):
             and self.heating_on is None
             and self.windows_open is None
             and self.observations == Observations()
-            and all(
-                e.water_removed_l is None
-                and e.outlet is None
-                and e.inlet is None
-                and e.run_hours is None
-                and e.energy_kwh is None
-                for e in self.equipment
-            )
+            and all(e == e.as_set_up() for e in self.equipment)
         )
 
 

@@ -259,3 +259,23 @@ def test_a_room_holding_only_carried_equipment_was_not_entered():
     family = survey.visits[-1].room_visit("family")
     family.air = model.AirReading(dry_bulb_c=20.0, rh_pct=55.0)
     assert "Basement family room" not in not_entered()
+
+
+def test_a_visit_the_room_was_not_entered_on_passes_its_points_on():
+    """Visit 4 begun (the family room's units carried over) and the room not entered, then
+    visit 5: the room's points to read are visit 3's, as they were before equipment was
+    carried (the carried record has no points of its own to offer)."""
+    import datetime as dt
+
+    from survey.app import judging
+
+    survey = store.load_survey(BASEMENT)
+    third = survey.visits[-1].room_visit("family")
+    for day in (8, 9):
+        survey.visits.append(judging.new_visit(dt.datetime(2025, 2, day, 9, 30), survey.visits[-1]))
+    fifth = len(survey.visits) - 1
+    assert judging.previous_room_visit(survey, fifth, "family") is third
+    assert [s.location for s in judging.pending_surfaces(survey, fifth, "family")] == [
+        s.location for s in third.surfaces
+    ]
+    assert survey.visits[fifth].room_visit("family").equipment  # still carried

@@ -11,8 +11,6 @@ from __future__ import annotations
 import datetime as dt
 from collections.abc import Hashable, Sequence
 
-import msgspec
-
 from survey import assess, model
 from survey.words import states as words_states
 
@@ -46,11 +44,13 @@ SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ conde
 def previous_room_visit(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> model.RoomVisit | None:
-    """The same room on the visit before this one (by order in the file)."""
+    """The same room on the visit before this one (by order in the file) that it was
+    entered on (a record holding only the equipment carried over is passed by, so a room
+    not entered on one visit is offered the points of the one before)."""
     index = visit_index % len(survey.visits) if survey.visits else 0
     for earlier in reversed(survey.visits[:index]):
         found = earlier.room_visit(room_id)
-        if found is not None:
+        if found is not None and found.entered():
             return found
     return None
 
@@ -141,17 +141,7 @@ def new_visit(now: dt.datetime | None = None, after: model.Visit | None = None) 
     visit = model.Visit(started_at=(now or dt.datetime.now()).replace(second=0, microsecond=0))
     for record in after.rooms if after is not None else ():
         if record.equipment:
-            kept = [
-                msgspec.structs.replace(
-                    unit,
-                    water_removed_l=None,
-                    outlet=None,
-                    inlet=None,
-                    run_hours=None,
-                    energy_kwh=None,
-                )
-                for unit in record.equipment
-            ]
+            kept = [unit.as_set_up() for unit in record.equipment]
             visit.rooms.append(model.RoomVisit(room=record.room, equipment=kept))
     return visit
 
