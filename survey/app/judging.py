@@ -55,6 +55,25 @@ def previous_room_visit(
     return None
 
 
+def point_key(point: model.SurfaceReading | model.MaterialReading) -> Hashable:
+    """What makes a reading the same point from one visit to the next: a surface its
+    location, a material point its location and material."""
+    if isinstance(point, model.MaterialReading):
+        return (point.location, point.material)
+    return point.location
+
+
+def last_visits_point(
+    before: model.RoomVisit | None, point: model.SurfaceReading | model.MaterialReading
+) -> model.SurfaceReading | model.MaterialReading | None:
+    """The same point (:func:`point_key`) in the room's record of the visit before."""
+    if before is None:
+        return None
+    points = before.materials if isinstance(point, model.MaterialReading) else before.surfaces
+    key = point_key(point)
+    return next((p for p in points if point_key(p) == key), None)
+
+
 def pending_surfaces(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> list[model.SurfaceReading]:
@@ -63,8 +82,8 @@ def pending_surfaces(
     if before is None:
         return []
     now = room_visit(survey, visit_index, room_id)
-    done = {s.location for s in now.surfaces} if now is not None else set()
-    return [s for s in before.surfaces if s.location not in done]
+    done = {point_key(s) for s in now.surfaces} if now is not None else set()
+    return [s for s in before.surfaces if point_key(s) not in done]
 
 
 def pending_materials(
@@ -75,8 +94,8 @@ def pending_materials(
     if before is None:
         return []
     now = room_visit(survey, visit_index, room_id)
-    done = {(m.location, m.material) for m in now.materials} if now is not None else set()
-    return [m for m in before.materials if (m.location, m.material) not in done]
+    done = {point_key(m) for m in now.materials} if now is not None else set()
+    return [m for m in before.materials if point_key(m) not in done]
 
 
 def walk_order(last: Sequence[Hashable], read: Sequence[Hashable], pending: Sequence[Hashable]):

@@ -28,6 +28,9 @@ USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
 LOCATION_CELL = 20
 #: The material table's (a symbol comes first; the row's words in full are under the table).
 MATERIAL_LOCATION_CELL = 18
+#: A volume more than this many times above or below the floor area × height given is saved
+#: with a warning (our choice: a loft or a stairwell can differ, a unit mix-up is ~35×).
+VOLUME_WARN_RATIO = 2.0
 ODOURS = [
     ("not recorded", ""),
     ("none", "none"),
@@ -262,10 +265,8 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         self.query_one(LivePanel).show(judged, d)
         record = self.record()
         before = self.previous()
-        last_temp = {s.location: s.surface_temp_c for s in (before.surfaces if before else ())}
-        last_value = {
-            (m.location, m.material): m.value for m in (before.materials if before else ())
-        }
+        key = judging.point_key
+        last_temp = {key(s): s.surface_temp_c for s in (before.surfaces if before else ())}
         table = self.query_one(SurfaceTable)
         row = table.cursor_row
         table.clear()
@@ -273,16 +274,16 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         read = list(record.surfaces if record else ())
         pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
         order = judging.walk_order(
-            [s.location for s in (before.surfaces if before else ())],
-            [s.location for s in read],
-            [s.location for s in pending],
+            [key(s) for s in (before.surfaces if before else ())],
+            [key(s) for s in read],
+            [key(s) for s in pending],
         )
         details = self._details["surfaces"] = []
         for kind, n in order:
             if kind == "read":
                 s = read[n]
                 f = findings[n] if n < len(findings) else None
-                last = last_temp.get(s.location)
+                last = last_temp.get(key(s))
                 details.append(
                     self._detail(
                         s.location,
@@ -331,7 +332,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self._show_detail(table)
-        self._fill_materials(record, judged, last_value)
+        self._fill_materials(record, judged, before)
         table = self.query_one(EquipmentTable)
         row = table.cursor_row
         table.clear()
@@ -344,7 +345,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.room, self.editor.unit_system
         )
 
-    def _fill_materials(self, record, judged, last_value) -> None:
+    def _fill_materials(self, record, judged, before: model.RoomVisit | None) -> None:
         table = self.query_one(MaterialTable)
         row = table.cursor_row
         table.clear()
@@ -354,18 +355,19 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         pending = judging.pending_materials(
             self.editor.survey, self.editor.visit_index, self.room_id
         )
-        before = self.previous()
+        key = judging.point_key
+        last_value = {key(m): m.value for m in (before.materials if before else ())}
         order = judging.walk_order(
-            [(m.location, m.material) for m in (before.materials if before else ())],
-            [(m.location, m.material) for m in read],
-            [(m.location, m.material) for m in pending],
+            [key(m) for m in (before.materials if before else ())],
+            [key(m) for m in read],
+            [key(m) for m in pending],
         )
         details = self._details["materials"] = []
         for kind, n in order:
             if kind == "read":
                 m, f = read[n], judged_as[n]
                 rank = None if f is None else words.material_rank(f)
-                last = last_value.get((m.location, m.material))
+                last = last_value.get(key(m))
                 table.add_row(
                     Text("·" if rank is None else judging.RANK_SYMBOLS[rank]),
                     plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
@@ -458,7 +460,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             if value is None or room.floor_area_m2 is None or room.height_m is None:
                 return ""
             estimate = room.floor_area_m2 * room.height_m
-            if estimate / 2 <= value <= estimate * 2:
+            if estimate / VOLUME_WARN_RATIO <= value <= estimate * VOLUME_WARN_RATIO:
                 return ""
             d = words.Display(self.editor.unit_system)
             return (

@@ -78,11 +78,7 @@ class RoomTables:
             self._edit_surface(None, template, previous, pending=index)
         else:
             reading = self.record().surfaces[index]
-            before = self.previous()
-            last = next(
-                (s for s in (before.surfaces if before else ()) if s.location == reading.location),
-                None,
-            )
+            last = judging.last_visits_point(self.previous(), reading)
             d = self.app.display_units
             previous = "" if last is None else f"last {d.temperature(last.surface_temp_c)}"
             self._edit_surface(index, reading, previous)
@@ -140,15 +136,7 @@ class RoomTables:
             self._edit_material(None, template, f"last {point.value:g}", pending=index)
         else:
             reading = self.record().materials[index]
-            before = self.previous()
-            last = next(
-                (
-                    m
-                    for m in (before.materials if before else ())
-                    if (m.location, m.material) == (reading.location, reading.material)
-                ),
-                None,
-            )
+            last = judging.last_visits_point(self.previous(), reading)
             previous = "" if last is None or last.value is None else f"last {last.value:g}"
             self._edit_material(index, reading, previous)
 
