@@ -19,12 +19,12 @@ from survey.words.air import (
     _extract,
     _occupants_note,
     _ventilate,
-    _ventilated_space,
 )
 from survey.words.basis import moisture_basis, moisture_missing, target_basis
 from survey.words.display import Display
 from survey.words.sources import _find_source, _keep_drying, _remove_contaminated, _repeat
 from survey.words.surfaces import _glazing, _pipe, _raise_surface
+from survey.words.ventilated import _ventilated_space
 
 __all__ = [
     "TITLES",
