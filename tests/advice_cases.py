@@ -129,3 +129,19 @@ def up(value: float, places: int = 0) -> float:
     """``value`` rounded up at ``places`` decimals: a least figure is never shown below the
     one worked out."""
     return math.ceil(value * 10**places - 1e-9) / 10**places
+
+
+def bedroom_two_cold_walls():
+    """A bedroom at 16 °C / 75 % with two cold external walls (9.5 and 5.0 °C)."""
+    return RoomInput(
+        "Bedroom",
+        "bedroom",
+        16.0,
+        75.0,
+        (
+            SurfaceInput("north wall", 9.5, "external_wall"),
+            SurfaceInput("corner", 5.0, "external_wall"),
+        ),
+        volume_m3=30.0,
+        occupants=2,
+    )

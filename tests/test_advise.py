@@ -13,6 +13,7 @@ from advice_cases import (
     P,
     action,
     advice_for,
+    bedroom_two_cold_walls,
     coolprop,
     drying_room,
     plain,
@@ -1050,18 +1051,7 @@ def test_frost_on_glazing_is_called_frost():
 
 def test_two_raised_surfaces_name_their_surfaces():
     """Each raise-the-surface action names its surface, coldest first."""
-    room = RoomInput(
-        "Bedroom",
-        "bedroom",
-        16.0,
-        75.0,
-        (
-            SurfaceInput("north wall", 9.5, "external_wall"),
-            SurfaceInput("corner", 5.0, "external_wall"),
-        ),
-        volume_m3=30.0,
-        occupants=2,
-    )
+    room = bedroom_two_cold_walls()
     _, advice = advice_for(room, OutdoorInput(2.0, 90.0))
     surfaces = [a.surface for a in advice.actions if a.kind is ActionKind.RAISE_SURFACE_TEMPERATURE]
     assert surfaces == ["corner", "north wall"]

@@ -95,6 +95,13 @@ def message_of(app, field_id: str) -> str:
     return str(message.render()) if message.display else ""
 
 
+def _demo_app(tmp_path):
+    """A copy of the demo survey and the app opened on it (the data folder in tmp_path)."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    return path, make_app(path, data_dir=tmp_path / "data")
+
+
 async def goto(pilot, app, screen: str) -> None:
     if screen == "room":
         app.open_room(app.editor.survey.rooms[0].id)
@@ -184,9 +191,7 @@ async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
 
 async def test_room_names_are_text_not_markup(tmp_path):
     """A room called '[b]Loft[/b]' or '[/bold]' is shown literally and breaks nothing."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-name", "[b]Loft[/b]")
@@ -215,9 +220,7 @@ async def test_control_characters_from_a_file_are_made_visible(tmp_path):
 async def test_the_room_and_visit_details_are_saved_in_si(tmp_path):
     """Storey, floor area (typed in ft², stored in m²), height, showers a day, heating on,
     the visit's pressure, notes and photos: each committed value is in the saved file."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-level", "3")
@@ -274,9 +277,7 @@ async def test_the_live_panel_never_shows_a_refused_value(tmp_path):
     """RH typed as '70F' is refused (a temperature unit on an RH): the live panel goes back
     to the stored reading (72 % in the demo's main bedroom), never the 70 % typed on the
     way."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    _path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-rh", "70F")
@@ -291,9 +292,7 @@ async def test_enter_moves_past_a_tick_box_and_space_ticks_it(tmp_path):
     as it does from every field; Space ticks it."""
     from textual.widgets import Checkbox
 
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    _path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         app.screen.query_one("#surfaces").focus()
@@ -314,9 +313,7 @@ async def test_enter_moves_past_a_tick_box_and_space_ticks_it(tmp_path):
 async def test_a_refused_value_is_named_as_it_was_typed(tmp_path):
     """An RH of 101 and an air temperature of 99 °C are outside the core's domain; the
     message names them as typed ("101", "99"), not as the floats they were read as."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    _path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-rh", "101")
@@ -333,9 +330,7 @@ async def test_a_long_field_not_being_typed_in_shows_the_start_of_its_text(tmp_p
     the screen's first showing and after the focus leaves it."""
     from textual.widgets import Input
 
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    _path, app = _demo_app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
         await goto(pilot, app, "site")
         box = app.screen.query_one("#site-construction-input", Input)
@@ -374,9 +369,7 @@ async def test_a_volume_far_from_area_times_height_is_saved_with_a_warning(tmp_p
     the main bedroom of 11.6 m² × 2.4 m (27.8 m³): saved, as typed, but with a warning
     naming both volumes (the advice's litres a day scale with it); a volume near area ×
     height gets none."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
         await type_into(pilot, app, "room-volume", "14 x 10 x 8")
@@ -393,9 +386,7 @@ async def test_an_instrument_added_has_the_cursor(tmp_path):
     the new one, not the one above it."""
     from textual.widgets import DataTable
 
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    path, app = _demo_app(tmp_path)
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "site")
         table = app.screen.query_one("#instruments", DataTable)

@@ -10,6 +10,7 @@ import pytest
 from advice_cases import (
     action,
     advice_for,
+    bedroom_two_cold_walls,
     coolprop,
     every_reason,
     reason_of,
@@ -201,18 +202,7 @@ def test_every_action_kind_has_a_title():
 
 def test_two_raised_surfaces_have_two_titles():
     """Each raise-the-surface title names its surface, so two never read alike."""
-    room = RoomInput(
-        "Bedroom",
-        "bedroom",
-        16.0,
-        75.0,
-        (
-            SurfaceInput("north wall", 9.5, "external_wall"),
-            SurfaceInput("corner", 5.0, "external_wall"),
-        ),
-        volume_m3=30.0,
-        occupants=2,
-    )
+    room = bedroom_two_cold_walls()
     _, advice = advice_for(room, OutdoorInput(2.0, 90.0))
     titles = [
         words.action_title(a)
