@@ -56,7 +56,7 @@ from survey.psychro import (
 
 #: The schema version this program writes. Older versions are upgraded on load by the
 #: migrations in :mod:`survey.store.migrations`; newer ones are refused.
-SCHEMA_VERSION = 3
+SCHEMA_VERSION = 4
 
 # --- choices -----------------------------------------------------------------------------
 
@@ -243,7 +243,8 @@ class Room(Struct, **_RECORD):
 
     id: Id
     name: Name
-    level: Annotated[int, Meta(ge=-10, le=200)] = 0  #: storey: 0 ground, 1 first, −1 basement
+    #: Storey: 0 ground, 1 first, −1 basement; None: not recorded.
+    level: Annotated[int, Meta(ge=-10, le=200)] | None = None
     use: RoomUse = "other"
     volume_m3: (
         Annotated[float, Meta(ge=domain.ROOM_VOLUME_MIN_M3, le=domain.ROOM_VOLUME_MAX_M3)] | None
@@ -373,6 +374,23 @@ class Equipment(Struct, **_RECORD):
         )
 
 
+PointKind = Literal["surface", "material"]
+
+
+class LeftOut(Struct, **_RECORD):
+    """A point measured on an earlier visit and not read on this one, with the reason
+    (the plaster there was stripped out; a wardrobe blocked it today)."""
+
+    kind: PointKind
+    location: Name  #: the point's location, as written when it was measured
+    #: A material point's material (a material point is its location and material).
+    material: Text = ""
+    reason: Text = ""
+    #: True: the point is gone for good and is not offered again. False: it could not be
+    #: read this time and is offered again on the next visit.
+    for_good: bool = True
+
+
 class RoomVisit(Struct, **_RECORD):
     """Everything recorded in one room on one visit."""
 
@@ -386,6 +404,8 @@ class RoomVisit(Struct, **_RECORD):
     windows_open: bool | None = None
     notes: Notes = ""
     photos: list[FileName] = []
+    #: Points of an earlier visit not read on this one, and why.
+    left_out: list[LeftOut] = []
 
     def entered(self) -> bool:
         """Whether anything was recorded here on the visit: False for a record holding only
@@ -396,6 +416,7 @@ class RoomVisit(Struct, **_RECORD):
             and not self.materials
             and not self.notes.strip()
             and not self.photos
+            and not self.left_out
             and self.heating_on is None
             and self.windows_open is None
             and self.observations == Observations()

@@ -228,3 +228,59 @@ async def test_after_the_last_point_the_cursor_goes_to_what_is_left_to_read(tmp_
             await read("10")
         assert app.focused is materials
         assert materials.cursor_row == len(first.materials) - 1  # stays on the last read
+
+
+async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp_path):
+    """On a second visit, d on a surface still to read asks what became of it and why; the
+    point is kept as left out (saved at once) and the cursor goes on to the next point to
+    read. d on the point left out puts it back to read, u leaves it out again, and Enter on
+    it reads it after all, which takes the mark away."""
+    from survey import model
+    from survey.app import judging
+
+    path = _demo_copy(tmp_path)
+    first = store.load_survey(path).visits[0].rooms[0]
+    location = first.surfaces[0].location
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await _second_visit_in(pilot, app, first.room)
+        missing = judging.readings_missing(app.editor.survey, 1, first.room)
+        table = app.screen.query_one("#surfaces", DataTable)
+        table.focus()
+        await pilot.pause()
+        await pilot.press("d")
+        await pilot.pause()
+        await pilot.press("enter", "up", "enter")  # the drop-down: gone for good
+        await pilot.pause()
+        await pilot.press(*"plaster hacked off", "enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        saved = store.load_survey(path).visits[1].room_visit(first.room)
+        assert saved.left_out == [
+            model.LeftOut(kind="surface", location=location, reason="plaster hacked off")
+        ]
+        assert _cells(table)[0][2] == "left out" and table.cursor_row == 1
+        assert judging.readings_missing(app.editor.survey, 1, first.room) == missing - 1
+        table.move_cursor(row=0)
+        await pilot.pause()
+        assert _detail(app, "surfaces").endswith(
+            "left out this visit (plaster hacked off); gone for good, not offered again"
+        )
+        await pilot.press("d")  # back to read
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert _cells(table)[0][2] == "to read"
+        assert store.load_survey(path).visits[1].room_visit(first.room).left_out == []
+        await pilot.press("u")  # left out again
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert _cells(table)[0][2] == "left out"
+        await pilot.press("enter")  # read it after all
+        await pilot.pause()
+        app.focused.value = "12"
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert _cells(table)[0][2] == "12.0 °C"
+    saved = store.load_survey(path).visits[1].room_visit(first.room)
+    assert saved.left_out == [] and [s.location for s in saved.surfaces] == [location]

@@ -48,8 +48,8 @@ MULTILINE = "first line\n# second line\n\n- third | line <i>x</i>"
 
 def _hostile_survey(tmp_path: Path, plain: bool = False):
     """The basement survey (three visits, equipment, reference room) with every text field
-    replaced by a different hostile string (or, ``plain``, by plain words), and one photo
-    file present."""
+    replaced by a different hostile string (or, ``plain``, by plain words), a point left
+    out in each room of the last visit, and one photo file present."""
     doc = json.loads(BASEMENT.read_text(encoding="utf-8"))
     counter = iter(range(10_000))
     shown: list[str] = []
@@ -96,6 +96,10 @@ def _hostile_survey(tmp_path: Path, plain: bool = False):
             )
             room_visit["photos"] = [name]
             photo_names.append(name)
+    for room_visit in doc["visits"][-1]["rooms"]:  # a point left out, with its reason
+        room_visit["left_out"] = [
+            {"kind": "material", "location": one(), "material": one(), "reason": one()}
+        ]
     survey_path = tmp_path / "hostile.json"
     survey = store.loads_survey(json.dumps(doc).encode())
     store.save_survey(survey, survey_path)

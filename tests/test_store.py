@@ -879,7 +879,7 @@ def test_a_version_1_file_loads_unchanged_as_the_current_version(tmp_path, name)
     path = tmp_path / "v1.json"
     path.write_text(json.dumps(doc))
     upgraded = store.load_survey(path)
-    assert upgraded.schema_version == model.SCHEMA_VERSION == 3
+    assert upgraded.schema_version == model.SCHEMA_VERSION == 4
     expected = store.load_survey(source)
     for visit in expected.visits:
         for room in visit.rooms:
@@ -916,5 +916,32 @@ def test_a_version_2_room_without_occupants_had_none_and_a_version_3_room_has_th
     saved = tmp_path / "saved.json"
     store.save_survey(loaded, saved)
     assert "occupants" not in next(
+        r for r in json.loads(saved.read_text())["rooms"] if r["id"] == "kitchen"
+    )
+
+
+def test_a_version_3_room_without_a_storey_was_on_the_ground_floor_and_a_version_4_room_has_it_unrecorded(  # noqa: E501
+    tmp_path,
+):
+    """Version 3 left out a ground-floor room's storey (0 was the default); version 4
+    leaves out a storey not recorded. The upgrade writes the 0 in, so the version-3 file
+    keeps its meaning, and a version-4 file without it reads "not recorded"."""
+    source = Path("example_sites") / "coastal-cottage-summer.json"
+    doc = json.loads(source.read_text())
+    kitchen = next(room for room in doc["rooms"] if room["id"] == "kitchen")
+    assert kitchen.pop("level") == 0
+    doc["schema_version"] = 3
+    path = tmp_path / "v3.json"
+    path.write_text(json.dumps(doc))
+    upgraded = store.load_survey(path)
+    assert next(r for r in upgraded.rooms if r.id == "kitchen").level == 0
+    assert next(r for r in upgraded.rooms if r.id == "bed1").level == 1
+    doc["schema_version"] = 4
+    path.write_text(json.dumps(doc))
+    loaded = store.load_survey(path)
+    assert next(r for r in loaded.rooms if r.id == "kitchen").level is None
+    saved = tmp_path / "saved.json"
+    store.save_survey(loaded, saved)
+    assert "level" not in next(
         r for r in json.loads(saved.read_text())["rooms"] if r["id"] == "kitchen"
     )

@@ -10,7 +10,7 @@ from pathlib import Path
 
 import pytest
 
-from survey import store
+from survey import model, store
 from survey.errors import SurveyFileError
 from survey.store import fileio
 
@@ -165,24 +165,24 @@ def test_write_file_atomically_refuses_a_read_only_file(tmp_path):
 def test_duplicate_schema_version_keys_are_named_plainly(tmp_path):
     """Two schema_version keys give a message saying so, not 'between 2 and 2'."""
     doc = FLAT.read_text().replace(
-        '"schema_version": 3', '"schema_version": 4, "schema_version": 3', 1
+        '"schema_version": 4', '"schema_version": 5, "schema_version": 4', 1
     )
     path = tmp_path / "dup.json"
     path.write_text(doc)
     with pytest.raises(SurveyFileError) as err:
         store.load_survey(path)
     assert err.value.where == "schema_version"
-    assert "given 2 times (4 and 3)" in err.value.problem
-    assert "between 3 and 3" not in str(err.value)
+    assert "given 2 times (5 and 4)" in err.value.problem
+    assert "between 4 and 4" not in str(err.value)
 
 
 def test_a_value_with_one_allowed_number_says_which(tmp_path):
-    """A range that allows one value reads 'must be 3', not 'between 3 and 3'."""
+    """A range that allows one value reads 'must be 4', not 'between 4 and 4'."""
     survey = store.new_survey("x")
     survey.schema_version = 0
     with pytest.raises(SurveyFileError) as err:
         store.save_survey(survey, tmp_path / "s.json")
-    assert err.value.problem == "not saved: schema_version must be 3, not 0"
+    assert err.value.problem == f"not saved: schema_version must be {model.SCHEMA_VERSION}, not 0"
 
 
 def test_photo_outside_the_survey_folder_is_refused_on_load(tmp_path):

@@ -460,3 +460,15 @@ def test_target_basis_says_frost_point_below_0_c():
     assert words.target_basis(advice.target, words.SI).endswith(
         "the coldest wall, ceiling or floor (wall, -3.0 °C) comes within 3.0 K of the frost point."
     )
+
+
+def test_a_storey_is_said_without_ordinals():
+    """A "first floor" is the ground floor in some countries and the one above it in
+    others, so the report counts storeys from the ground (common practice, no source)."""
+    from survey.words.report_room import storey_words
+
+    assert storey_words(None) == "storey not recorded"
+    assert storey_words(0) == "on the ground storey"
+    assert storey_words(1) == "1 storey above ground"
+    assert storey_words(4) == "4 storeys above ground"
+    assert storey_words(-1) == "1 storey below ground"

@@ -68,8 +68,9 @@ def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) 
         + " room; · not judged yet. In the material table ! is a reading above its dry"
         " standard or timber in its mould or decay range, ✓ one at its standard (or timber"
         " below its mould range), and · a"
-        " dry-standard reading itself or one with nothing to judge it against. The line"
-        " under the surface and material tables says the highlighted row in full.\n"
+        " dry-standard reading itself or one with nothing to judge it against; – is a point"
+        " of an earlier visit left out of this one. The line under the surface and material"
+        " tables says the highlighted row in full.\n"
     )
     for title, bindings in sections():
         out.append(f"\n{title}\n", "bold")

@@ -41,66 +41,122 @@ SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ conde
 # --- the walk ----------------------------------------------------------------------------
 
 
+def _entered_before(
+    survey: model.Survey, visit_index: int, room_id: str
+) -> tuple[int, model.RoomVisit] | None:
+    index = visit_index % len(survey.visits) if survey.visits else 0
+    for at in range(index - 1, -1, -1):
+        found = survey.visits[at].room_visit(room_id)
+        if found is not None and found.entered():
+            return at, found
+    return None
+
+
 def previous_room_visit(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> model.RoomVisit | None:
     """The same room on the visit before this one (by order in the file) that it was
     entered on (a record holding only the equipment carried over is passed by, so a room
     not entered on one visit is offered the points of the one before)."""
-    index = visit_index % len(survey.visits) if survey.visits else 0
-    for earlier in reversed(survey.visits[:index]):
-        found = earlier.room_visit(room_id)
-        if found is not None and found.entered():
-            return found
-    return None
+    found = _entered_before(survey, visit_index, room_id)
+    return None if found is None else found[1]
 
 
-def point_key(point: model.SurfaceReading | model.MaterialReading) -> Hashable:
+Point = model.SurfaceReading | model.MaterialReading
+
+
+def point_key(point: Point | model.LeftOut) -> Hashable:
     """What makes a reading the same point from one visit to the next: a surface its
-    location, a material point its location and material."""
+    location, a material point its location and material. A point left out is keyed as
+    the point it stands for."""
+    if isinstance(point, model.LeftOut):
+        return point.location if point.kind == "surface" else (point.location, point.material)
     if isinstance(point, model.MaterialReading):
         return (point.location, point.material)
     return point.location
 
 
-def last_visits_point(
-    before: model.RoomVisit | None, point: model.SurfaceReading | model.MaterialReading
-) -> model.SurfaceReading | model.MaterialReading | None:
-    """The same point (:func:`point_key`) in the room's record of the visit before."""
-    if before is None:
-        return None
-    points = before.materials if isinstance(point, model.MaterialReading) else before.surfaces
+def _points(record: model.RoomVisit, kind: model.PointKind) -> Sequence[Point]:
+    return record.surfaces if kind == "surface" else record.materials
+
+
+def offered_points(
+    survey: model.Survey, visit_index: int, room_id: str, kind: model.PointKind
+) -> list[Point]:
+    """The points of ``kind`` this visit is asked to read, each as last read: those read
+    on the room's visits before this one (in file order, passing by records of a room not
+    entered) that were not left out for good since. The points read on the latest of them
+    come first, in its order, then those still carried from earlier visits. A point left
+    out for good is not offered again; measured anew, it carries on as the same point."""
+    index = visit_index % len(survey.visits) if survey.visits else 0
+    offered: list[Point] = []
+    for visit in survey.visits[:index]:
+        record = visit.room_visit(room_id)
+        if record is None or not record.entered():
+            continue
+        read = list(_points(record, kind))
+        keys = {point_key(p) for p in read}
+        keys |= {point_key(x) for x in record.left_out if x.kind == kind and x.for_good}
+        offered = read + [p for p in offered if point_key(p) not in keys]
+    return offered
+
+
+def last_visits_point(offered: Sequence[Point], point: Point) -> Point | None:
+    """The same point (:func:`point_key`) among the points offered to this visit
+    (:func:`offered_points`): the value it had when last read."""
     key = point_key(point)
-    return next((p for p in points if point_key(p) == key), None)
+    return next((p for p in offered if point_key(p) == key), None)
+
+
+def pending_points(
+    survey: model.Survey, visit_index: int, room_id: str, kind: model.PointKind
+) -> list[Point]:
+    """Points of ``kind`` offered to this visit (:func:`offered_points`) neither read yet
+    nor left out, in the order offered."""
+    offered = offered_points(survey, visit_index, room_id, kind)
+    if not offered:
+        return []
+    now = room_visit(survey, visit_index, room_id)
+    done = set()
+    if now is not None:
+        done = {point_key(p) for p in _points(now, kind)}
+        done |= {point_key(x) for x in now.left_out if x.kind == kind}
+    return [p for p in offered if point_key(p) not in done]
 
 
 def pending_surfaces(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> list[model.SurfaceReading]:
-    """Surfaces measured on the previous visit whose location has no reading yet."""
-    before = previous_room_visit(survey, visit_index, room_id)
-    if before is None:
-        return []
-    now = room_visit(survey, visit_index, room_id)
-    done = {point_key(s) for s in now.surfaces} if now is not None else set()
-    return [s for s in before.surfaces if point_key(s) not in done]
+    """Surfaces offered to this visit (:func:`offered_points`) neither read yet nor left
+    out."""
+    return pending_points(survey, visit_index, room_id, "surface")  # type: ignore[return-value]
 
 
 def pending_materials(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> list[model.MaterialReading]:
-    """Material points of the previous visit not read yet on this one."""
-    before = previous_room_visit(survey, visit_index, room_id)
-    if before is None:
-        return []
-    now = room_visit(survey, visit_index, room_id)
-    done = {point_key(m) for m in now.materials} if now is not None else set()
-    return [m for m in before.materials if point_key(m) not in done]
+    """Material points offered to this visit neither read yet nor left out."""
+    return pending_points(survey, visit_index, room_id, "material")  # type: ignore[return-value]
 
 
-def walk_order(last: Sequence[Hashable], read: Sequence[Hashable], pending: Sequence[Hashable]):
+def without_left_out(
+    record: model.RoomVisit, kind: model.PointKind, point: Point
+) -> list[model.LeftOut]:
+    """The record's points left out, less the one ``point`` now reads (a point read is
+    no longer left out)."""
+    key = point_key(point)
+    return [x for x in record.left_out if not (x.kind == kind and point_key(x) == key)]
+
+
+def walk_order(
+    last: Sequence[Hashable],
+    read: Sequence[Hashable],
+    pending: Sequence[Hashable],
+    left: Sequence[Hashable] = (),
+):
     """The rows of a table of points as (kind, index): ``("read", n)`` for this visit's
-    n-th reading, ``("pending", n)`` for the n-th point of last visit still to read. The
+    n-th reading, ``("pending", n)`` for the n-th point of last visit still to read,
+    ``("left", n)`` for the n-th point left out this visit. The
     points of last visit keep last visit's order whether read yet or not (a point read moves
     nowhere, so the row under the cursor is the one the technician sees); this visit's new
     points follow in the order they were added. Each point is given by its key (a surface's
@@ -122,6 +178,8 @@ def walk_order(last: Sequence[Hashable], read: Sequence[Hashable], pending: Sequ
         rows.append(((place(key), 0, n), ("read", n)))
     for n, key in enumerate(pending):
         rows.append(((place(key), 1, n), ("pending", n)))
+    for n, key in enumerate(left):
+        rows.append(((place(key), 2, n), ("left", n)))
     return [row for _, row in sorted(rows)]
 
 

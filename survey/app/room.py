@@ -88,6 +88,17 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.editor.survey, self.editor.visit_index, self.room_id
         )
 
+    def offered(self, kind: model.PointKind) -> list:
+        """The points of ``kind`` this visit is asked to read, as last read."""
+        return judging.offered_points(
+            self.editor.survey, self.editor.visit_index, self.room_id, kind
+        )
+
+    def left_out(self, kind: model.PointKind) -> list[tuple[int, model.LeftOut]]:
+        """This visit's points of ``kind`` left out, with their places in the record."""
+        record = self.record()
+        return [(n, x) for n, x in enumerate(record.left_out if record else ()) if x.kind == kind]
+
     @staticmethod
     def _volume_placeholder(room: model.Room, system: str) -> str:
         """What an empty volume field stands for: the floor area × height the advice uses,
@@ -264,19 +275,21 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         judged = evaluate.assess_room(survey, self.editor.visit_index, self.room_id)
         self.query_one(LivePanel).show(judged, d)
         record = self.record()
-        before = self.previous()
         key = judging.point_key
-        last_temp = {key(s): s.surface_temp_c for s in (before.surfaces if before else ())}
+        offered = self.offered("surface")
+        last_temp = {key(s): s.surface_temp_c for s in offered}
         table = self.query_one(SurfaceTable)
         row = table.cursor_row
         table.clear()
         findings = judged.finding.surfaces if judged else ()
         read = list(record.surfaces if record else ())
         pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
+        left = self.left_out("surface")
         order = judging.walk_order(
-            [key(s) for s in (before.surfaces if before else ())],
+            [key(s) for s in offered],
             [key(s) for s in read],
             [key(s) for s in pending],
+            [key(x) for _, x in left],
         )
         details = self._details["surfaces"] = []
         for kind, n in order:
@@ -309,6 +322,22 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     Text("" if last is None else d.temperature(last)),
                     key=f"s{n}",
                 )
+            elif kind == "left":
+                at, x = left[n]
+                s = judging.last_visits_point(offered, x)  # type: ignore[assignment]
+                element = "" if s is None else words.ELEMENT_WORDS.get(s.element, s.element)
+                details.append(self._detail(x.location, element, screens.left_out_detail(x)))
+                table.add_row(
+                    Text("–"),
+                    plain(walk.cut(x.location, LOCATION_CELL)),
+                    Text("left out"),
+                    Text(""),
+                    plain(walk.cut(screens.left_out_brief(x), 30)),
+                    Text(""),
+                    Text(element),
+                    Text("" if s is None else d.temperature(s.surface_temp_c)),
+                    key=f"x{at}",
+                )
             else:
                 s = pending[n]
                 details.append(
@@ -332,7 +361,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self._show_detail(table)
-        self._fill_materials(record, judged, before)
+        self._fill_materials(record, judged)
         table = self.query_one(EquipmentTable)
         row = table.cursor_row
         table.clear()
@@ -345,7 +374,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.room, self.editor.unit_system
         )
 
-    def _fill_materials(self, record, judged, before: model.RoomVisit | None) -> None:
+    def _fill_materials(self, record, judged) -> None:
         table = self.query_one(MaterialTable)
         row = table.cursor_row
         table.clear()
@@ -356,11 +385,14 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.editor.survey, self.editor.visit_index, self.room_id
         )
         key = judging.point_key
-        last_value = {key(m): m.value for m in (before.materials if before else ())}
+        offered = self.offered("material")
+        last_value = {key(m): m.value for m in offered}
+        left = self.left_out("material")
         order = judging.walk_order(
-            [key(m) for m in (before.materials if before else ())],
+            [key(m) for m in offered],
             [key(m) for m in read],
             [key(m) for m in pending],
+            [key(x) for _, x in left],
         )
         details = self._details["materials"] = []
         for kind, n in order:
@@ -390,6 +422,20 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     if f is None
                     else words.material_state_words(f)
                 )
+            elif kind == "left":
+                at, x = left[n]
+                was = judging.last_visits_point(offered, x)
+                table.add_row(
+                    Text("–"),
+                    plain(walk.cut(x.location, MATERIAL_LOCATION_CELL)),
+                    Text("left out"),
+                    plain(walk.cut(screens.left_out_brief(x), 24)),
+                    plain(walk.cut(x.material, 20)),
+                    Text("" if was is None else f"{was.value:g}"),
+                    key=f"y{at}",
+                )
+                details.append(self._detail(x.location, x.material, screens.left_out_detail(x)))
+                continue
             else:
                 m = pending[n]
                 table.add_row(

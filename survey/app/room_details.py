@@ -36,11 +36,11 @@ def room_fields(screen, room: model.Room, system: str, ro: bool):
     """The room's own details (kept across visits)."""
     yield Field(
         "Storey",
-        str(room.level),
-        walk.whole("Storey"),
+        "" if room.level is None else str(room.level),
+        walk.optional(walk.whole("Storey")),
         screen._set_room("level", "Storey"),
         id="room-level",
-        placeholder="0 ground, 1 first, -1 basement",
+        placeholder="not given: 0 ground, 1 first, -1 basement",
         disabled=ro,
     )
     yield Field(

@@ -10,9 +10,11 @@ from textual.widgets.data_table import RowDoesNotExist
 from survey import evaluate, model
 from survey.app import equipment, judging, walk
 from survey.app.air import AirPair
+from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
+from survey.safe_text import visible
 from survey.words import screens
 
 
@@ -61,10 +63,12 @@ class RoomTables:
         if key is None:
             return self.action_add_surface()
         index = int(key[1:])
-        if key.startswith("p"):
-            point = judging.pending_surfaces(
-                self.editor.survey, self.editor.visit_index, self.room_id
-            )[index]
+        if key[0] in "px":
+            point = (
+                judging.pending_surfaces(self.editor.survey, self.editor.visit_index, self.room_id)
+                if key[0] == "p"
+                else self._left_point("surface", index)
+            )[index if key[0] == "p" else 0]
             template = msgspec.structs.replace(
                 point,
                 surface_temp_c=None,
@@ -75,10 +79,10 @@ class RoomTables:
             )
             d = self.app.display_units
             previous = f"last {d.temperature(point.surface_temp_c)}"
-            self._edit_surface(None, template, previous, pending=index)
+            self._edit_surface(None, template, previous, pending=index if key[0] == "p" else None)
         else:
             reading = self.record().surfaces[index]
-            last = judging.last_visits_point(self.previous(), reading)
+            last = judging.last_visits_point(self.offered("surface"), reading)
             d = self.app.display_units
             previous = "" if last is None else f"last {d.temperature(last.surface_temp_c)}"
             self._edit_surface(index, reading, previous)
@@ -101,7 +105,8 @@ class RoomTables:
                 surfaces.append(result)
             else:
                 surfaces[index] = result
-            self._replace_record("surface", surfaces=surfaces)
+            left_out = judging.without_left_out(self.record(), "surface", result)
+            self._replace_record("surface", surfaces=surfaces, left_out=left_out)
             self._changed()
             if pending is not None:
                 self._to_next_pending(SurfaceTable, "p", pending, f"s{len(surfaces) - 1}")
@@ -128,15 +133,19 @@ class RoomTables:
         if key is None:
             return self.action_add_material()
         index = int(key[1:])
-        if key.startswith("q"):
-            point = judging.pending_materials(
-                self.editor.survey, self.editor.visit_index, self.room_id
-            )[index]
+        if key[0] in "qy":
+            point = (
+                judging.pending_materials(self.editor.survey, self.editor.visit_index, self.room_id)
+                if key[0] == "q"
+                else self._left_point("material", index)
+            )[index if key[0] == "q" else 0]
             template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
-            self._edit_material(None, template, f"last {point.value:g}", pending=index)
+            self._edit_material(
+                None, template, f"last {point.value:g}", pending=index if key[0] == "q" else None
+            )
         else:
             reading = self.record().materials[index]
-            last = judging.last_visits_point(self.previous(), reading)
+            last = judging.last_visits_point(self.offered("material"), reading)
             previous = "" if last is None or last.value is None else f"last {last.value:g}"
             self._edit_material(index, reading, previous)
 
@@ -158,7 +167,8 @@ class RoomTables:
                 materials.append(result)
             else:
                 materials[index] = result
-            self._replace_record("material reading", materials=materials)
+            left_out = judging.without_left_out(self.record(), "material", result)
+            self._replace_record("material reading", materials=materials, left_out=left_out)
             self._changed()
             if pending is not None:
                 self._to_next_pending(MaterialTable, "q", pending, f"m{len(materials) - 1}")
@@ -228,6 +238,54 @@ class RoomTables:
     def action_delete_equipment(self) -> None:
         self._delete("equipment")
 
+    def _left_point(self, kind: model.PointKind, index: int) -> list:
+        """The point the record's ``index``-th point left out stands for, as last read
+        (a one-item list; empty if no earlier visit read it)."""
+        found = judging.last_visits_point(self.offered(kind), self.record().left_out[index])
+        return [] if found is None else [found]
+
+    def _leave_out(self, kind: model.PointKind, point, pending: int) -> None:
+        """Ask why a point of last visit is not read on this one, and record it left out;
+        the cursor goes on to the next point to read, as after a reading."""
+
+        def done(values: list[str] | None) -> None:
+            if values is None:
+                return
+            gone, reason = values
+            record = self.record(create=True)
+            mark = model.LeftOut(
+                kind=kind,
+                location=point.location,
+                material=getattr(point, "material", "") if kind == "material" else "",
+                reason=reason.strip(),
+                for_good=gone == "yes",
+            )
+            left_out = [*judging.without_left_out(record, kind, point), mark]
+            self._replace_record("point left out", left_out=left_out)
+            self._changed()
+            table, prefix = (SurfaceTable, "p") if kind == "surface" else (MaterialTable, "q")
+            self._to_next_pending(
+                table, prefix, pending, f"{'xy'[prefix == 'q']}{len(left_out) - 1}"
+            )
+            self.app.show_status(f"Left out {visible(point.location)} — d on it puts it back.")
+
+        what = "surface" if kind == "surface" else f"{point.material} reading"
+        self.app.push_screen(
+            PromptDialog(
+                f"Leave out the {what} at {visible(point.location)}",
+                [
+                    (
+                        "What became of it",
+                        "no",
+                        [(w, "yes" if gone else "no") for w, gone in screens.LEFT_OUT_CHOICES],
+                    ),
+                    ("Why (e.g. plaster stripped out, behind a wardrobe today)", ""),
+                ],
+                note=screens.LEAVE_OUT_NOTE,
+            ),
+            done,
+        )
+
     def _delete(self, kind: str) -> None:
         table = self.query_one(
             {"surfaces": SurfaceTable, "materials": MaterialTable, "equipment": EquipmentTable}[
@@ -235,9 +293,27 @@ class RoomTables:
             ]
         )
         key = self._row(table)
-        if key is None or key[0] in "pq" or self.refuse_if_read_only():
+        if key is None or self.refuse_if_read_only():
             return
         index = int(key[1:])
+        if key[0] in "pq":
+            point_kind: model.PointKind = "surface" if key[0] == "p" else "material"
+            pending = judging.pending_points(
+                self.editor.survey, self.editor.visit_index, self.room_id, point_kind
+            )
+            self._leave_out(point_kind, pending[index], index)
+            return
+        if key[0] in "xy":
+            record = self.record()
+            left_out = list(record.left_out)
+            removed = left_out.pop(index)
+            self._replace_record("point left out", left_out=left_out)
+            self.undo_stack.append(("left_out", index, removed))
+            self._changed()
+            self.app.show_status(
+                f"{visible(removed.location)} is to read again — u leaves it out again."
+            )
+            return
         items = list(getattr(self.record(), kind))
         removed = items.pop(index)
         self._replace_record(kind, **{kind: items})
@@ -267,4 +343,7 @@ class RoomTables:
         items.insert(min(index, len(items)), removed)
         self._replace_record(kind, **{kind: items})
         self._changed()
-        self.app.show_status(f"Put back {getattr(removed, 'location', '')}.")
+        if kind == "left_out":
+            self.app.show_status(f"Left out {visible(removed.location)} again.")
+            return
+        self.app.show_status(f"Put back {visible(getattr(removed, 'location', ''))}.")

@@ -42,11 +42,23 @@ class RoomTable(RowTable):
     ]
 
 
+LEAVE_OUT_TIP = (
+    "Delete a reading; on a point still to read, leave it out (why, and whether for good); "
+    "on one left out, put it back to read"
+)
+
+
 class SurfaceTable(RowTable):
     BINDINGS = [
         Binding("a", "screen.add_surface", "Add", id="surface_add"),
         Binding("e,enter", "screen.edit_surface", "Edit/read", id="surface_edit"),
-        Binding("d,delete", "screen.delete_surface", "Delete", id="surface_delete"),
+        Binding(
+            "d,delete",
+            "screen.delete_surface",
+            "Delete",
+            id="surface_delete",
+            tooltip=LEAVE_OUT_TIP,
+        ),
         Binding("u", "screen.undo", "Undo", id="surface_undo", tooltip="Undo the last deletion"),
     ]
 
@@ -55,7 +67,13 @@ class MaterialTable(RowTable):
     BINDINGS = [
         Binding("a", "screen.add_material", "Add", id="material_add"),
         Binding("e,enter", "screen.edit_material", "Edit/read", id="material_edit"),
-        Binding("d,delete", "screen.delete_material", "Delete", id="material_delete"),
+        Binding(
+            "d,delete",
+            "screen.delete_material",
+            "Delete",
+            id="material_delete",
+            tooltip=LEAVE_OUT_TIP,
+        ),
         Binding("u", "screen.undo", "Undo", id="material_undo", tooltip="Undo the last deletion"),
     ]
 

@@ -128,9 +128,10 @@ class WalkScreen(Screen):
 
         self.app.push_screen(
             ConfirmDialog(
-                "Start a new visit now? The rooms, surface locations and material points of the "
-                "last visit are offered again (without their values), with last time's values "
-                "shown beside them; the equipment in the rooms stays (without its readings)."
+                "Start a new visit now? The rooms, surface locations and material points "
+                "measured before are offered again (without their values; not those left out "
+                "for good), with last time's values shown beside them; the equipment in the "
+                "rooms stays (without its readings)."
             ),
             done,
         )

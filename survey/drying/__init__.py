@@ -181,10 +181,21 @@ class MaterialPoint:
     estimate: GoalEstimate | None  #: only for a steady fall toward a goal not yet met
     #: Visits to the room since the point was last read (0: read on the room's last visit).
     visits_missed: int = 0
+    #: The visits (indexes) the point was left out on, with the reason recorded.
+    left_out: tuple[tuple[int, model.LeftOut], ...] = ()
+    #: The latest mark when the point was left out after its last reading (gone for good,
+    #: or to read again); None when it was read last time it was seen.
+    left_since: model.LeftOut | None = None
 
     @property
     def latest(self) -> PointReading:
         return self.readings[-1]
+
+    @property
+    def gone(self) -> bool:
+        """Left out for good after its last reading: it is not dried any further."""
+        mark = self.left_since
+        return mark is not None and mark.for_good
 
 
 @dataclass(frozen=True, slots=True)
@@ -225,11 +236,13 @@ class RoomDrying:
 
     @property
     def goals_met(self) -> int:
-        return sum(p.goal_met is True for p in self.points)
+        """Points at their goal, of those still there (not left out for good)."""
+        return sum(p.goal_met is True for p in self.points if not p.gone)
 
     @property
     def goals_set(self) -> int:
-        return sum(p.goal_met is not None for p in self.points)
+        """Points with a goal, of those still there (not left out for good)."""
+        return sum(p.goal_met is not None for p in self.points if not p.gone)
 
 
 @dataclass(frozen=True, slots=True)
@@ -325,11 +338,28 @@ def _room_points(
             standard_visit = None if standard is None or source is None else source.visit_index
             series.setdefault(key, []).append(_Held(point, reading, room, standard_visit))
     seen = [i for i in order if (rv := survey.visits[i].room_visit(room_id)) and rv.entered()]
+    marks: dict[tuple[str, str], list[tuple[int, model.LeftOut]]] = {}
+    for index in seen:
+        record = survey.visits[index].room_visit(room_id)
+        for mark in record.left_out if record else ():
+            if mark.kind == "material":
+                marks.setdefault((fold(mark.location), fold(mark.material)), []).append(
+                    (index, mark)
+                )
     out: list[MaterialPoint] = []
     for key, held in series.items():
         made = _point(key, held)
         last = max(seen.index(r.visit_index) for r in made.readings)
-        out.append(dataclasses.replace(made, visits_missed=len(seen) - 1 - last))
+        left = tuple(marks.get(key[:2], []))
+        after = [m for i, m in left if seen.index(i) > last]
+        out.append(
+            dataclasses.replace(
+                made,
+                visits_missed=len(seen) - 1 - last,
+                left_out=left,
+                left_since=after[-1] if after else None,
+            )
+        )
     return tuple(out)
 
 

@@ -278,6 +278,9 @@ def _scope(doc: Document, ctx: Context, shown: list[int]) -> None:
         lines.append(
             rw.rooms_not_entered_text([r.name for r in survey.rooms if r.id not in visited])
         )
+        left = [(ctx.room_name(rv.room), x) for rv in visited.values() for x in rv.left_out]
+        if left:
+            lines.append(rw.points_left_out_text(left))
         lead = (
             (rw.visit_heading(index + 1, len(survey.visits), visit.label, visit.started_at) + ":")
             if len(shown) > 1

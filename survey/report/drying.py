@@ -35,6 +35,7 @@ def _visits_table(ctx: Context, room: drying.RoomDrying) -> Table:
     )
     air = {a.visit_index: a for a in room.air}
     by_visit = [{r.visit_index: r for r in p.readings} for p in points]
+    left_on = [{i for i, _ in p.left_out} for p in points]
     rows = []
     for index in room.visits_seen:
         visit = survey.visits[index]
@@ -57,10 +58,10 @@ def _visits_table(ctx: Context, room: drying.RoomDrying) -> Table:
                     "dew_point_margin_k",
                 ),
             ]
-        for readings in by_visit:
+        for readings, left in zip(by_visit, left_on, strict=True):
             reading = readings.get(index)
             cells.append(
-                Cell("–")
+                Cell(dw.LEFT_OUT_CELL if index in left else "–")
                 if reading is None
                 else Cell(dw.reading_cell(reading), reading.value, "value")
             )

@@ -168,3 +168,17 @@ def _upgrade_2_to_3(doc: dict[str, Any]) -> dict[str, Any]:
         if isinstance(room, dict):
             room.setdefault("occupants", 0)
     return doc
+
+
+@migration(3)
+def _upgrade_3_to_4(doc: dict[str, Any]) -> dict[str, Any]:
+    """Version 4 lets a room's storey be unrecorded: a room without ``level`` now means
+    "not recorded", where in version 3 it meant the ground floor. Rooms of a version-3 file
+    that left it out are given ``0``, which is what the file meant. Version 4 also adds a
+    room record's ``left_out`` points (optional; nothing to convert)."""
+    if not isinstance(doc, dict):
+        raise TypeError("the document is not an object")
+    for room in doc.get("rooms", []):
+        if isinstance(room, dict):
+            room.setdefault("level", 0)
+    return doc

@@ -40,6 +40,7 @@ DRYING_INTRO = (
 VISITS_HEADER = ("Visit", "Date", "Air", "RH", "Humidity ratio", "Worst surface margin")
 WATER_COLLECTED = "Water collected"
 NOT_MEASURED = "not measured"
+LEFT_OUT_CELL = "left out"  #: a point not read on that visit, for a reason recorded
 AT_GOAL_MARK = "✓"
 POINTS_HEADER = (
     "Point",
@@ -288,6 +289,8 @@ def _date(when: dt.datetime) -> str:
 
 def outlook_cell(point: MaterialPoint) -> str:
     """Days to the goal, or why there is no number."""
+    if point.gone:
+        return "left out for good"
     if point.goal_met:
         return "met"
     if point.trend is TrendState.STALLED:
@@ -333,6 +336,15 @@ def point_sentence(
 
 
 def _missed(point: MaterialPoint) -> str:
+    mark = point.left_since
+    if mark is not None:
+        why = f" ({mark.reason})" if mark.reason else ""
+        if mark.for_good:
+            return (
+                f" Left out for good after this reading{why}: it is not read again, and it "
+                "is not counted among the points still drying."
+            )
+        return f" Not read since{why}: read it again at the next visit."
     if point.visits_missed == 0:
         return ""
     if point.visits_missed == 1:

@@ -12,6 +12,7 @@ from __future__ import annotations
 import datetime as dt
 from collections.abc import Sequence
 
+from survey import model
 from survey.assess import RoomFinding, SurfaceFinding
 from survey.words.cautions import CAUTION_NAMES as CAUTION_NAMES
 from survey.words.display import Display
@@ -322,6 +323,17 @@ def rooms_not_entered_text(names: Sequence[str]) -> str:
         + ", ".join(names)
         + "."
     )
+
+
+def points_left_out_text(items: Sequence[tuple[str, model.LeftOut]]) -> str:
+    """The points of an earlier visit not read on this one, each with its room and why."""
+    said = []
+    for room, point in items:
+        what = "surface" if point.kind == "surface" else f"{point.material} reading"
+        why = f": {point.reason}" if point.reason else ""
+        then = "gone for good" if point.for_good else "to read at the next visit"
+        said.append(f"{room}, {point.location} ({what}, {then}{why})")
+    return "Points measured before and not read on this visit: " + "; ".join(said) + "."
 
 
 NOT_COVERED = (

@@ -29,11 +29,22 @@ def room_heading(name: str, reference: bool) -> str:
     return reference_room_name(name) if reference else name
 
 
+def storey_words(level: int | None) -> str:
+    """Where a room is, said without ordinals (a "first floor" is the ground floor in
+    some countries and the one above it in others)."""
+    if level is None:
+        return "storey not recorded"
+    if level == 0:
+        return "on the ground storey"
+    count = abs(level)
+    return f"{count} storey{'s' if count != 1 else ''} {'above' if level > 0 else 'below'} ground"
+
+
 def room_facts(
-    use: str, level: int, volume_m3: float | None, occupants: int | None, d: Display
+    use: str, level: int | None, volume_m3: float | None, occupants: int | None, d: Display
 ) -> str:
     phrase = USE_PHRASE.get(use) or "a room of unstated use"
-    parts = [f"Used as {phrase}", f"level {level}"]
+    parts = [f"Used as {phrase}", storey_words(level)]
     parts.append("volume not given" if volume_m3 is None else f"volume {d('volume', volume_m3)}")
     if occupants is None:
         parts.append("usual occupants not recorded")

@@ -4,7 +4,7 @@ judge. The app lays these out; it writes no sentence of its own."""
 
 from __future__ import annotations
 
-from survey import assess, psychro
+from survey import assess, model, psychro
 from survey.safe_text import visible
 from survey.words.display import Display
 from survey.words.states import (
@@ -148,3 +148,30 @@ def worst_state_words(finding: assess.RoomFinding, d: Display) -> str:
     """The room's worst surface's state (see :func:`surface_state_words`)."""
     worst = worst_surface(finding.surfaces)
     return "no surface measured" if worst is None else surface_state_words(worst, d)
+
+
+# --- points of an earlier visit left out -------------------------------------------------
+
+#: What became of a point not read on this visit, as the app offers it: (words, for good).
+LEFT_OUT_CHOICES = (
+    ("gone for good: removed or replaced, not read again", True),
+    ("not read this visit: offered again next visit", False),
+)
+
+
+def left_out_brief(point: model.LeftOut) -> str:
+    """A point left out, in a table cell: its reason, else what became of it."""
+    return point.reason or ("gone for good" if point.for_good else "again next visit")
+
+
+def left_out_detail(point: model.LeftOut) -> str:
+    """A point left out, in full: why, and whether it is offered again."""
+    why = point.reason or "no reason given"
+    then = "gone for good, not offered again" if point.for_good else "offered again next visit"
+    return f"left out this visit ({why}); {then}"
+
+
+LEAVE_OUT_NOTE = (
+    "The point stays in the record as left out, with its reason, and the report lists it. "
+    "To read it after all, press Enter on it; d puts it back to read."
+)

@@ -1,0 +1,194 @@
+"""Points of an earlier visit left out of a later one: a plasterboard point whose board was
+stripped out is gone for good; a skirting point behind boxes today is read again next time.
+
+The survey is the basement drying example with a fourth visit added, on which the family
+room's plasterboard point is left out for good and its skirting point left out for the day.
+The checks are of bookkeeping (which points are offered, counted and said), not of physics,
+so no outside value is needed beyond the example's own readings."""
+
+from __future__ import annotations
+
+import datetime as dt
+from pathlib import Path
+
+import msgspec
+from markdown_it import MarkdownIt
+
+from survey import drying, model, report, store
+from survey.app import judging
+from survey.words import drying as dw
+
+BASEMENT = Path(__file__).resolve().parents[1] / "example_sites" / "basement-burst-pipe-drying.json"
+BOARD = ("Party wall, 0.1 m above floor", "plasterboard")
+SKIRTING = ("Skirting, party wall", "softwood skirting")
+SCREED = ("Screed, centre of room", "sand-cement screed")
+
+
+def _with_fourth_visit() -> model.Survey:
+    """The example, and a fourth visit a day after its third: in the family room the
+    screed is read (60), the plasterboard point left out for good, the skirting for the
+    day; the other rooms as on the third visit."""
+    survey = store.load_survey(BASEMENT)
+    third = survey.visits[2]
+    family = third.room_visit("family")
+    assert family is not None
+    screed = next(m for m in family.materials if (m.location, m.material) == SCREED)
+    fourth_family = msgspec.structs.replace(
+        family,
+        surfaces=[],
+        materials=[msgspec.structs.replace(screed, value=60.0, taken_at=None)],
+        left_out=[
+            model.LeftOut(
+                kind="material",
+                location=BOARD[0],
+                material=BOARD[1],
+                reason="board stripped to 600 mm",
+            ),
+            model.LeftOut(
+                kind="material",
+                location=SKIRTING[0],
+                material=SKIRTING[1],
+                reason="behind stacked boxes",
+                for_good=False,
+            ),
+            model.LeftOut(kind="surface", location="Party wall, 0.3 m above floor"),
+        ],
+    )
+    fourth = msgspec.structs.replace(
+        third,
+        started_at=third.started_at + dt.timedelta(days=1),
+        rooms=[fourth_family if r.room == "family" else r for r in third.rooms],
+    )
+    survey.visits.append(fourth)
+    return survey
+
+
+def _keys(points) -> list:
+    return [judging.point_key(p) for p in points]
+
+
+def test_a_point_left_out_is_not_to_read_and_the_room_is_done():
+    """On the fourth visit nothing in the family room is still to read: the screed was
+    read, and the two material points and one surface were left out."""
+    survey = _with_fourth_visit()
+    assert judging.pending_materials(survey, 3, "family") == []
+    pending = judging.pending_surfaces(survey, 3, "family")
+    assert [s.location for s in pending] == [
+        "Screed, centre of room",
+        "Front wall (below ground), 0.3 m above floor",
+    ]
+    # the air is read; the two surfaces not read nor left out are what is missing
+    assert judging.readings_missing(survey, 3, "family") == 2
+
+
+def test_the_next_visit_offers_a_point_left_for_the_day_and_not_one_gone_for_good():
+    """A fifth visit is offered the screed (read on the fourth) and the skirting (left out
+    for the day), as last read: the skirting at 16 from the third visit. The plasterboard
+    point, gone for good, is not offered; nor the surface left out for good. The two
+    surfaces the fourth visit neither read nor left out are still offered."""
+    survey = _with_fourth_visit()
+    survey.visits.append(model.Visit(started_at=survey.visits[3].started_at + dt.timedelta(1)))
+    offered = judging.offered_points(survey, 4, "family", "material")
+    assert _keys(offered) == [SCREED, SKIRTING]
+    assert [m.value for m in offered] == [60.0, 16.0]
+    surfaces = judging.offered_points(survey, 4, "family", "surface")
+    assert _keys(surfaces) == [
+        "Screed, centre of room",
+        "Front wall (below ground), 0.3 m above floor",
+    ]
+    assert judging.pending_materials(survey, 4, "family") == offered
+
+
+def test_reading_a_point_takes_its_mark_away():
+    """A point left out and then read after all is no longer left out."""
+    survey = _with_fourth_visit()
+    record = survey.visits[3].room_visit("family")
+    assert record is not None
+    board = model.MaterialReading(location=BOARD[0], material=BOARD[1], value=30.0, scale="wme_pct")
+    kept = judging.without_left_out(record, "material", board)
+    assert [(x.location, x.material) for x in kept] == [
+        SKIRTING,
+        ("Party wall, 0.3 m above floor", ""),
+    ]
+    # a surface at the same location is a different point
+    wall = model.SurfaceReading(location=BOARD[0], element="internal_wall", surface_temp_c=15)
+    assert len(judging.without_left_out(record, "material", wall)) == 3
+
+
+def test_a_point_left_out_records_nothing_else_but_the_room_was_entered():
+    """A record holding only a point left out was entered: the technician was there and
+    decided about the point."""
+    record = model.RoomVisit(
+        room="family", left_out=[model.LeftOut(kind="surface", location="Door reveal")]
+    )
+    assert record.entered()
+
+
+def test_drying_leaves_a_point_gone_for_good_out_of_the_count_and_says_so():
+    """The family room's drying on four visits: the plasterboard point, gone for good, is
+    not counted among the points with a goal; its outlook cell says it was left out, and
+    its sentence says it is not read again. The skirting, left for the day, is asked for
+    at the next visit. The visits table shows "left out" where each was left out."""
+    survey = _with_fourth_visit()
+    progress = drying.drying_progress(survey)
+    family = next(r for r in progress.rooms if r.room_id == "family")
+    points = {(p.location, p.material): p for p in family.points}
+    board, skirting = points[BOARD], points[SKIRTING]
+    assert board.gone and board.left_since is not None
+    assert board.left_out == ((3, board.left_since),)
+    assert not skirting.gone and skirting.left_since is not None
+    assert family.goals_set == sum(p.goal_met is not None for p in family.points) - 1
+    assert dw.outlook_cell(board) == "left out for good"
+    names = {r.id: r.name for r in survey.rooms}
+    said = dw.point_sentence(board, names)
+    assert "Left out for good after this reading (board stripped to 600 mm)" in said
+    assert "read it again" not in said
+    assert dw.point_sentence(skirting, names).endswith(
+        "Not read since (behind stacked boxes): read it again at the next visit."
+    )
+    # before the fourth visit, nothing of this
+    before = drying.drying_progress(store.load_survey(BASEMENT))
+    family_before = next(r for r in before.rooms if r.room_id == "family")
+    assert all(p.left_since is None and not p.left_out for p in family_before.points)
+    assert family_before.goals_set == family.goals_set + 1
+
+
+def _tables(text: str) -> list[list[list[str]]]:
+    """Every table of the Markdown as rows of cell texts (header first)."""
+    tokens = MarkdownIt("gfm-like").parse(text)
+    tables, rows, row = [], [], None
+    for token in tokens:
+        if token.type == "table_open":
+            rows = []
+        elif token.type == "tr_open":
+            row = []
+        elif token.type == "inline" and row is not None:
+            row.append(token.content)
+        elif token.type == "tr_close":
+            rows.append(row)
+            row = None
+        elif token.type == "table_close":
+            tables.append(rows)
+    return tables
+
+
+def test_the_report_lists_the_points_left_out_with_their_reasons():
+    """The scope of the fourth visit names each point left out, its room and reason, and
+    whether it is gone; the family room's drying table says "left out" on that visit."""
+    survey = _with_fourth_visit()
+    text = report.markdown_report(
+        survey, report.ReportOptions(visit="all", generated_at="2026-01-01 09:00")
+    )
+    assert (
+        "Points measured before and not read on this visit: Basement family room, Party "
+        "wall, 0.1 m above floor (plasterboard reading, gone for good: board stripped to "
+        "600 mm); Basement family room, Skirting, party wall (softwood skirting reading, to "
+        "read at the next visit: behind stacked boxes); Basement family room, Party wall, "
+        "0.3 m above floor (surface, gone for good)."
+    ) in " ".join(text.split())
+    drying_tables = [t for t in _tables(text) if t[0][:2] == list(dw.VISITS_HEADER[:2])]
+    family = drying_tables[0]
+    board_column = next(
+        n for n, h in enumerate(family[0]) if h.startswith("Party wall, 0.1 m above floor")
+    )
+    assert family[4][0] == "4" and family[4][board_column] == dw.LEFT_OUT_CELL
