@@ -557,7 +557,10 @@ def test_ip_limits_and_rating_points(check, monkeypatch):
     assert "80 °F and 60 % RH" in flat and "65 °F and 60 % RH" in flat
     assert "80.1 °F" not in flat and "64.9 °F" not in flat
     assert "from memory" not in flat.split("Limits used")[1]
-    assert "* value recalled from the source, not yet checked against the original text" in flat
+    assert (
+        "* value as commonly quoted from the source named, not checked here against its "
+        "current edition"
+    ) in flat
 
 
 def test_units_upper_case_and_plausibility_warning(check):

@@ -208,8 +208,12 @@ def test_client_citation_avoids_trade_shorthand():
         "Dew-point margin 5.4 °F: ISO 8502-4"
     )  # 3 K × 1.8 = 5.4 °F
     assert words.legend([th.get("frsi_dwelling")]) == [
-        "* value recalled from the source, not yet checked against the original text"
+        "* value as commonly quoted from the source named, not checked here against its "
+        "current edition"
     ]
+    # and no trade shorthand left in any source as a client reads it
+    for t in th.all_thresholds():
+        assert "memory" not in words.client_citation(t, words.SI), t.key
 
 
 def test_category_1_water_degrades_within_two_days():
