@@ -37,3 +37,20 @@ SURFACE_TEMP_ACCURACY_MIN_K = 0.01
 MOULD_AREA_MAX_M2 = 100_000.0
 #: Hours a day a moisture-producing activity goes on.
 ACTIVITY_HOURS_MAX = 24.0
+
+# --- warnings, not refusals ---------------------------------------------------------------
+#: A surface temperature outside these is taken, with a warning to check it: no lining, wall
+#: or floor inside a building is hotter than about 40 °C unless it is a heater, a hot pipe,
+#: a lamp or in strong sun, and one colder than -25 °C is more likely an infrared reading
+#: off a shiny (low-emissivity) surface than the surface itself (common practice, no source).
+SURFACE_TEMP_WARN_HIGH_C = 40.0
+SURFACE_TEMP_WARN_LOW_C = -25.0
+#: A room's moisture-producing use a day above which the value is taken with a warning (a
+#: typing slip, or a shared or commercial room): showers, baths, cooking hours and loads of
+#: laundry dried indoors (common practice, no source).
+PER_DAY_WARN = {
+    "showers_per_day": 10.0,
+    "baths_per_day": 6.0,
+    "cooking_hours_per_day": 8.0,
+    "laundry_loads_per_day": 5.0,
+}

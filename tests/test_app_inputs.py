@@ -406,3 +406,42 @@ async def test_an_instrument_added_has_the_cursor(tmp_path):
         await pilot.pause()
         assert table.row_count == 4 and table.cursor_row == 3
     assert [i.id for i in store.load_survey(path).instruments][-1] == "th9"
+
+
+async def test_an_unlikely_surface_or_daily_use_is_taken_after_a_warning(tmp_path):
+    """A surface at 50 °C (a hot pipe? above domain.SURFACE_TEMP_WARN_HIGH_C, common
+    practice) in a room with no air reading yet: the first Enter keeps the dialog open and
+    says why; the second saves it as typed. The surface dialog once closed at once and
+    took its warning with it. Twenty showers a day in a bedroom are saved with a warning
+    under the field (above domain.PER_DAY_WARN)."""
+    from survey import domain
+
+    assert domain.SURFACE_TEMP_WARN_HIGH_C < 50.0 and domain.PER_DAY_WARN["showers_per_day"] < 20
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    survey = store.load_survey(path)
+    survey.visits[0].rooms[0].air = None
+    store.save_survey(survey, path)
+    app = make_app(path, data_dir=tmp_path / "data")
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "room")
+        app.screen.query_one("#surfaces").focus()
+        await pilot.press("e")
+        await pilot.pause()
+        await pilot.press("ctrl+a", "ctrl+k", "5", "0", "enter")
+        await pilot.pause()
+        assert type(app.screen).__name__ == "SurfaceDialog"
+        said = str(app.screen.query_one("#dialog-message").render())
+        assert said.startswith("Check before saving: above 40.0 °C: a heater, a hot pipe")
+        assert said.endswith("Enter again saves it as it is.")
+        await pilot.press("enter")
+        await pilot.pause()
+        await app.workers.wait_for_complete()
+        assert type(app.screen).__name__ == "RoomScreen"
+        await type_into(pilot, app, "room-showers-per-day", "20")
+        assert message_of(app, "room-showers-per-day") == (
+            "Saved; more than 10 a day is unusual: a slip, or a shared room?"
+        )
+    saved = store.load_survey(path)
+    assert saved.visits[0].rooms[0].surfaces[0].surface_temp_c == 50.0
+    assert saved.rooms[0].showers_per_day == 20.0

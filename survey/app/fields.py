@@ -108,6 +108,7 @@ class Field(Vertical):
         self.live = live
         self.read_only = disabled
         self.committed_text = text
+        self.warning = ""  #: the warning the last value was taken with ("" for none)
 
     def compose(self):
         with Horizontal(classes="field-row"):
@@ -159,7 +160,8 @@ class Field(Vertical):
             return False
         self.remove_class("-invalid")
         self.committed_text = text
-        self.show_message(warning or "", "warning")
+        self.warning = warning or ""
+        self.show_message(self.warning, "warning")
         self.post_message(self.Committed(self, value))
         return True
 

@@ -8,7 +8,7 @@ kept in :class:`survey.model.Room`, those of the visit in :class:`survey.model.R
 
 from __future__ import annotations
 
-from survey import model
+from survey import domain, model
 from survey.app import walk
 from survey.app.fields import Choice, Field
 
@@ -26,6 +26,18 @@ _PER_DAY = (
     ("cooking_hours_per_day", "Cooking h/day", "e.g. 1.5"),
     ("laundry_loads_per_day", "Laundry loads/day", "loads dried indoors, e.g. 1"),
 )
+
+
+def _per_day(commit, warn_above: float):
+    """Commit a moisture source a day, with a warning (not a refusal) above ``warn_above``."""
+
+    def run(value: float | None) -> str:
+        said = commit(value)
+        if value is not None and value > warn_above:
+            return f"Saved; more than {warn_above:g} a day is unusual: a slip, or a shared room?"
+        return said
+
+    return run
 
 
 def _shown(value: float | None) -> str:
@@ -66,7 +78,7 @@ def room_fields(screen, room: model.Room, system: str, ro: bool):
             label,
             _shown(getattr(room, name)),
             walk.optional(walk.number(label)),
-            screen._set_room(name, label),
+            _per_day(screen._set_room(name, label), domain.PER_DAY_WARN[name]),
             id=f"room-{name.replace('_', '-')}",
             placeholder=hint,
             disabled=ro,

@@ -13,7 +13,7 @@ from textual.containers import Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Checkbox, Select, Static
 
-from survey import model, psychro, store, words
+from survey import domain, model, psychro, store, words
 from survey.app import walk
 from survey.app.fields import Choice, Field, Tick, plain
 from survey.errors import InputError
@@ -58,19 +58,39 @@ class _ReadingDialog(ModalScreen[msgspec.Struct | None]):
         self.dismiss(None)
 
     def finish(self) -> None:
+        """Save, unless a field refuses its text. A value taken with a warning (possible
+        but unlikely) is shown first, and saved on the next Enter: a dialog that closed at
+        once would hide the warning with it."""
+        warnings = []
         for field in self.query(Field):
             if not field.try_commit(force=True):
                 field.input.focus()
                 return
+            if field.warning:
+                warnings.append(field.warning)
+        message = self.query_one("#dialog-message", Static)
         try:
             record = self.build()
             store.check_record(record)
         except InputError as exc:
-            message = self.query_one("#dialog-message", Static)
-            message.update(plain(f"Not saved — {exc}"))
-            message.display = True
+            self._say(message, f"Not saved — {exc}", "-error")
+            return
+        said = "; ".join(warnings)
+        if said and said != self._warned:
+            self._warned = said
+            self._say(message, f"Check before saving: {said}. Enter again saves it as it is.")
             return
         self.dismiss(record)
+
+    #: The warning last shown; the same warning again does not stop the save twice.
+    _warned = ""
+
+    @staticmethod
+    def _say(message: Static, text: str, kind: str = "-warning") -> None:
+        message.update(plain(text))
+        message.set_class(kind == "-error", "-error")
+        message.set_class(kind == "-warning", "-warning")
+        message.display = True
 
     def build(self) -> msgspec.Struct:
         raise NotImplementedError
@@ -173,11 +193,21 @@ class SurfaceDialog(_ReadingDialog):
             surface_temp_c=value,
         )
         self.values["surface_temp_c"] = value
+        d = words.Display(self.system)
         if self.air_c is not None and value > self.air_c + 5.0:
-            d = words.Display(self.system)
             return (
                 f"warmer than the room air ({d.temperature(self.air_c)}) by more than "
                 f"{d.difference(5.0)}: a heater, a hot pipe or sun on the wall?"
+            )
+        if value > domain.SURFACE_TEMP_WARN_HIGH_C:
+            return (
+                f"above {d.temperature(domain.SURFACE_TEMP_WARN_HIGH_C)}: a heater, a hot pipe, "
+                "a lamp or sun on it? Check the reading"
+            )
+        if value < domain.SURFACE_TEMP_WARN_LOW_C:
+            return (
+                f"below {d.temperature(domain.SURFACE_TEMP_WARN_LOW_C)}: an infrared reading off a "
+                "shiny surface reads wrong; check it, or tape the spot and read the tape"
             )
         return ""
 
