@@ -187,3 +187,41 @@ def test_a_desiccant_unit_says_why_it_has_no_cop():
 def test_a_label_with_control_characters_is_shown_safely():
     """A label is user text: control characters are made visible."""
     assert "\x1b" not in we.unit_name("D1\x1b[2J")
+
+
+def test_a_previous_reading_too_long_ago_gives_no_hours_and_says_why(basement):
+    """Day 3 moved 22 months on (2026-12-05), with no run hours: the 16 000-odd hours since
+    day 2's reading are past RUN_HOURS_MAX_H, so they do not stand for the run; the finding
+    says so, rather than that the time was not recorded."""
+    from survey.words.equipment import finding_text
+
+    survey = _day3(basement, run_hours=None)
+    visits = list(survey.visits)
+    late = dt.timedelta(days=670)
+    rooms = []
+    for rv in visits[2].rooms:
+        items = [
+            msgspec.structs.replace(
+                e,
+                outlet=None
+                if e.outlet is None
+                else msgspec.structs.replace(e.outlet, taken_at=e.outlet.taken_at + late),
+            )
+            for e in rv.equipment
+        ]
+        air = rv.air
+        if air is not None and air.taken_at is not None:
+            air = msgspec.structs.replace(air, taken_at=air.taken_at + late)
+        rooms.append(msgspec.structs.replace(rv, equipment=items, air=air))
+    visits[2] = msgspec.structs.replace(
+        visits[2], started_at=visits[2].started_at + late, rooms=rooms
+    )
+    survey = msgspec.structs.replace(survey, visits=visits)
+    assert (late.total_seconds() / 3600) > eq.RUN_HOURS_MAX_H
+    r = eq.judge_visit(survey, 2)[0].result
+    assert r.given.duration_h is None and r.given.duration_source == "too_long_since"
+    assert r.removal_l_per_day is None
+    kinds = [f.kind for f in r.findings]
+    assert FindingKind.NO_DURATION in kinds
+    said = finding_text(FindingKind.NO_DURATION, r, SI)
+    assert "too long ago" in said and "give the run hours" in said

@@ -86,8 +86,10 @@ def run_duration(
             continue
         for other in before.equipment:
             if _same_unit(other, e):
-                return _hours(now, _reading_time(v, before, other)), "since_previous_reading"
-    return _hours(now, earlier[0].started_at), "since_previous_visit"
+                hours = _hours(now, _reading_time(v, before, other))
+                return hours, "since_previous_reading" if hours is not None else "too_long_since"
+    hours = _hours(now, earlier[0].started_at)
+    return hours, "since_previous_visit" if hours is not None else "too_long_since"
 
 
 def _before(a: model.Visit, b: model.Visit) -> bool:
