@@ -632,7 +632,7 @@ async def test_app_drying_screen_from_the_room_list(tmp_path):
     to the room list."""
     import shutil
 
-    from textual.widgets import Sparkline, Static
+    from textual.widgets import Static
 
     from survey.app import make_app
     from survey.app.drying import DryingScreen, PointRow
@@ -649,7 +649,7 @@ async def test_app_drying_screen_from_the_room_list(tmp_path):
         await app.workers.wait_for_complete()
         await pilot.pause()
         assert isinstance(app.screen, DryingScreen)
-        assert len(app.screen.query(Sparkline)) == 3 + 4
+        assert len(app.screen.query(".drying-spark")) == 3 + 4
         statuses = [
             str(row.query_one(".drying-status", Static).render())
             for row in app.screen.query(PointRow)
@@ -663,6 +663,21 @@ async def test_app_drying_screen_from_the_room_list(tmp_path):
         await pilot.press("escape")
         await pilot.pause()
         assert isinstance(app.screen, RoomListScreen)
+
+
+def test_a_spark_line_is_scaled_from_the_goal_so_a_small_fall_looks_small():
+    """98 then 96 against a goal of 20 stays at the top bars; 98 then 20 falls to the
+    bottom. Without a goal the line spans its own values; one value alone, or equal values,
+    sit mid-scale. Each value takes an equal share of the width."""
+    from survey.app.drying import BARS, SPARK_WIDTH, spark_line
+
+    share = SPARK_WIDTH // 2
+    assert spark_line([98.0, 96.0], low=20.0) == BARS[-1] * share + BARS[-1] * share
+    assert spark_line([98.0, 20.0], low=20.0) == BARS[-1] * share + BARS[0] * share
+    assert spark_line([98.0, 96.0]) == BARS[-1] * share + BARS[0] * share
+    assert spark_line([50.0, 50.0]) == BARS[3] * share * 2
+    assert spark_line([]) == ""
+    assert len(spark_line([1.0, 2.0, 3.0])) == SPARK_WIDTH
 
 
 def test_point_not_read_on_the_last_visit_says_so():

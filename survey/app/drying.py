@@ -11,7 +11,7 @@ from __future__ import annotations
 from rich.text import Text
 from textual.containers import Horizontal, VerticalScroll
 from textual.message import Message
-from textual.widgets import Label, Sparkline, Static
+from textual.widgets import Label, Static
 
 from survey import drying
 from survey.app import walk
@@ -34,13 +34,26 @@ class DryingReady(Message):
         self.problem = problem
 
 
-def spark_data(values: list[float]) -> list[float]:
-    """Each value repeated so that a few readings still fill the sparkline's width (the
-    widget draws one bar per value when there are fewer values than columns)."""
+#: The bars of a spark line, lowest first.
+BARS = "▁▂▃▄▅▆▇█"
+
+
+def spark_line(values: list[float], low: float | None = None, high: float | None = None) -> str:
+    """The values as a line of bars :data:`SPARK_WIDTH` wide, each value an equal share of
+    it, scaled from ``low`` to ``high`` (by default the values' own least and greatest).
+    A point is scaled from its goal up, so a fall of 98 to 96 against a goal of 20 stays
+    near the top, as it is, instead of filling the scale as if the point had dried."""
     if not values:
-        return []
+        return ""
+    low = min(values) if low is None else min(low, *values)
+    high = max(values) if high is None else max(high, *values)
     share = max(1, SPARK_WIDTH // len(values))
-    return [v for v in values for _ in range(share)]
+    top = len(BARS) - 1
+    out = []
+    for value in values:
+        level = top // 2 if high <= low else round((value - low) / (high - low) * top)
+        out.append(BARS[level] * share)
+    return "".join(out)
 
 
 class PointRow(Horizontal):
@@ -49,7 +62,7 @@ class PointRow(Horizontal):
     DEFAULT_CSS = """
     PointRow { height: auto; }
     PointRow > .drying-name { width: 30; }
-    PointRow > Sparkline { width: 15; margin: 0 1; }
+    PointRow > .drying-spark { width: 15; margin: 0 1; }
     PointRow > .drying-status { width: 1fr; }
     """
 
@@ -115,6 +128,15 @@ class DryingScreen(walk.WalkScreen):
             out.append(Static(title, classes="drying-room"))
             out.append(Static(plain(dw.room_air_sentence(room, d)), classes="drying-said"))
             if room.air:
+                toward = [
+                    w
+                    for a in room.air
+                    for w in (
+                        a.reference_humidity_ratio_kg_per_kg,
+                        a.outdoor_humidity_ratio_kg_per_kg,
+                    )
+                    if w is not None
+                ]
                 out.append(
                     self._row(
                         Text("Room air humidity ratio"),
@@ -124,6 +146,7 @@ class DryingScreen(walk.WalkScreen):
                                 d("humidity_ratio", a.humidity_ratio_kg_per_kg) for a in room.air
                             )
                         ),
+                        low=min(toward, default=None),
                     )
                 )
             if room.points:
@@ -134,7 +157,8 @@ class DryingScreen(walk.WalkScreen):
                 if point.goal is not None:
                     status.append(f"  goal {dw.goal_cell(point)}")
                 status.append(f"  {dw.point_status(point)}", "bold")
-                out.append(self._row(plain(walk.cut(point.location, 29)), values, status))
+                row = self._row(plain(walk.cut(point.location, 29)), values, status, point.goal)
+                out.append(row)
                 said = dw.point_sentence(point, names, room.flued_appliance)
                 out.append(Static(plain(said), classes="drying-said"))
             if any(dw.says_close_up(p, room.flued_appliance) for p in room.points):
@@ -152,10 +176,19 @@ class DryingScreen(walk.WalkScreen):
         out += [Static(Text(n), classes="drying-note") for n in notes]
         return out
 
-    def _row(self, name: Text, values: list[float], status: Text) -> PointRow:
+    def _row(
+        self,
+        name: Text,
+        values: list[float],
+        status: Text,
+        low: float | None = None,
+        high: float | None = None,
+    ) -> PointRow:
+        """A row: the name, the values as a spark line from ``low`` to ``high`` (see
+        :func:`spark_line`), and the status in words beside it."""
         return PointRow(
             Label(name, classes="drying-name", markup=False),
-            Sparkline(spark_data(values)),
+            Static(Text(spark_line(values, low, high)), classes="drying-spark"),
             Static(status, classes="drying-status"),
         )
 
@@ -168,6 +201,8 @@ class DryingScreen(walk.WalkScreen):
                 Text("Daily mean RH"),
                 [day.rh_pct.mean for day in summary.days],
                 Text(f"{dw.logger_gaps_text(summary)} {dw.logger_trend_text(summary, d)}"),
+                low=0.0,
+                high=100.0,
             ),
         ]
         kind = dw.rh_kind(summary)
