@@ -386,9 +386,10 @@ class LeftOut(Struct, **_RECORD):
     #: A material point's material (a material point is its location and material).
     material: Text = ""
     reason: Text = ""
-    #: True: the point is gone for good and is not offered again. False: it could not be
-    #: read this time and is offered again on the next visit.
-    for_good: bool = True
+    #: True: the point is gone for good and is not offered again. False (the default, the
+    #: one that loses nothing): it could not be read this time and is offered again on the
+    #: next visit.
+    for_good: bool = False
 
 
 class RoomVisit(Struct, **_RECORD):
@@ -525,6 +526,20 @@ def pressure_pa_for(survey: Survey, visit: Visit | None = None) -> float:
     if visit is not None and visit.pressure_pa is not None:
         return visit.pressure_pa
     return psychro.site_pressure_pa(survey.site.altitude_m, survey.site.pressure_pa)
+
+
+def point_key(point: SurfaceReading | MaterialReading | LeftOut) -> tuple[str, str, str]:
+    """What makes readings on different visits the same point: its kind, its location and,
+    for a material point, its material, compared as folded text (case, compatibility forms
+    and runs of spaces aside: :func:`survey.safe_text.fold`). A point left out is keyed as
+    the point it stands for."""
+    from survey.safe_text import fold
+
+    if isinstance(point, LeftOut):
+        return point.kind, fold(point.location), fold(point.material)
+    if isinstance(point, MaterialReading):
+        return "material", fold(point.location), fold(point.material)
+    return "surface", fold(point.location), ""
 
 
 # The cross-record checks live in survey.model_checks (they use the records above).

@@ -9,7 +9,7 @@ import re
 from collections.abc import Iterator
 
 from survey import domain, thresholds
-from survey.model import Room, Site, Survey
+from survey.model import Room, RoomVisit, Site, Survey, point_key
 from survey.psychro import DRY_BULB_MIN_C
 from survey.safe_text import count_cut, shorten
 
@@ -72,13 +72,38 @@ def _design_month_problem(site: Site) -> tuple[str, str] | None:
     return "site.design_indoor_temp_c", f"{indoor:g} °C: {problem}"
 
 
+def _left_out_problems(at: str, record: RoomVisit) -> list[tuple[str, str]]:
+    """A point left out names a material exactly when it is a material point, is left out
+    once, and is not also read in the same record."""
+    found = []
+    read = {point_key(p) for p in record.surfaces} | {point_key(p) for p in record.materials}
+    marked: set[tuple[str, str, str]] = set()
+    for n, mark in enumerate(record.left_out):
+        where = f"{at}.left_out[{n}]"
+        key = point_key(mark)
+        if (mark.kind == "material") != bool(mark.material.strip()):
+            found.append(
+                (
+                    f"{where}.material",
+                    "a material point left out names its material; a surface names none",
+                )
+            )
+        elif key in read:
+            found.append((where, f"{_quoted(mark.location)} is read on this visit and left out"))
+        elif key in marked:
+            found.append((where, f"{_quoted(mark.location)} is left out twice"))
+        marked.add(key)
+    return found
+
+
 def problems(survey: Survey) -> list[tuple[str, str]]:
     """Checks across records, as ``(where, problem)`` pairs; empty when all is well.
 
     Ids must be unique; every room and instrument a reading names must exist; a room
     appears at most once per visit; a mould area needs visible mould; a volume worked out
     from floor area × height must lie in the room-volume domain; the site's design month
-    must be one the colder-month projection can use (:func:`_design_month_problem`).
+    must be one the colder-month projection can use (:func:`_design_month_problem`); a
+    point left out is left out once, not read too (:func:`_left_out_problems`).
     """
     found: list[tuple[str, str]] = []
     design = _design_month_problem(survey.site)
@@ -148,6 +173,7 @@ def problems(survey: Survey) -> list[tuple[str, str]]:
                     instrument_ref(
                         f"{rat}.equipment[{e}].outlet.instrument", equipment.outlet.instrument
                     )
+            found += _left_out_problems(rat, room_visit)
             obs = room_visit.observations
             if obs.mould_area_m2 and not obs.mould_visible:
                 found.append(

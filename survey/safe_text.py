@@ -5,7 +5,8 @@ messages come from people and from files that arrive by e-mail or a shared folde
 terminal they must never drive it: an ESC sequence could move the cursor, retitle the window or
 write a hyperlink; BEL rings; a bidi override reorders what the reader sees. :func:`visible`
 replaces every such character with a visible escape (``\\x1b``, ``\\u202e``) and keeps newline
-and tab only where asked. :func:`shorten` bounds a value quoted in a message.
+and tab only where asked. :func:`shorten` bounds a value quoted in a message. :func:`fold`
+gives text as compared when two readings name the same point.
 
 Markup is a separate matter: the faces pass these strings to Rich and Textual as plain ``Text``
 (never as markup), and the report escapes them for Markdown.
@@ -69,3 +70,13 @@ def count_cut(items: list[str], limit: int = 8) -> str:
     rest = len(items) - len(shown)
     text = ", ".join(shown)
     return f"{text} and {rest} more" if rest > 0 else text
+
+
+def fold(text: str) -> str:
+    """Text as compared for matching points: the Unicode compatibility caseless form
+    NFKD(casefold(NFKD(casefold(NFD(text))))) (The Unicode Standard ch. 3, D146; the
+    definition number from memory), with every run of white space made one space and the
+    ends trimmed."""
+    nfd = unicodedata.normalize("NFD", text).casefold()
+    folded = unicodedata.normalize("NFKD", unicodedata.normalize("NFKD", nfd).casefold())
+    return " ".join(folded.split())

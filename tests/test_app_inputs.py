@@ -432,8 +432,8 @@ async def test_an_unlikely_surface_or_daily_use_is_taken_after_a_warning(tmp_pat
         await pilot.pause()
         assert type(app.screen).__name__ == "SurfaceDialog"
         said = str(app.screen.query_one("#dialog-message").render())
-        assert said.startswith("Check before saving: above 40.0 °C: a heater, a hot pipe")
-        assert said.endswith("Enter again saves it as it is.")
+        assert said.startswith("Check the value above before saving: Enter again saves it")
+        assert message_of(app, "surface-temp").startswith("above 40.0 °C: a heater, a hot pipe")
         await pilot.press("enter")
         await pilot.pause()
         await app.workers.wait_for_complete()

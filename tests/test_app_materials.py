@@ -12,7 +12,7 @@ from textual.widgets import DataTable, Static
 
 from survey import store
 from survey import thresholds as th
-from survey.app import make_app, room, walk
+from survey.app import make_app, room_rows, walk
 
 DEMO = Path(__file__).resolve().parents[1] / "survey" / "app" / "demo_site.json"
 
@@ -116,12 +116,12 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
         table.focus()
         await pilot.pause()
         locations = [s.location for s in first.surfaces]
-        cut = [walk.cut(x, room.LOCATION_CELL) for x in locations]
+        cut = [walk.cut(x, room_rows.LOCATION_CELL) for x in locations]
         assert [r[1] for r in _cells(table)] == cut
         assert [r[2] for r in _cells(table)] == ["to read"] * len(locations)
         await pilot.press("down")
         assert _detail(app, "surfaces").startswith(f"{locations[1]} (")
-        assert "to read this visit; last visit " in _detail(app, "surfaces")
+        assert "to read this visit; last read " in _detail(app, "surfaces")
         await pilot.press("enter")  # read the second point
         await pilot.pause()
         app.focused.value = "11.5"
@@ -145,11 +145,11 @@ async def test_points_read_again_keep_last_visits_order(tmp_path):
         materials.focus()
         await pilot.pause()
         assert [r[1] for r in _cells(materials)] == [
-            walk.cut(m.location, room.MATERIAL_LOCATION_CELL) for m in first.materials
+            walk.cut(m.location, room_rows.MATERIAL_LOCATION_CELL) for m in first.materials
         ]
         assert _detail(app, "materials") == (
             f"{first.materials[0].location} ({first.materials[0].material}): to read this "
-            f"visit; last visit {first.materials[0].value:g} (meter's relative scale)"
+            f"visit; last read {first.materials[0].value:g} (meter's relative scale)"
         )
     saved = store.load_survey(path).visits[1].room_visit(first.room)
     assert [(s.location, s.surface_temp_c) for s in saved.surfaces] == [(locations[1], 11.5)]
@@ -231,10 +231,12 @@ async def test_after_the_last_point_the_cursor_goes_to_what_is_left_to_read(tmp_
 
 
 async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp_path):
-    """On a second visit, d on a surface still to read asks what became of it and why; the
-    point is kept as left out (saved at once) and the cursor goes on to the next point to
-    read. d on the point left out puts it back to read, u leaves it out again, and Enter on
-    it reads it after all, which takes the mark away."""
+    """On a second visit, d on a surface still to read asks what became of it and why (a
+    reason longer than the file takes is refused in the dialog); the point is kept as left
+    out (saved at once) and the cursor goes on to the next point to read. d on the point
+    left out puts it back to read, u leaves it out again, and Enter on it reads it after
+    all, which takes the mark away; u then does not put the mark back on the point read.
+    A material point is left out the same way, and u takes that mark away."""
     from survey import model
     from survey.app import judging
 
@@ -242,6 +244,11 @@ async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp
     first = store.load_survey(path).visits[0].rooms[0]
     location = first.surfaces[0].location
     app = make_app(path, data_dir=tmp_path / "data")
+
+    async def settle() -> None:
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+
     async with app.run_test(size=(100, 30)) as pilot:
         await _second_visit_in(pilot, app, first.room)
         missing = judging.readings_missing(app.editor.survey, 1, first.room)
@@ -252,35 +259,71 @@ async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp
         await pilot.pause()
         await pilot.press("enter", "up", "enter")  # the drop-down: gone for good
         await pilot.pause()
-        await pilot.press(*"plaster hacked off", "enter")
-        await app.workers.wait_for_complete()
+        app.focused.value = "x" * 201  # longer than a reason may be (200)
+        await pilot.press("enter")
         await pilot.pause()
+        assert type(app.screen).__name__ == "PromptDialog"
+        assert "Not saved" in str(app.screen.query_one("#prompt-message").render())
+        app.focused.value = ""
+        await pilot.press(*"plaster hacked off", "enter")
+        await settle()
         saved = store.load_survey(path).visits[1].room_visit(first.room)
         assert saved.left_out == [
-            model.LeftOut(kind="surface", location=location, reason="plaster hacked off")
+            model.LeftOut(
+                kind="surface", location=location, reason="plaster hacked off", for_good=True
+            )
         ]
         assert _cells(table)[0][2] == "left out" and table.cursor_row == 1
         assert judging.readings_missing(app.editor.survey, 1, first.room) == missing - 1
         table.move_cursor(row=0)
         await pilot.pause()
         assert _detail(app, "surfaces").endswith(
-            "left out this visit (plaster hacked off); gone for good, not offered again"
+            "left out (plaster hacked off); gone for good, not offered again"
         )
         await pilot.press("d")  # back to read
-        await app.workers.wait_for_complete()
-        await pilot.pause()
+        await settle()
         assert _cells(table)[0][2] == "to read"
         assert store.load_survey(path).visits[1].room_visit(first.room).left_out == []
         await pilot.press("u")  # left out again
-        await app.workers.wait_for_complete()
-        await pilot.pause()
+        await settle()
         assert _cells(table)[0][2] == "left out"
         await pilot.press("enter")  # read it after all
         await pilot.pause()
+        assert app.screen.title_text.startswith("Read again")
+        await pilot.press("escape")
+        await pilot.pause()
+        await pilot.press("d")  # back to read, then read, then u: the mark stays off
+        await settle()
+        await pilot.press("enter")
+        await pilot.pause()
         app.focused.value = "12"
         await pilot.press("enter")
-        await app.workers.wait_for_complete()
-        await pilot.pause()
+        await settle()
         assert _cells(table)[0][2] == "12.0 °C"
+        await pilot.press("u")
+        await settle()
+        assert _cells(table)[0][2] == "12.0 °C"  # read since: not left out again
+        assert store.load_survey(path).visits[1].room_visit(first.room).left_out == []
+
+        materials = app.screen.query_one("#materials", DataTable)
+        materials.focus()
+        await pilot.pause()
+        await pilot.press("d")
+        await pilot.pause()
+        await pilot.press("tab", *"behind the bed", "enter")  # not read this visit (default)
+        await settle()
+        point = first.materials[0]
+        assert store.load_survey(path).visits[1].room_visit(first.room).left_out == [
+            model.LeftOut(
+                kind="material",
+                location=point.location,
+                material=point.material,
+                reason="behind the bed",
+            )
+        ]
+        assert _cells(materials)[0][2] == "left out"
+        await pilot.press("u")  # the mark made goes
+        await settle()
+        assert _cells(materials)[0][2] == "to read"
     saved = store.load_survey(path).visits[1].room_visit(first.room)
     assert saved.left_out == [] and [s.location for s in saved.surfaces] == [location]

@@ -169,7 +169,7 @@ async def test_complete_walk_by_keys(tmp_path, monkeypatch):
         await settle(pilot, app)
         await press(pilot, "e")  # the first point measured last time
         await settle(pilot, app)
-        assert app.screen.title_text == "Read the surface measured last visit"
+        assert app.screen.title_text == "Read again the surface measured before"
         await field(pilot, "10")  # its temperature: saved
         await settle(pilot, app)
         assert app.status_text.startswith("Saved")

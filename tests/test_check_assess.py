@@ -557,10 +557,7 @@ def test_ip_limits_and_rating_points(check, monkeypatch):
     assert "80 °F and 60 % RH" in flat and "65 °F and 60 % RH" in flat
     assert "80.1 °F" not in flat and "64.9 °F" not in flat
     assert "from memory" not in flat.split("Limits used")[1]
-    assert (
-        "* value as commonly quoted from the source named, not checked here against its "
-        "current edition"
-    ) in flat
+    assert ("* value not checked here against the original text of the source named") in flat
 
 
 def test_units_upper_case_and_plausibility_warning(check):

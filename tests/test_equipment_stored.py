@@ -189,15 +189,9 @@ def test_a_label_with_control_characters_is_shown_safely():
     assert "\x1b" not in we.unit_name("D1\x1b[2J")
 
 
-def test_a_previous_reading_too_long_ago_gives_no_hours_and_says_why(basement):
-    """Day 3 moved 22 months on (2026-12-05), with no run hours: the 16 000-odd hours since
-    day 2's reading are past RUN_HOURS_MAX_H, so they do not stand for the run; the finding
-    says so, rather than that the time was not recorded."""
-    from survey.words.equipment import finding_text
-
-    survey = _day3(basement, run_hours=None)
+def _day3_readings_moved(survey: model.Survey, by: dt.timedelta, start_too: bool = True):
+    """Day 3 with its readings' times (and, ``start_too``, its start) moved ``by``."""
     visits = list(survey.visits)
-    late = dt.timedelta(days=670)
     rooms = []
     for rv in visits[2].rooms:
         items = [
@@ -205,23 +199,43 @@ def test_a_previous_reading_too_long_ago_gives_no_hours_and_says_why(basement):
                 e,
                 outlet=None
                 if e.outlet is None
-                else msgspec.structs.replace(e.outlet, taken_at=e.outlet.taken_at + late),
+                else msgspec.structs.replace(e.outlet, taken_at=e.outlet.taken_at + by),
             )
             for e in rv.equipment
         ]
         air = rv.air
         if air is not None and air.taken_at is not None:
-            air = msgspec.structs.replace(air, taken_at=air.taken_at + late)
+            air = msgspec.structs.replace(air, taken_at=air.taken_at + by)
         rooms.append(msgspec.structs.replace(rv, equipment=items, air=air))
-    visits[2] = msgspec.structs.replace(
-        visits[2], started_at=visits[2].started_at + late, rooms=rooms
-    )
-    survey = msgspec.structs.replace(survey, visits=visits)
-    assert (late.total_seconds() / 3600) > eq.RUN_HOURS_MAX_H
+    start = visits[2].started_at + (by if start_too else dt.timedelta(0))
+    visits[2] = msgspec.structs.replace(visits[2], started_at=start, rooms=rooms)
+    return msgspec.structs.replace(survey, visits=visits)
+
+
+@pytest.mark.parametrize(
+    ("label", "by", "start_too", "source", "words"),
+    [
+        # 670 days on: 16 000-odd hours since day 2, past RUN_HOURS_MAX_H (10 000 h)
+        ("Dehumidifier D1", dt.timedelta(days=670), True, "too_long_since", "too long ago"),
+        # a unit not seen before counts from the previous visit's start: the same
+        ("Dehumidifier D2", dt.timedelta(days=670), True, "too_long_since", "too long ago"),
+        # the reading timed a day and a half back, before day 2's reading of the unit
+        ("Dehumidifier D1", dt.timedelta(hours=-36), False, "not_after_previous", "not before"),
+    ],
+)
+def test_hours_that_cannot_stand_for_the_run_give_none_and_say_why(
+    basement, label, by, start_too, source, words
+):
+    """With no run hours, the hours since the unit's previous reading (or the previous
+    visit) stand for the run only when they are more than 0 and at most RUN_HOURS_MAX_H;
+    otherwise there are none, and the finding says why, rather than that the time was not
+    recorded."""
+    from survey.words.equipment import finding_text
+
+    survey = _day3_readings_moved(_day3(basement, run_hours=None, label=label), by, start_too)
     r = eq.judge_visit(survey, 2)[0].result
-    assert r.given.duration_h is None and r.given.duration_source == "too_long_since"
+    assert r.given.duration_h is None and r.given.duration_source == source
     assert r.removal_l_per_day is None
-    kinds = [f.kind for f in r.findings]
-    assert FindingKind.NO_DURATION in kinds
+    assert FindingKind.NO_DURATION in [f.kind for f in r.findings]
     said = finding_text(FindingKind.NO_DURATION, r, SI)
-    assert "too long ago" in said and "give the run hours" in said
+    assert words in said and "give the run hours" in said

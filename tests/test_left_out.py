@@ -43,6 +43,7 @@ def _with_fourth_visit() -> model.Survey:
                 location=BOARD[0],
                 material=BOARD[1],
                 reason="board stripped to 600 mm",
+                for_good=True,
             ),
             model.LeftOut(
                 kind="material",
@@ -51,7 +52,7 @@ def _with_fourth_visit() -> model.Survey:
                 reason="behind stacked boxes",
                 for_good=False,
             ),
-            model.LeftOut(kind="surface", location="Party wall, 0.3 m above floor"),
+            model.LeftOut(kind="surface", location="Party wall, 0.3 m above floor", for_good=True),
         ],
     )
     fourth = msgspec.structs.replace(
@@ -63,8 +64,11 @@ def _with_fourth_visit() -> model.Survey:
     return survey
 
 
-def _keys(points) -> list:
-    return [judging.point_key(p) for p in points]
+def _keys(points) -> list[tuple[str, str]]:
+    """Each point as (location, material), "" for a surface's material."""
+    return [
+        (p.location, p.material if isinstance(p, model.MaterialReading) else "") for p in points
+    ]
 
 
 def test_a_point_left_out_is_not_to_read_and_the_room_is_done():
@@ -93,8 +97,8 @@ def test_the_next_visit_offers_a_point_left_for_the_day_and_not_one_gone_for_goo
     assert [m.value for m in offered] == [60.0, 16.0]
     surfaces = judging.offered_points(survey, 4, "family", "surface")
     assert _keys(surfaces) == [
-        "Screed, centre of room",
-        "Front wall (below ground), 0.3 m above floor",
+        ("Screed, centre of room", ""),
+        ("Front wall (below ground), 0.3 m above floor", ""),
     ]
     assert judging.pending_materials(survey, 4, "family") == offered
 
@@ -192,3 +196,69 @@ def test_the_report_lists_the_points_left_out_with_their_reasons():
         n for n, h in enumerate(family[0]) if h.startswith("Party wall, 0.1 m above floor")
     )
     assert family[4][0] == "4" and family[4][board_column] == dw.LEFT_OUT_CELL
+
+
+def test_the_points_offered_follow_the_visits_in_time_not_in_the_file():
+    """With the fourth visit written first in the file (it still began a day after the
+    third), a fifth visit is offered the same points, as drying progress orders them."""
+    survey = _with_fourth_visit()
+    survey.visits.insert(0, survey.visits.pop())
+    fifth = model.Visit(started_at=survey.visits[0].started_at + dt.timedelta(days=1))
+    survey.visits.append(fifth)
+    assert _keys(judging.offered_points(survey, 4, "family", "material")) == [SCREED, SKIRTING]
+    # and the visit written first, which began last, is offered the third visit's points
+    assert len(judging.offered_points(survey, 0, "family", "material")) == 3
+
+
+def test_a_mark_matches_its_point_as_drying_does_case_and_spaces_aside():
+    """A reading typed as "skirting,  party wall " reads the point left out as "Skirting,
+    party wall": the mark goes, as drying progress takes them for one point."""
+    survey = _with_fourth_visit()
+    record = survey.visits[3].room_visit("family")
+    typed = model.MaterialReading(
+        location="skirting,  party wall ", material="Softwood Skirting", value=15, scale="wme_pct"
+    )
+    assert SKIRTING not in [
+        (x.location, x.material) for x in judging.without_left_out(record, "material", typed)
+    ]
+
+
+def test_a_mark_whose_earlier_reading_is_gone_gives_a_blank_point_to_read():
+    """A mark whose point no earlier visit holds (its reading deleted since, or a file
+    written so) stands for a blank point of its location and material."""
+    mark = model.LeftOut(kind="material", location="Hearth", material="brick")
+    point = judging.left_point([], mark)
+    assert isinstance(point, model.MaterialReading)
+    assert (point.location, point.material) == ("Hearth", "brick")
+    wall = judging.left_point([], model.LeftOut(kind="surface", location="Gable"))
+    assert isinstance(wall, model.SurfaceReading) and wall.location == "Gable"
+
+
+def test_a_file_with_a_point_both_read_and_left_out_is_refused_by_name():
+    """A record may not read a point and leave it out, nor leave it out twice, and a
+    material point left out names its material."""
+    survey = _with_fourth_visit()
+    record = survey.visits[3].room_visit("family")
+    assert model.problems(survey) == []
+    record.left_out.append(model.LeftOut(kind="material", location=SCREED[0], material=SCREED[1]))
+    record.left_out.append(model.LeftOut(kind="material", location=BOARD[0], material=BOARD[1]))
+    record.left_out.append(model.LeftOut(kind="material", location="Hearth"))
+    found = dict(model.problems(survey))
+    base = "visits[3].rooms[0].left_out"
+    assert "is read on this visit and left out" in found[f"{base}[3]"]
+    assert "is left out twice" in found[f"{base}[4]"]
+    assert "names its material" in found[f"{base}[5].material"]
+
+
+def test_a_point_gone_for_good_gets_no_days_to_a_goal():
+    """The plasterboard point, gone for good after reading 46 against its goal of 24.2:
+    no estimate of days, no trend sentence; the room's count says one more is gone."""
+    survey = _with_fourth_visit()
+    family = next(r for r in drying.drying_progress(survey).rooms if r.room_id == "family")
+    board = next(p for p in family.points if (p.location, p.material) == BOARD)
+    assert board.estimate is None
+    said = dw.point_sentence(board, {r.id: r.name for r in survey.rooms})
+    assert said.startswith("Last read at 46 (meter's relative scale) against a goal of 24.2")
+    assert "Drying:" not in said and "hours away" not in said
+    assert dw.met_cell(board) == dw.LEFT_OUT_CELL
+    assert dw.room_goals_text(family).endswith("(1 more left out for good).")

@@ -96,9 +96,23 @@ def _hostile_survey(tmp_path: Path, plain: bool = False):
             )
             room_visit["photos"] = [name]
             photo_names.append(name)
-    for room_visit in doc["visits"][-1]["rooms"]:  # a point left out, with its reason
+    # On the last visit each room's first material point of the visit before is left out
+    # for good, with a reason (its reading there dropped): the mark reaches the scope, the
+    # room's section and the drying progress.
+    before = {rv["room"]: rv for rv in doc["visits"][-2]["rooms"]}
+    for room_visit in doc["visits"][-1]["rooms"]:
+        earlier = before.get(room_visit["room"], {}).get("materials", [])
+        if not earlier or not room_visit.get("materials"):
+            continue
+        shown.remove(room_visit["materials"].pop(0)["location"])  # no longer in the report
         room_visit["left_out"] = [
-            {"kind": "material", "location": one(), "material": one(), "reason": one()}
+            {
+                "kind": "material",
+                "location": earlier[0]["location"],
+                "material": earlier[0]["material"],
+                "reason": one(),
+                "for_good": True,
+            }
         ]
     survey_path = tmp_path / "hostile.json"
     survey = store.loads_survey(json.dumps(doc).encode())

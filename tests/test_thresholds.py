@@ -208,10 +208,7 @@ def test_client_citation_avoids_trade_shorthand():
         "Dew-point margin 5.4 °F: ISO 8502-4"
     )  # 3 K × 1.8 = 5.4 °F
     assert words.legend([th.get("frsi_dwelling")]) == [
-        (
-            "* value as commonly quoted from the source named, not checked here against its "
-            "current edition"
-        )
+        ("* value not checked here against the original text of the source named")
     ]
     # and no trade shorthand left in any source as a client reads it
     for t in th.all_thresholds():

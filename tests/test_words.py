@@ -472,3 +472,23 @@ def test_a_storey_is_said_without_ordinals():
     assert storey_words(1) == "1 storey above ground"
     assert storey_words(4) == "4 storeys above ground"
     assert storey_words(-1) == "1 storey below ground"
+
+
+def test_unlikely_values_are_said_and_likely_ones_are_not():
+    """The warnings on values taken: a surface above 40 °C or below -25 °C
+    (domain.SURFACE_TEMP_WARN_*, common practice, no source), one more than 5 K warmer than
+    the room air; a daily use past its usual range (domain.PER_DAY_WARN)."""
+    from survey import domain
+    from survey.words.screens import per_day_warning, surface_temp_warning
+
+    assert surface_temp_warning(20.0, 21.0, words.SI) == ""
+    assert surface_temp_warning(27.0, 21.0, words.SI).startswith("warmer than the room air")
+    assert surface_temp_warning(45.0, None, words.SI).startswith("above 40.0 °C")
+    assert surface_temp_warning(-30.0, None, words.SI).startswith("below -25.0 °C")
+    assert "tape the spot" in surface_temp_warning(-30.0, -10.0, words.SI)
+    assert surface_temp_warning(-20.0, None, words.SI) == ""
+    assert surface_temp_warning(45.0, None, words.IP).startswith("above 104.0 °F")
+    for name, limit in domain.PER_DAY_WARN.items():
+        assert per_day_warning(limit, limit) == "", name
+        assert per_day_warning(limit + 1, limit).startswith(f"Saved; more than {limit:g} a day")
+    assert per_day_warning(None, 10.0) == ""

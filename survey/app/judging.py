@@ -11,7 +11,7 @@ from __future__ import annotations
 import datetime as dt
 from collections.abc import Hashable, Sequence
 
-from survey import assess, model
+from survey import assess, evaluate, model
 from survey.words import states as words_states
 
 
@@ -41,39 +41,31 @@ SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ conde
 # --- the walk ----------------------------------------------------------------------------
 
 
-def _entered_before(
-    survey: model.Survey, visit_index: int, room_id: str
-) -> tuple[int, model.RoomVisit] | None:
-    index = visit_index % len(survey.visits) if survey.visits else 0
-    for at in range(index - 1, -1, -1):
-        found = survey.visits[at].room_visit(room_id)
-        if found is not None and found.entered():
-            return at, found
-    return None
+def _visits_before(survey: model.Survey, visit_index: int) -> list[model.Visit]:
+    """The visits begun before this one, earliest first (by start time, as the assessment
+    and drying progress order them: :func:`survey.evaluate.earlier_visits`)."""
+    if not survey.visits:
+        return []
+    return [e.visit for e in reversed(evaluate.earlier_visits(survey, visit_index))]
 
 
 def previous_room_visit(
     survey: model.Survey, visit_index: int, room_id: str
 ) -> model.RoomVisit | None:
-    """The same room on the visit before this one (by order in the file) that it was
-    entered on (a record holding only the equipment carried over is passed by, so a room
-    not entered on one visit is offered the points of the one before)."""
-    found = _entered_before(survey, visit_index, room_id)
-    return None if found is None else found[1]
+    """The same room on the latest visit begun before this one that it was entered on (a
+    record holding only the equipment carried over is passed by, so a room not entered on
+    one visit is offered the points of the one before)."""
+    for visit in reversed(_visits_before(survey, visit_index)):
+        found = visit.room_visit(room_id)
+        if found is not None and found.entered():
+            return found
+    return None
 
 
 Point = model.SurfaceReading | model.MaterialReading
 
-
-def point_key(point: Point | model.LeftOut) -> Hashable:
-    """What makes a reading the same point from one visit to the next: a surface its
-    location, a material point its location and material. A point left out is keyed as
-    the point it stands for."""
-    if isinstance(point, model.LeftOut):
-        return point.location if point.kind == "surface" else (point.location, point.material)
-    if isinstance(point, model.MaterialReading):
-        return (point.location, point.material)
-    return point.location
+#: What makes readings on different visits the same point (see :func:`survey.model.point_key`).
+point_key = model.point_key
 
 
 def _points(record: model.RoomVisit, kind: model.PointKind) -> Sequence[Point]:
@@ -84,13 +76,12 @@ def offered_points(
     survey: model.Survey, visit_index: int, room_id: str, kind: model.PointKind
 ) -> list[Point]:
     """The points of ``kind`` this visit is asked to read, each as last read: those read
-    on the room's visits before this one (in file order, passing by records of a room not
-    entered) that were not left out for good since. The points read on the latest of them
-    come first, in its order, then those still carried from earlier visits. A point left
-    out for good is not offered again; measured anew, it carries on as the same point."""
-    index = visit_index % len(survey.visits) if survey.visits else 0
+    on the room's visits begun before this one (passing by records of a room not entered)
+    and not left out for good since. The points read on the latest of them come first, in
+    its order, then those still carried from earlier visits. A point left out for good is
+    not offered again; measured anew, it carries on as the same point."""
     offered: list[Point] = []
-    for visit in survey.visits[:index]:
+    for visit in _visits_before(survey, visit_index):
         record = visit.room_visit(room_id)
         if record is None or not record.entered():
             continue
@@ -101,7 +92,21 @@ def offered_points(
     return offered
 
 
-def last_visits_point(offered: Sequence[Point], point: Point) -> Point | None:
+def left_point(offered: Sequence[Point], mark: model.LeftOut) -> Point:
+    """The point a mark stands for, as last read (:func:`offered_points`); where no
+    earlier reading of it is offered any more (it was deleted or renamed since, or the file
+    came so), a blank point of the mark's location and material, to be read anew."""
+    found = last_visits_point(offered, mark)
+    if found is not None:
+        return found
+    if mark.kind == "surface":
+        return model.SurfaceReading(location=mark.location, element="other", surface_temp_c=0.0)
+    return model.MaterialReading(
+        location=mark.location, material=mark.material, value=0.0, scale="wme_pct"
+    )
+
+
+def last_visits_point(offered: Sequence[Point], point: Point | model.LeftOut) -> Point | None:
     """The same point (:func:`point_key`) among the points offered to this visit
     (:func:`offered_points`): the value it had when last read."""
     key = point_key(point)

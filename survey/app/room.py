@@ -12,22 +12,15 @@ from textual.widgets import Checkbox, DataTable, Input, Select, Static
 
 from survey import evaluate, model, units, words
 from survey import thresholds as th
-from survey.app import equipment, judging, panel, room_details, walk
+from survey.app import equipment, judging, panel, room_details, room_rows, walk
 from survey.app.air import AirPair
 from survey.app.fields import Choice, Field, Tick, plain
 from survey.app.panel import LivePanel
 from survey.app.room_tables import RoomTables
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
 from survey.errors import InputError
-from survey.words import screens
-from survey.words.report_room import reading_text
 
 USES = [(u.replace("_", " "), u) for u in th.ROOM_USES]
-#: A location's width in the tables (the whole label is in its dialog and the live panel);
-#: short enough that at 80 columns the surface RH is in sight beside it.
-LOCATION_CELL = 20
-#: The material table's (a symbol comes first; the row's words in full are under the table).
-MATERIAL_LOCATION_CELL = 18
 #: A volume more than this many times above or below the floor area × height given is saved
 #: with a warning (our choice: a loft or a stairwell can differ, a unit mix-up is ~35×).
 VOLUME_WARN_RATIO = 2.0
@@ -93,11 +86,6 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         return judging.offered_points(
             self.editor.survey, self.editor.visit_index, self.room_id, kind
         )
-
-    def left_out(self, kind: model.PointKind) -> list[tuple[int, model.LeftOut]]:
-        """This visit's points of ``kind`` left out, with their places in the record."""
-        record = self.record()
-        return [(n, x) for n, x in enumerate(record.left_out if record else ()) if x.kind == kind]
 
     @staticmethod
     def _volume_placeholder(room: model.Room, system: str) -> str:
@@ -275,93 +263,10 @@ class RoomScreen(RoomTables, walk.WalkScreen):
         judged = evaluate.assess_room(survey, self.editor.visit_index, self.room_id)
         self.query_one(LivePanel).show(judged, d)
         record = self.record()
-        key = judging.point_key
-        offered = self.offered("surface")
-        last_temp = {key(s): s.surface_temp_c for s in offered}
-        table = self.query_one(SurfaceTable)
-        row = table.cursor_row
-        table.clear()
-        findings = judged.finding.surfaces if judged else ()
-        read = list(record.surfaces if record else ())
-        pending = judging.pending_surfaces(survey, self.editor.visit_index, self.room_id)
-        left = self.left_out("surface")
-        order = judging.walk_order(
-            [key(s) for s in offered],
-            [key(s) for s in read],
-            [key(s) for s in pending],
-            [key(x) for _, x in left],
-        )
-        details = self._details["surfaces"] = []
-        for kind, n in order:
-            if kind == "read":
-                s = read[n]
-                f = findings[n] if n < len(findings) else None
-                last = last_temp.get(key(s))
-                details.append(
-                    self._detail(
-                        s.location,
-                        words.ELEMENT_WORDS.get(s.element, s.element),
-                        "no air reading yet" if f is None else screens.surface_detail(f, d),
-                    )
-                )
-                table.add_row(
-                    Text("·" if f is None else judging.RANK_SYMBOLS[words.surface_rank(f)]),
-                    plain(walk.cut(s.location, LOCATION_CELL)),
-                    Text(d.temperature(s.surface_temp_c)),
-                    Text("–" if f is None else screens.surface_rh_cell(f)),
-                    Text("no air reading" if f is None else screens.surface_state_words(f, d)),
-                    Text(
-                        "–"
-                        if f is None
-                        else (
-                            f"{d.difference(f.dew_point_margin_k)} ± "
-                            f"{d.difference(f.margin_uncertainty_k)}"
-                        )
-                    ),
-                    Text(words.ELEMENT_WORDS.get(s.element, s.element)),
-                    Text("" if last is None else d.temperature(last)),
-                    key=f"s{n}",
-                )
-            elif kind == "left":
-                at, x = left[n]
-                s = judging.last_visits_point(offered, x)  # type: ignore[assignment]
-                element = "" if s is None else words.ELEMENT_WORDS.get(s.element, s.element)
-                details.append(self._detail(x.location, element, screens.left_out_detail(x)))
-                table.add_row(
-                    Text("–"),
-                    plain(walk.cut(x.location, LOCATION_CELL)),
-                    Text("left out"),
-                    Text(""),
-                    plain(walk.cut(screens.left_out_brief(x), 30)),
-                    Text(""),
-                    Text(element),
-                    Text("" if s is None else d.temperature(s.surface_temp_c)),
-                    key=f"x{at}",
-                )
-            else:
-                s = pending[n]
-                details.append(
-                    self._detail(
-                        s.location,
-                        words.ELEMENT_WORDS.get(s.element, s.element),
-                        f"to read this visit; last visit {d.temperature(s.surface_temp_c)}",
-                    )
-                )
-                table.add_row(
-                    Text("·"),
-                    plain(walk.cut(s.location, LOCATION_CELL)),
-                    Text("to read"),
-                    Text(""),
-                    Text("measured last visit"),
-                    Text(""),
-                    Text(words.ELEMENT_WORDS.get(s.element, s.element)),
-                    Text(d.temperature(s.surface_temp_c)),
-                    key=f"p{n}",
-                )
-        if table.row_count:
-            table.move_cursor(row=min(row, table.row_count - 1))
-        self._show_detail(table)
-        self._fill_materials(record, judged)
+        finding = judged.finding if judged else None
+        at = (survey, self.editor.visit_index, self.room_id)
+        self._fill(SurfaceTable, "surfaces", room_rows.surface_rows(*at, finding, d))
+        self._fill(MaterialTable, "materials", room_rows.material_rows(*at, finding))
         table = self.query_one(EquipmentTable)
         row = table.cursor_row
         table.clear()
@@ -374,92 +279,17 @@ class RoomScreen(RoomTables, walk.WalkScreen):
             self.room, self.editor.unit_system
         )
 
-    def _fill_materials(self, record, judged) -> None:
-        table = self.query_one(MaterialTable)
+    def _fill(self, table_type, name: str, rows: list[room_rows.Row]) -> None:
+        """Refill a table of points, keeping the cursor's row, and its line in full."""
+        table = self.query_one(table_type)
         row = table.cursor_row
         table.clear()
-        states = iter(judged.finding.materials if judged else ())
-        read = list(record.materials if record else ())
-        judged_as = [None if m.dry_standard else next(states, None) for m in read]
-        pending = judging.pending_materials(
-            self.editor.survey, self.editor.visit_index, self.room_id
-        )
-        key = judging.point_key
-        offered = self.offered("material")
-        last_value = {key(m): m.value for m in offered}
-        left = self.left_out("material")
-        order = judging.walk_order(
-            [key(m) for m in offered],
-            [key(m) for m in read],
-            [key(m) for m in pending],
-            [key(x) for _, x in left],
-        )
-        details = self._details["materials"] = []
-        for kind, n in order:
-            if kind == "read":
-                m, f = read[n], judged_as[n]
-                rank = None if f is None else words.material_rank(f)
-                last = last_value.get(key(m))
-                table.add_row(
-                    Text("·" if rank is None else judging.RANK_SYMBOLS[rank]),
-                    plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
-                    Text(f"{m.value:g} {m.scale.replace('_pct', ' %')}"),
-                    Text(
-                        "dry standard"
-                        if m.dry_standard
-                        else "–"
-                        if f is None
-                        else words.material_state_brief(f)
-                    ),
-                    plain(walk.cut(m.material, 20)),
-                    Text("" if last is None else f"{last:g}"),
-                    key=f"m{n}",
-                )
-                said = (
-                    "the dry standard for this material"
-                    if m.dry_standard
-                    else "not judged yet (the room's air reading is needed)"
-                    if f is None
-                    else words.material_state_words(f)
-                )
-            elif kind == "left":
-                at, x = left[n]
-                was = judging.last_visits_point(offered, x)
-                table.add_row(
-                    Text("–"),
-                    plain(walk.cut(x.location, MATERIAL_LOCATION_CELL)),
-                    Text("left out"),
-                    plain(walk.cut(screens.left_out_brief(x), 24)),
-                    plain(walk.cut(x.material, 20)),
-                    Text("" if was is None else f"{was.value:g}"),
-                    key=f"y{at}",
-                )
-                details.append(self._detail(x.location, x.material, screens.left_out_detail(x)))
-                continue
-            else:
-                m = pending[n]
-                table.add_row(
-                    Text("·"),
-                    plain(walk.cut(m.location, MATERIAL_LOCATION_CELL)),
-                    Text("to read"),
-                    Text("read last visit"),
-                    plain(walk.cut(m.material, 20)),
-                    Text(f"{m.value:g}"),
-                    key=f"q{n}",
-                )
-                said = f"to read this visit; last visit {reading_text(m.value, m.scale)}"
-            details.append(self._detail(m.location, m.material, said))
+        for cells, key, _ in rows:
+            table.add_row(*cells, key=key)
+        self._details[name] = [line for _, _, line in rows]
         if table.row_count:
             table.move_cursor(row=min(row, table.row_count - 1))
         self._show_detail(table)
-
-    @staticmethod
-    def _detail(location: str, what: str, said: str) -> Text:
-        """A row in full for the line under its table: the location and the material or
-        element as typed (shown as text), then what it was judged to be."""
-        text = plain(f"{location} ({what}): ")
-        text.append(said)
-        return text
 
     def _show_detail(self, table: DataTable, row: int | None = None) -> None:
         """The line under ``table`` for its highlighted row (``row``, else the cursor's)."""

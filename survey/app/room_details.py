@@ -11,6 +11,7 @@ from __future__ import annotations
 from survey import domain, model
 from survey.app import walk
 from survey.app.fields import Choice, Field
+from survey.words import screens
 
 #: Select ids whose value is a yes / no / not recorded flag: id -> (record, field, label).
 FLAG_SELECTS = {
@@ -32,10 +33,8 @@ def _per_day(commit, warn_above: float):
     """Commit a moisture source a day, with a warning (not a refusal) above ``warn_above``."""
 
     def run(value: float | None) -> str:
-        said = commit(value)
-        if value is not None and value > warn_above:
-            return f"Saved; more than {warn_above:g} a day is unusual: a slip, or a shared room?"
-        return said
+        said = commit(value)  # raises InputError for a value the record refuses
+        return screens.per_day_warning(value, warn_above) or said
 
     return run
 

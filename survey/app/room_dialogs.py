@@ -13,10 +13,11 @@ from textual.containers import Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Checkbox, Select, Static
 
-from survey import domain, model, psychro, store, words
+from survey import model, psychro, store, words
 from survey.app import walk
 from survey.app.fields import Choice, Field, Tick, plain
 from survey.errors import InputError
+from survey.words import screens
 
 ELEMENTS = [
     (words.ELEMENT_WORDS.get(e, e.replace("_", " ")), e)
@@ -61,13 +62,13 @@ class _ReadingDialog(ModalScreen[msgspec.Struct | None]):
         """Save, unless a field refuses its text. A value taken with a warning (possible
         but unlikely) is shown first, and saved on the next Enter: a dialog that closed at
         once would hide the warning with it."""
-        warnings = []
+        warned = []
         for field in self.query(Field):
             if not field.try_commit(force=True):
                 field.input.focus()
                 return
-            if field.warning:
-                warnings.append(field.warning)
+            if field.warning:  # shown under the field
+                warned.append((field.id, field.committed_text))
         message = self.query_one("#dialog-message", Static)
         try:
             record = self.build()
@@ -75,15 +76,15 @@ class _ReadingDialog(ModalScreen[msgspec.Struct | None]):
         except InputError as exc:
             self._say(message, f"Not saved — {exc}", "-error")
             return
-        said = "; ".join(warnings)
-        if said and said != self._warned:
-            self._warned = said
-            self._say(message, f"Check before saving: {said}. Enter again saves it as it is.")
+        if warned and warned != self._warned:
+            self._warned = warned
+            self._say(message, screens.CHECK_BEFORE_SAVING)
             return
         self.dismiss(record)
 
-    #: The warning last shown; the same warning again does not stop the save twice.
-    _warned = ""
+    #: The values last warned about (field and text); the same values again do not stop
+    #: the save twice, a value changed since does.
+    _warned: list[tuple[str | None, str]] = []
 
     @staticmethod
     def _say(message: Static, text: str, kind: str = "-warning") -> None:
@@ -193,23 +194,7 @@ class SurfaceDialog(_ReadingDialog):
             surface_temp_c=value,
         )
         self.values["surface_temp_c"] = value
-        d = words.Display(self.system)
-        if self.air_c is not None and value > self.air_c + 5.0:
-            return (
-                f"warmer than the room air ({d.temperature(self.air_c)}) by more than "
-                f"{d.difference(5.0)}: a heater, a hot pipe or sun on the wall?"
-            )
-        if value > domain.SURFACE_TEMP_WARN_HIGH_C:
-            return (
-                f"above {d.temperature(domain.SURFACE_TEMP_WARN_HIGH_C)}: a heater, a hot pipe, "
-                "a lamp or sun on it? Check the reading"
-            )
-        if value < domain.SURFACE_TEMP_WARN_LOW_C:
-            return (
-                f"below {d.temperature(domain.SURFACE_TEMP_WARN_LOW_C)}: an infrared reading off a "
-                "shiny surface reads wrong; check it, or tape the spot and read the tape"
-            )
-        return ""
+        return screens.surface_temp_warning(value, self.air_c, words.Display(self.system))
 
     def build(self) -> model.SurfaceReading:
         base = {

@@ -14,6 +14,7 @@ from survey.app.dialogs import PromptDialog
 from survey.app.fields import plain
 from survey.app.room_dialogs import MaterialDialog, SurfaceDialog
 from survey.app.tables import EquipmentTable, MaterialTable, SurfaceTable
+from survey.errors import InputError
 from survey.safe_text import visible
 from survey.words import screens
 
@@ -58,17 +59,27 @@ class RoomTables:
     def action_add_surface(self) -> None:
         self._edit_surface(None, None)
 
+    def _point_to_read(self, kind: model.PointKind, key: str):
+        """The point a row to read (``p``/``q``) or left out (``x``/``y``) stands for, as
+        last read, and whether an earlier reading of it is offered (a mark whose reading
+        was deleted since gives a blank point of its location, with no last value)."""
+        index = int(key[1:])
+        survey, visit_index = self.editor.survey, self.editor.visit_index
+        if key[0] in "pq":
+            return judging.pending_points(survey, visit_index, self.room_id, kind)[index], True
+        mark = self.record().left_out[index]
+        offered = self.offered(kind)
+        return judging.left_point(offered, mark), judging.last_visits_point(
+            offered, mark
+        ) is not None
+
     def action_edit_surface(self) -> None:
         key = self._row(self.query_one(SurfaceTable))
         if key is None:
             return self.action_add_surface()
-        index = int(key[1:])
+        d = self.app.display_units
         if key[0] in "px":
-            point = (
-                judging.pending_surfaces(self.editor.survey, self.editor.visit_index, self.room_id)
-                if key[0] == "p"
-                else self._left_point("surface", index)
-            )[index if key[0] == "p" else 0]
+            point, was_read = self._point_to_read("surface", key)
             template = msgspec.structs.replace(
                 point,
                 surface_temp_c=None,
@@ -77,18 +88,20 @@ class RoomTables:
                 condensation_seen=False,
                 mould_visible=False,
             )
-            d = self.app.display_units
-            previous = f"last {d.temperature(point.surface_temp_c)}"
-            self._edit_surface(None, template, previous, pending=index if key[0] == "p" else None)
-        else:
-            reading = self.record().surfaces[index]
-            last = judging.last_visits_point(self.offered("surface"), reading)
-            d = self.app.display_units
-            previous = "" if last is None else f"last {d.temperature(last.surface_temp_c)}"
-            self._edit_surface(index, reading, previous)
+            previous = f"last {d.temperature(point.surface_temp_c)}" if was_read else ""
+            pending = int(key[1:]) if key[0] == "p" else None
+            self._edit_surface(None, template, previous, pending=pending, again=True)
+            return
+        reading = self.record().surfaces[int(key[1:])]
+        last = judging.last_visits_point(self.offered("surface"), reading)
+        previous = "" if last is None else f"last {d.temperature(last.surface_temp_c)}"
+        self._edit_surface(int(key[1:]), reading, previous)
 
-    def _edit_surface(self, index, reading, previous: str = "", pending: int | None = None) -> None:
-        """Add (``index`` None), edit, or read again the ``pending`` point of last visit."""
+    def _edit_surface(
+        self, index, reading, previous: str = "", pending: int | None = None, again=False
+    ) -> None:
+        """Add (``index`` None), edit, or read ``again`` a point measured before (the
+        ``pending`` one of those still to read, or one left out)."""
         if self.refuse_if_read_only():
             return
         record = self.record()
@@ -114,9 +127,9 @@ class RoomTables:
         title = (
             "Edit the surface"
             if index is not None
+            else screens.read_again_title("surface")
+            if again
             else "Add a surface"
-            if pending is None
-            else "Read the surface measured last visit"
         )
         self.app.push_screen(
             SurfaceDialog(
@@ -132,27 +145,23 @@ class RoomTables:
         key = self._row(self.query_one(MaterialTable))
         if key is None:
             return self.action_add_material()
-        index = int(key[1:])
         if key[0] in "qy":
-            point = (
-                judging.pending_materials(self.editor.survey, self.editor.visit_index, self.room_id)
-                if key[0] == "q"
-                else self._left_point("material", index)
-            )[index if key[0] == "q" else 0]
+            point, was_read = self._point_to_read("material", key)
             template = msgspec.structs.replace(point, value=None, taken_at=None, notes="")
-            self._edit_material(
-                None, template, f"last {point.value:g}", pending=index if key[0] == "q" else None
-            )
-        else:
-            reading = self.record().materials[index]
-            last = judging.last_visits_point(self.offered("material"), reading)
-            previous = "" if last is None or last.value is None else f"last {last.value:g}"
-            self._edit_material(index, reading, previous)
+            previous = f"last {point.value:g}" if was_read else ""
+            pending = int(key[1:]) if key[0] == "q" else None
+            self._edit_material(None, template, previous, pending=pending, again=True)
+            return
+        reading = self.record().materials[int(key[1:])]
+        last = judging.last_visits_point(self.offered("material"), reading)
+        previous = "" if last is None else f"last {last.value:g}"
+        self._edit_material(int(key[1:]), reading, previous)
 
     def _edit_material(
-        self, index, reading, previous: str = "", pending: int | None = None
+        self, index, reading, previous: str = "", pending: int | None = None, again=False
     ) -> None:
-        """Add (``index`` None), edit, or read again the ``pending`` point of last visit."""
+        """Add (``index`` None), edit, or read ``again`` a point measured before (the
+        ``pending`` one of those still to read, or one left out)."""
         if self.refuse_if_read_only():
             return
 
@@ -176,9 +185,9 @@ class RoomTables:
         title = (
             "Edit the material reading"
             if index is not None
+            else screens.read_again_title("material")
+            if again
             else "Add a material reading"
-            if pending is None
-            else "Read the point measured last visit"
         )
         self.app.push_screen(MaterialDialog(title, reading, previous), done)
 
@@ -238,53 +247,66 @@ class RoomTables:
     def action_delete_equipment(self) -> None:
         self._delete("equipment")
 
-    def _left_point(self, kind: model.PointKind, index: int) -> list:
-        """The point the record's ``index``-th point left out stands for, as last read
-        (a one-item list; empty if no earlier visit read it)."""
-        found = judging.last_visits_point(self.offered(kind), self.record().left_out[index])
-        return [] if found is None else [found]
-
     def _leave_out(self, kind: model.PointKind, point, pending: int) -> None:
-        """Ask why a point of last visit is not read on this one, and record it left out;
-        the cursor goes on to the next point to read, as after a reading."""
+        """Ask why a point measured before is not read on this visit, and record it left
+        out (u takes the mark away again); the cursor goes on to the next point to read, as
+        after a reading."""
+        material = point.material if kind == "material" else ""
+        blank = model.LeftOut(kind=kind, location=point.location, material=material)
+
+        def mark_of(values: list[str]) -> model.LeftOut:
+            gone, reason = values
+            return walk.checked(  # type: ignore[return-value]
+                blank, "Why", reason=reason.strip(), for_good=gone == "yes"
+            )
+
+        def check(values: list[str]) -> str:
+            try:
+                mark_of(values)
+            except InputError as exc:
+                return f"Not saved — {exc}"
+            return ""
 
         def done(values: list[str] | None) -> None:
             if values is None:
                 return
-            gone, reason = values
+            mark = mark_of(values)
             record = self.record(create=True)
-            mark = model.LeftOut(
-                kind=kind,
-                location=point.location,
-                material=getattr(point, "material", "") if kind == "material" else "",
-                reason=reason.strip(),
-                for_good=gone == "yes",
-            )
             left_out = [*judging.without_left_out(record, kind, point), mark]
             self._replace_record("point left out", left_out=left_out)
+            self.undo_stack.append(("leave_out", len(left_out) - 1, mark))
             self._changed()
             table, prefix = (SurfaceTable, "p") if kind == "surface" else (MaterialTable, "q")
             self._to_next_pending(
                 table, prefix, pending, f"{'xy'[prefix == 'q']}{len(left_out) - 1}"
             )
-            self.app.show_status(f"Left out {visible(point.location)} — d on it puts it back.")
+            self.app.show_status(screens.left_out_status(visible(point.location)))
 
-        what = "surface" if kind == "surface" else f"{point.material} reading"
         self.app.push_screen(
             PromptDialog(
-                f"Leave out the {what} at {visible(point.location)}",
+                screens.leave_out_title(kind, visible(point.location), visible(material)),
                 [
                     (
-                        "What became of it",
+                        screens.LEAVE_OUT_WHAT,
                         "no",
                         [(w, "yes" if gone else "no") for w, gone in screens.LEFT_OUT_CHOICES],
                     ),
-                    ("Why (e.g. plaster stripped out, behind a wardrobe today)", ""),
+                    (screens.LEAVE_OUT_WHY, ""),
                 ],
+                check,
                 note=screens.LEAVE_OUT_NOTE,
             ),
             done,
         )
+
+    def _put_back_to_read(self, index: int) -> None:
+        """Take the mark off a point left out: it is to read again (u leaves it out again)."""
+        left_out = list(self.record().left_out)
+        removed = left_out.pop(index)
+        self._replace_record("point left out", left_out=left_out)
+        self.undo_stack.append(("left_out", index, removed))
+        self._changed()
+        self.app.show_status(screens.back_to_read_status(visible(removed.location)))
 
     def _delete(self, kind: str) -> None:
         table = self.query_one(
@@ -298,21 +320,11 @@ class RoomTables:
         index = int(key[1:])
         if key[0] in "pq":
             point_kind: model.PointKind = "surface" if key[0] == "p" else "material"
-            pending = judging.pending_points(
-                self.editor.survey, self.editor.visit_index, self.room_id, point_kind
-            )
-            self._leave_out(point_kind, pending[index], index)
+            point, _ = self._point_to_read(point_kind, key)
+            self._leave_out(point_kind, point, index)
             return
         if key[0] in "xy":
-            record = self.record()
-            left_out = list(record.left_out)
-            removed = left_out.pop(index)
-            self._replace_record("point left out", left_out=left_out)
-            self.undo_stack.append(("left_out", index, removed))
-            self._changed()
-            self.app.show_status(
-                f"{visible(removed.location)} is to read again — u leaves it out again."
-            )
+            self._put_back_to_read(index)
             return
         items = list(getattr(self.record(), kind))
         removed = items.pop(index)
@@ -320,7 +332,7 @@ class RoomTables:
         self.undo_stack.append((kind, index, removed))
         self._changed()
         label = getattr(removed, "location", "") or getattr(removed, "kind", "")
-        self.app.show_status(f"Deleted {label} — u puts it back.")
+        self.app.show_status(f"Deleted {visible(label)} — u puts it back.")
 
     def action_delete_surface(self) -> None:
         self._delete("surfaces")
@@ -329,6 +341,9 @@ class RoomTables:
         self._delete("materials")
 
     def action_undo(self) -> None:
+        """Undo the last deletion, leaving out, or putting back to read. A reading put
+        back takes away a mark of its point made since; a mark is not put back on a point
+        read since."""
         if not self.undo_stack or self.refuse_if_read_only():
             self.app.show_status("Nothing to undo.")
             return
@@ -339,11 +354,31 @@ class RoomTables:
             self.query_one(AirPair).show_reading(removed)
             self.app.show_status("Put back the air reading.")
             return
-        items = list(getattr(self.record(create=True), kind))
-        items.insert(min(index, len(items)), removed)
-        self._replace_record(kind, **{kind: items})
-        self._changed()
-        if kind == "left_out":
-            self.app.show_status(f"Left out {visible(removed.location)} again.")
+        record = self.record(create=True)
+        if kind == "leave_out":  # the mark made goes
+            key = judging.point_key(removed)
+            left_out = [x for x in record.left_out if judging.point_key(x) != key]
+            self._replace_record("point left out", left_out=left_out)
+            self._changed()
+            self.app.show_status(screens.back_to_read_status(visible(removed.location)))
             return
+        if kind == "left_out":  # the mark taken off comes back, unless the point was read
+            key = judging.point_key(removed)
+            if any(judging.point_key(p) == key for p in (*record.surfaces, *record.materials)):
+                self.app.show_status(screens.read_since_status(visible(removed.location)))
+                return
+            left_out = [x for x in record.left_out if judging.point_key(x) != key]
+            left_out.insert(min(index, len(left_out)), removed)
+            self._replace_record("point left out", left_out=left_out)
+            self._changed()
+            self.app.show_status(screens.left_again_status(visible(removed.location)))
+            return
+        items = list(getattr(record, kind))
+        items.insert(min(index, len(items)), removed)
+        point_kind = "surface" if kind == "surfaces" else "material"
+        changes = {kind: items}
+        if kind in ("surfaces", "materials"):
+            changes["left_out"] = judging.without_left_out(record, point_kind, removed)
+        self._replace_record(kind, **changes)
+        self._changed()
         self.app.show_status(f"Put back {visible(getattr(removed, 'location', ''))}.")

@@ -60,7 +60,6 @@ from __future__ import annotations
 import dataclasses
 import datetime as dt
 import math
-import unicodedata
 from collections.abc import Callable
 from dataclasses import dataclass
 
@@ -83,6 +82,7 @@ from survey.drying.trend import (
     recent_fit,
     trend_of,
 )
+from survey.safe_text import fold
 
 __all__ = [
     "DayRange",
@@ -112,16 +112,6 @@ __all__ = [
 PointKey = tuple[str, str, str]
 
 _DAY_S = 86_400.0
-
-
-def fold(text: str) -> str:
-    """Text as compared for matching points: the Unicode compatibility caseless form
-    NFKD(casefold(NFKD(casefold(NFD(text))))) (The Unicode Standard ch. 3, D146; the
-    definition number from memory), with every run of white space made one space and the
-    ends trimmed."""
-    nfd = unicodedata.normalize("NFD", text).casefold()
-    folded = unicodedata.normalize("NFKD", unicodedata.normalize("NFKD", nfd).casefold())
-    return " ".join(folded.split())
 
 
 def point_key(location: str, material: str, scale: str) -> PointKey:
@@ -352,12 +342,16 @@ def _room_points(
         last = max(seen.index(r.visit_index) for r in made.readings)
         left = tuple(marks.get(key[:2], []))
         after = [m for i, m in left if seen.index(i) > last]
+        since = after[-1] if after else None
+        gone = since is not None and since.for_good
         out.append(
             dataclasses.replace(
                 made,
                 visits_missed=len(seen) - 1 - last,
                 left_out=left,
-                left_since=after[-1] if after else None,
+                left_since=since,
+                # a point gone is not dried any further: no days to a goal for it
+                estimate=None if gone else made.estimate,
             )
         )
     return tuple(out)

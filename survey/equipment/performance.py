@@ -30,11 +30,16 @@ ENERGY_FACTOR_MAX_L_PER_KWH = 20.0
 CAPACITY_MAX_L_PER_DAY = 10_000.0
 
 DehumidifierKind = Literal["refrigerant", "desiccant"]
-#: Where the hours came from; "too_long_since": no run hours were given and the unit's
-#: previous reading (or the previous visit) is too long ago, or out of order, to stand for
-#: them, so there are none.
+#: Where the hours came from. With no run hours given and none to take: "too_long_since",
+#: the unit's previous reading (or the previous visit) is too long ago to stand for a run;
+#: "not_after_previous", it is not before this reading.
 DurationSource = Literal[
-    "given", "run_hours", "since_previous_reading", "since_previous_visit", "too_long_since"
+    "given",
+    "run_hours",
+    "since_previous_reading",
+    "since_previous_visit",
+    "too_long_since",
+    "not_after_previous",
 ]
 
 

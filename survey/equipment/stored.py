@@ -53,12 +53,22 @@ def _reading_time(
     return visit.started_at
 
 
-def _hours(later: dt.datetime, earlier: dt.datetime) -> float | None:
+def _hours(
+    later: dt.datetime, earlier: dt.datetime, source: DurationSource
+) -> tuple[float | None, DurationSource | None]:
+    """The hours between two readings as the run time, with where they came from; none
+    where the earlier is not before the later ("not_after_previous") or too long before
+    it to stand for a run ("too_long_since", past RUN_HOURS_MAX_H), or the two times
+    cannot be compared (one with a time zone, one without)."""
     try:
         hours = (later - earlier).total_seconds() / 3600.0
     except TypeError:  # naive and aware times mixed
-        return None
-    return hours if 0.0 < hours <= RUN_HOURS_MAX_H else None
+        return None, None
+    if hours <= 0.0:
+        return None, "not_after_previous"
+    if hours > RUN_HOURS_MAX_H:
+        return None, "too_long_since"
+    return hours, source
 
 
 def _same_unit(a: model.Equipment, b: model.Equipment) -> bool:
@@ -86,10 +96,8 @@ def run_duration(
             continue
         for other in before.equipment:
             if _same_unit(other, e):
-                hours = _hours(now, _reading_time(v, before, other))
-                return hours, "since_previous_reading" if hours is not None else "too_long_since"
-    hours = _hours(now, earlier[0].started_at)
-    return hours, "since_previous_visit" if hours is not None else "too_long_since"
+                return _hours(now, _reading_time(v, before, other), "since_previous_reading")
+    return _hours(now, earlier[0].started_at, "since_previous_visit")
 
 
 def _before(a: model.Visit, b: model.Visit) -> bool:

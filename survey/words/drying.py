@@ -236,6 +236,8 @@ def goal_cell(point: MaterialPoint) -> str:
 
 
 def met_cell(point: MaterialPoint) -> str:
+    if point.gone:
+        return LEFT_OUT_CELL
     if point.goal_met is None:
         return "no goal"
     return "yes" if point.goal_met else "not yet"
@@ -317,6 +319,9 @@ def point_sentence(
     :func:`trend_sentence`."""
     latest = point.latest
     value = reading_text(latest.value, point.scale)
+    if point.gone:
+        against = "" if point.goal is None else f" against a goal of {goal_cell(point)}"
+        return f"Last read at {value}{against}." + _missed(point)
     if point.goal is None:
         goal = (
             f"{value}; no dry standard of {point.material} on this scale was read, so there "
@@ -356,7 +361,12 @@ def says_close_up(point: MaterialPoint, flued: bool | None) -> bool:
     """Whether the point's words tell the reader to keep the area closed while an
     open-flued appliance may be there (``flued`` not false): then they point to the
     combustion-air caution, and the face shows that caution (:func:`combustion_caution`)."""
-    return point.trend is TrendState.STALLED and point.goal_met is not True and flued is not False
+    return (
+        point.trend is TrendState.STALLED
+        and point.goal_met is not True
+        and not point.gone
+        and flued is not False
+    )
 
 
 def combustion_caution(flued: bool | None, d: Display) -> str:
@@ -441,16 +451,27 @@ def room_goals_text(room: RoomDrying) -> str:
     """How many of a room's points are at their goal."""
     if not room.points:
         return "No material points are read in this room."
+    gone = sum(p.gone for p in room.points)
+    if gone:
+        gone_said = f" ({gone} more left out for good)"
+        if gone == len(room.points):
+            return (
+                f"No material point is still read here: the {gone} read before "
+                f"{'was' if gone == 1 else 'were'} left out for good."
+            )
+    else:
+        gone_said = ""
     if room.goals_set == 0:
-        count = len(room.points)
+        count = len(room.points) - gone
         return (
             f"{count} material point{'' if count == 1 else 's'}, "
-            f"{'without' if count == 1 else 'none with'} a dry standard to set a goal."
+            f"{'without' if count == 1 else 'none with'} a dry standard to set a goal"
+            f"{gone_said}."
         )
     return (
         f"{room.goals_met} of {room.goals_set} material point"
         f"{'' if room.goals_set == 1 else 's'} at {'its' if room.goals_set == 1 else 'their'} "
-        "drying goal."
+        f"drying goal{gone_said}."
     )
 
 

@@ -318,11 +318,15 @@ def finding_text(kind: FindingKind, r: DehumidifierResult, d: Display) -> str:
             "Find where it goes before reading a removal rate from the tank."
         )
     if kind is FindingKind.NO_DURATION:
-        if r.given.duration_source == "too_long_since":
+        why = {
+            "too_long_since": "too long ago to stand for them",
+            "not_after_previous": "not before this one, so the time between says nothing",
+        }.get(r.given.duration_source or "")
+        if why is not None:
             return (
                 "The water was recorded without the hours it was collected over, and the "
-                "unit's previous reading (or the previous visit) is too long ago, or later "
-                "than this one, to stand for them: give the run hours to get a removal rate."
+                f"unit's previous reading (or the previous visit) is {why}: give the run "
+                "hours to get a removal rate."
             )
         return (
             "The water was recorded without the time it was collected over: give the run "

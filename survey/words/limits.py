@@ -8,8 +8,7 @@ from survey.words.display import Display
 #: One short mark per kind of source, with its legend printed once.
 MARK_SIGN = {"R": "", "M": "*", "C": "", "common practice": "†", "choice": "‡"}
 MARK_LEGEND = {
-    "*": "value as commonly quoted from the source named, not checked here against its "
-    "current edition",
+    "*": "value not checked here against the original text of the source named",
     "†": "trade practice, no single published source",
     "‡": "a value we chose (inside the range the source gives, where there is one)",
 }
@@ -45,7 +44,6 @@ def client_citation(t: th.Threshold, d: Display) -> str:
         t.source.replace(" (from memory)", "")
         .replace("; from memory", "")
         .replace(", from memory", "")
-        .replace("originals from memory", "originals not checked here")
         .replace("from memory", "not checked here")
     )
     return f"{t.title} {limit_value_text(t, d)}{MARK_SIGN[t.mark]}: {source}"

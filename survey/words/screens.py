@@ -4,8 +4,9 @@ judge. The app lays these out; it writes no sentence of its own."""
 
 from __future__ import annotations
 
-from survey import assess, model, psychro
+from survey import assess, domain, model, psychro
 from survey.safe_text import visible
+from survey.words import drying as drying_words
 from survey.words.display import Display
 from survey.words.states import (
     no_limit_reason,
@@ -168,10 +169,96 @@ def left_out_detail(point: model.LeftOut) -> str:
     """A point left out, in full: why, and whether it is offered again."""
     why = point.reason or "no reason given"
     then = "gone for good, not offered again" if point.for_good else "offered again next visit"
-    return f"left out this visit ({why}); {then}"
+    return f"left out ({why}); {then}"
 
 
 LEAVE_OUT_NOTE = (
     "The point stays in the record as left out, with its reason, and the report lists it. "
     "To read it after all, press Enter on it; d puts it back to read."
+)
+
+
+# --- the room's tables of points -----------------------------------------------------------
+
+TO_READ_CELL = "to read"
+READ_BEFORE_CELL = "read before"
+LEFT_OUT_CELL = drying_words.LEFT_OUT_CELL
+NO_AIR_CELL = "no air reading"
+NO_AIR_DETAIL = "no air reading yet"
+DRY_STANDARD_CELL = "dry standard"
+DRY_STANDARD_DETAIL = "the dry standard for this material"
+NOT_JUDGED_DETAIL = "not judged yet (the room's air reading is needed)"
+
+
+def to_read_detail(last: str) -> str:
+    """A point offered to this visit and not read yet, with its value when last read."""
+    return f"to read this visit; last read {last}"
+
+
+def point_words(kind: model.PointKind, material: str) -> str:
+    """A point named by its kind: "surface", or "plasterboard reading"."""
+    return "surface" if kind == "surface" else f"{material} reading"
+
+
+def leave_out_title(kind: model.PointKind, location: str, material: str) -> str:
+    return f"Leave out the {point_words(kind, material)} at {location}"
+
+
+LEAVE_OUT_WHAT = "What became of it"
+LEAVE_OUT_WHY = "Why (e.g. plaster stripped out, behind a wardrobe today)"
+
+
+def left_out_status(location: str) -> str:
+    return f"Left out {location} — d on it puts it back to read."
+
+
+def back_to_read_status(location: str) -> str:
+    return f"{location} is to read again — u leaves it out again."
+
+
+def left_again_status(location: str) -> str:
+    return f"Left out {location} again."
+
+
+def read_since_status(location: str) -> str:
+    return f"{location} was read since, so it is not left out again."
+
+
+def read_again_title(kind: model.PointKind) -> str:
+    return f"Read again the {'surface' if kind == 'surface' else 'point'} measured before"
+
+
+# --- warnings on values taken ----------------------------------------------------------------
+
+
+def surface_temp_warning(value_c: float, air_c: float | None, d: Display) -> str:
+    """A possible but unlikely surface temperature, said so ("" for a likely one)."""
+    if air_c is not None and value_c > air_c + 5.0:
+        return (
+            f"warmer than the room air ({d.temperature(air_c)}) by more than "
+            f"{d.difference(5.0)}: a heater, a hot pipe or sun on the wall?"
+        )
+    if value_c > domain.SURFACE_TEMP_WARN_HIGH_C:
+        return (
+            f"above {d.temperature(domain.SURFACE_TEMP_WARN_HIGH_C)}: a heater, a hot pipe, "
+            "a lamp or sun on it? Check the reading"
+        )
+    if value_c < domain.SURFACE_TEMP_WARN_LOW_C:
+        return (
+            f"below {d.temperature(domain.SURFACE_TEMP_WARN_LOW_C)}: an infrared reading off a "
+            "shiny surface reads wrong; check it, or tape the spot and read the tape"
+        )
+    return ""
+
+
+def per_day_warning(value: float | None, warn_above: float) -> str:
+    """A moisture source a day past its usual range, said so ("" within it)."""
+    if value is None or value <= warn_above:
+        return ""
+    return f"Saved; more than {warn_above:g} a day is unusual: a slip, or a shared room?"
+
+
+CHECK_BEFORE_SAVING = (
+    "Check the value above before saving: Enter again saves it as it is, Escape leaves "
+    "without saving."
 )
