@@ -439,12 +439,51 @@ class Visit(Struct, **_RECORD):
     notes: Notes = ""
     photos: list[FileName] = []
 
+    def readings_timed(self) -> int:
+        """How many of the visit's readings carry the time they were taken."""
+        return sum(1 for _ in _timed(self))
+
+    def moved(self, by: dt.timedelta) -> Visit:
+        """The visit begun ``by`` later (earlier when negative), every reading's time moved
+        with it: for a visit written up at another time than it took place."""
+
+        def move(reading):
+            if reading is None or getattr(reading, "taken_at", None) is None:
+                return reading
+            return msgspec.structs.replace(reading, taken_at=reading.taken_at + by)
+
+        rooms = [
+            msgspec.structs.replace(
+                rv,
+                air=move(rv.air),
+                surfaces=[move(s) for s in rv.surfaces],
+                materials=[move(m) for m in rv.materials],
+                equipment=[
+                    msgspec.structs.replace(e, outlet=move(e.outlet), inlet=move(e.inlet))
+                    for e in rv.equipment
+                ],
+            )
+            for rv in self.rooms
+        ]
+        return msgspec.structs.replace(
+            self, started_at=self.started_at + by, outdoor=move(self.outdoor), rooms=rooms
+        )
+
     def room_visit(self, room_id: str) -> RoomVisit | None:
         """This visit's record for ``room_id``, if the room was seen."""
         for room_visit in self.rooms:
             if room_visit.room == room_id:
                 return room_visit
         return None
+
+
+def _timed(visit: Visit):
+    """The visit's readings that carry the time they were taken."""
+    readings: list[object] = [visit.outdoor]
+    for rv in visit.rooms:
+        readings += [rv.air, *rv.surfaces, *rv.materials]
+        readings += [r for e in rv.equipment for r in (e.outlet, e.inlet)]
+    return (r for r in readings if r is not None and getattr(r, "taken_at", None) is not None)
 
 
 class LogSample(Struct, array_like=True, forbid_unknown_fields=True):

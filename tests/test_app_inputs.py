@@ -445,3 +445,36 @@ async def test_an_unlikely_surface_or_daily_use_is_taken_after_a_warning(tmp_pat
     saved = store.load_survey(path)
     assert saved.visits[0].rooms[0].surfaces[0].surface_temp_c == 50.0
     assert saved.rooms[0].showers_per_day == 20.0
+
+
+async def test_moving_a_visits_start_offers_to_move_its_readings_with_it(tmp_path):
+    """The demo's visit began 2025-01-15 09:40; typed as 2025-01-14 09:40, the app asks
+    whether the readings' times move by the same day (they drive drying rates): y moves
+    every reading's time, and the visit drop-down shows the new start. Moved back with n,
+    the readings keep the times they carry."""
+    path, app = _demo_app(tmp_path)
+    before = store.load_survey(path).visits[0]
+    count = before.readings_timed()
+    assert count > 0
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "visit")
+        await type_into(pilot, app, "visit-started", "2025-01-14 09:40")
+        await pilot.pause()
+        assert type(app.screen).__name__ == "ConfirmDialog"
+        assert "1 day earlier" in app.screen.question
+        await pilot.press("y")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert app.status_text.startswith(f"Moved the times of {count} readings 1 day earlier")
+        shown = str(app.screen.query_one("#visit-choice SelectCurrent #label").render())
+        assert "2025-01-14 09:40" in shown
+        await type_into(pilot, app, "visit-started", "2025-01-15 09:40")
+        await pilot.pause()
+        await pilot.press("n")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+    moved = store.load_survey(path).visits[0]
+    assert moved.started_at == before.started_at
+    day = dt.timedelta(days=1)
+    assert moved.rooms[0].air.taken_at == before.rooms[0].air.taken_at - day
+    assert moved.outdoor.taken_at in (None, before.outdoor.taken_at - day)

@@ -392,7 +392,7 @@ def test_closed_up_basement_says_occupants_taken_as_0_and_the_leak_rate():
         "Basement", "basement", 22.0, 75.0, (SurfaceInput("slab", 17.0),), volume_m3=60.0
     )
     text = reason_of(room, OutdoorInput(28.0, 75.0), ActionKind.DEHUMIDIFY)
-    assert "occupants not given, taken as 0 for a basement that is closed up: 0 g/h" in text
+    assert "occupants not given, taken as 0 for a basement room that is closed up: 0 g/h" in text
     assert "outdoor air leaking in at about 0.5 air changes an hour brings" in text
 
 

@@ -235,7 +235,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
                     walk.photo_names("Photos"),
                     self._set_record("photos", "Photos"),
                     id="room-photos",
-                    placeholder="file names, separated by commas",
+                    placeholder="e.g. p1.jpg, p2.jpg",
                     disabled=ro,
                 )
             yield VerticalScroll(LivePanel(id="live"), id="live-scroll")

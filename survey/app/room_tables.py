@@ -123,6 +123,8 @@ class RoomTables:
             self._changed()
             if pending is not None:
                 self._to_next_pending(SurfaceTable, "p", pending, f"s{len(surfaces) - 1}")
+            elif index is None:  # a new point: the cursor on it, its line under the table
+                self._move_to(self.query_one(SurfaceTable), f"s{len(surfaces) - 1}")
 
         title = (
             "Edit the surface"
@@ -181,6 +183,8 @@ class RoomTables:
             self._changed()
             if pending is not None:
                 self._to_next_pending(MaterialTable, "q", pending, f"m{len(materials) - 1}")
+            elif index is None:
+                self._move_to(self.query_one(MaterialTable), f"m{len(materials) - 1}")
 
         title = (
             "Edit the material reading"

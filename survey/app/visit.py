@@ -3,6 +3,9 @@ to the same site."""
 
 from __future__ import annotations
 
+import datetime as dt
+
+import msgspec
 from rich.text import Text
 from textual import on
 from textual.containers import Horizontal
@@ -11,8 +14,17 @@ from textual.widgets import Button, Select, Static
 from survey import model, psychro
 from survey.app import walk
 from survey.app.air import AirPair
+from survey.app.dialogs import ConfirmDialog
 from survey.app.fields import Choice, Field, plain
 from survey.words import screens
+
+
+def _choices(survey: model.Survey) -> list[tuple[Text, int]]:
+    """The visits as the drop-down lists them: number, start and label."""
+    return [
+        (Text(f"{n + 1}: {v.started_at:%Y-%m-%d %H:%M} ") + plain(v.label), n)
+        for n, v in enumerate(survey.visits)
+    ]
 
 
 class VisitScreen(walk.WalkScreen):
@@ -29,10 +41,7 @@ class VisitScreen(walk.WalkScreen):
         yield self.header()
         with Horizontal(classes="split"):
             with walk.Form():
-                choices = [
-                    (Text(f"{n + 1}: {v.started_at:%Y-%m-%d %H:%M} ") + plain(v.label), n)
-                    for n, v in enumerate(editor.survey.visits)
-                ]
+                choices = _choices(editor.survey)
                 yield walk.labelled(
                     "Visit shown",
                     Choice(
@@ -70,7 +79,7 @@ class VisitScreen(walk.WalkScreen):
                     walk.optional(walk.pressure("Barometric pressure", system)),
                     self._setter("pressure_pa", "Barometric pressure"),
                     id="visit-pressure",
-                    placeholder="measured on site (else from the altitude)",
+                    placeholder="blank: from the altitude",
                     disabled=ro,
                 )
                 yield Field(
@@ -87,7 +96,7 @@ class VisitScreen(walk.WalkScreen):
                     walk.photo_names("Photos"),
                     self._setter("photos", "Photos"),
                     id="visit-photos",
-                    placeholder="file names, separated by commas",
+                    placeholder="e.g. p1.jpg, p2.jpg",
                     disabled=ro,
                 )
                 yield Static(Text("Outdoor reading", style="bold"))
@@ -114,13 +123,49 @@ class VisitScreen(walk.WalkScreen):
     def _setter(self, name: str, label: str):
         def commit(value):
             visits = self.editor.survey.visits
-            visits[self.editor.visit_index] = walk.checked(self.visit, label, **{name: value})
+            before = self.visit
+            visits[self.editor.visit_index] = walk.checked(before, label, **{name: value})
             self.committed()
             if name == "pressure_pa":
                 self.show_state(self.visit.outdoor)
+            if name in ("started_at", "label"):
+                self._visit_choices()
+            if name == "started_at":
+                self._offer_move(value - before.started_at)
             return ""
 
         return commit
+
+    def _visit_choices(self) -> None:
+        """The visits as the drop-down lists them (a start or label changed)."""
+        survey = self.editor.survey
+        choice = self.query_one("#visit-choice", Choice)
+        options = _choices(survey)
+        index = self.editor.visit_index % len(survey.visits)
+        with choice.prevent(Select.Changed):
+            choice.set_options(options)
+            choice.value = index
+        # the value may be the one it was, which draws nothing anew: the words shown are set
+        choice.query_one("SelectCurrent").update(options[index][0])  # type: ignore[attr-defined]
+
+    def _offer_move(self, by: dt.timedelta) -> None:
+        """With the start moved, ask whether the readings' times move with it."""
+        count = self.visit.readings_timed()
+        if not by or not count:
+            return
+        index = self.editor.visit_index
+
+        def done(yes: bool | None) -> None:
+            if not yes:
+                return
+            visits = self.editor.survey.visits
+            moved = visits[index].moved(by)
+            # the start was set already: only the readings move
+            visits[index] = msgspec.structs.replace(moved, started_at=visits[index].started_at)
+            self.committed()
+            self.app.show_status(screens.readings_moved_status(count, by))
+
+        self.app.push_screen(ConfirmDialog(screens.move_readings_question(count, by)), done)
 
     def _set_outdoor(self, reading: model.AirReading) -> str:
         reading, warning = walk.stamped(

@@ -325,15 +325,23 @@ def rooms_not_entered_text(names: Sequence[str]) -> str:
     )
 
 
+def _left_out_item(point: model.LeftOut) -> str:
+    what = "surface" if point.kind == "surface" else f"{point.material} reading"
+    why = f": {point.reason}" if point.reason else ""
+    then = "gone for good" if point.for_good else "to read at the next visit"
+    return f"{point.location} ({what}, {then}{why})"
+
+
 def points_left_out_text(items: Sequence[tuple[str, model.LeftOut]]) -> str:
     """The points of an earlier visit not read on this one, each with its room and why."""
-    said = []
-    for room, point in items:
-        what = "surface" if point.kind == "surface" else f"{point.material} reading"
-        why = f": {point.reason}" if point.reason else ""
-        then = "gone for good" if point.for_good else "to read at the next visit"
-        said.append(f"{room}, {point.location} ({what}, {then}{why})")
-    return "Points measured before and not read on this visit: " + "; ".join(said) + "."
+    said = "; ".join(f"{room}, {_left_out_item(point)}" for room, point in items)
+    return f"Points measured before and not read on this visit: {said}."
+
+
+def room_points_left_out_text(points: Sequence[model.LeftOut]) -> str:
+    """A room's points measured before and not read on this visit, in its own section."""
+    said = "; ".join(_left_out_item(point) for point in points)
+    return f"Measured before and not read on this visit: {said}."
 
 
 NOT_COVERED = (

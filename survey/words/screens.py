@@ -4,14 +4,19 @@ judge. The app lays these out; it writes no sentence of its own."""
 
 from __future__ import annotations
 
+import datetime as dt
+
 from survey import assess, domain, model, psychro
 from survey.safe_text import visible
 from survey.words import drying as drying_words
 from survey.words.display import Display
 from survey.words.states import (
+    material_rank,
+    material_state_brief,
     no_limit_reason,
     rh_limit_text,
     short_verdict,
+    surface_rank,
     surface_rh_text,
     worst_surface,
 )
@@ -146,8 +151,16 @@ def surface_state_words(surface: assess.SurfaceFinding, d: Display) -> str:
 
 
 def worst_state_words(finding: assess.RoomFinding, d: Display) -> str:
-    """The room's worst surface's state (see :func:`surface_state_words`)."""
+    """The room's worst finding in a few words: its worst surface's state (see
+    :func:`surface_state_words`), or its wettest material reading's where that ranks
+    higher (so the words agree with the room's symbol, which counts both)."""
     worst = worst_surface(finding.surfaces)
+    ranked = [(r, m) for m in finding.materials if (r := material_rank(m)) is not None]
+    wettest = max(ranked, key=lambda pair: pair[0], default=None)
+    if wettest is not None and (worst is None or wettest[0] > surface_rank(worst)):
+        count = sum(1 for r, _ in ranked if r == wettest[0])
+        said = material_state_brief(wettest[1])
+        return said if count == 1 else f"{said} (and {count - 1} more)"
     return "no surface measured" if worst is None else surface_state_words(worst, d)
 
 
@@ -262,3 +275,33 @@ CHECK_BEFORE_SAVING = (
     "Check the value above before saving: Enter again saves it as it is, Escape leaves "
     "without saving."
 )
+
+
+# --- a visit's start moved -------------------------------------------------------------------
+
+
+def span_text(by: dt.timedelta) -> str:
+    """A length of time in days, hours and minutes: "1 day 2 h", "10 min"."""
+    minutes = round(abs(by.total_seconds()) / 60)
+    days, rest = divmod(minutes, 24 * 60)
+    hours, minutes = divmod(rest, 60)
+    parts = [f"{days} day{'s' if days != 1 else ''}"] if days else []
+    parts += [f"{hours} h"] if hours else []
+    parts += [f"{minutes} min"] if minutes or not parts else []
+    return " ".join(parts)
+
+
+def move_readings_question(count: int, by: dt.timedelta) -> str:
+    """Whether a visit's readings move with its start (the readings were typed in later,
+    or the start was mistyped), or keep the times they carry."""
+    way = "later" if by > dt.timedelta(0) else "earlier"
+    return (
+        f"The visit now begins {span_text(by)} {way}. Move the times of its {count} "
+        f"reading{'s' if count != 1 else ''} by the same? y: they were taken then too "
+        "(drying rates use these times); n: keep the times they carry."
+    )
+
+
+def readings_moved_status(count: int, by: dt.timedelta) -> str:
+    way = "later" if by > dt.timedelta(0) else "earlier"
+    return f"Moved the times of {count} reading{'s' if count != 1 else ''} {span_text(by)} {way}."

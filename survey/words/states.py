@@ -31,7 +31,7 @@ USE_PHRASE = {
     "bathroom": "a bathroom",
     "kitchen": "a kitchen",
     "living": "a living room",
-    "basement": "a basement",
+    "basement": "a basement room",
     "crawlspace": "a crawl space",
     "loft": "a loft",
     "office": "an office",
