@@ -327,3 +327,38 @@ async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp
         assert _cells(materials)[0][2] == "to read"
     saved = store.load_survey(path).visits[1].room_visit(first.room)
     assert saved.left_out == [] and [s.location for s in saved.surfaces] == [location]
+
+
+async def test_a_point_added_has_the_cursor_and_the_line_under_the_table(tmp_path):
+    """A surface added by keys (a, location, Enter through the fields, a temperature) is
+    the highlighted row, with its line under the table; back on the room list the status
+    line says the last save, not a message from before."""
+    app = make_app(_demo_copy(tmp_path), data_dir=tmp_path / "data")
+    async with app.run_test(size=(100, 30)) as pilot:
+        await pilot.pause()
+        app.open_room(app.editor.survey.rooms[0].id)
+        await pilot.pause()
+        table = app.screen.query_one("#surfaces", DataTable)
+        table.focus()
+        await pilot.pause()
+        await pilot.press("a")
+        await pilot.pause()
+        app.focused.value = "Door reveal, hinge side"
+        app.screen.query_one("#surface-temp-input").value = "15"
+        await pilot.press("enter")  # location committed, on to the next field
+        app.screen.query_one("#surface-temp-input").focus()
+        await pilot.press("enter")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert type(app.screen).__name__ == "RoomScreen"
+        assert table.cursor_row == table.row_count - 1
+        assert _detail(app, "surfaces").startswith("Door reveal, hinge side (")
+        await pilot.press("escape")  # to the room list
+        await pilot.pause()
+        await pilot.press("enter")  # into a room again
+        await pilot.pause()
+        app.show_status("Saved 10:00:00.", "saved")  # said while the room list is hidden
+        await pilot.press("escape")  # back to the room list, shown before
+        await pilot.pause()
+        assert type(app.screen).__name__ == "RoomListScreen"
+        assert str(app.screen.query_one(".status-bar").render()) == "Saved 10:00:00."

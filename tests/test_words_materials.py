@@ -80,3 +80,18 @@ def test_the_example_readings_rank_by_the_limits():
             2 if over_standard or over_timber else 0 if m in timber or m in standard else None
         )
         assert words.material_rank(m) == expected, m
+
+
+def test_the_worst_finding_in_words_names_a_material_where_it_ranks_highest():
+    """The basement family room on its third visit: its surfaces are clear of the mould
+    limit, but its three material points are above their dry standards (rank 2 against
+    the surfaces' lower rank), so the room's words say so, as its symbol does."""
+    from survey.app import judging
+    from survey.words import screens
+
+    survey = store.load_survey(EXAMPLE)
+    judged = evaluate.assess_room(survey, 2, "family")
+    assert judging.worst_rank(judged.finding) == 2
+    assert screens.worst_state_words(judged.finding, words.SI) == "above standard (and 2 more)"
+    office = evaluate.assess_room(survey, 2, "office")  # dry standards only: the surface's
+    assert screens.worst_state_words(office.finding, words.SI) == "below the mould limit"
