@@ -163,6 +163,7 @@ from survey.words.report_room import (
 from survey.words.report_room import (
     with_band as with_band,
 )
+from survey.words.states import point_words
 
 HEADINGS = {
     "summary": "In short",
@@ -326,7 +327,7 @@ def rooms_not_entered_text(names: Sequence[str]) -> str:
 
 
 def _left_out_item(point: model.LeftOut) -> str:
-    what = "surface" if point.kind == "surface" else f"{point.material} reading"
+    what = point_words(point.kind, point.material)
     why = f": {point.reason}" if point.reason else ""
     then = "gone for good" if point.for_good else "to read at the next visit"
     return f"{point.location} ({what}, {then}{why})"

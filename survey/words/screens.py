@@ -14,6 +14,7 @@ from survey.words.states import (
     material_rank,
     material_state_brief,
     no_limit_reason,
+    point_words,
     rh_limit_text,
     short_verdict,
     surface_rank,
@@ -206,11 +207,6 @@ NOT_JUDGED_DETAIL = "not judged yet (the room's air reading is needed)"
 def to_read_detail(last: str) -> str:
     """A point offered to this visit and not read yet, with its value when last read."""
     return f"to read this visit; last read {last}"
-
-
-def point_words(kind: model.PointKind, material: str) -> str:
-    """A point named by its kind: "surface", or "plasterboard reading"."""
-    return "surface" if kind == "surface" else f"{material} reading"
 
 
 def leave_out_title(kind: model.PointKind, location: str, material: str) -> str:

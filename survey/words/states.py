@@ -407,3 +407,8 @@ def timber_emc_text(finding: RoomFinding, d: Display) -> str:
         f"Timber in this air settles at about {finding.timber_emc_pct:.1f} % moisture "
         f"content (Wood Handbook eqn 4-5)."
     )
+
+
+def point_words(kind: str, material: str) -> str:
+    """A point named by its kind: "surface", or "plasterboard reading"."""
+    return "surface" if kind == "surface" else f"{material} reading"
