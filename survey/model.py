@@ -36,7 +36,8 @@ prints: they are plain text, with no markup.
 from __future__ import annotations
 
 import datetime as dt
-from typing import Annotated, Literal
+from collections.abc import Iterator
+from typing import Annotated, Literal, TypeVar
 
 import msgspec
 from msgspec import Meta, Struct, field
@@ -425,6 +426,9 @@ class RoomVisit(Struct, **_RECORD):
         )
 
 
+_Timed = TypeVar("_Timed", bound=AirReading | SurfaceReading | MaterialReading | None)
+
+
 class Visit(Struct, **_RECORD):
     """One visit to the site: when, the weather, the outdoor air, and the rooms seen."""
 
@@ -447,8 +451,8 @@ class Visit(Struct, **_RECORD):
         """The visit begun ``by`` later (earlier when negative), every reading's time moved
         with it: for a visit written up at another time than it took place."""
 
-        def move(reading):
-            if reading is None or getattr(reading, "taken_at", None) is None:
+        def move(reading: _Timed) -> _Timed:
+            if reading is None or reading.taken_at is None:
                 return reading
             return msgspec.structs.replace(reading, taken_at=reading.taken_at + by)
 
@@ -477,13 +481,13 @@ class Visit(Struct, **_RECORD):
         return None
 
 
-def _timed(visit: Visit):
+def _timed(visit: Visit) -> Iterator[AirReading | SurfaceReading | MaterialReading]:
     """The visit's readings that carry the time they were taken."""
-    readings: list[object] = [visit.outdoor]
+    readings: list[AirReading | SurfaceReading | MaterialReading | None] = [visit.outdoor]
     for rv in visit.rooms:
         readings += [rv.air, *rv.surfaces, *rv.materials]
         readings += [r for e in rv.equipment for r in (e.outlet, e.inlet)]
-    return (r for r in readings if r is not None and getattr(r, "taken_at", None) is not None)
+    return (r for r in readings if r is not None and r.taken_at is not None)
 
 
 class LogSample(Struct, array_like=True, forbid_unknown_fields=True):
