@@ -102,6 +102,16 @@ def _demo_app(tmp_path):
     return path, make_app(path, data_dir=tmp_path / "data")
 
 
+def _demo_without_room_air(tmp_path) -> Path:
+    """A copy of the demo survey with its first room's air reading removed."""
+    path = tmp_path / "survey.json"
+    shutil.copyfile(DEMO_SOURCE, path)
+    survey = store.load_survey(path)
+    survey.visits[0].rooms[0].air = None
+    store.save_survey(survey, path)
+    return path
+
+
 async def goto(pilot, app, screen: str) -> None:
     if screen == "room":
         app.open_room(app.editor.survey.rooms[0].id)
@@ -174,11 +184,7 @@ async def test_implausible_rh_is_saved_with_a_warning(tmp_path):
     """RH 99 % is possible: saved, with a warning under the field; so is a new reading taken
     long after the visit began (the demo visit began on 2025-01-15 09:40; the app's clock
     here is 2026-12-01 09:30; the room's reading is removed first, so this one is new)."""
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    survey = store.load_survey(path)
-    survey.visits[0].rooms[0].air = None
-    store.save_survey(survey, path)
+    path = _demo_without_room_air(tmp_path)
     app = make_app(path, data_dir=tmp_path / "data", clock=lambda: dt.datetime(2026, 12, 1, 9, 30))
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
@@ -417,11 +423,7 @@ async def test_an_unlikely_surface_or_daily_use_is_taken_after_a_warning(tmp_pat
     from survey import domain
 
     assert domain.SURFACE_TEMP_WARN_HIGH_C < 50.0 and domain.PER_DAY_WARN["showers_per_day"] < 20
-    path = tmp_path / "survey.json"
-    shutil.copyfile(DEMO_SOURCE, path)
-    survey = store.load_survey(path)
-    survey.visits[0].rooms[0].air = None
-    store.save_survey(survey, path)
+    path = _demo_without_room_air(tmp_path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
         await goto(pilot, app, "room")
