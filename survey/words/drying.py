@@ -28,6 +28,7 @@ from survey.words.cautions import CAUTION_NAMES, caution_text
 from survey.words.display import Display
 from survey.words.report import date_text
 from survey.words.report_room import reading_text
+from survey.words.screens import LEFT_OUT_CELL as LEFT_OUT_CELL
 from survey.words.states import standard_visit_said
 
 # --- the report's section --------------------------------------------------------------------
@@ -40,7 +41,6 @@ DRYING_INTRO = (
 VISITS_HEADER = ("Visit", "Date", "Air", "RH", "Humidity ratio", "Worst surface margin")
 WATER_COLLECTED = "Water collected"
 NOT_MEASURED = "not measured"
-LEFT_OUT_CELL = "left out"  #: a point not read on that visit, for a reason recorded
 AT_GOAL_MARK = "✓"
 POINTS_HEADER = (
     "Point",

@@ -8,7 +8,6 @@ import datetime as dt
 
 from survey import assess, domain, model, psychro
 from survey.safe_text import visible
-from survey.words import drying as drying_words
 from survey.words.display import Display
 from survey.words.states import (
     material_rank,
@@ -196,7 +195,7 @@ LEAVE_OUT_NOTE = (
 
 TO_READ_CELL = "to read"
 READ_BEFORE_CELL = "read before"
-LEFT_OUT_CELL = drying_words.LEFT_OUT_CELL
+LEFT_OUT_CELL = "left out"  #: a point not read on a visit, for a reason recorded
 NO_AIR_CELL = "no air reading"
 NO_AIR_DETAIL = "no air reading yet"
 DRY_STANDARD_CELL = "dry standard"
