@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from pathlib import Path
 
+from rich.console import Group
+from rich.table import Table
 from rich.text import Text
 from textual.binding import Binding
 from textual.containers import VerticalScroll
@@ -52,36 +54,44 @@ def sections() -> list[tuple[str, list[Binding]]]:
     ]
 
 
-def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) -> Text:
+def help_text(keymap: dict[str, str] | None = None, folder: Path | None = None) -> Group:
     """The keys of every screen (with the user's own keys from ``keymap``); ``folder`` is
-    where the keys file is read from."""
+    where the keys file is read from. Each key's words wrap in their own column."""
     from survey.app.keymap import FILE
 
     keymap = keymap or {}
     where = str(folder / FILE) if folder is not None else f"{FILE} in the app's data folder"
     from survey.app.judging import SYMBOL_LEGEND
 
-    out = Text(WALK + "\n")
-    out.append(
-        "\nSymbols in the tables: "
-        + SYMBOL_LEGEND.replace("  ", ", ")
-        + " room; · not judged yet. In the material table ! is a reading above its dry"
-        " standard or timber in its mould or decay range, ✓ one at its standard (or timber"
-        " below its mould range), and · a"
-        " dry-standard reading itself or one with nothing to judge it against; – is a point"
-        " of an earlier visit left out of this one. The line under the surface and material"
-        " tables says the highlighted row in full.\n"
-    )
+    parts: list = [
+        Text(WALK + "\n"),
+        Text(
+            "Symbols in the tables: "
+            + SYMBOL_LEGEND.replace("  ", ", ")
+            + " room; · not judged yet. In the material table ! is a reading above its dry"
+            " standard or timber in its mould or decay range, ✓ one at its standard (or timber"
+            " below its mould range), and · a"
+            " dry-standard reading itself or one with nothing to judge it against; – is a point"
+            " of an earlier visit left out of this one. The line under the surface and material"
+            " tables says the highlighted row in full."
+        ),
+    ]
     for title, bindings in sections():
-        out.append(f"\n{title}\n", "bold")
+        parts.append(Text(f"\n{title}", style="bold"))
+        keys = Table.grid(padding=(0, 1))
+        keys.add_column(width=20, no_wrap=True)
+        keys.add_column(ratio=1)
         for b in bindings:
             key = key_text(b) if b.id not in keymap else key_text(Binding(keymap[b.id], ""))
-            out.append(f"  {key:<18} {b.tooltip or b.description}  ({b.id})\n")
-    out.append(
-        "\nKeys can be remapped by binding id (shown in brackets): write them in "
-        f'{where}, e.g. {{"go_report": "f9"}}, and start the app again.\n'
+            keys.add_row(Text(f"  {key}"), Text(f"{b.tooltip or b.description}  ({b.id})"))
+        parts.append(keys)
+    parts.append(
+        Text(
+            "\nKeys can be remapped by binding id (shown in brackets): write them in "
+            f'{where}, e.g. {{"go_report": "f9"}}, and start the app again.'
+        )
     )
-    return out
+    return Group(*parts)
 
 
 class HelpScreen(Screen):

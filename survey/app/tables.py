@@ -59,7 +59,13 @@ class SurfaceTable(RowTable):
             id="surface_delete",
             tooltip=LEAVE_OUT_TIP,
         ),
-        Binding("u", "screen.undo", "Undo", id="surface_undo", tooltip="Undo the last deletion"),
+        Binding(
+            "u",
+            "screen.undo",
+            "Undo",
+            id="surface_undo",
+            tooltip="Undo the last deletion, leaving out or putting back to read",
+        ),
     ]
 
 
@@ -74,7 +80,13 @@ class MaterialTable(RowTable):
             id="material_delete",
             tooltip=LEAVE_OUT_TIP,
         ),
-        Binding("u", "screen.undo", "Undo", id="material_undo", tooltip="Undo the last deletion"),
+        Binding(
+            "u",
+            "screen.undo",
+            "Undo",
+            id="material_undo",
+            tooltip="Undo the last deletion, leaving out or putting back to read",
+        ),
     ]
 
 
