@@ -9,6 +9,7 @@ import datetime as dt
 import shutil
 from pathlib import Path
 
+import msgspec
 import pytest
 from textual import events
 
@@ -476,7 +477,30 @@ async def test_moving_a_visits_start_offers_to_move_its_readings_with_it(tmp_pat
         await app.workers.wait_for_complete()
         await pilot.pause()
     moved = store.load_survey(path).visits[0]
-    assert moved.started_at == before.started_at
-    day = dt.timedelta(days=1)
-    assert moved.rooms[0].air.taken_at == before.rooms[0].air.taken_at - day
-    assert moved.outdoor.taken_at in (None, before.outdoor.taken_at - day)
+    # every timed reading a day back (model.Visit.moved), the start back where it was
+    expected = msgspec.structs.replace(
+        before.moved(-dt.timedelta(days=1)), started_at=before.started_at
+    )
+    assert moved == expected and moved != before
+
+
+async def test_a_start_typed_and_left_asks_first_and_a_time_zone_is_no_crash(tmp_path):
+    """A new start typed with a time zone over the demo's (which has none) and left by F4
+    without Enter: it is committed, the question is asked (by the wall clocks: 1 day
+    earlier) and the walk stays until it is answered."""
+    path, app = _demo_app(tmp_path)
+    async with app.run_test(size=SIZE) as pilot:
+        await goto(pilot, app, "visit")
+        app.screen.query_one("#visit-started-input").focus()
+        await pilot.pause()
+        app.screen.query_one("#visit-started-input").value = "2025-01-14 09:40+01:00"
+        await pilot.press("f4")
+        await pilot.pause()
+        assert type(app.screen).__name__ == "ConfirmDialog"
+        assert "1 day earlier" in app.screen.question
+        await pilot.press("n")
+        await pilot.pause()
+        assert type(app.screen).__name__ == "VisitScreen"
+        await app.workers.wait_for_complete()
+    started = store.load_survey(path).visits[0].started_at
+    assert started.utcoffset() == dt.timedelta(hours=1)

@@ -192,8 +192,8 @@ def test_the_report_lists_the_points_left_out_with_their_reasons():
     ) in " ".join(text.split())
     # and in the room's own section, on the visit it was left out
     assert (
-        "Measured before and not read on this visit: Party wall, 0.1 m above floor "
-        "(plasterboard reading, gone for good: board stripped to 600 mm);"
+        "#### Not read on this visit Measured on an earlier visit: Party wall, 0.1 m above "
+        "floor (plasterboard reading, gone for good: board stripped to 600 mm);"
     ) in " ".join(text.split())
     drying_tables = [t for t in _tables(text) if t[0][:2] == list(dw.VISITS_HEADER[:2])]
     family = drying_tables[0]

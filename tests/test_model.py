@@ -456,3 +456,55 @@ def test_example_people_and_places_are_plainly_invented(path):
     site = store.load_survey(path).site
     for text in (site.reference, site.address, site.client, site.inspector):
         assert any(word in text for word in ("Example", "Sample", "Demo", "example")), text
+
+
+def test_a_visit_moved_moves_every_timed_reading_and_only_those():
+    """Moved back a day, a visit's start and every reading that carries a time move by the
+    same (outdoor air, room air, a surface, a material point, a unit's outlet and inlet);
+    a reading with no time keeps none (it is read as taken at the start). Log samples are
+    the logger's own times and belong to no visit."""
+    at = dt.datetime(2025, 2, 6, 9, 30)
+    air = model.AirReading(dry_bulb_c=20.0, rh_pct=50.0, taken_at=at)
+    visit = model.Visit(
+        started_at=at,
+        outdoor=air,
+        rooms=[
+            model.RoomVisit(
+                room="r",
+                air=air,
+                surfaces=[
+                    model.SurfaceReading(
+                        location="a", element="floor", surface_temp_c=15.0, taken_at=at
+                    ),
+                    model.SurfaceReading(location="b", element="floor", surface_temp_c=15.0),
+                ],
+                materials=[
+                    model.MaterialReading(
+                        location="c", material="screed", value=80, scale="relative", taken_at=at
+                    )
+                ],
+                equipment=[
+                    model.Equipment(
+                        kind="refrigerant_dehumidifier", label="D1", outlet=air, inlet=air
+                    )
+                ],
+            )
+        ],
+    )
+    assert visit.readings_timed() == 6
+    day = dt.timedelta(days=1)
+    moved = visit.moved(-day)
+    rv = moved.rooms[0]
+    times = [
+        moved.started_at,
+        moved.outdoor.taken_at,
+        rv.air.taken_at,
+        rv.surfaces[0].taken_at,
+        rv.materials[0].taken_at,
+        rv.equipment[0].outlet.taken_at,
+        rv.equipment[0].inlet.taken_at,
+    ]
+    assert times == [at - day] * 7
+    assert rv.surfaces[1].taken_at is None
+    assert visit.rooms[0].air.taken_at == at  # the visit moved is a new one
+    assert visit.moved(dt.timedelta(0)) == visit

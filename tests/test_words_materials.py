@@ -92,6 +92,8 @@ def test_the_worst_finding_in_words_names_a_material_where_it_ranks_highest():
     survey = store.load_survey(EXAMPLE)
     judged = evaluate.assess_room(survey, 2, "family")
     assert judging.worst_rank(judged.finding) == 2
-    assert screens.worst_state_words(judged.finding, words.SI) == "above standard (and 2 more)"
+    assert screens.worst_state_words(judged.finding, words.SI) == (
+        "plasterboard reading above standard (and 2 more)"
+    )
     office = evaluate.assess_room(survey, 2, "office")  # dry standards only: the surface's
     assert screens.worst_state_words(office.finding, words.SI) == "below the mould limit"

@@ -236,9 +236,11 @@ class SurveyApp(App):
         temperature with no RH, or the other way round), which is not saved, is asked about
         first, as quitting asks: let go, the half is dropped and ``then`` runs; kept,
         nothing moves. While the question is showing, nothing else leaves."""
-        if any(getattr(screen, "leave_question", False) for screen in self.screen_stack):
+        if self._asking():
             return False  # asked already: answered there
         pairs = self._half_readings()
+        if self._asking():
+            return False  # committing what was typed raised a question: answered first
         if not pairs:
             return True
         from survey.app.dialogs import ConfirmDialog
@@ -425,8 +427,16 @@ class SurveyApp(App):
             if pair.unsaved_half() is not None
         ]
 
+    def _asking(self) -> bool:
+        """Whether a question that holds the walk where it is is showing (see
+        :meth:`may_leave`)."""
+        return any(getattr(screen, "leave_question", False) for screen in self.screen_stack)
+
     async def action_quit(self) -> None:
+        asked = self._asking()
         halves = [str(pair.unsaved_half()) for pair in self._half_readings()]
+        if not halves and not asked and self._asking() and not self._quitting:
+            return  # committing what was typed raised a question: answered first
         if halves and not self._quitting:
             from survey.app.dialogs import ConfirmDialog
 

@@ -348,7 +348,9 @@ class RoomTables:
         """Undo the last deletion, leaving out, or putting back to read. A reading put
         back takes away a mark of its point made since; a mark is not put back on a point
         read since."""
-        if not self.undo_stack or self.refuse_if_read_only():
+        if self.refuse_if_read_only():
+            return
+        if not self.undo_stack:
             self.app.show_status("Nothing to undo.")
             return
         kind, index, removed = self.undo_stack.pop()

@@ -5,7 +5,6 @@ from __future__ import annotations
 
 import datetime as dt
 
-import msgspec
 from rich.text import Text
 from textual import on
 from textual.containers import Horizontal
@@ -16,7 +15,26 @@ from survey.app import walk
 from survey.app.air import AirPair
 from survey.app.dialogs import ConfirmDialog
 from survey.app.fields import Choice, Field, plain
+from survey.errors import InputError
 from survey.words import screens
+
+
+def _start_text(at: dt.datetime) -> str:
+    """A start as the field shows it: with its offset from UTC when it has one, so that
+    editing it keeps the time zone."""
+    text = f"{at:%Y-%m-%d %H:%M}"
+    if at.tzinfo is None:
+        return text
+    zone = at.strftime("%z")  # "+0100"
+    return f"{text}{zone[:3]}:{zone[3:5]}"
+
+
+def _between(earlier: dt.datetime, later: dt.datetime) -> dt.timedelta:
+    """``later - earlier``; where one has a time zone and the other not, as the wall-clock
+    times written (as drying progress reads such a pair)."""
+    if (earlier.tzinfo is None) != (later.tzinfo is None):
+        earlier, later = earlier.replace(tzinfo=None), later.replace(tzinfo=None)
+    return later - earlier
 
 
 def _choices(survey: model.Survey) -> list[tuple[Text, int]]:
@@ -54,7 +72,7 @@ class VisitScreen(walk.WalkScreen):
                 )
                 yield Field(
                     "Started at",
-                    f"{visit.started_at:%Y-%m-%d %H:%M}",
+                    _start_text(visit.started_at),
                     walk.timestamp("Started at"),
                     self._setter("started_at", "Started at"),
                     id="visit-started",
@@ -131,7 +149,7 @@ class VisitScreen(walk.WalkScreen):
             if name in ("started_at", "label"):
                 self._visit_choices()
             if name == "started_at":
-                self._offer_move(value - before.started_at)
+                self._offer_move(_between(before.started_at, value))
             return ""
 
         return commit
@@ -151,21 +169,28 @@ class VisitScreen(walk.WalkScreen):
     def _offer_move(self, by: dt.timedelta) -> None:
         """With the start moved, ask whether the readings' times move with it."""
         count = self.visit.readings_timed()
-        if not by or not count:
-            return
+        if abs(by) < dt.timedelta(minutes=1) or not count:
+            return  # (a start shown to the minute and typed again loses only its seconds)
         index = self.editor.visit_index
 
         def done(yes: bool | None) -> None:
             if not yes:
                 return
             visits = self.editor.survey.visits
-            moved = visits[index].moved(by)
-            # the start was set already: only the readings move
-            visits[index] = msgspec.structs.replace(moved, started_at=visits[index].started_at)
+            start = visits[index].started_at
+            try:  # the start was set already: only the readings move
+                moved = visits[index].moved(by)
+                moved = walk.checked(moved, "Reading times", started_at=start)
+            except (InputError, OverflowError) as exc:
+                self.app.show_status(screens.readings_not_moved_status(str(exc)), "error")
+                return
+            visits[index] = moved
             self.committed()
             self.app.show_status(screens.readings_moved_status(count, by))
 
-        self.app.push_screen(ConfirmDialog(screens.move_readings_question(count, by)), done)
+        question = ConfirmDialog(screens.move_readings_question(count, by))
+        question.leave_question = True  # answered before the walk moves on
+        self.app.push_screen(question, done)
 
     def _set_outdoor(self, reading: model.AirReading) -> str:
         reading, warning = walk.stamped(

@@ -79,8 +79,6 @@ class WalkScreen(Screen):
     def on_screen_resume(self) -> None:
         if getattr(self, "_shown_once", False):
             self.refresh_view()  # back from another screen: the survey may have changed
-            from survey.app.status import StatusBar
-
             for bar in self.query(StatusBar):  # and saved since: the line says when
                 bar.show(self.app.status_text, self.app.status_kind)
         self._shown_once = True

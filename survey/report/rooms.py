@@ -370,7 +370,10 @@ def room_section(
     if room_visit.materials:
         doc.add(Heading(sub, rw.HEADINGS["materials"]), *_materials(f, room_visit, room_id, visit))
     if room_visit.left_out:
-        doc.add(Para(rw.room_points_left_out_text(room_visit.left_out)))
+        doc.add(
+            Heading(sub, rw.HEADINGS["left_out"]),
+            Para(rw.room_points_left_out_text(room_visit.left_out)),
+        )
     doc.add(Heading(sub, rw.HEADINGS["seen"]), *_seen(ctx, room, room_visit))
     doc.add(*equipment_report.blocks(ctx, va.visit_index, room_id, sub))
     if room_visit.photos:

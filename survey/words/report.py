@@ -174,6 +174,7 @@ HEADINGS = {
     "readings": "Readings",
     "surfaces": "Surfaces",
     "materials": "Moisture in materials",
+    "left_out": "Not read on this visit",
     "seen": "What was seen",
     "photos": "Photos",
     "actions": "What to do",
@@ -340,9 +341,9 @@ def points_left_out_text(items: Sequence[tuple[str, model.LeftOut]]) -> str:
 
 
 def room_points_left_out_text(points: Sequence[model.LeftOut]) -> str:
-    """A room's points measured before and not read on this visit, in its own section."""
+    """A room's points measured before and not read on this visit, under their heading."""
     said = "; ".join(_left_out_item(point) for point in points)
-    return f"Measured before and not read on this visit: {said}."
+    return f"Measured on an earlier visit: {said}."
 
 
 NOT_COVERED = (

@@ -159,7 +159,8 @@ def worst_state_words(finding: assess.RoomFinding, d: Display) -> str:
     wettest = max(ranked, key=lambda pair: pair[0], default=None)
     if wettest is not None and (worst is None or wettest[0] > surface_rank(worst)):
         count = sum(1 for r, _ in ranked if r == wettest[0])
-        said = material_state_brief(wettest[1])
+        m = wettest[1]
+        said = f"{point_words('material', visible(m.material))} {material_state_brief(m)}"
         return said if count == 1 else f"{said} (and {count - 1} more)"
     return "no surface measured" if worst is None else surface_state_words(worst, d)
 
@@ -300,3 +301,7 @@ def move_readings_question(count: int, by: dt.timedelta) -> str:
 def readings_moved_status(count: int, by: dt.timedelta) -> str:
     way = "later" if by > dt.timedelta(0) else "earlier"
     return f"Moved the times of {count} reading{'s' if count != 1 else ''} {span_text(by)} {way}."
+
+
+def readings_not_moved_status(problem: str) -> str:
+    return f"The readings' times were not moved: {problem}."
