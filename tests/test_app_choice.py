@@ -42,6 +42,7 @@ async def test_a_choice_made_by_enter_is_saved_and_moves_on(tmp_path):
         assert app.focused is not use and app.focused.id == "room-volume-input"
         chosen = use.value
         assert chosen != "bedroom"
+        await app.workers.wait_for_complete()  # saved in a worker: read the file after it
         saved = json.loads(path.read_text(encoding="utf-8"))
         assert next(r for r in saved["rooms"] if r["id"] == room_id)["use"] == chosen
 

@@ -362,3 +362,50 @@ async def test_a_point_added_has_the_cursor_and_the_line_under_the_table(tmp_pat
         await pilot.pause()
         assert type(app.screen).__name__ == "RoomListScreen"
         assert str(app.screen.query_one(".status-bar").render()) == "Saved 10:00:00."
+
+
+async def test_undo_never_puts_back_a_reading_of_a_point_read_again_since(tmp_path):
+    """On a second visit a material point is read (10), deleted, left out, then read after
+    all (30). u then finds the mark gone with the reading (and says so), and u again does
+    not put the deleted 10 back beside the 30: one point, one reading."""
+    path = _demo_copy(tmp_path)
+    first = store.load_survey(path).visits[0].rooms[0]
+    point = first.materials[0]
+    app = make_app(path, data_dir=tmp_path / "data")
+
+    async def settle() -> None:
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+
+    async def read(value: str) -> None:
+        await pilot.press("enter")
+        await pilot.pause()
+        app.focused.value = value
+        await pilot.press("enter")
+        await settle()
+
+    async with app.run_test(size=(100, 30)) as pilot:
+        await _second_visit_in(pilot, app, first.room)
+        table = app.screen.query_one("#materials", DataTable)
+        table.focus()
+        await pilot.pause()
+        await read("10")
+        table.move_cursor(row=0)
+        await pilot.press("d")  # the reading deleted: the point is to read again
+        await settle()
+        assert _cells(table)[0][2] == "to read"
+        await pilot.press("d", "tab", *"boxes", "enter")  # left out
+        await settle()
+        assert _cells(table)[0][2] == "left out"
+        table.move_cursor(row=0)  # (the cursor went on to the next point to read)
+        await pilot.pause()
+        await read("30")  # read after all
+        await pilot.press("u")
+        await settle()
+        assert "was read since" in app.status_text
+        await pilot.press("u")
+        await settle()
+        assert "is not put back" in app.status_text
+    saved = store.load_survey(path).visits[1].room_visit(first.room)
+    same = [m.value for m in saved.materials if m.location == point.location]
+    assert same == [30.0] and saved.left_out == []

@@ -4,6 +4,7 @@ record holds the readings and is judged in the equipment table."""
 
 from __future__ import annotations
 
+import datetime as dt
 import shutil
 from pathlib import Path
 
@@ -51,7 +52,9 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
     the results."""
     path = tmp_path / "basement.json"
     shutil.copyfile(BASEMENT, path)
-    app = make_app(path, data_dir=tmp_path / "data")
+    # the clock an hour into the last visit (2025-02-05 09:50), so the reading is timed
+    clock = lambda: dt.datetime(2025, 2, 5, 10, 50)  # noqa: E731
+    app = make_app(path, data_dir=tmp_path / "data", clock=clock)
     async with app.run_test(size=SIZE) as pilot:
         await _add_in_family_room(pilot, app)
         for text in (None, "D2", None, "20", "1.2kg"):
@@ -81,7 +84,8 @@ async def test_a_new_dehumidifier_is_checked_and_saved(tmp_path):
     assert (saved.label, saved.capacity_l_per_day, saved.water_removed_l) == ("D2", 20.0, 1.2)
     assert (saved.inlet.dry_bulb_c, saved.inlet.rh_pct) == (24.0, 70.0)
     assert (saved.outlet.dry_bulb_c, saved.outlet.rh_pct) == (33.0, 30.0)
-    assert saved.outlet.taken_at is not None and saved.outlet.instrument == "th3"
+    assert saved.outlet.taken_at == dt.datetime(2025, 2, 5, 10, 50)
+    assert saved.outlet.instrument == "th3"
     assert (saved.run_hours, saved.power_w, saved.energy_kwh) == (3.0, 250.0, None)
     assert (saved.rated_energy_factor_l_per_kwh, saved.rating_condition) == (1.8, "18.3c_60")
 

@@ -267,3 +267,22 @@ def test_a_point_gone_for_good_gets_no_days_to_a_goal():
     assert "Drying:" not in said and "hours away" not in said
     assert dw.met_cell(board) == dw.LEFT_OUT_CELL
     assert dw.room_goals_text(family).endswith("(1 more left out for good).")
+
+
+def test_a_reading_typed_far_from_its_visit_gets_no_time_and_counts_at_the_start():
+    """A reading saved with the clock 665 days after the visit began (written up long
+    after, or a start mistyped) gets no time, so drying progress counts it at the visit's
+    start, and the warning says so; within LATE_READING_H of the start it takes the
+    clock's time; a clock before the start by more than that gets none either."""
+    from survey.app import walk
+
+    start = dt.datetime(2025, 2, 6, 9, 30)
+    visit = model.Visit(started_at=start)
+    reading = model.AirReading(dry_bulb_c=20.0, rh_pct=50.0)
+    late, said = walk.stamped(reading, start + dt.timedelta(days=665), visit)
+    assert late.taken_at is None
+    assert said.startswith("saved without a time: the clock is 665 days after this visit")
+    near, said = walk.stamped(reading, start + dt.timedelta(hours=1), visit)
+    assert near.taken_at == start + dt.timedelta(hours=1) and said == ""
+    early, said = walk.stamped(reading, start - dt.timedelta(days=2), visit)
+    assert early.taken_at is None and "before this visit begins" in said

@@ -55,7 +55,9 @@ class RoomScreen(RoomTables, walk.WalkScreen):
     def __init__(self, room_id: str) -> None:
         super().__init__()
         self.room_id = room_id
-        self.undo_stack: list[tuple[str, int, msgspec.Struct]] = []
+        #: (what, where, the record taken away, for a reading: how many readings of its
+        #: point were left when it was deleted).
+        self.undo_stack: list[tuple[str, int, msgspec.Struct, int]] = []
         #: Each table's rows in full (table id to one Text a row), for the line under it.
         self._details: dict[str, list[Text]] = {"surfaces": [], "materials": []}
 
@@ -396,7 +398,7 @@ class RoomScreen(RoomTables, walk.WalkScreen):
     def _clear_air(self, reading: model.AirReading) -> str:
         """Delete the room's air reading on this visit (asked first; u puts it back)."""
         self._replace_record("air reading", air=None)
-        self.undo_stack.append(("air", 0, reading))
+        self.undo_stack.append(("air", 0, reading, 0))
         self._changed()
         return "Deleted the air reading — u puts it back."
 

@@ -19,6 +19,12 @@ from survey.safe_text import visible
 from survey.words import screens
 
 
+def _same_point(readings, reading) -> int:
+    """How many of ``readings`` are of ``reading``'s point."""
+    key = judging.point_key(reading)
+    return sum(judging.point_key(r) == key for r in readings)
+
+
 class RoomTables:
     """Adding, editing and deleting the room's surface, material and equipment rows."""
 
@@ -111,8 +117,9 @@ class RoomTables:
             if result is None:
                 return
             surfaces = list(self.record(create=True).surfaces)
+            warning = ""
             if index is None:
-                result, _ = walk.stamped(
+                result, warning = walk.stamped(
                     result, self.app.clock(), self.visit, self.editor.survey, "surface"
                 )
                 surfaces.append(result)
@@ -121,6 +128,8 @@ class RoomTables:
             left_out = judging.without_left_out(self.record(), "surface", result)
             self._replace_record("surface", surfaces=surfaces, left_out=left_out)
             self._changed()
+            if index is None and warning:
+                self.app.show_status(warning[0].upper() + warning[1:] + ".")
             if pending is not None:
                 self._to_next_pending(SurfaceTable, "p", pending, f"s{len(surfaces) - 1}")
             elif index is None:  # a new point: the cursor on it, its line under the table
@@ -171,8 +180,9 @@ class RoomTables:
             if result is None:
                 return
             materials = list(self.record(create=True).materials)
+            warning = ""
             if index is None:
-                result, _ = walk.stamped(
+                result, warning = walk.stamped(
                     result, self.app.clock(), self.visit, self.editor.survey, "material"
                 )
                 materials.append(result)
@@ -181,6 +191,8 @@ class RoomTables:
             left_out = judging.without_left_out(self.record(), "material", result)
             self._replace_record("material reading", materials=materials, left_out=left_out)
             self._changed()
+            if index is None and warning:
+                self.app.show_status(warning[0].upper() + warning[1:] + ".")
             if pending is not None:
                 self._to_next_pending(MaterialTable, "q", pending, f"m{len(materials) - 1}")
             elif index is None:
@@ -278,7 +290,7 @@ class RoomTables:
             record = self.record(create=True)
             left_out = [*judging.without_left_out(record, kind, point), mark]
             self._replace_record("point left out", left_out=left_out)
-            self.undo_stack.append(("leave_out", len(left_out) - 1, mark))
+            self.undo_stack.append(("leave_out", len(left_out) - 1, mark, 0))
             self._changed()
             table, prefix = (SurfaceTable, "p") if kind == "surface" else (MaterialTable, "q")
             self._to_next_pending(
@@ -308,7 +320,7 @@ class RoomTables:
         left_out = list(self.record().left_out)
         removed = left_out.pop(index)
         self._replace_record("point left out", left_out=left_out)
-        self.undo_stack.append(("left_out", index, removed))
+        self.undo_stack.append(("left_out", index, removed, 0))
         self._changed()
         self.app.show_status(screens.back_to_read_status(visible(removed.location)))
 
@@ -333,7 +345,8 @@ class RoomTables:
         items = list(getattr(self.record(), kind))
         removed = items.pop(index)
         self._replace_record(kind, **{kind: items})
-        self.undo_stack.append((kind, index, removed))
+        same = _same_point(items, removed) if kind in ("surfaces", "materials") else 0
+        self.undo_stack.append((kind, index, removed, same))
         self._changed()
         label = getattr(removed, "location", "") or getattr(removed, "kind", "")
         self.app.show_status(f"Deleted {visible(label)} — u puts it back.")
@@ -353,7 +366,7 @@ class RoomTables:
         if not self.undo_stack:
             self.app.show_status("Nothing to undo.")
             return
-        kind, index, removed = self.undo_stack.pop()
+        kind, index, removed, same = self.undo_stack.pop()
         if kind == "air":
             self._replace_record("air reading", air=removed)
             self._changed()
@@ -363,6 +376,9 @@ class RoomTables:
         record = self.record(create=True)
         if kind == "leave_out":  # the mark made goes
             key = judging.point_key(removed)
+            if not any(judging.point_key(x) == key for x in record.left_out):
+                self.app.show_status(screens.read_since_status(visible(removed.location)))
+                return  # read since: the mark went with the reading
             left_out = [x for x in record.left_out if judging.point_key(x) != key]
             self._replace_record("point left out", left_out=left_out)
             self._changed()
@@ -380,6 +396,10 @@ class RoomTables:
             self.app.show_status(screens.left_again_status(visible(removed.location)))
             return
         items = list(getattr(record, kind))
+        if kind in ("surfaces", "materials") and _same_point(items, removed) > same:
+            # read again since: putting the old reading back would read it twice
+            self.app.show_status(screens.read_again_since_status(visible(removed.location)))
+            return
         items.insert(min(index, len(items)), removed)
         point_kind = "surface" if kind == "surfaces" else "material"
         changes = {kind: items}

@@ -20,6 +20,7 @@ from survey.app.fields import plain
 from survey.app.footer import KeysFooter
 from survey.app.status import StatusBar
 from survey.errors import InputError
+from survey.words import screens
 
 
 class Form(VerticalScroll, can_focus=False):
@@ -187,23 +188,20 @@ def stamped(
             "",
         )
     now = now.replace(microsecond=0)
-    reading = msgspec.structs.replace(reading, taken_at=now)
     if survey is not None and reading.instrument is None:
         reading = msgspec.structs.replace(
             reading, instrument=default_instrument(survey, reading_kind)
         )
     try:
         hours = (now - visit.started_at).total_seconds() / 3600.0
-    except TypeError:  # a visit time with a time zone: no comparison
-        return reading, ""
-    if hours <= LATE_READING_H:
-        return reading, ""
-    when = f"{hours / 24:,.0f} days" if hours > 48 else f"{hours:.0f} h"
-    return reading, (
-        f"taken {when} after this visit began "
-        f"({visit.started_at:%Y-%m-%d %H:%M}); if this is a later visit, "
-        "F3 then F7 starts one"
-    )
+    except TypeError:  # a visit time with a time zone and a clock without: no comparison
+        return msgspec.structs.replace(reading, taken_at=now), ""
+    if -LATE_READING_H <= hours <= LATE_READING_H:
+        return msgspec.structs.replace(reading, taken_at=now), ""
+    # The clock is far from the visit (a visit written up later, or a start mistyped): the
+    # reading gets no time, so it counts as taken at the visit's start; stamping the clock
+    # would put it days off and skew the drying rates.
+    return reading, screens.untimed_reading_warning(hours, visit.started_at)
 
 
 # --- parsers: text -> stored value (raise InputError) ----------------------------------------

@@ -175,8 +175,9 @@ LEFT_OUT_CHOICES = (
 
 
 def left_out_brief(point: model.LeftOut) -> str:
-    """A point left out, in a table cell: its reason, else what became of it."""
-    return point.reason or ("gone for good" if point.for_good else "again next visit")
+    """A point left out, in a table cell: what became of it (the reason is in the line
+    under the table)."""
+    return "gone for good" if point.for_good else "again next visit"
 
 
 def left_out_detail(point: model.LeftOut) -> str:
@@ -231,6 +232,10 @@ def left_again_status(location: str) -> str:
 
 def read_since_status(location: str) -> str:
     return f"{location} was read since, so it is not left out again."
+
+
+def read_again_since_status(location: str) -> str:
+    return f"{location} was read again since; the reading deleted is not put back."
 
 
 def read_again_title(kind: model.PointKind) -> str:
@@ -305,3 +310,16 @@ def readings_moved_status(count: int, by: dt.timedelta) -> str:
 
 def readings_not_moved_status(problem: str) -> str:
     return f"The readings' times were not moved: {problem}."
+
+
+def untimed_reading_warning(hours: float, started_at: dt.datetime) -> str:
+    """A reading saved without the clock's time, the clock being ``hours`` from the visit's
+    start (after it, or before it when negative)."""
+    size = abs(hours)
+    when = f"{size / 24:,.0f} days" if size > 48 else f"{size:.0f} h"
+    way = "after this visit began" if hours > 0 else "before this visit begins"
+    return (
+        f"saved without a time: the clock is {when} {way} ({started_at:%Y-%m-%d %H:%M}), so "
+        "it counts as taken at the visit's start; if this is a later visit, F3 then F7 "
+        "starts one"
+    )
