@@ -281,7 +281,7 @@ def test_a_reading_typed_far_from_its_visit_gets_no_time_and_counts_at_the_start
     reading = model.AirReading(dry_bulb_c=20.0, rh_pct=50.0)
     late, said = walk.stamped(reading, start + dt.timedelta(days=665), visit)
     assert late.taken_at is None
-    assert said.startswith("saved without a time: the clock is 665 days after this visit")
+    assert said.startswith("no time kept: the clock is 665 days after this visit")
     near, said = walk.stamped(reading, start + dt.timedelta(hours=1), visit)
     assert near.taken_at == start + dt.timedelta(hours=1) and said == ""
     early, said = walk.stamped(reading, start - dt.timedelta(days=2), visit)

@@ -319,7 +319,7 @@ def untimed_reading_warning(hours: float, started_at: dt.datetime) -> str:
     when = f"{size / 24:,.0f} days" if size > 48 else f"{size:.0f} h"
     way = "after this visit began" if hours > 0 else "before this visit begins"
     return (
-        f"saved without a time: the clock is {when} {way} ({started_at:%Y-%m-%d %H:%M}), so "
+        f"no time kept: the clock is {when} {way} ({started_at:%Y-%m-%d %H:%M}), so "
         "it counts as taken at the visit's start; if this is a later visit, F3 then F7 "
         "starts one"
     )
