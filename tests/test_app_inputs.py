@@ -113,6 +113,17 @@ def _demo_without_room_air(tmp_path) -> Path:
     return path
 
 
+async def _type_first_surface_temp(pilot, app, *keys: str) -> None:
+    """On the first room, its first surface's dialog opened and ``keys`` typed over its
+    temperature, then Enter."""
+    await goto(pilot, app, "room")
+    app.screen.query_one("#surfaces").focus()
+    await pilot.press("e")
+    await pilot.pause()
+    await pilot.press("ctrl+a", "ctrl+k", *keys, "enter")
+    await pilot.pause()
+
+
 async def goto(pilot, app, screen: str) -> None:
     if screen == "room":
         app.open_room(app.editor.survey.rooms[0].id)
@@ -167,12 +178,7 @@ async def test_a_bad_surface_temperature_is_not_saved(tmp_path):
     before = path.read_bytes()
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await goto(pilot, app, "room")
-        app.screen.query_one("#surfaces").focus()
-        await pilot.press("e")
-        await pilot.pause()
-        await pilot.press("ctrl+a", "ctrl+k", "minus", "7", "0", "enter")
-        await pilot.pause()
+        await _type_first_surface_temp(pilot, app, "minus", "7", "0")
         assert type(app.screen).__name__ == "SurfaceDialog"
         assert "-70" in message_of(app, "surface-temp")
         await pilot.press("escape")
@@ -427,12 +433,7 @@ async def test_an_unlikely_surface_or_daily_use_is_taken_after_a_warning(tmp_pat
     path = _demo_without_room_air(tmp_path)
     app = make_app(path, data_dir=tmp_path / "data")
     async with app.run_test(size=SIZE) as pilot:
-        await goto(pilot, app, "room")
-        app.screen.query_one("#surfaces").focus()
-        await pilot.press("e")
-        await pilot.pause()
-        await pilot.press("ctrl+a", "ctrl+k", "5", "0", "enter")
-        await pilot.pause()
+        await _type_first_surface_temp(pilot, app, "5", "0")
         assert type(app.screen).__name__ == "SurfaceDialog"
         said = str(app.screen.query_one("#dialog-message").render())
         assert said.startswith("Check the value above before saving: Enter again saves it")
