@@ -22,6 +22,18 @@ def _steady(app) -> None:
         widget.cursor_blink = False
 
 
+async def _settled(pilot, app) -> None:
+    """Until the screen has stopped changing: the saves done, the refreshes asked for after
+    a layout (the room's lines under its tables scroll into sight then) run, and no
+    animation left. Two pauses were not always enough on a loaded machine: the room's
+    form was caught before its last layout, its scroll bar a row off."""
+    await app.workers.wait_for_complete()
+    for _ in range(4):
+        await pilot.pause()
+    await pilot.wait_for_scheduled_animations()
+    await pilot.pause()
+
+
 @pytest.fixture
 def demo_app(tmp_path, monkeypatch):
     """The demo survey as ``survey.json`` in a temporary folder (shown by that name)."""
@@ -44,8 +56,7 @@ def test_room_screen(snap_compare, demo_app, size):
 
     async def open_room(pilot):
         app.open_room(app.editor.survey.rooms[0].id)
-        await pilot.pause()
-        await pilot.pause()
+        await _settled(pilot, app)
         _steady(app)
 
     assert snap_compare(app, terminal_size=size, run_before=open_room)
