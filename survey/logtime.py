@@ -1,6 +1,7 @@
 """Logger times as people's software writes them: ISO 8601 with or without an offset, day or
 month first with slashes, dots or dashes, two-digit years, AM/PM, a month as a word; and
-which of day/month/year or month/day/year a file uses, settled by the dates themselves.
+which of day/month/year or month/day/year a file uses, settled by the dates themselves; and
+the time between two such times (:func:`between`).
 """
 
 from __future__ import annotations
@@ -10,6 +11,15 @@ import re
 from typing import Literal
 
 DateOrder = Literal["dmy", "mdy", "ymd"]
+
+
+def between(start: dt.datetime, end: dt.datetime) -> dt.timedelta:
+    """``end - start``; when only one of them has a time zone, both are read as the
+    wall-clock times written (a survey may mix them: a logger's times with an offset, the
+    visits typed without)."""
+    if (start.tzinfo is None) != (end.tzinfo is None):
+        start, end = start.replace(tzinfo=None), end.replace(tzinfo=None)
+    return end - start
 
 
 _CLOCK = (

@@ -447,9 +447,9 @@ class Visit(Struct, **_RECORD):
         """How many of the visit's readings carry the time they were taken."""
         return sum(1 for _ in _timed(self))
 
-    def moved(self, by: dt.timedelta) -> Visit:
-        """The visit begun ``by`` later (earlier when negative), every reading's time moved
-        with it: for a visit written up at another time than it took place."""
+    def readings_moved(self, by: dt.timedelta) -> Visit:
+        """The visit with every reading's time moved ``by`` (later; earlier when negative),
+        its start as it is: for readings stamped before the start was put right."""
 
         def move(reading: _Timed) -> _Timed:
             if reading is None or reading.taken_at is None:
@@ -469,9 +469,7 @@ class Visit(Struct, **_RECORD):
             )
             for rv in self.rooms
         ]
-        return msgspec.structs.replace(
-            self, started_at=self.started_at + by, outdoor=move(self.outdoor), rooms=rooms
-        )
+        return msgspec.structs.replace(self, outdoor=move(self.outdoor), rooms=rooms)
 
     def room_visit(self, room_id: str) -> RoomVisit | None:
         """This visit's record for ``room_id``, if the room was seen."""

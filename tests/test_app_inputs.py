@@ -9,7 +9,6 @@ import datetime as dt
 import shutil
 from pathlib import Path
 
-import msgspec
 import pytest
 from textual import events
 
@@ -478,10 +477,8 @@ async def test_moving_a_visits_start_offers_to_move_its_readings_with_it(tmp_pat
         await app.workers.wait_for_complete()
         await pilot.pause()
     moved = store.load_survey(path).visits[0]
-    # every timed reading a day back (model.Visit.moved), the start back where it was
-    expected = msgspec.structs.replace(
-        before.moved(-dt.timedelta(days=1)), started_at=before.started_at
-    )
+    # every timed reading a day back, the start back where it was
+    expected = before.readings_moved(-dt.timedelta(days=1))
     assert moved == expected and moved != before
 
 

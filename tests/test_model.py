@@ -459,8 +459,9 @@ def test_example_people_and_places_are_plainly_invented(path):
 
 
 def test_a_visit_moved_moves_every_timed_reading_and_only_those():
-    """Moved back a day, a visit's start and every reading that carries a time move by the
-    same (outdoor air, room air, a surface, a material point, a unit's outlet and inlet);
+    """Moved back a day, every reading of a visit that carries a time moves by the same
+    (outdoor air, room air, a surface, a material point, a unit's outlet and inlet), and
+    the visit's start stays as it is;
     a reading with no time keeps none (it is read as taken at the start). Log samples are
     the logger's own times and belong to no visit."""
     at = dt.datetime(2025, 2, 6, 9, 30)
@@ -493,10 +494,10 @@ def test_a_visit_moved_moves_every_timed_reading_and_only_those():
     )
     assert visit.readings_timed() == 6
     day = dt.timedelta(days=1)
-    moved = visit.moved(-day)
+    moved = visit.readings_moved(-day)
     rv = moved.rooms[0]
+    assert moved.started_at == at
     times = [
-        moved.started_at,
         moved.outdoor.taken_at,
         rv.air.taken_at,
         rv.surfaces[0].taken_at,
@@ -504,7 +505,7 @@ def test_a_visit_moved_moves_every_timed_reading_and_only_those():
         rv.equipment[0].outlet.taken_at,
         rv.equipment[0].inlet.taken_at,
     ]
-    assert times == [at - day] * 7
+    assert times == [at - day] * 6
     assert rv.surfaces[1].taken_at is None
     assert visit.rooms[0].air.taken_at == at  # the visit moved is a new one
-    assert visit.moved(dt.timedelta(0)) == visit
+    assert visit.readings_moved(dt.timedelta(0)) == visit

@@ -10,7 +10,7 @@ from textual import on
 from textual.containers import Horizontal
 from textual.widgets import Button, Select, Static
 
-from survey import model, psychro
+from survey import logtime, model, psychro, store
 from survey.app import walk
 from survey.app.air import AirPair
 from survey.app.dialogs import ConfirmDialog
@@ -27,14 +27,6 @@ def _start_text(at: dt.datetime) -> str:
         return text
     zone = at.strftime("%z")  # "+0100"
     return f"{text}{zone[:3]}:{zone[3:5]}"
-
-
-def _between(earlier: dt.datetime, later: dt.datetime) -> dt.timedelta:
-    """``later - earlier``; where one has a time zone and the other not, as the wall-clock
-    times written (as drying progress reads such a pair)."""
-    if (earlier.tzinfo is None) != (later.tzinfo is None):
-        earlier, later = earlier.replace(tzinfo=None), later.replace(tzinfo=None)
-    return later - earlier
 
 
 def _choices(survey: model.Survey) -> list[tuple[Text, int]]:
@@ -149,7 +141,7 @@ class VisitScreen(walk.WalkScreen):
             if name in ("started_at", "label"):
                 self._visit_choices()
             if name == "started_at":
-                self._offer_move(_between(before.started_at, value))
+                self._offer_move(logtime.between(before.started_at, value))
             return ""
 
         return commit
@@ -177,10 +169,9 @@ class VisitScreen(walk.WalkScreen):
             if not yes:
                 return
             visits = self.editor.survey.visits
-            start = visits[index].started_at
-            try:  # the start was set already: only the readings move
-                moved = visits[index].moved(by)
-                moved = walk.checked(moved, "Reading times", started_at=start)
+            try:  # (the start was set already)
+                moved = visits[index].readings_moved(by)
+                store.check_record(moved)
             except (InputError, OverflowError) as exc:
                 self.app.show_status(screens.readings_not_moved_status(str(exc)), "error")
                 return

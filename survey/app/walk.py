@@ -14,7 +14,7 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.screen import Screen
 from textual.widgets import Label, Static
 
-from survey import model, store, units
+from survey import logtime, model, store, units
 from survey.app.editing import Editor
 from survey.app.fields import plain
 from survey.app.footer import KeysFooter
@@ -192,10 +192,8 @@ def stamped(
         reading = msgspec.structs.replace(
             reading, instrument=default_instrument(survey, reading_kind)
         )
-    try:
-        hours = (now - visit.started_at).total_seconds() / 3600.0
-    except TypeError:  # a visit time with a time zone and a clock without: no comparison
-        return msgspec.structs.replace(reading, taken_at=now), ""
+    # (a visit time with a time zone against the clock without: as the wall clocks read)
+    hours = logtime.between(visit.started_at, now).total_seconds() / 3600.0
     if -LATE_READING_H <= hours <= LATE_READING_H:
         return msgspec.structs.replace(reading, taken_at=now), ""
     # The clock is far from the visit (a visit written up later, or a start mistyped): the

@@ -82,6 +82,7 @@ from survey.drying.trend import (
     recent_fit,
     trend_of,
 )
+from survey.logtime import between
 from survey.safe_text import fold
 
 __all__ = [
@@ -119,16 +120,10 @@ def point_key(location: str, material: str, scale: str) -> PointKey:
     return (fold(location), fold(material), scale)
 
 
-def _wall_clock(at: dt.datetime) -> dt.datetime:
-    return at.replace(tzinfo=None)
-
-
 def days_between(start: dt.datetime, end: dt.datetime) -> float:
-    """Days from ``start`` to ``end``; when only one of them has a time zone both are read
-    as the wall-clock times written."""
-    if (start.tzinfo is None) != (end.tzinfo is None):
-        start, end = _wall_clock(start), _wall_clock(end)
-    return (end - start).total_seconds() / _DAY_S
+    """Days from ``start`` to ``end`` (:func:`survey.logtime.between`: a pair with and
+    without a time zone is read as the wall-clock times written)."""
+    return between(start, end).total_seconds() / _DAY_S
 
 
 # --- records ----------------------------------------------------------------------------------
