@@ -1,6 +1,8 @@
 """Drying progress in words: each material point against its goal, the rate and the days
 left or that drying has stalled, the room air's trend, and a logger's days — for the report
-and the app alike, numbers in a :class:`~survey.words.display.Display`'s units.
+and the app alike, numbers in a :class:`~survey.words.display.Display`'s units. A logger's
+days are in :mod:`survey.words.drying_loggers`, a rate's decimals in
+:mod:`survey.words.drying_rates`; their names are re-exported here.
 
 Plain strings, no markup. The records are :mod:`survey.drying`'s.
 """
@@ -8,15 +10,12 @@ Plain strings, no markup. The records are :mod:`survey.drying`'s.
 from __future__ import annotations
 
 import datetime as dt
-from collections.abc import Callable, Mapping
+from collections.abc import Mapping
 
 from survey import thresholds as th
 from survey.advise.kinds import Caution
 from survey.drying import (
-    Fit,
     GoalEstimate,
-    LoggerDay,
-    LoggerSummary,
     MaterialPoint,
     PointReading,
     RoomAir,
@@ -26,6 +25,50 @@ from survey.drying import (
 from survey.drying.trend import INTERVAL_CONFIDENCE_PCT
 from survey.words.cautions import CAUTION_NAMES, caution_text
 from survey.words.display import Display
+from survey.words.drying_loggers import (
+    AIR_RH_NOTE as AIR_RH_NOTE,
+)
+from survey.words.drying_loggers import (
+    OUTDOORS as OUTDOORS,
+)
+from survey.words.drying_loggers import (
+    day_text as day_text,
+)
+from survey.words.drying_loggers import (
+    hours_text as hours_text,
+)
+from survey.words.drying_loggers import (
+    is_room_air as is_room_air,
+)
+from survey.words.drying_loggers import (
+    logger_day_line as logger_day_line,
+)
+from survey.words.drying_loggers import (
+    logger_gaps_text as logger_gaps_text,
+)
+from survey.words.drying_loggers import (
+    logger_header as logger_header,
+)
+from survey.words.drying_loggers import (
+    logger_heading as logger_heading,
+)
+from survey.words.drying_loggers import (
+    logger_trend_text as logger_trend_text,
+)
+from survey.words.drying_loggers import (
+    ratio_range_text as ratio_range_text,
+)
+from survey.words.drying_loggers import (
+    rh_kind as rh_kind,
+)
+from survey.words.drying_loggers import (
+    rh_range_text as rh_range_text,
+)
+from survey.words.drying_loggers import (
+    temperature_range_text as temperature_range_text,
+)
+from survey.words.drying_rates import _rate_and_band
+from survey.words.drying_rates import air_rate_text as air_rate_text
 from survey.words.report import date_text
 from survey.words.report_room import reading_text
 from survey.words.screens import LEFT_OUT_CELL as LEFT_OUT_CELL
@@ -52,7 +95,6 @@ POINTS_HEADER = (
     "Time to goal",
 )
 LIMITS_LEAD = "Limits behind these tables:"
-OUTDOORS = "Outdoors"
 
 
 def basis_text() -> str:
@@ -108,27 +150,6 @@ def _number(value: float) -> str:
     return f"{value:.2f}" if abs(value) < 0.1 else f"{value:.1f}"
 
 
-def _se_places(render: Callable[[int], str], base: int) -> int | None:
-    """The decimals that show a standard error to one significant figure (two when it
-    begins with 1; common practice, no source), at least ``base``; ``None`` when it needs
-    more than one decimal past ``base`` (then it is too small to matter beside the rate and
-    is left out). ``render(places)`` writes it."""
-    for places in range(base, base + 2):
-        digits = render(places).replace(".", "").replace("-", "").lstrip("0")
-        if digits and (digits[0] != "1" or len(digits) >= 2):
-            return places
-    return None
-
-
-def _rate_and_band(rate: float, se: float | None, base: int) -> tuple[str, str]:
-    """A plain rate and its " ± se" band (empty when there is no standard error or it is
-    too small to show), the rate at the band's decimals."""
-    places = None if se is None else _se_places(lambda k: f"{se:.{k}f}", base)
-    if se is None or places is None:
-        return f"{rate:.{base}f}", ""
-    return f"{rate:.{places}f}", f" ± {se:.{places}f}"
-
-
 def margin_text(margin_k: float | None, label: str | None, d: Display) -> str:
     """The worst surface's margin to the dew (or frost) point, and which surface it is."""
     if margin_k is None or label is None:
@@ -136,29 +157,6 @@ def margin_text(margin_k: float | None, label: str | None, d: Display) -> str:
     if margin_k <= 0.0:
         return f"{label}: −{d.difference(-margin_k)} (condensing)"
     return f"{label}: {d.difference(margin_k)}"
-
-
-def air_rate_text(fit: Fit | None, quantity: str, d: Display) -> str:
-    """A fitted rate of the room air: "falling 1.66 ± 0.18 g/kg a day"."""
-    if fit is None:
-        return "one reading only"
-    rate = fit.rate_per_day
-    word = "falling" if rate < 0 else "rising"
-    se = fit.rate_se_per_day
-    if quantity == "rh":
-        size, band = _rate_and_band(abs(rate), se, 1)
-        return f"{word} {size}{band} % RH a day"
-    base = 1 if d.ip else 2  # the display's own decimals for a humidity ratio
-    places = (
-        None
-        if se is None
-        else _se_places(lambda k: d("humidity_ratio", se, decimals=k, unit=False), base)
-    )
-    if se is None or places is None:
-        return f"{word} {d('humidity_ratio', abs(rate))} a day"
-    number, unit = d("humidity_ratio", abs(rate), decimals=places).split(" ", 1)
-    band = d("humidity_ratio", se, decimals=places, unit=False)
-    return f"{word} {number} ± {band} {unit} a day"
 
 
 def room_air_sentence(room: RoomDrying, d: Display) -> str:
@@ -472,130 +470,4 @@ def room_goals_text(room: RoomDrying) -> str:
         f"{room.goals_met} of {room.goals_set} material point"
         f"{'' if room.goals_set == 1 else 's'} at {'its' if room.goals_set == 1 else 'their'} "
         f"drying goal{gone_said}."
-    )
-
-
-# --- loggers ---------------------------------------------------------------------------------
-
-
-def logger_heading(summary: LoggerSummary, room_name: str | None) -> str:
-    where = (
-        OUTDOORS.lower()
-        if summary.room_id is None
-        else (
-            f"{room_name}, on the surface {summary.surface}"
-            if summary.surface
-            else f"{room_name}, room air"
-        )
-    )
-    return f"Logger {summary.source} ({where})"
-
-
-def rh_kind(summary: LoggerSummary) -> str:
-    """Whose RH a logger's hours count: a surface's, or the air's (room or outdoor)."""
-    return "surface RH" if summary.surface else "air RH"
-
-
-def is_room_air(summary: LoggerSummary) -> bool:
-    """A logger in a room's air (not on a surface, not outdoors)."""
-    return summary.room_id is not None and not summary.surface
-
-
-#: Said once beside the loggers in a room's air: their hours above 80 % apply the surface
-#: mould limit to the air.
-AIR_RH_NOTE = (
-    "A logger in the room air counts the hours the air's RH is above the 80 % mould limit, "
-    "which is a limit for surfaces: air under 80 % does not clear the surfaces, because a "
-    "surface colder than the air has a higher RH than the air (the colder, the higher)."
-)
-
-
-def logger_header(d: Display, summary: LoggerSummary | None = None) -> tuple[str, ...]:
-    """The logger days table's header; the hours columns say whose RH (``summary``'s)."""
-    mould = th.value("surface_rh_mould_limit_pct")
-    wet = th.value("logger_rh_wet_pct")
-    kind = "RH" if summary is None else rh_kind(summary)
-    return (
-        "Day",
-        "Samples",
-        "Hours logged",
-        "Temperature, mean (low to high)",
-        "RH, mean (low to high)",
-        "Humidity ratio, mean (low to high)",
-        f"Hours above {mould:.0f} % {kind}",
-        f"Hours above {wet:.0f} % {kind}",
-    )
-
-
-def day_text(day: dt.date) -> str:
-    return date_text(day)
-
-
-def temperature_range_text(day: LoggerDay, d: Display) -> str:
-    t = day.temp_c
-    return f"{d.temperature(t.mean)} ({d.temperature(t.low)} to {d.temperature(t.high)})"
-
-
-def rh_range_text(day: LoggerDay) -> str:
-    r = day.rh_pct
-    return f"{r.mean:.0f} % ({r.low:.0f} to {r.high:.0f} %)"
-
-
-def ratio_range_text(day: LoggerDay, d: Display) -> str:
-    w = day.humidity_ratio_kg_per_kg
-    if w is None:
-        return "–"
-    return (
-        f"{d('humidity_ratio', w.mean)} ({d('humidity_ratio', w.low, unit=False)} to "
-        f"{d('humidity_ratio', w.high)})"
-    )
-
-
-def hours_text(hours: float) -> str:
-    return f"{hours:.1f}"
-
-
-def logger_day_line(day: LoggerDay, d: Display, kind: str = "RH") -> str:
-    """One logger day in a line, as the app lists them; ``kind`` says whose RH the hours
-    count (:func:`rh_kind`)."""
-    mould = th.value("surface_rh_mould_limit_pct")
-    wet = th.value("logger_rh_wet_pct")
-    return (
-        f"{day_text(day.day)}: {temperature_range_text(day, d)}, {rh_range_text(day)}, "
-        f"{ratio_range_text(day, d)}; {hours_text(day.hours_above_mould_rh)} h above "
-        f"{mould:.0f} % and {hours_text(day.hours_above_wet_rh)} h above {wet:.0f} % {kind} "
-        f"({hours_text(day.hours_logged)} h logged, {day.samples} samples)."
-    )
-
-
-def logger_gaps_text(summary: LoggerSummary) -> str:
-    """The series' usual interval and the gaps left out of the hours."""
-    if summary.interval_h is None or summary.gap_limit_h is None:
-        return "Too few samples for hours to be counted."
-    usual = _duration(summary.interval_h)
-    limit = _duration(summary.gap_limit_h)
-    text = f"Samples every {usual} as a rule; gaps longer than {limit} are not counted"
-    if summary.gaps_left_out:
-        plural = "s" if summary.gaps_left_out != 1 else ""
-        text += (
-            f" ({summary.gaps_left_out} gap{plural}, {hours_text(summary.hours_left_out)} h, "
-            "left out)"
-        )
-    return text + "."
-
-
-def _duration(hours: float) -> str:
-    if hours < 1.0:
-        return f"{hours * 60:.0f} minutes"
-    return f"{hours:g} hours" if hours == int(hours) else f"{hours:.1f} hours"
-
-
-def logger_trend_text(summary: LoggerSummary, d: Display) -> str:
-    """The daily means' trend."""
-    if summary.humidity_ratio_fit is None:
-        return "One day logged: no trend yet."
-    return (
-        f"Daily mean humidity ratio {air_rate_text(summary.humidity_ratio_fit, 'ratio', d)}, "
-        f"daily mean RH {air_rate_text(summary.rh_fit, 'rh', d)} (over the last "
-        f"{summary.humidity_ratio_fit.readings} days)."
     )
