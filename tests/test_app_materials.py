@@ -331,8 +331,9 @@ async def test_a_point_of_last_visit_left_out_by_keys_then_put_back_and_read(tmp
 
 async def test_a_point_added_has_the_cursor_and_the_line_under_the_table(tmp_path):
     """A surface added by keys (a, location, Enter through the fields, a temperature) is
-    the highlighted row, with its line under the table; back on the room list the status
-    line says the last save, not a message from before."""
+    the highlighted row, with its line under the table, and typed far from the visit's
+    start it is kept without a time, said on the status line; back on the room list the
+    status line says the last save, not a message from before."""
     app = make_app(_demo_copy(tmp_path), data_dir=tmp_path / "data")
     async with app.run_test(size=(100, 30)) as pilot:
         await pilot.pause()
@@ -353,6 +354,10 @@ async def test_a_point_added_has_the_cursor_and_the_line_under_the_table(tmp_pat
         assert type(app.screen).__name__ == "RoomScreen"
         assert table.cursor_row == table.row_count - 1
         assert _detail(app, "surfaces").startswith("Door reveal, hinge side (")
+        # the clock (today) is far from the demo visit (January 2025): no time kept, said
+        assert app.status_text.startswith("No time kept: the clock is")
+        reading = app.editor.survey.visits[0].rooms[0].surfaces[-1]
+        assert reading.location == "Door reveal, hinge side" and reading.taken_at is None
         await pilot.press("escape")  # to the room list
         await pilot.pause()
         await pilot.press("enter")  # into a room again

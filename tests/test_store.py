@@ -896,52 +896,41 @@ def test_a_version_1_file_loads_unchanged_as_the_current_version(tmp_path, name)
     assert upgraded == expected
 
 
-def test_a_version_2_room_without_occupants_had_none_and_a_version_3_room_has_them_unrecorded(
-    tmp_path,
+@pytest.mark.parametrize(
+    ("example", "field", "old"),
+    [
+        # version 2 left out a room's 0 occupants; version 3 leaves out occupants not
+        # recorded
+        ("winter-flat-bedroom-mould", "occupants", 2),
+        # version 3 left out a ground-floor room's storey (0 was the default); version 4
+        # leaves out a storey not recorded
+        ("coastal-cottage-summer", "level", 3),
+    ],
+)
+def test_a_field_left_out_meant_0_before_and_means_not_recorded_after(
+    tmp_path, example, field, old
 ):
-    """Version 2 left out a room's 0 occupants; version 3 leaves out occupants not
-    recorded. The upgrade writes the 0 in, so the version-2 file keeps its meaning."""
-    source = Path("example_sites") / "winter-flat-bedroom-mould.json"
+    """A room's field whose missing value meant 0 in version ``old`` and means "not
+    recorded" in the next: the upgrade writes the 0 in, so the old file keeps its meaning;
+    a file of the next version without it reads None, and is saved without it."""
+    source = Path("example_sites") / f"{example}.json"
     doc = json.loads(source.read_text())
     kitchen = next(room for room in doc["rooms"] if room["id"] == "kitchen")
-    assert kitchen.pop("occupants") == 0
-    doc["schema_version"] = 2
-    path = tmp_path / "v2.json"
-    path.write_text(json.dumps(doc))
-    assert next(r for r in store.load_survey(path).rooms if r.id == "kitchen").occupants == 0
-    doc["schema_version"] = 3
-    path.write_text(json.dumps(doc))
+    assert kitchen.pop(field) == 0
+    path = tmp_path / f"v{old}.json"
+
+    def kitchen_of(version: int) -> model.Room:
+        doc["schema_version"] = version
+        path.write_text(json.dumps(doc))
+        return next(r for r in store.load_survey(path).rooms if r.id == "kitchen")
+
+    assert getattr(kitchen_of(old), field) == 0
+    if field == "level":  # a storey that was given is kept as it was
+        assert next(r for r in store.load_survey(path).rooms if r.id == "bed1").level == 1
+    assert getattr(kitchen_of(old + 1), field) is None
     loaded = store.load_survey(path)
-    assert next(r for r in loaded.rooms if r.id == "kitchen").occupants is None
     saved = tmp_path / "saved.json"
     store.save_survey(loaded, saved)
-    assert "occupants" not in next(
-        r for r in json.loads(saved.read_text())["rooms"] if r["id"] == "kitchen"
-    )
-
-
-def test_a_version_3_room_without_a_storey_was_on_the_ground_floor_and_a_version_4_room_has_it_unrecorded(  # noqa: E501
-    tmp_path,
-):
-    """Version 3 left out a ground-floor room's storey (0 was the default); version 4
-    leaves out a storey not recorded. The upgrade writes the 0 in, so the version-3 file
-    keeps its meaning, and a version-4 file without it reads "not recorded"."""
-    source = Path("example_sites") / "coastal-cottage-summer.json"
-    doc = json.loads(source.read_text())
-    kitchen = next(room for room in doc["rooms"] if room["id"] == "kitchen")
-    assert kitchen.pop("level") == 0
-    doc["schema_version"] = 3
-    path = tmp_path / "v3.json"
-    path.write_text(json.dumps(doc))
-    upgraded = store.load_survey(path)
-    assert next(r for r in upgraded.rooms if r.id == "kitchen").level == 0
-    assert next(r for r in upgraded.rooms if r.id == "bed1").level == 1
-    doc["schema_version"] = 4
-    path.write_text(json.dumps(doc))
-    loaded = store.load_survey(path)
-    assert next(r for r in loaded.rooms if r.id == "kitchen").level is None
-    saved = tmp_path / "saved.json"
-    store.save_survey(loaded, saved)
-    assert "level" not in next(
+    assert field not in next(
         r for r in json.loads(saved.read_text())["rooms"] if r["id"] == "kitchen"
     )

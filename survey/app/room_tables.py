@@ -129,7 +129,7 @@ class RoomTables:
             self._replace_record("surface", surfaces=surfaces, left_out=left_out)
             self._changed()
             if index is None and warning:
-                self.app.show_status(warning[0].upper() + warning[1:] + ".")
+                self.app.show_status(screens.as_sentence(warning))
             if pending is not None:
                 self._to_next_pending(SurfaceTable, "p", pending, f"s{len(surfaces) - 1}")
             elif index is None:  # a new point: the cursor on it, its line under the table
@@ -192,7 +192,7 @@ class RoomTables:
             self._replace_record("material reading", materials=materials, left_out=left_out)
             self._changed()
             if index is None and warning:
-                self.app.show_status(warning[0].upper() + warning[1:] + ".")
+                self.app.show_status(screens.as_sentence(warning))
             if pending is not None:
                 self._to_next_pending(MaterialTable, "q", pending, f"m{len(materials) - 1}")
             elif index is None:

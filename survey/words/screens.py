@@ -312,6 +312,11 @@ def readings_not_moved_status(problem: str) -> str:
     return f"The readings' times were not moved: {problem}."
 
 
+def as_sentence(phrase: str) -> str:
+    """A warning phrase (as a field shows it after "saved; ") as a sentence of its own."""
+    return phrase[:1].upper() + phrase[1:] + "."
+
+
 def untimed_reading_warning(hours: float, started_at: dt.datetime) -> str:
     """A reading saved without the clock's time, the clock being ``hours`` from the visit's
     start (after it, or before it when negative)."""
