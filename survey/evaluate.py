@@ -224,6 +224,16 @@ def earlier_visits(
     if rooms is None:
         rooms = {r.id: r for r in survey.rooms}
     visits = survey.visits
+    return [
+        EarlierVisit(i, visits[i], _reference_visits(visits[i], rooms))
+        for i in earlier_visit_indexes(survey, visit_index)
+    ]
+
+
+def earlier_visit_indexes(survey: model.Survey, visit_index: int) -> list[int]:
+    """The indexes of :func:`earlier_visits`, latest first, without their reference
+    rooms: the order alone."""
+    visits = survey.visits
     mixed = len({v.started_at.tzinfo is None for v in visits}) > 1
 
     def key(index: int) -> tuple[dt.datetime, int]:
@@ -231,8 +241,7 @@ def earlier_visits(
         return (at.replace(tzinfo=None) if mixed else at), index
 
     mine = key(visit_index % len(visits))
-    before = sorted((i for i in range(len(visits)) if key(i) < mine), key=key, reverse=True)
-    return [EarlierVisit(i, visits[i], _reference_visits(visits[i], rooms)) for i in before]
+    return sorted((i for i in range(len(visits)) if key(i) < mine), key=key, reverse=True)
 
 
 def _reference_visits(visit: model.Visit, rooms: dict[str, model.Room]) -> list[model.RoomVisit]:

@@ -43,10 +43,10 @@ SYMBOL_LEGEND = "✓ clear  ~ near a limit  ! over a limit or unclear  ‼ conde
 
 def _visits_before(survey: model.Survey, visit_index: int) -> list[model.Visit]:
     """The visits begun before this one, earliest first (by start time, as the assessment
-    and drying progress order them: :func:`survey.evaluate.earlier_visits`)."""
+    and drying progress order them: :func:`survey.evaluate.earlier_visit_indexes`)."""
     if not survey.visits:
         return []
-    return [e.visit for e in reversed(evaluate.earlier_visits(survey, visit_index))]
+    return [survey.visits[i] for i in reversed(evaluate.earlier_visit_indexes(survey, visit_index))]
 
 
 def previous_room_visit(
